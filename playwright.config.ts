@@ -1,0 +1,49 @@
+import { defineConfig, devices } from '@playwright/test';
+
+// npm test sets these (scripts/test.mjs); the defaults let `npx playwright test` run after it.
+const port = Number(process.env.PORT ?? 3100);
+const baseURL = process.env.ORIGIN ?? `http://127.0.0.1:${port}`;
+
+export default defineConfig({
+	testDir: 'tests',
+	testMatch: '**/*.e2e.ts',
+	workers: 1,
+	fullyParallel: false,
+	forbidOnly: !!process.env.CI,
+	retries: 0,
+	reporter: [['list']],
+	outputDir: 'test-results',
+	use: {
+		baseURL,
+		screenshot: 'only-on-failure',
+		trace: 'retain-on-failure',
+		launchOptions: {
+			// Debian's Chromium; Playwright never downloads a browser here.
+			executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+			args: [
+				'--no-sandbox',
+				'--disable-gpu',
+				'--disable-quic',
+				'--no-first-run',
+				'--disable-background-networking',
+				'--disable-component-update',
+				'--disable-sync',
+				'--enable-unsafe-swiftshader'
+			]
+		}
+	},
+	projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'] } }],
+	webServer: {
+		command: 'node build',
+		url: `${baseURL}/healthz`,
+		reuseExistingServer: false,
+		timeout: 60_000,
+		env: {
+			...(process.env as Record<string, string>),
+			PORT: String(port),
+			ORIGIN: baseURL,
+			ADMIN_EMAIL: process.env.ADMIN_EMAIL ?? 'first-admin@stakeline.test',
+			ADMIN_PASSWORD: process.env.ADMIN_PASSWORD ?? 'first-admin-password'
+		}
+	}
+});

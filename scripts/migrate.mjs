@@ -1,0 +1,12 @@
+// Applies the committed Drizzle migrations in drizzle/ to DATABASE_URL (npm run db:migrate).
+import { drizzle } from 'drizzle-orm/postgres-js';
+import { migrate } from 'drizzle-orm/postgres-js/migrator';
+import postgres from 'postgres';
+
+if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set');
+const client = postgres(process.env.DATABASE_URL, { max: 1, onnotice: () => {} });
+try {
+	await migrate(drizzle(client), { migrationsFolder: new URL('../drizzle', import.meta.url).pathname });
+} finally {
+	await client.end();
+}

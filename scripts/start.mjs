@@ -1,0 +1,57 @@
+// npm start: sets up everything a fresh clone needs, then serves the app.
+//   node scripts/start.mjs         build and serve (adapter-node) on http://127.0.0.1:3000
+//   node scripts/start.mjs --dev   the same set-up, then vite's dev server
+import fs from 'node:fs';
+import path from 'node:path';
+import { root, settings } from './lib/settings.mjs';
+import { background, log } from './lib/run.mjs';
+import { ensurePostgres } from './lib/pg.mjs';
+import { bin, build, ensureDependencies, migrate, node, seed } from './lib/steps.mjs';
+
+const dev = process.argv.includes('--dev');
+const s = settings('dev');
+const started = Date.now();
+
+ensureDependencies();
+ensurePostgres(s);
+migrate(s.env);
+seed(s.env);
+if (!dev) build();
+
+const env = { ...process.env, ...s.env };
+const children = [];
+if (s.useFakeMail) children.push(background(node, [path.join(root, 'scripts', 'mail-fake.mjs')], { env }));
+const app = dev
+	? background(bin('vite'), ['dev', '--host', s.host, '--port', String(s.port), '--strictPort'], { env, cwd: root })
+	: background(node, [path.join(root, 'build')], { env, cwd: root });
+children.push(app);
+
+for (const sig of ['SIGINT', 'SIGTERM']) {
+	process.on(sig, () => {
+		for (const c of children) c.kill('SIGTERM');
+	});
+}
+app.on('exit', (code) => {
+	for (const c of children) c.kill('SIGTERM');
+	process.exit(code ?? 0);
+});
+
+await waitForHealth(`${s.env.ORIGIN}/healthz`);
+const demo = JSON.parse(fs.readFileSync(path.join(root, 'fixtures', 'demo.json'), 'utf8'));
+log(`Stakeline is ready after ${((Date.now() - started) / 1000).toFixed(1)} s: ${s.env.ORIGIN}`);
+console.log(`\n  Demo sign-ins (password for all: ${demo.password})`);
+for (const u of demo.users) console.log(`    ${u.role.padEnd(10)} ${u.email.padEnd(34)} ${u.note ?? ''}`);
+if (s.useFakeMail) console.log(`\n  Mail sent by the app: ${s.env.ORIGIN}/dev/mailbox`);
+console.log('  Stop with Ctrl-C; the database keeps running (npm run db:stop stops it).\n');
+
+async function waitForHealth(url) {
+	for (let i = 0; i < 300; i++) {
+		try {
+			if ((await fetch(url)).ok) return;
+		} catch {
+			/* not up yet */
+		}
+		await new Promise((r) => setTimeout(r, 200));
+	}
+	log(`The app did not answer ${url} within a minute`);
+}

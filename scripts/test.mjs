@@ -1,0 +1,39 @@
+// npm test: the same set-up as npm start against a fresh test database, then every check:
+// svelte-check, Vitest (unit + integration on the real PostgreSQL), the build, and Playwright in
+// Debian's Chromium. Exits non-zero on the first failure.
+import path from 'node:path';
+import { root, settings } from './lib/settings.mjs';
+import { background, log, run } from './lib/run.mjs';
+import { ensurePostgres } from './lib/pg.mjs';
+import { bin, build, chromiumPath, ensureDependencies, migrate, node, seed } from './lib/steps.mjs';
+
+const s = settings('test');
+const t0 = Date.now();
+const step = (name, fn) => {
+	const t = Date.now();
+	log(name);
+	fn();
+	log(`${name}: ${((Date.now() - t) / 1000).toFixed(1)} s`);
+};
+
+try {
+	ensureDependencies();
+	ensurePostgres(s, { freshDatabase: true });
+	migrate(s.env);
+	seed(s.env);
+	const env = { ...process.env, ...s.env, CHROMIUM_PATH: chromiumPath() };
+	if (s.useFakeMail) background(node, [path.join(root, 'scripts', 'mail-fake.mjs')], { env });
+	const opts = { cwd: root, env };
+	step('Type check (svelte-check)', () => {
+		run(bin('svelte-kit'), ['sync'], opts);
+		run(bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings'], opts);
+	});
+	step('Unit and integration tests (vitest)', () => run(bin('vitest'), ['run'], opts));
+	step('Build', () => build({ force: true }));
+	step('End-to-end tests (playwright)', () => run(bin('playwright'), ['test'], opts));
+	log(`All checks passed in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
+	process.exit(0);
+} catch (err) {
+	console.error(`\n✖ ${err.message}`);
+	process.exit(1);
+}

@@ -1,0 +1,41 @@
+import type { Handle, ServerInit } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { building } from '$app/environment';
+import { env } from '$env/dynamic/private';
+import * as auth from '$lib/server/auth';
+import { startMailWorker } from '$lib/server/mail';
+import { ensureAdmin } from '$lib/server/users';
+import { client } from '$lib/server/db';
+
+export const init: ServerInit = async () => {
+	if (building) return;
+	await ensureAdmin(env.ADMIN_EMAIL, env.ADMIN_PASSWORD);
+	startMailWorker();
+	process.on('sveltekit:shutdown', () => void client.end({ timeout: 5 }));
+};
+
+const handleAuth: Handle = async ({ event, resolve }) => {
+	const token = event.cookies.get(auth.sessionCookieName);
+	if (!token) {
+		event.locals.user = null;
+		event.locals.session = null;
+		return resolve(event);
+	}
+	const { session, user } = await auth.validateSessionToken(token);
+	if (session) auth.setSessionTokenCookie(event, token, session.expiresAt);
+	else auth.deleteSessionTokenCookie(event);
+	event.locals.user = user;
+	event.locals.session = session;
+	return resolve(event);
+};
+
+const securityHeaders: Handle = async ({ event, resolve }) => {
+	const response = await resolve(event);
+	response.headers.set('X-Content-Type-Options', 'nosniff');
+	response.headers.set('Referrer-Policy', 'strict-origin-when-cross-origin');
+	response.headers.set('X-Frame-Options', 'DENY');
+	response.headers.set('Permissions-Policy', 'camera=(), microphone=(), geolocation=()');
+	return response;
+};
+
+export const handle = sequence(handleAuth, securityHeaders);

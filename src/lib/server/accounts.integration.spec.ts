@@ -1,0 +1,152 @@
+// Integration tests on the real PostgreSQL test database (npm test creates it fresh).
+import nodemailer from 'nodemailer';
+import { afterAll, describe, expect, it } from 'vitest';
+import { eq, sql } from 'drizzle-orm';
+import { client, db } from './db';
+import { contractor, devMail, emailToken, mailOutbox, session, user } from './db/schema';
+import { createSession, generateSessionToken, invalidateUserSessions, validateSessionToken } from './auth';
+import { consumeEmailToken, createEmailToken, peekEmailToken } from './email-tokens';
+import { deliverDue, queueMail } from './mail';
+import { verifyPassword } from './password';
+import { clearSignInFailures, recordSignInFailure, signInWait } from './throttle';
+import { hashToken } from './tokens';
+import { createUser, EmailTakenError } from './users';
+
+const DAY = 86_400_000;
+const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
+
+afterAll(() => client.end());
+
+describe('users', () => {
+	it('are stored with a lower-cased e-mail and an argon2id hash, never the password', async () => {
+		const email = unique('Case');
+		const u = await createUser({ name: '  Wren  ', email: email.toUpperCase(), password: 'stake-every-4-ft', role: 'homeowner' });
+		expect(u.email).toBe(email.toLowerCase());
+		expect(u.name).toBe('Wren');
+		expect(u.passwordHash.startsWith('$argon2id$')).toBe(true);
+		expect(await verifyPassword(u.passwordHash, 'stake-every-4-ft')).toBe(true);
+		expect(u.emailVerifiedAt).toBeNull();
+	});
+
+	it('refuse a second account with the same e-mail in any case, storing nothing', async () => {
+		const email = unique('dup');
+		await createUser({ name: 'First', email, password: 'first-password', role: 'homeowner' });
+		await expect(createUser({ name: 'Second', email: email.toUpperCase(), password: 'second-password', role: 'contractor' })).rejects.toBeInstanceOf(EmailTakenError);
+		const rows = await db.select().from(user).where(eq(user.email, email));
+		expect(rows.map((r) => r.name)).toEqual(['First']);
+	});
+
+	it('start contractors awaiting review', async () => {
+		const u = await createUser({ name: 'Formwright', email: unique('pro'), password: 'contractor-pass', role: 'contractor' });
+		const [c] = await db.select().from(contractor).where(eq(contractor.userId, u.id));
+		expect(c.status).toBe('awaiting_review');
+	});
+});
+
+describe('sessions', () => {
+	async function newSession() {
+		const u = await createUser({ name: 'Sess', email: unique('s'), password: 'session-pass-1', role: 'homeowner' });
+		const token = generateSessionToken();
+		const s = await createSession(token, u.id);
+		return { u, token, s };
+	}
+
+	it('store only the SHA-256 of the token and validate it', async () => {
+		const { u, token, s } = await newSession();
+		expect(s.id).toBe(hashToken(token));
+		expect(await db.select().from(session).where(eq(session.id, token))).toHaveLength(0);
+		const r = await validateSessionToken(token);
+		expect(r.user?.id).toBe(u.id);
+		expect(r.user).not.toHaveProperty('passwordHash');
+		expect(Math.abs(r.session!.expiresAt.getTime() - (Date.now() + 30 * DAY))).toBeLessThan(60_000);
+	});
+
+	it('expire: an expired session is refused and deleted', async () => {
+		const { token, s } = await newSession();
+		await db.update(session).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(session.id, s.id));
+		expect(await validateSessionToken(token)).toEqual({ session: null, user: null });
+		expect(await db.select().from(session).where(eq(session.id, s.id))).toHaveLength(0);
+	});
+
+	it('renew when under 15 days are left', async () => {
+		const { token, s } = await newSession();
+		await db.update(session).set({ expiresAt: new Date(Date.now() + 10 * DAY) }).where(eq(session.id, s.id));
+		await validateSessionToken(token);
+		const [row] = await db.select().from(session).where(eq(session.id, s.id));
+		expect(row.expiresAt.getTime()).toBeGreaterThan(Date.now() + 29 * DAY);
+	});
+
+	it('refuse an unknown token and end with invalidateUserSessions', async () => {
+		expect((await validateSessionToken(generateSessionToken())).user).toBeNull();
+		const { u, token } = await newSession();
+		await invalidateUserSessions(u.id);
+		expect((await validateSessionToken(token)).user).toBeNull();
+	});
+});
+
+describe('one-time e-mail tokens', () => {
+	it('work once, and a newer token replaces an older one', async () => {
+		const u = await createUser({ name: 'Tok', email: unique('t'), password: 'token-pass-12', role: 'homeowner' });
+		const older = await createEmailToken(u.id, 'reset_password');
+		const newer = await createEmailToken(u.id, 'reset_password');
+		expect(await peekEmailToken(older, 'reset_password')).toBeNull();
+		expect(await consumeEmailToken(newer, 'verify_email')).toBeNull(); // wrong purpose
+		expect(await peekEmailToken(newer, 'reset_password')).toBe(u.id);
+		expect(await consumeEmailToken(newer, 'reset_password')).toBe(u.id);
+		expect(await consumeEmailToken(newer, 'reset_password')).toBeNull();
+	});
+
+	it('stop working when expired', async () => {
+		const u = await createUser({ name: 'Old', email: unique('o'), password: 'token-pass-34', role: 'homeowner' });
+		const t = await createEmailToken(u.id, 'verify_email');
+		await db.update(emailToken).set({ expiresAt: new Date(Date.now() - 1) }).where(eq(emailToken.id, hashToken(t)));
+		expect(await consumeEmailToken(t, 'verify_email')).toBeNull();
+	});
+});
+
+describe('sign-in throttle', () => {
+	it('blocks an e-mail after 5 failures and clears on success', async () => {
+		const email = unique('thr');
+		const ip = `198.51.100.${Math.floor(Math.random() * 250)}`; // RFC 5737 documentation range
+		for (let i = 0; i < 4; i++) await recordSignInFailure(email, ip);
+		expect(await signInWait(email, ip)).toBe(0);
+		await recordSignInFailure(email, ip);
+		const wait = await signInWait(email, ip);
+		expect(wait).toBeGreaterThan(14 * 60_000);
+		expect(wait).toBeLessThanOrEqual(15 * 60_000);
+		await clearSignInFailures(email);
+		expect(await signInWait(email, ip)).toBe(0);
+	});
+
+	it('blocks an address after 20 failures across e-mails', async () => {
+		const ip = `203.0.113.${Math.floor(Math.random() * 250)}`; // RFC 5737 documentation range
+		for (let i = 0; i < 20; i++) await recordSignInFailure(unique(`ip${i}`), ip);
+		expect(await signInWait(unique('fresh'), ip)).toBeGreaterThan(0);
+	});
+});
+
+describe('mail outbox', () => {
+	it('delivers over SMTP to the local fake, which stores the message', async () => {
+		const to = unique('mail');
+		const id = await queueMail(to, { subject: 'Pour day is Saturday', text: 'Bring gloves.', html: '<p>Bring gloves.</p>' });
+		const [row] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, id));
+		expect(row.status).toBe('sent');
+		await expect.poll(async () => (await db.select().from(devMail).where(eq(devMail.to, to))).map((m) => m.subject)).toEqual(['Pour day is Saturday']);
+	});
+
+	it('keeps a message that cannot be sent and schedules a retry', async () => {
+		const [row] = await db.insert(mailOutbox).values({ to: unique('down'), subject: 'Later', text: 't', html: 'h' }).returning();
+		const down = nodemailer.createTransport({ host: '127.0.0.1', port: 9, connectionTimeout: 2000 }); // discard port, nothing listens
+		await deliverDue(50, down);
+		const [after] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, row.id));
+		expect(after.status).toBe('pending');
+		expect(after.attempts).toBe(1);
+		expect(after.lastError).toBeTruthy();
+		expect(after.nextAttemptAt.getTime()).toBeGreaterThan(Date.now());
+		// Once SMTP answers again, the retry goes through.
+		await db.update(mailOutbox).set({ nextAttemptAt: sql`now()` }).where(eq(mailOutbox.id, row.id));
+		await deliverDue();
+		const [sent] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, row.id));
+		expect(sent.status).toBe('sent');
+	});
+});

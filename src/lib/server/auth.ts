@@ -1,0 +1,91 @@
+import type { RequestEvent } from '@sveltejs/kit';
+import { eq } from 'drizzle-orm';
+import { db } from '$lib/server/db';
+import * as table from '$lib/server/db/schema';
+import { generateToken, hashToken } from './tokens';
+
+const DAY_IN_MS = 1000 * 60 * 60 * 24;
+export const SESSION_LIFETIME_MS = 30 * DAY_IN_MS;
+export const RENEW_WHEN_UNDER_MS = 15 * DAY_IN_MS;
+export const sessionCookieName = 'stakeline_session';
+
+export const generateSessionToken = generateToken;
+
+export function sessionExpiry(now = Date.now()): Date {
+	return new Date(now + SESSION_LIFETIME_MS);
+}
+
+/** Sliding expiry: a session used in its second half gets a fresh 30 days. */
+export function needsRenewal(expiresAt: Date, now = Date.now()): boolean {
+	return expiresAt.getTime() - now < RENEW_WHEN_UNDER_MS;
+}
+
+export async function createSession(token: string, userId: string) {
+	const session: table.Session = { id: hashToken(token), userId, expiresAt: sessionExpiry() };
+	await db.insert(table.session).values(session);
+	return session;
+}
+
+export async function validateSessionToken(token: string) {
+	const sessionId = hashToken(token);
+	const [result] = await db
+		.select({
+			user: {
+				id: table.user.id,
+				name: table.user.name,
+				email: table.user.email,
+				role: table.user.role,
+				emailVerifiedAt: table.user.emailVerifiedAt
+			},
+			session: table.session
+		})
+		.from(table.session)
+		.innerJoin(table.user, eq(table.session.userId, table.user.id))
+		.where(eq(table.session.id, sessionId));
+
+	if (!result) return { session: null, user: null };
+	const { session, user } = result;
+
+	if (Date.now() >= session.expiresAt.getTime()) {
+		await db.delete(table.session).where(eq(table.session.id, session.id));
+		return { session: null, user: null };
+	}
+	if (needsRenewal(session.expiresAt)) {
+		session.expiresAt = sessionExpiry();
+		await db.update(table.session).set({ expiresAt: session.expiresAt }).where(eq(table.session.id, session.id));
+	}
+	return { session, user };
+}
+
+export type SessionValidationResult = Awaited<ReturnType<typeof validateSessionToken>>;
+export type SessionUser = NonNullable<SessionValidationResult['user']>;
+
+export async function invalidateSession(sessionId: string) {
+	await db.delete(table.session).where(eq(table.session.id, sessionId));
+}
+
+/** Every session of a user ends: on password change and reset. */
+export async function invalidateUserSessions(userId: string) {
+	await db.delete(table.session).where(eq(table.session.userId, userId));
+}
+
+export function setSessionTokenCookie(event: RequestEvent, token: string, expiresAt: Date) {
+	event.cookies.set(sessionCookieName, token, {
+		expires: expiresAt,
+		path: '/',
+		httpOnly: true,
+		sameSite: 'lax',
+		secure: event.url.protocol === 'https:'
+	});
+}
+
+export function deleteSessionTokenCookie(event: RequestEvent) {
+	event.cookies.delete(sessionCookieName, { path: '/' });
+}
+
+/** Signs the browser in as userId: a new session and its cookie. */
+export async function startSession(event: RequestEvent, userId: string) {
+	const token = generateSessionToken();
+	const session = await createSession(token, userId);
+	setSessionTokenCookie(event, token, session.expiresAt);
+}

@@ -1,0 +1,64 @@
+import { sql } from 'drizzle-orm';
+import { index, pgEnum, pgTable, serial, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+
+import { roles, type Role } from '../../../roles';
+
+export { roles, type Role };
+export const roleEnum = pgEnum('role', roles);
+
+export const user = pgTable('user', {
+	id: uuid('id').primaryKey().defaultRandom(),
+	// Stored lower-cased; the unique index is what stops a second sign-up with the same address.
+	email: text('email').notNull().unique(),
+	name: text('name').notNull(),
+	role: roleEnum('role').notNull(),
+	passwordHash: text('password_hash').notNull(),
+	emailVerifiedAt: timestamp('email_verified_at', { withTimezone: true }),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});
+
+export const session = pgTable(
+	'session',
+	{
+		// SHA-256 of the cookie token, hex: a leaked table gives no usable cookie.
+		id: text('id').primaryKey(),
+		userId: uuid('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull()
+	},
+	(t) => [index('session_user_idx').on(t.userId)]
+);
+
+export const tokenPurposes = ['verify_email', 'reset_password'] as const;
+export type TokenPurpose = (typeof tokenPurposes)[number];
+export const tokenPurposeEnum = pgEnum('token_purpose', tokenPurposes);
+
+/** One-time links sent by e-mail; like sessions, only the hash is kept. */
+export const emailToken = pgTable(
+	'email_token',
+	{
+		id: text('id').primaryKey(),
+		userId: uuid('user_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		purpose: tokenPurposeEnum('purpose').notNull(),
+		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+		usedAt: timestamp('used_at', { withTimezone: true })
+	},
+	(t) => [index('email_token_user_idx').on(t.userId, t.purpose)]
+);
+
+/** Failed sign-ins, keyed `email:…` or `ip:…`; read by the throttle, pruned as they age out. */
+export const signInFailure = pgTable(
+	'sign_in_failure',
+	{
+		id: serial('id').primaryKey(),
+		key: text('key').notNull(),
+		at: timestamp('at', { withTimezone: true }).notNull().default(sql`now()`)
+	},
+	(t) => [index('sign_in_failure_key_at_idx').on(t.key, t.at)]
+);
+
+export type User = typeof user.$inferSelect;
+export type Session = typeof session.$inferSelect;

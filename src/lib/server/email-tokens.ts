@@ -1,0 +1,44 @@
+import { and, eq, gt, isNull } from 'drizzle-orm';
+import { db } from '$lib/server/db';
+import { emailToken, type TokenPurpose } from '$lib/server/db/schema';
+import { generateToken, hashToken } from './tokens';
+
+const HOUR_MS = 60 * 60 * 1000;
+export const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
+	verify_email: 48 * HOUR_MS,
+	reset_password: HOUR_MS
+};
+
+/** A new one-time link token; earlier unused ones of the same purpose stop working. */
+export async function createEmailToken(userId: string, purpose: TokenPurpose): Promise<string> {
+	const token = generateToken();
+	await db.transaction(async (tx) => {
+		await tx
+			.update(emailToken)
+			.set({ usedAt: new Date() })
+			.where(and(eq(emailToken.userId, userId), eq(emailToken.purpose, purpose), isNull(emailToken.usedAt)));
+		await tx.insert(emailToken).values({
+			id: hashToken(token),
+			userId,
+			purpose,
+			expiresAt: new Date(Date.now() + TOKEN_LIFETIME_MS[purpose])
+		});
+	});
+	return token;
+}
+
+function usable(token: string, purpose: TokenPurpose) {
+	return and(eq(emailToken.id, hashToken(token)), eq(emailToken.purpose, purpose), isNull(emailToken.usedAt), gt(emailToken.expiresAt, new Date()));
+}
+
+/** The user a still-valid token belongs to, without using it up (to show the reset form). */
+export async function peekEmailToken(token: string, purpose: TokenPurpose): Promise<string | null> {
+	const [row] = await db.select({ userId: emailToken.userId }).from(emailToken).where(usable(token, purpose));
+	return row?.userId ?? null;
+}
+
+/** Uses the token up in one statement, so two clicks cannot both succeed. */
+export async function consumeEmailToken(token: string, purpose: TokenPurpose): Promise<string | null> {
+	const [row] = await db.update(emailToken).set({ usedAt: new Date() }).where(usable(token, purpose)).returning({ userId: emailToken.userId });
+	return row?.userId ?? null;
+}

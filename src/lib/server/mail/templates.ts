@@ -1,0 +1,40 @@
+export type Mail = { subject: string; text: string; html: string };
+
+const escape = (s: string) =>
+	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+
+/** One plain layout for every notice: a greeting, a few lines, one button, the same link as text. */
+function notice(o: { subject: string; name: string; lines: string[]; action: string; url: string; footer: string }): Mail {
+	const text = [`Hello ${o.name},`, '', ...o.lines, '', `${o.action}: ${o.url}`, '', o.footer, '', '— Stakeline'].join('\n');
+	const html = `<!doctype html><html><body style="font-family:Nunito,Arial,sans-serif;color:#1f2d27;background:#f6f3ea;padding:24px">
+<div style="max-width:520px;margin:auto;background:#fff;border-radius:12px;padding:24px">
+<p>Hello ${escape(o.name)},</p>
+${o.lines.map((l) => `<p>${escape(l)}</p>`).join('\n')}
+<p><a href="${escape(o.url)}" style="display:inline-block;background:#2f6b4f;color:#fff;padding:10px 18px;border-radius:8px;text-decoration:none">${escape(o.action)}</a></p>
+<p style="font-size:13px;color:#5b6a62">Or open this address: ${escape(o.url)}</p>
+<p style="font-size:13px;color:#5b6a62">${escape(o.footer)}</p>
+</div></body></html>`;
+	return { subject: o.subject, text, html };
+}
+
+export function verifyEmailMail(name: string, url: string): Mail {
+	return notice({
+		subject: 'Confirm your e-mail for Stakeline',
+		name,
+		lines: ['Thanks for joining Stakeline. Please confirm this is your address so we can send you plan and bid notices.'],
+		action: 'Confirm my e-mail',
+		url,
+		footer: 'The link works once and for 48 hours. If you did not sign up, ignore this message.'
+	});
+}
+
+export function resetPasswordMail(name: string, url: string): Mail {
+	return notice({
+		subject: 'Choose a new Stakeline password',
+		name,
+		lines: ['Someone (we hope you) asked to reset the password of your Stakeline account.'],
+		action: 'Choose a new password',
+		url,
+		footer: 'The link works once and for 1 hour. If you did not ask for it, your password stays as it is.'
+	});
+}

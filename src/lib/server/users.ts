@@ -1,0 +1,83 @@
+import { eq } from 'drizzle-orm';
+import { db } from '$lib/server/db';
+import { contractor, user, type Role, type User } from '$lib/server/db/schema';
+import { hashPassword } from './password';
+import { createEmailToken } from './email-tokens';
+import { queueMail } from './mail';
+import { resetPasswordMail, verifyEmailMail } from './mail/templates';
+
+export class EmailTakenError extends Error {
+	constructor() {
+		super('An account with this e-mail already exists.');
+	}
+}
+
+const UNIQUE_VIOLATION = '23505';
+const isUniqueViolation = (err: unknown) =>
+	[err, (err as { cause?: unknown })?.cause].some((e) => (e as { code?: string })?.code === UNIQUE_VIOLATION);
+
+export const normalizeEmail = (email: string) => email.trim().toLowerCase();
+
+/** Creates the account (and, for a contractor, its business record awaiting review) in one transaction. */
+export async function createUser(input: { name: string; email: string; password: string; role: Role; verified?: boolean }): Promise<User> {
+	const passwordHash = await hashPassword(input.password);
+	try {
+		return await db.transaction(async (tx) => {
+			const [created] = await tx
+				.insert(user)
+				.values({
+					name: input.name.trim(),
+					email: normalizeEmail(input.email),
+					role: input.role,
+					passwordHash,
+					emailVerifiedAt: input.verified ? new Date() : null
+				})
+				.returning();
+			if (created.role === 'contractor') await tx.insert(contractor).values({ userId: created.id });
+			return created;
+		});
+	} catch (err) {
+		if (isUniqueViolation(err)) throw new EmailTakenError();
+		throw err;
+	}
+}
+
+export async function findUserByEmail(email: string): Promise<User | undefined> {
+	const [found] = await db.select().from(user).where(eq(user.email, normalizeEmail(email)));
+	return found;
+}
+
+export async function findUserById(id: string): Promise<User | undefined> {
+	const [found] = await db.select().from(user).where(eq(user.id, id));
+	return found;
+}
+
+export async function setPassword(userId: string, password: string) {
+	await db.update(user).set({ passwordHash: await hashPassword(password) }).where(eq(user.id, userId));
+}
+
+export async function markEmailVerified(userId: string) {
+	await db.update(user).set({ emailVerifiedAt: new Date() }).where(eq(user.id, userId));
+}
+
+export async function sendVerificationMail(u: Pick<User, 'id' | 'name' | 'email'>, origin: string) {
+	const token = await createEmailToken(u.id, 'verify_email');
+	await queueMail(u.email, verifyEmailMail(u.name, `${origin}/verify-email?token=${token}`));
+}
+
+export async function sendPasswordResetMail(u: Pick<User, 'id' | 'name' | 'email'>, origin: string) {
+	const token = await createEmailToken(u.id, 'reset_password');
+	await queueMail(u.email, resetPasswordMail(u.name, `${origin}/reset-password?token=${token}`));
+}
+
+/** The first admin, from ADMIN_EMAIL / ADMIN_PASSWORD; nothing happens when it exists already. */
+export async function ensureAdmin(email: string | undefined, password: string | undefined) {
+	if (!email || !password) return;
+	if (await findUserByEmail(email)) return;
+	try {
+		await createUser({ name: 'Administrator', email, password, role: 'admin', verified: true });
+		console.log(`Created the first admin account ${normalizeEmail(email)}`);
+	} catch (err) {
+		if (!(err instanceof EmailTakenError)) throw err; // another app server got there first
+	}
+}

@@ -1,0 +1,42 @@
+import { expect, type Page } from '@playwright/test';
+import demo from '../fixtures/demo.json' with { type: 'json' };
+
+export const demoPassword = demo.password;
+export const demoUser = (role: string) => demo.users.find((u) => u.role === role)!;
+
+export function uniqueEmail(label: string) {
+	return `${label}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@e2e.stakeline.test`;
+}
+
+export async function signUp(page: Page, o: { name: string; email: string; password: string; role?: 'homeowner' | 'contractor' }) {
+	await page.goto('/signup');
+	if (o.role === 'contractor') await page.getByLabel(/Bid on local jobs/).check();
+	await page.getByLabel('Your name').fill(o.name);
+	await page.getByLabel('E-mail').fill(o.email);
+	await page.getByLabel('Password', { exact: true }).fill(o.password);
+	await page.getByRole('button', { name: 'Create account' }).click();
+}
+
+export async function signIn(page: Page, email: string, password: string) {
+	await page.goto('/signin');
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password').fill(password);
+	await page.getByRole('button', { name: 'Sign in' }).click();
+}
+
+export async function signOut(page: Page) {
+	await page.getByRole('button', { name: 'Sign out' }).click();
+	await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
+}
+
+/** The newest link in a message to `email` whose subject matches, read from the fake mailbox. */
+export async function mailLink(page: Page, email: string, subject: RegExp): Promise<string> {
+	let href: string | null = null;
+	await expect(async () => {
+		await page.goto(`/dev/mailbox?to=${encodeURIComponent(email)}`);
+		const mail = page.getByTestId('mail').filter({ has: page.getByRole('heading', { name: subject }) }).first();
+		href = await mail.getByTestId('mail-link').first().getAttribute('href', { timeout: 500 });
+		expect(href).toBeTruthy();
+	}).toPass({ timeout: 15_000 });
+	return href!;
+}
