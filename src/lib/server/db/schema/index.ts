@@ -1,3 +1,4 @@
 export * from './auth';
 export * from './contractors';
 export * from './mail';
+export * from './plans';

@@ -1,0 +1,48 @@
+import { index, integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { user } from './auth';
+
+/**
+ * A homeowner's slab plan. `input` is what they described (the engine's input schema); `result`
+ * is what the server's engine computed from it — never numbers sent by the browser. `revision`
+ * increases on every save, so a stale tab's write is refused rather than lost.
+ */
+export const plan = pgTable(
+	'plan',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		ownerId: uuid('owner_id')
+			.notNull()
+			.references(() => user.id, { onDelete: 'cascade' }),
+		name: text('name').notNull(),
+		postcode: text('postcode'),
+		input: jsonb('input').notNull(),
+		result: jsonb('result').notNull(),
+		revision: integer('revision').notNull().default(1),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('plan_owner_idx').on(t.ownerId, t.updatedAt)]
+);
+
+/** A site photo; the bytes live in the storage module under `storageKey` / `thumbKey`. */
+export const planPhoto = pgTable(
+	'plan_photo',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		planId: uuid('plan_id')
+			.notNull()
+			.references(() => plan.id, { onDelete: 'cascade' }),
+		storageKey: text('storage_key').notNull(),
+		thumbKey: text('thumb_key').notNull(),
+		contentType: text('content_type').notNull(),
+		bytes: integer('bytes').notNull(),
+		width: integer('width'),
+		height: integer('height'),
+		originalName: text('original_name').notNull(),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [index('plan_photo_plan_idx').on(t.planId)]
+);
+
+export type Plan = typeof plan.$inferSelect;
+export type PlanPhoto = typeof planPhoto.$inferSelect;
