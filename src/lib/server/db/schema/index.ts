@@ -1,4 +1,5 @@
 export * from './auth';
+export * from './audit';
 export * from './contractors';
 export * from './mail';
 export * from './plans';

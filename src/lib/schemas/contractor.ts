@@ -1,0 +1,64 @@
+import { z } from 'zod';
+
+/** The parts of a slab job a contractor can take on; "whole" means all of them. */
+export const serviceKinds = ['layout_forms', 'base_prep', 'pour_finish', 'whole_job'] as const;
+export type ServiceKind = (typeof serviceKinds)[number];
+export const serviceLabels: Record<ServiceKind, string> = {
+	layout_forms: 'Layout and forms',
+	base_prep: 'Base preparation',
+	pour_finish: 'Pour and finish',
+	whole_job: 'The whole job'
+};
+
+export const distanceUnits = ['mi', 'km'] as const;
+export type DistanceUnit = (typeof distanceUnits)[number];
+
+export const documentKinds = ['licence', 'insurance'] as const;
+export type DocumentKind = (typeof documentKinds)[number];
+export const documentLabels: Record<DocumentKind, string> = { licence: 'Licence document', insurance: 'Insurance certificate' };
+
+/** A whole number typed into a text or number field; empty is "missing", not zero. */
+export const wholeNumber = (missing: string, min: number, max: number, unit = '') =>
+	z
+		.string()
+		.trim()
+		.min(1, missing)
+		.pipe(
+			z.coerce
+				.number<string>({ error: 'Enter a whole number.' })
+				.int('Enter a whole number.')
+				.min(min, `Use at least ${min}${unit}.`)
+				.max(max, `Use at most ${max}${unit}.`)
+		);
+
+const text = (missing: string, max: number) => z.string().trim().min(1, missing).max(max, `Use at most ${max} characters.`);
+
+/** A US ZIP code: five digits (ZIP+4 is accepted and shortened). */
+export const zipCode = z
+	.string()
+	.trim()
+	.regex(/^\d{5}(-\d{4})?$/, 'Enter a five-digit ZIP code.')
+	.transform((s) => s.slice(0, 5));
+
+export const contractorProfileSchema = z.object({
+	businessName: text('Enter the business name.', 120),
+	contactName: text('Enter who homeowners will deal with.', 100),
+	phone: z
+		.string()
+		.trim()
+		.regex(/^\+?[0-9 ()./-]{7,25}$/, 'Enter a phone number with its area code.'),
+	description: text('Tell homeowners what your business does.', 2000),
+	yearsInTrade: wholeNumber('Enter how many years you have done this work.', 0, 80, ' years'),
+	services: z.array(z.enum(serviceKinds)).min(1, 'Choose at least one service.'),
+	licenceNumber: text('Enter your licence number.', 60),
+	licenceAuthority: text('Enter who issued the licence.', 120),
+	servicePostcode: zipCode,
+	serviceRadius: wholeNumber('Enter how far you travel.', 1, 250),
+	serviceRadiusUnit: z.enum(distanceUnits, { error: 'Choose miles or kilometres.' })
+});
+export type ContractorProfileInput = z.output<typeof contractorProfileSchema>;
+
+export const vettingReasonSchema = z.object({
+	reason: z.string().trim().min(5, 'Say what the contractor needs to know (at least 5 characters).').max(1000, 'Use at most 1000 characters.')
+});
+export const optionalReasonSchema = z.object({ reason: z.string().trim().max(1000, 'Use at most 1000 characters.').optional() });
