@@ -11,9 +11,23 @@ const SECRET = /password|current|token/i;
  * the action should return: a message per field, the typed values minus passwords.
  */
 export async function parseForm<S extends z.ZodType>(request: Request, schema: S) {
-	const form = await request.formData();
-	const raw = Object.fromEntries([...form.entries()].filter(([, v]) => typeof v === 'string')) as Record<string, string>;
-	const values = Object.fromEntries(Object.entries(raw).filter(([k]) => !SECRET.test(k)));
+	return validateForm(await request.formData(), schema);
+}
+
+/**
+ * The same for form data already read (a multipart form whose files the action needs too).
+ * Keys in `lists` (checkbox groups) reach the schema as arrays and are echoed back joined by spaces.
+ */
+export function validateForm<S extends z.ZodType>(form: FormData, schema: S, lists: string[] = []) {
+	const raw: Record<string, string | string[]> = Object.fromEntries(
+		[...form.entries()].filter(([k, v]) => typeof v === 'string' && !lists.includes(k))
+	) as Record<string, string>;
+	for (const key of lists) raw[key] = form.getAll(key).filter((v): v is string => typeof v === 'string');
+	const values = Object.fromEntries(
+		Object.entries(raw)
+			.filter(([k]) => !SECRET.test(k))
+			.map(([k, v]) => [k, Array.isArray(v) ? v.join(' ') : v])
+	) as Record<string, string>;
 	const parsed = schema.safeParse(raw);
 	if (parsed.success) return { data: parsed.data as z.output<S>, values, failure: null };
 	const errors: FieldErrors = {};

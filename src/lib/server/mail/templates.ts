@@ -4,7 +4,7 @@ const escape = (s: string) =>
 	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** One plain layout for every notice: a greeting, a few lines, one button, the same link as text. */
-function notice(o: { subject: string; name: string; lines: string[]; action: string; url: string; footer: string }): Mail {
+export function notice(o: { subject: string; name: string; lines: string[]; action: string; url: string; footer: string }): Mail {
 	const text = [`Hello ${o.name},`, '', ...o.lines, '', `${o.action}: ${o.url}`, '', o.footer, '', '— Stakeline'].join('\n');
 	const html = `<!doctype html><html><body style="font-family:Nunito,Arial,sans-serif;color:#1f2d27;background:#f6f3ea;padding:24px">
 <div style="max-width:520px;margin:auto;background:#fff;border-radius:12px;padding:24px">
