@@ -7,5 +7,12 @@ import type { LayoutServerLoad } from './$types';
 export const load = (async (event) => {
 	const user = requireRole(event, 'contractor');
 	const [profile] = await db.select().from(contractor).where(eq(contractor.userId, user.id));
-	return { contractor: { status: profile?.status ?? 'awaiting_review', reason: profile?.statusReason ?? null, businessName: profile?.businessName ?? null } };
+	return {
+		contractor: {
+			status: profile?.status ?? 'awaiting_review',
+			reason: profile?.statusReason ?? null,
+			businessName: profile?.businessName ?? null,
+			submitted: !!profile?.submittedAt
+		}
+	};
 }) satisfies LayoutServerLoad;
