@@ -1,0 +1,157 @@
+import { expect, test, type Page } from '@playwright/test';
+import sharp from 'sharp';
+import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+
+const pdf = (label: string) => ({
+	name: `${label}.pdf`,
+	mimeType: 'application/pdf',
+	buffer: Buffer.from(`%PDF-1.4\n1 0 obj\n<< /Type /Catalog >>\nendobj\n% ${label}\ntrailer\n<< /Root 1 0 R >>\n%%EOF\n`)
+});
+const pngCertificate = async () => ({
+	name: 'insurance-certificate.png',
+	mimeType: 'image/png',
+	buffer: await sharp({ create: { width: 40, height: 30, channels: 3, background: '#d6e8da' } }).png().toBuffer()
+});
+
+async function fillProfile(page: Page, business: string) {
+	await page.getByLabel('Business name').fill(business);
+	await page.getByLabel('Phone').fill('(541) 555-0123');
+	await page.getByLabel('Public description').fill('Shed pads and short walks, formed and poured by two of us.');
+	await page.getByLabel('Years in the trade').fill('9');
+	await page.getByLabel('Pour and finish').check();
+	await page.getByLabel('Base preparation').check();
+	await page.getByLabel('Licence number').fill('FH-CC-55120');
+	await page.getByLabel('Issued by').fill('Fernhollow County Contractors Board');
+	await page.getByLabel('ZIP code').fill('97322');
+	await page.getByLabel('Distance').fill('25');
+	await page.getByLabel('Unit').selectOption('km');
+}
+
+test('a contractor onboards with documents, an admin approves, and only they two can open the documents', async ({ page }) => {
+	const email = uniqueEmail('vet');
+	const business = `Larkspur Flatwork ${Date.now()}`;
+	await signUp(page, { name: 'Tove Larkin', email, password: 'pour-day-sunny', role: 'contractor' });
+	await expect(page.getByRole('heading', { name: 'Awaiting review' })).toBeVisible();
+	await page.getByRole('link', { name: 'Set up the business profile' }).click();
+	await expect(page.getByLabel('Contact person')).toHaveValue('Tove Larkin');
+
+	await fillProfile(page, business);
+	// Text with a .pdf name and type is refused by its content; the other values stay.
+	await page.getByLabel('Licence document').setInputFiles({ name: 'licence.pdf', mimeType: 'application/pdf', buffer: Buffer.from('only words, no PDF here\n') });
+	await page.getByLabel('Insurance certificate').setInputFiles(await pngCertificate());
+	await page.getByRole('button', { name: 'Send for review' }).click();
+	await expect(page.locator('#field-licence-error')).toHaveText(/must be a PDF, a JPEG, a PNG, or a WebP image; this file is not one of them/);
+	await expect(page.getByText('Files you chose were not kept')).toBeVisible();
+	await expect(page.getByLabel('Business name')).toHaveValue(business);
+	await expect(page.getByLabel('Pour and finish')).toBeChecked();
+	await expect(page.getByLabel('Unit')).toHaveValue('km');
+	await page.screenshot({ path: 'test-results/screens/pro-profile-rejected-file.png', fullPage: true });
+
+	await page.getByLabel('Licence document').setInputFiles(pdf('licence'));
+	await page.getByLabel('Insurance certificate').setInputFiles(await pngCertificate());
+	await page.getByRole('button', { name: 'Send for review' }).click();
+	await expect(page).toHaveURL(/\/pro$/);
+	await expect(page.getByRole('heading', { name: 'Awaiting review' })).toBeVisible();
+	await expect(page.getByText('is checking your licence and insurance')).toBeVisible();
+
+	await page.goto('/pro/profile');
+	const licenceHref = (await page.getByRole('link', { name: 'licence.pdf' }).getAttribute('href'))!;
+	const insuranceHref = (await page.getByRole('link', { name: 'insurance-certificate.png' }).getAttribute('href'))!;
+	const own = await page.request.get(licenceHref);
+	expect(own.status()).toBe(200);
+	expect(own.headers()['content-type']).toBe('application/pdf');
+	expect((await own.body()).subarray(0, 5).toString()).toBe('%PDF-');
+	expect((await page.request.get(insuranceHref)).headers()['content-type']).toBe('image/png');
+	await signOut(page);
+
+	// The admin works through the queue.
+	await signIn(page, demoUser('admin').email, demoPassword);
+	await expect(page).toHaveURL(/\/admin$/);
+	await page.getByTestId('vetting-queue').getByRole('link', { name: business }).click();
+	await expect(page.getByTestId('contractor-status')).toHaveText('Awaiting review');
+	await expect(page.getByRole('link', { name: 'insurance-certificate.png' })).toBeVisible();
+	expect((await page.request.get(licenceHref)).status()).toBe(200);
+	await page.getByRole('button', { name: 'Request changes' }).click();
+	await expect(page.locator('#field-reason-error')).toHaveText(/Say what the contractor needs to know/);
+	await page.getByRole('button', { name: 'Approve' }).click();
+	await expect(page.getByText('Saved. The contractor was e-mailed.')).toBeVisible();
+	await expect(page.getByTestId('contractor-status')).toHaveText('Approved');
+	await page.screenshot({ path: 'test-results/screens/admin-contractor-approved.png', fullPage: true });
+
+	await page.goto('/admin/audit');
+	await expect(page.getByTestId('audit-table').getByRole('row').nth(1)).toContainText(`Ada Vellum`);
+	await expect(page.getByTestId('audit-table').getByRole('row').nth(1)).toContainText(`Approve`);
+	await expect(page.getByTestId('audit-table').getByRole('row').nth(1)).toContainText(business);
+	await page.goto(`/admin/users?q=${encodeURIComponent(email)}&role=contractor`);
+	await expect(page.getByTestId('users-table').getByRole('row')).toHaveCount(2);
+	await page.goto(`/admin/users?q=${encodeURIComponent(email)}&role=homeowner`);
+	await expect(page.getByTestId('users-table').getByRole('row')).toHaveCount(1);
+
+	const link = await mailLink(page, email, /pro account is approved/);
+	expect(link).toMatch(/\/pro$/);
+	await signOut(page);
+
+	await signIn(page, email, 'pour-day-sunny');
+	await expect(page.getByRole('heading', { name: 'Approved' })).toBeVisible();
+	await signOut(page);
+
+	// Another contractor: the documents do not exist for them; admin pages are closed.
+	await signIn(page, demoUser('contractor').email, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
+	expect((await page.request.get(licenceHref)).status()).toBe(404);
+	expect((await page.goto('/admin/users'))?.status()).toBe(403);
+	expect((await page.goto('/admin/audit'))?.status()).toBe(403);
+	await signOut(page);
+
+	await signIn(page, demoUser('homeowner').email, demoPassword);
+	await expect(page).toHaveURL(/\/plans$/);
+	expect((await page.request.get(insuranceHref)).status()).toBe(403);
+	expect((await page.goto('/admin'))?.status()).toBe(403);
+	expect((await page.goto('/pro/profile'))?.status()).toBe(403);
+	await signOut(page);
+
+	const anonymous = await page.request.get(licenceHref, { maxRedirects: 0 });
+	expect(anonymous.status()).toBe(303);
+	expect(anonymous.headers()['location']).toMatch(/^\/signin/);
+});
+
+test.describe('without JavaScript', () => {
+	test.use({ javaScriptEnabled: false });
+
+	test('the profile form reports missing fields and documents, and a request for changes reaches the contractor', async ({ page }) => {
+		const email = uniqueEmail('nojs');
+		await signUp(page, { name: 'Ivo Brask', email, password: 'plain-forms-ok', role: 'contractor' });
+		await page.goto('/pro/profile');
+		await page.getByLabel('Business name').fill('Brask Base & Form');
+		await page.getByLabel('ZIP code').fill('00000');
+		await page.getByRole('button', { name: 'Send for review' }).click();
+		await expect(page.locator('#field-phone-error')).toHaveText('Enter a phone number with its area code.');
+		await expect(page.locator('#services-error')).toHaveText('Choose at least one service.');
+		await expect(page.locator('#field-licence-error')).toHaveText('Add your licence document.');
+		await expect(page.getByLabel('Business name')).toHaveValue('Brask Base & Form');
+
+		await fillProfile(page, 'Brask Base & Form');
+		await page.getByLabel('ZIP code').fill('00000');
+		await page.getByLabel('Licence document').setInputFiles(pdf('brask-licence'));
+		await page.getByLabel('Insurance certificate').setInputFiles(pdf('brask-insurance'));
+		await page.getByRole('button', { name: 'Send for review' }).click();
+		await expect(page.locator('#field-servicePostcode-error')).toHaveText('We do not know this ZIP code. Please check it.');
+		await page.getByLabel('ZIP code').fill('97321');
+		await page.getByLabel('Licence document').setInputFiles(pdf('brask-licence'));
+		await page.getByLabel('Insurance certificate').setInputFiles(pdf('brask-insurance'));
+		await page.getByRole('button', { name: 'Send for review' }).click();
+		await expect(page).toHaveURL(/\/pro$/);
+		await signOut(page);
+
+		await signIn(page, demoUser('admin').email, demoPassword);
+		await page.getByTestId('vetting-queue').getByRole('link', { name: 'Brask Base & Form' }).last().click();
+		await page.getByLabel('Reason').fill('Please upload the insurance certificate, not the licence twice.');
+		await page.getByRole('button', { name: 'Request changes' }).click();
+		await expect(page.getByTestId('contractor-status')).toHaveText('Changes requested');
+		await signOut(page);
+
+		await signIn(page, email, 'plain-forms-ok');
+		await expect(page.getByRole('heading', { name: 'Changes requested' })).toBeVisible();
+		await expect(page.getByTestId('status-reason')).toHaveText('Please upload the insurance certificate, not the licence twice.');
+	});
+});
