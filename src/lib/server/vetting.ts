@@ -2,6 +2,7 @@ import { eq } from 'drizzle-orm';
 import { statusLabels, vettingMoves, type VettingDecision } from '$lib/contractor-status';
 import { db } from '$lib/server/db';
 import { auditLog, contractor, contractorDocument, user } from '$lib/server/db/schema';
+import { withdrawOpenBidsOf } from './leads';
 import { queueMail } from './mail';
 import { vettingDecisionMail } from './mail/pro-notices';
 
@@ -36,6 +37,7 @@ export async function decide(admin: Admin, contractorId: string, decision: Vetti
 			.update(contractor)
 			.set({ status: move.to, statusReason: move.reason ? reason : null, updatedAt: now })
 			.where(eq(contractor.userId, contractorId));
+		if (move.to === 'suspended') await withdrawOpenBidsOf(tx, contractorId);
 		await tx.insert(auditLog).values({
 			actorId: admin.id,
 			actorName: admin.name,

@@ -1,5 +1,6 @@
 export * from './auth';
 export * from './audit';
 export * from './contractors';
+export * from './leads';
 export * from './mail';
 export * from './plans';

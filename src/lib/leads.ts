@@ -1,0 +1,45 @@
+/** Lead and bid states, shared by the pages of both sides. */
+export const leadStatuses = ['new', 'viewed', 'bid_sent', 'declined', 'won', 'not_selected', 'withdrawn'] as const;
+export type LeadStatus = (typeof leadStatuses)[number];
+export const leadStatusLabels: Record<LeadStatus, string> = {
+	new: 'New',
+	viewed: 'Viewed',
+	bid_sent: 'Bid sent',
+	declined: 'Declined',
+	won: 'Won',
+	not_selected: 'Not selected',
+	withdrawn: 'Withdrawn'
+};
+
+export const bidStatuses = ['open', 'accepted', 'not_selected', 'withdrawn'] as const;
+export type BidStatus = (typeof bidStatuses)[number];
+export const bidStatusLabels: Record<BidStatus, string> = { open: 'Open', accepted: 'Accepted', not_selected: 'Not selected', withdrawn: 'Withdrawn' };
+
+export const timeframes = ['soon', 'within_month', 'within_season', 'flexible'] as const;
+export type Timeframe = (typeof timeframes)[number];
+export const timeframeLabels: Record<Timeframe, string> = {
+	soon: 'In the next two weeks',
+	within_month: 'Within a month',
+	within_season: 'This season',
+	flexible: 'No fixed date'
+};
+
+export const lineItemKinds = ['labour', 'materials', 'base', 'forms', 'removal', 'other'] as const;
+export type LineItemKind = (typeof lineItemKinds)[number];
+export const lineItemLabels: Record<LineItemKind, string> = {
+	labour: 'Labour',
+	materials: 'Materials',
+	base: 'Base',
+	forms: 'Forms',
+	removal: 'Removal and haul-away',
+	other: 'Other'
+};
+
+/** At most this many contractors per send, so a homeowner is not flooded with calls. */
+export const MAX_CONTRACTORS_PER_SEND = 5;
+
+/** A bid past its valid-until date can no longer be accepted or edited. */
+export const isExpired = (validUntil: string, today = new Date().toISOString().slice(0, 10)) => validUntil < today;
+
+export const formatMoney = (cents: number) =>
+	new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD', maximumFractionDigits: cents % 100 ? 2 : 0 }).format(cents / 100);

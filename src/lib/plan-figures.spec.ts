@@ -1,0 +1,33 @@
+import { describe, expect, it } from 'vitest';
+import { planFigures } from './plan-figures';
+
+describe('planFigures', () => {
+	it('reads the documented fields and the unit system', () => {
+		const f = planFigures(
+			{ units: 'metric', sections: [] },
+			{
+				area: { squareFeet: 120, squareMeters: 11.148 },
+				volume: { net: { cubicFeet: 40, cubicYards: 1.48, cubicMeters: 1.13 }, order: { cubicFeet: 44, cubicYards: 1.63, cubicMeters: 1.25 } },
+				bags: [{ size: 80, unit: 'lb', count: 67 }],
+				joints: { maxSpacing: 2.4 },
+				cautions: [{ id: 'wet-cement', title: 'Wet cement burns skin', source: 'common practice' }],
+				somethingElse: { ignored: true }
+			}
+		);
+		expect(f.units).toBe('metric');
+		expect(f.area?.squareMeters).toBe(11.148);
+		expect(f.volume?.order?.cubicYards).toBe(1.63);
+		expect(f.bags?.[0].count).toBe(67);
+		expect(f.cautions?.map((c) => c.id)).toEqual(['wet-cement']);
+		expect(f).not.toHaveProperty('somethingElse');
+	});
+
+	it('leaves out what is missing or malformed instead of failing', () => {
+		const f = planFigures(null, { area: { squareFeet: 'big' }, volume: { net: { cubicFeet: 1, cubicYards: 2, cubicMeters: 3 } }, bags: 'many' });
+		expect(f.units).toBe('imperial');
+		expect(f.area).toBeUndefined();
+		expect(f.bags).toBeUndefined();
+		expect(f.volume?.net?.cubicMeters).toBe(3);
+		expect(planFigures({ units: 'lunar' }, 'not an object')).toEqual({ units: 'imperial' });
+	});
+});

@@ -1,0 +1,74 @@
+import { z } from 'zod';
+import { lineItemKinds, MAX_CONTRACTORS_PER_SEND, timeframes } from '$lib/leads';
+import { serviceKinds, wholeNumber } from './contractor';
+
+const uuid = z.uuid('Unknown contractor.');
+
+export const getBidsSchema = z.object({
+	scope: z.enum(serviceKinds, { error: 'Choose what you want done.' }),
+	timeframe: z.enum(timeframes, { error: 'Choose when the work should happen.' }),
+	notes: z.string().trim().max(2000, 'Use at most 2000 characters.').default(''),
+	contractors: z
+		.array(uuid)
+		.min(1, 'Choose at least one contractor.')
+		.max(MAX_CONTRACTORS_PER_SEND, `Choose at most ${MAX_CONTRACTORS_PER_SEND} contractors.`)
+});
+
+/** Dollars as typed ("1,250", "$980.50") to whole cents; empty is allowed only where optional. */
+const DOLLARS = /^\$?\s*(\d{1,3}(,\d{3})+|\d+)(\.\d{1,2})?$/;
+const toCents = (s: string) => Math.round(Number(s.replace(/[$,\s]/g, '')) * 100);
+const dollarsMessage = 'Enter an amount in dollars, like 1850 or 1,850.00.';
+const dollars = z
+	.string()
+	.trim()
+	.regex(DOLLARS, dollarsMessage)
+	.transform(toCents)
+	.pipe(z.number().max(1_000_000_00, 'That is more than this kind of job can cost.'));
+const optionalDollars = z
+	.string()
+	.trim()
+	.default('')
+	.refine((s) => s === '' || DOLLARS.test(s), dollarsMessage)
+	.transform((s) => (s === '' ? null : toCents(s)));
+
+const isoDate = (missing: string) => z.string().trim().min(1, missing).regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter a date.');
+const today = () => new Date().toISOString().slice(0, 10);
+
+export const bidSchema = z
+	.object({
+		total: dollars.pipe(z.number().min(100, 'Enter the total price.')),
+		...Object.fromEntries(lineItemKinds.map((k) => [`item_${k}`, optionalDollars])),
+		earliestStart: isoDate('Enter the earliest start date.').refine((d) => d >= today(), 'Pick today or a later date.'),
+		durationDays: wholeNumber('Enter how many days the job takes.', 1, 60, ' days'),
+		validUntil: isoDate('Enter how long the price holds.').refine((d) => d >= today(), 'Pick today or a later date.'),
+		inclusions: z.string().trim().max(2000, 'Use at most 2000 characters.').default(''),
+		exclusions: z.string().trim().max(2000, 'Use at most 2000 characters.').default(''),
+		notes: z.string().trim().max(2000, 'Use at most 2000 characters.').default('')
+	})
+	.transform((b, ctx) => {
+		const raw = b as unknown as Record<string, number | null>;
+		const lineItems = lineItemKinds.filter((k) => raw[`item_${k}`] !== null).map((kind) => ({ kind, cents: raw[`item_${kind}`]! }));
+		const sum = lineItems.reduce((s, i) => s + i.cents, 0);
+		if (sum > b.total) ctx.addIssue({ code: 'custom', path: ['total'], message: 'The line items add up to more than the total.' });
+		return {
+			totalCents: b.total,
+			lineItems,
+			earliestStart: b.earliestStart,
+			durationDays: b.durationDays,
+			validUntil: b.validUntil,
+			inclusions: b.inclusions,
+			exclusions: b.exclusions,
+			notes: b.notes
+		};
+	});
+export type BidInput = z.output<typeof bidSchema>;
+
+export const declineSchema = z.object({
+	reason: z.string().trim().min(3, 'Say briefly why, so the homeowner knows.').max(1000, 'Use at most 1000 characters.')
+});
+
+export const messageSchema = z.object({
+	body: z.string().trim().min(1, 'Write a message first.').max(4000, 'Use at most 4000 characters.')
+});
+
+export const acceptSchema = z.object({ bid: z.uuid('Unknown bid.') });

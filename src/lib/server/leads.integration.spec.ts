@@ -1,0 +1,223 @@
+// Integration tests on the real PostgreSQL test database: matching, the revision freeze, bids, accept.
+import { afterAll, describe, expect, it } from 'vitest';
+import { and, eq } from 'drizzle-orm';
+import { haversineKm } from '$lib/geo';
+import { client, db } from './db';
+import { bid, contractor, lead, mailOutbox, plan } from './db/schema';
+import {
+	acceptBid,
+	contractorLead,
+	declineLead,
+	LeadRefused,
+	markLeadSeen,
+	postMessage,
+	saveBid,
+	sendLeads,
+	unreadMessageCount,
+	withdrawBid
+} from './leads';
+import { matchContractors, placeOf } from './matching';
+import { createUser } from './users';
+import { decide } from './vetting';
+
+afterAll(() => client.end());
+
+const origin = 'http://127.0.0.1:3000';
+const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
+const future = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+// A real ZIP code (Keokuk, Iowa) far from the demo firms, used here only for its centroid.
+const HOME_ZIP = '52632';
+const home = placeOf(HOME_ZIP)!;
+
+async function approvedContractor(name: string, o: { postcode: string; radius: number; unit: 'mi' | 'km'; services?: ('layout_forms' | 'base_prep' | 'pour_finish' | 'whole_job')[]; status?: 'approved' | 'awaiting_review' | 'suspended' }) {
+	const u = await createUser({ name, email: unique('pro'), password: 'contractor-pass', role: 'contractor' });
+	const at = placeOf(o.postcode)!;
+	await db
+		.update(contractor)
+		.set({
+			businessName: `${name} Co ${crypto.randomUUID().slice(0, 6)}`,
+			status: o.status ?? 'approved',
+			services: o.services ?? ['whole_job'],
+			servicePostcode: o.postcode,
+			serviceRadius: o.radius,
+			serviceRadiusUnit: o.unit,
+			serviceLat: at.lat,
+			serviceLon: at.lon,
+			submittedAt: new Date()
+		})
+		.where(eq(contractor.userId, u.id));
+	return u;
+}
+
+async function homeownerWithPlan(postcode = HOME_ZIP) {
+	const owner = await createUser({ name: 'Hale Owner', email: unique('home'), password: 'homeowner-pass', role: 'homeowner' });
+	const [p] = await db
+		.insert(plan)
+		.values({ ownerId: owner.id, name: 'Side walk', postcode, input: { units: 'imperial', note: 'first' }, result: { area: { squareFeet: 60, squareMeters: 5.57 } } })
+		.returning();
+	return { owner, plan: p };
+}
+
+const bidInput = (dollars: number) => ({
+	totalCents: dollars * 100,
+	lineItems: [],
+	earliestStart: future(5),
+	durationDays: 2,
+	validUntil: future(30),
+	inclusions: '',
+	exclusions: '',
+	notes: ''
+});
+const ids = (rows: { id: string }[]) => rows.map((r) => r.id);
+
+describe('matching', () => {
+	it('finds approved contractors whose radius covers the plan, nearest first, in miles or km, for the chosen work', async () => {
+		// Fort Madison (52627) is about 30 km from Keokuk; Burlington (52601) about 60 km.
+		const near = await approvedContractor('Near', { postcode: '52627', radius: 25, unit: 'mi' });
+		const kmTooShort = await approvedContractor('Short', { postcode: '52627', radius: 20, unit: 'km' });
+		const far = await approvedContractor('Far', { postcode: '52601', radius: 70, unit: 'km' });
+		const pending = await approvedContractor('Pending', { postcode: HOME_ZIP, radius: 50, unit: 'mi', status: 'awaiting_review' });
+		const formsOnly = await approvedContractor('Forms', { postcode: HOME_ZIP, radius: 50, unit: 'mi', services: ['layout_forms'] });
+
+		const whole = await matchContractors(home, 'whole_job');
+		const found = ids(whole);
+		expect(found.indexOf(near.id)).toBeGreaterThanOrEqual(0);
+		expect(found.indexOf(far.id)).toBeGreaterThan(found.indexOf(near.id));
+		expect(found).not.toContain(kmTooShort.id);
+		expect(found).not.toContain(pending.id);
+		expect(found).not.toContain(formsOnly.id);
+		expect(ids(await matchContractors(home, 'layout_forms'))).toContain(formsOnly.id);
+
+		// The SQL distance is the same haversine as the one in $lib/geo.
+		const n = whole.find((m) => m.id === near.id)!;
+		expect(n.distanceKm).toBeCloseTo(haversineKm(home, placeOf('52627')!), 6);
+		expect(n.distanceKm).toBeGreaterThan(20);
+		expect(n.distanceKm).toBeLessThan(40);
+		expect(n).not.toHaveProperty('phone');
+	});
+});
+
+describe('leads', () => {
+	it('freeze the plan revision they were sent with; a re-send only flags the newer revision', async () => {
+		const c = await approvedContractor('Freeze', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const { owner, plan: p } = await homeownerWithPlan();
+		const sent = await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'flexible', notes: 'Gate is on the left.', contractors: [c.id] }, origin);
+		expect(sent).toEqual({ created: 1, resent: 0 });
+
+		await db.update(plan).set({ input: { units: 'metric', note: 'second' }, revision: 2 }).where(eq(plan.id, p.id));
+		const [l] = await db.select().from(lead).where(and(eq(lead.planId, p.id), eq(lead.contractorId, c.id)));
+		expect(l.planRevision).toBe(1);
+		expect(l.snapshot.input).toEqual({ units: 'imperial', note: 'first' });
+
+		expect(await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'flexible', notes: '', contractors: [c.id] }, origin)).toEqual({ created: 0, resent: 1 });
+		const seen = await contractorLead(c.id, l.id);
+		expect(seen?.lead.snapshot.input).toEqual({ units: 'imperial', note: 'first' });
+		expect([seen?.lead.planRevision, seen?.lead.latestRevision]).toEqual([1, 2]);
+		expect(seen?.lead.notes).toBe('Gate is on the left.');
+		const mails = await db.select().from(mailOutbox).where(eq(mailOutbox.to, c.email));
+		expect(mails.map((m) => m.subject).filter((s) => !s.startsWith('Confirm'))).toEqual([
+			expect.stringMatching(/^New lead near Keokuk, IA$/),
+			expect.stringMatching(/newer plan revision/)
+		]);
+	});
+
+	it('refuse contractors outside the match and plans of someone else', async () => {
+		const outside = await approvedContractor('Outside', { postcode: '52601', radius: 5, unit: 'mi' });
+		const { owner, plan: p } = await homeownerWithPlan();
+		await expect(sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [outside.id] }, origin)).rejects.toBeInstanceOf(LeadRefused);
+		const other = await homeownerWithPlan();
+		expect(await sendLeads(other.owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [outside.id] }, origin)).toBeNull();
+		expect(await db.select().from(lead).where(eq(lead.planId, p.id))).toHaveLength(0);
+	});
+
+	it('hide the homeowner until the bid is accepted; accepting closes every other bid', async () => {
+		const [a, b, c] = await Promise.all(['Alder', 'Birch', 'Cedar'].map((n) => approvedContractor(n, { postcode: HOME_ZIP, radius: 10, unit: 'mi' })));
+		const { owner, plan: p } = await homeownerWithPlan();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'within_month', notes: '', contractors: [a.id, b.id, c.id] }, origin);
+		const leads = await db.select().from(lead).where(eq(lead.planId, p.id));
+		const leadOf = (id: string) => leads.find((l) => l.contractorId === id)!.id;
+
+		await markLeadSeen(a.id, leadOf(a.id));
+		expect((await contractorLead(a.id, leadOf(a.id)))?.lead.status).toBe('viewed');
+		expect(await saveBid(a.id, leadOf(a.id), bidInput(2400), origin)).toBe(true);
+		expect(await saveBid(b.id, leadOf(b.id), bidInput(2100), origin)).toBe(true);
+		await declineLead(c.id, leadOf(c.id), 'Booked until autumn.');
+		// Another contractor cannot touch a's lead at all.
+		expect(await saveBid(b.id, leadOf(a.id), bidInput(1), origin)).toBe(false);
+		expect(await contractorLead(b.id, leadOf(a.id))).toBeNull();
+
+		const before = await contractorLead(a.id, leadOf(a.id));
+		expect(before?.homeowner).toBeNull();
+		expect(JSON.stringify(before)).not.toContain(owner.email);
+
+		const [bidA] = await db.select().from(bid).where(eq(bid.leadId, leadOf(a.id)));
+		expect(await acceptBid(owner.id, p.id, bidA.id, origin)).toBe(true);
+		const after = await contractorLead(a.id, leadOf(a.id));
+		expect(after?.homeowner).toEqual({ name: 'Hale Owner', email: owner.email });
+		expect(after?.bid?.status).toBe('accepted');
+		const statuses = Object.fromEntries((await db.select().from(lead).where(eq(lead.planId, p.id))).map((l) => [l.contractorId, l.status]));
+		expect(statuses).toEqual({ [a.id]: 'won', [b.id]: 'not_selected', [c.id]: 'declined' });
+		expect((await db.select().from(bid).where(eq(bid.leadId, leadOf(b.id))))[0].status).toBe('not_selected');
+		await expect(saveBid(a.id, leadOf(a.id), bidInput(9999), origin)).rejects.toThrow(/closed/);
+		const mails = await db.select().from(mailOutbox).where(eq(mailOutbox.to, b.email));
+		expect(mails.some((m) => /was not selected/.test(m.subject))).toBe(true);
+	});
+
+	it('let exactly one of two concurrent accepts win', async () => {
+		const [a, b] = await Promise.all(['Elm', 'Fir'].map((n) => approvedContractor(n, { postcode: HOME_ZIP, radius: 10, unit: 'mi' })));
+		const { owner, plan: p } = await homeownerWithPlan();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [a.id, b.id] }, origin);
+		const leads = await db.select().from(lead).where(eq(lead.planId, p.id));
+		for (const l of leads) await saveBid(l.contractorId, l.id, bidInput(2000), origin);
+		const bids = await db.select().from(bid).where(eq(bid.planId, p.id));
+		expect(bids).toHaveLength(2);
+
+		const results = await Promise.allSettled(bids.map((x) => acceptBid(owner.id, p.id, x.id, origin)));
+		expect(results.map((r) => r.status).sort()).toEqual(['fulfilled', 'rejected']);
+		const rejected = results.find((r) => r.status === 'rejected') as PromiseRejectedResult;
+		expect(rejected.reason).toBeInstanceOf(LeadRefused);
+		const after = await db.select().from(bid).where(eq(bid.planId, p.id));
+		expect(after.map((x) => x.status).sort()).toEqual(['accepted', 'not_selected']);
+		expect((await db.select().from(lead).where(eq(lead.planId, p.id))).map((l) => l.status).sort()).toEqual(['not_selected', 'won']);
+	});
+
+	it('refuse an expired or withdrawn bid, and a suspension withdraws open bids', async () => {
+		const [a, b] = await Promise.all(['Gale', 'Hazel'].map((n) => approvedContractor(n, { postcode: HOME_ZIP, radius: 10, unit: 'mi' })));
+		const { owner, plan: p } = await homeownerWithPlan();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [a.id, b.id] }, origin);
+		const leads = await db.select().from(lead).where(eq(lead.planId, p.id));
+		const la = leads.find((l) => l.contractorId === a.id)!;
+		const lb = leads.find((l) => l.contractorId === b.id)!;
+		await saveBid(a.id, la.id, bidInput(1500), origin);
+		await db.update(bid).set({ validUntil: '2020-01-01' }).where(eq(bid.leadId, la.id));
+		const [expired] = await db.select().from(bid).where(eq(bid.leadId, la.id));
+		await expect(acceptBid(owner.id, p.id, expired.id, origin)).rejects.toThrow(/valid until 2020-01-01/);
+
+		await saveBid(b.id, lb.id, bidInput(1700), origin);
+		const admin = await createUser({ name: 'Ivy Admin', email: unique('admin'), password: 'admin-password', role: 'admin' });
+		await decide(admin, b.id, 'suspend', 'Licence lapsed.', origin);
+		expect((await db.select().from(bid).where(eq(bid.leadId, lb.id)))[0].status).toBe('withdrawn');
+		expect((await db.select().from(lead).where(eq(lead.id, lb.id)))[0].status).toBe('withdrawn');
+		await expect(withdrawBid(b.id, lb.id)).rejects.toThrow(/no open bid/);
+		await expect(saveBid(b.id, lb.id, bidInput(1700), origin)).rejects.toThrow(/approved/);
+	});
+});
+
+describe('messages', () => {
+	it('go only between the two sides of a lead and count as unread until the thread is opened', async () => {
+		const c = await approvedContractor('Juniper', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const stranger = await approvedContractor('Kestrel', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const { owner, plan: p } = await homeownerWithPlan();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id] }, origin);
+		const [l] = await db.select().from(lead).where(eq(lead.planId, p.id));
+
+		expect(await postMessage({ ...owner, role: 'homeowner' }, l.id, 'Can you start on a Saturday?', origin)).toBe(true);
+		expect(await postMessage({ ...stranger, role: 'contractor' }, l.id, 'Pick me instead', origin)).toBe(false);
+		expect(await unreadMessageCount({ id: c.id, role: 'contractor' })).toBe(1);
+		expect(await unreadMessageCount({ id: owner.id, role: 'homeowner' })).toBe(0);
+		await markLeadSeen(c.id, l.id);
+		expect(await unreadMessageCount({ id: c.id, role: 'contractor' })).toBe(0);
+		await postMessage({ ...c, role: 'contractor' }, l.id, 'Yes, Saturdays work.', origin);
+		expect(await unreadMessageCount({ id: owner.id, role: 'homeowner' })).toBe(1);
+	});
+});

@@ -1,0 +1,321 @@
+import { and, asc, count, desc, eq, gt, inArray, ne, notInArray, sql, type SQL } from 'drizzle-orm';
+import { isExpired, type LeadStatus } from '$lib/leads';
+import type { BidInput } from '$lib/schemas/leads';
+import type { ServiceKind } from '$lib/schemas/contractor';
+import type { Timeframe } from '$lib/leads';
+import { db } from '$lib/server/db';
+import { bid, contractor, lead, leadMessage, plan, user } from '$lib/server/db/schema';
+import { queueMail } from './mail';
+import { bidDecisionMail, newBidMail, newerRevisionMail, newLeadMail, newMessageMail } from './mail/pro-notices';
+import { matchContractors, placeOf } from './matching';
+
+/** A step that does not fit the lead's or bid's state; the message says why. */
+export class LeadRefused extends Error {}
+
+type Actor = { id: string; name: string };
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
+const leadUrl = (origin: string, leadId: string) => `${origin}/pro/leads/${leadId}`;
+const bidsUrl = (origin: string, planId: string) => `${origin}/plans/${planId}/bids`;
+const CLOSED: LeadStatus[] = ['declined', 'won', 'not_selected', 'withdrawn'];
+
+export async function ownedPlan(planId: string, ownerId: string) {
+	const [p] = await db.select().from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)));
+	return p ?? null;
+}
+
+/**
+ * Sends the plan to the chosen contractors. Each new lead freezes the plan's current revision and
+ * a copy of its input and result; a contractor who has it already is only told of the newer
+ * revision. The choice is checked against the matching query again: the browser's list is not trusted.
+ */
+export async function sendLeads(
+	owner: Actor,
+	planId: string,
+	input: { scope: ServiceKind; timeframe: Timeframe; notes: string; contractors: string[] },
+	origin: string
+) {
+	const out = await db.transaction(async (tx) => {
+		const [p] = await tx.select().from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, owner.id))).for('update');
+		if (!p) return null;
+		const place = placeOf(p.postcode);
+		if (!place) throw new LeadRefused('The plan needs a US ZIP code we know before it can go to contractors.');
+		const [accepted] = await tx.select({ id: bid.id }).from(bid).where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
+		if (accepted) throw new LeadRefused('You accepted a bid for this plan already.');
+		const matches = new Map((await matchContractors(place, input.scope, tx)).map((m) => [m.id, m]));
+		if (input.contractors.some((id) => !matches.has(id))) throw new LeadRefused('A contractor you chose does not serve this plan’s area for that work.');
+		const existing = new Map(
+			(await tx.select().from(lead).where(eq(lead.planId, planId))).map((l) => [l.contractorId, l])
+		);
+		const created: string[] = [];
+		const resent: string[] = [];
+		for (const contractorId of input.contractors) {
+			const old = existing.get(contractorId);
+			if (old) {
+				if (old.latestRevision < p.revision && !CLOSED.includes(old.status)) {
+					await tx.update(lead).set({ latestRevision: p.revision, updatedAt: new Date() }).where(eq(lead.id, old.id));
+					resent.push(old.id);
+				}
+				continue;
+			}
+			const [row] = await tx
+				.insert(lead)
+				.values({
+					planId,
+					homeownerId: owner.id,
+					contractorId,
+					scope: input.scope,
+					timeframe: input.timeframe,
+					notes: input.notes,
+					planRevision: p.revision,
+					latestRevision: p.revision,
+					snapshot: { name: p.name, postcode: p.postcode, input: p.input, result: p.result },
+					town: place.town,
+					distanceKm: matches.get(contractorId)!.distanceKm
+				})
+				.returning({ id: lead.id });
+			created.push(row.id);
+		}
+		return { created, resent, town: place.town, planName: p.name, revision: p.revision };
+	});
+	if (!out) return null;
+	for (const id of [...out.created, ...out.resent]) {
+		const [to] = await leadContractor(id);
+		const mail = out.created.includes(id)
+			? newLeadMail(to.name, out.town, out.planName, leadUrl(origin, id))
+			: newerRevisionMail(to.name, out.town, out.revision, leadUrl(origin, id));
+		await queueMail(to.email, mail);
+	}
+	return { created: out.created.length, resent: out.resent.length };
+}
+
+const leadContractor = (leadId: string) =>
+	db.select({ name: user.name, email: user.email }).from(lead).innerJoin(user, eq(user.id, lead.contractorId)).where(eq(lead.id, leadId));
+
+/** Messages in `leadId`'s thread the viewer has not read: sent by the other side after the viewer last looked. */
+const unreadFor = (side: 'homeowner' | 'contractor') =>
+	sql<number>`(select count(*)::int from ${leadMessage} m where m.lead_id = ${lead.id}
+		and m.sender_id <> ${side === 'homeowner' ? lead.homeownerId : lead.contractorId}
+		and m.created_at > coalesce(${side === 'homeowner' ? lead.homeownerReadAt : lead.contractorReadAt}, 'epoch'))`;
+
+/** The homeowner's view of a plan's leads: each contractor's public profile, bid and unread count. */
+export async function leadsForPlan(planId: string) {
+	return db
+		.select({
+			lead: { id: lead.id, status: lead.status, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
+			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade, phone: contractor.phone, contactName: contractor.contactName, licenceNumber: contractor.licenceNumber },
+			bid,
+			unread: unreadFor('homeowner')
+		})
+		.from(lead)
+		.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
+		.leftJoin(bid, eq(bid.leadId, lead.id))
+		.where(eq(lead.planId, planId))
+		.orderBy(asc(lead.distanceKm));
+}
+
+/**
+ * Accepts one bid in one transaction. The plan row is locked first, so two accepts for the same
+ * plan run one after the other and the second finds the first's accepted bid and is refused.
+ * Every other open bid becomes not selected and the leads follow.
+ */
+export async function acceptBid(ownerId: string, planId: string, bidId: string, origin: string) {
+	const out = await db.transaction(async (tx) => {
+		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+		if (!p) return null;
+		const [b] = await tx.select().from(bid).where(and(eq(bid.id, bidId), eq(bid.planId, planId)));
+		if (!b) return null;
+		const [already] = await tx.select({ id: bid.id }).from(bid).where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
+		if (already) throw new LeadRefused('You accepted a bid for this plan already.');
+		if (b.status !== 'open') throw new LeadRefused('This bid is no longer open.');
+		if (isExpired(b.validUntil)) throw new LeadRefused(`This bid was valid until ${b.validUntil}; ask the contractor to renew it.`);
+		const now = new Date();
+		await tx.update(bid).set({ status: 'accepted', updatedAt: now }).where(eq(bid.id, b.id));
+		await tx.update(bid).set({ status: 'not_selected', updatedAt: now }).where(and(eq(bid.planId, planId), eq(bid.status, 'open'), ne(bid.id, b.id)));
+		await tx.update(lead).set({ status: 'won', updatedAt: now }).where(eq(lead.id, b.leadId));
+		const others = await tx
+			.update(lead)
+			.set({ status: 'not_selected', updatedAt: now })
+			.where(and(eq(lead.planId, planId), ne(lead.id, b.leadId), notInArray(lead.status, ['declined', 'withdrawn'])))
+			.returning({ id: lead.id });
+		return { winner: b.leadId, others: others.map((o) => o.id) };
+	});
+	if (!out) return false;
+	for (const id of [out.winner, ...out.others]) {
+		const [to] = await leadContractor(id);
+		const [{ town }] = await db.select({ town: lead.town }).from(lead).where(eq(lead.id, id));
+		await queueMail(to.email, bidDecisionMail(to.name, id === out.winner, town ?? 'you', leadUrl(origin, id)));
+	}
+	return true;
+}
+
+/** The contractor's inbox: their leads only, optionally of one status, newest first. */
+export async function contractorLeads(contractorId: string, o: { status: LeadStatus | null; limit: number; offset: number }) {
+	const where = and(eq(lead.contractorId, contractorId), o.status ? eq(lead.status, o.status) : undefined);
+	const rows = await db
+		.select({
+			id: lead.id,
+			status: lead.status,
+			town: lead.town,
+			distanceKm: lead.distanceKm,
+			scope: lead.scope,
+			timeframe: lead.timeframe,
+			sentAt: lead.sentAt,
+			planName: sql<string>`${lead.snapshot}->>'name'`,
+			newerRevision: sql<boolean>`${lead.latestRevision} > ${lead.planRevision}`,
+			unread: unreadFor('contractor')
+		})
+		.from(lead)
+		.where(where)
+		.orderBy(desc(lead.sentAt))
+		.limit(o.limit)
+		.offset(o.offset);
+	const [{ n }] = await db.select({ n: count() }).from(lead).where(where);
+	return { rows, total: n };
+}
+
+/**
+ * One lead as its contractor sees it. The homeowner's name and e-mail are included only once the
+ * contractor's bid was accepted; before that, the town and distance are all they learn.
+ */
+export async function contractorLead(contractorId: string, leadId: string) {
+	const [row] = await db
+		.select({ lead, bid, homeownerName: user.name, homeownerEmail: user.email, unitPref: contractor.serviceRadiusUnit })
+		.from(lead)
+		.innerJoin(user, eq(user.id, lead.homeownerId))
+		.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
+		.leftJoin(bid, eq(bid.leadId, lead.id))
+		.where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
+	if (!row) return null;
+	const { homeownerName, homeownerEmail, ...rest } = row;
+	return { ...rest, homeowner: row.lead.status === 'won' ? { name: homeownerName, email: homeownerEmail } : null };
+}
+
+/** Opening a lead marks it viewed and its messages read. */
+export async function markLeadSeen(contractorId: string, leadId: string) {
+	await db
+		.update(lead)
+		.set({ contractorReadAt: new Date(), status: sql`case when ${lead.status} = 'new' then 'viewed'::lead_status else ${lead.status} end` })
+		.where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
+}
+
+export async function markLeadReadByHomeowner(homeownerId: string, leadId: string) {
+	await db.update(lead).set({ homeownerReadAt: new Date() }).where(and(eq(lead.id, leadId), eq(lead.homeownerId, homeownerId)));
+}
+
+/**
+ * Locks the contractor's lead for a change. The plan is taken FOR KEY SHARE, which waits for an
+ * accept in progress (FOR UPDATE) but not for the homeowner's ordinary plan saves.
+ */
+async function lockOwnLead(tx: Tx, contractorId: string, leadId: string) {
+	const [l] = await tx.select().from(lead).where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
+	if (!l) return null;
+	await tx.select({ id: plan.id }).from(plan).where(eq(plan.id, l.planId)).for('key share');
+	const [fresh] = await tx.select().from(lead).where(eq(lead.id, leadId)).for('update');
+	const [b] = await tx.select().from(bid).where(eq(bid.leadId, leadId));
+	return { lead: fresh, bid: b ?? null };
+}
+
+async function requireApproved(tx: Tx, contractorId: string) {
+	const [c] = await tx.select({ status: contractor.status, businessName: contractor.businessName }).from(contractor).where(eq(contractor.userId, contractorId));
+	if (c?.status !== 'approved') throw new LeadRefused('Only approved contractors can bid.');
+	return c;
+}
+
+/** Creates or edits the contractor's bid; refused once the lead is closed or the bid expired. */
+export async function saveBid(contractorId: string, leadId: string, input: BidInput, origin: string) {
+	const out = await db.transaction(async (tx) => {
+		const c = await requireApproved(tx, contractorId);
+		const locked = await lockOwnLead(tx, contractorId, leadId);
+		if (!locked) return null;
+		if (CLOSED.includes(locked.lead.status)) throw new LeadRefused('This lead is closed; the bid cannot change.');
+		if (locked.bid && locked.bid.status !== 'open') throw new LeadRefused('This bid is no longer open.');
+		if (locked.bid && isExpired(locked.bid.validUntil)) throw new LeadRefused('This bid has expired; it can no longer be changed.');
+		const now = new Date();
+		if (locked.bid) await tx.update(bid).set({ ...input, updatedAt: now }).where(eq(bid.id, locked.bid.id));
+		else await tx.insert(bid).values({ ...input, leadId, planId: locked.lead.planId, contractorId });
+		await tx.update(lead).set({ status: 'bid_sent', updatedAt: now }).where(eq(lead.id, leadId));
+		return { updated: !!locked.bid, lead: locked.lead, business: c.businessName ?? 'A contractor' };
+	});
+	if (!out) return false;
+	const [home] = await db.select({ name: user.name, email: user.email }).from(user).where(eq(user.id, out.lead.homeownerId));
+	await queueMail(home.email, newBidMail(home.name, out.business, out.lead.snapshot.name, out.updated, bidsUrl(origin, out.lead.planId)));
+	return true;
+}
+
+export async function withdrawBid(contractorId: string, leadId: string) {
+	return db.transaction(async (tx) => {
+		const locked = await lockOwnLead(tx, contractorId, leadId);
+		if (!locked) return false;
+		if (locked.bid?.status !== 'open') throw new LeadRefused('There is no open bid to withdraw.');
+		await tx.update(bid).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(bid.id, locked.bid.id));
+		await tx.update(lead).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(lead.id, leadId));
+		return true;
+	});
+}
+
+/** Declining also withdraws an open bid; the homeowner sees the reason. */
+export async function declineLead(contractorId: string, leadId: string, reason: string) {
+	return db.transaction(async (tx) => {
+		const locked = await lockOwnLead(tx, contractorId, leadId);
+		if (!locked) return false;
+		if (CLOSED.includes(locked.lead.status)) throw new LeadRefused('This lead is closed already.');
+		if (locked.bid?.status === 'open') await tx.update(bid).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(bid.id, locked.bid.id));
+		await tx.update(lead).set({ status: 'declined', declineReason: reason, updatedAt: new Date() }).where(eq(lead.id, leadId));
+		return true;
+	});
+}
+
+/** A suspended contractor's open bids are withdrawn with their leads (inside the suspension's transaction). */
+export async function withdrawOpenBidsOf(tx: Tx, contractorId: string) {
+	const withdrawn = await tx
+		.update(bid)
+		.set({ status: 'withdrawn', updatedAt: new Date() })
+		.where(and(eq(bid.contractorId, contractorId), eq(bid.status, 'open')))
+		.returning({ leadId: bid.leadId });
+	if (withdrawn.length) await tx.update(lead).set({ status: 'withdrawn', updatedAt: new Date() }).where(inArray(lead.id, withdrawn.map((w) => w.leadId)));
+	return withdrawn.length;
+}
+
+export async function threadOf(leadId: string) {
+	return db.select().from(leadMessage).where(eq(leadMessage.leadId, leadId)).orderBy(asc(leadMessage.createdAt), asc(leadMessage.id));
+}
+
+/** Posts to a lead's thread when `sender` is one of its two sides, and tells the other side by e-mail. */
+export async function postMessage(sender: Actor & { role: string }, leadId: string, body: string, origin: string) {
+	const side: SQL | undefined =
+		sender.role === 'homeowner' ? eq(lead.homeownerId, sender.id) : sender.role === 'contractor' ? eq(lead.contractorId, sender.id) : undefined;
+	if (!side) return false;
+	const [l] = await db.select().from(lead).where(and(eq(lead.id, leadId), side));
+	if (!l) return false;
+	const now = new Date();
+	await db.insert(leadMessage).values({ leadId, senderId: sender.id, body, createdAt: now });
+	// Writing in a thread means having read it.
+	await db
+		.update(lead)
+		.set(sender.role === 'homeowner' ? { homeownerReadAt: now } : { contractorReadAt: now })
+		.where(eq(lead.id, leadId));
+	const toId = sender.role === 'homeowner' ? l.contractorId : l.homeownerId;
+	const [to] = await db.select({ name: user.name, email: user.email }).from(user).where(eq(user.id, toId));
+	if (sender.role === 'homeowner') {
+		await queueMail(to.email, newMessageMail(to.name, `the homeowner near ${l.town ?? 'you'}`, leadUrl(origin, leadId)));
+	} else {
+		const [c] = await db.select({ b: contractor.businessName }).from(contractor).where(eq(contractor.userId, sender.id));
+		await queueMail(to.email, newMessageMail(to.name, c?.b ?? sender.name, `${bidsUrl(origin, l.planId)}/${leadId}`));
+	}
+	return true;
+}
+
+/** Unread messages across all of a user's threads, for the navigation. */
+export async function unreadMessageCount(u: { id: string; role: string }) {
+	if (u.role !== 'homeowner' && u.role !== 'contractor') return 0;
+	const mine = u.role === 'homeowner' ? eq(lead.homeownerId, u.id) : eq(lead.contractorId, u.id);
+	const readAt = u.role === 'homeowner' ? lead.homeownerReadAt : sql`coalesce(${lead.contractorReadAt}, 'epoch')`;
+	const [{ n }] = await db
+		.select({ n: count() })
+		.from(leadMessage)
+		.innerJoin(lead, eq(lead.id, leadMessage.leadId))
+		.where(and(mine, ne(leadMessage.senderId, u.id), gt(leadMessage.createdAt, readAt)));
+	return n;
+}
+
