@@ -1,31 +1,6 @@
-import { expect, test, type Page } from '@playwright/test';
-import sharp from 'sharp';
+import { expect, test } from '@playwright/test';
 import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
-
-const pdf = (label: string) => ({
-	name: `${label}.pdf`,
-	mimeType: 'application/pdf',
-	buffer: Buffer.from(`%PDF-1.4\n1 0 obj\n<< /Type /Catalog >>\nendobj\n% ${label}\ntrailer\n<< /Root 1 0 R >>\n%%EOF\n`)
-});
-const pngCertificate = async () => ({
-	name: 'insurance-certificate.png',
-	mimeType: 'image/png',
-	buffer: await sharp({ create: { width: 40, height: 30, channels: 3, background: '#d6e8da' } }).png().toBuffer()
-});
-
-async function fillProfile(page: Page, business: string) {
-	await page.getByLabel('Business name').fill(business);
-	await page.getByLabel('Phone').fill('(541) 555-0123');
-	await page.getByLabel('Public description').fill('Shed pads and short walks, formed and poured by two of us.');
-	await page.getByLabel('Years in the trade').fill('9');
-	await page.getByLabel('Pour and finish').check();
-	await page.getByLabel('Base preparation').check();
-	await page.getByLabel('Licence number').fill('FH-CC-55120');
-	await page.getByLabel('Issued by').fill('Fernhollow County Contractors Board');
-	await page.getByLabel('ZIP code').fill('97322');
-	await page.getByLabel('Distance').fill('25');
-	await page.getByLabel('Unit').selectOption('km');
-}
+import { fillProfile, pdf, pngCertificate } from './pro-helpers';
 
 test('a contractor onboards with documents, an admin approves, and only they two can open the documents', async ({ page }) => {
 	const email = uniqueEmail('vet');

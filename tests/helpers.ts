@@ -21,7 +21,10 @@ export async function signIn(page: Page, email: string, password: string) {
 	await page.goto('/signin');
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(password);
+	// Wait for the answer that sets the session cookie, so a page.goto right after is signed in.
+	const answered = page.waitForResponse((r) => r.request().method() === 'POST' && new URL(r.url()).pathname === '/signin');
 	await page.getByRole('button', { name: 'Sign in' }).click();
+	await answered;
 }
 
 export async function signOut(page: Page) {

@@ -1,6 +1,4 @@
 import type { ParamMatcher } from '@sveltejs/kit';
+import { isUuid } from '$lib/uuid';
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
-/** Ids are UUIDs; anything else is a 404 before any query runs. */
-export const match = ((param: string): param is string => UUID.test(param)) satisfies ParamMatcher;
+export const match = ((param: string): param is string => isUuid(param)) satisfies ParamMatcher;

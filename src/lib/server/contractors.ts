@@ -1,8 +1,10 @@
+import { error } from '@sveltejs/kit';
 import { and, eq, getTableColumns } from 'drizzle-orm';
 import { statusAfterEdit, type ContractorStatus } from '$lib/contractor-status';
 import type { ContractorProfileInput, DocumentKind } from '$lib/schemas/contractor';
 import { db } from '$lib/server/db';
 import { contractor, contractorDocument } from '$lib/server/db/schema';
+import { requireRole } from './guards';
 import { storage } from './storage';
 import type { SniffedUpload } from './uploads';
 
@@ -83,4 +85,12 @@ export async function saveContractorProfile(
 		await Promise.all(written.map((w) => storage().delete(w.key)));
 		throw err;
 	}
+}
+
+/** For actions, which run without the layout's check: the signed-in contractor, approved, or a 403. */
+export async function requireApprovedContractor(event: Parameters<typeof requireRole>[0]) {
+	const user = requireRole(event, 'contractor');
+	const [c] = await db.select({ status: contractor.status }).from(contractor).where(eq(contractor.userId, user.id));
+	if (c?.status !== 'approved') error(403, 'Leads are open to approved contractors only.');
+	return user;
 }

@@ -6,6 +6,7 @@ import { client, db } from './db';
 import { bid, contractor, lead, mailOutbox, plan } from './db/schema';
 import {
 	acceptBid,
+	announceRevision,
 	contractorLead,
 	declineLead,
 	LeadRefused,
@@ -102,14 +103,17 @@ describe('leads', () => {
 		const c = await approvedContractor('Freeze', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
 		const { owner, plan: p } = await homeownerWithPlan();
 		const sent = await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'flexible', notes: 'Gate is on the left.', contractors: [c.id] }, origin);
-		expect(sent).toEqual({ created: 1, resent: 0 });
+		expect(sent).toEqual({ created: 1 });
 
 		await db.update(plan).set({ input: { units: 'metric', note: 'second' }, revision: 2 }).where(eq(plan.id, p.id));
 		const [l] = await db.select().from(lead).where(and(eq(lead.planId, p.id), eq(lead.contractorId, c.id)));
 		expect(l.planRevision).toBe(1);
 		expect(l.snapshot.input).toEqual({ units: 'imperial', note: 'first' });
 
-		expect(await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'flexible', notes: '', contractors: [c.id] }, origin)).toEqual({ created: 0, resent: 1 });
+		// Sending to the same contractor again adds nothing; announcing the revision flags it once.
+		expect(await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'flexible', notes: 'changed', contractors: [c.id] }, origin)).toEqual({ created: 0 });
+		expect(await announceRevision(owner, p.id, origin)).toBe(1);
+		expect(await announceRevision(owner, p.id, origin)).toBe(0);
 		const seen = await contractorLead(c.id, l.id);
 		expect(seen?.lead.snapshot.input).toEqual({ units: 'imperial', note: 'first' });
 		expect([seen?.lead.planRevision, seen?.lead.latestRevision]).toEqual([1, 2]);

@@ -25,9 +25,9 @@ export async function ownedPlan(planId: string, ownerId: string) {
 }
 
 /**
- * Sends the plan to the chosen contractors. Each new lead freezes the plan's current revision and
- * a copy of its input and result; a contractor who has it already is only told of the newer
- * revision. The choice is checked against the matching query again: the browser's list is not trusted.
+ * Sends the plan to the chosen contractors. Each lead freezes the plan's current revision and a
+ * copy of its input and result. The choice is checked against the matching query again: the
+ * browser's list is not trusted. Contractors who have the plan already are skipped.
  */
 export async function sendLeads(
 	owner: Actor,
@@ -36,31 +36,16 @@ export async function sendLeads(
 	origin: string
 ) {
 	const out = await db.transaction(async (tx) => {
-		const [p] = await tx.select().from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, owner.id))).for('update');
+		const p = await lockOpenPlan(tx, owner.id, planId);
 		if (!p) return null;
 		const place = placeOf(p.postcode);
 		if (!place) throw new LeadRefused('The plan needs a US ZIP code we know before it can go to contractors.');
-		const [accepted] = await tx.select({ id: bid.id }).from(bid).where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
-		if (accepted) throw new LeadRefused('You accepted a bid for this plan already.');
 		const matches = new Map((await matchContractors(place, input.scope, tx)).map((m) => [m.id, m]));
 		if (input.contractors.some((id) => !matches.has(id))) throw new LeadRefused('A contractor you chose does not serve this plan’s area for that work.');
-		const existing = new Map(
-			(await tx.select().from(lead).where(eq(lead.planId, planId))).map((l) => [l.contractorId, l])
-		);
-		const created: string[] = [];
-		const resent: string[] = [];
-		for (const contractorId of input.contractors) {
-			const old = existing.get(contractorId);
-			if (old) {
-				if (old.latestRevision < p.revision && !CLOSED.includes(old.status)) {
-					await tx.update(lead).set({ latestRevision: p.revision, updatedAt: new Date() }).where(eq(lead.id, old.id));
-					resent.push(old.id);
-				}
-				continue;
-			}
-			const [row] = await tx
-				.insert(lead)
-				.values({
+		const rows = await tx
+			.insert(lead)
+			.values(
+				input.contractors.map((contractorId) => ({
 					planId,
 					homeownerId: owner.id,
 					contractorId,
@@ -72,21 +57,50 @@ export async function sendLeads(
 					snapshot: { name: p.name, postcode: p.postcode, input: p.input, result: p.result },
 					town: place.town,
 					distanceKm: matches.get(contractorId)!.distanceKm
-				})
-				.returning({ id: lead.id });
-			created.push(row.id);
-		}
-		return { created, resent, town: place.town, planName: p.name, revision: p.revision };
+				}))
+			)
+			.onConflictDoNothing({ target: [lead.planId, lead.contractorId] })
+			.returning({ id: lead.id });
+		return { created: rows.map((r) => r.id), town: place.town, planName: p.name };
 	});
 	if (!out) return null;
-	for (const id of [...out.created, ...out.resent]) {
+	for (const id of out.created) {
 		const [to] = await leadContractor(id);
-		const mail = out.created.includes(id)
-			? newLeadMail(to.name, out.town, out.planName, leadUrl(origin, id))
-			: newerRevisionMail(to.name, out.town, out.revision, leadUrl(origin, id));
-		await queueMail(to.email, mail);
+		await queueMail(to.email, newLeadMail(to.name, out.town, out.planName, leadUrl(origin, id)));
 	}
-	return { created: out.created.length, resent: out.resent.length };
+	return { created: out.created.length };
+}
+
+/**
+ * After the plan changed, tells the contractors who have it (and whose lead is still open) that a
+ * newer revision exists. Their lead keeps showing the revision it was sent with.
+ */
+export async function announceRevision(owner: Actor, planId: string, origin: string) {
+	const out = await db.transaction(async (tx) => {
+		const p = await lockOpenPlan(tx, owner.id, planId);
+		if (!p) return null;
+		const rows = await tx
+			.update(lead)
+			.set({ latestRevision: p.revision, updatedAt: new Date() })
+			.where(and(eq(lead.planId, planId), sql`${lead.latestRevision} < ${p.revision}`, notInArray(lead.status, CLOSED)))
+			.returning({ id: lead.id, town: lead.town });
+		return { rows, revision: p.revision };
+	});
+	if (!out) return null;
+	for (const r of out.rows) {
+		const [to] = await leadContractor(r.id);
+		await queueMail(to.email, newerRevisionMail(to.name, r.town ?? 'you', out.revision, leadUrl(origin, r.id)));
+	}
+	return out.rows.length;
+}
+
+/** The owner's plan, locked against a concurrent accept; refused once a bid is accepted. */
+async function lockOpenPlan(tx: Tx, ownerId: string, planId: string) {
+	const [p] = await tx.select().from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+	if (!p) return null;
+	const [accepted] = await tx.select({ id: bid.id }).from(bid).where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
+	if (accepted) throw new LeadRefused('You accepted a bid for this plan already.');
+	return p;
 }
 
 const leadContractor = (leadId: string) =>
@@ -102,7 +116,7 @@ const unreadFor = (side: 'homeowner' | 'contractor') =>
 export async function leadsForPlan(planId: string) {
 	return db
 		.select({
-			lead: { id: lead.id, status: lead.status, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
+			lead: { id: lead.id, contractorId: lead.contractorId, status: lead.status, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
 			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade, phone: contractor.phone, contactName: contractor.contactName, licenceNumber: contractor.licenceNumber },
 			bid,
 			unread: unreadFor('homeowner')
@@ -319,3 +333,29 @@ export async function unreadMessageCount(u: { id: string; role: string }) {
 	return n;
 }
 
+
+/**
+ * Every thread of a homeowner or an approved contractor, with unread counts, newest activity first.
+ * Contractors see the town only, as on their leads.
+ */
+export async function threadsOf(u: { id: string; role: string }) {
+	const side = u.role === 'homeowner' ? 'homeowner' : 'contractor';
+	if (side === 'contractor') {
+		const [c] = await db.select({ status: contractor.status }).from(contractor).where(eq(contractor.userId, u.id));
+		if (c?.status !== 'approved') return [];
+	}
+	const last = sql<Date | null>`(select max(m.created_at) from ${leadMessage} m where m.lead_id = ${lead.id})`;
+	return db
+		.select({
+			leadId: lead.id,
+			planId: lead.planId,
+			planName: sql<string>`${lead.snapshot}->>'name'`,
+			with: side === 'homeowner' ? sql<string>`coalesce(${contractor.businessName}, 'Contractor')` : sql<string>`coalesce(${lead.town}, 'Homeowner')`,
+			unread: unreadFor(side),
+			last
+		})
+		.from(lead)
+		.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
+		.where(and(side === 'homeowner' ? eq(lead.homeownerId, u.id) : eq(lead.contractorId, u.id), sql`${last} is not null`))
+		.orderBy(desc(last));
+}

@@ -1,0 +1,61 @@
+import { error } from '@sveltejs/kit';
+import { and, eq } from 'drizzle-orm';
+import { messageSchema } from '$lib/schemas/leads';
+import { db } from '$lib/server/db';
+import { bid, contractor, lead } from '$lib/server/db/schema';
+import { formError, parseForm } from '$lib/server/forms';
+import { requireRole } from '$lib/server/guards';
+import { markLeadReadByHomeowner, postMessage, threadOf } from '$lib/server/leads';
+import { isUuid } from '$lib/uuid';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
+
+/** The homeowner's own lead on their own plan; a 404 for anything else. */
+async function ownLead(event: RequestEvent | Parameters<PageServerLoad>[0]) {
+	const user = requireRole(event, 'homeowner');
+	const { id, leadId } = event.params;
+	if (!isUuid(id) || !isUuid(leadId)) error(404, 'No such lead');
+	const [row] = await db
+		.select({
+			lead: { id: lead.id, status: lead.status, planRevision: lead.planRevision, declineReason: lead.declineReason, planName: lead.snapshot },
+			contractor: {
+				businessName: contractor.businessName,
+				description: contractor.description,
+				yearsInTrade: contractor.yearsInTrade,
+				contactName: contractor.contactName,
+				phone: contractor.phone
+			},
+			bid
+		})
+		.from(lead)
+		.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
+		.leftJoin(bid, eq(bid.leadId, lead.id))
+		.where(and(eq(lead.id, leadId), eq(lead.planId, id), eq(lead.homeownerId, user.id)));
+	if (!row) error(404, 'No such lead');
+	return { user, row };
+}
+
+export const load = (async (event) => {
+	const { user, row } = await ownLead(event);
+	await markLeadReadByHomeowner(user.id, row.lead.id);
+	const won = row.lead.status === 'won';
+	const { contactName, phone, ...publicProfile } = row.contractor;
+	return {
+		planId: event.params.id,
+		planName: row.lead.planName.name,
+		lead: { id: row.lead.id, status: row.lead.status, planRevision: row.lead.planRevision, declineReason: row.lead.declineReason },
+		contractor: { ...publicProfile, contact: won ? { contactName, phone } : null },
+		bid: row.bid,
+		messages: await threadOf(row.lead.id),
+		viewerId: user.id
+	};
+}) satisfies PageServerLoad;
+
+export const actions = {
+	message: async (event) => {
+		const { user, row } = await ownLead(event);
+		const { data, values, failure } = await parseForm(event.request, messageSchema);
+		if (failure) return failure;
+		if (!(await postMessage(user, row.lead.id, data.body, event.url.origin))) return formError(values, 'This thread is closed.', {}, 404);
+		return { messageSent: true };
+	}
+} satisfies Actions;

@@ -1,0 +1,62 @@
+import { error } from '@sveltejs/kit';
+import { planFigures } from '$lib/plan-figures';
+import { bidSchema, declineSchema, messageSchema } from '$lib/schemas/leads';
+import { requireApprovedContractor } from '$lib/server/contractors';
+import { formError, parseForm } from '$lib/server/forms';
+import { requireRole } from '$lib/server/guards';
+import { contractorLead, declineLead, LeadRefused, markLeadSeen, postMessage, saveBid, threadOf, withdrawBid } from '$lib/server/leads';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load = (async (event) => {
+	const user = requireRole(event, 'contractor');
+	await event.parent(); // approved only
+	const found = await contractorLead(user.id, event.params.id);
+	if (!found) error(404, 'No such lead');
+	await markLeadSeen(user.id, event.params.id);
+	const { snapshot, ...lead } = found.lead;
+	return {
+		lead: { ...lead, status: lead.status === 'new' ? ('viewed' as const) : lead.status },
+		plan: { name: snapshot.name, figures: planFigures(snapshot.input, snapshot.result) },
+		bid: found.bid,
+		homeowner: found.homeowner,
+		unit: found.unitPref,
+		messages: await threadOf(event.params.id),
+		viewerId: user.id
+	};
+}) satisfies PageServerLoad;
+
+/** Runs a lead step, turning a refusal into a 409 with its message and a missing lead into a 404. */
+async function step(values: Record<string, string>, run: () => Promise<boolean>, done: Record<string, true>) {
+	try {
+		if (!(await run())) error(404, 'No such lead');
+	} catch (err) {
+		if (err instanceof LeadRefused) return formError(values, err.message, {}, 409);
+		throw err;
+	}
+	return done;
+}
+
+export const actions = {
+	bid: async (event) => {
+		const user = await requireApprovedContractor(event);
+		const { data, values, failure } = await parseForm(event.request, bidSchema);
+		if (failure) return failure;
+		return step(values, () => saveBid(user.id, event.params.id, data, event.url.origin), { bidSaved: true });
+	},
+	withdraw: async (event) => {
+		const user = await requireApprovedContractor(event);
+		return step({}, () => withdrawBid(user.id, event.params.id), { withdrawn: true });
+	},
+	decline: async (event) => {
+		const user = await requireApprovedContractor(event);
+		const { data, values, failure } = await parseForm(event.request, declineSchema);
+		if (failure) return failure;
+		return step(values, () => declineLead(user.id, event.params.id, data.reason), { declined: true });
+	},
+	message: async (event) => {
+		const user = await requireApprovedContractor(event);
+		const { data, values, failure } = await parseForm(event.request, messageSchema);
+		if (failure) return failure;
+		return step(values, () => postMessage(user, event.params.id, data.body, event.url.origin), { messageSent: true });
+	}
+} satisfies Actions;

@@ -1,0 +1,184 @@
+import { expect, test, type Page } from '@playwright/test';
+import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { approvedNewContractor, bumpPlanRevision, insertPlan } from './pro-helpers';
+
+const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+
+async function sendBid(page: Page, o: { total: string; days: string; labour?: string }) {
+	await page.getByLabel('Total price (USD)').fill(o.total);
+	if (o.labour) await page.getByLabel('Labour').fill(o.labour);
+	await page.getByLabel('Earliest start').fill(inDays(10));
+	await page.getByLabel('Duration (days)').fill(o.days);
+	await page.getByLabel('Price valid until').fill(inDays(40));
+	await page.getByLabel('Included', { exact: true }).fill('Forms, base, pour, broom finish.');
+	await page.getByRole('button', { name: 'Send the bid' }).click();
+	await expect(page.getByText('Bid sent. The homeowner was told.')).toBeVisible();
+}
+
+test('a plan goes to two vetted contractors, both bid, the homeowner accepts one and they talk', async ({ page }) => {
+	test.setTimeout(120_000);
+	const stamp = Date.now();
+	const pro = { name: 'Wes Harrow', email: uniqueEmail('bidder'), password: 'level-line-41', business: `Harrow Slabworks ${stamp}`, zip: '97321' };
+	await approvedNewContractor(page, pro);
+
+	const homeEmail = uniqueEmail('owner');
+	await signUp(page, { name: 'Nell Quarry', email: homeEmail, password: 'my-back-patio', role: 'homeowner' });
+	await expect(page).toHaveURL(/\/plans$/);
+	const planId = await insertPlan(homeEmail, { name: 'Back patio', postcode: '97321' });
+
+	// Get bids: the approved contractors around the plan's ZIP code, nearest first.
+	await page.goto(`/plans/${planId}/bids`);
+	await expect(page.getByTestId('match-count')).toContainText(/\d+ approved contractors serve/);
+	await expect(page.getByText('Mossgate Forms')).toHaveCount(0); // awaiting review: never offered
+	for (const box of await page.getByRole('checkbox').all()) await box.uncheck();
+	await page.getByRole('checkbox', { name: new RegExp(pro.business) }).check();
+	await page.getByRole('checkbox', { name: /Ridgeback Flatwork/ }).check();
+	await page.getByLabel('Within a month').check();
+	await page.getByLabel('Notes for the contractors').fill('The side gate is 36 in wide.');
+	await page.getByRole('button', { name: 'Send the plan' }).click();
+	await expect(page.getByText('Sent to 2 contractors.')).toBeVisible();
+	await page.screenshot({ path: 'test-results/screens/bids-sent.png', fullPage: true });
+	await signOut(page);
+
+	// The new contractor follows the e-mail to the lead: the plan, town and distance, no homeowner contact.
+	await signIn(page, pro.email, pro.password);
+	await expect(page).toHaveURL(/\/pro$/);
+	const leadLink = await mailLink(page, pro.email, /New lead near Albany, OR/);
+	await page.goto(leadLink);
+	await expect(page.getByRole('heading', { name: 'Back patio' })).toBeVisible();
+	await expect(page.getByText(/Albany, OR · 0(\.\d)? mi from you/)).toBeVisible();
+	await expect(page.getByTestId('lead-notes')).toHaveText('The side gate is 36 in wide.');
+	await expect(page.getByTestId('plan-figures')).toContainText('120 ft²');
+	await expect(page.getByTestId('plan-figures')).toContainText('74 × 80 lb');
+	await expect(page.locator('main')).not.toContainText('Nell Quarry');
+	await expect(page.locator('main')).not.toContainText(homeEmail);
+	await page.getByRole('button', { name: 'Send the bid' }).click();
+	await expect(page.locator('#field-total-error')).toHaveText(/Enter an amount in dollars/);
+	await sendBid(page, { total: '2,400', labour: '1,500', days: '1' });
+	const leadUrl = page.url();
+	await page.screenshot({ path: 'test-results/screens/lead-bid-sent.png', fullPage: true });
+	await signOut(page);
+
+	await signIn(page, demoUser('contractor').email, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
+	await page.getByRole('link', { name: 'Open the leads' }).click();
+	await page.getByTestId('lead-list').getByRole('link', { name: 'Back patio' }).first().click();
+	await expect(page).toHaveURL(/\/pro\/leads\/[0-9a-f-]{36}$/);
+	const otherLeadUrl = page.url();
+	await sendBid(page, { total: '2150', days: '3' });
+	await signOut(page);
+
+	// The homeowner compares and accepts.
+	await signIn(page, homeEmail, 'my-back-patio');
+	await expect(page).toHaveURL(/\/plans$/);
+	const bidMail = await mailLink(page, homeEmail, new RegExp(`New bid from ${pro.business}`));
+	expect(bidMail).toContain(`/plans/${planId}/bids`);
+	await page.goto(`/plans/${planId}/bids`);
+	const rows = page.getByTestId('bid-row');
+	await expect(rows).toHaveCount(2);
+	await expect(rows.first()).toContainText('Ridgeback Flatwork'); // cheapest first
+	await expect(rows.first()).toContainText('$2,150');
+	await page.getByRole('button', { name: 'Days' }).click();
+	await expect(rows.first()).toContainText(pro.business); // 1 day against 3
+	await page.getByRole('button', { name: 'Years in trade' }).click();
+	await expect(rows.first()).toContainText('Ridgeback Flatwork'); // 16 years against 9
+	const mine = rows.filter({ hasText: pro.business });
+	await expect(mine).toContainText('$2,400');
+	await expect(mine).toContainText('$20'); // per ft² on 120 ft²
+	await page.screenshot({ path: 'test-results/screens/bids-compare.png', fullPage: true });
+	await mine.getByRole('button', { name: 'Accept' }).click();
+	await expect(page.getByText('Bid accepted.')).toBeVisible();
+	await expect(mine.getByTestId('bid-status')).toHaveText('Accepted');
+	await expect(rows.filter({ hasText: 'Ridgeback Flatwork' }).getByTestId('bid-status')).toHaveText('Not selected');
+	await expect(page.getByRole('button', { name: 'Accept' })).toHaveCount(0);
+
+	await mine.getByRole('link', { name: pro.business }).click();
+	await expect(page.getByTestId('contractor-contact')).toContainText('(541) 555-0123');
+	await page.getByLabel(`Write to ${pro.business}`).fill('Could you start on a Saturday?');
+	await page.getByRole('button', { name: 'Send the message' }).click();
+	await expect(page.getByTestId('messages')).toContainText('Could you start on a Saturday?');
+	await signOut(page);
+
+	// The winner now sees the homeowner, and an unread message.
+	await signIn(page, pro.email, pro.password);
+	await expect(page).toHaveURL(/\/pro$/);
+	await expect(page.getByTestId('unread-count')).toHaveText(/^1/);
+	await page.goto(leadUrl);
+	await expect(page.getByTestId('lead-status')).toHaveText('Won');
+	await expect(page.getByTestId('homeowner-contact')).toContainText('Nell Quarry');
+	await expect(page.getByTestId('homeowner-contact')).toContainText(homeEmail);
+	await expect(page.getByTestId('messages')).toContainText('Could you start on a Saturday?');
+	await expect(page.getByTestId('unread-count')).toHaveCount(0);
+	await page.getByLabel('Write to Nell Quarry').fill('Saturday works. I will bring the forms on Friday.');
+	await page.getByRole('button', { name: 'Send the message' }).click();
+	await expect(page.getByTestId('messages')).toContainText('Saturday works.');
+	expect(await mailLink(page, pro.email, /bid near Albany, OR was accepted/)).toBe(leadUrl);
+	await signOut(page);
+
+	await signIn(page, demoUser('contractor').email, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
+	await page.goto(otherLeadUrl);
+	await expect(page.getByTestId('lead-status')).toHaveText('Not selected');
+	await expect(page.getByTestId('homeowner-contact')).toHaveCount(0);
+	await expect(page.locator('main')).not.toContainText(homeEmail);
+	await signOut(page);
+
+	await signIn(page, homeEmail, 'my-back-patio');
+	await expect(page).toHaveURL(/\/plans$/);
+	await expect(page.getByTestId('unread-count')).toHaveText(/^1/);
+	await page.getByTestId('nav-messages').click();
+	await page.getByTestId('threads').getByRole('link').first().click();
+	await expect(page.getByTestId('messages')).toContainText('Saturday works.');
+	await signOut(page);
+
+	// Refusals: a pending contractor, a contractor the plan was not sent to, another homeowner.
+	const leadPath = new URL(leadUrl).pathname;
+	const threadPath = `/plans/${planId}/bids/${leadPath.split('/').pop()}`;
+	await signIn(page, 'sam@mossgateforms.example', demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
+	expect((await page.goto('/pro/leads'))?.status()).toBe(403);
+	expect((await page.goto(leadPath))?.status()).toBe(403);
+	await signOut(page);
+
+	await signIn(page, 'june@quarrylaneslabs.example', demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
+	expect((await page.goto(leadPath))?.status()).toBe(404);
+	expect((await page.goto(`/plans/${planId}/bids`))?.status()).toBe(403);
+	await signOut(page);
+
+	await signIn(page, demoUser('homeowner').email, demoPassword);
+	await expect(page).toHaveURL(/\/plans$/);
+	expect((await page.goto(`/plans/${planId}/bids`))?.status()).toBe(404);
+	expect((await page.goto(threadPath))?.status()).toBe(404);
+	expect((await page.goto(leadPath))?.status()).toBe(403);
+	const origin = new URL(page.url()).origin;
+	const forged = await page.request.post(`/plans/${planId}/bids?/accept`, {
+		form: { bid: '00000000-0000-4000-8000-000000000000' },
+		headers: { origin, accept: 'application/json', 'x-sveltekit-action': 'true' }
+	});
+	expect(forged.status()).toBe(404);
+});
+
+test('a contractor who has the plan learns of a newer revision and keeps seeing the one sent', async ({ page }) => {
+	const homeEmail = uniqueEmail('revise');
+	await signUp(page, { name: 'Orla Fenn', email: homeEmail, password: 'shed-pad-two', role: 'homeowner' });
+	await expect(page).toHaveURL(/\/plans$/);
+	const planId = await insertPlan(homeEmail, { name: 'Shed pad', postcode: '97330' });
+	await page.goto(`/plans/${planId}/bids`);
+	for (const box of await page.getByRole('checkbox').all()) await box.uncheck();
+	await page.getByRole('checkbox', { name: /Ridgeback Flatwork/ }).check();
+	await page.getByRole('button', { name: 'Send the plan' }).click();
+	await expect(page.getByText('Sent to 1 contractor.')).toBeVisible();
+
+	await bumpPlanRevision(planId);
+	await page.reload();
+	await page.getByRole('button', { name: 'Tell them about revision 2' }).click();
+	await expect(page.getByText('Told 1 contractor about the newer revision.')).toBeVisible();
+	await signOut(page);
+
+	await signIn(page, demoUser('contractor').email, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
+	await page.goto(await mailLink(page, 'dell@ridgebackflatwork.example', /newer plan revision/));
+	await expect(page.getByRole('heading', { name: 'Shed pad', exact: true })).toBeVisible();
+	await expect(page.getByText('re-sent this plan as revision 2. This page shows revision 1')).toBeVisible();
+});

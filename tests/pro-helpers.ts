@@ -1,0 +1,87 @@
+import { expect, type Page } from '@playwright/test';
+import postgres from 'postgres';
+import sharp from 'sharp';
+import { demoPassword, demoUser, signIn, signOut, signUp } from './helpers';
+
+export const pdf = (label: string) => ({
+	name: `${label}.pdf`,
+	mimeType: 'application/pdf',
+	buffer: Buffer.from(`%PDF-1.4\n1 0 obj\n<< /Type /Catalog >>\nendobj\n% ${label}\ntrailer\n<< /Root 1 0 R >>\n%%EOF\n`)
+});
+
+export const pngCertificate = async () => ({
+	name: 'insurance-certificate.png',
+	mimeType: 'image/png',
+	buffer: await sharp({ create: { width: 40, height: 30, channels: 3, background: '#d6e8da' } }).png().toBuffer()
+});
+
+export async function fillProfile(page: Page, business: string, o: { zip?: string; radius?: string; unit?: 'mi' | 'km'; wholeJob?: boolean } = {}) {
+	await page.getByLabel('Business name').fill(business);
+	await page.getByLabel('Phone').fill('(541) 555-0123');
+	await page.getByLabel('Public description').fill('Shed pads and short walks, formed and poured by two of us.');
+	await page.getByLabel('Years in the trade').fill('9');
+	await page.getByLabel('Pour and finish').check();
+	await page.getByLabel('Base preparation').check();
+	if (o.wholeJob) await page.getByLabel('The whole job').check();
+	await page.getByLabel('Licence number').fill('FH-CC-55120');
+	await page.getByLabel('Issued by').fill('Fernhollow County Contractors Board');
+	await page.getByLabel('ZIP code').fill(o.zip ?? '97322');
+	await page.getByLabel('Distance').fill(o.radius ?? '25');
+	await page.getByLabel('Unit').selectOption(o.unit ?? 'km');
+}
+
+/** A new contractor, onboarded with both documents and approved by the demo admin; ends signed out. */
+export async function approvedNewContractor(page: Page, o: { name: string; email: string; password: string; business: string; zip: string }) {
+	await signUp(page, { name: o.name, email: o.email, password: o.password, role: 'contractor' });
+	await expect(page).toHaveURL(/\/pro$/);
+	await page.goto('/pro/profile');
+	await fillProfile(page, o.business, { zip: o.zip, radius: '20', unit: 'mi', wholeJob: true });
+	await page.getByLabel('Licence document').setInputFiles(pdf('licence'));
+	await page.getByLabel('Insurance certificate').setInputFiles(await pngCertificate());
+	await page.getByRole('button', { name: 'Send for review' }).click();
+	await expect(page.getByText('is checking your licence and insurance')).toBeVisible();
+	await signOut(page);
+	await signIn(page, demoUser('admin').email, demoPassword);
+	await expect(page).toHaveURL(/\/admin$/);
+	await page.getByTestId('vetting-queue').getByRole('link', { name: o.business }).click();
+	await page.getByRole('button', { name: 'Approve' }).click();
+	await expect(page.getByTestId('contractor-status')).toHaveText('Approved');
+	await signOut(page);
+}
+
+/**
+ * Stores a plan for `email` straight in the database, shaped like the engine's documented result,
+ * so the handoff can be tested on its own.
+ */
+export async function insertPlan(email: string, o: { name: string; postcode: string }) {
+	if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set');
+	const sql = postgres(process.env.DATABASE_URL, { max: 1, onnotice: () => {} });
+	try {
+		const result = {
+			area: { squareFeet: 120, squareMeters: 11.148 },
+			volume: {
+				net: { cubicFeet: 40, cubicYards: 1.481, cubicMeters: 1.133 },
+				order: { cubicFeet: 44, cubicYards: 1.63, cubicMeters: 1.246 }
+			},
+			bags: [{ size: 80, unit: 'lb', count: 74 }],
+			joints: { maxSpacing: 2.4 },
+			cautions: [{ id: 'wet-cement', title: 'Wet cement burns skin', source: 'common practice' }]
+		};
+		const [row] = await sql`
+			INSERT INTO plan (owner_id, name, postcode, input, result)
+			SELECT id, ${o.name}, ${o.postcode}, ${sql.json({ units: 'imperial' })}, ${sql.json(result)} FROM "user" WHERE email = ${email}
+			RETURNING id`;
+		return row.id as string;
+	} finally {
+		await sql.end();
+	}
+}
+
+export async function bumpPlanRevision(planId: string) {
+	const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+	try {
+		await sql`UPDATE plan SET revision = revision + 1, name = name || ' (wider)' WHERE id = ${planId}`;
+	} finally {
+		await sql.end();
+	}
+}
