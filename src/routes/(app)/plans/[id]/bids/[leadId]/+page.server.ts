@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { and, eq } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import { messageSchema } from '$lib/schemas/leads';
 import { db } from '$lib/server/db';
 import { bid, contractor, lead } from '$lib/server/db/schema';
@@ -16,7 +16,7 @@ async function ownLead(event: RequestEvent | Parameters<PageServerLoad>[0]) {
 	if (!isUuid(id) || !isUuid(leadId)) error(404, 'No such lead');
 	const [row] = await db
 		.select({
-			lead: { id: lead.id, status: lead.status, planRevision: lead.planRevision, declineReason: lead.declineReason, planName: lead.snapshot },
+			lead: { id: lead.id, status: lead.status, planRevision: lead.planRevision, declineReason: lead.declineReason, planName: sql<string>`${lead.snapshot}->>'name'` },
 			contractor: {
 				businessName: contractor.businessName,
 				description: contractor.description,
@@ -41,7 +41,7 @@ export const load = (async (event) => {
 	const { contactName, phone, ...publicProfile } = row.contractor;
 	return {
 		planId: event.params.id,
-		planName: row.lead.planName.name,
+		planName: row.lead.planName,
 		lead: { id: row.lead.id, status: row.lead.status, planRevision: row.lead.planRevision, declineReason: row.lead.declineReason },
 		contractor: { ...publicProfile, contact: won ? { contactName, phone } : null },
 		bid: row.bid,
