@@ -24,7 +24,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	const homeEmail = uniqueEmail('owner');
 	await signUp(page, { name: 'Nell Quarry', email: homeEmail, password: 'my-back-patio', role: 'homeowner' });
 	await expect(page).toHaveURL(/\/plans$/);
-	const planId = await insertPlan(homeEmail, { name: 'Back patio', postcode: '97321' });
+	const planId = await insertPlan(homeEmail, { name: 'Back patio', postcode: '97321', photo: true });
 
 	// Get bids: the approved contractors around the plan's ZIP code, nearest first.
 	await page.goto(`/plans/${planId}/bids`);
@@ -50,6 +50,11 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await expect(page.getByTestId('lead-notes')).toHaveText('The side gate is 36 in wide.');
 	await expect(page.getByTestId('plan-figures')).toContainText('120 ft²');
 	await expect(page.getByTestId('plan-figures')).toContainText('74 × 80 lb');
+	const thumb = page.getByTestId('lead-photos').getByRole('img', { name: 'Site photo 1' });
+	await expect(thumb).toBeVisible();
+	expect(await thumb.evaluate((img: HTMLImageElement) => img.naturalWidth)).toBe(160);
+	const photoPath = (await page.getByTestId('lead-photos').getByRole('link').getAttribute('href'))!;
+	expect((await page.request.get(photoPath)).headers()['content-type']).toBe('image/jpeg');
 	await expect(page.locator('main')).not.toContainText('Nell Quarry');
 	await expect(page.locator('main')).not.toContainText(homeEmail);
 	await page.getByRole('button', { name: 'Send the bid' }).click();
@@ -138,11 +143,13 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await expect(page).toHaveURL(/\/pro$/);
 	expect((await page.goto('/pro/leads'))?.status()).toBe(403);
 	expect((await page.goto(leadPath))?.status()).toBe(403);
+	expect((await page.request.get(photoPath)).status()).toBe(403);
 	await signOut(page);
 
 	await signIn(page, 'june@quarrylaneslabs.example', demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	expect((await page.goto(leadPath))?.status()).toBe(404);
+	expect((await page.request.get(photoPath)).status()).toBe(404);
 	expect((await page.goto(`/plans/${planId}/bids`))?.status()).toBe(403);
 	await signOut(page);
 
@@ -151,6 +158,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	expect((await page.goto(`/plans/${planId}/bids`))?.status()).toBe(404);
 	expect((await page.goto(threadPath))?.status()).toBe(404);
 	expect((await page.goto(leadPath))?.status()).toBe(403);
+	expect((await page.request.get(photoPath)).status()).toBe(403);
 	const origin = new URL(page.url()).origin;
 	const forged = await page.request.post(`/plans/${planId}/bids?/accept`, {
 		form: { bid: '00000000-0000-4000-8000-000000000000' },
@@ -181,4 +189,49 @@ test('a contractor who has the plan learns of a newer revision and keeps seeing 
 	await page.goto(await mailLink(page, 'dell@ridgebackflatwork.example', /newer plan revision/));
 	await expect(page.getByRole('heading', { name: 'Shed pad', exact: true })).toBeVisible();
 	await expect(page.getByText('re-sent this plan as revision 2. This page shows revision 1')).toBeVisible();
+});
+
+test.describe('without JavaScript', () => {
+	test.use({ javaScriptEnabled: false });
+
+	test('sending, bidding, accepting and writing all work as plain forms', async ({ page }) => {
+		const homeEmail = uniqueEmail('plain');
+		await signUp(page, { name: 'Pia Stone', email: homeEmail, password: 'garden-walk-7', role: 'homeowner' });
+		await expect(page).toHaveURL(/\/plans$/);
+		const planId = await insertPlan(homeEmail, { name: 'Garden walk', postcode: '97370' });
+		await page.goto(`/plans/${planId}/bids`);
+		await page.getByLabel('What you want done').selectOption('pour_finish');
+		await page.getByRole('button', { name: 'Find contractors' }).click();
+		await expect(page).toHaveURL(/scope=pour_finish/);
+		await expect(page.getByRole('checkbox', { name: /Quarry Lane Slabs/ })).toBeChecked(); // nearest, ticked by default
+		await page.getByRole('button', { name: 'Send the plan' }).click();
+		await expect(page.getByText(/^Sent to \d+ contractors?\./)).toBeVisible();
+		await signOut(page);
+
+		await signIn(page, 'june@quarrylaneslabs.example', demoPassword);
+		await expect(page).toHaveURL(/\/pro$/);
+		await page.goto('/pro/leads?status=new');
+		await page.getByTestId('lead-list').getByRole('link', { name: 'Garden walk' }).first().click();
+		await page.getByLabel('Total price (USD)').fill('1,350');
+		await page.getByLabel('Earliest start').fill(inDays(3));
+		await page.getByLabel('Duration (days)').fill('1');
+		await page.getByLabel('Price valid until').fill(inDays(20));
+		await page.getByRole('button', { name: 'Send the bid' }).click();
+		await expect(page.getByText('Bid sent. The homeowner was told.')).toBeVisible();
+		await signOut(page);
+
+		await signIn(page, homeEmail, 'garden-walk-7');
+		await expect(page).toHaveURL(/\/plans$/);
+		await page.goto(`/plans/${planId}/bids`);
+		const row = page.getByTestId('bid-row').filter({ hasText: 'Quarry Lane Slabs' });
+		await row.getByRole('button', { name: 'Accept' }).click();
+		await expect(page.getByText('Bid accepted.')).toBeVisible();
+		await expect(page.getByTestId('bid-row').filter({ hasText: 'Quarry Lane Slabs' }).getByTestId('bid-status')).toHaveText('Accepted');
+		await page.getByRole('link', { name: 'Quarry Lane Slabs' }).click();
+		await page.getByRole('button', { name: 'Send the message' }).click();
+		await expect(page.locator('#field-body-error')).toHaveText('Write a message first.');
+		await page.getByLabel('Write to Quarry Lane Slabs').fill('Thank you, see you Monday.');
+		await page.getByRole('button', { name: 'Send the message' }).click();
+		await expect(page.getByTestId('messages')).toContainText('Thank you, see you Monday.');
+	});
 });

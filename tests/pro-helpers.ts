@@ -1,3 +1,5 @@
+import fs from 'node:fs/promises';
+import path from 'node:path';
 import { expect, type Page } from '@playwright/test';
 import postgres from 'postgres';
 import sharp from 'sharp';
@@ -53,7 +55,7 @@ export async function approvedNewContractor(page: Page, o: { name: string; email
  * Stores a plan for `email` straight in the database, shaped like the engine's documented result,
  * so the handoff can be tested on its own.
  */
-export async function insertPlan(email: string, o: { name: string; postcode: string }) {
+export async function insertPlan(email: string, o: { name: string; postcode: string; photo?: boolean }) {
 	if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set');
 	const sql = postgres(process.env.DATABASE_URL, { max: 1, onnotice: () => {} });
 	try {
@@ -71,10 +73,26 @@ export async function insertPlan(email: string, o: { name: string; postcode: str
 			INSERT INTO plan (owner_id, name, postcode, input, result)
 			SELECT id, ${o.name}, ${o.postcode}, ${sql.json({ units: 'imperial' })}, ${sql.json(result)} FROM "user" WHERE email = ${email}
 			RETURNING id`;
+		if (o.photo) await insertPhoto(sql, row.id);
 		return row.id as string;
 	} finally {
 		await sql.end();
 	}
+}
+
+/** A site photo and its thumbnail, written where the app's storage module reads them. */
+async function insertPhoto(sql: postgres.Sql, planId: string) {
+	const dir = process.env.UPLOAD_DIR;
+	if (!dir) throw new Error('UPLOAD_DIR is not set');
+	const image = (w: number) => sharp({ create: { width: w, height: Math.round(w * 0.75), channels: 3, background: '#8cbf9b' } }).jpeg().toBuffer();
+	const keys = { full: `plans/${planId}/yard.jpg`, thumb: `plans/${planId}/yard-thumb.jpg` };
+	for (const [key, w] of [[keys.full, 800], [keys.thumb, 160]] as const) {
+		await fs.mkdir(path.dirname(path.join(dir, key)), { recursive: true });
+		await fs.writeFile(path.join(dir, key), await image(w));
+	}
+	await sql`
+		INSERT INTO plan_photo (plan_id, storage_key, thumb_key, content_type, bytes, width, height, original_name)
+		VALUES (${planId}, ${keys.full}, ${keys.thumb}, 'image/jpeg', 1000, 800, 600, 'yard.jpg')`;
 }
 
 export async function bumpPlanRevision(planId: string) {

@@ -3,13 +3,14 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { haversineKm } from '$lib/geo';
 import { client, db } from './db';
-import { bid, contractor, lead, mailOutbox, plan } from './db/schema';
+import { bid, contractor, lead, mailOutbox, plan, planPhoto } from './db/schema';
 import {
 	acceptBid,
 	announceRevision,
 	contractorLead,
 	declineLead,
 	LeadRefused,
+	leadPhotoFor,
 	markLeadSeen,
 	postMessage,
 	saveBid,
@@ -223,5 +224,23 @@ describe('messages', () => {
 		expect(await unreadMessageCount({ id: c.id, role: 'contractor' })).toBe(0);
 		await postMessage({ ...c, role: 'contractor' }, l.id, 'Yes, Saturdays work.', origin);
 		expect(await unreadMessageCount({ id: owner.id, role: 'homeowner' })).toBe(1);
+	});
+});
+
+describe('lead photos', () => {
+	it('are the plan photos at the time of sending, for that lead’s contractor only', async () => {
+		const c = await approvedContractor('Lumen', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const other = await approvedContractor('Moth', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const { owner, plan: p } = await homeownerWithPlan();
+		const photo = { storageKey: 'k', thumbKey: 't', contentType: 'image/jpeg', bytes: 3, originalName: 'yard.jpg' };
+		const [before] = await db.insert(planPhoto).values({ planId: p.id, ...photo }).returning();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id, other.id] }, origin);
+		const [after] = await db.insert(planPhoto).values({ planId: p.id, ...photo }).returning();
+		const [l] = await db.select().from(lead).where(and(eq(lead.planId, p.id), eq(lead.contractorId, c.id)));
+
+		expect(l.snapshot.photoIds).toEqual([before.id]);
+		expect((await leadPhotoFor(c.id, l.id, before.id))?.id).toBe(before.id);
+		expect(await leadPhotoFor(c.id, l.id, after.id)).toBeNull(); // added after sending
+		expect(await leadPhotoFor(other.id, l.id, before.id)).toBeNull(); // not their lead
 	});
 });

@@ -4,7 +4,7 @@ import type { BidInput } from '$lib/schemas/leads';
 import type { ServiceKind } from '$lib/schemas/contractor';
 import type { Timeframe } from '$lib/leads';
 import { db } from '$lib/server/db';
-import { bid, contractor, lead, leadMessage, plan, user } from '$lib/server/db/schema';
+import { bid, contractor, lead, leadMessage, plan, planPhoto, user } from '$lib/server/db/schema';
 import { queueMail } from './mail';
 import { bidDecisionMail, newBidMail, newerRevisionMail, newLeadMail, newMessageMail } from './mail/pro-notices';
 import { matchContractors, placeOf } from './matching';
@@ -42,6 +42,7 @@ export async function sendLeads(
 		if (!place) throw new LeadRefused('The plan needs a US ZIP code we know before it can go to contractors.');
 		const matches = new Map((await matchContractors(place, input.scope, tx)).map((m) => [m.id, m]));
 		if (input.contractors.some((id) => !matches.has(id))) throw new LeadRefused('A contractor you chose does not serve this plan’s area for that work.');
+		const photoIds = (await tx.select({ id: planPhoto.id }).from(planPhoto).where(eq(planPhoto.planId, planId)).orderBy(asc(planPhoto.createdAt))).map((r) => r.id);
 		const rows = await tx
 			.insert(lead)
 			.values(
@@ -54,7 +55,7 @@ export async function sendLeads(
 					notes: input.notes,
 					planRevision: p.revision,
 					latestRevision: p.revision,
-					snapshot: { name: p.name, postcode: p.postcode, input: p.input, result: p.result },
+					snapshot: { name: p.name, postcode: p.postcode, input: p.input, result: p.result, photoIds },
 					town: place.town,
 					distanceKm: matches.get(contractorId)!.distanceKm
 				}))
@@ -358,4 +359,12 @@ export async function threadsOf(u: { id: string; role: string }) {
 		.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
 		.where(and(side === 'homeowner' ? eq(lead.homeownerId, u.id) : eq(lead.contractorId, u.id), sql`${last} is not null`))
 		.orderBy(desc(last));
+}
+
+/** A site photo of the plan as it was sent to `contractorId`'s lead; null when not theirs to see. */
+export async function leadPhotoFor(contractorId: string, leadId: string, photoId: string) {
+	const [l] = await db.select({ planId: lead.planId, snapshot: lead.snapshot }).from(lead).where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
+	if (!l?.snapshot.photoIds?.includes(photoId)) return null;
+	const [photo] = await db.select().from(planPhoto).where(and(eq(planPhoto.id, photoId), eq(planPhoto.planId, l.planId)));
+	return photo ?? null;
 }

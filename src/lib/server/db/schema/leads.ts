@@ -9,8 +9,11 @@ export const bidStatusEnum = pgEnum('bid_status', bidStatuses);
 export const timeframeEnum = pgEnum('timeframe', timeframes);
 export { lineItemKinds };
 
-/** What a contractor sees of a plan: a copy taken when it was sent, never the live row. */
-export type PlanSnapshot = { name: string; postcode: string | null; input: unknown; result: unknown };
+/**
+ * What a contractor sees of a plan: a copy taken when it was sent, never the live row. Photos are
+ * listed by id; their bytes stay in storage, and one the homeowner deletes later is simply gone.
+ */
+export type PlanSnapshot = { name: string; postcode: string | null; input: unknown; result: unknown; photoIds?: string[] };
 
 /**
  * A plan sent to one contractor. The plan's revision and a snapshot of its input and result are

@@ -16,7 +16,7 @@ export const load = (async (event) => {
 	const { snapshot, ...lead } = found.lead;
 	return {
 		lead: { ...lead, status: lead.status === 'new' ? ('viewed' as const) : lead.status },
-		plan: { name: snapshot.name, figures: planFigures(snapshot.input, snapshot.result) },
+		plan: { name: snapshot.name, figures: planFigures(snapshot.input, snapshot.result), photoIds: snapshot.photoIds ?? [] },
 		bid: found.bid,
 		homeowner: found.homeowner,
 		unit: found.unitPref,
