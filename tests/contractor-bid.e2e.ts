@@ -57,6 +57,11 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	expect((await page.request.get(photoPath)).headers()['content-type']).toBe('image/jpeg');
 	await expect(page.locator('main')).not.toContainText('Nell Quarry');
 	await expect(page.locator('main')).not.toContainText(homeEmail);
+	// Not in the page's data either, only hidden from view.
+	const pageData = await (await page.request.get(`${new URL(page.url()).pathname}/__data.json`)).text();
+	expect(pageData).toContain('Back patio');
+	expect(pageData).not.toContain(homeEmail);
+	expect(pageData).not.toContain('Nell Quarry');
 	await page.getByRole('button', { name: 'Send the bid' }).click();
 	await expect(page.locator('#field-total-error')).toHaveText(/Enter an amount in dollars/);
 	await sendBid(page, { total: '2,400', labour: '1,500', days: '1' });

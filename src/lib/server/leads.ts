@@ -118,7 +118,7 @@ export async function leadsForPlan(planId: string) {
 	return db
 		.select({
 			lead: { id: lead.id, contractorId: lead.contractorId, status: lead.status, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
-			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade, phone: contractor.phone, contactName: contractor.contactName, licenceNumber: contractor.licenceNumber },
+			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade },
 			bid,
 			unread: unreadFor('homeowner')
 		})

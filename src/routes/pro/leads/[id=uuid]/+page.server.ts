@@ -13,7 +13,8 @@ export const load = (async (event) => {
 	const found = await contractorLead(user.id, event.params.id);
 	if (!found) error(404, 'No such lead');
 	await markLeadSeen(user.id, event.params.id);
-	const { snapshot, ...lead } = found.lead;
+	// Ids of the homeowner stay on the server, like their name.
+	const { snapshot, homeownerId: _h, contractorId: _c, ...lead } = found.lead;
 	return {
 		lead: { ...lead, status: lead.status === 'new' ? ('viewed' as const) : lead.status },
 		plan: { name: snapshot.name, figures: planFigures(snapshot.input, snapshot.result), photoIds: snapshot.photoIds ?? [] },
