@@ -38,6 +38,8 @@ export function settings(profile) {
 			MAIL_FROM: e.MAIL_FROM ?? 'Stakeline <hello@stakeline.test>',
 			MAIL_FAKE: useFakeMail ? '1' : (e.MAIL_FAKE ?? '0'),
 			MAIL_FAKE_PORT: String(mailPort),
+			// adapter-node refuses bodies over 512 kB by default; site photos are larger.
+			BODY_SIZE_LIMIT: e.BODY_SIZE_LIMIT ?? '13M',
 			UPLOAD_DIR: e.UPLOAD_DIR ?? path.join(root, '.data', test ? 'uploads-test' : 'uploads')
 		}
 	};
