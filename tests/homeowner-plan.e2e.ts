@@ -122,7 +122,9 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 });
 
 test('a signed-out visitor’s draft is kept through sign-up and lands in the new account', async ({ page }) => {
-	await page.goto('/plans/new');
+	await page.goto('/');
+	expect(await seriousViolations(page)).toEqual([]);
+	await page.getByRole('link', { name: 'Start a plan' }).click();
 	await expect(page.getByTestId('local-banner')).toBeVisible();
 	await page.getByLabel('Plan name').fill('Shed pad draft');
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');

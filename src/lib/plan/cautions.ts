@@ -7,9 +7,12 @@ import type { JointsResult } from './joints';
 import type { MixingResult } from './mixing';
 import { NIOSH_LOAD_CONSTANT_KG } from './mixing';
 import type { Model } from './model';
-import { M_PER_IN } from './units';
+import * as unitsLib from './units';
 import type { VolumeResult } from './volume';
 import { toLbPerFt2h, type WeatherResult } from './weather';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { M_PER_IN } = unitsLib;
 
 export type Severity = 'info' | 'warning' | 'danger';
 
@@ -139,13 +142,13 @@ const oilRelease: Rule = ({ m }) =>
 			};
 
 const drainage: Rule[] = [
-	({ elevations: e }) => {
+	({ m, elevations: e }) => {
 		const bad = e.houseEdges.filter((h) => h.fallAway.percent <= 0);
 		if (!bad.length) return null;
 		return {
 			id: 'water-toward-foundation',
 			title: 'Water would run toward the foundation',
-			reason: `Along ${bad.map((h) => `section ${h.section} edge ${h.edge}`).join(', ')} the surface falls ${one(-Math.min(...bad.map((h) => h.fallAway.percent)), 2)} % toward the house or not at all.`,
+			reason: `Along ${bad.map((h) => `${m.sections[h.section].name}, edge ${h.edge + 1},`).join(', ')} the surface falls ${one(-Math.min(...bad.map((h) => h.fallAway.percent)), 2)} % toward the house or not at all.`,
 			action: 'Make the house side the high side (set slope.highEdge to the house edge) or add a cross fall so every edge along the house falls away.',
 			source: 'IRC R401.3',
 			severity: 'danger'
@@ -236,13 +239,13 @@ const crew: Rule[] = [
 					source: 'common practice, no published source',
 					severity: 'warning'
 				},
-	({ mixing }) => {
+	({ m, mixing }) => {
 		const late = mixing.sections.filter((s) => !s.fits);
 		if (!late.length) return null;
 		return {
 			id: 'mixing-time',
 			title: 'The crew cannot place a section before it stiffens',
-			reason: `Section ${late.map((s) => s.index).join(', ')} needs ${Math.round(Math.max(...late.map((s) => s.totalMinutes)))} min of mixing and placing against ${Math.round(Math.min(...late.map((s) => s.workingMinutes)))} min of working time, with ${late[0].finishMinutes} min kept for finishing.`,
+			reason: `${late.map((s) => m.sections[s.index].name).join(', ')} needs ${Math.round(Math.max(...late.map((s) => s.totalMinutes)))} min of mixing and placing against ${Math.round(Math.min(...late.map((s) => s.workingMinutes)))} min of working time, with ${late[0].finishMinutes} min kept for finishing.`,
 			action: 'Split the section as suggested in the mixing plan, add people or a drum mixer, or order ready-mix.',
 			source: 'common practice (1½–2 h working time at 70 °F), no published source',
 			severity: 'warning'

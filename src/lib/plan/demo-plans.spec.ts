@@ -57,7 +57,7 @@ describe.each(plans)('$id', ({ input, result: r }) => {
 
 describe('what each demo shows', () => {
 	it('the back patio is cheaper as a short load of ready-mix than as bags', () => {
-		const r = byId('hallorann-back-patio');
+		const r = byId('lind-back-patio');
 		expect(r.readyMix.shortLoad).toBe(true);
 		expect(r.cost.cheaper).toBe('readyMix');
 		expect(r.mixing.readyMixSuggested).toBe(true);
@@ -65,7 +65,7 @@ describe('what each demo shows', () => {
 	});
 
 	it('the corner patio drains both walls and warns about oil and point loads', () => {
-		const r = byId('marchetti-corner-patio');
+		const r = byId('wren-corner-patio');
 		expect(r.elevations.houseEdges.every((h) => h.meetsIrc)).toBe(true); // IRC R401.3
 		expect(ids(r)).toEqual(expect.arrayContaining(['form-release-oil', 'unreinforced-loads']));
 		expect(r.cautions.find((c) => c.id === 'unreinforced-loads')!.severity).toBe('danger');
@@ -73,7 +73,7 @@ describe('what each demo shows', () => {
 	});
 
 	it('the shed pad pours in two halves a few cold days apart', () => {
-		const r = byId('okafor-shed-pad');
+		const r = byId('castell-shed-pad');
 		expect(r.geometry.coldJoints).toHaveLength(1);
 		expect(r.schedule.pourDays[1].day - r.schedule.pourDays[0].day).toBeGreaterThan(1); // cold: the bulkhead waits
 		expect(ids(r)).toEqual(expect.arrayContaining(['cold-weather', 'fill-near-surface']));

@@ -4,8 +4,14 @@
 import type { Layout } from './geometry';
 import type { StakePoint } from './lumber';
 import type { Model } from './model';
-import { dist, sub, toFrame, type Frame, type Pt } from './polygon';
-import { M_PER_FT, mToPlan, small, type Small } from './units';
+import * as polygonLib from './polygon';
+import type { Frame, Pt } from './polygon';
+import * as unitsLib from './units';
+import type { Small } from './units';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { dist, sub, toFrame } = polygonLib;
+const { M_PER_FT, small } = unitsLib;
 
 /** IRC R401.3: impervious surfaces within 10 ft of the foundation fall ≥ 2 % away from it. */
 export const IRC_R401_3 = { minFall: 0.02, within: 10 * M_PER_FT } as const;
@@ -50,18 +56,27 @@ export function edgeFrame(layout: Layout, section: number, edge: number): Frame 
 export function slopePlane(m: Model, layout: Layout): Plane {
 	const frame = edgeFrame(layout, m.highEdge.section, m.highEdge.edge);
 	const pts = layout.sections.flatMap((s) => s.outline.map((p) => toFrame(frame, p)));
-	const us = pts.map((p) => p[0]);
-	const ws = pts.map((p) => p[1]);
-	const spread = (v: number[]) => Math.max(...v) - Math.min(...v);
-	const fall = 'ratio' in m.fall ? m.fall.ratio : m.fall.drop / spread(ws);
-	const cross = 'ratio' in m.crossFall ? m.crossFall.ratio : m.crossFall.drop / spread(us);
-	const minDrop = Math.min(...pts.map(([u, w]) => fall * w + cross * u));
+	let [uMin, uMax, wMin, wMax] = [Infinity, -Infinity, Infinity, -Infinity];
+	for (const p of pts) {
+		uMin = Math.min(uMin, p[0]);
+		uMax = Math.max(uMax, p[0]);
+		wMin = Math.min(wMin, p[1]);
+		wMax = Math.max(wMax, p[1]);
+	}
+	const fall = 'ratio' in m.fall ? m.fall.ratio : m.fall.drop / (wMax - wMin);
+	const cross = 'ratio' in m.crossFall ? m.crossFall.ratio : m.crossFall.drop / (uMax - uMin);
+	let minDrop = Infinity;
+	for (const p of pts) minDrop = Math.min(minDrop, fall * p[1] + cross * p[0]);
 	return { frame, fall, cross, minDrop, high: -m.reference.below };
 }
 
 /** Finished-surface height at a point relative to the reference. */
 export function elevationAt(plane: Plane, p: Pt): number {
-	const [u, w] = toFrame(plane.frame, p);
+	const { origin, t, n } = plane.frame;
+	const dx = p[0] - origin[0];
+	const dy = p[1] - origin[1];
+	const u = dx * t[0] + dy * t[1];
+	const w = dx * n[0] + dy * n[1];
 	return plane.high - (plane.fall * w + plane.cross * u - plane.minDrop);
 }
 
@@ -86,14 +101,17 @@ export interface ElevationResult {
 }
 
 export function computeElevations(m: Model, layout: Layout, plane: Plane, stakes: StakePoint[]): ElevationResult {
-	const u = m.units;
-	const xy = (p: Pt) => ({ x: mToPlan(p[0], u), y: mToPlan(p[1], u) });
-	const vertices = layout.sections.flatMap((s) =>
-		s.outline.map((p, i) => ({ section: s.index, vertex: i, ...xy(p), elevation: small(elevationAt(plane, p)) }))
-	);
+	const k = m.units === 'imperial' ? 1 / M_PER_FT : 1;
+	let low = Infinity;
+	const vertices: ElevationResult['vertices'] = [];
+	for (const s of layout.sections)
+		s.outline.forEach((p, i) => {
+			const z = elevationAt(plane, p);
+			low = Math.min(low, z);
+			vertices.push({ section: s.index, vertex: i, x: p[0] * k, y: p[1] * k, elevation: small(z) });
+		});
 	const zs = stakes.map((s) => elevationAt(plane, s.at));
 	const hi = zs.reduce((best, z, i) => (z > zs[best] + 1e-9 ? i : best), 0);
-	const low = Math.min(...layout.sections.flatMap((s) => s.outline.map((p) => elevationAt(plane, p))));
 	const withinTenFeet = m.gapToHouse < IRC_R401_3.within;
 	return {
 		reference: { label: m.reference.label, below: small(m.reference.below) },
@@ -105,7 +123,8 @@ export function computeElevations(m: Model, layout: Layout, plane: Plane, stakes
 		stakes: stakes.map((s, i) => ({
 			id: s.id,
 			run: s.run,
-			...xy(s.at),
+			x: s.at[0] * k,
+			y: s.at[1] * k,
 			elevation: small(zs[i]),
 			belowLevelLine: small(zs[hi] - zs[i])
 		})),
@@ -113,7 +132,8 @@ export function computeElevations(m: Model, layout: Layout, plane: Plane, stakes
 		houseEdges: m.houseEdges.map((h) => {
 			const away = fallAwayFrom(plane, layout, h.section, h.edge);
 			return {
-				...h,
+				section: h.section,
+				edge: h.edge,
 				fallAway: slopeRate(away),
 				withinTenFeet,
 				meetsIrc: !withinTenFeet || away >= IRC_R401_3.minFall - 1e-12

@@ -1,7 +1,10 @@
 // Section outlines: validity, areas, shared edges (cold joints) and the free edges that get forms.
 
-import {
-	type Box,
+import * as polygonLib from './polygon';
+import type { Box, Pt } from './polygon';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const {
 	bbox,
 	boxesMeet,
 	cross,
@@ -17,9 +20,8 @@ import {
 	pointInPolygon,
 	project,
 	segmentRelation,
-	signedArea,
-	type Pt
-} from './polygon';
+	signedArea
+} = polygonLib;
 
 /** A problem with the input, addressed by its path in the request (e.g. "sections.0.outline"). */
 export interface PlanIssue {
@@ -112,16 +114,17 @@ export function geometryIssues(outlines: readonly (readonly Pt[])[]): PlanIssue[
 	const issues: PlanIssue[] = [];
 	const probes = outlines.map((o, i) => {
 		const problem = outlineProblem(o, eps);
-		if (problem) issues.push({ path: `sections.${i}.outline`, message: `Section ${i}: ${problem}.` });
+		if (problem) issues.push({ path: `sections.${i}.outline`, message: `Section ${i + 1}: ${problem}.` });
 		return problem ? null : probe(o, eps);
 	});
 	for (let i = 0; i < outlines.length; i++)
 		for (let j = i + 1; j < outlines.length; j++) {
-			const [a, b] = [probes[i], probes[j]];
+			const a = probes[i];
+			const b = probes[j];
 			if (a && b && probesOverlap(a, b, eps))
 				issues.push({
 					path: `sections.${j}.outline`,
-					message: `Section ${j} overlaps section ${i}; sections may only share edges.`
+					message: `Section ${j + 1} overlaps section ${i + 1}; sections may only share edges.`
 				});
 		}
 	return issues;

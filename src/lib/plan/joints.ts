@@ -3,17 +3,14 @@
 
 import type { Layout } from './geometry';
 import type { Model } from './model';
-import {
-	clipVertical,
-	fromFrame,
-	isReflex,
-	pointInPolygon,
-	signedArea,
-	toFrame,
-	type Frame,
-	type Pt
-} from './polygon';
-import { M_PER_FT, M_PER_IN, countUp, length, mToPlan, small, type Length, type Small } from './units';
+import * as polygonLib from './polygon';
+import type { Frame, Pt } from './polygon';
+import * as unitsLib from './units';
+import type { Length, Small } from './units';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { clipVertical, fromFrame, isReflex, pointInPolygon, signedArea, toFrame } = polygonLib;
+const { M_PER_FT, M_PER_IN, countUp, length, mToPlan, small } = unitsLib;
 
 /** ACI 302.1R, unreinforced slabs on ground. */
 export const ACI_302 = {
@@ -72,8 +69,10 @@ const parentOf = (bps: number[], mid: number) => {
  */
 function isReentrant(poly: readonly Pt[], i: number, orient: number): boolean {
 	const n = poly.length;
-	const [a, b, c] = [poly[(i + n - 1) % n], poly[i], poly[(i + 1) % n]];
 	if (!isReflex(poly, i, orient)) return false;
+	const a = poly[(i + n - 1) % n];
+	const b = poly[i];
+	const c = poly[(i + 1) % n];
 	const ux = b[0] - a[0], uy = b[1] - a[1], vx = c[0] - b[0], vy = c[1] - b[1];
 	const cos = (ux * vx + uy * vy) / Math.sqrt((ux * ux + uy * uy) * (vx * vx + vy * vy));
 	return cos < Math.cos(Math.PI / 6);

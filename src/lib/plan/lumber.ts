@@ -2,9 +2,16 @@
 
 import type { Layout } from './geometry';
 import type { Model } from './model';
-import { dist, lerp, type Pt } from './polygon';
-import { countUp, length, mToPlan, small, type Length, type Small } from './units';
-import { times } from './util';
+import * as polygonLib from './polygon';
+import type { Pt } from './polygon';
+import * as unitsLib from './units';
+import type { Length, Small } from './units';
+import * as utilLib from './util';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { dist, lerp } = polygonLib;
+const { countUp, length, mToPlan, small } = unitsLib;
+const { times } = utilLib;
 
 /** Saw kerf lost per cut, 3 mm (⅛ in); from memory. */
 export const KERF_M = 0.003;
@@ -38,18 +45,16 @@ export interface StakePoint {
 export function formRuns(m: Model, layout: Layout): Run[] {
 	const runs: Run[] = [];
 	const isHouse = (s: number, e: number) => m.houseEdges.some((h) => h.section === s && h.edge === e);
-	const add = (r: Omit<Run, 'id'>) => runs.push({ id: `R${runs.length + 1}`, ...r });
+	const add = (kind: RunKind, section: number, edge: number, from: Pt, to: Pt, formed: boolean) =>
+		runs.push({ id: `R${runs.length + 1}`, kind, section, edge, from, to, length: dist(from, to), formed });
 	for (const sec of layout.sections)
-		for (const e of sec.edges)
-			for (const [t0, t1] of e.free) {
-				const kind: RunKind = isHouse(sec.index, e.index) ? 'house' : 'outer';
-				const from = lerp(e.from, e.to, t0);
-				const to = lerp(e.from, e.to, t1);
-				const formed = kind === 'outer' || m.houseEdgeFormed;
-				add({ kind, section: sec.index, edge: e.index, from, to, length: dist(from, to), formed });
-			}
-	for (const j of layout.coldJoints)
-		add({ kind: 'bulkhead', section: j.sections[0], edge: j.edges[0], from: j.from, to: j.to, length: j.length, formed: true });
+		for (const e of sec.edges) {
+			const kind: RunKind = isHouse(sec.index, e.index) ? 'house' : 'outer';
+			const formed = kind === 'outer' || m.houseEdgeFormed;
+			for (const [t0, t1] of e.free)
+				add(kind, sec.index, e.index, lerp(e.from, e.to, t0), lerp(e.from, e.to, t1), formed);
+		}
+	for (const j of layout.coldJoints) add('bulkhead', j.sections[0], j.edges[0], j.from, j.to, true);
 	return runs;
 }
 
@@ -141,10 +146,16 @@ export function computeForms(m: Model, layout: Layout): { forms: FormsResult; st
 	let fixings = 0;
 	const seen = new Set<number>(); // a corner shared by two runs gets one stake
 	const key = (p: Pt) => Math.round(p[0] * 1e4) * 1e8 + Math.round(p[1] * 1e4); // 0.1 mm grid
-	for (const r of runs.filter((x) => x.formed)) {
+	let formLength = 0;
+	for (const r of runs) {
+		if (!r.formed) continue;
+		formLength += r.length;
 		const parts = splitRun(boardRunLength(r, m), maxStock);
-		parts.forEach((len) => pieces.push({ run: r.id, length: len }));
-		const splices = parts.slice(1).map((_, i) => parts[0] * (i + 1));
+		const splices: number[] = [];
+		for (let i = 0; i < parts.length; i++) {
+			pieces.push({ run: r.id, length: parts[i] });
+			if (i) splices.push(parts[0] * i);
+		}
 		for (const s of runStakes(r, splices, m.forms.stakeSpacing)) {
 			fixings += s.kind === 'splice' ? 2 : 1;
 			const k = key(s.at);
@@ -173,7 +184,7 @@ export function computeForms(m: Model, layout: Layout): { forms: FormsResult; st
 				from: P(r.from),
 				to: P(r.to)
 			})),
-			formLength: length(runs.filter((r) => r.formed).reduce((a, r) => a + r.length, 0)),
+			formLength: length(formLength),
 			buy: m.forms.stockLengths
 				.map((s) => ({ stock: length(s), count: boards.filter((b) => b.stock === s).length }))
 				.filter((b) => b.count > 0),

@@ -70,6 +70,15 @@ describe('splitting a section', () => {
 		expect(s.bagsPerPart).toEqual([10, 10, 10]);
 	});
 
+	it('draws no cold joints for a split nobody should attempt', () => {
+		const grid: SectionGrid = { poly, us: [0, 12, 24], ws: [0, 12] };
+		const s = splitSection(grid, 80, 10, identity, 'metric', 1e-9);
+		expect(s.parts).toBe(8); // 80 bags at 10 a pour
+		expect(s.coldJoints).toEqual([]);
+		expect(s.bagsPerPart).toEqual([10, 10, 10, 10, 10, 10, 10, 10]);
+		expect(s.note).toMatch(/ready-mix/);
+	});
+
 	it('keeps the exact cut when a joint line would overfill a part', () => {
 		const grid: SectionGrid = { poly, us: [0, 12, 24], ws: [0, 12] };
 		const s = splitSection(grid, 30, 10, identity, 'metric', 1e-9);

@@ -3,9 +3,19 @@
 
 import type { SectionGrid } from './joints';
 import type { BagOffer, Model } from './model';
-import { areaLeftOf, clipVertical, fromFrame, signedArea, type Frame, type Pt } from './polygon';
-import { times } from './util';
-import { countUp, mass, mToPlan, temperature, type Mass, type Temperature } from './units';
+import * as polygonLib from './polygon';
+import type { Frame, Pt } from './polygon';
+import * as utilLib from './util';
+import * as unitsLib from './units';
+import type { Mass, Temperature } from './units';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { areaLeftOf, clipVertical, fromFrame, signedArea } = polygonLib;
+const { times } = utilLib;
+const { countUp, mass, mToPlan, temperature } = unitsLib;
+
+/** Beyond this many pours a section belongs to ready-mix; no cold-joint lines are drawn (engine choice). */
+export const MAX_PRACTICAL_PARTS = 3;
 
 /** NIOSH Revised Lifting Equation load constant, 23 kg (51 lb) (NIOSH Pub. 94-110). */
 export const NIOSH_LOAD_CONSTANT_KG = 23;
@@ -46,7 +56,7 @@ export function crewTime(bags: number, bag: BagOffer, crew: Model['crew']): Crew
 export interface Split {
 	parts: number;
 	bagsPerPart: number[];
-	/** Where the new cold joints go, in plan coordinates. */
+	/** Where the new cold joints go, in plan coordinates; empty when impractical. */
 	coldJoints: { from: Pt; to: Pt }[];
 	note: string;
 }
@@ -108,6 +118,13 @@ export function splitSection(
 	eps: number
 ): Split {
 	const parts = countUp(bags / maxBags);
+	if (parts > MAX_PRACTICAL_PARTS)
+		return {
+			parts,
+			bagsPerPart: times(parts, (k) => Math.floor(bags / parts) + (k < bags % parts ? 1 : 0)),
+			coldJoints: [],
+			note: `The crew would need ${parts} separate pours for this section; ready-mix or more hands is the practical answer.`
+		};
 	const uSpan = grid.us[grid.us.length - 1] - grid.us[0];
 	const wSpan = grid.ws[grid.ws.length - 1] - grid.ws[0];
 	// Cut across the longer direction; work with x as that direction.
@@ -119,10 +136,11 @@ export function splitSection(
 	const exacts = cutsAt(poly, times(parts - 1, (k) => (k + 1) / parts));
 	const cuts: number[] = [];
 	let before = 0;
+	const inner = lines.slice(1, -1);
 	exacts.forEach((exact, k) => {
 		// Move the cut onto the nearest control-joint line if both parts beside it still fit.
 		let snap = exact;
-		for (const l of lines.slice(1, -1)) if (Math.abs(l - exact) < Math.abs(snap - exact)) snap = l;
+		for (const l of inner) if (Math.abs(l - exact) < Math.abs(snap - exact)) snap = l;
 		const a = areaLeftOf(poly, snap);
 		const after = k + 1 < exacts.length ? areaLeftOf(poly, exacts[k + 1]) : total;
 		const fits = a > before && after > a && bagsIn(a - before) <= maxBags && bagsIn(after - a) <= maxBags;
@@ -142,10 +160,7 @@ export function splitSection(
 		parts,
 		bagsPerPart,
 		coldJoints,
-		note:
-			parts > 3
-				? `The crew would need ${parts} separate pours for this section; ready-mix, a drum mixer or more people is the practical answer.`
-				: `Pour this section as ${parts} parts with a bulkhead at each new cold joint (on a control-joint line where one is near), or order ready-mix.`
+		note: `Pour this section as ${parts} parts with a bulkhead at each new cold joint (on a control-joint line where one is near), or order ready-mix.`
 	};
 }
 

@@ -3,7 +3,11 @@
 import { COMMON } from './defaults';
 import type { Pt } from './polygon';
 import type { EdgeRef, ParsedPlan } from './schema';
-import {
+import * as unitsLib from './units';
+import type { Units } from './units';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const {
 	KG_PER_LB,
 	M3_PER_FT3,
 	M_PER_IN,
@@ -13,9 +17,8 @@ import {
 	planVolumeToM3,
 	smallToM,
 	tempToC,
-	windToKmh,
-	type Units
-} from './units';
+	windToKmh
+} = unitsLib;
 
 /** PS 20 dressed (dry) depth of each nominal board, inches (DOC PS 20). */
 export const DRESSED_DEPTH_IN = { '2x4': 3.5, '2x6': 5.5, '2x8': 7.25, '2x10': 9.25, '2x12': 11.25 } as const;

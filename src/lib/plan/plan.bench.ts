@@ -38,6 +38,7 @@ describe('computePlan', () => {
 			computePlan(input);
 			samples.push(performance.now() - t);
 		},
+		// Keep only the timed phase's samples (setup runs before warm-up and again before the run).
 		{ time: 2000, setup: () => void (samples = []) }
 	);
 });

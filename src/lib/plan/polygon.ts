@@ -151,19 +151,6 @@ export function clipVertical(poly: readonly Pt[], c: number, eps: number): [numb
 	return out;
 }
 
-/** The part of the polygon with x ≤ c (Sutherland–Hodgman; area stays right for any simple polygon). */
-export function clipLeft(poly: readonly Pt[], c: number): Pt[] {
-	const out: Pt[] = [];
-	for (let i = 0; i < poly.length; i++) {
-		const a = poly[i];
-		const b = next(poly, i);
-		const aIn = a[0] <= c;
-		if (aIn) out.push(a);
-		if (aIn !== b[0] <= c) out.push(lerp(a, b, (c - a[0]) / (b[0] - a[0])));
-	}
-	return out;
-}
-
 /**
  * Area of the part of the polygon with x ≤ c, without building the clipped polygon: the boundary
  * integral of y dx over each edge's piece left of the line (the closing vertical adds nothing).

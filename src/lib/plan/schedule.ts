@@ -3,8 +3,13 @@
 
 import type { ColdJointSeg } from './geometry';
 import type { Model } from './model';
-import { times } from './util';
-import { ageFactor, equivalentAges, strengthRatio, strengthTimeline, type StrengthDay } from './strength';
+import * as utilLib from './util';
+import * as strengthLib from './strength';
+import type { StrengthDay } from './strength';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { times } = utilLib;
+const { ageFactor, equivalentAges, strengthRatio, strengthTimeline } = strengthLib;
 
 /** Plan day of the first pour: day 1 layout and digging, day 2 forms and base. */
 export const FIRST_POUR_DAY = 3;
@@ -54,8 +59,13 @@ export function isoDate(z: number): string {
 }
 
 /** An ISO date n days later. The schedule builds dozens of these, so no Date parsing. */
-export const addDays = (iso: string, n: number) =>
-	isoDate(dayNumber(+iso.slice(0, 4), +iso.slice(5, 7), +iso.slice(8, 10)) + n);
+export const addDays = (iso: string, n: number) => datesFrom(iso)(n);
+
+/** Dates counted from one ISO date, with the parse done once. */
+export function datesFrom(iso: string): (n: number) => string {
+	const base = dayNumber(+iso.slice(0, 4), +iso.slice(5, 7), +iso.slice(8, 10));
+	return (n) => isoDate(base + n);
+}
 
 export interface Milestone {
 	id: 'forms-off' | 'walk' | 'furniture' | 'vehicles' | 'curing-done';
@@ -89,7 +99,10 @@ export function ageSeries(lastPour: number, tempOn: (d: number) => number): numb
 export function strengthSeries(m: Model, lastPour: number, tempOn: (d: number) => number, days: number): StrengthDay[] {
 	const temps = times(days, (i) => tempOn(lastPour + i));
 	const out = strengthTimeline(temps, m.cement, m.designStrengthMpa);
-	if (m.pourDate) for (const d of out) d.date = addDays(m.pourDate, lastPour + d.day);
+	if (m.pourDate) {
+		const date = datesFrom(m.pourDate);
+		for (const d of out) d.date = date(lastPour + d.day);
+	}
 	return out;
 }
 
@@ -110,9 +123,10 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 		{ id: 'vehicles', title: 'Drive on it', day: byPercent(ms.vehiclePercent), rule: `${ms.vehiclePercent} % of design strength`, source: 'common practice (about 70 % of design strength)' },
 		{ id: 'curing-done', title: 'Stop moist curing', day: to70 === null ? null : Math.max(curingMin, to70), rule: `at least ${curingMin} days and until ${CURING.percent} % of design strength`, source: 'ACI 308R; ACI 318 §26.5.3' }
 	];
+	const date = m.pourDate ? datesFrom(m.pourDate) : null;
 	return list.map((x) => {
 		const planDay = x.day === null ? null : FIRST_POUR_DAY + lastPour + x.day;
-		return { ...x, planDay, date: m.pourDate && planDay !== null ? addDays(m.pourDate, planDay - FIRST_POUR_DAY) : undefined };
+		return { ...x, planDay, date: date && planDay !== null ? date(planDay - FIRST_POUR_DAY) : undefined };
 	});
 }
 
@@ -146,11 +160,12 @@ export function buildSchedule(
 	for (const s of stones)
 		if (s.planDay !== null) add(s.planDay, s.id, `${s.title} (${s.rule}).`);
 	const curing = stones.find((s) => s.id === 'curing-done')?.day ?? CURING[m.cement];
+	const date = m.pourDate ? datesFrom(m.pourDate) : null;
 	const list = [...days.entries()]
 		.sort((a, b) => a[0] - b[0])
 		.map(([day, tasks]) => ({
 			day,
-			date: m.pourDate ? addDays(m.pourDate, day - FIRST_POUR_DAY) : undefined,
+			date: date ? date(day - FIRST_POUR_DAY) : undefined,
 			tasks
 		}));
 	return {
@@ -158,7 +173,7 @@ export function buildSchedule(
 		pourDays: offsets.map((o, i) => ({
 			section: i,
 			day: FIRST_POUR_DAY + o,
-			date: m.pourDate ? addDays(m.pourDate, o) : undefined
+			date: date ? date(o) : undefined
 		})),
 		curingDays: curing
 	};

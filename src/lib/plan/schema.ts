@@ -20,6 +20,22 @@ const RATE_MAX: Record<(typeof RATE_UNITS)[number], number> = {
 };
 
 const MAX_SECTIONS = 12;
+
+function deepFreeze<T>(v: T): T {
+	if (v && typeof v === 'object') {
+		for (const x of Object.values(v)) deepFreeze(x);
+		Object.freeze(v);
+	}
+	return v;
+}
+
+/**
+ * An optional object whose absence means "all its own defaults". The default is worked out once
+ * and frozen; zod hands it back without parsing, which keeps a parse cheap.
+ */
+function withDefaults<T extends z.ZodObject>(schema: T) {
+	return schema.default(deepFreeze(schema.parse({})) as z.util.NoUndefined<z.output<T>>);
+}
 const MAX_VERTICES = 200;
 
 function planSchemaFor<U extends Units>(units: U) {
@@ -93,8 +109,8 @@ function planSchemaFor<U extends Units>(units: U) {
 			.boolean()
 			.default(false)
 			.describe('true: a form board along the house; false: poured against an isolation strip.'),
-		reference: z
-			.strictObject({
+		reference: withDefaults(
+			z.strictObject({
 				label: z.string().trim().max(80).default('reference mark'),
 				below: z
 					.number()
@@ -103,9 +119,9 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default(0)
 					.describe(`How far the slab's high point sits below the reference, ${S}.`)
 			})
-			.prefault({}),
-		slope: z
-			.strictObject({
+		),
+		slope: withDefaults(
+			z.strictObject({
 				fall: rate(false)
 					.default({ value: COMMON.slopePercent, unit: 'percent' })
 					.describe('Fall away from the high edge (IRC R401.3: ≥ 2 % near the foundation).'),
@@ -116,15 +132,15 @@ function planSchemaFor<U extends Units>(units: U) {
 					.optional()
 					.describe('The edge at the high side; defaults to houseEdge, else section 0 edge 0.')
 			})
-			.prefault({}),
+		),
 		thickness: z
 			.number()
 			.min(imp ? 2 : 50)
 			.max(imp ? 12 : 300)
 			.default(d.thickness)
 			.describe(`Slab thickness, ${S} (common practice 4 in; IRC R506.1 minimum 3½ in).`),
-		forms: z
-			.strictObject({
+		forms: withDefaults(
+			z.strictObject({
 				lumber: z.enum([...LUMBER_SIZES, 'custom']).default('2x4'),
 				customDepth: smallDim.optional().describe(`Board depth, ${S}, when lumber is custom.`),
 				stakeSpacing: z
@@ -145,9 +161,9 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default([...d.stockLengths])
 					.describe(`Board lengths on sale, ${L}.`)
 			})
-			.prefault({}),
-		thickenedEdge: z
-			.strictObject({
+		),
+		thickenedEdge: withDefaults(
+			z.strictObject({
 				edges: z
 					.union([z.enum(['none', 'free']), z.array(edgeRef).max(200)])
 					.default('none')
@@ -157,9 +173,9 @@ function planSchemaFor<U extends Units>(units: U) {
 					.optional()
 					.describe(`Depth below the slab, ${S}; defaults to the thickness (common practice).`)
 			})
-			.prefault({}),
-		base: z
-			.strictObject({
+		),
+		base: withDefaults(
+			z.strictObject({
 				depth: smallDim.default(d.baseDepth).describe(`Compacted gravel, ${S} (IRC R506.2.2).`),
 				bulking: z
 					.number()
@@ -168,7 +184,7 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default(COMMON.baseBulking)
 					.describe('Loose ÷ compacted volume (common practice 1.15–1.30).')
 			})
-			.prefault({}),
+		),
 		fill: z
 			.strictObject({
 				volume: z.number().min(0).max(1e4).optional().describe(`Chunk volume, ${PV}.`),
@@ -178,14 +194,14 @@ function planSchemaFor<U extends Units>(units: U) {
 			.optional()
 			.describe('Broken concrete chunks laid in the thickened-edge trench.'),
 		reinforcement: z.enum(REINFORCEMENT).default('none'),
-		loads: z
-			.strictObject({
+		loads: withDefaults(
+			z.strictObject({
 				vehicles: z.boolean().default(false),
 				pointLoads: z.boolean().default(false).describe('Hot tub, shed posts, heavy planters.')
 			})
-			.prefault({}),
-		mix: z
-			.strictObject({
+		),
+		mix: withDefaults(
+			z.strictObject({
 				cement: z.enum(['typeI', 'typeIII']).default('typeI').describe('typeIII: high early.'),
 				designStrength: z
 					.number()
@@ -194,15 +210,15 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default(d.designStrength)
 					.describe(`28-day strength, ${imp ? 'psi' : 'MPa'}; from memory.`)
 			})
-			.prefault({}),
+		),
 		wastePercent: z
 			.number()
 			.min(0)
 			.max(50)
 			.default(COMMON.wastePercent)
 			.describe('common practice 5–10 %.'),
-		bags: z
-			.strictObject({
+		bags: withDefaults(
+			z.strictObject({
 				offered: z
 					.array(
 						z.strictObject({
@@ -227,17 +243,17 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default(COMMON.waterPerKgDryMix)
 					.describe('Water per dry mix by mass; from memory — the bag label rules.')
 			})
-			.prefault({}),
-		readyMix: z
-			.strictObject({
+		),
+		readyMix: withDefaults(
+			z.strictObject({
 				price: price.optional().describe(`Per ${V}.`),
 				increment: z.number().min(0.01).max(2).default(d.readyMixIncrement).describe(`${V}; from memory.`),
 				minimum: z.number().min(0).max(20).default(d.readyMixMinimum).describe(`${V}; from memory.`),
 				shortLoadFee: price.optional()
 			})
-			.prefault({}),
-		prices: z
-			.strictObject({
+		),
+		prices: withDefaults(
+			z.strictObject({
 				gravel: price.optional().describe(`Per ${V}.`),
 				lumber: price.optional().describe(`Per ${L} of board.`),
 				stake: price.optional(),
@@ -247,9 +263,9 @@ function planSchemaFor<U extends Units>(units: U) {
 				isolationStrip: price.optional().describe(`Per ${L}.`),
 				curingCover: price.optional().describe(`Per ${L}².`)
 			})
-			.prefault({}),
-		crew: z
-			.strictObject({
+		),
+		crew: withDefaults(
+			z.strictObject({
 				people: z.int().min(1).max(20).default(COMMON.people),
 				method: z.enum(['hand', 'drum']).default('hand').describe('hand: tub or wheelbarrow.'),
 				handMixMinutes: z
@@ -275,9 +291,9 @@ function planSchemaFor<U extends Units>(units: U) {
 				finishMinutes: z.number().min(0).max(240).default(COMMON.finishMinutes),
 				payload: z.number().min(imp ? 100 : 45).max(imp ? 20000 : 9000).default(d.payload)
 			})
-			.prefault({}),
-		conditions: z
-			.strictObject({
+		),
+		conditions: withDefaults(
+			z.strictObject({
 				airTemp: z
 					.union([temp, z.array(temp).min(1).max(60)])
 					.default(d.airTemp)
@@ -287,19 +303,17 @@ function planSchemaFor<U extends Units>(units: U) {
 				concreteTemp: temp.optional().describe(`As placed, ${T}; defaults to the air temperature.`),
 				pourDate: z.iso.date().optional().describe('First pour day, YYYY-MM-DD.')
 			})
-			.prefault({}),
-		milestones: z
-			.strictObject({
+		),
+		milestones: withDefaults(
+			z.strictObject({
 				formsOffDays: z.number().min(0.5).max(14).default(COMMON.formsOffDays),
 				walkDays: z.number().min(0.5).max(28).default(COMMON.walkDays),
 				furnitureDays: z.number().min(0.5).max(28).default(COMMON.furnitureDays),
 				vehiclePercent: z.number().min(10).max(100).default(COMMON.vehiclePercent)
 			})
-			.prefault({})
+		)
 			.describe('Days are equivalent age at 20 °C (ASTM C1074), so cold weather pushes them out.'),
-		joints: z
-			.strictObject({ method: z.enum(['tool', 'saw']).default('tool') })
-			.prefault({})
+		joints: withDefaults(z.strictObject({ method: z.enum(['tool', 'saw']).default('tool') }))
 	});
 }
 
@@ -330,12 +344,11 @@ function crossChecks(plan: z.output<ReturnType<typeof planSchemaFor>>): PlanIssu
 	if (plan.bags.planSize !== undefined && !plan.bags.offered.some((b) => b.size === plan.bags.planSize))
 		issues.push({ path: 'bags.planSize', message: 'planSize must be one of the offered sizes.' });
 	const d = DEFAULTS[plan.units];
-	outlines.forEach((o, s) => {
+	const far = outlines.flatMap((o, s) => {
 		const j = o.findIndex((p) => Math.abs(p[0]) > d.maxCoordinate || Math.abs(p[1]) > d.maxCoordinate);
-		if (j >= 0)
-			issues.push({ path: `sections.${s}.outline.${j}`, message: `Coordinates must lie within ±${d.maxCoordinate}.` });
+		return j < 0 ? [] : [{ path: `sections.${s}.outline.${j}`, message: `Coordinates must lie within ±${d.maxCoordinate}.` }];
 	});
-	if (issues.length) return issues;
+	if (far.length) return [...issues, ...far];
 	const edgeTotal = outlines.reduce((s, o) => s + perimeter(o), 0);
 	if (edgeTotal > 10 * d.maxCoordinate)
 		issues.push({

@@ -2,8 +2,13 @@
 
 import { PlanInputError, type Layout, type SectionShape } from './geometry';
 import type { Model } from './model';
-import { cross, dot, sub } from './polygon';
-import { area, small, volume, type Area, type Small, type Volume } from './units';
+import * as polygonLib from './polygon';
+import * as unitsLib from './units';
+import type { Area, Small, Volume } from './units';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { cross, dot, sub } = polygonLib;
+const { area, small, volume } = unitsLib;
 
 /** Which edges of each section get a thickened edge. */
 export function thickenedEdges(m: Model, layout: Layout): boolean[][] {

@@ -1,7 +1,12 @@
 // Cold and hot weather per ACI 306R / 305R, and the evaporation rate of bleed water (Uno 1998).
 
-import { times } from './util';
-import { KG_PER_LB, M_PER_FT, temperature, type Temperature } from './units';
+import * as utilLib from './util';
+import * as unitsLib from './units';
+import type { Temperature } from './units';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { times } = utilLib;
+const { KG_PER_LB, M_PER_FT, temperature } = unitsLib;
 
 export const ACI_306 = {
 	/** Cold weather: air at or below 5 °C (40 °F) during the protection period. */

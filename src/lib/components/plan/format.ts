@@ -18,11 +18,16 @@ export const formatTemperature = (t: Temperature, u: Units) =>
 
 export const formatPercent = (p: number) => `${num(p, 0)} %`;
 
+/** A height without its sign, and whether it rounds to nothing in the plan's unit. */
+function magnitude(s: Small, u: Units): { text: string; zero: boolean } {
+	const text = formatSmall({ inches: Math.abs(s.inches), millimeters: Math.abs(s.millimeters) }, u);
+	return { text, zero: text.startsWith('0 ') };
+}
+
 /** Signed height: "+⅜ in", "−1½ in", "0 mm"; no sign when it rounds to nothing. */
 export function formatElevation(s: Small, u: Units): string {
-	const text = formatSmall({ inches: Math.abs(s.inches), millimeters: Math.abs(s.millimeters) }, u);
-	if (text.startsWith('0 ')) return text;
-	return `${s.millimeters < 0 ? '−' : '+'}${text}`;
+	const { text, zero } = magnitude(s, u);
+	return zero ? text : `${s.millimeters < 0 ? '−' : '+'}${text}`;
 }
 
 /** Minutes as a crew reads a clock: "45 min", "2 h", "5 h 6 min". */
@@ -141,8 +146,8 @@ export function stakeIntro(p: StakePlan): string {
 	const { highStake, stakes, reference } = p.elevations;
 	const high = stakes.find((s) => s.id === highStake);
 	if (!high) return 'This plan sets no form stakes.';
-	const mark = formatSmall({ inches: Math.abs(high.elevation.inches), millimeters: Math.abs(high.elevation.millimeters) }, p.units);
-	const side = mark.startsWith('0 ') ? 'level with' : `${mark} ${high.elevation.millimeters < 0 ? 'below' : 'above'}`;
+	const { text, zero } = magnitude(high.elevation, p.units);
+	const side = zero ? 'level with' : `${text} ${high.elevation.millimeters < 0 ? 'below' : 'above'}`;
 	return `Stake ${high.id} is the high stake: mark it ${side} the ${reference.label}. Stretch a line from that mark, level it, and on every other stake mark the distance shown below the line. The marks are the finished top of the slab.`;
 }
 

@@ -444,16 +444,18 @@ export function triangulate(poly: readonly P2[]): [number, number, number][] {
 /** Closed triangle soup of a prism (x, y, z per vertex), wound counter-clockwise seen from outside. */
 export function prismTriangles(p: Prism): number[] {
 	const out: number[] = [];
-	const v = (i: number, z: number[]) => out.push(p.footprint[i][0], p.footprint[i][1], z[i]);
-	for (const [a, b, c] of triangulate(p.footprint)) {
-		v(a, p.top), v(b, p.top), v(c, p.top);
-		v(a, p.bottom), v(c, p.bottom), v(b, p.bottom);
+	const tri = (...corners: [number, number[]][]) =>
+		corners.forEach(([i, z]) => out.push(p.footprint[i][0], p.footprint[i][1], z[i]));
+	const { top: t, bottom: b } = p;
+	for (const [i, j, k] of triangulate(p.footprint)) {
+		tri([i, t], [j, t], [k, t]);
+		tri([i, b], [k, b], [j, b]);
 	}
 	const n = p.footprint.length;
 	for (let i = 0; i < n; i++) {
 		const j = (i + 1) % n;
-		v(i, p.bottom), v(j, p.bottom), v(j, p.top);
-		v(i, p.bottom), v(j, p.top), v(i, p.top);
+		tri([i, b], [j, b], [j, t]);
+		tri([i, b], [j, t], [i, t]);
 	}
 	return out;
 }
