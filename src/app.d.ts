@@ -8,6 +8,10 @@ declare global {
 		interface Error {
 			message: string;
 		}
+		interface PageState {
+			/** The planner wizard's step, kept in history so back/forward walk the steps. */
+			step?: number;
+		}
 	}
 }
 

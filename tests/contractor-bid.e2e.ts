@@ -95,6 +95,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	const mine = rows.filter({ hasText: pro.business });
 	await expect(mine).toContainText('$2,400');
 	await expect(mine).toContainText('$20'); // per ft² on 120 ft²
+	await expect(mine.getByTestId('bid-vs-diy')).toHaveText('+$1,760'); // 2,400 against 640 of materials
 	await page.screenshot({ path: 'test-results/screens/bids-compare.png', fullPage: true });
 	await mine.getByRole('button', { name: 'Accept' }).click();
 	await expect(page.getByText('Bid accepted.')).toBeVisible();

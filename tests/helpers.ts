@@ -8,8 +8,14 @@ export function uniqueEmail(label: string) {
 	return `${label}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@e2e.stakeline.test`;
 }
 
+/**
+ * Opens a form page and waits until the network is quiet: hydration re-applies the inputs' values,
+ * so typing before it ends can be wiped (seen on the sign-in page once the app grew).
+ */
+const openForm = (page: Page, path: string) => page.goto(path, { waitUntil: 'networkidle' });
+
 export async function signUp(page: Page, o: { name: string; email: string; password: string; role?: 'homeowner' | 'contractor' }) {
-	await page.goto('/signup');
+	await openForm(page, '/signup');
 	if (o.role === 'contractor') await page.getByLabel(/Bid on local jobs/).check();
 	await page.getByLabel('Your name').fill(o.name);
 	await page.getByLabel('E-mail').fill(o.email);
@@ -18,7 +24,7 @@ export async function signUp(page: Page, o: { name: string; email: string; passw
 }
 
 export async function signIn(page: Page, email: string, password: string) {
-	await page.goto('/signin');
+	await openForm(page, '/signin');
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(password);
 	// Wait for the answer that sets the session cookie, so a page.goto right after is signed in.

@@ -66,7 +66,8 @@ export async function insertPlan(email: string, o: { name: string; postcode: str
 				order: { cubicFeet: 44, cubicYards: 1.63, cubicMeters: 1.246 }
 			},
 			bags: [{ size: 80, unit: 'lb', count: 74 }],
-			joints: { maxSpacing: 2.4 },
+			joints: { maxSpacing: { feet: 8, meters: 2.4384 } },
+			materials: { items: [], diyTotal: { amount: 640, complete: true, unpriced: [] } },
 			cautions: [{ id: 'wet-cement', title: 'Wet cement burns skin', source: 'common practice' }]
 		};
 		const [row] = await sql`
@@ -84,11 +85,15 @@ export async function insertPlan(email: string, o: { name: string; postcode: str
 async function insertPhoto(sql: postgres.Sql, planId: string) {
 	const dir = process.env.UPLOAD_DIR;
 	if (!dir) throw new Error('UPLOAD_DIR is not set');
-	const image = (w: number) => sharp({ create: { width: w, height: Math.round(w * 0.75), channels: 3, background: '#8cbf9b' } }).jpeg().toBuffer();
-	const keys = { full: `plans/${planId}/yard.jpg`, thumb: `plans/${planId}/yard-thumb.jpg` };
-	for (const [key, w] of [[keys.full, 800], [keys.thumb, 160]] as const) {
+	// The planner's formats: the photo as JPEG, its thumbnail as WebP.
+	const image = (w: number) => sharp({ create: { width: w, height: Math.round(w * 0.75), channels: 3, background: '#8cbf9b' } });
+	const keys = { full: `plans/${planId}/photos/yard.jpg`, thumb: `plans/${planId}/photos/yard-thumb.webp` };
+	for (const [key, bytes] of [
+		[keys.full, await image(800).jpeg().toBuffer()],
+		[keys.thumb, await image(160).webp().toBuffer()]
+	] as const) {
 		await fs.mkdir(path.dirname(path.join(dir, key)), { recursive: true });
-		await fs.writeFile(path.join(dir, key), await image(w));
+		await fs.writeFile(path.join(dir, key), bytes);
 	}
 	await sql`
 		INSERT INTO plan_photo (plan_id, storage_key, thumb_key, content_type, bytes, width, height, original_name)

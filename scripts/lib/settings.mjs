@@ -38,9 +38,10 @@ export function settings(profile) {
 			MAIL_FROM: e.MAIL_FROM ?? 'Stakeline <hello@stakeline.test>',
 			MAIL_FAKE: useFakeMail ? '1' : (e.MAIL_FAKE ?? '0'),
 			MAIL_FAKE_PORT: String(mailPort),
-			UPLOAD_DIR: e.UPLOAD_DIR ?? path.join(root, '.data', test ? 'uploads-test' : 'uploads'),
-			// adapter-node refuses larger bodies before an action runs; uploads check their own limits.
-			BODY_SIZE_LIMIT: e.BODY_SIZE_LIMIT ?? '16M'
+			// adapter-node refuses bodies over 512 kB by default; site photos and the two licence and
+			// insurance documents are larger. Each upload checks its own limit with a clear message.
+			BODY_SIZE_LIMIT: e.BODY_SIZE_LIMIT ?? '16M',
+			UPLOAD_DIR: e.UPLOAD_DIR ?? path.join(root, '.data', test ? 'uploads-test' : 'uploads')
 		}
 	};
 }

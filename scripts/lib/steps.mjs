@@ -25,7 +25,7 @@ export function migrate(env) {
 }
 
 export function seed(env) {
-	run(node, [path.join(root, 'scripts', 'seed.mjs')], { cwd: root, env: { ...process.env, ...env } });
+	run(node, ['--import', 'tsx', path.join(root, 'scripts', 'seed.ts')], { cwd: root, env: { ...process.env, ...env } });
 }
 
 function newestMtime(p) {

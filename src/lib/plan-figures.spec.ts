@@ -9,7 +9,8 @@ describe('planFigures', () => {
 				area: { squareFeet: 120, squareMeters: 11.148 },
 				volume: { net: { cubicFeet: 40, cubicYards: 1.48, cubicMeters: 1.13 }, order: { cubicFeet: 44, cubicYards: 1.63, cubicMeters: 1.25 } },
 				bags: [{ size: 80, unit: 'lb', count: 67 }],
-				joints: { maxSpacing: 2.4 },
+				joints: { maxSpacing: { feet: 8, meters: 2.4384 }, depth: { inches: 1, millimeters: 25.4 } },
+				materials: { items: [], diyTotal: { amount: 755.2, complete: false, unpriced: ['gravel'] } },
 				cautions: [{ id: 'wet-cement', title: 'Wet cement burns skin', source: 'common practice' }],
 				somethingElse: { ignored: true }
 			}
@@ -19,14 +20,17 @@ describe('planFigures', () => {
 		expect(f.volume?.order?.cubicYards).toBe(1.63);
 		expect(f.bags?.[0].count).toBe(67);
 		expect(f.cautions?.map((c) => c.id)).toEqual(['wet-cement']);
+		expect(f.joints?.maxSpacing.feet).toBe(8);
+		expect(f.materials?.diyTotal).toEqual({ amount: 755.2, complete: false });
 		expect(f).not.toHaveProperty('somethingElse');
 	});
 
 	it('leaves out what is missing or malformed instead of failing', () => {
-		const f = planFigures(null, { area: { squareFeet: 'big' }, volume: { net: { cubicFeet: 1, cubicYards: 2, cubicMeters: 3 } }, bags: 'many' });
+		const f = planFigures(null, { area: { squareFeet: 'big' }, volume: { net: { cubicFeet: 1, cubicYards: 2, cubicMeters: 3 } }, bags: 'many', joints: { maxSpacing: 2.4 } });
 		expect(f.units).toBe('imperial');
 		expect(f.area).toBeUndefined();
 		expect(f.bags).toBeUndefined();
+		expect(f.joints).toBeUndefined();
 		expect(f.volume?.net?.cubicMeters).toBe(3);
 		expect(planFigures({ units: 'lunar' }, 'not an object')).toEqual({ units: 'imperial' });
 	});

@@ -10,7 +10,7 @@ import {
 	contractorLead,
 	declineLead,
 	LeadRefused,
-	leadPhotoFor,
+	leadPhotoPlan,
 	markLeadSeen,
 	postMessage,
 	saveBid,
@@ -239,8 +239,8 @@ describe('lead photos', () => {
 		const [l] = await db.select().from(lead).where(and(eq(lead.planId, p.id), eq(lead.contractorId, c.id)));
 
 		expect(l.snapshot.photoIds).toEqual([before.id]);
-		expect((await leadPhotoFor(c.id, l.id, before.id))?.id).toBe(before.id);
-		expect(await leadPhotoFor(c.id, l.id, after.id)).toBeNull(); // added after sending
-		expect(await leadPhotoFor(other.id, l.id, before.id)).toBeNull(); // not their lead
+		expect(await leadPhotoPlan(c.id, l.id, before.id)).toBe(p.id);
+		expect(await leadPhotoPlan(c.id, l.id, after.id)).toBeNull(); // added after sending
+		expect(await leadPhotoPlan(other.id, l.id, before.id)).toBeNull(); // not their lead
 	});
 });

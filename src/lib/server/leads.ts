@@ -361,10 +361,8 @@ export async function threadsOf(u: { id: string; role: string }) {
 		.orderBy(desc(last));
 }
 
-/** A site photo of the plan as it was sent to `contractorId`'s lead; null when not theirs to see. */
-export async function leadPhotoFor(contractorId: string, leadId: string, photoId: string) {
+/** The plan of `leadId` when `photoId` was among its photos as sent to `contractorId`; else null. */
+export async function leadPhotoPlan(contractorId: string, leadId: string, photoId: string) {
 	const [l] = await db.select({ planId: lead.planId, snapshot: lead.snapshot }).from(lead).where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
-	if (!l?.snapshot.photoIds?.includes(photoId)) return null;
-	const [photo] = await db.select().from(planPhoto).where(and(eq(planPhoto.id, photoId), eq(planPhoto.planId, l.planId)));
-	return photo ?? null;
+	return l?.snapshot.photoIds?.includes(photoId) ? l.planId : null;
 }

@@ -1,18 +1,38 @@
-// Loads the demo scenario in fixtures/demo.json once; running it again changes nothing.
+// Loads the demo scenario (fixtures/demo.json, fixtures/demo-plans.json) once; running it again
+// changes nothing. TypeScript run with tsx, so demo plans are computed by the real engine.
 import fs from 'node:fs';
 import path from 'node:path';
 import { hash } from '@node-rs/argon2';
 import postgres from 'postgres';
 import zipcodes from 'zipcodes';
+import { computePlan } from '../src/lib/plan/index';
+
+type DemoProfile = {
+	contactName: string;
+	phone: string;
+	description: string;
+	yearsInTrade: number;
+	services: string[];
+	licenceNumber: string;
+	licenceAuthority: string;
+	servicePostcode: string;
+	serviceRadius: number;
+	serviceRadiusUnit: 'mi' | 'km';
+};
+type DemoContractor = { businessName: string; status: string; profile: DemoProfile };
+type DemoUser = { email: string; name: string; role: string; plans?: string[]; contractor?: DemoContractor };
+type DemoPlan = { id: string; postcode?: string; input: { name: string } };
 
 if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set');
-const demo = JSON.parse(fs.readFileSync(new URL('../fixtures/demo.json', import.meta.url), 'utf8'));
+const read = (file: string) => JSON.parse(fs.readFileSync(new URL(`../fixtures/${file}`, import.meta.url), 'utf8'));
+const demo: { password: string; users: DemoUser[] } = read('demo.json');
+const demoPlans: DemoPlan[] = read('demo-plans.json').plans;
 const sql = postgres(process.env.DATABASE_URL, { max: 1, onnotice: () => {} });
 
 const uploadDir = path.resolve(process.env.UPLOAD_DIR || '.data/uploads');
 
 /** A one-page PDF saying what it is: demo documents must never pass for real ones. */
-function demoPdf(line) {
+function demoPdf(line: string) {
 	const text = line.replace(/[()\\]/g, '');
 	const content = `BT /F1 14 Tf 50 780 Td (${text}) Tj ET`;
 	const objects = [
@@ -34,10 +54,11 @@ function demoPdf(line) {
 	return Buffer.from(out, 'latin1');
 }
 
-async function seedContractor(tx, id, u) {
-	const c = u.contractor;
+/** A demo firm's business record with its profile, service-area centroid and two demo documents. */
+async function seedContractor(tx: postgres.TransactionSql, id: string, c: DemoContractor) {
 	const p = c.profile;
 	const at = zipcodes.lookup(p.servicePostcode);
+	if (!at) throw new Error(`fixtures/demo.json: unknown ZIP code ${p.servicePostcode}`);
 	await tx`
 		INSERT INTO contractor (user_id, business_name, status, contact_name, phone, description, years_in_trade, services,
 			licence_number, licence_authority, service_postcode, service_radius, service_radius_unit, service_lat, service_lon, submitted_at)
@@ -65,12 +86,23 @@ try {
 				INSERT INTO "user" (email, name, role, password_hash, email_verified_at)
 				VALUES (${u.email.toLowerCase()}, ${u.name}, ${u.role}, ${passwordHash}, now())
 				ON CONFLICT (email) DO NOTHING RETURNING id`;
-			if (!rows.length) continue;
-			added++;
-			if (u.role === 'contractor') await seedContractor(tx, rows[0].id, u);
+			const [{ id: userId }] = rows.length ? rows : await tx`SELECT id FROM "user" WHERE email = ${u.email.toLowerCase()}`;
+			if (rows.length) added++;
+			if (rows.length && u.contractor) await seedContractor(tx, userId, u.contractor);
+			for (const planId of u.plans ?? []) {
+				const p = demoPlans.find((d) => d.id === planId);
+				if (!p) throw new Error(`fixtures/demo.json names an unknown demo plan ${planId}`);
+				const [exists] = await tx`SELECT 1 FROM plan WHERE owner_id = ${userId} AND name = ${p.input.name}`;
+				if (exists) continue;
+				const result = JSON.parse(JSON.stringify(computePlan(p.input)));
+				await tx`
+					INSERT INTO plan (owner_id, name, postcode, input, result)
+					VALUES (${userId}, ${p.input.name}, ${p.postcode ?? null}, ${tx.json(p.input)}, ${tx.json(result)})`;
+				added++;
+			}
 		}
 	});
 } finally {
 	await sql.end();
 }
-console.log(added ? `Loaded ${added} demo accounts` : 'Demo data already loaded');
+console.log(added ? `Loaded ${added} demo accounts and plans` : 'Demo data already loaded');

@@ -1,0 +1,112 @@
+import { describe, expect, it } from 'vitest';
+import { computePlan, type Caution } from '$lib/plan';
+import { area, mass, small, temperature } from '$lib/plan/units';
+import demo from '../../../../fixtures/demo-plans.json';
+import {
+	diyTotal,
+	formatArea,
+	formatDate,
+	formatElevation,
+	formatMass,
+	formatMinutes,
+	formatMoney,
+	formatQuantity,
+	formatTemperature,
+	milestoneRows,
+	sortCautions,
+	stakeIntro,
+	stakeRows,
+	summaryItems
+} from './format';
+
+const [patio, , shedPad] = demo.plans.map((p) => computePlan(p.input));
+
+describe('unit text', () => {
+	it('areas in the plan unit', () => {
+		expect(formatArea(area(10), 'metric')).toBe('10 m²');
+		// 10 m² / 0.3048² = 107.639… ft² (NIST SP 811 App. B, 1 ft = 0.3048 m)
+		expect(formatArea(area(10), 'imperial')).toBe('107.6 ft²');
+	});
+
+	it('signed heights: a sign only when something is left after rounding', () => {
+		expect(formatElevation(small(-0.0381), 'imperial')).toBe('−1½ in'); // 38.1 mm = 1½ in exactly (1 in = 25.4 mm)
+		expect(formatElevation(small(0.0095), 'imperial')).toBe('+⅜ in'); // 9.5 mm = 0.374 in → nearest ⅛
+		expect(formatElevation(small(-0.0002), 'imperial')).toBe('0 in');
+		expect(formatElevation(small(-0.0114), 'metric')).toBe('−11 mm');
+		expect(formatElevation(small(0.0004), 'metric')).toBe('0 mm');
+	});
+
+	it('masses and temperatures in the plan unit', () => {
+		expect(formatMass(mass(23), 'imperial')).toBe('51 lb'); // 23 kg / 0.45359237 = 50.7 lb (NIST SP 811)
+		expect(formatMass(mass(36.2874), 'metric')).toBe('36.3 kg');
+		expect(formatTemperature(temperature(25), 'imperial')).toBe('77 °F');
+		expect(formatTemperature(temperature(7.6), 'metric')).toBe('8 °C');
+	});
+
+	it('minutes read like a clock', () => {
+		expect(formatMinutes(45.4)).toBe('45 min');
+		expect(formatMinutes(120)).toBe('2 h');
+		expect(formatMinutes(306)).toBe('5 h 6 min');
+		expect(formatMinutes(-267.8)).toBe('4 h 28 min');
+	});
+
+	it('money, quantities and dates', () => {
+		expect(formatMoney(646.4000000000001)).toBe('646.40');
+		expect(formatMoney(1683.2)).toBe('1,683.20');
+		expect(formatQuantity(13.999999999999998, 'ft')).toBe('14 ft');
+		expect(formatQuantity(2.4888, 'yd³')).toBe('2.49 yd³');
+		expect(formatQuantity(77.4558, 'gal')).toBe('77.5 gal');
+		expect(formatQuantity(0, 'per your layout')).toBe('per your layout');
+		expect(formatDate('2027-05-15')).toBe('Sat, May 15, 2027');
+	});
+});
+
+describe('rows from a computed plan', () => {
+	it('summary carries the engine volumes and every bag option', () => {
+		const items = summaryItems(patio);
+		const value = (label: string) => items.find((i) => i.label === label)?.value;
+		// 14 × 12 ft at 4 in = 56 ft³ = 2.07 yd³; +8 % waste = 60.48 ft³ = 2.24 yd³ (1 yd³ = 27 ft³)
+		expect(value('Concrete in place')).toBe('2.07 yd³ (56 ft³)');
+		expect(value('Concrete to order')).toBe('2.24 yd³ (60.5 ft³)');
+		expect(value('Area')).toBe('168 ft²');
+		for (const b of patio.bags) expect(value(`${b.size} lb bags`)).toMatch(new RegExp(`^${b.count} bags`));
+	});
+
+	it('names the cheaper option only when both prices exist', () => {
+		const items = summaryItems(patio);
+		expect(items.find((i) => i.label === 'Costs less')?.value).toMatch(/^Ready-mix: 491\.25 against 646\.40/);
+		const unpriced = { ...patio, cost: { cheaper: null } };
+		expect(summaryItems(unpriced).some((i) => i.label === 'Costs less')).toBe(false);
+	});
+
+	it('DIY total names what has no price, and is absent when nothing is priced', () => {
+		expect(diyTotal(shedPad)?.note).toContain('Form stakes');
+		const none = { materials: { ...patio.materials, items: patio.materials.items.map((i) => ({ ...i, cost: undefined })) } };
+		expect(diyTotal(none)).toBeUndefined();
+	});
+
+	it('stake rows: one per stake, the high stake flagged, zero below the line at the high stake', () => {
+		const rows = stakeRows(patio);
+		expect(rows.map((r) => r.id)).toEqual(patio.elevations.stakes.map((s) => s.id));
+		const high = rows.filter((r) => r.high);
+		expect(high.map((r) => r.id)).toEqual([patio.elevations.highStake]);
+		expect(high[0].belowLine).toBe('0 in');
+		// ¼ in/ft fall over 12 ft = 3 in (ACI 302.1R ¼ in/ft): the far stakes sit 3 in below the line
+		expect(rows.find((r) => r.position === '14 ft, 12 ft')?.belowLine).toBe('3 in');
+		expect(stakeIntro(patio)).toContain('mark it 1½ in below the kitchen door sill');
+	});
+
+	it('milestones carry the strength on their day from the timeline', () => {
+		for (const m of milestoneRows(patio)) {
+			const day = patio.strength.find((d) => d.day === m.day);
+			expect(m.percent).toBe(day?.percent);
+		}
+	});
+
+	it('cautions: the deferral apart, the rest most severe first', () => {
+		const c = (id: string, severity: Caution['severity']): Caution => ({ id, severity, title: id, reason: '', action: '', source: '' });
+		const sorted = sortCautions([c('local-codes', 'info'), c('a', 'info'), c('b', 'warning'), c('c', 'danger'), c('d', 'warning')]);
+		expect(sorted.deferral?.id).toBe('local-codes');
+		expect(sorted.rest.map((x) => x.id)).toEqual(['c', 'b', 'd', 'a']);
+	});
+});

@@ -1,0 +1,302 @@
+// Display text for the plan page and the plan PDF. Both render these rows, so the page and the
+// download show the same numbers, in the plan's own units, straight from the engine result.
+
+import type { Area, Caution, Mass, PlanResult, Severity, Small, Temperature, Units } from '$lib/plan';
+import { formatLength, formatSmall, formatVolume } from '$lib/plan/format';
+
+const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
+const num = (x: number, digits: number) => String(round(x, digits));
+
+export const formatArea = (a: Area, u: Units) =>
+	u === 'imperial' ? `${num(a.squareFeet, 1)} ft²` : `${num(a.squareMeters, 2)} m²`;
+
+export const formatMass = (m: Mass, u: Units) =>
+	u === 'imperial' ? `${num(m.pounds, 0)} lb` : `${num(m.kilograms, 1)} kg`;
+
+export const formatTemperature = (t: Temperature, u: Units) =>
+	u === 'imperial' ? `${num(t.fahrenheit, 0)} °F` : `${num(t.celsius, 0)} °C`;
+
+export const formatPercent = (p: number) => `${num(p, 0)} %`;
+
+/** A height without its sign, and whether it rounds to nothing in the plan's unit. */
+function magnitude(s: Small, u: Units): { text: string; zero: boolean } {
+	const text = formatSmall({ inches: Math.abs(s.inches), millimeters: Math.abs(s.millimeters) }, u);
+	return { text, zero: text.startsWith('0 ') };
+}
+
+/** Signed height: "+⅜ in", "−1½ in", "0 mm"; no sign when it rounds to nothing. */
+export function formatElevation(s: Small, u: Units): string {
+	const { text, zero } = magnitude(s, u);
+	return zero ? text : `${s.millimeters < 0 ? '−' : '+'}${text}`;
+}
+
+/** Minutes as a crew reads a clock: "45 min", "2 h", "5 h 6 min". */
+export function formatMinutes(minutes: number): string {
+	const m = Math.round(Math.abs(minutes));
+	if (m < 60) return `${m} min`;
+	const rest = m % 60;
+	return `${Math.floor(m / 60)} h${rest ? ` ${rest} min` : ''}`;
+}
+
+/** Prices carry no currency in the plan, so amounts are shown as plain two-decimal figures. */
+export const formatMoney = (amount: number) =>
+	amount.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+
+/** A material quantity; a zero quantity means the unit text says it all ("per your layout"). */
+export function formatQuantity(quantity: number, unit: string): string {
+	if (quantity <= 0) return unit;
+	return `${num(quantity, quantity >= 10 ? 1 : 2)} ${unit}`;
+}
+
+/** ISO day to text, read in UTC so the server and the browser print the same date. */
+export const formatDate = (iso: string) =>
+	new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-US', {
+		weekday: 'short',
+		month: 'short',
+		day: 'numeric',
+		year: 'numeric',
+		timeZone: 'UTC'
+	});
+
+export const formatBagSize = (b: { size: number; unit: string }) => `${b.size} ${b.unit}`;
+
+export const formatOrder = (r: PlanResult['readyMix']) => `${num(r.order, 2)} ${r.unit}`;
+
+export interface SummaryItem {
+	label: string;
+	value: string;
+	note?: string;
+}
+
+export type SummaryPlan = Pick<PlanResult, 'units' | 'area' | 'volume' | 'bags' | 'readyMix' | 'cost' | 'materials'>;
+
+export function summaryItems(p: SummaryPlan): SummaryItem[] {
+	const u = p.units;
+	const money = (x?: number) => (x === undefined ? '' : ` · ${formatMoney(x)}`);
+	const items: SummaryItem[] = [
+		{ label: 'Area', value: formatArea(p.area, u) },
+		{ label: 'Outside edge', value: formatLength(p.area.perimeter, u) },
+		{ label: 'Concrete in place', value: formatVolume(p.volume.net, u) },
+		{ label: 'Concrete to order', value: formatVolume(p.volume.order, u), note: `includes ${num(p.volume.wastePercent, 1)} % for waste` },
+		...p.bags.map((b) => ({
+			label: `${formatBagSize(b)} bags`,
+			value: `${b.count} bags${money(b.cost)}`,
+			note: b.planned ? 'the size the mixing plan uses' : undefined
+		})),
+		{ label: 'Ready-mix', value: `${formatOrder(p.readyMix)}${money(p.readyMix.cost)}`, note: p.readyMix.note }
+	];
+	const cheaper = cheaperText(p);
+	if (cheaper) items.push({ label: 'Costs less', value: cheaper });
+	const total = diyTotal(p);
+	if (total) items.push({ label: 'Do-it-yourself total', value: total.amount, note: total.note });
+	return items;
+}
+
+function cheaperText({ cost, bags }: SummaryPlan): string | undefined {
+	if (!cost.cheaper || cost.bagCost === undefined || cost.readyMixCost === undefined) return undefined;
+	const bag = bags.find((b) => b.size === cost.bagSize);
+	const bagLabel = bag ? `${formatBagSize(bag)} bags` : 'bags';
+	return cost.cheaper === 'bags'
+		? `${bagLabel}: ${formatMoney(cost.bagCost)} against ${formatMoney(cost.readyMixCost)} for ready-mix`
+		: `Ready-mix: ${formatMoney(cost.readyMixCost)} against ${formatMoney(cost.bagCost)} for ${bagLabel}`;
+}
+
+/** The DIY total, or undefined when nothing in the list has a price. */
+export function diyTotal({ materials }: Pick<PlanResult, 'materials'>): { amount: string; note?: string } | undefined {
+	if (!materials.items.some((i) => i.cost !== undefined)) return undefined;
+	const { amount, complete, unpriced } = materials.diyTotal;
+	const names = unpriced.map((id) => materials.items.find((i) => i.id === id)?.name ?? id);
+	return { amount: formatMoney(amount), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
+}
+
+const RUN_KIND = { outer: 'Outer form', house: 'House side', bulkhead: 'Bulkhead' } as const;
+
+export interface StakeRow {
+	id: string;
+	where: string;
+	position: string;
+	elevation: string;
+	belowLine: string;
+	high: boolean;
+}
+
+export type StakePlan = Pick<PlanResult, 'units' | 'elevations' | 'forms' | 'geometry'>;
+
+export function stakeRows(p: StakePlan): StakeRow[] {
+	const u = p.units;
+	const runs = new Map(p.forms.runs.map((r) => [r.id, r]));
+	const names = new Map(p.geometry.sections.map((s) => [s.index, s.name]));
+	// Stake coordinates are already in the plan's length unit.
+	const len = (v: number) => `${num(v, 2)} ${u === 'imperial' ? 'ft' : 'm'}`;
+	return p.elevations.stakes.map((s) => {
+		const run = runs.get(s.run);
+		return {
+			id: s.id,
+			where: run ? `${RUN_KIND[run.kind]} ${run.id}, ${names.get(run.section)}` : s.run,
+			position: `${len(s.x)}, ${len(s.y)}`,
+			elevation: formatElevation(s.elevation, u),
+			belowLine: formatSmall(s.belowLevelLine, u),
+			high: s.id === p.elevations.highStake
+		};
+	});
+}
+
+/** How to use the table, with the high stake's own mark. */
+export function stakeIntro(p: StakePlan): string {
+	const { highStake, stakes, reference } = p.elevations;
+	const high = stakes.find((s) => s.id === highStake);
+	if (!high) return 'This plan sets no form stakes.';
+	const { text, zero } = magnitude(high.elevation, p.units);
+	const side = zero ? 'level with' : `${text} ${high.elevation.millimeters < 0 ? 'below' : 'above'}`;
+	return `Stake ${high.id} is the high stake: mark it ${side} the ${reference.label}. Stretch a line from that mark, level it, and on every other stake mark the distance shown below the line. The marks are the finished top of the slab.`;
+}
+
+export interface MixingRow {
+	index: number;
+	name: string;
+	bags: string;
+	mixing: string;
+	placing: string;
+	total: string;
+	working: string;
+	finish: string;
+	spare: string;
+	fits: boolean;
+	split?: string;
+	splitNote?: string;
+}
+
+export type MixingPlan = Pick<PlanResult, 'units' | 'mixing' | 'area'>;
+
+export function mixingRows(p: MixingPlan): MixingRow[] {
+	const bag = formatBagSize(p.mixing.bag);
+	return p.mixing.sections.map((s) => ({
+		index: s.index,
+		name: p.area.sections.find((a) => a.index === s.index)?.name ?? `Section ${s.index + 1}`,
+		bags: `${s.bags} × ${bag}${s.batches === undefined ? '' : ` in ${s.batches} batches`}`,
+		mixing: formatMinutes(s.mixMinutes),
+		placing: formatMinutes(s.placeMinutes),
+		total: formatMinutes(s.totalMinutes),
+		working: `${formatMinutes(s.workingMinutes)} at ${formatTemperature(s.temperature, p.units)}`,
+		finish: formatMinutes(s.finishMinutes),
+		spare: s.spareMinutes >= 0 ? `${formatMinutes(s.spareMinutes)} to spare` : `${formatMinutes(s.spareMinutes)} short`,
+		fits: s.fits,
+		split: s.split ? splitText(s.split.parts, s.split.bagsPerPart) : undefined,
+		splitNote: s.split?.note
+	}));
+}
+
+export const fitText = (r: MixingRow) =>
+	`${r.fits ? 'Fits' : 'Does not fit'} the working time, keeping ${r.finish} for finishing: ${r.spare}.`;
+
+export const READY_MIX_HINT =
+	'At least one section would stiffen before this crew could place it: split it as shown, add people or a mixer, or order ready-mix.';
+
+function splitText(parts: number, bags: number[]): string {
+	const same = bags.every((b) => b === bags[0]);
+	return same ? `${parts} parts of ${bags[0]} bags each` : `${parts} parts: ${bags.join(', ')} bags`;
+}
+
+export function crewItems(p: Pick<PlanResult, 'units' | 'mixing'>): SummaryItem[] {
+	const m = p.mixing;
+	const lift = m.heaviestLift;
+	return [
+		{ label: 'Mixing', value: m.method === 'drum' ? 'Drum mixer' : 'By hand, one tub or barrow each' },
+		{ label: 'Crew', value: `${m.people} ${m.people === 1 ? 'person' : 'people'}` },
+		{ label: 'Bags per person', value: `about ${m.bagsPerPerson}` },
+		{
+			label: 'Heaviest lift',
+			value: `${formatMass(lift.mass, p.units)} bag`,
+			note: `${lift.overLoadConstant ? 'over' : 'within'} the ${formatMass(lift.loadConstant, p.units)} lifting load constant`
+		}
+	];
+}
+
+export interface DayRow {
+	day: number;
+	label: string;
+	date?: string;
+	pour: boolean;
+	tasks: { id: string; text: string }[];
+}
+
+export function dayRows({ schedule }: Pick<PlanResult, 'schedule'>): DayRow[] {
+	const pours = new Set(schedule.pourDays.map((d) => d.day));
+	return schedule.days.map((d) => ({
+		day: d.day,
+		label: `Day ${d.day}`,
+		date: d.date ? formatDate(d.date) : undefined,
+		pour: pours.has(d.day),
+		tasks: d.tasks
+	}));
+}
+
+export interface MilestoneRow {
+	id: string;
+	title: string;
+	/** Days after the last pour, or null when not reached in the forecast. */
+	day: number | null;
+	when: string;
+	/** Strength on that day, when the charted timeline reaches it. */
+	percent?: number;
+	strength?: string;
+	rule: string;
+	source: string;
+}
+
+export function milestoneRows(p: Pick<PlanResult, 'milestones' | 'strength'>): MilestoneRow[] {
+	return p.milestones.map((m) => {
+		const percent = m.day === null ? undefined : p.strength.find((d) => d.day === m.day)?.percent;
+		const when =
+			m.day === null
+				? 'not reached in the forecast period'
+				: [`day ${m.day} after the last pour`, m.planDay === null ? '' : `plan day ${m.planDay}`, m.date ? formatDate(m.date) : '']
+						.filter(Boolean)
+						.join(' · ');
+		return {
+			id: m.id,
+			title: m.title,
+			day: m.day,
+			when,
+			percent,
+			strength: percent === undefined ? undefined : formatPercent(percent),
+			rule: m.rule,
+			source: m.source
+		};
+	});
+}
+
+export interface MaterialRow {
+	id: string;
+	name: string;
+	quantity: string;
+	cost?: string;
+	note?: string;
+}
+
+export const materialRows = ({ materials }: Pick<PlanResult, 'materials'>): MaterialRow[] =>
+	materials.items.map((i) => ({
+		id: i.id,
+		name: i.name,
+		quantity: formatQuantity(i.quantity, i.unit),
+		cost: i.cost === undefined ? undefined : formatMoney(i.cost),
+		note: i.note
+	}));
+
+/** Shown only if a result ever lacks the engine's own local-codes caution. */
+export const DEFERRAL_FALLBACK = 'Local codes, permits and licensed professionals come before anything in this plan.';
+
+export const SEVERITY_LABEL: Record<Severity, string> = { danger: 'Danger', warning: 'Caution', info: 'Good to know' };
+const SEVERITY_RANK: Record<Severity, number> = { danger: 0, warning: 1, info: 2 };
+
+/** The deferral to local codes apart, the rest most severe first (stable within a level). */
+export function sortCautions(cautions: Caution[]): { deferral?: Caution; rest: Caution[] } {
+	return {
+		deferral: cautions.find((c) => c.id === 'local-codes'),
+		rest: cautions
+			.filter((c) => c.id !== 'local-codes')
+			.map((c, i) => ({ c, i }))
+			.sort((a, b) => SEVERITY_RANK[a.c.severity] - SEVERITY_RANK[b.c.severity] || a.i - b.i)
+			.map((x) => x.c)
+	};
+}

@@ -1,0 +1,100 @@
+import { render } from 'svelte/server';
+import { describe, expect, it } from 'vitest';
+import { computePlan } from '$lib/plan';
+import { formatSmall, formatVolume } from '$lib/plan/format';
+import demo from '../../../../fixtures/demo-plans.json';
+import CautionList from './CautionList.svelte';
+import DayPlan from './DayPlan.svelte';
+import MaterialsList from './MaterialsList.svelte';
+import MixingPlan from './MixingPlan.svelte';
+import PlanSummary from './PlanSummary.svelte';
+import StakeMarkTable from './StakeMarkTable.svelte';
+import StrengthChart from './StrengthChart.svelte';
+import { formatDate, formatPercent, materialRows } from './format';
+
+const plans = demo.plans.map((p) => ({ id: p.id, result: computePlan(p.input) }));
+
+/** Server-rendered HTML with tags and comments dropped and entities decoded, to search as text. */
+function text(html: string): string {
+	return html
+		.replace(/<!--[\s\S]*?-->/g, '')
+		.replace(/<[^>]+>/g, ' ')
+		.replace(/&amp;/g, '&')
+		.replace(/&lt;/g, '<')
+		.replace(/&gt;/g, '>')
+		.replace(/&#39;/g, "'")
+		.replace(/&quot;/g, '"')
+		.replace(/\s+/g, ' ');
+}
+
+describe.each(plans)('plan page components, $id', ({ result }) => {
+	const u = result.units;
+
+	it('PlanSummary shows area, volumes and every bag size', () => {
+		const out = text(render(PlanSummary, { props: { plan: result } }).body);
+		expect(out).toContain(formatVolume(result.volume.net, u));
+		expect(out).toContain(formatVolume(result.volume.order, u));
+		for (const b of result.bags) expect(out).toContain(`${b.size} ${b.unit} bags ${b.count} bags`);
+	});
+
+	it('StakeMarkTable lists every stake with its mark, in an accessible table', () => {
+		const html = render(StakeMarkTable, { props: { plan: result } }).body;
+		expect(html).toContain('<caption');
+		expect(html).toMatch(/<th[^>]*scope="col"/);
+		const rows = [...html.matchAll(/<th[^>]*scope="row"[^>]*>([\s\S]*?)<\/th>/g)].map((m) => text(m[1]).trim());
+		expect(rows.map((r) => r.split(' ')[0])).toEqual(result.elevations.stakes.map((s) => s.id));
+		// Each row ends with the engine's distance below the level line.
+		const cells = [...html.matchAll(/<tr[^>]*>([\s\S]*?)<\/tr>/g)].slice(1).map((m) => text(m[1]).trim());
+		expect(cells.map((c) => c.split(' ').slice(-2).join(' '))).toEqual(
+			result.elevations.stakes.map((s) => formatSmall(s.belowLevelLine, u))
+		);
+	});
+
+	it('DayPlan shows every day and task', () => {
+		const out = text(render(DayPlan, { props: { plan: result } }).body);
+		for (const d of result.schedule.days) {
+			expect(out).toContain(`Day ${d.day}`);
+			for (const k of d.tasks) expect(out).toContain(k.text);
+		}
+	});
+
+	it('StrengthChart renders without chart.js on the server, with the milestones and a data table', () => {
+		const html = render(StrengthChart, { props: { plan: result } }).body;
+		expect(html).toContain('<canvas');
+		for (const m of result.milestones) expect(text(html)).toContain(m.title);
+		const table = /<div class="sr-only">\s*<table>([\s\S]*?)<\/table>/.exec(html)![1];
+		expect([...table.matchAll(/scope="row"/g)]).toHaveLength(result.strength.length);
+		const day = result.strength[6];
+		expect(text(table)).toContain(`${day.day} ${day.date ? formatDate(day.date) + ' ' : ''}${formatPercent(day.percent)}`);
+	});
+
+	it('MaterialsList shows each material with its quantity and cost, and the tools', () => {
+		const out = text(render(MaterialsList, { props: { plan: result } }).body);
+		for (const m of materialRows(result)) expect(out).toContain(`${m.quantity} ${m.cost ?? '—'}`);
+		for (const k of result.materials.tools) expect(out).toContain(k.name);
+	});
+
+	it('MixingPlan shows each section, whether it fits, and any split', () => {
+		const out = text(render(MixingPlan, { props: { plan: result } }).body);
+		for (const s of result.mixing.sections) {
+			expect(out).toContain(`${s.bags} × ${result.mixing.bag.size} ${result.mixing.bag.unit}`);
+			expect(out).toContain(s.fits ? 'Fits the working time' : 'Does not fit the working time');
+			if (s.split) expect(out).toContain(s.split.note);
+		}
+	});
+
+	it('CautionList shows every caution with its source, the deferral to local codes first', () => {
+		const out = text(render(CautionList, { props: { cautions: result.cautions } }).body);
+		for (const c of result.cautions) {
+			expect(out).toContain(c.title);
+			expect(out).toContain(`Source: ${c.source}`);
+		}
+		const local = result.cautions.find((c) => c.id === 'local-codes')!;
+		for (const c of result.cautions) if (c !== local) expect(out.indexOf(local.title)).toBeLessThan(out.indexOf(c.title));
+	});
+});
+
+it('CautionList keeps a deferral to local codes even without the engine caution', () => {
+	const out = text(render(CautionList, { props: { cautions: [] } }).body);
+	expect(out).toMatch(/local codes/i);
+});

@@ -1,0 +1,10 @@
+import type { Units } from '$lib/plan';
+
+/** Unit labels for the wizard's fields, by plan unit system. */
+export function unitLabels(u: Units) {
+	return u === 'imperial'
+		? { length: 'ft', small: 'in', temp: '°F', mass: 'lb', volume: 'yd³', smallVolume: 'ft³', wind: 'mph', strength: 'psi', area: 'ft²' }
+		: { length: 'm', small: 'mm', temp: '°C', mass: 'kg', volume: 'm³', smallVolume: 'm³', wind: 'km/h', strength: 'MPa', area: 'm²' };
+}
+
+export const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });

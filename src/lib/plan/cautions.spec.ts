@@ -1,0 +1,81 @@
+import { describe, expect, it } from 'vitest';
+import { MIN_THICKNESS_M, modulusOfRupture } from './cautions';
+import { computePlan } from './index';
+import type { PlanInput } from './schema';
+import { rect } from './test-plans';
+
+const base: PlanInput = { units: 'imperial', sections: [{ outline: rect(0, 0, 10, 8) }] };
+const ids = (input: Partial<PlanInput>) => computePlan({ ...base, ...input } as PlanInput).cautions.map((c) => c.id);
+
+describe('every plan', () => {
+	it('starts with the deferral to local codes and covers the job hazards', () => {
+		const c = computePlan(base).cautions;
+		expect(c[0].id).toBe('local-codes');
+		expect(c.map((x) => x.id)).toEqual(expect.arrayContaining(['utility-locate', 'wet-cement', 'bag-weight', 'unreinforced-loads']));
+		for (const x of c) {
+			expect(x.title && x.reason && x.action && x.source).toBeTruthy();
+		}
+		expect(c.find((x) => x.id === 'utility-locate')!.source).toMatch(/FCC 05-59/);
+		expect(c.find((x) => x.id === 'wet-cement')!.source).toMatch(/OSHA 3351-07/);
+	});
+
+	it('compares the bag with the NIOSH load constant', () => {
+		const c = computePlan(base).cautions.find((x) => x.id === 'bag-weight')!;
+		expect(c.severity).toBe('warning'); // 80 lb = 36.3 kg > 23 kg, NIOSH Pub. 94-110
+		const light = computePlan({ ...base, bags: { offered: [{ size: 40 }] } }).cautions.find((x) => x.id === 'bag-weight')!;
+		expect(light.severity).toBe('info'); // 40 lb = 18.1 kg < 23 kg, NIOSH Pub. 94-110
+	});
+});
+
+describe('plan-specific cautions', () => {
+	it('flags a slab under 3½ in', () => {
+		expect(MIN_THICKNESS_M).toBeCloseTo(0.0889, 12); // 3½ in, IRC R506.1
+		expect(ids({ thickness: 3 })).toContain('thin-slab'); // IRC R506.1
+		expect(ids({ thickness: 3.5 })).not.toContain('thin-slab'); // IRC R506.1
+	});
+
+	it('explains the modulus of rupture for unreinforced slabs', () => {
+		expect(modulusOfRupture.psi(3000)).toBeCloseTo(410.79, 2); // 7.5 √3000, ACI 318-19 §19.2.3
+		expect(modulusOfRupture.mpa(20)).toBeCloseTo(2.7727, 4); // 0.62 √20, ACI 318-19 §19.2.3
+		const c = computePlan({ ...base, loads: { vehicles: true } }).cautions.find((x) => x.id === 'unreinforced-loads')!;
+		expect(c.severity).toBe('danger');
+		expect(c.reason).toMatch(/411 psi/);
+		expect(ids({ reinforcement: 'mesh' })).not.toContain('unreinforced-loads');
+	});
+
+	it('flags silica when saw-cutting', () => {
+		const sawn = { ...base, sections: [{ outline: rect(0, 0, 20, 12) }], joints: { method: 'saw' as const } };
+		const c = computePlan(sawn).cautions.find((x) => x.id === 'silica-saw')!;
+		expect(c.severity).toBe('warning');
+		expect(c.source).toMatch(/1926\.1153/); // OSHA 29 CFR 1926.1153 Table 1
+		expect(ids({})).not.toContain('silica-saw'); // 10 × 8 ft needs no joint at 12 ft spacing (ACI 302.1R)
+	});
+
+	it('flags oil as form release, working alone and chunk fill too near the top', () => {
+		expect(ids({ forms: { release: 'oil' } })).toContain('form-release-oil');
+		expect(ids({ crew: { people: 1 } })).toContain('working-alone');
+		const fill = { houseEdge: null, thickenedEdge: { edges: 'free' as const, extraDepth: 4 }, fill: { shareOfTrench: 0.2, largestPiece: 6 } };
+		expect(ids(fill)).toContain('fill-near-surface');
+		expect(ids({ ...fill, fill: { shareOfTrench: 0.2, largestPiece: 3 } })).not.toContain('fill-near-surface');
+	});
+
+	it('flags water toward the foundation and falls under 2 %', () => {
+		expect(ids({ slope: { highEdge: { section: 0, edge: 2 } } })).toContain('water-toward-foundation'); // IRC R401.3
+		expect(ids({ slope: { fall: { value: 1.5, unit: 'percent' } } })).toContain('drainage-2-percent'); // IRC R401.3
+		expect(ids({ slope: { fall: { value: 2, unit: 'percent' } } })).not.toContain('drainage-2-percent'); // IRC R401.3
+		expect(ids({ slope: { fall: { value: 8, unit: 'percent' } } })).toContain('slope-steep');
+		expect(ids({ houseEdge: null, slope: { fall: { value: 0.5, unit: 'percent' } } })).toContain('slope-flat'); // ⅛ in/ft, common practice
+	});
+
+	it('flags cold, hot and fast-drying weather', () => {
+		expect(ids({ conditions: { airTemp: 38 } })).toContain('cold-weather'); // 38 °F ≤ 40 °F, ACI 306R
+		expect(ids({ conditions: { airTemp: 98 } })).toContain('hot-weather'); // 98 °F > 95 °F, ACI 305R
+		expect(ids({ conditions: { airTemp: 90, humidity: 20, wind: 15 } })).toContain('evaporation'); // Uno 1998 vs ACI 305R
+		expect(ids({ conditions: { airTemp: 70 } })).not.toContain('cold-weather');
+	});
+
+	it('flags a section the crew cannot place in time, and no base', () => {
+		expect(ids({ sections: [{ outline: rect(0, 0, 20, 16) }] })).toContain('mixing-time');
+		expect(ids({ base: { depth: 0 } })).toContain('no-base'); // IRC R506.2.2
+	});
+});

@@ -1,0 +1,286 @@
+// Cautions: where the job can hurt someone or fail, each with the reason it applies to this plan,
+// what to do, and the source. The deferral to local codes and licensed practice always comes first.
+
+import type { ElevationResult } from './elevations';
+import { MAX_COMFORTABLE_FALL, MIN_FALL } from './elevations';
+import type { JointsResult } from './joints';
+import type { MixingResult } from './mixing';
+import { NIOSH_LOAD_CONSTANT_KG } from './mixing';
+import type { Model } from './model';
+import * as unitsLib from './units';
+import type { VolumeResult } from './volume';
+import { toLbPerFt2h, type WeatherResult } from './weather';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { M_PER_IN } = unitsLib;
+
+export type Severity = 'info' | 'warning' | 'danger';
+
+export interface Caution {
+	id: string;
+	title: string;
+	reason: string;
+	action: string;
+	source: string;
+	severity: Severity;
+}
+
+export interface CautionContext {
+	m: Model;
+	volume: VolumeResult;
+	elevations: ElevationResult;
+	mixing: MixingResult;
+	joints: JointsResult;
+	weather: WeatherResult;
+}
+
+/** IRC R506.1 / ACI 332: slabs on ground at least 3½ in (89 mm). */
+export const MIN_THICKNESS_M = 3.5 * M_PER_IN;
+
+const one = (x: number, d = 1) => String(Math.round(x * 10 ** d) / 10 ** d);
+
+/** Modulus of rupture, ACI 318-19 §19.2.3: 7.5 √f'c psi, or 0.62 √f'c MPa. */
+export const modulusOfRupture = { psi: (fc: number) => 7.5 * Math.sqrt(fc), mpa: (fc: number) => 0.62 * Math.sqrt(fc) };
+
+type Rule = (c: CautionContext) => Caution | null;
+
+const localCodes: Rule = () => ({
+	id: 'local-codes',
+	title: 'Local codes, permits and licensed practice come first',
+	reason: 'Every number here is a planning estimate from published general rules; your town may require a permit, an inspection or different details.',
+	action: 'Check with the local building department before you dig, and hire a licensed professional where the work, the loads or the site call for one.',
+	source: 'Local building code as adopted (e.g. IRC R105 permits, from memory)',
+	severity: 'info'
+});
+
+const utilities: Rule = () => ({
+	id: 'utility-locate',
+	title: 'Have buried utilities marked before digging',
+	reason: 'The plan digs for the slab and its base; gas, power and water lines can run shallow.',
+	action: 'Call 811 in the US (or your one-call number) a few working days ahead and dig by hand near the marks.',
+	source: 'FCC 05-59 (2005), 811 as the one-call number',
+	severity: 'warning'
+});
+
+const wetCement: Rule = () => ({
+	id: 'wet-cement',
+	title: 'Wet cement burns skin and eyes',
+	reason: 'Mixing and placing the bags keeps you in contact with wet concrete for hours.',
+	action: 'Wear alkali-resistant gloves, rubber boots and eye protection; wash skin with pH-neutral soap and water; kneel on boards, not in the mix.',
+	source: 'OSHA 3351-07',
+	severity: 'warning'
+});
+
+const bagWeight: Rule = ({ mixing }) => {
+	const kg = mixing.heaviestLift.mass.kilograms;
+	const over = kg > NIOSH_LOAD_CONSTANT_KG;
+	return {
+		id: 'bag-weight',
+		title: over ? 'Each bag weighs more than the NIOSH load constant' : 'Lifting bags from the ground',
+		reason: `The ${one(mixing.bag.size)} ${mixing.bag.unit} bags (${one(kg)} kg) are ${over ? 'over' : 'near'} the NIOSH load constant of 23 kg (51 lb), and lifting from the ground lowers the recommended limit well below it; the crew handles about ${mixing.bagsPerPerson} bags each.`,
+		action: 'Lift with two people or slide bags at waist height from the vehicle; choose a smaller bag size; take turns.',
+		source: 'NIOSH Revised Lifting Equation, Pub. 94-110',
+		severity: over ? 'warning' : 'info'
+	};
+};
+
+const silica: Rule = ({ joints }) => {
+	if (joints.totalLength.meters <= 0) return null;
+	const saw = joints.method === 'saw';
+	return {
+		id: 'silica-saw',
+		title: 'Silica dust from saw-cutting joints',
+		reason: saw
+			? `The plan saw-cuts ${one(joints.totalLength.feet)} ft (${one(joints.totalLength.meters)} m) of control joints; dry cutting raises respirable crystalline silica.`
+			: 'The plan tools its joints; this applies if you saw-cut instead.',
+		action: 'Use a saw with a water feed; outdoors, wear a respirator (APF 10) if you cut more than 4 hours in a shift; keep others upwind.',
+		source: 'OSHA 29 CFR 1926.1153, Table 1 (PEL 50 µg/m³, 8-h TWA)',
+		severity: saw ? 'warning' : 'info'
+	};
+};
+
+const unreinforced: Rule = ({ m }) => {
+	if (m.reinforcement === 'mesh' || m.reinforcement === 'rebar') return null;
+	const loaded = m.loads.vehicles || m.loads.pointLoads;
+	const psi = m.designStrengthMpa / 0.00689475729;
+	const fr = m.units === 'imperial' ? `${Math.round(modulusOfRupture.psi(psi))} psi` : `${one(modulusOfRupture.mpa(m.designStrengthMpa), 2)} MPa`;
+	return {
+		id: 'unreinforced-loads',
+		title: 'Unreinforced concrete cracks under point and vehicle loads',
+		reason: `The slab is ${m.reinforcement === 'fiber' ? 'fiber-reinforced only' : 'unreinforced'}; it resists bending only up to its modulus of rupture, about ${fr} here${loaded ? ', and the plan expects vehicles or heavy point loads' : ''}.`,
+		action: loaded
+			? 'Have the slab designed for the loads (thickness, reinforcement, base) by a licensed professional; do not drive or set heavy loads on a patio slab.'
+			: 'Keep vehicles, hot tubs and post loads off it unless it is designed for them.',
+		source: 'ACI 318-19 §19.2.3',
+		severity: loaded ? 'danger' : 'info'
+	};
+};
+
+const fillNearSurface: Rule = ({ m }) => {
+	if (!m.fill || m.fill.largestPiece <= m.thickened.extraDepth) return null;
+	const cover = m.thickness + m.thickened.extraDepth - m.fill.largestPiece;
+	return {
+		id: 'fill-near-surface',
+		title: 'Chunk fill too close to the surface',
+		reason: `The largest chunk is taller than the trench below the slab, leaving about ${one(cover / M_PER_IN)} in (${Math.round(cover * 1000)} mm) of concrete over it instead of the full slab thickness.`,
+		action: 'Break the chunks smaller than the trench depth, keep them off the forms, and surround each with concrete.',
+		source: 'common practice, no published source',
+		severity: 'warning'
+	};
+};
+
+const oilRelease: Rule = ({ m }) =>
+	m.forms.release !== 'oil'
+		? null
+		: {
+				id: 'form-release-oil',
+				title: 'Use a form release agent, never waste motor oil',
+				reason: 'The plan lists oil as the form release; used motor oil soaks into the soil and stains the concrete edge.',
+				action: 'Use a commercial release agent made for concrete forms, applied thinly before the pour.',
+				source: 'common practice; used-oil rules under 40 CFR 279 (from memory)',
+				severity: 'warning'
+			};
+
+const drainage: Rule[] = [
+	({ m, elevations: e }) => {
+		const bad = e.houseEdges.filter((h) => h.fallAway.percent <= 0);
+		if (!bad.length) return null;
+		return {
+			id: 'water-toward-foundation',
+			title: 'Water would run toward the foundation',
+			reason: `Along ${bad.map((h) => `${m.sections[h.section].name}, edge ${h.edge + 1},`).join(', ')} the surface falls ${one(-Math.min(...bad.map((h) => h.fallAway.percent)), 2)} % toward the house or not at all.`,
+			action: 'Make the house side the high side (set slope.highEdge to the house edge) or add a cross fall so every edge along the house falls away.',
+			source: 'IRC R401.3',
+			severity: 'danger'
+		};
+	},
+	({ elevations: e }) => {
+		const low = e.houseEdges.filter((h) => !h.meetsIrc && h.fallAway.percent > 0);
+		if (!low.length) return null;
+		return {
+			id: 'drainage-2-percent',
+			title: 'Less than 2 % fall away from the house',
+			reason: `Within 10 ft of the foundation the slab falls only ${one(Math.min(...low.map((h) => h.fallAway.percent)), 2)} % away from it.`,
+			action: 'Raise the fall to at least 2 % (¼ in/ft) away from the house, or provide drains as the building official allows.',
+			source: 'IRC R401.3',
+			severity: 'warning'
+		};
+	},
+	({ elevations: e }) =>
+		e.steepest.percent / 100 > MAX_COMFORTABLE_FALL + 1e-12
+			? {
+					id: 'slope-steep',
+					title: 'Steep surface',
+					reason: `The surface falls ${one(e.steepest.percent)} % at its steepest; past about 5 % (1:20) it reads as a ramp and furniture tips.`,
+					action: 'Lower the fall, step the slab, or treat it as a walk ramp with a rough finish.',
+					source: 'from memory (ADA 2010 Standards §403.3, 1:20 running slope)',
+					severity: 'warning'
+				}
+			: null,
+	({ elevations: e }) =>
+		e.steepest.percent / 100 < MIN_FALL - 1e-12
+			? {
+					id: 'slope-flat',
+					title: 'Too flat to shed water',
+					reason: `The surface falls only ${one(e.steepest.inchesPerFoot, 3)} in/ft; water will pond.`,
+					action: 'Give it at least ⅛ in/ft; ¼ in/ft (2 %) drains surely.',
+					source: 'ACI 302.1R (¼ in/ft); ⅛ in/ft common practice',
+					severity: 'warning'
+				}
+			: null
+];
+
+const weatherRules: Rule[] = [
+	({ weather: w }) =>
+		!w.cold
+			? null
+			: {
+					id: 'cold-weather',
+					title: 'Cold weather',
+					reason: `Air drops to ${one(Math.min(...w.pours.map((p) => p.coldestAir.fahrenheit)))} °F (${one(Math.min(...w.pours.map((p) => p.coldestAir.celsius)))} °C) in the days after a pour, or the mix goes in below 55 °F (13 °C).`,
+					action: 'Keep the slab at or above 55 °F (13 °C) as placed and protect it from freezing with insulated blankets for the first days; never pour on frozen ground; or wait for warmer days.',
+					source: 'ACI 306R, Table 3.1',
+					severity: 'warning'
+				},
+	({ weather: w }) =>
+		!w.hot
+			? null
+			: {
+					id: 'hot-weather',
+					title: 'Hot weather',
+					reason: `The concrete would be placed above about 95 °F (35 °C).`,
+					action: 'Pour early in the morning, use cool water, shade the materials, and have extra hands so it is finished before it stiffens.',
+					source: 'ACI 305R (95 °F from memory)',
+					severity: 'warning'
+				},
+	({ weather: w }) => {
+		if (!w.highEvaporation) return null;
+		const e = Math.max(...w.pours.map((p) => p.evaporation.kgPerSquareMeterHour));
+		return {
+			id: 'evaporation',
+			title: 'Fast drying: plastic shrinkage cracks',
+			reason: `Expected evaporation ${one(e, 2)} kg/m²/h (${one(toLbPerFt2h(e), 3)} lb/ft²/h) reaches the 0.2 lb/ft²/h (1.0 kg/m²/h) level where precautions are needed.`,
+			action: 'Put up wind breaks and shade, dampen the base, fog the air above the slab, and start curing right after finishing.',
+			source: 'ACI 305R; evaporation by Uno, ACI Materials Journal 95-M34 (1998)',
+			severity: 'warning'
+		};
+	}
+];
+
+const crew: Rule[] = [
+	({ m }) =>
+		m.crew.people > 1
+			? null
+			: {
+					id: 'working-alone',
+					title: 'Working alone',
+					reason: 'The plan has one person mixing, lifting and finishing.',
+					action: 'Have a second person on site: for lifting, for help if you are hurt, and to finish before the mix stiffens.',
+					source: 'common practice, no published source',
+					severity: 'warning'
+				},
+	({ m, mixing }) => {
+		const late = mixing.sections.filter((s) => !s.fits);
+		if (!late.length) return null;
+		return {
+			id: 'mixing-time',
+			title: 'The crew cannot place a section before it stiffens',
+			reason: `${late.map((s) => m.sections[s.index].name).join(', ')} needs ${Math.round(Math.max(...late.map((s) => s.totalMinutes)))} min of mixing and placing against ${Math.round(Math.min(...late.map((s) => s.workingMinutes)))} min of working time, with ${late[0].finishMinutes} min kept for finishing.`,
+			action: 'Split the section as suggested in the mixing plan, add people or a drum mixer, or order ready-mix.',
+			source: 'common practice (1½–2 h working time at 70 °F), no published source',
+			severity: 'warning'
+		};
+	}
+];
+
+const build: Rule[] = [
+	({ m }) =>
+		m.thickness >= MIN_THICKNESS_M - 1e-6
+			? null
+			: {
+					id: 'thin-slab',
+					title: 'Thinner than 3½ in',
+					reason: `The slab is ${one(m.thickness / M_PER_IN, 2)} in (${Math.round(m.thickness * 1000)} mm) thick.`,
+					action: 'Make it at least 3½ in (89 mm); 4 in is usual for patios and walks.',
+					source: 'IRC R506.1; ACI 332',
+					severity: 'warning'
+				},
+	({ m }) =>
+		m.base.depth > 0
+			? null
+			: {
+					id: 'no-base',
+					title: 'No base course',
+					reason: 'The plan puts the slab straight on the soil.',
+					action: 'Where soil drains poorly, lay 4 in (100 mm) of compacted clean gravel or crushed stone first.',
+					source: 'IRC R506.2.2; drainage benefit: common practice',
+					severity: 'info'
+				}
+];
+
+const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, unreinforced, fillNearSurface, oilRelease, ...drainage, ...weatherRules, ...crew, ...build];
+
+export function computeCautions(c: CautionContext): Caution[] {
+	return RULES.map((r) => r(c)).filter((x): x is Caution => x !== null);
+}
+

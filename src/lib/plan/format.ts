@@ -1,0 +1,31 @@
+// Display helpers: the engine returns raw numbers in both systems; these turn them into text.
+
+import type { Length, Small, Units, Volume } from './units';
+
+const VULGAR: Record<number, string> = { 1: '⅛', 2: '¼', 3: '⅜', 4: '½', 5: '⅝', 6: '¾', 7: '⅞' };
+
+/** Inches to the nearest eighth, as a tape reads: 1.375 → "1⅜ in". */
+export function formatInches(inches: number): string {
+	const sign = inches < 0 ? '−' : '';
+	const eighths = Math.round(Math.abs(inches) * 8);
+	const whole = Math.floor(eighths / 8);
+	const frac = VULGAR[eighths % 8] ?? '';
+	return `${sign}${whole || !frac ? whole : ''}${frac} in`;
+}
+
+export const formatSmall = (s: Small, u: Units) =>
+	u === 'imperial' ? formatInches(s.inches) : `${Math.round(s.millimeters)} mm`;
+
+export const formatLength = (l: Length, u: Units) =>
+	u === 'imperial' ? `${trim(l.feet, 2)} ft` : `${trim(l.meters, 2)} m`;
+
+export const formatVolume = (v: Volume, u: Units) =>
+	u === 'imperial' ? `${trim(v.cubicYards, 2)} yd³ (${trim(v.cubicFeet, 1)} ft³)` : `${trim(v.cubicMeters, 2)} m³`;
+
+const trim = (x: number, digits: number) => String(Math.round(x * 10 ** digits) / 10 ** digits);
+
+/** JSON text with every number rounded, so API answers read cleanly (4 places keeps 0.1 mm). */
+export function toRoundedJson(value: unknown, digits = 4): string {
+	const k = 10 ** digits;
+	return JSON.stringify(value, (_key, v) => (typeof v === 'number' ? Math.round(v * k) / k : v));
+}

@@ -1,0 +1,254 @@
+// Section outlines: validity, areas, shared edges (cold joints) and the free edges that get forms.
+
+import * as polygonLib from './polygon';
+import type { Box, Pt } from './polygon';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const {
+	bbox,
+	boxesMeet,
+	cross,
+	dist,
+	dot,
+	edgeBoxes,
+	edgeBoxesMeet,
+	sub,
+	interiorPoint,
+	lerp,
+	next,
+	perimeter,
+	pointInPolygon,
+	project,
+	segmentRelation,
+	signedArea
+} = polygonLib;
+
+/** A problem with the input, addressed by its path in the request (e.g. "sections.0.outline"). */
+export interface PlanIssue {
+	path: string;
+	message: string;
+}
+
+export class PlanInputError extends Error {
+	constructor(readonly issues: PlanIssue[]) {
+		super(issues.map((i) => `${i.path || '(root)'}: ${i.message}`).join('; '));
+		this.name = 'PlanInputError';
+	}
+}
+
+/** Length tolerance: far below anything measurable on site, far above float noise. */
+export const tolerance = (outlines: readonly (readonly Pt[])[]) => {
+	let m = 1;
+	for (const o of outlines) for (const p of o) m = Math.max(m, Math.abs(p[0]), Math.abs(p[1]));
+	return m * 1e-9;
+};
+
+/** Why an outline is not a usable simple polygon, or null when it is. */
+export function outlineProblem(poly: readonly Pt[], eps: number): string | null {
+	const n = poly.length;
+	for (let i = 0; i < n; i++) {
+		if (dist(poly[i], next(poly, i)) <= eps)
+			return `vertices ${i} and ${(i + 1) % n} are the same point`;
+	}
+	if (Math.abs(signedArea(poly)) <= eps * perimeter(poly)) return 'the outline has no area';
+	const boxes = edgeBoxes(poly);
+	for (let i = 0; i < n; i++) {
+		// Neighbouring edges share a vertex; they only fail by folding back onto each other.
+		const a = poly[i];
+		const b = next(poly, i);
+		const c = poly[(i + 2) % n];
+		if (Math.abs(cross(a, b, c)) <= eps * dist(a, b) && dot(sub(b, a), sub(c, b)) < 0)
+			return `edges ${i} and ${(i + 1) % n} fold back onto each other`;
+		for (let j = i + 2; j < n; j++) {
+			if ((i === 0 && j === n - 1) || !edgeBoxesMeet(boxes, i, boxes, j, eps)) continue;
+			const rel = segmentRelation(a, b, poly[j], next(poly, j), eps);
+			if (rel !== 'none')
+				return `edges ${i} and ${j} ${rel === 'cross' ? 'cross' : 'touch'}: the outline must not cross or touch itself`;
+		}
+	}
+	return null;
+}
+
+/** What the overlap test needs of an outline, worked out once. */
+interface Probe {
+	poly: readonly Pt[];
+	box: Box;
+	edges: number[];
+	/** Vertices, edge midpoints and one interior point: if any lies inside the other, they overlap. */
+	points: Pt[];
+}
+
+function probe(poly: readonly Pt[], eps: number): Probe {
+	const points: Pt[] = [...poly];
+	for (let i = 0; i < poly.length; i++) points.push(lerp(poly[i], next(poly, i), 0.5));
+	points.push(interiorPoint(poly, eps));
+	return { poly, box: bbox(poly), edges: edgeBoxes(poly), points };
+}
+
+const insideBox = (p: Pt, b: Box) => p[0] > b.minX && p[0] < b.maxX && p[1] > b.minY && p[1] < b.maxY;
+
+function probesOverlap(a: Probe, b: Probe, eps: number): boolean {
+	if (!boxesMeet(a.box, b.box, eps)) return false;
+	const A = a.poly;
+	const B = b.poly;
+	for (let i = 0; i < A.length; i++)
+		for (let j = 0; j < B.length; j++)
+			if (
+				edgeBoxesMeet(a.edges, i, b.edges, j, eps) &&
+				segmentRelation(A[i], next(A, i), B[j], next(B, j), eps) === 'cross'
+			)
+				return true;
+	const hits = (from: Probe, into: Probe) =>
+		from.points.some((p) => insideBox(p, into.box) && pointInPolygon(p, into.poly, eps) === 'inside');
+	return hits(a, b) || hits(b, a);
+}
+
+/** True when the interiors of two valid outlines overlap (touching along edges is fine). */
+export function outlinesOverlap(a: readonly Pt[], b: readonly Pt[], eps: number): boolean {
+	return probesOverlap(probe(a, eps), probe(b, eps), eps);
+}
+
+/** Every problem with the set of outlines, each with the path of the outline it concerns. */
+export function geometryIssues(outlines: readonly (readonly Pt[])[]): PlanIssue[] {
+	const eps = tolerance(outlines);
+	const issues: PlanIssue[] = [];
+	const probes = outlines.map((o, i) => {
+		const problem = outlineProblem(o, eps);
+		if (problem) issues.push({ path: `sections.${i}.outline`, message: `Section ${i + 1}: ${problem}.` });
+		return problem ? null : probe(o, eps);
+	});
+	for (let i = 0; i < outlines.length; i++)
+		for (let j = i + 1; j < outlines.length; j++) {
+			const a = probes[i];
+			const b = probes[j];
+			if (a && b && probesOverlap(a, b, eps))
+				issues.push({
+					path: `sections.${j}.outline`,
+					message: `Section ${j + 1} overlaps section ${i + 1}; sections may only share edges.`
+				});
+		}
+	return issues;
+}
+
+export interface ColdJointSeg {
+	sections: [number, number];
+	edges: [number, number];
+	from: Pt;
+	to: Pt;
+	length: number;
+}
+
+/** Edge ab shared with cd: the overlapping piece as parameters on ab, or null. */
+function sharedPart(a: Pt, b: Pt, c: Pt, d: Pt, eps: number): [number, number] | null {
+	if (segmentRelation(a, b, c, d, eps) !== 'overlap') return null;
+	const p = project(a, b, c);
+	const q = project(a, b, d);
+	return [Math.max(0, Math.min(p, q)), Math.min(1, Math.max(p, q))];
+}
+
+/** Shared edges between sections, found pairwise; each becomes a cold joint. */
+export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number): ColdJointSeg[] {
+	const out: ColdJointSeg[] = [];
+	const boxes = outlines.map(bbox);
+	const edges = outlines.map(edgeBoxes);
+	for (let s = 0; s < outlines.length; s++)
+		for (let r = s + 1; r < outlines.length; r++) {
+			if (!boxesMeet(boxes[s], boxes[r], eps)) continue;
+			const A = outlines[s];
+			const B = outlines[r];
+			for (let i = 0; i < A.length; i++)
+				for (let j = 0; j < B.length; j++) {
+					if (!edgeBoxesMeet(edges[s], i, edges[r], j, eps)) continue;
+					const part = sharedPart(A[i], next(A, i), B[j], next(B, j), eps);
+					if (!part) continue;
+					const from = lerp(A[i], next(A, i), part[0]);
+					const to = lerp(A[i], next(A, i), part[1]);
+					out.push({ sections: [s, r], edges: [i, j], from, to, length: dist(from, to) });
+				}
+		}
+	return out;
+}
+
+/** The pieces of one edge (as parameter intervals) not shared with another section. */
+export function freeIntervals(
+	a: Pt,
+	b: Pt,
+	shared: readonly ColdJointSeg[],
+	eps: number
+): [number, number][] {
+	if (!shared.length) return [[0, 1]];
+	const cuts = shared
+		.map((j): [number, number] => {
+			const p = project(a, b, j.from);
+			const q = project(a, b, j.to);
+			return [Math.min(p, q), Math.max(p, q)];
+		})
+		.sort((x, y) => x[0] - y[0]);
+	const len = dist(a, b);
+	const out: [number, number][] = [];
+	let at = 0;
+	for (const [p, q] of cuts) {
+		if ((p - at) * len > eps) out.push([at, p]);
+		at = Math.max(at, q);
+	}
+	if ((1 - at) * len > eps) out.push([at, 1]);
+	return out;
+}
+
+export interface EdgeInfo {
+	index: number;
+	from: Pt;
+	to: Pt;
+	length: number;
+	/** Pieces of the edge shared with other sections. */
+	shared: ColdJointSeg[];
+	/** Pieces not shared, as [t0, t1] along the edge. */
+	free: [number, number][];
+}
+
+export interface SectionShape {
+	index: number;
+	outline: Pt[];
+	area: number;
+	perimeter: number;
+	/** +1 counter-clockwise, −1 clockwise. */
+	orientation: number;
+	edges: EdgeInfo[];
+}
+
+export interface Layout {
+	sections: SectionShape[];
+	coldJoints: ColdJointSeg[];
+	/** Length of the outer boundary of all sections together (shared edges left out). */
+	outerPerimeter: number;
+	eps: number;
+}
+
+/** Areas, edges and cold joints of valid outlines (metres). */
+export function layoutSections(outlines: readonly (readonly Pt[])[]): Layout {
+	const eps = tolerance(outlines);
+	const coldJoints = findColdJoints(outlines, eps);
+	let outerPerimeter = 0;
+	const sections = outlines.map((outline, s): SectionShape => {
+		const a = signedArea(outline);
+		const edges = outline.map((from, i): EdgeInfo => {
+			const to = next(outline, i);
+			const shared = coldJoints.filter(
+				(j) => (j.sections[0] === s && j.edges[0] === i) || (j.sections[1] === s && j.edges[1] === i)
+			);
+			const free = freeIntervals(from, to, shared, eps);
+			const length = dist(from, to);
+			for (const [p, q] of free) outerPerimeter += (q - p) * length;
+			return { index: i, from, to, length, shared, free };
+		});
+		return {
+			index: s,
+			outline: [...outline],
+			area: Math.abs(a),
+			perimeter: perimeter(outline),
+			orientation: Math.sign(a),
+			edges
+		};
+	});
+	return { sections, coldJoints, outerPerimeter, eps };
+}

@@ -1,0 +1,209 @@
+// The slab plan engine: one described slab in, every number for the job out. Plain TypeScript, so
+// the browser and the server run the same code.
+
+import { bagOption, compareCost, readyMix, type BagOption, type Comparison, type ReadyMixResult } from './bags';
+import { computeCautions, type Caution } from './cautions';
+import { computeElevations, slopePlane, type ElevationResult } from './elevations';
+import { layoutSections, PlanInputError, type Layout } from './geometry';
+import { computeJoints, type JointsResult, type SectionGrid } from './joints';
+import { computeForms, type FormsResult } from './lumber';
+import { computeMaterials, type MaterialsResult } from './materials';
+import { computeMixing, type MixingResult } from './mixing';
+import { airTempOn, toModel, type Model } from './model';
+import type { Pt } from './polygon';
+import {
+	ageSeries,
+	buildSchedule,
+	milestones,
+	pourOffsets,
+	strengthSeries,
+	type Milestone,
+	type ScheduleResult
+} from './schedule';
+import { parsePlanInput, type EdgeRef, type ParsedPlan, type PlanInput } from './schema';
+import type { StrengthDay } from './strength';
+import * as unitsLib from './units';
+import type { Area, Length, Units } from './units';
+import { computeVolume, thickenedEdges, type VolumeResult } from './volume';
+import { assessWeather, type WeatherResult } from './weather';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { area, length, mToPlan } = unitsLib;
+
+export interface SectionArea extends Area {
+	index: number;
+	name: string;
+	perimeter: Length;
+}
+
+export interface GeometryResult {
+	sections: {
+		index: number;
+		name: string;
+		/** Outline in the plan's units, as given. */
+		outline: Pt[];
+		edges: { index: number; length: Length; kind: 'outer' | 'house' | 'coldJoint' | 'partlyShared'; thickened: boolean }[];
+	}[];
+	coldJoints: { sections: [number, number]; edges: [number, number]; from: Pt; to: Pt; length: Length }[];
+	highEdge: EdgeRef;
+	houseEdges: EdgeRef[];
+}
+
+export interface PlanResult {
+	units: Units;
+	name?: string;
+	area: Area & { perimeter: Length; sections: SectionArea[] };
+	geometry: GeometryResult;
+	volume: VolumeResult;
+	forms: FormsResult;
+	elevations: ElevationResult;
+	bags: BagOption[];
+	readyMix: ReadyMixResult;
+	cost: Comparison;
+	mixing: MixingResult;
+	joints: JointsResult;
+	strength: StrengthDay[];
+	milestones: Milestone[];
+	schedule: ScheduleResult;
+	weather: WeatherResult;
+	materials: MaterialsResult;
+	cautions: Caution[];
+}
+
+/** Days of strength timeline returned. */
+const TIMELINE_DAYS = 28;
+
+function geometryResult(m: Model, layout: Layout, thick: boolean[][]): GeometryResult {
+	const P = (p: Pt): Pt => [mToPlan(p[0], m.units), mToPlan(p[1], m.units)];
+	const isHouse = (s: number, e: number) => m.houseEdges.some((h) => h.section === s && h.edge === e);
+	return {
+		sections: layout.sections.map((s) => ({
+			index: s.index,
+			name: m.sections[s.index].name,
+			outline: s.outline.map(P),
+			edges: s.edges.map((e) => ({
+				index: e.index,
+				length: length(e.length),
+				kind: isHouse(s.index, e.index)
+					? 'house'
+					: !e.shared.length
+						? 'outer'
+						: e.free.length
+							? 'partlyShared'
+							: 'coldJoint',
+				thickened: thick[s.index][e.index]
+			}))
+		})),
+		coldJoints: layout.coldJoints.map((j) => ({ ...j, from: P(j.from), to: P(j.to), length: length(j.length) })),
+		highEdge: m.highEdge,
+		houseEdges: m.houseEdges
+	};
+}
+
+/** Widest span a screed must bridge: the shorter side of the largest section, m. */
+const screedSpan = (grids: SectionGrid[]) =>
+	Math.max(...grids.map((g) => Math.min(g.us[g.us.length - 1] - g.us[0], g.ws[g.ws.length - 1] - g.ws[0])));
+
+/** Compute the plan from input already parsed by planInputSchema. */
+export function computeParsedPlan(p: ParsedPlan): PlanResult {
+	const m = toModel(p);
+	const layout = layoutSections(m.sections.map((s) => s.outline));
+	const thick = thickenedEdges(m, layout);
+	const volume = computeVolume(m, layout, thick);
+	const { forms, stakes } = computeForms(m, layout);
+	const plane = slopePlane(m, layout);
+	const elevations = computeElevations(m, layout, plane, stakes);
+	const tempOn = (d: number) => airTempOn(m, d);
+	const offsets = pourOffsets(m, layout.coldJoints, tempOn);
+	const bags = m.bags.offered.map((b) => bagOption(b, volume.order.cubicMeters, m));
+	const mix = readyMix(volume.order.cubicMeters, m);
+	const { joints, grids } = computeJoints(m, layout, plane.frame);
+	const orders = volume.sections.map((s) => s.order.cubicMeters);
+	const mixing = computeMixing(m, orders, grids, plane.frame, offsets, tempOn, layout.eps);
+	const last = Math.max(...offsets);
+	const stones = milestones(m, ageSeries(last, tempOn), last);
+	const schedule = buildSchedule(m, offsets, mixing.sections.map((s) => s.bags), stones);
+	const weather = assessWeather(
+		schedule.pourDays.map((d, i) => ({ ...d, offset: offsets[i] })),
+		tempOn,
+		{ humidity: m.humidity, windKmh: m.windKmh, concreteTemp: m.concreteTemp }
+	);
+	const slabArea = layout.sections.reduce((a, s) => a + s.area, 0);
+	const materials = computeMaterials(m, {
+		volume,
+		forms,
+		planned: bags.find((b) => b.planned) ?? bags[0],
+		slabAreaM2: slabArea,
+		screedSpanM: screedSpan(grids),
+		hasJoints: joints.totalLength.meters > 0
+	});
+	return {
+		units: m.units,
+		name: m.name,
+		area: {
+			...area(slabArea),
+			perimeter: length(layout.outerPerimeter),
+			sections: layout.sections.map((s) => ({
+				index: s.index,
+				name: m.sections[s.index].name,
+				...area(s.area),
+				perimeter: length(s.perimeter)
+			}))
+		},
+		geometry: geometryResult(m, layout, thick),
+		volume,
+		forms,
+		elevations,
+		bags,
+		readyMix: mix,
+		cost: compareCost(bags, mix),
+		mixing,
+		joints,
+		strength: strengthSeries(m, last, tempOn, TIMELINE_DAYS),
+		milestones: stones,
+		schedule,
+		weather,
+		materials,
+		cautions: computeCautions({ m, volume, elevations, mixing, joints, weather })
+	};
+}
+
+/**
+ * Validate and compute. Throws PlanInputError (with path/message issues) for bad input, including
+ * invalid geometry; use parsePlanInput first when you want the errors without a throw.
+ */
+export function computePlan(input: unknown | PlanInput): PlanResult {
+	const parsed = parsePlanInput(input);
+	if (!parsed.ok) throw new PlanInputError(parsed.errors);
+	return computeParsedPlan(parsed.plan);
+}
+
+export type EstimateOutcome = { ok: true; plan: PlanResult } | { ok: false; errors: PlanInputError['issues'] };
+
+/** computePlan without throwing for bad input: what the API and form actions need. */
+export function estimate(input: unknown): EstimateOutcome {
+	const parsed = parsePlanInput(input);
+	if (!parsed.ok) return { ok: false, errors: parsed.errors };
+	try {
+		return { ok: true, plan: computeParsedPlan(parsed.plan) };
+	} catch (e) {
+		if (e instanceof PlanInputError) return { ok: false, errors: e.issues };
+		throw e;
+	}
+}
+
+export { PlanInputError, type PlanIssue } from './geometry';
+export { parsePlanInput, planInputSchema, planInputJsonSchema } from './schema';
+export type { ParsedPlan, PlanInput, EdgeRef, ParseResult } from './schema';
+export type { Area, Length, Mass, Small, Temperature, Units, Volume } from './units';
+export type { BagOption, Comparison, ReadyMixResult } from './bags';
+export type { Caution, Severity } from './cautions';
+export type { ElevationResult, SlopeRate } from './elevations';
+export type { JointsResult, JointLine, SectionJoints } from './joints';
+export type { FormsResult } from './lumber';
+export type { MaterialsResult, MaterialItem, Tool } from './materials';
+export type { MixingResult, MixingSection, Split } from './mixing';
+export type { Milestone, ScheduleResult, ScheduleDay } from './schedule';
+export type { StrengthDay } from './strength';
+export type { VolumeResult, SectionVolume } from './volume';
+export type { WeatherResult, PourWeather } from './weather';

@@ -1,0 +1,199 @@
+// Control (contraction) joints per ACI 302.1R, laid out on a grid in the high-edge frame so the
+// layout turns with the slab, and through re-entrant corners where cracks start.
+
+import type { Layout } from './geometry';
+import type { Model } from './model';
+import * as polygonLib from './polygon';
+import type { Frame, Pt } from './polygon';
+import * as unitsLib from './units';
+import type { Length, Small } from './units';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { clipVertical, fromFrame, isReflex, pointInPolygon, signedArea, toFrame } = polygonLib;
+const { M_PER_FT, M_PER_IN, countUp, length, mToPlan, small } = unitsLib;
+
+/** ACI 302.1R, unreinforced slabs on ground. */
+export const ACI_302 = {
+	minFactor: 24,
+	maxFactor: 36,
+	maxSpacing: 18 * M_PER_FT,
+	maxAspect: 1.5,
+	depthFraction: 0.25,
+	minDepth: 1 * M_PER_IN
+} as const;
+
+export function jointSpacing(thickness: number): { min: number; max: number } {
+	return {
+		min: ACI_302.minFactor * thickness,
+		max: Math.min(ACI_302.maxFactor * thickness, ACI_302.maxSpacing)
+	};
+}
+
+export const jointDepth = (thickness: number) =>
+	Math.max(ACI_302.depthFraction * thickness, ACI_302.minDepth);
+
+/** Interval ends from lo to hi through the given cut values, dropping cuts that would leave slivers. */
+export function breakpoints(cuts: number[], lo: number, hi: number, minGap: number): number[] {
+	const out = [lo];
+	for (const c of [...cuts].sort((a, b) => a - b))
+		if (c - out[out.length - 1] >= minGap && hi - c >= minGap) out.push(c);
+	out.push(hi);
+	return out;
+}
+
+/** Grid coordinates: each interval between breakpoints split into its count of equal parts. */
+export function gridLines(bps: number[], counts: number[]): number[] {
+	const out = [bps[0]];
+	for (let i = 0; i + 1 < bps.length; i++)
+		for (let k = 1; k <= counts[i]; k++) out.push(bps[i] + ((bps[i + 1] - bps[i]) * k) / counts[i]);
+	return out;
+}
+
+interface Grid {
+	us: number[];
+	ws: number[];
+	panels: number;
+	maxAspect: number;
+}
+
+/** Which breakpoint interval a grid cell [a, b] falls in. */
+const parentOf = (bps: number[], mid: number) => {
+	let i = 0;
+	while (i + 2 < bps.length && mid > bps[i + 1]) i++;
+	return i;
+};
+
+/**
+ * A re-entrant corner worth a joint: the outline turns back by more than 30°. Gentle bends of a
+ * curved edge are left alone (an engine choice, not a trade rule).
+ */
+function isReentrant(poly: readonly Pt[], i: number, orient: number): boolean {
+	const n = poly.length;
+	if (!isReflex(poly, i, orient)) return false;
+	const a = poly[(i + n - 1) % n];
+	const b = poly[i];
+	const c = poly[(i + 1) % n];
+	const ux = b[0] - a[0], uy = b[1] - a[1], vx = c[0] - b[0], vy = c[1] - b[1];
+	const cos = (ux * vx + uy * vy) / Math.sqrt((ux * ux + uy * uy) * (vx * vx + vy * vy));
+	return cos < Math.cos(Math.PI / 6);
+}
+
+/** Panels no longer than max and no more elongated than ACI's 1.5, refining the longer side. */
+export function panelGrid(poly: readonly Pt[], max: number, min: number, eps: number): Grid {
+	const us = poly.map((p) => p[0]);
+	const ws = poly.map((p) => p[1]);
+	const orient = Math.sign(signedArea(poly));
+	const reflex = poly.filter((_, i) => isReentrant(poly, i, orient));
+	const bu = breakpoints(reflex.map((p) => p[0]), Math.min(...us), Math.max(...us), min / 3);
+	const bw = breakpoints(reflex.map((p) => p[1]), Math.min(...ws), Math.max(...ws), min / 3);
+	const cu = bu.slice(1).map((b, i) => Math.max(1, countUp((b - bu[i]) / max)));
+	const cw = bw.slice(1).map((b, i) => Math.max(1, countUp((b - bw[i]) / max)));
+	let grid: Grid = { us: [], ws: [], panels: 0, maxAspect: 1 };
+	for (let pass = 0; pass < 30; pass++) {
+		const gu = gridLines(bu, cu);
+		const gw = gridLines(bw, cw);
+		grid = { us: gu, ws: gw, panels: 0, maxAspect: 1 };
+		const bumpU = new Set<number>();
+		const bumpW = new Set<number>();
+		for (let i = 0; i + 1 < gu.length; i++)
+			for (let j = 0; j + 1 < gw.length; j++) {
+				const a = gu[i + 1] - gu[i];
+				const b = gw[j + 1] - gw[j];
+				const mid: Pt = [(gu[i] + gu[i + 1]) / 2, (gw[j] + gw[j + 1]) / 2];
+				if (pointInPolygon(mid, poly, eps) !== 'inside') continue;
+				grid.panels++;
+				const aspect = Math.max(a, b) / Math.min(a, b);
+				grid.maxAspect = Math.max(grid.maxAspect, aspect);
+				if (aspect <= ACI_302.maxAspect + 1e-9) continue;
+				if (a > b) bumpU.add(parentOf(bu, mid[0]));
+				else bumpW.add(parentOf(bw, mid[1]));
+			}
+		if (!bumpU.size && !bumpW.size) break;
+		if ((gu.length - 1) * (gw.length - 1) > 4000) break; // a huge slab: keep the first answer
+		bumpU.forEach((i) => cu[i]++);
+		bumpW.forEach((i) => cw[i]++);
+	}
+	return grid;
+}
+
+export interface JointLine {
+	from: Pt;
+	to: Pt;
+	length: Length;
+	/** 'along': parallel to the high edge; 'across': at right angles to it. */
+	direction: 'along' | 'across';
+}
+
+export interface SectionJoints {
+	index: number;
+	panels: number;
+	maxAspect: number;
+	/** Largest panel size along and across the high edge. */
+	panelSize: { along: Length; across: Length };
+	lines: JointLine[];
+}
+
+export interface JointsResult {
+	maxSpacing: Length;
+	minSpacing: Length;
+	depth: Small;
+	method: 'tool' | 'saw';
+	totalLength: Length;
+	sections: SectionJoints[];
+}
+
+/** Internal grid per section in frame coordinates, for the mixing split. */
+export interface SectionGrid {
+	poly: Pt[];
+	us: number[];
+	ws: number[];
+}
+
+const maxGap = (v: number[]) => v.slice(1).reduce((m, x, i) => Math.max(m, x - v[i]), 0);
+
+export function computeJoints(
+	m: Model,
+	layout: Layout,
+	frame: Frame
+): { joints: JointsResult; grids: SectionGrid[] } {
+	const { min, max } = jointSpacing(m.thickness);
+	const P = (p: Pt): Pt => [mToPlan(p[0], m.units), mToPlan(p[1], m.units)];
+	let total = 0;
+	const grids: SectionGrid[] = [];
+	const sections = layout.sections.map((s): SectionJoints => {
+		const poly = s.outline.map((p) => toFrame(frame, p));
+		const g = panelGrid(poly, max, min, layout.eps);
+		grids.push({ poly, us: g.us, ws: g.ws });
+		const lines: JointLine[] = [];
+		const push = (a: Pt, b: Pt, direction: JointLine['direction']) => {
+			const from = fromFrame(frame, a);
+			const to = fromFrame(frame, b);
+			const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
+			total += len;
+			lines.push({ from: P(from), to: P(to), length: length(len), direction });
+		};
+		for (const u of g.us.slice(1, -1))
+			for (const [w0, w1] of clipVertical(poly, u, layout.eps)) push([u, w0], [u, w1], 'across');
+		const swapped = poly.map((p): Pt => [p[1], p[0]]);
+		for (const w of g.ws.slice(1, -1))
+			for (const [u0, u1] of clipVertical(swapped, w, layout.eps)) push([u0, w], [u1, w], 'along');
+		return {
+			index: s.index,
+			panels: g.panels,
+			maxAspect: g.maxAspect,
+			panelSize: { along: length(maxGap(g.us)), across: length(maxGap(g.ws)) },
+			lines
+		};
+	});
+	return {
+		grids,
+		joints: {
+			maxSpacing: length(max),
+			minSpacing: length(min),
+			depth: small(jointDepth(m.thickness)),
+			method: m.jointMethod,
+			totalLength: length(total),
+			sections
+		}
+	};
+}

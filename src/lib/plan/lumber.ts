@@ -1,0 +1,201 @@
+// Form boards, cut list, stakes and screws.
+
+import type { Layout } from './geometry';
+import type { Model } from './model';
+import * as polygonLib from './polygon';
+import type { Pt } from './polygon';
+import * as unitsLib from './units';
+import type { Length, Small } from './units';
+import * as utilLib from './util';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { dist, lerp } = polygonLib;
+const { countUp, length, mToPlan, small } = unitsLib;
+const { times } = utilLib;
+
+/** Saw kerf lost per cut, 3 mm (⅛ in); from memory. */
+export const KERF_M = 0.003;
+/** Screws per board fixed to a stake; from memory. */
+export const SCREWS_PER_FIXING = 2;
+/** Board and slab within this count as flush, 3 mm (⅛ in); from memory. */
+const FLUSH_M = 0.003;
+
+export type RunKind = 'outer' | 'house' | 'bulkhead';
+
+export interface Run {
+	id: string;
+	kind: RunKind;
+	/** The section whose pour this form holds. */
+	section: number;
+	edge: number;
+	from: Pt;
+	to: Pt;
+	length: number;
+	formed: boolean;
+}
+
+export interface StakePoint {
+	id: string;
+	run: string;
+	at: Pt;
+	kind: 'corner' | 'splice' | 'line';
+}
+
+/** Outer edges, house edges and the bulkheads set at each cold joint for the earlier pour. */
+export function formRuns(m: Model, layout: Layout): Run[] {
+	const runs: Run[] = [];
+	const isHouse = (s: number, e: number) => m.houseEdges.some((h) => h.section === s && h.edge === e);
+	const add = (kind: RunKind, section: number, edge: number, from: Pt, to: Pt, formed: boolean) =>
+		runs.push({ id: `R${runs.length + 1}`, kind, section, edge, from, to, length: dist(from, to), formed });
+	for (const sec of layout.sections)
+		for (const e of sec.edges) {
+			const kind: RunKind = isHouse(sec.index, e.index) ? 'house' : 'outer';
+			const formed = kind === 'outer' || m.houseEdgeFormed;
+			for (const [t0, t1] of e.free)
+				add(kind, sec.index, e.index, lerp(e.from, e.to, t0), lerp(e.from, e.to, t1), formed);
+		}
+	for (const j of layout.coldJoints) add('bulkhead', j.sections[0], j.edges[0], j.from, j.to, true);
+	return runs;
+}
+
+/** Board length a run needs: one board thickness extra so boards lap at the corners. */
+const boardRunLength = (r: Run, m: Model) => r.length + (r.kind === 'bulkhead' ? 0 : m.forms.boardThickness);
+
+/** Equal pieces no longer than the longest stock board. */
+export function splitRun(len: number, maxStock: number): number[] {
+	const n = Math.max(1, countUp(len / maxStock));
+	return times(n, () => len / n);
+}
+
+export interface Board {
+	stock: number;
+	cuts: { run: string; length: number }[];
+	left: number;
+}
+
+/** First-fit decreasing into stock lengths: reuse offcuts, else open the shortest board that fits. */
+export function cutBoards(pieces: { run: string; length: number }[], stock: readonly number[], kerf = KERF_M): Board[] {
+	const boards: Board[] = [];
+	const sorted = [...stock].sort((a, b) => a - b);
+	for (const p of [...pieces].sort((a, b) => b.length - a.length)) {
+		let best: Board | undefined;
+		for (const b of boards) if (b.left >= p.length - 1e-9 && (!best || b.left < best.left)) best = b;
+		if (!best) {
+			const len = sorted.find((s) => s >= p.length - 1e-9) ?? sorted[sorted.length - 1];
+			best = { stock: len, cuts: [], left: len };
+			boards.push(best);
+		}
+		best.cuts.push(p);
+		best.left = Math.max(0, best.left - p.length - kerf);
+	}
+	return boards;
+}
+
+/** Stakes along one run: both ends, every splice, and enough between that no gap exceeds spacing. */
+export function runStakes(r: Run, splices: number[], spacing: number): { at: Pt; kind: StakePoint['kind'] }[] {
+	const marks = [0, ...splices.map((s) => Math.min(s, r.length) / r.length), 1];
+	const out: { at: Pt; kind: StakePoint['kind'] }[] = [{ at: r.from, kind: 'corner' }];
+	for (let i = 1; i < marks.length; i++) {
+		const gaps = Math.max(1, countUp(((marks[i] - marks[i - 1]) * r.length) / spacing));
+		for (let k = 1; k < gaps; k++)
+			out.push({ at: lerp(r.from, r.to, marks[i - 1] + ((marks[i] - marks[i - 1]) * k) / gaps), kind: 'line' });
+		out.push({ at: lerp(r.from, r.to, marks[i]), kind: i === marks.length - 1 ? 'corner' : 'splice' });
+	}
+	return out;
+}
+
+export interface FormsResult {
+	lumber: Model['forms']['lumber'];
+	boardDepth: Small;
+	thickness: Small;
+	fit: 'flush' | 'shallow' | 'deep';
+	difference: Small;
+	note: string;
+	runs: { id: string; kind: RunKind; section: number; edge: number; formed: boolean; length: Length; from: Pt; to: Pt }[];
+	formLength: Length;
+	buy: { stock: Length; count: number }[];
+	cutList: { stock: Length; cuts: { run: string; length: Length }[]; offcut: Length }[];
+	stakes: { count: number; length: Small; spacing: Length };
+	screws: number;
+	isolationStrip: Length;
+}
+
+export function formFit(depth: number, thickness: number): Pick<FormsResult, 'fit' | 'difference' | 'note'> {
+	const d = depth - thickness;
+	const difference = small(Math.abs(d));
+	if (Math.abs(d) <= FLUSH_M)
+		return { fit: 'flush', difference, note: 'The board depth matches the slab: set its top at finished height.' };
+	if (d < 0)
+		return {
+			fit: 'shallow',
+			difference,
+			note: 'The board is shallower than the slab: set its top at finished height and dig the ground inside it down to full depth (a shallow trench under the board); bank soil outside so concrete cannot run out beneath.'
+		};
+	return {
+		fit: 'deep',
+		difference,
+		note: 'The board is deeper than the slab: set its top at finished height and let the bottom sit below grade, or fill the extra depth with base inside the forms.'
+	};
+}
+
+export function computeForms(m: Model, layout: Layout): { forms: FormsResult; stakes: StakePoint[] } {
+	const runs = formRuns(m, layout);
+	const maxStock = m.forms.stockLengths[m.forms.stockLengths.length - 1];
+	const pieces: { run: string; length: number }[] = [];
+	const stakes: StakePoint[] = [];
+	let fixings = 0;
+	const seen = new Set<number>(); // a corner shared by two runs gets one stake
+	const key = (p: Pt) => Math.round(p[0] * 1e4) * 1e8 + Math.round(p[1] * 1e4); // 0.1 mm grid
+	let formLength = 0;
+	for (const r of runs) {
+		if (!r.formed) continue;
+		formLength += r.length;
+		const parts = splitRun(boardRunLength(r, m), maxStock);
+		const splices: number[] = [];
+		for (let i = 0; i < parts.length; i++) {
+			pieces.push({ run: r.id, length: parts[i] });
+			if (i) splices.push(parts[0] * i);
+		}
+		for (const s of runStakes(r, splices, m.forms.stakeSpacing)) {
+			fixings += s.kind === 'splice' ? 2 : 1;
+			const k = key(s.at);
+			if (seen.has(k)) continue;
+			seen.add(k);
+			stakes.push({ id: `S${stakes.length + 1}`, run: r.id, at: s.at, kind: s.kind });
+		}
+	}
+	const boards = cutBoards(pieces, m.forms.stockLengths);
+	const u = m.units;
+	const P = (p: Pt): Pt => [mToPlan(p[0], u), mToPlan(p[1], u)];
+	return {
+		stakes,
+		forms: {
+			lumber: m.forms.lumber,
+			boardDepth: small(m.forms.depth),
+			thickness: small(m.thickness),
+			...formFit(m.forms.depth, m.thickness),
+			runs: runs.map((r) => ({
+				id: r.id,
+				kind: r.kind,
+				section: r.section,
+				edge: r.edge,
+				formed: r.formed,
+				length: length(r.length),
+				from: P(r.from),
+				to: P(r.to)
+			})),
+			formLength: length(formLength),
+			buy: m.forms.stockLengths
+				.map((s) => ({ stock: length(s), count: boards.filter((b) => b.stock === s).length }))
+				.filter((b) => b.count > 0),
+			cutList: boards.map((b) => ({
+				stock: length(b.stock),
+				cuts: b.cuts.map((c) => ({ run: c.run, length: length(c.length) })),
+				offcut: length(b.left)
+			})),
+			stakes: { count: stakes.length, length: small(m.forms.stakeLength), spacing: length(m.forms.stakeSpacing) },
+			screws: fixings * SCREWS_PER_FIXING,
+			isolationStrip: length(runs.filter((r) => !r.formed).reduce((a, r) => a + r.length, 0))
+		}
+	};
+}

@@ -1,0 +1,119 @@
+// Properties that must hold for any slab: volume scales with thickness and area, moving or turning
+// the outline changes nothing, and splitting a rectangle into two pours keeps the total.
+
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { computePlan, type PlanInput, type PlanResult } from './index';
+import { ELL, rect } from './test-plans';
+
+const RUNS = { numRuns: 40 };
+const size = fc.double({ min: 4, max: 40, noNaN: true });
+const plan = (outline: [number, number][], over: Partial<PlanInput> = {}): PlanInput =>
+	({ units: 'imperial', sections: [{ outline }], ...over }) as PlanInput;
+const close = (a: number, b: number, rel = 1e-9) => expect(Math.abs(a - b)).toBeLessThanOrEqual(rel * Math.max(1, Math.abs(a)));
+
+describe('volume is linear in thickness and area', () => {
+	it('doubles with the thickness', () => {
+		fc.assert(
+			fc.property(size, size, fc.double({ min: 3, max: 6, noNaN: true }), (w, h, t) => {
+				const one = computePlan(plan(rect(0, 0, w, h), { thickness: t }));
+				const two = computePlan(plan(rect(0, 0, w, h), { thickness: 2 * t }));
+				close(two.volume.net.cubicMeters, 2 * one.volume.net.cubicMeters);
+			}),
+			RUNS
+		);
+	});
+
+	it('scales with the area', () => {
+		fc.assert(
+			fc.property(size, size, fc.double({ min: 0.5, max: 2, noNaN: true }), (w, h, k) => {
+				const one = computePlan(plan(rect(0, 0, w, h)));
+				const big = computePlan(plan(rect(0, 0, k * w, k * h)));
+				close(big.area.squareMeters, k * k * one.area.squareMeters);
+				close(big.volume.net.cubicMeters, k * k * one.volume.net.cubicMeters);
+			}),
+			RUNS
+		);
+	});
+});
+
+/** The numbers a person would act on, to compare two plans of the same slab. */
+function quantities(r: PlanResult) {
+	return {
+		area: r.area.squareMeters,
+		perimeter: r.area.perimeter.meters,
+		order: r.volume.order.cubicMeters,
+		trench: r.volume.thickenedEdges.cubicMeters,
+		bags: r.bags.map((b) => b.count),
+		readyMix: r.readyMix.order,
+		stakes: r.forms.stakes.count,
+		screws: r.forms.screws,
+		boards: r.forms.buy.map((b) => [b.stock.meters, b.count]),
+		formLength: r.forms.formLength.meters,
+		panels: r.joints.sections.map((s) => s.panels),
+		joints: r.joints.totalLength.meters,
+		elevations: r.elevations.vertices.map((v) => v.elevation.millimeters),
+		levelLine: r.elevations.stakes.map((s) => s.belowLevelLine.millimeters).sort((a, b) => a - b),
+		minutes: r.mixing.sections.map((s) => s.totalMinutes),
+		cautions: r.cautions.map((c) => c.id)
+	};
+}
+
+function expectSame(a: ReturnType<typeof quantities>, b: ReturnType<typeof quantities>) {
+	for (const key of Object.keys(a) as (keyof typeof a)[]) {
+		const [x, y] = [JSON.stringify(a[key]), JSON.stringify(b[key])];
+		if (x === y) continue;
+		const flat = (v: unknown): unknown[] => (Array.isArray(v) ? v.flatMap(flat) : [v]);
+		const [fx, fy] = [flat(a[key]), flat(b[key])];
+		expect(fy.length, key).toBe(fx.length);
+		fx.forEach((v, i) => (typeof v === 'number' ? close(fy[i] as number, v, 1e-7) : expect(fy[i], key).toBe(v)));
+	}
+}
+
+describe('moving or turning the outline changes no quantity', () => {
+	const shapes = fc.oneof(
+		fc.tuple(size, size).map(([w, h]) => rect(0, 0, w, h)),
+		fc.double({ min: 0.5, max: 1.5, noNaN: true }).map((k) => ELL.map(([x, y]): [number, number] => [x * k, y * k]))
+	);
+	const move = fc.record({
+		angle: fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }),
+		dx: fc.double({ min: -200, max: 200, noNaN: true }),
+		dy: fc.double({ min: -200, max: 200, noNaN: true })
+	});
+
+	it('holds for rectangles and Ls, with thickened edges and a cross fall', () => {
+		fc.assert(
+			fc.property(shapes, move, (outline, { angle, dx, dy }) => {
+				const [c, s] = [Math.cos(angle), Math.sin(angle)];
+				const moved = outline.map(([x, y]): [number, number] => [c * x - s * y + dx, s * x + c * y + dy]);
+				const over: Partial<PlanInput> = {
+					slope: { fall: { value: 2, unit: 'percent' }, crossFall: { value: 0.5, unit: 'percent' } },
+					thickenedEdge: { edges: 'free' }
+				};
+				expectSame(quantities(computePlan(plan(outline, over))), quantities(computePlan(plan(moved, over))));
+			}),
+			RUNS
+		);
+	});
+});
+
+describe('splitting a rectangle into two sections', () => {
+	it('keeps the area, outer perimeter and volume', () => {
+		fc.assert(
+			fc.property(size, size, fc.double({ min: 0.2, max: 0.8, noNaN: true }), (w, h, share) => {
+				const x = w * share;
+				const whole = computePlan(plan(rect(0, 0, w, h)));
+				const split = computePlan({
+					units: 'imperial',
+					sections: [{ outline: rect(0, 0, x, h) }, { outline: rect(x, 0, w - x, h) }]
+				});
+				close(split.area.squareMeters, whole.area.squareMeters);
+				close(split.area.perimeter.meters, whole.area.perimeter.meters);
+				close(split.volume.net.cubicMeters, whole.volume.net.cubicMeters);
+				close(split.volume.order.cubicMeters, whole.volume.order.cubicMeters);
+				expect(split.geometry.coldJoints).toHaveLength(1);
+			}),
+			RUNS
+		);
+	});
+});

@@ -1,0 +1,395 @@
+// The one input schema, shared by the wizard's forms, the public API and the engine. Lengths are in
+// the plan's units: site lengths in ft or m, small dimensions in in or mm, °F or °C, lb or kg.
+
+import { z } from 'zod';
+import { COMMON, DEFAULTS } from './defaults';
+import { geometryIssues, type PlanIssue } from './geometry';
+import { perimeter } from './polygon';
+import type { Units } from './units';
+
+export const LUMBER_SIZES = ['2x4', '2x6', '2x8', '2x10', '2x12'] as const;
+export const RATE_UNITS = ['percent', 'inPerFt', 'mmPerM', 'totalDrop'] as const;
+export const REINFORCEMENT = ['none', 'fiber', 'mesh', 'rebar'] as const;
+
+/** Largest ratio each rate unit may express (25 % fall), so typos are caught. */
+const RATE_MAX: Record<(typeof RATE_UNITS)[number], number> = {
+	percent: 25,
+	inPerFt: 3,
+	mmPerM: 250,
+	totalDrop: Infinity
+};
+
+const MAX_SECTIONS = 12;
+
+function deepFreeze<T>(v: T): T {
+	if (v && typeof v === 'object') {
+		for (const x of Object.values(v)) deepFreeze(x);
+		Object.freeze(v);
+	}
+	return v;
+}
+
+/**
+ * An optional object whose absence means "all its own defaults". The default is worked out once
+ * and frozen; zod hands it back without parsing, which keeps a parse cheap.
+ */
+function withDefaults<T extends z.ZodObject>(schema: T) {
+	return schema.default(deepFreeze(schema.parse({})) as z.util.NoUndefined<z.output<T>>);
+}
+const MAX_VERTICES = 200;
+
+function planSchemaFor<U extends Units>(units: U) {
+	const d = DEFAULTS[units];
+	const imp = units === 'imperial';
+	const [L, S, T, M, V, PV] = imp
+		? ['ft', 'in', '°F', 'lb', 'yd³', 'ft³']
+		: ['m', 'mm', '°C', 'kg', 'm³', 'm³'];
+	// Bounds are checked in crossChecks: per-number zod checks cost more than the whole engine.
+	const coord = z.number().meta({ minimum: -d.maxCoordinate, maximum: d.maxCoordinate });
+	const smallDim = z.number().min(0).max(d.maxSmall);
+	const price = z.number().min(0).max(1e6);
+	const temp = imp ? z.number().min(-40).max(130) : z.number().min(-40).max(55);
+
+	const edgeRef = z.strictObject({
+		section: z.int().min(0).max(MAX_SECTIONS - 1).default(0).describe('Index into sections.'),
+		edge: z
+			.int()
+			.min(0)
+			.max(MAX_VERTICES - 1)
+			.describe('Edge i runs from vertex i to vertex i + 1; the last edge closes to vertex 0.')
+	});
+
+	const rate = (signed: boolean) =>
+		z
+			.strictObject({
+				value: z.number().min(signed ? -d.maxSmall : 0).max(d.maxSmall),
+				unit: z
+					.enum(RATE_UNITS)
+					.describe(`percent, in per ft, mm per m, or a totalDrop in ${S} across the slab.`)
+			})
+			.superRefine(({ value, unit }, ctx) => {
+				if (Math.abs(value) > RATE_MAX[unit])
+					ctx.addIssue({
+						code: 'custom',
+						path: ['value'],
+						message: `At most ${RATE_MAX[unit]} ${unit} (a 25 % fall).`
+					});
+			});
+
+	const section = z.strictObject({
+		name: z.string().trim().max(60).optional(),
+		outline: z
+			.array(z.tuple([coord, coord]))
+			.min(3)
+			.max(MAX_VERTICES)
+			.describe(`Vertices [x, y] in ${L}, in order around the section (either direction).`)
+	});
+
+	return z.strictObject({
+		units: z.literal(units),
+		name: z.string().trim().max(100).optional(),
+		sections: z
+			.array(section)
+			.min(1)
+			.max(MAX_SECTIONS)
+			.describe('Pour sections in pour order; sections sharing an edge meet at a cold joint.'),
+		houseEdge: edgeRef
+			.nullable()
+			.default({ section: 0, edge: 0 })
+			.describe('The edge along the house wall; null for a freestanding slab.'),
+		otherHouseEdges: z
+			.array(edgeRef)
+			.max(8)
+			.default([])
+			.describe('More edges along the house, e.g. both sides of a notch around a house corner.'),
+		gapToHouse: smallDim
+			.default(d.gapToHouse)
+			.describe(`Space between slab and wall, ${S} (from memory: room for an isolation strip).`),
+		houseEdgeFormed: z
+			.boolean()
+			.default(false)
+			.describe('true: a form board along the house; false: poured against an isolation strip.'),
+		reference: withDefaults(
+			z.strictObject({
+				label: z.string().trim().max(80).default('reference mark'),
+				below: z
+					.number()
+					.min(-d.maxSmall)
+					.max(d.maxSmall)
+					.default(0)
+					.describe(`How far the slab's high point sits below the reference, ${S}.`)
+			})
+		),
+		slope: withDefaults(
+			z.strictObject({
+				fall: rate(false)
+					.default({ value: COMMON.slopePercent, unit: 'percent' })
+					.describe('Fall away from the high edge (IRC R401.3: ≥ 2 % near the foundation).'),
+				crossFall: rate(true)
+					.default({ value: 0, unit: 'percent' })
+					.describe('Fall along the high edge; positive falls toward its end vertex.'),
+				highEdge: edgeRef
+					.optional()
+					.describe('The edge at the high side; defaults to houseEdge, else section 0 edge 0.')
+			})
+		),
+		thickness: z
+			.number()
+			.min(imp ? 2 : 50)
+			.max(imp ? 12 : 300)
+			.default(d.thickness)
+			.describe(`Slab thickness, ${S} (common practice 4 in; IRC R506.1 minimum 3½ in).`),
+		forms: withDefaults(
+			z.strictObject({
+				lumber: z.enum([...LUMBER_SIZES, 'custom']).default('2x4'),
+				customDepth: smallDim.optional().describe(`Board depth, ${S}, when lumber is custom.`),
+				stakeSpacing: z
+					.number()
+					.min(imp ? 1 : 0.3)
+					.max(imp ? 8 : 2.5)
+					.default(d.stakeSpacing)
+					.describe(`${L}; common practice 3–4 ft, plus one at every corner and splice.`),
+				stakeLength: smallDim.default(d.stakeLength).describe(`${S}; from memory.`),
+				release: z
+					.enum(['agent', 'oil', 'none'])
+					.default('agent')
+					.describe('What keeps concrete off the boards.'),
+				stockLengths: z
+					.array(z.number().min(imp ? 4 : 1.2).max(imp ? 24 : 7.2))
+					.min(1)
+					.max(8)
+					.default([...d.stockLengths])
+					.describe(`Board lengths on sale, ${L}.`)
+			})
+		),
+		thickenedEdge: withDefaults(
+			z.strictObject({
+				edges: z
+					.union([z.enum(['none', 'free']), z.array(edgeRef).max(200)])
+					.default('none')
+					.describe("'free' thickens every edge not along the house or a cold joint."),
+				width: smallDim.default(d.edgeWidth).describe(`Trench width, ${S}; from memory.`),
+				extraDepth: smallDim
+					.optional()
+					.describe(`Depth below the slab, ${S}; defaults to the thickness (common practice).`)
+			})
+		),
+		base: withDefaults(
+			z.strictObject({
+				depth: smallDim.default(d.baseDepth).describe(`Compacted gravel, ${S} (IRC R506.2.2).`),
+				bulking: z
+					.number()
+					.min(1)
+					.max(2)
+					.default(COMMON.baseBulking)
+					.describe('Loose ÷ compacted volume (common practice 1.15–1.30).')
+			})
+		),
+		fill: z
+			.strictObject({
+				volume: z.number().min(0).max(1e4).optional().describe(`Chunk volume, ${PV}.`),
+				shareOfTrench: z.number().min(0).max(0.9).optional().describe('Share of trench volume.'),
+				largestPiece: smallDim.describe(`Largest chunk, ${S}.`)
+			})
+			.optional()
+			.describe('Broken concrete chunks laid in the thickened-edge trench.'),
+		reinforcement: z.enum(REINFORCEMENT).default('none'),
+		loads: withDefaults(
+			z.strictObject({
+				vehicles: z.boolean().default(false),
+				pointLoads: z.boolean().default(false).describe('Hot tub, shed posts, heavy planters.')
+			})
+		),
+		mix: withDefaults(
+			z.strictObject({
+				cement: z.enum(['typeI', 'typeIII']).default('typeI').describe('typeIII: high early.'),
+				designStrength: z
+					.number()
+					.min(imp ? 1500 : 10)
+					.max(imp ? 8000 : 55)
+					.default(d.designStrength)
+					.describe(`28-day strength, ${imp ? 'psi' : 'MPa'}; from memory.`)
+			})
+		),
+		wastePercent: z
+			.number()
+			.min(0)
+			.max(50)
+			.default(COMMON.wastePercent)
+			.describe('common practice 5–10 %.'),
+		bags: withDefaults(
+			z.strictObject({
+				offered: z
+					.array(
+						z.strictObject({
+							size: z.number().min(imp ? 10 : 5).max(imp ? 100 : 50).describe(`Bag mass, ${M}.`),
+							yield: z
+								.number()
+								.min(imp ? 0.05 : 0.001)
+								.max(imp ? 2 : 0.06)
+								.optional()
+								.describe(`${PV} placed per bag; default from 80 lb ≈ 0.60 ft³ (bag labels).`),
+							price: price.optional()
+						})
+					)
+					.min(1)
+					.max(6)
+					.default(d.bagSizes.map((size) => ({ size }))),
+				planSize: z.number().optional().describe('Bag size the mixing plan uses; default the largest.'),
+				waterRatio: z
+					.number()
+					.min(0)
+					.max(0.2)
+					.default(COMMON.waterPerKgDryMix)
+					.describe('Water per dry mix by mass; from memory — the bag label rules.')
+			})
+		),
+		readyMix: withDefaults(
+			z.strictObject({
+				price: price.optional().describe(`Per ${V}.`),
+				increment: z.number().min(0.01).max(2).default(d.readyMixIncrement).describe(`${V}; from memory.`),
+				minimum: z.number().min(0).max(20).default(d.readyMixMinimum).describe(`${V}; from memory.`),
+				shortLoadFee: price.optional()
+			})
+		),
+		prices: withDefaults(
+			z.strictObject({
+				gravel: price.optional().describe(`Per ${V}.`),
+				lumber: price.optional().describe(`Per ${L} of board.`),
+				stake: price.optional(),
+				screw: price.optional(),
+				mesh: price.optional().describe(`Per ${L}².`),
+				releaseAgent: price.optional(),
+				isolationStrip: price.optional().describe(`Per ${L}.`),
+				curingCover: price.optional().describe(`Per ${L}².`)
+			})
+		),
+		crew: withDefaults(
+			z.strictObject({
+				people: z.int().min(1).max(20).default(COMMON.people),
+				method: z.enum(['hand', 'drum']).default('hand').describe('hand: tub or wheelbarrow.'),
+				handMixMinutes: z
+					.number()
+					.min(1)
+					.max(30)
+					.default(COMMON.handMixMinutesPer80lb)
+					.describe('Per 80 lb (36 kg) of dry mix; common practice 5–8 min.'),
+				drumMinutesPerBatch: z.number().min(1).max(30).default(COMMON.drumMixMinutesPerBatch),
+				drumBatchMass: z
+					.number()
+					.min(imp ? 20 : 10)
+					.max(imp ? 500 : 225)
+					.default(imp ? 160 : 72)
+					.describe(`Dry mix per drum batch, ${M}; common practice two 80 lb bags.`),
+				placeMinutesPerBag: z.number().min(0).max(30).default(COMMON.placeMinutesPerBag),
+				workingMinutes: z
+					.number()
+					.min(10)
+					.max(300)
+					.default(COMMON.workingMinutesAt70F)
+					.describe('Workable time of the mix at 70 °F (21 °C); common practice 1½–2 h.'),
+				finishMinutes: z.number().min(0).max(240).default(COMMON.finishMinutes),
+				payload: z.number().min(imp ? 100 : 45).max(imp ? 20000 : 9000).default(d.payload)
+			})
+		),
+		conditions: withDefaults(
+			z.strictObject({
+				airTemp: z
+					.union([temp, z.array(temp).min(1).max(60)])
+					.default(d.airTemp)
+					.describe(`Daily mean air temperature, ${T}: one value or one per day from the first pour.`),
+				humidity: z.number().min(0).max(100).default(COMMON.humidity).describe('Relative humidity, %.'),
+				wind: z.number().min(0).max(imp ? 100 : 160).default(d.wind).describe(imp ? 'mph' : 'km/h'),
+				concreteTemp: temp.optional().describe(`As placed, ${T}; defaults to the air temperature.`),
+				pourDate: z.iso.date().optional().describe('First pour day, YYYY-MM-DD.')
+			})
+		),
+		milestones: withDefaults(
+			z.strictObject({
+				formsOffDays: z.number().min(0.5).max(14).default(COMMON.formsOffDays),
+				walkDays: z.number().min(0.5).max(28).default(COMMON.walkDays),
+				furnitureDays: z.number().min(0.5).max(28).default(COMMON.furnitureDays),
+				vehiclePercent: z.number().min(10).max(100).default(COMMON.vehiclePercent)
+			})
+		)
+			.describe('Days are equivalent age at 20 °C (ASTM C1074), so cold weather pushes them out.'),
+		joints: withDefaults(z.strictObject({ method: z.enum(['tool', 'saw']).default('tool') }))
+	});
+}
+
+type EdgeRefOut = { section: number; edge: number };
+
+/** Cross-field checks: edge references in range, custom board depth, fill, bag size, geometry. */
+function crossChecks(plan: z.output<ReturnType<typeof planSchemaFor>>): PlanIssue[] {
+	const issues: PlanIssue[] = [];
+	const outlines = plan.sections.map((s) => s.outline);
+	const checkEdge = (ref: EdgeRefOut | null | undefined, path: string) => {
+		if (!ref) return;
+		const o = outlines[ref.section];
+		if (!o) issues.push({ path: `${path}.section`, message: `There is no section ${ref.section}.` });
+		else if (ref.edge >= o.length)
+			issues.push({ path: `${path}.edge`, message: `Section ${ref.section} has ${o.length} edges (0–${o.length - 1}).` });
+	};
+	checkEdge(plan.houseEdge, 'houseEdge');
+	plan.otherHouseEdges.forEach((r, i) => checkEdge(r, `otherHouseEdges.${i}`));
+	if (!plan.houseEdge && plan.otherHouseEdges.length)
+		issues.push({ path: 'otherHouseEdges', message: 'Set houseEdge first.' });
+	checkEdge(plan.slope.highEdge, 'slope.highEdge');
+	const te = plan.thickenedEdge.edges;
+	if (Array.isArray(te)) te.forEach((r, i) => checkEdge(r, `thickenedEdge.edges.${i}`));
+	if (plan.forms.lumber === 'custom' && !plan.forms.customDepth)
+		issues.push({ path: 'forms.customDepth', message: 'Give the board depth for custom lumber.' });
+	if (plan.fill && (plan.fill.volume === undefined) === (plan.fill.shareOfTrench === undefined))
+		issues.push({ path: 'fill', message: 'Give either volume or shareOfTrench.' });
+	if (plan.bags.planSize !== undefined && !plan.bags.offered.some((b) => b.size === plan.bags.planSize))
+		issues.push({ path: 'bags.planSize', message: 'planSize must be one of the offered sizes.' });
+	const d = DEFAULTS[plan.units];
+	const far = outlines.flatMap((o, s) => {
+		const j = o.findIndex((p) => Math.abs(p[0]) > d.maxCoordinate || Math.abs(p[1]) > d.maxCoordinate);
+		return j < 0 ? [] : [{ path: `sections.${s}.outline.${j}`, message: `Coordinates must lie within ±${d.maxCoordinate}.` }];
+	});
+	if (far.length) return [...issues, ...far];
+	const edgeTotal = outlines.reduce((s, o) => s + perimeter(o), 0);
+	if (edgeTotal > 10 * d.maxCoordinate)
+		issues.push({
+			path: 'sections',
+			message: `The outlines total ${Math.round(edgeTotal)} of edge; the limit is ${10 * d.maxCoordinate}.`
+		});
+	issues.push(...geometryIssues(outlines));
+	return issues;
+}
+
+export const planInputSchema = z
+	.discriminatedUnion('units', [planSchemaFor('imperial'), planSchemaFor('metric')])
+	.superRefine((plan, ctx) => {
+		for (const i of crossChecks(plan))
+			ctx.addIssue({ code: 'custom', path: i.path.split('.').map(pathPart), message: i.message });
+	});
+
+const pathPart = (p: string) => (/^\d+$/.test(p) ? Number(p) : p);
+
+/** What a form or API client sends (optional fields may be left out). */
+export type PlanInput = z.input<typeof planInputSchema>;
+/** The input with every default filled in. */
+export type ParsedPlan = z.output<typeof planInputSchema>;
+export type EdgeRef = EdgeRefOut;
+
+export type ParseResult = { ok: true; plan: ParsedPlan } | { ok: false; errors: PlanIssue[] };
+
+/** Validate anything against the schema; errors carry dotted paths like "sections.0.outline". */
+export function parsePlanInput(input: unknown): ParseResult {
+	const r = planInputSchema.safeParse(input);
+	if (r.success) return { ok: true, plan: r.data };
+	return { ok: false, errors: r.error.issues.map(toPlanIssue) };
+}
+
+function toPlanIssue(issue: z.core.$ZodIssue): PlanIssue {
+	const path = issue.path.map(String);
+	if (issue.code === 'unrecognized_keys' && issue.keys.length === 1) path.push(issue.keys[0]);
+	return { path: path.join('.'), message: issue.message };
+}
+
+/** JSON Schema of what clients may send, defaults included. */
+export function planInputJsonSchema() {
+	return z.toJSONSchema(planInputSchema, { io: 'input', unrepresentable: 'any' });
+}

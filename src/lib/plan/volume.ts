@@ -1,0 +1,129 @@
+// Concrete and base volumes: slab, thickened-edge trenches, chunk fill, waste.
+
+import { PlanInputError, type Layout, type SectionShape } from './geometry';
+import type { Model } from './model';
+import * as polygonLib from './polygon';
+import * as unitsLib from './units';
+import type { Area, Small, Volume } from './units';
+
+// Bound once: under the test runner every call through an import is a getter call.
+const { cross, dot, sub } = polygonLib;
+const { area, small, volume } = unitsLib;
+
+/** Which edges of each section get a thickened edge. */
+export function thickenedEdges(m: Model, layout: Layout): boolean[][] {
+	const spec = m.thickened.edges;
+	const house = (s: number, e: number) => m.houseEdges.some((h) => h.section === s && h.edge === e);
+	return layout.sections.map((sec) =>
+		sec.edges.map((e) => {
+			if (spec === 'none') return false;
+			if (spec === 'free') return e.shared.length === 0 && !house(sec.index, e.index);
+			return spec.some((r) => r.section === sec.index && r.edge === e.index);
+		})
+	);
+}
+
+/** Interior angle at vertex i, radians (π for a straight run). */
+export function interiorAngle(sec: SectionShape, i: number): number {
+	const o = sec.outline;
+	const n = o.length;
+	const a = o[(i + n - 1) % n];
+	const b = o[i];
+	const c = o[(i + 1) % n];
+	const turn = Math.atan2(cross(a, b, c), dot(sub(b, a), sub(c, b)));
+	return Math.PI - sec.orientation * turn;
+}
+
+/**
+ * Plan area of the trenches: each thickened edge is a strip of the given width, mitred where it
+ * meets another thickened edge (so corners count once) and square-ended elsewhere.
+ */
+export function trenchArea(sec: SectionShape, thick: readonly boolean[], width: number): number {
+	const n = sec.edges.length;
+	const miter = (v: number) => width ** 2 / 2 / Math.tan(interiorAngle(sec, v) / 2);
+	let total = 0;
+	for (let i = 0; i < n; i++) {
+		if (!thick[i]) continue;
+		const start = thick[(i + n - 1) % n] ? miter(i) : 0;
+		const end = thick[(i + 1) % n] ? miter((i + 1) % n) : 0;
+		total += Math.max(0, sec.edges[i].length * width - start - end);
+	}
+	return total;
+}
+
+export interface SectionVolume {
+	index: number;
+	slab: Volume;
+	thickenedEdges: Volume;
+	fill: Volume;
+	net: Volume;
+	order: Volume;
+}
+
+export interface VolumeResult {
+	slab: Volume;
+	thickenedEdges: Volume;
+	fill: Volume;
+	net: Volume;
+	waste: Volume;
+	order: Volume;
+	wastePercent: number;
+	trenchArea: Area;
+	sections: SectionVolume[];
+	base: { depth: Small; bulking: number; compacted: Volume; loose: Volume };
+}
+
+/** Chunk fill per section, spread in proportion to each section's trench volume. */
+function fillPerSection(m: Model, trench: number[]): number[] {
+	const total = trench.reduce((a, b) => a + b, 0);
+	if (!m.fill) return trench.map(() => 0);
+	if (total <= 0)
+		throw new PlanInputError([
+			{ path: 'fill', message: 'Chunk fill goes in a thickened-edge trench, and this plan has none.' }
+		]);
+	const share = m.fill.share ?? (m.fill.volume ?? 0) / total;
+	if (share > 0.9)
+		throw new PlanInputError([
+			{ path: 'fill.volume', message: 'More fill than 90 % of the trench volume leaves no concrete around it.' }
+		]);
+	return trench.map((t) => t * share);
+}
+
+export function computeVolume(m: Model, layout: Layout, thick: boolean[][]): VolumeResult {
+	const trenchA = layout.sections.map((s, i) => trenchArea(s, thick[i], m.thickened.width));
+	const trenchV = trenchA.map((a) => a * m.thickened.extraDepth);
+	const fill = fillPerSection(m, trenchV);
+	const k = 1 + m.wastePercent / 100;
+	const sections = layout.sections.map((s, i): SectionVolume => {
+		const net = s.area * m.thickness + trenchV[i] - fill[i];
+		return {
+			index: i,
+			slab: volume(s.area * m.thickness),
+			thickenedEdges: volume(trenchV[i]),
+			fill: volume(fill[i]),
+			net: volume(net),
+			order: volume(net * k)
+		};
+	});
+	const sum = (f: (s: SectionVolume) => Volume) => sections.reduce((a, s) => a + f(s).cubicMeters, 0);
+	const net = sum((s) => s.net);
+	const slabArea = layout.sections.reduce((a, s) => a + s.area, 0);
+	const compacted = slabArea * m.base.depth;
+	return {
+		slab: volume(sum((s) => s.slab)),
+		thickenedEdges: volume(sum((s) => s.thickenedEdges)),
+		fill: volume(sum((s) => s.fill)),
+		net: volume(net),
+		waste: volume(net * (k - 1)),
+		order: volume(net * k),
+		wastePercent: m.wastePercent,
+		trenchArea: area(trenchA.reduce((a, b) => a + b, 0)),
+		sections,
+		base: {
+			depth: small(m.base.depth),
+			bulking: m.base.bulking,
+			compacted: volume(compacted),
+			loose: volume(compacted * m.base.bulking)
+		}
+	};
+}

@@ -1,0 +1,109 @@
+import type { PlanRecord } from './types';
+import type { DraftData } from './draft.svelte';
+
+export type SaveStatus = 'idle' | 'pending' | 'saving' | 'saved' | 'invalid' | 'offline' | 'conflict' | 'local';
+
+const DRAFT_KEY = 'stakeline:draft';
+
+/** The signed-out visitor's plan lives in this browser until they sign up or sign in. */
+export const localDraft = {
+	read(): DraftData | null {
+		try {
+			const raw = localStorage.getItem(DRAFT_KEY);
+			return raw ? (JSON.parse(raw) as DraftData) : null;
+		} catch {
+			return null;
+		}
+	},
+	write(d: DraftData) {
+		localStorage.setItem(DRAFT_KEY, JSON.stringify(d));
+	},
+	clear() {
+		localStorage.removeItem(DRAFT_KEY);
+	}
+};
+
+/**
+ * Autosave for a signed-in homeowner's plan through the JSON API. Saves are debounced and
+ * serialised; each carries the revision it was based on, and a 409 stops saving until the user
+ * chooses to reload, so a second tab never silently overwrites the first.
+ */
+export class PlanSaver {
+	status = $state<SaveStatus>('idle');
+	id = $state<string | null>(null);
+	revision = $state(0);
+	conflict = $state<PlanRecord | null>(null);
+	message = $state('');
+
+	#timer: ReturnType<typeof setTimeout> | undefined;
+	#inFlight: Promise<void> | null = null;
+	#again = false;
+	#read: () => DraftData;
+	#onCreated: (id: string) => void;
+
+	constructor(o: { id: string | null; revision: number; read: () => DraftData; onCreated: (id: string) => void }) {
+		this.id = o.id;
+		this.revision = o.revision;
+		this.#read = o.read;
+		this.#onCreated = o.onCreated;
+	}
+
+	/** Call on every edit; the save goes out once typing pauses. */
+	schedule(delay = 700) {
+		if (this.status === 'conflict') return;
+		this.status = 'pending';
+		clearTimeout(this.#timer);
+		this.#timer = setTimeout(() => void this.flush(), delay);
+	}
+
+	async flush(): Promise<void> {
+		clearTimeout(this.#timer);
+		if (this.#inFlight) {
+			this.#again = true;
+			return this.#inFlight;
+		}
+		this.#inFlight = this.#save().finally(() => (this.#inFlight = null));
+		await this.#inFlight;
+		if (this.#again) {
+			this.#again = false;
+			await this.flush();
+		}
+	}
+
+	async #save() {
+		if (this.status === 'conflict') return;
+		const data = this.#read();
+		this.status = 'saving';
+		try {
+			const res = this.id
+				? await fetch(`/api/plans/${this.id}`, {
+						method: 'PATCH',
+						headers: { 'content-type': 'application/json' },
+						body: JSON.stringify({ ...data, revision: this.revision })
+					})
+				: await fetch('/api/plans', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(data) });
+			if (res.ok) {
+				const { plan } = (await res.json()) as { plan: PlanRecord };
+				this.revision = plan.revision;
+				this.status = 'saved';
+				if (!this.id) {
+					this.id = plan.id;
+					this.#onCreated(plan.id);
+				}
+			} else if (res.status === 409) {
+				this.conflict = ((await res.json()) as { current: PlanRecord }).current;
+				this.status = 'conflict';
+			} else if (res.status === 400) {
+				const body = (await res.json()) as { errors: { message: string }[] };
+				this.status = 'invalid';
+				this.message = body.errors[0]?.message ?? 'Some fields need attention.';
+			} else {
+				this.status = 'offline';
+				this.message = `The server answered ${res.status}.`;
+			}
+		} catch {
+			this.status = 'offline';
+			this.message = 'No connection; your changes are kept here and saved when you edit again.';
+		}
+	}
+}

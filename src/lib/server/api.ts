@@ -1,0 +1,29 @@
+import { error, json } from '@sveltejs/kit';
+import type { z } from 'zod';
+import type { Role } from '$lib/roles';
+import type { SessionUser } from './auth';
+
+export type ApiError = { path: string; message: string };
+
+/** 400 with the same `{ errors: [{ path, message }] }` body every JSON route uses. */
+export const badRequest = (errors: ApiError[]) => json({ errors }, { status: 400 });
+
+/** JSON routes answer 401 rather than redirecting to the sign-in page. */
+export function requireApiRole(locals: App.Locals, role: Role): SessionUser {
+	if (!locals.user) error(401, 'Sign in first.');
+	if (locals.user.role !== role) error(403, `Only ${role}s can do this.`);
+	return locals.user;
+}
+
+/** Reads and validates a JSON body; returns the parsed data or the 400 response to send. */
+export async function readBody<S extends z.ZodType>(request: Request, schema: S): Promise<{ data: z.output<S> } | { response: Response }> {
+	let raw: unknown;
+	try {
+		raw = await request.json();
+	} catch {
+		return { response: badRequest([{ path: '', message: 'The body must be JSON.' }]) };
+	}
+	const parsed = schema.safeParse(raw);
+	if (!parsed.success) return { response: badRequest(parsed.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }))) };
+	return { data: parsed.data };
+}

@@ -1,0 +1,81 @@
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { describe, expect, it } from 'vitest';
+import { computePlan, type PlanResult } from '$lib/plan';
+import { formatSmall, formatVolume } from '$lib/plan/format';
+import demo from '../../../../fixtures/demo-plans.json';
+import { pdfText as extractText } from '../../../../tests/pdf-text';
+import { pdfText, planPdf, woffToSfnt } from './planPdf';
+
+const plans = demo.plans.map((p) => ({ id: p.id, name: p.input.name, result: computePlan(p.input) }));
+
+/** The PDF's text as pdf.js reads it, runs of white space folded (pdf.js turns µ into Greek μ). */
+const textOf = async (pdf: Uint8Array) => (await extractText(pdf)).replace(/[ \t\n]+/g, ' ').replaceAll('\u03bc', '\u00b5');
+
+const covered = (cp: number) => cp <= 0xff || cp === 0x2212 || (cp >= 0x2000 && cp <= 0x206f);
+
+describe('planPdf', () => {
+	it.each(plans)('$id: a PDF with Nunito embedded and the plan numbers in its text', async ({ name, result }) => {
+		const pdf = await planPdf({ name, result, createdAt: new Date('2027-04-01T12:00:00Z') });
+		const raw = Buffer.from(pdf).toString('latin1');
+		expect(raw.startsWith('%PDF-')).toBe(true);
+		expect(raw).toContain('/FontFile2');
+		expect(raw).toMatch(/\/BaseFont \/[A-Z]{6}\+Nunito-Regular/);
+		expect(raw).toMatch(/\/BaseFont \/[A-Z]{6}\+Nunito-ExtraBold/);
+		// Every character is drawn in Nunito: no standard font got in.
+		expect(raw).not.toMatch(/\/BaseFont \/Helvetica/);
+
+		const text = await textOf(pdf);
+		const u = result.units;
+		expect(text).toContain(name);
+		expect(text).toContain(formatVolume(result.volume.net, u));
+		expect(text).toContain(formatVolume(result.volume.order, u));
+		for (const b of result.bags) expect(text).toContain(`${b.count} bags`);
+		const planned = result.mixing.sections.map((s) => `${s.bags} × ${result.mixing.bag.size} ${result.mixing.bag.unit}`);
+		for (const p of planned) expect(text).toContain(p);
+		for (const s of result.elevations.stakes) expect(text).toContain(pdfText(formatSmall(s.belowLevelLine, u), covered));
+		for (const c of result.cautions) expect(text).toContain(pdfText(c.source, covered));
+		expect(text).toContain(result.cautions.find((c) => c.id === 'local-codes')!.title);
+		expect(text).not.toContain('\u0000'); // no glyph the font lacks
+		expect(text).not.toContain('\uFFFD');
+	});
+
+	it("does not find another plan's volume: the text check can fail", async () => {
+		const [a, b] = plans;
+		const other = formatVolume(b.result.volume.order, b.result.units);
+		expect(other).not.toBe(formatVolume(a.result.volume.order, a.result.units));
+		const text = await textOf(await planPdf({ name: a.name, result: a.result }));
+		expect(text).toContain(formatVolume(a.result.volume.order, a.result.units));
+		expect(text).not.toContain(other);
+	});
+
+	it('uses Letter for imperial plans and A4 for metric ones', async () => {
+		const size = async (r: PlanResult) =>
+			/\/MediaBox \[0 0 ([\d.]+) ([\d.]+)\]/.exec(Buffer.from(await planPdf({ name: 'x', result: r })).toString('latin1'))!.slice(1).map(Number);
+		const imperial = plans.find((p) => p.result.units === 'imperial')!.result;
+		const metric = plans.find((p) => p.result.units === 'metric')!.result;
+		expect(await size(imperial)).toEqual([612, 792]);
+		expect((await size(metric)).map(Math.round)).toEqual([595, 842]);
+	});
+});
+
+describe('pdfText', () => {
+	it('spells out characters the latin subset lacks and keeps the ones it has', () => {
+		expect(pdfText('1⅜ in', covered)).toBe('1 3/8 in');
+		expect(pdfText('⅞ in', covered)).toBe('7/8 in');
+		expect(pdfText('−1½ in, 2.24 yd³, ≥ 70 %', covered)).toBe('−1½ in, 2.24 yd³, >= 70 %');
+		expect(pdfText('Δ', covered)).toBe('?');
+	});
+});
+
+describe('woffToSfnt', () => {
+	it('unwraps the fontsource WOFF into a TrueType file with the same tables', () => {
+		const woff = readFileSync(createRequire(import.meta.url).resolve('@fontsource/nunito/files/nunito-latin-400-normal.woff'));
+		const ttf = woffToSfnt(woff);
+		expect(ttf.readUInt32BE(0)).toBe(0x00010000); // TrueType outlines
+		expect(ttf.readUInt16BE(4)).toBe(woff.readUInt16BE(12));
+		const tags = Array.from({ length: ttf.readUInt16BE(4) }, (_, i) => ttf.toString('latin1', 12 + i * 16, 16 + i * 16));
+		expect(tags).toEqual(expect.arrayContaining(['cmap', 'glyf', 'head', 'hmtx', 'loca']));
+		expect(() => woffToSfnt(ttf)).toThrow(/WOFF/);
+	});
+});

@@ -1,0 +1,332 @@
+// The plan as a PDF, built on the server with pdfkit and Nunito embedded. Every line comes from the
+// same row helpers as the plan page, so the download carries the page's numbers.
+
+import { readFile } from 'node:fs/promises';
+import { inflateSync } from 'node:zlib';
+import { createRequire } from 'node:module';
+import PDFDocument from 'pdfkit';
+import type { PlanResult } from '$lib/plan';
+import {
+	DEFERRAL_FALLBACK,
+	READY_MIX_HINT,
+	SEVERITY_LABEL,
+	crewItems,
+	dayRows,
+	diyTotal,
+	fitText,
+	formatDate,
+	materialRows,
+	milestoneRows,
+	mixingRows,
+	sortCautions,
+	stakeIntro,
+	stakeRows,
+	summaryItems,
+	type MilestoneRow
+} from '$lib/components/plan/format';
+
+const require = createRequire(import.meta.url);
+
+// WOFF, not WOFF2: fontkit (pdfkit's font reader) throws while subsetting these WOFF2 files, and
+// the WOFF2 ones hold the variable font rather than the static weights.
+const FONT_FILES = { regular: 'nunito-latin-400-normal.woff', bold: 'nunito-latin-800-normal.woff' } as const;
+
+interface Fonts {
+	regular: Buffer;
+	bold: Buffer;
+	/** Code points the latin subset covers, from fontsource's own range list. */
+	covers: (cp: number) => boolean;
+}
+
+/**
+ * WOFF 1.0 to the plain TrueType it wraps. fontkit reads WOFF but inflates a table again on every
+ * glyph lookup, which made each PDF take about half a second; unwrapped once, it reads in place.
+ */
+export function woffToSfnt(woff: Buffer): Buffer {
+	if (woff.toString('latin1', 0, 4) !== 'wOFF') throw new Error('Not a WOFF 1.0 font');
+	const count = woff.readUInt16BE(12);
+	const tables = Array.from({ length: count }, (_, i) => {
+		const at = 44 + i * 20;
+		const [offset, compLength, origLength] = [4, 8, 12].map((k) => woff.readUInt32BE(at + k));
+		const raw = woff.subarray(offset, offset + compLength);
+		return { tag: woff.readUInt32BE(at), checksum: woff.readUInt32BE(at + 16), data: compLength < origLength ? inflateSync(raw) : raw };
+	});
+	const pad = (n: number) => (n + 3) & ~3;
+	const dirLength = 12 + 16 * count;
+	const out = Buffer.alloc(dirLength + tables.reduce((a, x) => a + pad(x.data.length), 0));
+	const power = 2 ** Math.floor(Math.log2(count));
+	out.writeUInt32BE(woff.readUInt32BE(4), 0); // flavor: the sfnt version
+	out.writeUInt16BE(count, 4);
+	out.writeUInt16BE(power * 16, 6);
+	out.writeUInt16BE(Math.log2(power), 8);
+	out.writeUInt16BE(count * 16 - power * 16, 10);
+	let offset = dirLength;
+	tables.forEach((x, i) => {
+		const at = 12 + i * 16;
+		out.writeUInt32BE(x.tag, at);
+		out.writeUInt32BE(x.checksum, at + 4);
+		out.writeUInt32BE(offset, at + 8);
+		out.writeUInt32BE(x.data.length, at + 12);
+		x.data.copy(out, offset);
+		offset += pad(x.data.length);
+	});
+	return out;
+}
+
+let fonts: Promise<Fonts> | undefined;
+
+function loadFonts(): Promise<Fonts> {
+	fonts ??= (async () => {
+		const file = (name: string) => readFile(require.resolve(`@fontsource/nunito/files/${name}`));
+		const [regular, bold, unicode] = await Promise.all([
+			file(FONT_FILES.regular),
+			file(FONT_FILES.bold),
+			readFile(require.resolve('@fontsource/nunito/unicode.json'), 'utf8')
+		]);
+		const ranges: Record<string, string> = JSON.parse(unicode);
+		const spans = ranges.latin.split(',').map((r) => r.replace('U+', '').split('-').map((h) => parseInt(h, 16)));
+		const covers = (cp: number) => spans.some(([lo, hi = lo]) => cp >= lo && cp <= hi);
+		return { regular: woffToSfnt(regular), bold: woffToSfnt(bold), covers };
+	})().catch((e) => {
+		fonts = undefined;
+		throw e;
+	});
+	return fonts;
+}
+
+// The latin subset has ¼ ½ ¾ but not eighths or math signs; spell those out rather than print boxes.
+const SPELLED: Record<string, string> = { '⅛': '1/8', '⅜': '3/8', '⅝': '5/8', '⅞': '7/8', '≥': '>=', '≤': '<=', '→': '->' };
+
+export function pdfText(s: string, covers: (cp: number) => boolean): string {
+	return [...s.replace(/(\d)([⅛⅜⅝⅞])/g, '$1 $2')]
+		.map((c) => (covers(c.codePointAt(0)!) ? c : (SPELLED[c] ?? '?')))
+		.join('');
+}
+
+/** Stakeline tokens (src/app.css) for print. */
+const C = {
+	ink: '#1d2b25',
+	soft: '#4a5a52',
+	line: '#d9d3c4',
+	moss: '#2f6b4f',
+	mossLight: '#eef5ef',
+	clay: '#b4562a',
+	danger: '#a32626',
+	sky: '#1f4e66'
+} as const;
+const SEVERITY_COLOR = { danger: C.danger, warning: C.clay, info: C.sky } as const;
+
+export async function planPdf(plan: { name: string; result: PlanResult; createdAt?: Date }): Promise<Uint8Array> {
+	const f = await loadFonts();
+	const r = plan.result;
+	const t = (s: string) => pdfText(s, f.covers);
+	const doc = new PDFDocument({
+		size: r.units === 'imperial' ? 'LETTER' : 'A4',
+		margins: { top: 54, bottom: 64, left: 54, right: 54 },
+		bufferPages: true,
+		lang: 'en',
+		displayTitle: true,
+		info: { Title: plan.name, Subject: 'Concrete slab plan', Creator: 'Stakeline' }
+	});
+	// Always select fonts by these names: pdfkit caches a font per name, not per buffer.
+	doc.registerFont('regular', f.regular);
+	doc.registerFont('bold', f.bold);
+	const chunks: Buffer[] = [];
+	doc.on('data', (c: Buffer) => chunks.push(c));
+	const done = new Promise<void>((resolve, reject) => {
+		doc.on('end', resolve);
+		doc.on('error', reject);
+	});
+
+	const left = doc.page.margins.left;
+	const width = doc.page.width - left - doc.page.margins.right;
+	const bottom = () => doc.page.height - doc.page.margins.bottom;
+	const room = (h: number) => {
+		if (doc.y + h > bottom()) doc.addPage();
+	};
+	const text = (s: string, o: { size?: number; bold?: boolean; color?: string; gap?: number } = {}) =>
+		doc
+			.font(o.bold ? 'bold' : 'regular')
+			.fontSize(o.size ?? 10)
+			.fillColor(o.color ?? C.ink)
+			.text(t(s), left, doc.y, { width, paragraphGap: o.gap ?? 2 });
+	const heading = (s: string) => {
+		room(80);
+		doc.moveDown(0.8);
+		text(s, { size: 15, bold: true, color: C.moss, gap: 0 });
+		doc.moveTo(left, doc.y + 1).lineTo(left + width, doc.y + 1).lineWidth(1).strokeColor(C.moss).stroke();
+		doc.moveDown(0.5);
+	};
+	// Tables drawn by hand: pdfkit's own table re-opens the font from its buffer for every cell.
+	const table = (head: string[] | null, rows: string[][], columns: (number | '*')[]) => {
+		const fixed = columns.reduce<number>((a, c) => a + (c === '*' ? 0 : c), 0);
+		const share = (width - fixed) / Math.max(1, columns.filter((c) => c === '*').length);
+		const widths = columns.map((c) => (c === '*' ? share : c));
+		const pad = 4;
+		const row = (cells: string[], isHead: boolean) => {
+			const texts = cells.map(t);
+			doc.font(isHead ? 'bold' : 'regular').fontSize(9);
+			const h = 2 * pad + Math.max(...texts.map((c, i) => doc.heightOfString(c, { width: widths[i] - 2 * pad })));
+			if (doc.y + h > bottom()) {
+				doc.addPage();
+				if (head && !isHead) row(head, true); // repeat the header on the new page
+				doc.font('regular').fontSize(9);
+			}
+			const y = doc.y;
+			if (isHead) doc.rect(left, y, width, h).fill(C.mossLight);
+			let x = left;
+			texts.forEach((c, i) => {
+				doc.fillColor(C.ink).text(c, x + pad, y + pad, { width: widths[i] - 2 * pad });
+				x += widths[i];
+			});
+			doc.moveTo(left, y + h).lineTo(left + width, y + h).lineWidth(isHead ? 1 : 0.5).strokeColor(isHead ? C.moss : C.line).stroke();
+			doc.x = left;
+			doc.y = y + h;
+		};
+		room(40);
+		if (head) row(head, true);
+		for (const cells of rows) row(cells, false);
+		doc.moveDown(0.5);
+	};
+
+	// Title and the deferral to local codes, first thing on the page.
+	const { deferral, rest } = sortCautions(r.cautions);
+	text(plan.name, { size: 24, bold: true, gap: 0 });
+	text(
+		['Concrete slab plan', plan.createdAt ? `created ${formatDate(plan.createdAt.toISOString().slice(0, 10))}` : '']
+			.filter(Boolean)
+			.join(' · '),
+		{ color: C.soft }
+	);
+	doc.moveDown(0.4);
+	text(deferral ? `${deferral.title}. ${deferral.reason}` : DEFERRAL_FALLBACK, { size: 9, color: C.sky });
+
+	heading('Summary');
+	table(
+		null,
+		summaryItems(r).map((i) => [i.label, i.note ? `${i.value}\n${i.note}` : i.value]),
+		[150, '*']
+	);
+
+	heading('Stake marks');
+	text(stakeIntro(r));
+	doc.moveDown(0.3);
+	table(
+		['Stake', 'On', 'Position (x, y)', `Height vs. ${r.elevations.reference.label}`, 'Below level line'],
+		stakeRows(r).map((s) => [s.high ? `${s.id} (high)` : s.id, s.where, s.position, s.elevation, s.belowLine]),
+		[58, '*', 90, 96, 80]
+	);
+
+	heading('Mixing plan');
+	text(crewItems(r).map((i) => `${i.label}: ${i.value}${i.note ? ` (${i.note})` : ''}`).join('  ·  '));
+	if (r.mixing.readyMixSuggested) text(READY_MIX_HINT, { bold: true, color: C.clay });
+	doc.moveDown(0.3);
+	const mixing = mixingRows(r);
+	table(
+		['Section', 'Bags', 'Mixing', 'Placing', 'Mix and place', 'Working time'],
+		mixing.map((m) => [m.name, m.bags, m.mixing, m.placing, m.total, m.working]),
+		['*', 110, 56, 56, 70, 90]
+	);
+	for (const m of mixing) {
+		room(40);
+		text(`${m.name}: ${fitText(m)}`, { bold: true, color: m.fits ? C.moss : C.danger });
+		if (m.split) text(`Suggested split: ${m.split}. ${m.splitNote}`);
+	}
+
+	heading('Day by day');
+	for (const d of dayRows(r)) {
+		room(36);
+		text([d.label, d.date, d.pour ? 'pour day' : ''].filter(Boolean).join(' · '), { bold: true, color: d.pour ? C.moss : C.ink, gap: 0 });
+		doc.font('regular').fontSize(10).fillColor(C.ink);
+		doc.list(d.tasks.map((k) => t(k.text)), left + 6, doc.y, { width: width - 6, bulletRadius: 1.6, textIndent: 10, paragraphGap: 1 });
+		doc.x = left;
+		doc.moveDown(0.4);
+	}
+
+	heading('Strength over time');
+	const stones = milestoneRows(r);
+	strengthChart(doc, r.strength, stones, { x: left, width, t });
+	table(
+		['#', 'Milestone', 'When', 'Strength then', 'Rule and source'],
+		stones.map((m, i) => [String(i + 1), m.title, m.when, m.strength ?? '—', `${m.rule}; ${m.source}`]),
+		[18, 90, '*', 60, 150]
+	);
+
+	heading('Materials');
+	const total = diyTotal(r);
+	table(
+		['Material', 'Quantity', 'Cost'],
+		[
+			...materialRows(r).map((m) => [m.note ? `${m.name}\n${m.note}` : m.name, m.quantity, m.cost ?? '—']),
+			...(total ? [['Do-it-yourself total', '', total.amount]] : [])
+		],
+		['*', 110, 80]
+	);
+	if (total?.note) text(`Total ${total.note}.`, { size: 9, color: C.soft });
+	doc.moveDown(0.3);
+	table(
+		['Tool', 'Count', 'What for'],
+		r.materials.tools.map((k) => [k.name, String(k.count), k.why]),
+		['*', 44, 200]
+	);
+
+	heading('Cautions');
+	for (const c of deferral ? [deferral, ...rest] : rest) {
+		room(70);
+		text(`${SEVERITY_LABEL[c.severity]}: ${c.title}`, { bold: true, size: 11, color: SEVERITY_COLOR[c.severity], gap: 1 });
+		text(c.reason);
+		text(`What to do: ${c.action}`);
+		text(`Source: ${c.source}`, { size: 9, color: C.soft, gap: 8 });
+	}
+	if (!deferral) text(DEFERRAL_FALLBACK, { bold: true, color: C.sky });
+
+	// Footer on every page: the plan, the page count, and the reminder that local rules come first.
+	const pages = doc.bufferedPageRange();
+	for (let i = 0; i < pages.count; i++) {
+		doc.switchToPage(pages.start + i);
+		const y = doc.page.height - doc.page.margins.bottom + 18;
+		doc.page.margins.bottom = 0; // writing below the margin must not open a new page
+		doc.font('regular').fontSize(8).fillColor(C.soft);
+		doc.text(t(`${plan.name} · Stakeline · page ${i + 1} of ${pages.count}`), left, y, { width, lineBreak: false });
+		doc.text(t(deferral?.title ?? DEFERRAL_FALLBACK), left, y + 11, { width, lineBreak: false });
+	}
+	doc.end();
+	await done;
+	return new Uint8Array(Buffer.concat(chunks));
+}
+
+/** A small vector line chart of percent strength by day, milestones as numbered dashed lines. */
+function strengthChart(
+	doc: InstanceType<typeof PDFDocument>,
+	days: PlanResult['strength'],
+	stones: MilestoneRow[],
+	o: { x: number; width: number; t: (s: string) => string }
+) {
+	const h = 130;
+	if (doc.y + h + 40 > doc.page.height - doc.page.margins.bottom) doc.addPage();
+	const top = doc.y + 8;
+	const x0 = o.x + 30;
+	const w = o.width - 40;
+	// Warm weather can pass 100 % before day 28: grow the axis in steps of 25 %.
+	const yMax = Math.max(100, Math.ceil(Math.max(...days.map((d) => d.percent)) / 25) * 25);
+	const px = (day: number) => x0 + (day / days.length) * w;
+	const py = (pct: number) => top + h - (pct / yMax) * h;
+	doc.save().lineWidth(0.5).strokeColor(C.line);
+	for (let pct = 0; pct <= yMax; pct += 25) {
+		doc.moveTo(x0, py(pct)).lineTo(x0 + w, py(pct)).stroke();
+		doc.font('regular').fontSize(7).fillColor(C.soft).text(`${pct} %`, o.x, py(pct) - 3, { width: 26, align: 'right', lineBreak: false });
+	}
+	for (let d = 0; d <= days.length; d += 7)
+		doc.text(String(d), px(d) - 10, top + h + 4, { width: 20, align: 'center', lineBreak: false });
+	doc.text(o.t('Days after the last pour'), x0, top + h + 14, { width: w, align: 'center', lineBreak: false });
+	stones.forEach((m, i) => {
+		if (m.day === null || m.percent === undefined) return;
+		doc.save().dash(3, { space: 3 }).strokeColor(C.clay).moveTo(px(m.day), top).lineTo(px(m.day), top + h).stroke().restore();
+		doc.font('bold').fontSize(8).fillColor(C.clay).text(String(i + 1), px(m.day) + 2, top + 2 + (i % 3) * 9, { lineBreak: false });
+	});
+	doc.lineWidth(1.5).strokeColor(C.moss);
+	days.forEach((d, i) => (i ? doc.lineTo(px(d.day), py(d.percent)) : doc.moveTo(px(d.day), py(d.percent))));
+	doc.stroke().restore();
+	doc.x = o.x;
+	doc.y = top + h + 32;
+}

@@ -1,0 +1,63 @@
+// Saved plans on the real PostgreSQL test database.
+import { afterAll, describe, expect, it } from 'vitest';
+import { computePlan } from '$lib/plan';
+import { client } from './db';
+import { createPlan, deletePlan, duplicatePlan, findOwnPlan, listPlans, PlanInputInvalid, StaleRevision, updatePlan } from './plans';
+import { createUser } from './users';
+
+afterAll(() => client.end());
+
+const owner = () => createUser({ name: 'Plan Owner', email: `plans-${crypto.randomUUID()}@it.stakeline.test`, password: 'plans-password', role: 'homeowner' });
+const input = (length = 12) => ({ units: 'imperial', sections: [{ outline: [[0, 0], [length, 0], [length, 10], [0, 10]] }] });
+
+describe('saved plans', () => {
+	it('store the input and the result the server computed from it', async () => {
+		const me = await owner();
+		const p = await createPlan(me.id, { name: 'Back patio', input: input() });
+		expect(p.revision).toBe(1);
+		// The stored result is the engine's for the input, whatever the client sent alongside.
+		expect(p.result).toEqual(JSON.parse(JSON.stringify(computePlan(input()))));
+	});
+
+	it('refuse invalid input with paths under input', async () => {
+		const me = await owner();
+		const bad = { units: 'imperial', sections: [{ outline: [[0, 0], [10, 10], [10, 0], [0, 10]] }] }; // a bow tie crosses itself
+		const err = await createPlan(me.id, { name: 'Bow tie', input: bad }).catch((e) => e);
+		expect(err).toBeInstanceOf(PlanInputInvalid);
+		expect((err as PlanInputInvalid).issues[0].path).toMatch(/^input\.sections/);
+	});
+
+	it('save only on top of the current revision (two tabs cannot overwrite each other)', async () => {
+		const me = await owner();
+		const p = await createPlan(me.id, { name: 'Two tabs', input: input() });
+		const first = await updatePlan(p.id, me.id, { revision: 1, input: input(14) });
+		expect(first?.revision).toBe(2);
+		const stale = await updatePlan(p.id, me.id, { revision: 1, input: input(20) }).catch((e) => e);
+		expect(stale).toBeInstanceOf(StaleRevision);
+		expect((stale as StaleRevision).current.revision).toBe(2);
+		const now = await findOwnPlan(p.id, me.id);
+		expect((now!.result as { area: { squareFeet: number } }).area.squareFeet).toBeCloseTo(140, 6); // 14 × 10 ft, not 20 × 10
+	});
+
+	it('belong to their owner only', async () => {
+		const me = await owner();
+		const other = await owner();
+		const p = await createPlan(me.id, { name: 'Mine', input: input() });
+		expect(await findOwnPlan(p.id, other.id)).toBeUndefined();
+		expect(await updatePlan(p.id, other.id, { revision: 1, name: 'Taken' })).toBeUndefined();
+		expect(await deletePlan(p.id, other.id)).toBe(false);
+		expect(await duplicatePlan(p.id, other.id)).toBeUndefined();
+		expect((await listPlans(other.id)).map((x) => x.id)).not.toContain(p.id);
+		expect((await findOwnPlan(p.id, me.id))?.name).toBe('Mine');
+	});
+
+	it('duplicate and delete', async () => {
+		const me = await owner();
+		const p = await createPlan(me.id, { name: 'Shed pad', input: input() });
+		const copy = await duplicatePlan(p.id, me.id);
+		expect(copy?.name).toBe('Shed pad (copy)');
+		expect(copy?.input).toEqual(p.input);
+		expect(await deletePlan(p.id, me.id)).toBe(true);
+		expect((await listPlans(me.id)).map((x) => x.name)).toEqual(['Shed pad (copy)']);
+	});
+});

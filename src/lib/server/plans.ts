@@ -1,0 +1,113 @@
+import { and, desc, eq, sql } from 'drizzle-orm';
+import { estimate, type PlanIssue, type PlanResult } from '$lib/plan';
+import { db } from '$lib/server/db';
+import { plan, type Plan } from '$lib/server/db/schema';
+import type { PlanRecord } from '$lib/planner/types';
+
+export class PlanInputInvalid extends Error {
+	constructor(readonly issues: PlanIssue[]) {
+		super('The plan input is not valid.');
+	}
+}
+
+export class StaleRevision extends Error {
+	constructor(readonly current: Plan) {
+		super('This plan was changed elsewhere since you opened it.');
+	}
+}
+
+/** The server always recomputes: numbers sent by a browser are never stored. */
+function compute(input: unknown, prefix = 'input'): PlanResult {
+	const outcome = estimate(input);
+	if (!outcome.ok) throw new PlanInputInvalid(outcome.errors.map((e) => ({ ...e, path: e.path ? `${prefix}.${e.path}` : prefix })));
+	return outcome.plan;
+}
+
+export type PlanSummary = Pick<Plan, 'id' | 'name' | 'postcode' | 'revision' | 'createdAt' | 'updatedAt'> & {
+	units: PlanResult['units'];
+	area: PlanResult['area']['squareFeet'];
+	areaM2: number;
+	volume: PlanResult['volume']['order'];
+};
+
+export function summarize(p: Plan): PlanSummary {
+	const r = p.result as PlanResult;
+	return {
+		id: p.id,
+		name: p.name,
+		postcode: p.postcode,
+		revision: p.revision,
+		createdAt: p.createdAt,
+		updatedAt: p.updatedAt,
+		units: r.units,
+		area: r.area.squareFeet,
+		areaM2: r.area.squareMeters,
+		volume: r.volume.order
+	};
+}
+
+export async function listPlans(ownerId: string): Promise<Plan[]> {
+	return db.select().from(plan).where(eq(plan.ownerId, ownerId)).orderBy(desc(plan.updatedAt));
+}
+
+/** The plan, only when it belongs to ownerId: someone else's plan is simply not found. */
+export async function findOwnPlan(id: string, ownerId: string): Promise<Plan | undefined> {
+	const [found] = await db.select().from(plan).where(and(eq(plan.id, id), eq(plan.ownerId, ownerId)));
+	return found;
+}
+
+export async function createPlan(ownerId: string, data: { name: string; postcode?: string; input: unknown }): Promise<Plan> {
+	const result = compute(data.input);
+	const [created] = await db
+		.insert(plan)
+		.values({ ownerId, name: data.name, postcode: data.postcode || null, input: data.input, result })
+		.returning();
+	return created;
+}
+
+/**
+ * Saves an edit made on top of `revision`. The compare-and-set in the WHERE clause means two
+ * tabs cannot overwrite each other: the second gets StaleRevision with the current plan.
+ */
+export async function updatePlan(
+	id: string,
+	ownerId: string,
+	data: { revision: number; name?: string; postcode?: string; input?: unknown }
+): Promise<Plan | undefined> {
+	const current = await findOwnPlan(id, ownerId);
+	if (!current) return undefined;
+	const changes: Partial<Plan> = {};
+	if (data.name !== undefined) changes.name = data.name;
+	if (data.postcode !== undefined) changes.postcode = data.postcode || null;
+	if (data.input !== undefined) {
+		changes.input = data.input;
+		changes.result = compute(data.input);
+	}
+	const [saved] = await db
+		.update(plan)
+		.set({ ...changes, revision: sql`${plan.revision} + 1`, updatedAt: new Date() })
+		.where(and(eq(plan.id, id), eq(plan.ownerId, ownerId), eq(plan.revision, data.revision)))
+		.returning();
+	if (!saved) throw new StaleRevision((await findOwnPlan(id, ownerId)) ?? current);
+	return saved;
+}
+
+export async function deletePlan(id: string, ownerId: string): Promise<boolean> {
+	const gone = await db.delete(plan).where(and(eq(plan.id, id), eq(plan.ownerId, ownerId))).returning({ id: plan.id });
+	return gone.length > 0;
+}
+
+export async function duplicatePlan(id: string, ownerId: string): Promise<Plan | undefined> {
+	const source = await findOwnPlan(id, ownerId);
+	if (!source) return undefined;
+	const [copy] = await db
+		.insert(plan)
+		.values({ ownerId, name: `${source.name} (copy)`.slice(0, 100), postcode: source.postcode, input: source.input, result: source.result })
+		.returning();
+	return copy;
+}
+
+/** What the API and pages send to the browser. */
+export function planView(p: Plan): PlanRecord {
+	return { id: p.id, name: p.name, postcode: p.postcode ?? '', revision: p.revision, input: p.input, result: p.result as PlanResult, createdAt: p.createdAt, updatedAt: p.updatedAt };
+}

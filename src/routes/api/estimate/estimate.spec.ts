@@ -1,0 +1,97 @@
+import fc from 'fast-check';
+import { describe, expect, it } from 'vitest';
+import { POST } from './+server';
+import { GET } from './schema/+server';
+
+const post = (body: string) =>
+	POST({ request: new Request('http://localhost/api/estimate', { method: 'POST', body }) } as any) as Promise<Response>;
+const postJson = (value: unknown) => post(JSON.stringify(value));
+
+const valid = {
+	units: 'imperial',
+	sections: [{ outline: [[0, 0], [16, 0], [16, 12], [0, 12]] }],
+	bags: { offered: [{ size: 80, price: 6.4 }] },
+	readyMix: { price: 185 }
+};
+
+async function expectBad(res: Response, path?: string) {
+	expect(res.status).toBe(400);
+	const body = await res.json();
+	expect(Array.isArray(body.errors)).toBe(true);
+	expect(body.errors.length).toBeGreaterThan(0);
+	for (const e of body.errors) expect(typeof e.path === 'string' && typeof e.message === 'string').toBe(true);
+	if (path !== undefined) expect(body.errors.map((e: { path: string }) => e.path)).toContain(path);
+}
+
+describe('POST /api/estimate', () => {
+	it('answers a valid plan with the full result', async () => {
+		const res = await postJson(valid);
+		expect(res.status).toBe(200);
+		expect(res.headers.get('content-type')).toMatch(/application\/json/);
+		const r = await res.json();
+		for (const k of ['cubicFeet', 'cubicYards', 'cubicMeters']) {
+			expect(typeof r.volume.net[k]).toBe('number');
+			expect(typeof r.volume.order[k]).toBe('number');
+		}
+		expect(r.volume.net.cubicFeet).toBe(64); // 192 ft² × 4/12 ft, rounded to 4 places
+		expect(r.area).toMatchObject({ squareFeet: 192, squareMeters: 17.8374 }); // 192 × 0.3048²
+		expect(r.bags[0]).toMatchObject({ size: 80, unit: 'lb', count: 118 }); // 70.4 ft³ / 0.60 (bag labels)
+		expect(r.joints.maxSpacing.feet).toBe(12); // 36 × 4 in, ACI 302.1R
+		expect(r.strength[0]).toEqual(expect.objectContaining({ day: 1, percent: expect.any(Number) }));
+		expect(r.cautions[0]).toEqual(expect.objectContaining({ id: 'local-codes', title: expect.any(String), source: expect.any(String) }));
+	});
+
+	it('rejects a body that is not JSON', async () => {
+		await expectBad(await post('{"units": "imperial",'), '');
+	});
+
+	it('rejects wrong types with their paths', async () => {
+		await expectBad(await postJson({ ...valid, thickness: 'thick' }), 'thickness');
+		await expectBad(await postJson({ ...valid, sections: 'none' }), 'sections');
+		await expectBad(await postJson(null), '');
+		await expectBad(await postJson([valid]), '');
+	});
+
+	it('rejects invalid geometry at the outline', async () => {
+		await expectBad(await postJson({ ...valid, sections: [{ outline: [[0, 0], [10, 0], [2, 8], [8, 10]] }] }), 'sections.0.outline');
+		await expectBad(await postJson({ ...valid, sections: [{ outline: [[0, 0], [10, 0], [10, 0], [0, 10]] }] }), 'sections.0.outline');
+		const overlap = [{ outline: [[0, 0], [10, 0], [10, 10], [0, 10]] }, { outline: [[5, 5], [15, 5], [15, 15], [5, 15]] }];
+		await expectBad(await postJson({ ...valid, sections: overlap }), 'sections.1.outline');
+	});
+
+	it('maps an error found by the engine to its path', async () => {
+		await expectBad(await postJson({ ...valid, fill: { volume: 2, largestPiece: 3 } }), 'fill');
+	});
+
+	it('answers random junk with 400 and errors, never a throw', async () => {
+		await fc.assert(
+			fc.asyncProperty(fc.oneof(fc.string(), fc.jsonValue().map((v) => JSON.stringify(v))), async (body) => {
+				await expectBad(await post(body));
+			}),
+			{ numRuns: 60 }
+		);
+	});
+
+	it('answers a valid plan with one field spoiled with 400', async () => {
+		const keys = ['units', 'sections', 'thickness', 'slope', 'forms', 'bags', 'crew', 'conditions', 'houseEdge'] as const;
+		const junk = fc.oneof(fc.string(), fc.constant(-1e9), fc.array(fc.integer()), fc.constant({ nope: true }));
+		await fc.assert(
+			fc.asyncProperty(fc.constantFrom(...keys), junk, async (key, value) => {
+				await expectBad(await postJson({ ...valid, [key]: value }));
+			}),
+			{ numRuns: 60 }
+		);
+	});
+});
+
+describe('GET /api/estimate/schema', () => {
+	it('publishes the JSON Schema of the request', async () => {
+		const res = (await GET({} as any)) as Response;
+		expect(res.status).toBe(200);
+		const s = await res.json();
+		expect(s.$schema).toMatch(/json-schema\.org/);
+		expect(s.oneOf).toHaveLength(2);
+		expect(s.oneOf[0].properties.units).toEqual({ type: 'string', const: 'imperial' });
+		expect(s.oneOf[0].required).toEqual(['units', 'sections']);
+	});
+});

@@ -1,0 +1,191 @@
+import fs from 'node:fs/promises';
+import AxeBuilder from '@axe-core/playwright';
+import { expect, test, type Page } from '@playwright/test';
+import sharp from 'sharp';
+import { computePlan } from '../src/lib/plan/index';
+import { formatVolume } from '../src/lib/plan/format';
+import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { pdfText } from './pdf-text';
+
+const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });
+// The L the test draws: 16 × 12 ft with a 6 × 5 ft notch (the wizard's own L preset).
+const L: [number, number][] = [[0, 0], [16, 0], [16, 7], [10, 7], [10, 12], [0, 12]];
+const expected = computePlan({ units: 'imperial', name: 'My slab', sections: [{ outline: L }], reference: { label: 'door sill', below: 1 } });
+
+async function seriousViolations(page: Page) {
+	const { violations } = await new AxeBuilder({ page }).analyze();
+	return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.id}: ${v.nodes[0]?.target}`);
+}
+
+async function nextStep(page: Page, shot: string) {
+	await page.screenshot({ path: `test-results/screens/wizard-${shot}.png`, fullPage: true });
+	await page.getByRole('button', { name: /^Next:/ }).click();
+}
+
+test('a homeowner builds an L-shaped plan; results match the engine, survive a reload, and the plan page, 3D, photos and PDF work', async ({ page, request }) => {
+	test.setTimeout(90_000);
+	await signUp(page, { name: 'Hazel Brook', email: uniqueEmail('planner'), password: 'l-shaped-patio' });
+	await page.getByRole('link', { name: 'Start a new plan' }).click();
+	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
+	expect(await seriousViolations(page)).toEqual([]);
+
+	await page.getByLabel('Plan name').fill('Corner patio');
+	await page.getByLabel('Postal code').fill('97361');
+	await nextStep(page, '1-site');
+
+	await page.getByLabel('L-shape (notched corner)').check();
+	await page.getByLabel('Along the house', { exact: true }).fill('16');
+	await page.getByLabel('Out from the house').fill('12');
+	await page.getByLabel('Notch along').fill('6');
+	await page.getByLabel('Notch out').fill('5');
+	await page.getByRole('button', { name: 'Use this L-shape' }).click();
+	// Keyboard: nudge a corner right and back; the outline ends where it started.
+	const corner = page.getByRole('button', { name: /Section 1, corner 2,/ });
+	await corner.focus();
+	await page.keyboard.press('ArrowRight');
+	await expect(page.getByRole('button', { name: 'Section 1, corner 2, at 16.5 by 0 ft' })).toBeVisible();
+	await page.keyboard.press('ArrowLeft');
+	await expect(page.getByTestId('result-area')).toHaveText(`${fmt(expected.area.squareFeet)} ft²`); // 16×12 − 6×5 = 162 ft²
+	await nextStep(page, '2-outline');
+	await nextStep(page, '3-pitch');
+	await nextStep(page, '4-build-up');
+	await nextStep(page, '5-crew');
+	await expect(page.getByRole('heading', { name: '6. Review' })).toBeVisible();
+	await page.screenshot({ path: 'test-results/screens/wizard-6-review.png', fullPage: true });
+
+	const planned = expected.bags.find((b) => b.planned)!;
+	await expect(page.getByTestId('result-volume')).toHaveText(`${fmt(expected.volume.order.cubicYards, 2)} yd³`);
+	await expect(page.getByTestId('result-bags')).toHaveText(String(planned.count));
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 10_000 });
+	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
+	const id = page.url().split('/').at(-2)!;
+
+	// The server stored its own computation of the same input.
+	const api = await (await page.request.get(`/api/plans/${id}`)).json();
+	expect(api.plan.name).toBe('Corner patio');
+	expect(api.plan.result.area.squareFeet).toBeCloseTo(expected.area.squareFeet, 9);
+	expect(api.plan.result.bags.map((b: { count: number }) => b.count)).toEqual(expected.bags.map((b) => b.count));
+
+	await page.reload();
+	await expect(page.getByTestId('plan-name')).toHaveText('Corner patio');
+	await expect(page.getByTestId('result-area')).toHaveText(`${fmt(expected.area.squareFeet)} ft²`);
+	expect(await seriousViolations(page)).toEqual([]);
+
+	await page.getByRole('link', { name: 'See the full plan' }).click();
+	await expect(page.getByTestId('plan-title')).toHaveText('Corner patio');
+	await expect(page.getByRole('table', { name: /stake/i })).toBeVisible();
+	expect(await seriousViolations(page)).toEqual([]);
+
+	// 3D preview: loaded on demand, draws something that is not one flat colour.
+	await page.getByRole('button', { name: 'Show 3D preview' }).click();
+	const canvas = page.getByTestId('preview-canvas');
+	await expect(canvas).toBeVisible({ timeout: 20_000 });
+	await page.waitForTimeout(1500);
+	const shot = await canvas.screenshot({ path: 'test-results/screens/plan-3d.png' });
+	const { channels } = await sharp(shot).stats();
+	expect(Math.max(...channels.map((c) => c.stdev))).toBeGreaterThan(10);
+
+	// Photos: a real image goes in with progress; a text file named .jpg is refused.
+	const png = await sharp({ create: { width: 80, height: 60, channels: 3, background: '#7a9a5a' } }).png().toBuffer();
+	await page.getByTestId('photo-input').setInputFiles([
+		{ name: 'lawn.png', mimeType: 'image/png', buffer: png },
+		{ name: 'not-a-photo.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('just some text, not an image') }
+	]);
+	await expect(page.getByTestId('upload').filter({ hasText: 'lawn.png' })).toHaveAttribute('data-state', 'done');
+	await expect(page.getByTestId('upload').filter({ hasText: 'not-a-photo.jpg' })).toContainText('not a JPEG, PNG or WebP');
+	await expect(page.getByTestId('photo')).toHaveCount(1);
+	const thumb = await page.getByTestId('photo').locator('img').getAttribute('src');
+	const thumbRes = await page.request.get(thumb!);
+	expect(thumbRes.headers()['content-type']).toBe('image/webp');
+	await page.screenshot({ path: 'test-results/screens/plan-page.png', fullPage: true });
+
+	// The PDF carries the same volume and bag count as the page.
+	const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('pdf-link').click()]);
+	const bytes = await fs.readFile((await download.path())!);
+	expect(bytes.subarray(0, 5).toString()).toBe('%PDF-');
+	const text = (await pdfText(bytes)).replace(/\s+/g, ' ');
+	expect(text).toContain(formatVolume(expected.volume.order, 'imperial'));
+	expect(text).toContain(`${planned.count} bags`);
+
+	// Another homeowner sees none of it.
+	await signOut(page);
+	await signIn(page, demoUser('homeowner').email, demoPassword);
+	await expect(page).toHaveURL(/\/plans$/);
+	expect((await page.goto(`/plans/${id}`))?.status()).toBe(404);
+	expect((await page.goto(`/plans/${id}/edit`))?.status()).toBe(404);
+	expect((await page.request.get(`/api/plans/${id}`)).status()).toBe(404);
+	expect((await page.request.patch(`/api/plans/${id}`, { data: { revision: 1, name: 'Mine now' } })).status()).toBe(404);
+	expect((await page.request.delete(`/api/plans/${id}`)).status()).toBe(404);
+	expect((await page.request.get(thumb!)).status()).toBe(404);
+	expect((await page.request.get(`/plans/${id}/plan.pdf`)).status()).toBe(404);
+	expect((await request.get('/api/plans')).status()).toBe(401); // signed out
+});
+
+test('a signed-out visitor’s draft is kept through sign-up and lands in the new account', async ({ page }) => {
+	await page.goto('/');
+	expect(await seriousViolations(page)).toEqual([]);
+	await page.getByRole('link', { name: 'Start a plan' }).click();
+	await expect(page.getByTestId('local-banner')).toBeVisible();
+	await page.getByLabel('Plan name').fill('Shed pad draft');
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');
+	await page.getByRole('link', { name: 'Create an account' }).click();
+	await page.getByLabel('Your name').fill('Nell Quarry');
+	await page.getByLabel('E-mail').fill(uniqueEmail('draft'));
+	await page.getByLabel('Password', { exact: true }).fill('draft-kept-safe');
+	await page.getByRole('button', { name: 'Create account' }).click();
+	await expect(page.getByText('The plan you started before signing in is now saved to your account.')).toBeVisible();
+	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
+	await page.goto('/plans');
+	await expect(page.getByTestId('plan-item')).toHaveCount(1);
+	await expect(page.getByTestId('plan-item')).toContainText('Shed pad draft');
+});
+
+test('two tabs editing one plan: the stale one is refused and offered the newer version', async ({ page, context }) => {
+	await signUp(page, { name: 'Ivo Tabb', email: uniqueEmail('tabs'), password: 'two-tabs-open' });
+	await expect(page).toHaveURL(/\/plans$/);
+	const created = await page.request.post('/api/plans', {
+		data: { name: 'Walkway', input: { units: 'imperial', sections: [{ outline: [[0, 0], [20, 0], [20, 4], [0, 4]] }] } }
+	});
+	expect(created.status()).toBe(201);
+	const { plan } = await created.json();
+	const other = await context.newPage();
+	await page.goto(`/plans/${plan.id}/edit`);
+	await other.goto(`/plans/${plan.id}/edit`);
+
+	await page.getByLabel('Plan name').fill('Walkway to the shed');
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved');
+	await other.getByLabel('Plan name').fill('Front walk');
+	await expect(other.getByTestId('save-status')).toHaveAttribute('data-status', 'conflict');
+	await other.getByRole('button', { name: 'Load the newer version' }).click();
+	await expect(other.getByLabel('Plan name')).toHaveValue('Walkway to the shed');
+	const stored = await (await page.request.get(`/api/plans/${plan.id}`)).json();
+	expect(stored.plan.name).toBe('Walkway to the shed');
+	expect((await page.request.patch(`/api/plans/${plan.id}`, { data: { revision: 1, name: 'Stale' } })).status()).toBe(409);
+});
+
+test('my plans: rename, duplicate and delete with confirmation', async ({ page }) => {
+	await signUp(page, { name: 'Rhea List', email: uniqueEmail('list'), password: 'list-of-plans' });
+	await expect(page).toHaveURL(/\/plans$/);
+	await expect(page.getByRole('heading', { name: 'No plans yet' })).toBeVisible();
+	await page.request.post('/api/plans', { data: { name: 'Patio A', input: { units: 'metric', sections: [{ outline: [[0, 0], [3, 0], [3, 3], [0, 3]] }] } } });
+	await page.goto('/plans');
+	await expect(page.getByTestId('plan-item')).toContainText('9 m²'); // 3 × 3 m
+	await page.getByRole('link', { name: 'Rename' }).click();
+	await page.getByLabel('New name').fill('Patio by the oak');
+	await page.getByRole('button', { name: 'Save name' }).click();
+	await expect(page.getByRole('link', { name: 'Patio by the oak' })).toBeVisible();
+	await page.getByRole('button', { name: 'Duplicate' }).click();
+	await expect(page.getByTestId('plan-item')).toHaveCount(2);
+	await page.getByTestId('plan-item').filter({ hasText: '(copy)' }).getByRole('link', { name: 'Delete' }).click();
+	await expect(page.getByText('This cannot be undone.')).toBeVisible();
+	await page.getByRole('button', { name: 'Yes, delete it' }).click();
+	await expect(page.getByTestId('plan-item')).toHaveCount(1);
+	await expect(page.getByTestId('plan-item')).toContainText('Patio by the oak');
+});
+
+test('contractors cannot use the plan API', async ({ page }) => {
+	await signIn(page, demoUser('contractor').email, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
+	expect((await page.request.get('/api/plans')).status()).toBe(403);
+	expect((await page.goto('/plans/new'))?.status()).toBe(403);
+});
