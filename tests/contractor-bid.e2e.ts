@@ -1,4 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
+import { formatMoney } from '../src/lib/leads';
 import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { approvedNewContractor, bumpPlanRevision, insertPlan } from './pro-helpers';
 
@@ -24,7 +25,8 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	const homeEmail = uniqueEmail('owner');
 	await signUp(page, { name: 'Nell Quarry', email: homeEmail, password: 'my-back-patio', role: 'homeowner' });
 	await expect(page).toHaveURL(/\/plans$/);
-	const planId = await insertPlan(homeEmail, { name: 'Back patio', postcode: '97321', photo: true });
+	const { id: planId, result } = await insertPlan(homeEmail, { name: 'Back patio', postcode: '97321', photo: true });
+	const area = result.area.squareFeet;
 
 	// Get bids: the approved contractors around the plan's ZIP code, nearest first.
 	await page.goto(`/plans/${planId}/bids`);
@@ -48,8 +50,11 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await expect(page.getByRole('heading', { name: 'Back patio' })).toBeVisible();
 	await expect(page.getByText(/Albany, OR · 0(\.\d)? mi from you/)).toBeVisible();
 	await expect(page.getByTestId('lead-notes')).toHaveText('The side gate is 36 in wide.');
-	await expect(page.getByTestId('plan-figures')).toContainText('120 ft²');
-	await expect(page.getByTestId('plan-figures')).toContainText('74 × 80 lb');
+	await expect(page.getByTestId('plan-figures')).toContainText(`${Math.round(area)} ft²`);
+	const bags = result.bags[0];
+	await expect(page.getByTestId('plan-figures')).toContainText(`${bags.count} × ${bags.size} ${bags.unit}`);
+	// The planner's own views draw the frozen result.
+	await expect(page.getByTestId('frozen-plan').getByRole('heading', { name: 'Outline, joints and pours' })).toBeVisible();
 	const thumb = page.getByTestId('lead-photos').getByRole('img', { name: 'Site photo 1' });
 	await expect(thumb).toBeVisible();
 	expect(await thumb.evaluate((img: HTMLImageElement) => img.naturalWidth)).toBe(160);
@@ -94,8 +99,9 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await expect(rows.first()).toContainText('Ridgeback Flatwork'); // 16 years against 9
 	const mine = rows.filter({ hasText: pro.business });
 	await expect(mine).toContainText('$2,400');
-	await expect(mine).toContainText('$20'); // per ft² on 120 ft²
-	await expect(mine.getByTestId('bid-vs-diy')).toHaveText('+$1,760'); // 2,400 against 640 of materials
+	await expect(mine).toContainText(formatMoney(Math.round(240_000 / area))); // per ft²
+	const diy = Math.round(result.materials.diyTotal.amount * 100);
+	await expect(mine.getByTestId('bid-vs-diy')).toHaveText(`${240_000 >= diy ? '+' : '−'}${formatMoney(Math.abs(240_000 - diy))}`);
 	await page.screenshot({ path: 'test-results/screens/bids-compare.png', fullPage: true });
 	await mine.getByRole('button', { name: 'Accept' }).click();
 	await expect(page.getByText('Bid accepted.')).toBeVisible();
@@ -177,7 +183,7 @@ test('a contractor who has the plan learns of a newer revision and keeps seeing 
 	const homeEmail = uniqueEmail('revise');
 	await signUp(page, { name: 'Orla Fenn', email: homeEmail, password: 'shed-pad-two', role: 'homeowner' });
 	await expect(page).toHaveURL(/\/plans$/);
-	const planId = await insertPlan(homeEmail, { name: 'Shed pad', postcode: '97330' });
+	const { id: planId } = await insertPlan(homeEmail, { name: 'Shed pad', postcode: '97330' });
 	await page.goto(`/plans/${planId}/bids`);
 	for (const box of await page.getByRole('checkbox').all()) await box.uncheck();
 	await page.getByRole('checkbox', { name: /Ridgeback Flatwork/ }).check();
@@ -204,7 +210,7 @@ test.describe('without JavaScript', () => {
 		const homeEmail = uniqueEmail('plain');
 		await signUp(page, { name: 'Pia Stone', email: homeEmail, password: 'garden-walk-7', role: 'homeowner' });
 		await expect(page).toHaveURL(/\/plans$/);
-		const planId = await insertPlan(homeEmail, { name: 'Garden walk', postcode: '97370' });
+		const { id: planId } = await insertPlan(homeEmail, { name: 'Garden walk', postcode: '97370' });
 		await page.goto(`/plans/${planId}/bids`);
 		await page.getByLabel('What you want done').selectOption('pour_finish');
 		await page.getByRole('button', { name: 'Find contractors' }).click();

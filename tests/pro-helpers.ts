@@ -3,6 +3,8 @@ import path from 'node:path';
 import { expect, type Page } from '@playwright/test';
 import postgres from 'postgres';
 import sharp from 'sharp';
+import demoPlans from '../fixtures/demo-plans.json' with { type: 'json' };
+import { computePlan, type PlanResult } from '../src/lib/plan/index';
 import { demoPassword, demoUser, signIn, signOut, signUp } from './helpers';
 
 export const pdf = (label: string) => ({
@@ -52,30 +54,21 @@ export async function approvedNewContractor(page: Page, o: { name: string; email
 }
 
 /**
- * Stores a plan for `email` straight in the database, shaped like the engine's documented result,
- * so the handoff can be tested on its own.
+ * Stores a plan for `email` straight in the database, computed by the real engine from the first
+ * demo plan's input, so the handoff can be tested without driving the wizard.
  */
 export async function insertPlan(email: string, o: { name: string; postcode: string; photo?: boolean }) {
 	if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set');
 	const sql = postgres(process.env.DATABASE_URL, { max: 1, onnotice: () => {} });
 	try {
-		const result = {
-			area: { squareFeet: 120, squareMeters: 11.148 },
-			volume: {
-				net: { cubicFeet: 40, cubicYards: 1.481, cubicMeters: 1.133 },
-				order: { cubicFeet: 44, cubicYards: 1.63, cubicMeters: 1.246 }
-			},
-			bags: [{ size: 80, unit: 'lb', count: 74 }],
-			joints: { maxSpacing: { feet: 8, meters: 2.4384 } },
-			materials: { items: [], diyTotal: { amount: 640, complete: true, unpriced: [] } },
-			cautions: [{ id: 'wet-cement', title: 'Wet cement burns skin', source: 'common practice' }]
-		};
+		const input = { ...demoPlans.plans[0].input, name: o.name };
+		const result = JSON.parse(JSON.stringify(computePlan(input as never)));
 		const [row] = await sql`
 			INSERT INTO plan (owner_id, name, postcode, input, result)
-			SELECT id, ${o.name}, ${o.postcode}, ${sql.json({ units: 'imperial' })}, ${sql.json(result)} FROM "user" WHERE email = ${email}
+			SELECT id, ${o.name}, ${o.postcode}, ${sql.json(input)}, ${sql.json(result)} FROM "user" WHERE email = ${email}
 			RETURNING id`;
 		if (o.photo) await insertPhoto(sql, row.id);
-		return row.id as string;
+		return { id: row.id as string, result: result as PlanResult };
 	} finally {
 		await sql.end();
 	}

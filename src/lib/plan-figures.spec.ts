@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { planFigures } from './plan-figures';
+import { fullResult, planFigures } from './plan-figures';
 
 describe('planFigures', () => {
 	it('reads the documented fields and the unit system', () => {
@@ -33,5 +33,18 @@ describe('planFigures', () => {
 		expect(f.joints).toBeUndefined();
 		expect(f.volume?.net?.cubicMeters).toBe(3);
 		expect(planFigures({ units: 'lunar' }, 'not an object')).toEqual({ units: 'imperial' });
+	});
+});
+
+describe('fullResult', () => {
+	it('passes an engine result whole and refuses a partial one', async () => {
+		const { computePlan } = await import('$lib/plan');
+		const demo = (await import('../../fixtures/demo-plans.json')).default.plans[0];
+		const r = JSON.parse(JSON.stringify(computePlan(demo.input as never)));
+		expect(fullResult(r)).toBe(r);
+		const { schedule: _s, ...partial } = r;
+		expect(fullResult(partial)).toBeNull();
+		expect(fullResult({ area: {} })).toBeNull();
+		expect(fullResult(null)).toBeNull();
 	});
 });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import type { PlanResult } from '$lib/plan';
 
 /**
  * The few plan numbers the handoff shows, read from a stored plan result as docs/api.md documents
@@ -23,4 +24,18 @@ export type PlanFigures = z.output<typeof resultShape> & { units: 'imperial' | '
 export function planFigures(input: unknown, result: unknown): PlanFigures {
 	const r = resultShape.safeParse(result ?? {});
 	return { ...(r.success ? r.data : {}), units: inputShape.parse(input ?? {}).units };
+}
+
+/** Every top-level part of the engine's result, as src/lib/plan/index.ts defines PlanResult. */
+const RESULT_PARTS = ['units', 'area', 'geometry', 'volume', 'forms', 'elevations', 'bags', 'readyMix', 'cost', 'mixing', 'joints', 'strength', 'milestones', 'schedule', 'weather', 'materials', 'cautions'] as const;
+
+/**
+ * The frozen result as a whole PlanResult when it has every part, so the planner's views (outline,
+ * 3D, stake marks, day plan) can draw it; null for anything older or partial, which then shows
+ * only the figures above.
+ */
+export function fullResult(result: unknown): PlanResult | null {
+	if (!result || typeof result !== 'object') return null;
+	const r = result as Record<string, unknown>;
+	return RESULT_PARTS.every((k) => r[k] !== undefined && r[k] !== null) ? (result as PlanResult) : null;
 }
