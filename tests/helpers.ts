@@ -20,17 +20,22 @@ export async function signUp(page: Page, o: { name: string; email: string; passw
 	await page.getByLabel('Your name').fill(o.name);
 	await page.getByLabel('E-mail').fill(o.email);
 	await page.getByLabel('Password', { exact: true }).fill(o.password);
-	await page.getByRole('button', { name: 'Create account' }).click();
+	await submitAndWait(page, 'Create account');
 }
 
 export async function signIn(page: Page, email: string, password: string) {
 	await openForm(page, '/signin');
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password').fill(password);
-	// Wait for the answer that sets the session cookie, so a page.goto right after is signed in.
-	const answered = page.waitForResponse((r) => r.request().method() === 'POST' && new URL(r.url()).pathname === '/signin');
-	await page.getByRole('button', { name: 'Sign in' }).click();
-	await answered;
+	await submitAndWait(page, 'Sign in');
+}
+
+/** Clicks a form's button and waits for the POST's answer, so its cookie is set before the next step. */
+async function submitAndWait(page: Page, button: string) {
+	await Promise.all([
+		page.waitForResponse((r) => r.request().method() === 'POST' && new URL(r.url()).origin === new URL(page.url()).origin),
+		page.getByRole('button', { name: button }).click()
+	]);
 }
 
 export async function signOut(page: Page) {

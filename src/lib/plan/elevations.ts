@@ -40,6 +40,8 @@ export interface Plane {
 	minDrop: number;
 	/** Height of the slab's high point relative to the reference (negative: below it). */
 	high: number;
+	/** Each section's outline in the frame, worked out here once and reused for the joint grid. */
+	framed: Pt[][];
 }
 
 /** The frame of an edge: u along it, w into the section. */
@@ -55,19 +57,20 @@ export function edgeFrame(layout: Layout, section: number, edge: number): Frame 
 
 export function slopePlane(m: Model, layout: Layout): Plane {
 	const frame = edgeFrame(layout, m.highEdge.section, m.highEdge.edge);
-	const pts = layout.sections.flatMap((s) => s.outline.map((p) => toFrame(frame, p)));
+	const framed = layout.sections.map((s) => s.outline.map((p) => toFrame(frame, p)));
 	let [uMin, uMax, wMin, wMax] = [Infinity, -Infinity, Infinity, -Infinity];
-	for (const p of pts) {
-		uMin = Math.min(uMin, p[0]);
-		uMax = Math.max(uMax, p[0]);
-		wMin = Math.min(wMin, p[1]);
-		wMax = Math.max(wMax, p[1]);
-	}
+	for (const poly of framed)
+		for (const p of poly) {
+			uMin = Math.min(uMin, p[0]);
+			uMax = Math.max(uMax, p[0]);
+			wMin = Math.min(wMin, p[1]);
+			wMax = Math.max(wMax, p[1]);
+		}
 	const fall = 'ratio' in m.fall ? m.fall.ratio : m.fall.drop / (wMax - wMin);
 	const cross = 'ratio' in m.crossFall ? m.crossFall.ratio : m.crossFall.drop / (uMax - uMin);
 	let minDrop = Infinity;
-	for (const p of pts) minDrop = Math.min(minDrop, fall * p[1] + cross * p[0]);
-	return { frame, fall, cross, minDrop, high: -m.reference.below };
+	for (const poly of framed) for (const p of poly) minDrop = Math.min(minDrop, fall * p[1] + cross * p[0]);
+	return { frame, fall, cross, minDrop, high: -m.reference.below, framed };
 }
 
 /** Finished-surface height at a point relative to the reference. */

@@ -9,10 +9,8 @@ const {
 	boxesMeet,
 	cross,
 	dist,
-	dot,
 	edgeBoxes,
 	edgeBoxesMeet,
-	sub,
 	interiorPoint,
 	lerp,
 	next,
@@ -57,7 +55,11 @@ export function outlineProblem(poly: readonly Pt[], eps: number): string | null 
 		const a = poly[i];
 		const b = next(poly, i);
 		const c = poly[(i + 2) % n];
-		if (Math.abs(cross(a, b, c)) <= eps * dist(a, b) && dot(sub(b, a), sub(c, b)) < 0)
+		// dot(sub(b, a), sub(c, b)) < 0, written out to skip two temporary arrays.
+		if (
+			Math.abs(cross(a, b, c)) <= eps * dist(a, b) &&
+			(b[0] - a[0]) * (c[0] - b[0]) + (b[1] - a[1]) * (c[1] - b[1]) < 0
+		)
 			return `edges ${i} and ${(i + 1) % n} fold back onto each other`;
 		for (let j = i + 2; j < n; j++) {
 			if ((i === 0 && j === n - 1) || !edgeBoxesMeet(boxes, i, boxes, j, eps)) continue;
@@ -229,13 +231,15 @@ export function layoutSections(outlines: readonly (readonly Pt[])[]): Layout {
 	const eps = tolerance(outlines);
 	const coldJoints = findColdJoints(outlines, eps);
 	let outerPerimeter = 0;
+	// Each edge's joints, in the order found: one pass instead of a filter over all joints per edge.
+	const byEdge: ColdJointSeg[][][] = outlines.map(() => []);
+	for (const j of coldJoints)
+		for (let k = 0; k < 2; k++) (byEdge[j.sections[k]][j.edges[k]] ??= []).push(j);
 	const sections = outlines.map((outline, s): SectionShape => {
 		const a = signedArea(outline);
 		const edges = outline.map((from, i): EdgeInfo => {
 			const to = next(outline, i);
-			const shared = coldJoints.filter(
-				(j) => (j.sections[0] === s && j.edges[0] === i) || (j.sections[1] === s && j.edges[1] === i)
-			);
+			const shared = byEdge[s][i] ?? [];
 			const free = freeIntervals(from, to, shared, eps);
 			const length = dist(from, to);
 			for (const [p, q] of free) outerPerimeter += (q - p) * length;

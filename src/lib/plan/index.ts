@@ -117,7 +117,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 	const offsets = pourOffsets(m, layout.coldJoints, tempOn);
 	const bags = m.bags.offered.map((b) => bagOption(b, volume.order.cubicMeters, m));
 	const mix = readyMix(volume.order.cubicMeters, m);
-	const { joints, grids } = computeJoints(m, layout, plane.frame);
+	const { joints, grids } = computeJoints(m, layout, plane.frame, plane.framed);
 	const orders = volume.sections.map((s) => s.order.cubicMeters);
 	const mixing = computeMixing(m, orders, grids, plane.frame, offsets, tempOn, layout.eps);
 	const last = Math.max(...offsets);

@@ -80,12 +80,17 @@ function isReentrant(poly: readonly Pt[], i: number, orient: number): boolean {
 
 /** Panels no longer than max and no more elongated than ACI's 1.5, refining the longer side. */
 export function panelGrid(poly: readonly Pt[], max: number, min: number, eps: number): Grid {
-	const us = poly.map((p) => p[0]);
-	const ws = poly.map((p) => p[1]);
+	let [uMin, uMax, wMin, wMax] = [Infinity, -Infinity, Infinity, -Infinity];
+	for (const p of poly) {
+		uMin = Math.min(uMin, p[0]);
+		uMax = Math.max(uMax, p[0]);
+		wMin = Math.min(wMin, p[1]);
+		wMax = Math.max(wMax, p[1]);
+	}
 	const orient = Math.sign(signedArea(poly));
 	const reflex = poly.filter((_, i) => isReentrant(poly, i, orient));
-	const bu = breakpoints(reflex.map((p) => p[0]), Math.min(...us), Math.max(...us), min / 3);
-	const bw = breakpoints(reflex.map((p) => p[1]), Math.min(...ws), Math.max(...ws), min / 3);
+	const bu = breakpoints(reflex.map((p) => p[0]), uMin, uMax, min / 3);
+	const bw = breakpoints(reflex.map((p) => p[1]), wMin, wMax, min / 3);
 	const cu = bu.slice(1).map((b, i) => Math.max(1, countUp((b - bu[i]) / max)));
 	const cw = bw.slice(1).map((b, i) => Math.max(1, countUp((b - bw[i]) / max)));
 	let grid: Grid = { us: [], ws: [], panels: 0, maxAspect: 1 };
@@ -151,17 +156,19 @@ export interface SectionGrid {
 
 const maxGap = (v: number[]) => v.slice(1).reduce((m, x, i) => Math.max(m, x - v[i]), 0);
 
+/** framed: the outlines already in the frame (slopePlane works them out); computed here if absent. */
 export function computeJoints(
 	m: Model,
 	layout: Layout,
-	frame: Frame
+	frame: Frame,
+	framed?: Pt[][]
 ): { joints: JointsResult; grids: SectionGrid[] } {
 	const { min, max } = jointSpacing(m.thickness);
 	const P = (p: Pt): Pt => [mToPlan(p[0], m.units), mToPlan(p[1], m.units)];
 	let total = 0;
 	const grids: SectionGrid[] = [];
 	const sections = layout.sections.map((s): SectionJoints => {
-		const poly = s.outline.map((p) => toFrame(frame, p));
+		const poly = framed?.[s.index] ?? s.outline.map((p) => toFrame(frame, p));
 		const g = panelGrid(poly, max, min, layout.eps);
 		grids.push({ poly, us: g.us, ws: g.ws });
 		const lines: JointLine[] = [];

@@ -93,7 +93,9 @@ export function cutBoards(pieces: { run: string; length: number }[], stock: read
 
 /** Stakes along one run: both ends, every splice, and enough between that no gap exceeds spacing. */
 export function runStakes(r: Run, splices: number[], spacing: number): { at: Pt; kind: StakePoint['kind'] }[] {
-	const marks = [0, ...splices.map((s) => Math.min(s, r.length) / r.length), 1];
+	const marks = [0];
+	for (const s of splices) marks.push(Math.min(s, r.length) / r.length);
+	marks.push(1);
 	const out: { at: Pt; kind: StakePoint['kind'] }[] = [{ at: r.from, kind: 'corner' }];
 	for (let i = 1; i < marks.length; i++) {
 		const gaps = Math.max(1, countUp(((marks[i] - marks[i - 1]) * r.length) / spacing));

@@ -90,18 +90,20 @@ export interface MixingResult {
  */
 export function cutsAt(poly: readonly Pt[], shares: number[]): number[] {
 	const xs = [...new Set(poly.map((p) => p[0]))].sort((a, b) => a - b);
-	const at = xs.map((x) => areaLeftOf(poly, x));
-	const total = at[at.length - 1];
+	// Area left of each vertex x, worked out only as far as the scans below reach (each is O(n)).
+	const known: number[] = [];
+	const at = (k: number) => (known[k] ??= areaLeftOf(poly, xs[k]));
+	const total = at(xs.length - 1);
 	return shares.map((share) => {
 		const target = share * total;
 		let k = 0;
-		while (k + 2 < xs.length && at[k + 1] < target) k++;
+		while (k + 2 < xs.length && at(k + 1) < target) k++;
 		const h = xs[k + 1] - xs[k];
-		const d1 = at[k + 1] - at[k];
-		const dm = areaLeftOf(poly, xs[k] + h / 2) - at[k];
+		const d1 = at(k + 1) - at(k);
+		const dm = areaLeftOf(poly, xs[k] + h / 2) - at(k);
 		const s = (4 * (d1 - 2 * dm)) / (h * h); // d(chord)/dx
 		const l0 = (d1 - (s * h * h) / 2) / h; // chord at xs[k]
-		const r = target - at[k];
+		const r = target - at(k);
 		const root = Math.sqrt(Math.max(0, l0 * l0 + 2 * s * r));
 		const t = l0 + root > 0 ? (2 * r) / (l0 + root) : 0;
 		return xs[k] + Math.min(h, Math.max(0, t));
@@ -153,9 +155,8 @@ export function splitSection(
 		const p = fromFrame(frame, across ? [q[1], q[0]] : q);
 		return [mToPlan(p[0], units), mToPlan(p[1], units)];
 	};
-	const coldJoints = cuts.flatMap((c) =>
-		clipVertical(poly, c, eps).map(([a, b]) => ({ from: P([c, a]), to: P([c, b]) }))
-	);
+	const coldJoints: Split['coldJoints'] = [];
+	for (const c of cuts) for (const [a, b] of clipVertical(poly, c, eps)) coldJoints.push({ from: P([c, a]), to: P([c, b]) });
 	return {
 		parts,
 		bagsPerPart,

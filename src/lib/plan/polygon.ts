@@ -43,8 +43,10 @@ function side(a: Pt, b: Pt, p: Pt, eps: number): number {
 
 /** Parameter of p projected on a→b (0 at a, 1 at b). */
 export function project(a: Pt, b: Pt, p: Pt): number {
-	const d = sub(b, a);
-	return dot(sub(p, a), d) / dot(d, d);
+	// Written out (same arithmetic as dot(sub(p, a), d) / dot(d, d)): no temporary arrays.
+	const dx = b[0] - a[0];
+	const dy = b[1] - a[1];
+	return ((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / (dx * dx + dy * dy);
 }
 
 export function distToSegment(p: Pt, a: Pt, b: Pt): number {
@@ -110,10 +112,19 @@ export const boxesMeet = (a: Box, b: Box, eps: number) =>
 
 export function pointInPolygon(p: Pt, poly: readonly Pt[], eps: number): Where {
 	let inside = false;
+	const px = p[0];
+	const py = p[1];
+	const far = 2 * eps; // well clear of the edge's box: its distance is surely over eps
 	for (let i = 0; i < poly.length; i++) {
 		const a = poly[i];
 		const b = next(poly, i);
-		if (distToSegment(p, a, b) <= eps) return 'boundary';
+		// Skip the square root for edges nowhere near p; the answer is the same.
+		const clear =
+			(px < a[0] - far && px < b[0] - far) ||
+			(px > a[0] + far && px > b[0] + far) ||
+			(py < a[1] - far && py < b[1] - far) ||
+			(py > a[1] + far && py > b[1] + far);
+		if (!clear && distToSegment(p, a, b) <= eps) return 'boundary';
 		if (a[1] > p[1] !== b[1] > p[1]) {
 			const x = a[0] + ((p[1] - a[1]) / (b[1] - a[1])) * (b[0] - a[0]);
 			if (x > p[0]) inside = !inside;
@@ -228,8 +239,10 @@ export interface Frame {
 }
 
 export const toFrame = (f: Frame, p: Pt): Pt => {
-	const d = sub(p, f.origin);
-	return [dot(d, f.t), dot(d, f.n)];
+	// Same arithmetic as [dot(d, t), dot(d, n)] with d = p − origin, without the temporary d.
+	const dx = p[0] - f.origin[0];
+	const dy = p[1] - f.origin[1];
+	return [dx * f.t[0] + dy * f.t[1], dx * f.n[0] + dy * f.n[1]];
 };
 
 export const fromFrame = (f: Frame, q: Pt): Pt => [

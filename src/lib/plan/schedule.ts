@@ -23,7 +23,16 @@ export const CURING = { typeI: 7, typeIII: 3, percent: 70 } as const;
 export function pourOffsets(m: Model, coldJoints: readonly ColdJointSeg[], tempOn: (d: number) => number): number[] {
 	// cumulative[d]: equivalent age gained from day 0 up to the start of day d.
 	const cumulative = [0];
-	for (let d = 0; d < HORIZON; d++) cumulative.push(cumulative[d] + ageFactor(tempOn(d)));
+	let lastT = NaN;
+	let f = 0;
+	for (let d = 0; d < HORIZON; d++) {
+		const t = tempOn(d);
+		if (t !== lastT) {
+			f = ageFactor(t); // one exp per change of temperature, not per day
+			lastT = t;
+		}
+		cumulative.push(cumulative[d] + f);
+	}
 	const offsets: number[] = [];
 	for (let k = 0; k < m.sections.length; k++) {
 		const earlier = coldJoints.filter((j) => j.sections[1] === k).map((j) => offsets[j.sections[0]]);

@@ -344,9 +344,11 @@ function crossChecks(plan: z.output<ReturnType<typeof planSchemaFor>>): PlanIssu
 	if (plan.bags.planSize !== undefined && !plan.bags.offered.some((b) => b.size === plan.bags.planSize))
 		issues.push({ path: 'bags.planSize', message: 'planSize must be one of the offered sizes.' });
 	const d = DEFAULTS[plan.units];
-	const far = outlines.flatMap((o, s) => {
+	// A plain loop: flatMap costs more than this whole check on every keystroke.
+	const far: PlanIssue[] = [];
+	outlines.forEach((o, s) => {
 		const j = o.findIndex((p) => Math.abs(p[0]) > d.maxCoordinate || Math.abs(p[1]) > d.maxCoordinate);
-		return j < 0 ? [] : [{ path: `sections.${s}.outline.${j}`, message: `Coordinates must lie within ±${d.maxCoordinate}.` }];
+		if (j >= 0) far.push({ path: `sections.${s}.outline.${j}`, message: `Coordinates must lie within ±${d.maxCoordinate}.` });
 	});
 	if (far.length) return [...issues, ...far];
 	const edgeTotal = outlines.reduce((s, o) => s + perimeter(o), 0);

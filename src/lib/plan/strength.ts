@@ -26,7 +26,18 @@ export function ageFactor(tempC: number, q: number = C1074.q, refC: number = C10
 /** Equivalent age at the reference temperature after each whole day: tₑ = Σ factor·Δt. */
 export function equivalentAges(dailyTempsC: number[]): number[] {
 	let te = 0;
-	return dailyTempsC.map((t) => (te += ageFactor(t)));
+	// Forecasts hold their last value for weeks: reuse the factor (an exp) while the temperature repeats.
+	let lastT = NaN;
+	let f = 0;
+	const out: number[] = [];
+	for (const t of dailyTempsC) {
+		if (t !== lastT) {
+			f = ageFactor(t);
+			lastT = t;
+		}
+		out.push((te += f));
+	}
+	return out;
 }
 
 /** Nurse-Saul temperature-time factor after each whole day, °C·h: M = Σ (Ta − T0)·Δt. */

@@ -21,3 +21,25 @@ export function modelOf(input: PlanInput) {
 	const m = toModel(r.plan);
 	return { m, layout: layoutSections(m.sections.map((s) => s.outline as Pt[])) };
 }
+
+/** The benchmark's plan: a 40 × 20 ft pad with a wavy back edge, 5 points along the front, 45 along the back. */
+export function wavyPad(): PlanInput {
+	const top = (x: number): Pt => [x, 20 + Math.sin((x / 40) * Math.PI * 3) * 1.5];
+	const sections = [0, 1, 2, 3].map((k) => {
+		const x0 = k * 10;
+		const back = Array.from({ length: 12 }, (_, i) => top(x0 + 10 - (i * 10) / 11));
+		return { outline: [[x0, 0] as Pt, [x0 + 10, 0] as Pt, ...back].map(([x, y]) => [x, y] as [number, number]) };
+	});
+	return {
+		units: 'imperial',
+		sections,
+		houseEdge: null,
+		slope: { fall: { value: 1.5, unit: 'percent' }, crossFall: { value: 0.5, unit: 'percent' } },
+		thickenedEdge: { edges: 'free' },
+		fill: { shareOfTrench: 0.2, largestPiece: 3 },
+		bags: { offered: [{ size: 80, price: 6.4 }, { size: 60, price: 5.1 }] },
+		readyMix: { price: 185 },
+		crew: { people: 3, method: 'drum' },
+		conditions: { airTemp: [60, 55, 50, 58, 62, 65], humidity: 40, wind: 8, pourDate: '2027-06-01' }
+	};
+}

@@ -7,7 +7,7 @@ import * as unitsLib from './units';
 import type { Area, Small, Volume } from './units';
 
 // Bound once: under the test runner every call through an import is a getter call.
-const { cross, dot, sub } = polygonLib;
+const { cross } = polygonLib;
 const { area, small, volume } = unitsLib;
 
 /** Which edges of each section get a thickened edge. */
@@ -30,7 +30,8 @@ export function interiorAngle(sec: SectionShape, i: number): number {
 	const a = o[(i + n - 1) % n];
 	const b = o[i];
 	const c = o[(i + 1) % n];
-	const turn = Math.atan2(cross(a, b, c), dot(sub(b, a), sub(c, b)));
+	// dot(sub(b, a), sub(c, b)) written out: no temporary arrays, same arithmetic.
+	const turn = Math.atan2(cross(a, b, c), (b[0] - a[0]) * (c[0] - b[0]) + (b[1] - a[1]) * (c[1] - b[1]));
 	return Math.PI - sec.orientation * turn;
 }
 

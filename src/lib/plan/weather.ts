@@ -1,11 +1,9 @@
 // Cold and hot weather per ACI 306R / 305R, and the evaporation rate of bleed water (Uno 1998).
 
-import * as utilLib from './util';
 import * as unitsLib from './units';
 import type { Temperature } from './units';
 
 // Bound once: under the test runner every call through an import is a getter call.
-const { times } = utilLib;
 const { KG_PER_LB, M_PER_FT, temperature } = unitsLib;
 
 export const ACI_306 = {
@@ -74,7 +72,8 @@ export function assessWeather(
 	const out = pours.map((p): PourWeather => {
 		const air = tempOn(p.offset);
 		const concrete = conditions.concreteTemp ?? air;
-		const coldest = Math.min(...times(ACI_306.protectionDays, (k) => tempOn(p.offset + k)));
+		let coldest = Infinity;
+		for (let k = 0; k < ACI_306.protectionDays; k++) coldest = Math.min(coldest, tempOn(p.offset + k));
 		const e = evaporationRate(concrete, air, conditions.humidity, conditions.windKmh);
 		return {
 			section: p.section,
