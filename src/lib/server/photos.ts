@@ -1,35 +1,20 @@
 import { and, asc, eq } from 'drizzle-orm';
-import { fileTypeFromBuffer } from 'file-type';
 import sharp, { type OutputInfo } from 'sharp';
 import { db } from '$lib/server/db';
 import { planPhoto, type PlanPhoto } from '$lib/server/db/schema';
 import { storage } from './storage';
+import { MB } from './uploads';
 
-export const MAX_PHOTO_BYTES = 12 * 1024 * 1024;
+export const MAX_PHOTO_BYTES = 12 * MB;
 export const MAX_PHOTOS_PER_PLAN = 20;
-const ACCEPTED = new Set(['image/jpeg', 'image/png', 'image/webp']);
 
 export class PhotoRejected extends Error {}
 
 /**
- * Checks an upload by its bytes, not its name or the browser's word: only real JPEG, PNG or WebP
- * images within the size limit pass.
+ * Stores a site photo, already checked by sniffUpload: re-encoded upright without its metadata
+ * (phone photos carry the GPS position of the house), plus a small thumbnail.
  */
-export async function sniffImage(bytes: Uint8Array): Promise<string> {
-	if (bytes.byteLength === 0) throw new PhotoRejected('The file is empty.');
-	if (bytes.byteLength > MAX_PHOTO_BYTES) throw new PhotoRejected(`Photos can be at most ${MAX_PHOTO_BYTES / 1024 / 1024} MB.`);
-	const type = await fileTypeFromBuffer(bytes);
-	if (!type || !ACCEPTED.has(type.mime)) throw new PhotoRejected('That file is not a JPEG, PNG or WebP photo.');
-	return type.mime;
-}
-
-/**
- * Stores a site photo: re-encoded upright without its metadata (phone photos carry the GPS
- * position of the house), plus a small thumbnail.
- */
-export async function addPhoto(planId: string, bytes: Uint8Array, originalName: string): Promise<PlanPhoto> {
-	await sniffImage(bytes);
-	let image: Buffer, thumb: Buffer, info: OutputInfo;
+export async function addPhoto(planId: string, bytes: Uint8Array, originalName: string): Promise<PlanPhoto> {	let image: Buffer, thumb: Buffer, info: OutputInfo;
 	try {
 		({ data: image, info } = await sharp(bytes).rotate().resize({ width: 2400, height: 2400, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 85 }).toBuffer({ resolveWithObject: true }));
 		thumb = await sharp(bytes).rotate().resize({ width: 360, height: 270, fit: 'cover' }).webp({ quality: 75 }).toBuffer();

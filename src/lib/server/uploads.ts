@@ -25,11 +25,9 @@ export async function sniffUpload(file: File, o: { maxBytes: number; accept: Rec
 	return { ok: true, bytes, mime: type.mime, ext: type.ext, name: file.name.slice(0, 200) || `upload.${type.ext}` };
 }
 
+/** Images every upload may be (sharp reads each of them). */
+export const imageTypes: Record<string, string> = { 'image/jpeg': 'a JPEG', 'image/png': 'a PNG', 'image/webp': 'a WebP image' };
+
 /** What a licence or insurance document may be. */
-export const documentTypes: Record<string, string> = {
-	'application/pdf': 'a PDF',
-	'image/jpeg': 'a JPEG',
-	'image/png': 'a PNG',
-	'image/webp': 'a WebP image'
-};
+export const documentTypes: Record<string, string> = { 'application/pdf': 'a PDF', ...imageTypes };
 export const DOCUMENT_MAX_BYTES = 5 * MB;

@@ -1,6 +1,7 @@
 import { error, json } from '@sveltejs/kit';
 import { requireApiRole } from '$lib/server/api';
 import { addPhoto, listPhotos, MAX_PHOTO_BYTES, MAX_PHOTOS_PER_PLAN, PhotoRejected } from '$lib/server/photos';
+import { imageTypes, sniffUpload } from '$lib/server/uploads';
 import { findOwnPlan } from '$lib/server/plans';
 import type { RequestHandler } from './$types';
 
@@ -19,8 +20,10 @@ export const POST: RequestHandler = async ({ locals, params, request }) => {
 		return json({ message: 'Send the photo as multipart form data.' }, { status: 400 });
 	}
 	if (!(file instanceof File)) return json({ message: 'Choose a photo to upload.' }, { status: 400 });
+	const checked = await sniffUpload(file, { maxBytes: MAX_PHOTO_BYTES, accept: imageTypes, what: 'photo' });
+	if (!checked.ok) return json({ message: checked.message }, { status: 400 });
 	try {
-		const photo = await addPhoto(owned.id, new Uint8Array(await file.arrayBuffer()), file.name);
+		const photo = await addPhoto(owned.id, checked.bytes, checked.name);
 		return json({ photo: { id: photo.id, name: photo.originalName, width: photo.width, height: photo.height } }, { status: 201 });
 	} catch (err) {
 		if (err instanceof PhotoRejected) return json({ message: err.message }, { status: 400 });
