@@ -92,7 +92,7 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 		{ name: 'not-a-photo.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('just some text, not an image') }
 	]);
 	await expect(page.getByTestId('upload').filter({ hasText: 'lawn.png' })).toHaveAttribute('data-state', 'done');
-	await expect(page.getByTestId('upload').filter({ hasText: 'not-a-photo.jpg' })).toContainText('The photo must be a JPEG, a PNG or a WebP image');
+	await expect(page.getByTestId('upload').filter({ hasText: 'not-a-photo.jpg' })).toContainText('The photo must be a JPEG, a PNG, or a WebP image');
 	await expect(page.getByTestId('photo')).toHaveCount(1);
 	const thumb = await page.getByTestId('photo').locator('img').getAttribute('src');
 	const thumbRes = await page.request.get(thumb!);
