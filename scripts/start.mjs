@@ -36,7 +36,12 @@ app.on('exit', (code) => {
 	process.exit(code ?? 0);
 });
 
-await waitForHealth(`${s.env.ORIGIN}/healthz`);
+// Asked on loopback: ORIGIN may name a proxy or an HTTPS address this process does not serve.
+if (!(await waitForHealth(`http://127.0.0.1:${s.port}/healthz`))) {
+	for (const c of children) c.kill('SIGTERM');
+	console.error('The app did not answer within a minute; see the messages above.');
+	process.exit(1);
+}
 const demo = JSON.parse(fs.readFileSync(path.join(root, 'fixtures', 'demo.json'), 'utf8'));
 log(`Stakeline is ready after ${((Date.now() - started) / 1000).toFixed(1)} s: ${s.env.ORIGIN}`);
 console.log(`\n  Demo sign-ins (password for all: ${demo.password})`);
@@ -47,11 +52,11 @@ console.log('  Stop with Ctrl-C; the database keeps running (npm run db:stop sto
 async function waitForHealth(url) {
 	for (let i = 0; i < 300; i++) {
 		try {
-			if ((await fetch(url)).ok) return;
+			if ((await fetch(url)).ok) return true;
 		} catch {
 			/* not up yet */
 		}
 		await new Promise((r) => setTimeout(r, 200));
 	}
-	log(`The app did not answer ${url} within a minute`);
+	return false;
 }

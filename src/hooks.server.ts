@@ -3,7 +3,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { env } from '$env/dynamic/private';
 import * as auth from '$lib/server/auth';
-import { startMailWorker } from '$lib/server/mail';
+import { mailIdle, startMailWorker } from '$lib/server/mail';
 import { ensureAdmin } from '$lib/server/users';
 import { client } from '$lib/server/db';
 
@@ -11,7 +11,8 @@ export const init: ServerInit = async () => {
 	if (building) return;
 	await ensureAdmin(env.ADMIN_EMAIL, env.ADMIN_PASSWORD);
 	startMailWorker();
-	process.on('sveltekit:shutdown', () => void client.end({ timeout: 5 }));
+	// Let mail already being sent finish before the pool closes.
+	process.on('sveltekit:shutdown', () => void mailIdle().then(() => client.end({ timeout: 5 })));
 };
 
 const handleAuth: Handle = async ({ event, resolve }) => {

@@ -6,7 +6,7 @@ import { client, db } from './db';
 import { contractor, devMail, emailToken, mailOutbox, session, user } from './db/schema';
 import { createSession, generateSessionToken, invalidateUserSessions, validateSessionToken } from './auth';
 import { consumeEmailToken, createEmailToken, peekEmailToken } from './email-tokens';
-import { deliverDue, queueMail } from './mail';
+import { deliverDue, mailIdle, queueMail } from './mail';
 import { verifyPassword } from './password';
 import { clearSignInFailures, recordSignInFailure, signInWait } from './throttle';
 import { hashToken } from './tokens';
@@ -15,7 +15,10 @@ import { createUser, EmailTakenError } from './users';
 const DAY = 86_400_000;
 const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
 
-afterAll(() => client.end());
+afterAll(async () => {
+	await mailIdle();
+	await client.end();
+});
 
 describe('users', () => {
 	it('are stored with a lower-cased e-mail and an argon2id hash, never the password', async () => {
@@ -129,8 +132,7 @@ describe('mail outbox', () => {
 	it('delivers over SMTP to the local fake, which stores the message', async () => {
 		const to = unique('mail');
 		const id = await queueMail(to, { subject: 'Pour day is Saturday', text: 'Bring gloves.', html: '<p>Bring gloves.</p>' });
-		const [row] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, id));
-		expect(row.status).toBe('sent');
+		await expect.poll(async () => (await db.select().from(mailOutbox).where(eq(mailOutbox.id, id)))[0].status).toBe('sent');
 		await expect.poll(async () => (await db.select().from(devMail).where(eq(devMail.to, to))).map((m) => m.subject)).toEqual(['Pour day is Saturday']);
 	});
 

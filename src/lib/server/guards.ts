@@ -6,7 +6,10 @@ export const homeFor = (role: Role) => roleHome[role].href;
 
 /** Only same-site paths may be redirected to after sign-in. */
 export function safeRedirect(target: string | null | undefined, fallback: string): string {
-	return target && target.startsWith('/') && !target.startsWith('//') && !target.startsWith('/\\') ? target : fallback;
+	// Browsers drop tabs and newlines and read "\\" as "/", so "/\t/evil.example" would leave the site.
+	if (!target || !target.startsWith('/') || /[\s\\]/.test(target)) return fallback;
+	const url = new URL(target, 'http://stakeline.invalid');
+	return url.origin === 'http://stakeline.invalid' ? url.pathname + url.search + url.hash : fallback;
 }
 
 /** Signed-out visitors go to sign in and come back here afterwards. */

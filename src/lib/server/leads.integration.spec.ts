@@ -3,6 +3,7 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { haversineKm } from '$lib/geo';
 import { client, db } from './db';
+import { mailIdle } from './mail';
 import { bid, contractor, lead, mailOutbox, plan, planPhoto } from './db/schema';
 import {
 	acceptBid,
@@ -19,10 +20,14 @@ import {
 	withdrawBid
 } from './leads';
 import { matchContractors, placeOf } from './matching';
+import { deletePlan, PlanHasLeads } from './plans';
 import { createUser } from './users';
 import { decide } from './vetting';
 
-afterAll(() => client.end());
+afterAll(async () => {
+	await mailIdle();
+	await client.end();
+});
 
 const origin = 'http://127.0.0.1:3000';
 const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
@@ -184,6 +189,21 @@ describe('leads', () => {
 		const after = await db.select().from(bid).where(eq(bid.planId, p.id));
 		expect(after.map((x) => x.status).sort()).toEqual(['accepted', 'not_selected']);
 		expect((await db.select().from(lead).where(eq(lead.planId, p.id))).map((l) => l.status).sort()).toEqual(['not_selected', 'won']);
+	});
+
+	it('refuse a bid from a contractor sent back to review, and keep a plan that contractors have', async () => {
+		const a = await approvedContractor('Juniper', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const { owner, plan: p } = await homeownerWithPlan();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [a.id] }, origin);
+		const [l] = await db.select().from(lead).where(eq(lead.planId, p.id));
+		await saveBid(a.id, l.id, bidInput(1900), origin);
+		const [open] = await db.select().from(bid).where(eq(bid.leadId, l.id));
+		await db.update(contractor).set({ status: 'awaiting_review' }).where(eq(contractor.userId, a.id));
+		await expect(acceptBid(owner.id, p.id, open.id, origin)).rejects.toThrow(/not approved/);
+		expect((await db.select().from(bid).where(eq(bid.id, open.id)))[0].status).toBe('open');
+		expect(await unreadMessageCount({ id: a.id, role: 'contractor' })).toBe(0);
+		await expect(deletePlan(p.id, owner.id)).rejects.toBeInstanceOf(PlanHasLeads);
+		expect(await db.select().from(plan).where(eq(plan.id, p.id))).toHaveLength(1);
 	});
 
 	it('refuse an expired or withdrawn bid, and a suspension withdraws open bids', async () => {

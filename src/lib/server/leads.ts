@@ -118,7 +118,7 @@ export async function leadsForPlan(planId: string) {
 	return db
 		.select({
 			lead: { id: lead.id, contractorId: lead.contractorId, status: lead.status, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
-			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade },
+			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade, status: contractor.status },
 			bid,
 			unread: unreadFor('homeowner')
 		})
@@ -144,6 +144,9 @@ export async function acceptBid(ownerId: string, planId: string, bidId: string, 
 		if (already) throw new LeadRefused('You accepted a bid for this plan already.');
 		if (b.status !== 'open') throw new LeadRefused('This bid is no longer open.');
 		if (isExpired(b.validUntil)) throw new LeadRefused(`This bid was valid until ${b.validUntil}; ask the contractor to renew it.`);
+		// A contractor sent back to review or suspended since bidding cannot be hired through Stakeline.
+		const [c] = await tx.select({ status: contractor.status }).from(contractor).where(eq(contractor.userId, b.contractorId));
+		if (c?.status !== 'approved') throw new LeadRefused('This contractor is not approved at the moment, so the bid cannot be accepted.');
 		const now = new Date();
 		await tx.update(bid).set({ status: 'accepted', updatedAt: now }).where(eq(bid.id, b.id));
 		await tx.update(bid).set({ status: 'not_selected', updatedAt: now }).where(and(eq(bid.planId, planId), eq(bid.status, 'open'), ne(bid.id, b.id)));
@@ -324,6 +327,11 @@ export async function postMessage(sender: Actor & { role: string }, leadId: stri
 /** Unread messages across all of a user's threads, for the navigation. */
 export async function unreadMessageCount(u: { id: string; role: string }) {
 	if (u.role !== 'homeowner' && u.role !== 'contractor') return 0;
+	if (u.role === 'contractor') {
+		// Contractors who are not approved cannot open their threads, so nothing counts as waiting.
+		const [c] = await db.select({ status: contractor.status }).from(contractor).where(eq(contractor.userId, u.id));
+		if (c?.status !== 'approved') return 0;
+	}
 	const mine = u.role === 'homeowner' ? eq(lead.homeownerId, u.id) : eq(lead.contractorId, u.id);
 	const readAt = u.role === 'homeowner' ? lead.homeownerReadAt : sql`coalesce(${lead.contractorReadAt}, 'epoch')`;
 	const [{ n }] = await db

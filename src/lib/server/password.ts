@@ -7,6 +7,10 @@ export function hashPassword(password: string): Promise<string> {
 	return hash(password, options);
 }
 
+let dummy: Promise<string> | undefined;
+/** A hash of nothing anyone knows, made once, for checks against accounts that do not exist. */
+export const dummyHash = () => (dummy ??= hashPassword(crypto.randomUUID()));
+
 export async function verifyPassword(passwordHash: string, password: string): Promise<boolean> {
 	try {
 		return await verify(passwordHash, password);

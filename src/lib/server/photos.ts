@@ -3,7 +3,7 @@ import sharp, { type OutputInfo } from 'sharp';
 import { db } from '$lib/server/db';
 import { planPhoto, type PlanPhoto } from '$lib/server/db/schema';
 import { storage } from './storage';
-import { MB } from './uploads';
+import { imageTypes, MB, sniffUpload } from './uploads';
 
 export const MAX_PHOTO_BYTES = 12 * MB;
 export const MAX_PHOTOS_PER_PLAN = 20;
@@ -55,4 +55,20 @@ export async function deletePhoto(planId: string, photoId: string) {
 	const [row] = await db.delete(planPhoto).where(and(eq(planPhoto.planId, planId), eq(planPhoto.id, photoId))).returning();
 	if (row) await Promise.all([storage().delete(row.storageKey), storage().delete(row.thumbKey)]);
 	return row !== undefined;
+}
+
+export type PhotoUpload = { ok: true; photo: PlanPhoto } | { ok: false; status: number; message: string };
+
+/** Everything one uploaded file goes through, from the upload route and the no-JavaScript form alike. */
+export async function acceptPhotoUpload(planId: string, file: FormDataEntryValue | null): Promise<PhotoUpload> {
+	if (!(file instanceof File) || file.size === 0) return { ok: false, status: 400, message: 'Choose a photo to upload.' };
+	if ((await listPhotos(planId)).length >= MAX_PHOTOS_PER_PLAN) return { ok: false, status: 400, message: `A plan holds at most ${MAX_PHOTOS_PER_PLAN} photos.` };
+	const checked = await sniffUpload(file, { maxBytes: MAX_PHOTO_BYTES, accept: imageTypes, what: 'photo' });
+	if (!checked.ok) return { ok: false, status: 400, message: checked.message };
+	try {
+		return { ok: true, photo: await addPhoto(planId, checked.bytes, checked.name) };
+	} catch (err) {
+		if (err instanceof PhotoRejected) return { ok: false, status: 400, message: err.message };
+		throw err;
+	}
 }

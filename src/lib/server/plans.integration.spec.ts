@@ -2,10 +2,14 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
 import { client } from './db';
+import { mailIdle } from './mail';
 import { createPlan, deletePlan, duplicatePlan, findOwnPlan, listPlans, PlanInputInvalid, StaleRevision, updatePlan } from './plans';
 import { createUser } from './users';
 
-afterAll(() => client.end());
+afterAll(async () => {
+	await mailIdle();
+	await client.end();
+});
 
 const owner = () => createUser({ name: 'Plan Owner', email: `plans-${crypto.randomUUID()}@it.stakeline.test`, password: 'plans-password', role: 'homeowner' });
 const input = (length = 12) => ({ units: 'imperial', sections: [{ outline: [[0, 0], [length, 0], [length, 10], [0, 10]] }] });

@@ -1,7 +1,8 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { estimate, type PlanIssue, type PlanResult } from '$lib/plan';
 import { db } from '$lib/server/db';
-import { plan, type Plan } from '$lib/server/db/schema';
+import { lead, plan, planPhoto, type Plan } from '$lib/server/db/schema';
+import { storage } from './storage';
 import type { PlanRecord } from '$lib/planner/types';
 
 export class PlanInputInvalid extends Error {
@@ -92,9 +93,22 @@ export async function updatePlan(
 	return saved;
 }
 
+export class PlanHasLeads extends Error {
+	constructor() {
+		super('Contractors have this plan, with their bids and messages; it stays so their records do too.');
+	}
+}
+
+/** Deletes a plan and its photos' bytes; a plan already sent to contractors is kept for them. */
 export async function deletePlan(id: string, ownerId: string): Promise<boolean> {
-	const gone = await db.delete(plan).where(and(eq(plan.id, id), eq(plan.ownerId, ownerId))).returning({ id: plan.id });
-	return gone.length > 0;
+	const own = await findOwnPlan(id, ownerId);
+	if (!own) return false;
+	const [sent] = await db.select({ id: lead.id }).from(lead).where(eq(lead.planId, id)).limit(1);
+	if (sent) throw new PlanHasLeads();
+	const photos = await db.select().from(planPhoto).where(eq(planPhoto.planId, id));
+	await db.delete(plan).where(and(eq(plan.id, id), eq(plan.ownerId, ownerId)));
+	await Promise.all(photos.flatMap((p) => [storage().delete(p.storageKey), storage().delete(p.thumbKey)]));
+	return true;
 }
 
 export async function duplicatePlan(id: string, ownerId: string): Promise<Plan | undefined> {

@@ -2,6 +2,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { desc, eq } from 'drizzle-orm';
 import { client, db } from './db';
+import { mailIdle } from './mail';
 import { auditLog, contractor, contractorDocument, mailOutbox } from './db/schema';
 import { findContractor, saveContractorProfile } from './contractors';
 import { storage } from './storage';
@@ -9,7 +10,10 @@ import type { SniffedUpload } from './uploads';
 import { createUser } from './users';
 import { decide, VettingRefused } from './vetting';
 
-afterAll(() => client.end());
+afterAll(async () => {
+	await mailIdle();
+	await client.end();
+});
 
 const origin = 'http://127.0.0.1:3000';
 const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;

@@ -1,9 +1,11 @@
 import { and, asc, count, eq, isNotNull, isNull } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { contractor, user } from '$lib/server/db/schema';
+import { requireRole } from '$lib/server/guards';
 import type { PageServerLoad } from './$types';
 
-export const load = (async () => {
+export const load = (async (event) => {
+	requireRole(event, 'admin');
 	const byRole = await db.select({ role: user.role, n: count() }).from(user).groupBy(user.role);
 	// Only profiles sent for review are in the queue; sign-ups still filling theirs in are counted.
 	const waiting = await db

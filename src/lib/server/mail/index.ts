@@ -19,13 +19,20 @@ export function retryDelayMinutes(attempts: number): number {
 	return Math.min(60, 2 ** Math.max(0, attempts - 1));
 }
 
+const inFlight = new Set<Promise<unknown>>();
+/** Resolves once background sends started by queueMail have finished (tests close the pool after). */
+export const mailIdle = () => Promise.allSettled([...inFlight]);
+
 /**
  * Writes the message to the outbox and tries to send it at once. The action that sends mail
  * never fails because SMTP does: what cannot go now is retried by the worker.
  */
 export async function queueMail(to: string, mail: Mail) {
 	const [row] = await db.insert(mailOutbox).values({ to, ...mail }).returning({ id: mailOutbox.id });
-	await deliverDue().catch((err) => console.error('mail delivery:', err));
+	// Sent in the background: the request that queued it does not wait on the SMTP server.
+	const sending = deliverDue().catch((err) => console.error('mail delivery:', err));
+	inFlight.add(sending);
+	void sending.finally(() => inFlight.delete(sending));
 	return row.id;
 }
 

@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { renamePlanSchema } from '$lib/schemas/plan-record';
 import { parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
-import { deletePlan, duplicatePlan, findOwnPlan, listPlans, summarize, updatePlan } from '$lib/server/plans';
+import { deletePlan, duplicatePlan, findOwnPlan, listPlans, PlanHasLeads, StaleRevision, summarize, updatePlan } from '$lib/server/plans';
 import type { Actions, PageServerLoad } from './$types';
 
 const idSchema = z.object({ id: z.uuid() });
@@ -26,7 +26,12 @@ export const actions = {
 		if (failure) return fail(400, { ...failure.data, renaming: values.id });
 		const current = await findOwnPlan(data.id, me.id);
 		if (!current) return fail(404, { message: 'That plan no longer exists.' });
-		await updatePlan(data.id, me.id, { revision: current.revision, name: data.name });
+		try {
+			await updatePlan(data.id, me.id, { revision: current.revision, name: data.name });
+		} catch (err) {
+			if (err instanceof StaleRevision) return fail(409, { message: 'The plan changed while you renamed it; try again.' });
+			throw err;
+		}
 		redirect(303, '/plans');
 	},
 	duplicate: async (event) => {
@@ -41,7 +46,12 @@ export const actions = {
 		const me = requireRole(event, 'homeowner');
 		const { data, failure } = await parseForm(event.request, idSchema);
 		if (failure) return failure;
-		await deletePlan(data.id, me.id);
+		try {
+			await deletePlan(data.id, me.id);
+		} catch (err) {
+			if (err instanceof PlanHasLeads) return fail(409, { message: err.message });
+			throw err;
+		}
 		redirect(303, '/plans');
 	}
 } satisfies Actions;

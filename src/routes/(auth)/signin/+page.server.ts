@@ -3,7 +3,7 @@ import { signInSchema } from '$lib/schemas/account';
 import { startSession } from '$lib/server/auth';
 import { formError, parseForm } from '$lib/server/forms';
 import { homeFor, safeRedirect } from '$lib/server/guards';
-import { verifyPassword } from '$lib/server/password';
+import { dummyHash, verifyPassword } from '$lib/server/password';
 import { clearSignInFailures, formatWait, recordSignInFailure, signInWait } from '$lib/server/throttle';
 import { findUserByEmail } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
@@ -23,7 +23,9 @@ export const actions = {
 		if (wait > 0) return formError(values, `Too many failed sign-ins. For your safety, please wait ${formatWait(wait)} and try again.`, {}, 429);
 
 		const user = await findUserByEmail(data.email);
-		if (!user || !(await verifyPassword(user.passwordHash, data.password))) {
+		// An unknown address is checked against a dummy hash, so timing does not tell who has an account.
+		const ok = await verifyPassword(user?.passwordHash ?? (await dummyHash()), data.password);
+		if (!user || !ok) {
 			await recordSignInFailure(data.email, ip);
 			return formError(values, 'That e-mail and password do not match an account.', { password: 'Check your password, or reset it.' });
 		}

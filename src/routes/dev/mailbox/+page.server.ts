@@ -7,9 +7,12 @@ import type { PageServerLoad } from './$types';
 
 const LINK = /https?:\/\/[^\s<>"]+/g;
 
-export const load = (async ({ url }) => {
-	// Only the local fake SMTP server fills this table; without it the page does not exist.
-	if (env.MAIL_FAKE !== '1') error(404, 'Not found');
+const LOOPBACK = /^(127\.|::1$|::ffff:127\.)/;
+
+export const load = (async ({ url, getClientAddress }) => {
+	// Only the local fake SMTP server fills this table; without it the page does not exist. It holds
+	// sign-in links, so even then it answers only to this machine.
+	if (env.MAIL_FAKE !== '1' || !LOOPBACK.test(getClientAddress())) error(404, 'Not found');
 	const to = url.searchParams.get('to')?.trim().toLowerCase() ?? '';
 	const rows = await db
 		.select()

@@ -1,16 +1,25 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { requireRole } from '$lib/server/guards';
-import { deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
+import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load = (async ({ params }) => {
-	const photos = (await listPhotos(params.id)).map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height }));
+export const load = (async ({ parent }) => {
+	// The layout found the plan among the user's own; only then are its photos listed.
+	const { plan } = await parent();
+	const photos = (await listPhotos(plan.id)).map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height }));
 	return { photos, maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024 };
 }) satisfies PageServerLoad;
 
 export const actions = {
+	upload: async (event) => {
+		const me = requireRole(event, 'homeowner');
+		const owned = await findOwnPlan(event.params.id, me.id);
+		if (!owned) return fail(404, { message: 'No such plan.' });
+		const up = await acceptPhotoUpload(owned.id, (await event.request.formData()).get('photo'));
+		return up.ok ? { uploaded: true } : fail(up.status, { message: up.message });
+	},
 	deletePhoto: async (event) => {
 		const me = requireRole(event, 'homeowner');
 		const owned = await findOwnPlan(event.params.id, me.id);

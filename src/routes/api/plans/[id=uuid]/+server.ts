@@ -1,7 +1,7 @@
 import { error, json } from '@sveltejs/kit';
 import { updatePlanSchema } from '$lib/schemas/plan-record';
 import { badRequest, readBody, requireApiRole } from '$lib/server/api';
-import { deletePlan, findOwnPlan, PlanInputInvalid, planView, StaleRevision, updatePlan } from '$lib/server/plans';
+import { deletePlan, findOwnPlan, PlanHasLeads, PlanInputInvalid, planView, StaleRevision, updatePlan } from '$lib/server/plans';
 import type { RequestHandler } from './$types';
 
 function notFound(): never {
@@ -34,6 +34,11 @@ export const PATCH: RequestHandler = async ({ locals, params, request }) => {
 
 export const DELETE: RequestHandler = async ({ locals, params }) => {
 	const me = requireApiRole(locals, 'homeowner');
-	if (!(await deletePlan(params.id, me.id))) notFound();
+	try {
+		if (!(await deletePlan(params.id, me.id))) notFound();
+	} catch (err) {
+		if (err instanceof PlanHasLeads) return json({ message: err.message }, { status: 409 });
+		throw err;
+	}
 	return new Response(null, { status: 204 });
 };
