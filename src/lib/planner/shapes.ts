@@ -102,9 +102,3 @@ export function splitSection(o: Pt[], at = 0.5): [Pt[], Pt[]] | null {
 	if (onCut(first) !== 2 || onCut(second) !== 2) return null;
 	return [first, second];
 }
-
-/** Moves every vertex so the outlines' lower-left corner sits at the origin. */
-export function normalize(outlines: Pt[][]): Pt[][] {
-	const b = bounds(outlines);
-	return outlines.map((o) => o.map(([x, y]) => [round(x - b.minX), round(y - b.minY)] as Pt));
-}

@@ -19,11 +19,6 @@ const leadUrl = (origin: string, leadId: string) => `${origin}/pro/leads/${leadI
 const bidsUrl = (origin: string, planId: string) => `${origin}/plans/${planId}/bids`;
 const CLOSED: LeadStatus[] = ['declined', 'won', 'not_selected', 'withdrawn'];
 
-export async function ownedPlan(planId: string, ownerId: string) {
-	const [p] = await db.select().from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)));
-	return p ?? null;
-}
-
 /**
  * Sends the plan to the chosen contractors. Each lead freezes the plan's current revision and a
  * copy of its input and result. The choice is checked against the matching query again: the

@@ -5,15 +5,15 @@ import { serviceKinds, type ServiceKind } from '$lib/schemas/contractor';
 import { acceptSchema, getBidsSchema } from '$lib/schemas/leads';
 import { formError, parseForm, validateForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
-import { acceptBid, announceRevision, LeadRefused, leadsForPlan, ownedPlan, sendLeads } from '$lib/server/leads';
+import { acceptBid, announceRevision, LeadRefused, leadsForPlan, sendLeads } from '$lib/server/leads';
+import { findOwnPlan } from '$lib/server/plans';
 import { matchContractors, placeOf } from '$lib/server/matching';
-import { isUuid } from '$lib/uuid';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 /** The signed-in homeowner's own plan, or a 404 that says nothing about other people's plans. */
 async function ownPlan(event: RequestEvent | Parameters<PageServerLoad>[0]) {
 	const user = requireRole(event, 'homeowner');
-	const p = isUuid(event.params.id) ? await ownedPlan(event.params.id, user.id) : null;
+	const p = await findOwnPlan(event.params.id, user.id); // the [id=uuid] matcher checked the id
 	if (!p) error(404, 'No such plan');
 	return { user, plan: p };
 }
