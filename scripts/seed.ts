@@ -2,10 +2,10 @@
 // changes nothing. TypeScript run with tsx, so demo plans are computed by the real engine.
 import fs from 'node:fs';
 import path from 'node:path';
-import { hash } from '@node-rs/argon2';
 import postgres from 'postgres';
 import zipcodes from 'zipcodes';
 import { computePlan } from '../src/lib/plan/index';
+import { hashPassword } from '../src/lib/server/password';
 
 type DemoProfile = {
 	contactName: string;
@@ -76,8 +76,7 @@ async function seedContractor(tx: postgres.TransactionSql, id: string, c: DemoCo
 	}
 }
 
-// Same parameters as src/lib/server/password.ts.
-const passwordHash = await hash(demo.password, { memoryCost: 19456, timeCost: 2, outputLen: 32, parallelism: 1 });
+const passwordHash = await hashPassword(demo.password);
 let added = 0;
 try {
 	await sql.begin(async (tx) => {

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { IRC_R401_3, MIN_FALL, computeElevations, elevationAt, fallAwayFrom, slopePlane } from './elevations';
 import { computeForms } from './lumber';
-import { ELL, modelOf, rect } from './test-plans';
+import { cornerEll, ELL, modelOf, rect } from './test-plans';
 import type { PlanInput } from './schema';
 
 const FT = 0.3048;
@@ -63,14 +63,7 @@ describe('a 20 × 12 ft patio falling 2 % away from the house', () => {
 
 describe('an L around a house corner', () => {
 	it('needs a cross fall so both wall edges drain', () => {
-		const input: PlanInput = {
-			units: 'imperial',
-			sections: [{ outline: ELL }],
-			houseEdge: { section: 0, edge: 4 },
-			otherHouseEdges: [{ section: 0, edge: 5 }],
-			slope: { fall: { value: 2, unit: 'percent' }, crossFall: { value: 2, unit: 'percent' } }
-		};
-		const { e, plane, layout } = elevations(input);
+		const { e, plane, layout } = elevations(cornerEll);
 		expect(e.houseEdges.map((h) => h.fallAway.percent)).toEqual([expect.closeTo(2, 9), expect.closeTo(2, 9)]); // IRC R401.3
 		expect(e.steepest.percent).toBeCloseTo(2.8284, 4); // √(2² + 2²)
 		// (24, 18) is 24 ft along and 12 ft out: 0.02 × (24 + 12) ft = 0.72 ft = 8.64 in below the high corner (0, 6)

@@ -3,7 +3,7 @@
 
 import { describe, expect, it } from 'vitest';
 import { PlanInputError, computePlan, estimate, type PlanInput } from './index';
-import { ELL, rect } from './test-plans';
+import { cornerEll, ELL, rect } from './test-plans';
 
 describe('a 20 × 12 ft rectangle, 4 in thick', () => {
 	const r = computePlan({ units: 'imperial', sections: [{ outline: rect(0, 0, 20, 12) }] });
@@ -29,14 +29,7 @@ describe('a 20 × 12 ft rectangle, 4 in thick', () => {
 });
 
 describe('an L-shaped patio with a notch around a house corner', () => {
-	const input: PlanInput = {
-		units: 'imperial',
-		sections: [{ outline: ELL }],
-		houseEdge: { section: 0, edge: 4 },
-		otherHouseEdges: [{ section: 0, edge: 5 }],
-		slope: { fall: { value: 2, unit: 'percent' }, crossFall: { value: 2, unit: 'percent' } }
-	};
-	const r = computePlan(input);
+	const r = computePlan(cornerEll);
 
 	it('measures the L', () => {
 		expect(r.area.squareFeet).toBeCloseTo(384, 9); // 24 × 18 − 8 × 6
@@ -52,7 +45,7 @@ describe('an L-shaped patio with a notch around a house corner', () => {
 	});
 
 	it('warns when the cross fall runs back toward the second wall', () => {
-		const back = computePlan({ ...input, slope: { fall: { value: 2, unit: 'percent' }, crossFall: { value: -1, unit: 'percent' } } });
+		const back = computePlan({ ...cornerEll, slope: { fall: { value: 2, unit: 'percent' }, crossFall: { value: -1, unit: 'percent' } } });
 		expect(back.cautions.map((c) => c.id)).toContain('water-toward-foundation'); // IRC R401.3
 	});
 });

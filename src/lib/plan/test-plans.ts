@@ -15,6 +15,15 @@ export const rect = (x0: number, y0: number, w: number, h: number): [number, num
 /** L-shape: a 24 × 18 rectangle less an 8 × 6 notch at the origin (a house corner). */
 export const ELL: [number, number][] = [[8, 0], [24, 0], [24, 18], [0, 18], [0, 6], [8, 6]];
 
+/** ELL wrapped around a house corner: both inner edges are walls, 2 % fall and 2 % cross fall. */
+export const cornerEll: PlanInput = {
+	units: 'imperial',
+	sections: [{ outline: ELL }],
+	houseEdge: { section: 0, edge: 4 },
+	otherHouseEdges: [{ section: 0, edge: 5 }],
+	slope: { fall: { value: 2, unit: 'percent' }, crossFall: { value: 2, unit: 'percent' } }
+};
+
 export function modelOf(input: PlanInput) {
 	const r = parsePlanInput(input);
 	if (!r.ok) throw new Error(JSON.stringify(r.errors));

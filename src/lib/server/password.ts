@@ -1,6 +1,6 @@
 import { hash, verify } from '@node-rs/argon2';
 
-// argon2id with the OWASP-recommended minimum (19 MiB, 2 passes); scripts/seed.mjs uses the same.
+// argon2id with the OWASP-recommended minimum (19 MiB, 2 passes). No $lib imports: scripts/seed.ts uses it too.
 const options = { memoryCost: 19456, timeCost: 2, outputLen: 32, parallelism: 1 };
 
 export function hashPassword(password: string): Promise<string> {

@@ -6,6 +6,7 @@
 import type { PlanResult } from '$lib/plan';
 import { formatLength, formatSmall } from '$lib/plan/format';
 import { DRESSED_THICKNESS_IN } from '$lib/plan/model';
+import { signedArea } from '$lib/plan/polygon';
 import { M_PER_IN, planToM } from '$lib/plan/units';
 
 export type P2 = readonly [number, number];
@@ -92,11 +93,7 @@ const lerp3 = (a: P3, b: P3, f: number): P3 => [
 ];
 const near = (a: P2, b: P2) => len(sub(a, b)) < 1e-3;
 
-export function signedArea(poly: readonly P2[]): number {
-	let s = 0;
-	for (let i = 0; i < poly.length; i++) s += cross(poly[i], poly[(i + 1) % poly.length]);
-	return s / 2;
-}
+export { signedArea };
 
 export const surfaceAt = (s: Surface, p: P2) => s.z0 + s.dzdx * p[0] + s.dzdy * p[1];
 

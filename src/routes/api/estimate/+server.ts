@@ -1,4 +1,5 @@
-import { estimate, type PlanIssue } from '$lib/plan';
+import { estimate } from '$lib/plan';
+import { badRequest } from '$lib/server/api';
 import { toRoundedJson } from '$lib/plan/format';
 import type { RequestHandler } from './$types';
 
@@ -6,9 +7,6 @@ import type { RequestHandler } from './$types';
 const MAX_BODY_CHARS = 256 * 1024;
 
 const JSON_TYPE = { 'content-type': 'application/json; charset=utf-8' };
-
-const badRequest = (errors: PlanIssue[]) =>
-	new Response(JSON.stringify({ errors }), { status: 400, headers: JSON_TYPE });
 
 /** Public estimate: plan input as JSON in, the full plan out. No sign-in. */
 export const POST: RequestHandler = async ({ request }) => {
