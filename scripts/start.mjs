@@ -4,7 +4,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { root, settings } from './lib/settings.mjs';
-import { background, log } from './lib/run.mjs';
+import net from 'node:net';
+import { background, fail, log } from './lib/run.mjs';
 import { ensurePostgres } from './lib/pg.mjs';
 import { bin, build, ensureDependencies, migrate, node, seed } from './lib/steps.mjs';
 
@@ -17,6 +18,9 @@ ensurePostgres(s);
 migrate(s.env);
 seed(s.env);
 if (!dev) build();
+
+// A server already on the port would answer the health check below in this one's place.
+if (!(await portFree(s.host, s.port))) fail(`Port ${s.port} on ${s.host} is in use (another Stakeline running?); stop it or set PORT.`);
 
 const env = { ...process.env, ...s.env };
 const children = [];
@@ -59,4 +63,12 @@ async function waitForHealth(url) {
 		await new Promise((r) => setTimeout(r, 200));
 	}
 	return false;
+}
+
+function portFree(host, port) {
+	return new Promise((resolve) => {
+		const probe = net.createServer();
+		probe.once('error', () => resolve(false));
+		probe.listen(port, host, () => probe.close(() => resolve(true)));
+	});
 }
