@@ -22,7 +22,9 @@ export interface BagOption {
 	yield: Volume;
 	dryMass: Mass;
 	water: { liters: number; gallons: number };
-	/** Vehicle loads to haul the dry mass at the crew's payload. */
+	/** Whole bags one vehicle load carries at the crew's payload. */
+	bagsPerTrip: number;
+	/** Vehicle loads to haul the bags: whole bags per load. */
 	trips: number;
 	cost?: number;
 	/** The size the mixing plan uses. */
@@ -43,12 +45,22 @@ export interface ReadyMixResult {
 export interface Comparison {
 	cheaper: 'bags' | 'readyMix' | null;
 	bagSize?: number;
+	/** Concrete alone. */
 	bagCost?: number;
 	readyMixCost?: number;
+	/** Everything else on the materials list (forms, base, tools, reinforcement, curing, hauling), in both totals. */
+	sharedCost?: number;
+	/** Concrete plus the shared lines: the two ways compared on the same basis. */
+	bagTotal?: number;
+	readyMixTotal?: number;
+	/** Shared lines with no price yet, so neither total is complete. */
+	unpriced?: string[];
 }
 
-export function bagOption(b: BagOffer, orderM3: number, m: Model): BagOption {
-	const count = countUp(orderM3 / b.yieldM3);
+export function bagOption(b: BagOffer, pourM3: readonly number[], m: Model): BagOption {
+	let count = 0;
+	for (const v of pourM3) count += countUp(v / b.yieldM3);
+	const perTrip = Math.max(1, Math.floor(m.crew.payloadKg / b.kg + 1e-9));
 	const dryKg = count * b.kg;
 	const waterL = dryKg * m.bags.waterRatio; // 1 kg of water is 1 L
 	return {
@@ -58,7 +70,8 @@ export function bagOption(b: BagOffer, orderM3: number, m: Model): BagOption {
 		yield: volume(b.yieldM3),
 		dryMass: mass(dryKg),
 		water: { liters: waterL, gallons: waterL / L_PER_US_GAL },
-		trips: countUp(dryKg / m.crew.payloadKg),
+		bagsPerTrip: perTrip,
+		trips: countUp(count / perTrip),
 		cost: b.price === undefined ? undefined : count * b.price,
 		planned: b === m.bags.plan
 	};
@@ -84,12 +97,24 @@ export function readyMix(orderM3: number, m: Model): ReadyMixResult {
 
 const fmt = (x: number) => String(Math.round(x * 100) / 100);
 
-export function compareCost(bags: BagOption[], mix: ReadyMixResult): Comparison {
+/** Bags against ready-mix with the same forms, base, tools and other materials in both (mixing water left out). */
+export function compareCost(bags: BagOption[], mix: ReadyMixResult, materials?: { items: { id: string; cost?: number }[] }): Comparison {
 	const priced = bags.filter((b) => b.cost !== undefined);
 	const best = priced.reduce<BagOption | undefined>((a, b) => (!a || b.cost! < a.cost! ? b : a), undefined);
 	const bagCost = best?.cost;
 	const readyMixCost = mix.cost;
+	const shared = (materials?.items ?? []).filter((i) => i.id !== 'concrete-bags' && i.id !== 'water');
+	const sharedCost = shared.reduce((a, i) => a + (i.cost ?? 0), 0);
 	const cheaper =
 		bagCost === undefined || readyMixCost === undefined ? null : bagCost <= readyMixCost ? 'bags' : 'readyMix';
-	return { cheaper, bagSize: best?.size, bagCost, readyMixCost };
+	return {
+		cheaper,
+		bagSize: best?.size,
+		bagCost,
+		readyMixCost,
+		sharedCost,
+		bagTotal: bagCost === undefined ? undefined : bagCost + sharedCost,
+		readyMixTotal: readyMixCost === undefined ? undefined : readyMixCost + sharedCost,
+		unpriced: shared.filter((i) => i.cost === undefined).map((i) => i.id)
+	};
 }

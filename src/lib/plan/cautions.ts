@@ -9,6 +9,7 @@ import { NIOSH_LOAD_CONSTANT_KG } from './mixing';
 import type { Model } from './model';
 import * as unitsLib from './units';
 import type { VolumeResult } from './volume';
+import { addDays as addDaysIso, type ScheduleResult } from './schedule';
 import { toLbPerFt2h, type WeatherResult } from './weather';
 
 // Bound once: under the test runner every call through an import is a getter call.
@@ -32,7 +33,18 @@ export interface CautionContext {
 	mixing: MixingResult;
 	joints: JointsResult;
 	weather: WeatherResult;
+	schedule?: ScheduleResult;
 }
+
+/**
+ * IRC Table R402.2, porches, carport slabs and steps exposed to the weather (the row nearest a
+ * patio or walk): least 28-day strength by weathering potential, psi, and air entrainment 5–7 %
+ * where moderate or severe. Values as in reproductions of the 2018 IRC, not re-checked here.
+ */
+export const IRC_R402_2 = {
+	psi: { negligible: 2500, moderate: 3000, severe: 3500 },
+	air: { negligible: null, moderate: [5, 7], severe: [5, 7] }
+} as const;
 
 /** IRC R506.1 / ACI 332: slabs on ground at least 3½ in (89 mm). */
 export const MIN_THICKNESS_M = 3.5 * M_PER_IN;
@@ -57,8 +69,8 @@ const utilities: Rule = () => ({
 	id: 'utility-locate',
 	title: 'Have buried utilities marked before digging',
 	reason: 'The plan digs for the slab and its base; gas, power and water lines can run shallow.',
-	action: 'Call 811 in the US (or your one-call number) a few working days ahead and dig by hand near the marks.',
-	source: 'FCC 05-59 (2005), 811 as the one-call number',
+	action: 'Call 811 in the US (or your one-call number) at least 3 working days before digging — the day plan schedules it — wait for every utility to mark, and dig by hand near the marks.',
+	source: 'FCC 05-59 (2005), 811 as the one-call number; notice set by state one-call law (2–3 working days in most states)',
 	severity: 'warning'
 });
 
@@ -99,15 +111,22 @@ const silica: Rule = ({ joints }) => {
 	};
 };
 
-const unreinforced: Rule = ({ m }) => {
-	if (m.reinforcement === 'mesh' || m.reinforcement === 'rebar') return null;
+/**
+ * Vehicle and point loads need a designed slab whatever the reinforcement: mesh and rebar hold
+ * cracks tight once the concrete has cracked, they do not raise the cracking load of a thin slab
+ * (ACI 318-19 §19.2.3 modulus of rupture; ACI 302.1R on reinforcement for crack width).
+ */
+const loads: Rule = ({ m }) => {
+	const steel = m.reinforcement === 'mesh' || m.reinforcement === 'rebar';
 	const loaded = m.loads.vehicles || m.loads.pointLoads;
+	if (steel && !loaded) return null;
 	const psi = m.designStrengthMpa / 0.00689475729;
 	const fr = m.units === 'imperial' ? `${Math.round(modulusOfRupture.psi(psi))} psi` : `${one(modulusOfRupture.mpa(m.designStrengthMpa), 2)} MPa`;
+	const what = steel ? `reinforced with ${m.reinforcement === 'mesh' ? 'welded wire mesh' : 'rebar'}` : m.reinforcement === 'fiber' ? 'fiber-reinforced only' : 'unreinforced';
 	return {
-		id: 'unreinforced-loads',
-		title: 'Unreinforced concrete cracks under point and vehicle loads',
-		reason: `The slab is ${m.reinforcement === 'fiber' ? 'fiber-reinforced only' : 'unreinforced'}; it resists bending only up to its modulus of rupture, about ${fr} here${loaded ? ', and the plan expects vehicles or heavy point loads' : ''}.`,
+		id: steel ? 'loads-need-design' : 'unreinforced-loads',
+		title: steel ? 'Reinforcement does not make a slab carry vehicles' : 'Unreinforced concrete cracks under point and vehicle loads',
+		reason: `The slab is ${what}; it cracks once bending exceeds its modulus of rupture, about ${fr} here${steel ? ', and mesh or bars only hold the cracks closed afterwards' : ''}${loaded ? '; the plan expects vehicles or heavy point loads' : ''}.`,
 		action: loaded
 			? 'Have the slab designed for the loads (thickness, reinforcement, base) by a licensed professional; do not drive or set heavy loads on a patio slab.'
 			: 'Keep vehicles, hot tubs and post loads off it unless it is designed for them.',
@@ -115,6 +134,36 @@ const unreinforced: Rule = ({ m }) => {
 		severity: loaded ? 'danger' : 'info'
 	};
 };
+
+const freezeThaw: Rule[] = [
+	({ m }) => {
+		const need = IRC_R402_2.psi[m.exposure];
+		const psi = m.designStrengthMpa / 0.00689475729;
+		const low = psi < need - 0.5;
+		const air = IRC_R402_2.air[m.exposure];
+		if (!air && !low) return null;
+		const strength = m.units === 'imperial' ? `${need} psi` : `${one(need * 0.00689475729)} MPa`;
+		return {
+			id: 'freeze-thaw',
+			title: 'Winters that freeze: air-entrained concrete and enough strength',
+			reason: `For ${m.exposure} weathering an exterior slab needs at least ${strength}${air ? ` and ${air[0]}–${air[1]} % entrained air, which lets water in the pores freeze without spalling the surface` : ''}; the plan uses ${m.units === 'imperial' ? `${Math.round(psi)} psi` : `${one(m.designStrengthMpa)} MPa`}.`,
+			action: `${low ? `Raise the design strength to ${strength}. ` : ''}${air ? 'Order air-entrained ready-mix, or buy a bagged mix labelled air-entrained or for exterior freeze–thaw use; plain bagged mix usually is not.' : ''}`,
+			source: 'IRC Table R402.2 (as reproduced from the 2018 IRC)',
+			severity: low || air ? 'warning' : 'info'
+		};
+	},
+	({ m }) =>
+		m.exposure === 'negligible'
+			? null
+			: {
+					id: 'first-winter-deicer',
+					title: 'No de-icing salt the first winter',
+					reason: 'Young concrete has not dried out enough to resist de-icers; salts scale the surface where water freezes in it.',
+					action: 'Use sand for grip in the first winter; never use ammonium sulfate or ammonium nitrate de-icers at all.',
+					source: 'common practice, no published source (concrete industry guidance, from memory)',
+					severity: 'info'
+				}
+];
 
 const fillNearSurface: Rule = ({ m }) => {
 	if (!m.fill || m.fill.largestPiece <= m.thickened.extraDepth) return null;
@@ -191,15 +240,31 @@ const drainage: Rule[] = [
 ];
 
 const weatherRules: Rule[] = [
-	({ weather: w }) =>
-		!w.cold
+	({ weather: w }) => {
+		if (!w.cold) return null;
+		const safe = w.pours.map((p) => p.freezeSafeHours).filter((h): h is number => h !== null);
+		const last = w.pours.reduce((a, p) => ((p.freezeSafeHours ?? Infinity) > (a.freezeSafeHours ?? Infinity) ? p : a));
+		const when = !safe.length
+			? 'does not reach 500 psi (3.5 MPa) within 60 days at these temperatures'
+			: `reaches 500 psi (3.5 MPa), enough to survive a single freeze, about ${Math.ceil(Math.max(...safe))} h after placing${last.date && last.freezeSafeDay !== null ? ` (by ${addDaysIso(last.date, last.freezeSafeDay)})` : ''}`;
+		return {
+			id: 'cold-weather',
+			title: 'Cold weather',
+			reason: `The air falls to ${one(Math.min(...w.pours.map((p) => p.coldestAir.fahrenheit)))} °F (${one(Math.min(...w.pours.map((p) => p.coldestAir.celsius)))} °C) in the days after a pour — at or below 40 °F (4.4 °C) — or the mix goes in below 55 °F (13 °C). The concrete ${when}.`,
+			action: 'Keep the slab at or above 55 °F (13 °C) as placed, cover it with insulated blankets until it has reached 500 psi and through any frost, never pour on frozen ground; or wait for warmer days.',
+			source: 'ACI 306R (cold weather: air falling to 40 °F; Table 3.1; 500 psi after Powers); strength from ACI 209R-92 on ASTM C1074 equivalent age',
+			severity: 'warning'
+		};
+	},
+	({ m, weather: w }) =>
+		!w.coolCuring
 			? null
 			: {
-					id: 'cold-weather',
-					title: 'Cold weather',
-					reason: `Air drops to ${one(Math.min(...w.pours.map((p) => p.coldestAir.fahrenheit)))} °F (${one(Math.min(...w.pours.map((p) => p.coldestAir.celsius)))} °C) in the days after a pour, or the mix goes in below 55 °F (13 °C).`,
-					action: 'Keep the slab at or above 55 °F (13 °C) as placed and protect it from freezing with insulated blankets for the first days; never pour on frozen ground; or wait for warmer days.',
-					source: 'ACI 306R, Table 3.1',
+					id: 'cool-curing',
+					title: 'Too cool to cure without cover',
+					reason: `A daily mean of ${one(Math.min(...w.pours.map((p) => p.coldestCuringMean.fahrenheit)))} °F (${one(Math.min(...w.pours.map((p) => p.coldestCuringMean.celsius)))} °C) falls in the first ${m.cement === 'typeIII' ? 3 : 7} days after a pour; concrete should stay above 50 °F (10 °C) and moist that long.`,
+					action: 'Cover the slab with insulated curing blankets over the moist cure, or pour in a warmer week; strength gain slows and the milestones move out.',
+					source: 'ACI 318-19 §26.5.3.1 (section number from memory)',
 					severity: 'warning'
 				},
 	({ weather: w }) =>
@@ -242,6 +307,15 @@ const crew: Rule[] = [
 	({ m, mixing }) => {
 		const late = mixing.sections.filter((s) => !s.fits);
 		if (!late.length) return null;
+		if (late.every((s) => s.split && s.split.coldJoints.length))
+			return {
+				id: 'mixing-time',
+				title: 'Split into pours on separate days',
+				reason: `${late.map((s) => `${m.sections[s.index].name} (${s.split!.parts} pours of ${s.split!.bagsPerPart.join(', ')} bags)`).join('; ')}: the crew cannot place it in one go before the first batch stiffens.`,
+				action: 'Set a bulkhead board on stakes at each cold joint, on a control-joint line, and pour one part a day as the day plan lists; or add hands, a drum mixer, or order ready-mix.',
+				source: 'common practice (1½–2 h working time at 70 °F), no published source; joints ACI 302.1R',
+				severity: 'info'
+			};
 		return {
 			id: 'mixing-time',
 			title: 'The crew cannot place a section before it stiffens',
@@ -278,7 +352,7 @@ const build: Rule[] = [
 				}
 ];
 
-const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, unreinforced, fillNearSurface, oilRelease, ...drainage, ...weatherRules, ...crew, ...build];
+const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, loads, ...freezeThaw, fillNearSurface, oilRelease, ...drainage, ...weatherRules, ...crew, ...build];
 
 export function computeCautions(c: CautionContext): Caution[] {
 	return RULES.map((r) => r(c)).filter((x): x is Caution => x !== null);

@@ -17,6 +17,17 @@ export const DEFAULTS = {
 		payload: 1000, // lb — from memory (a half-ton pickup); read the vehicle's label
 		airTemp: 70, // °F — placeholder; enter the forecast
 		wind: 5, // mph — placeholder; enter the forecast
+		baseOverhang: 6, // in — base past the forms, common practice (6–12 in), no published source
+		stoneDensity: 1.4, // short tons per compacted yd³ — common practice 1.4–1.5
+		soilDensity: 1.35, // short tons per yd³ of soil in the ground (≈ 100 lb/ft³) — from memory
+		compoundCoverage: 200, // ft² per US gal — the ASTM C156 test rate for C309 compounds (Iowa DOT 4105); the label rules
+		meshWidth: 5, // ft — 5 × 10 ft sheets, common practice
+		meshLength: 10, // ft
+		wireSpacing: 6, // in — 6×6 mesh, common practice
+		chairSpacing: 3, // ft — supports at most 3 ft apart (WRI, as in Florida Building Code 1909.3)
+		barSpacing: 18, // in — example only; bar layout comes from a design (from memory)
+		barDiameter: 0.375, // in — #3 bar (ASTM A615 size designation)
+		barStock: 20, // ft — usual bar length on sale, common practice
 		maxCoordinate: 1000, // ft — keeps requests to yard-sized work
 		maxSmall: 48 // in
 	},
@@ -35,6 +46,17 @@ export const DEFAULTS = {
 		payload: 450, // kg — from memory; read the vehicle's label
 		airTemp: 21, // °C — placeholder; enter the forecast
 		wind: 8, // km/h — placeholder; enter the forecast
+		baseOverhang: 150, // mm — common practice, no published source
+		stoneDensity: 1.66, // t per compacted m³ (1.4 short tons/yd³) — common practice
+		soilDensity: 1.6, // t per m³ in the ground — from memory
+		compoundCoverage: 5, // m² per L (≈ 200 ft²/gal, the ASTM C156 test rate) — the label rules
+		meshWidth: 1.5, // m — common practice
+		meshLength: 3, // m
+		wireSpacing: 150, // mm — common practice
+		chairSpacing: 0.9, // m — at most 3 ft (WRI)
+		barSpacing: 450, // mm — example only; from memory
+		barDiameter: 10, // mm — 10M bar
+		barStock: 6, // m — common practice
 		maxCoordinate: 300, // m
 		maxSmall: 1200 // mm
 	}

@@ -3,19 +3,21 @@
 
 import { bagOption, compareCost, readyMix, type BagOption, type Comparison, type ReadyMixResult } from './bags';
 import { computeCautions, type Caution } from './cautions';
+import { formatSmall } from './format';
 import { computeElevations, slopePlane, type ElevationResult } from './elevations';
 import { layoutSections, PlanInputError, type Layout } from './geometry';
-import { computeJoints, type JointsResult, type SectionGrid } from './joints';
+import { closerGrid, computeJoints, type JointsResult, type SectionGrid } from './joints';
 import { computeForms, type FormsResult } from './lumber';
 import { computeMaterials, type MaterialsResult } from './materials';
 import { computeMixing, type MixingResult } from './mixing';
-import { airTempOn, toModel, type Model } from './model';
+import { airLowOn, airTempOn, toModel, type Model } from './model';
 import type { Pt } from './polygon';
 import {
 	ageSeries,
 	buildSchedule,
 	milestones,
 	pourOffsets,
+	type Pour,
 	strengthSeries,
 	type Milestone,
 	type ScheduleResult
@@ -104,38 +106,70 @@ function geometryResult(m: Model, layout: Layout, thick: boolean[][]): GeometryR
 const screedSpan = (grids: SectionGrid[]) =>
 	Math.max(...grids.map((g) => Math.min(g.us[g.us.length - 1] - g.us[0], g.ws[g.ws.length - 1] - g.ws[0])));
 
+/** The joint depth as the day plan states it. */
+const jointDepthText = (m: Model, j: JointsResult) => formatSmall(j.depth, m.units);
+
 /** Compute the plan from input already parsed by planInputSchema. */
 export function computeParsedPlan(p: ParsedPlan): PlanResult {
 	const m = toModel(p);
 	const layout = layoutSections(m.sections.map((s) => s.outline));
 	const thick = thickenedEdges(m, layout);
 	const volume = computeVolume(m, layout, thick);
-	const { forms, stakes } = computeForms(m, layout);
 	const plane = slopePlane(m, layout);
-	const elevations = computeElevations(m, layout, plane, stakes);
 	const tempOn = (d: number) => airTempOn(m, d);
-	const offsets = pourOffsets(m, layout.coldJoints, tempOn);
-	const bags = m.bags.offered.map((b) => bagOption(b, volume.order.cubicMeters, m));
-	const mix = readyMix(volume.order.cubicMeters, m);
-	const { joints, grids } = computeJoints(m, layout, plane.frame, plane.framed);
+	// Working time is judged on each section's day as if none were split; splits then add pour days.
+	const sectionDays = pourOffsets(m, layout.coldJoints, tempOn);
+	let { joints, grids } = computeJoints(m, layout, plane.frame, plane.framed);
+	const maxFor = new Map<number, number>();
+	const relay = (i: number, max: number) => {
+		maxFor.set(i, max);
+		return closerGrid(plane.framed[i], max, m.thickness, layout.eps);
+	};
 	const orders = volume.sections.map((s) => s.order.cubicMeters);
-	const mixing = computeMixing(m, orders, grids, plane.frame, offsets, tempOn, layout.eps);
+	const { mixing, splits } = computeMixing(m, orders, grids, plane.frame, sectionDays, tempOn, layout.eps, relay);
+	const cuts = new Map<number, { alongW: boolean; at: number[] }>();
+	splits.forEach((sp, i) => {
+		if (!sp?.segments.length) return;
+		cuts.set(i, sp.cut);
+		if (!sp.relaid) maxFor.delete(i);
+	});
+	if (cuts.size) ({ joints, grids } = computeJoints(m, layout, plane.frame, plane.framed, { maxFor, coldCuts: cuts }));
+	const pours: Pour[] = mixing.sections.flatMap((s) => s.pours.map((q, part) => ({ section: s.index, part, bags: q.bags })));
+	const offsets = pourOffsets(m, layout.coldJoints, tempOn, pours);
+	const bulkheads = splits.flatMap((sp, i) => (sp ? sp.segments.map((g) => ({ section: i, from: g.from, to: g.to })) : []));
+	const { forms, stakes } = computeForms(m, layout, bulkheads);
+	const elevations = computeElevations(m, layout, plane, stakes);
+	const pourM3 = mixing.sections.flatMap((s) => s.pours.map((q) => q.cubicMeters));
+	const bags = m.bags.offered.map((b) => bagOption(b, pourM3, m));
+	const mix = readyMix(volume.order.cubicMeters, m);
 	const last = Math.max(...offsets);
 	const stones = milestones(m, ageSeries(last, tempOn), last);
-	const schedule = buildSchedule(m, offsets, mixing.sections.map((s) => s.bags), stones);
+	const schedule = buildSchedule(m, pours, offsets, stones, jointDepthText(m, joints));
 	const weather = assessWeather(
 		schedule.pourDays.map((d, i) => ({ ...d, offset: offsets[i] })),
 		tempOn,
-		{ humidity: m.humidity, windKmh: m.windKmh, concreteTemp: m.concreteTemp }
+		{
+			humidity: m.humidity,
+			windKmh: m.windKmh,
+			concreteTemp: m.concreteTemp,
+			lowOn: (d) => airLowOn(m, d),
+			cement: m.cement,
+			designMpa: m.designStrengthMpa
+		}
 	);
 	const slabArea = layout.sections.reduce((a, s) => a + s.area, 0);
+	const planned = bags.find((b) => b.planned) ?? bags[0];
 	const materials = computeMaterials(m, {
 		volume,
 		forms,
-		planned: bags.find((b) => b.planned) ?? bags[0],
+		planned,
 		slabAreaM2: slabArea,
 		screedSpanM: screedSpan(grids),
-		hasJoints: joints.totalLength.meters > 0
+		hasJoints: joints.totalLength.meters > 0,
+		framed: plane.framed,
+		eps: layout.eps,
+		unformedHouse: m.hasHouse && !m.houseEdgeFormed,
+		alongSpanM: Math.max(...grids.map((g) => g.us[g.us.length - 1] - g.us[0]))
 	});
 	return {
 		units: m.units,
@@ -156,7 +190,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		elevations,
 		bags,
 		readyMix: mix,
-		cost: compareCost(bags, mix),
+		cost: compareCost(bags, mix, materials),
 		mixing,
 		joints,
 		strength: strengthSeries(m, last, tempOn, TIMELINE_DAYS),
@@ -164,7 +198,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		schedule,
 		weather,
 		materials,
-		cautions: computeCautions({ m, volume, elevations, mixing, joints, weather })
+		cautions: computeCautions({ m, volume, elevations, mixing, joints, weather, schedule })
 	};
 }
 

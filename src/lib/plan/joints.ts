@@ -156,12 +156,27 @@ export interface SectionGrid {
 
 const maxGap = (v: number[]) => v.slice(1).reduce((m, x, i) => Math.max(m, x - v[i]), 0);
 
+/** A section's grid laid with a closer maximum spacing (for a pour split); the sliver limit follows it. */
+export function closerGrid(poly: Pt[], maxSpacing: number, thickness: number, eps: number): SectionGrid {
+	const { min, max } = jointSpacing(thickness);
+	const g = panelGrid(poly, Math.min(max, maxSpacing), Math.min(min, maxSpacing), eps);
+	return { poly, us: g.us, ws: g.ws };
+}
+
+export interface JointOptions {
+	/** Closer maximum spacing per section, where a pour split needed it. */
+	maxFor?: Map<number, number>;
+	/** Lines that are cold joints (bulkheads) instead of control joints, per section. */
+	coldCuts?: Map<number, { alongW: boolean; at: number[] }>;
+}
+
 /** framed: the outlines already in the frame (slopePlane works them out); computed here if absent. */
 export function computeJoints(
 	m: Model,
 	layout: Layout,
 	frame: Frame,
-	framed?: Pt[][]
+	framed?: Pt[][],
+	opts: JointOptions = {}
 ): { joints: JointsResult; grids: SectionGrid[] } {
 	const { min, max } = jointSpacing(m.thickness);
 	const P = (p: Pt): Pt => [mToPlan(p[0], m.units), mToPlan(p[1], m.units)];
@@ -169,8 +184,11 @@ export function computeJoints(
 	const grids: SectionGrid[] = [];
 	const sections = layout.sections.map((s): SectionJoints => {
 		const poly = framed?.[s.index] ?? s.outline.map((p) => toFrame(frame, p));
-		const g = panelGrid(poly, max, min, layout.eps);
+		const closer = opts.maxFor?.get(s.index);
+		const g = closer === undefined ? panelGrid(poly, max, min, layout.eps) : panelGrid(poly, Math.min(max, closer), Math.min(min, closer), layout.eps);
 		grids.push({ poly, us: g.us, ws: g.ws });
+		const cold = opts.coldCuts?.get(s.index);
+		const isCold = (v: number, alongW: boolean) => !!cold && cold.alongW === alongW && cold.at.some((c) => Math.abs(c - v) <= layout.eps);
 		const lines: JointLine[] = [];
 		const push = (a: Pt, b: Pt, direction: JointLine['direction']) => {
 			const from = fromFrame(frame, a);
@@ -180,10 +198,12 @@ export function computeJoints(
 			lines.push({ from: P(from), to: P(to), length: length(len), direction });
 		};
 		for (const u of g.us.slice(1, -1))
-			for (const [w0, w1] of clipVertical(poly, u, layout.eps)) push([u, w0], [u, w1], 'across');
+			if (!isCold(u, false))
+				for (const [w0, w1] of clipVertical(poly, u, layout.eps)) push([u, w0], [u, w1], 'across');
 		const swapped = poly.map((p): Pt => [p[1], p[0]]);
 		for (const w of g.ws.slice(1, -1))
-			for (const [u0, u1] of clipVertical(swapped, w, layout.eps)) push([u0, w], [u1, w], 'along');
+			if (!isCold(w, true))
+				for (const [u0, u1] of clipVertical(swapped, w, layout.eps)) push([u0, w], [u1, w], 'along');
 		return {
 			index: s.index,
 			panels: g.panels,

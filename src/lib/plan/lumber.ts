@@ -19,6 +19,12 @@ export const KERF_M = 0.003;
 export const SCREWS_PER_FIXING = 2;
 /** Board and slab within this count as flush, 3 mm (⅛ in); from memory. */
 const FLUSH_M = 0.003;
+/** A cleat across each splice, 2 ft (0.6 m) of the same board; common practice, no published source. */
+export const CLEAT_M = 0.6;
+/** Screws through a cleat, two each side of the splice; from memory. */
+export const SCREWS_PER_CLEAT = 4;
+/** Screws through a lapping board into the end of the other at a corner; from memory. */
+export const SCREWS_PER_CORNER = 2;
 
 export type RunKind = 'outer' | 'house' | 'bulkhead';
 
@@ -41,8 +47,15 @@ export interface StakePoint {
 	kind: 'corner' | 'splice' | 'line';
 }
 
-/** Outer edges, house edges and the bulkheads set at each cold joint for the earlier pour. */
-export function formRuns(m: Model, layout: Layout): Run[] {
+/** A bulkhead inside a section where a pour is split, metres. */
+export interface SplitBulkhead {
+	section: number;
+	from: Pt;
+	to: Pt;
+}
+
+/** Outer edges, house edges, the bulkheads at each cold joint for the earlier pour, and those of split pours. */
+export function formRuns(m: Model, layout: Layout, splits: readonly SplitBulkhead[] = []): Run[] {
 	const runs: Run[] = [];
 	const isHouse = (s: number, e: number) => m.houseEdges.some((h) => h.section === s && h.edge === e);
 	const add = (kind: RunKind, section: number, edge: number, from: Pt, to: Pt, formed: boolean) =>
@@ -55,11 +68,40 @@ export function formRuns(m: Model, layout: Layout): Run[] {
 				add(kind, sec.index, e.index, lerp(e.from, e.to, t0), lerp(e.from, e.to, t1), formed);
 		}
 	for (const j of layout.coldJoints) add('bulkhead', j.sections[0], j.edges[0], j.from, j.to, true);
+	for (const b of splits) add('bulkhead', b.section, -1, b.from, b.to, true);
 	return runs;
 }
 
-/** Board length a run needs: one board thickness extra so boards lap at the corners. */
-const boardRunLength = (r: Run, m: Model) => r.length + (r.kind === 'bulkhead' ? 0 : m.forms.boardThickness);
+/**
+ * Board length each formed run needs. At every corner one board runs past the other by its
+ * thickness; a run takes the lap at its start unless that would cost it a splice a stock board
+ * avoids, and then the run ending at that corner takes it instead (common practice).
+ */
+export function lapLengths(
+	runs: readonly Run[],
+	t: number,
+	maxStock: number,
+	key: (p: Pt) => number
+): { lengths: Map<string, number>; laps: number } {
+	const lengths = new Map<string, number>();
+	let laps = 0;
+	const formed = runs.filter((r) => r.formed && r.kind !== 'bulkhead');
+	const endingAt = new Map<number, Run>();
+	for (const r of formed) endingAt.set(key(r.to), r);
+	for (const r of formed) lengths.set(r.id, r.length);
+	for (const r of formed) {
+		const prev = endingAt.get(key(r.from));
+		if (!prev) continue; // a free end (against the house): no corner to lap
+		laps++;
+		const own = lengths.get(r.id)!;
+		const other = lengths.get(prev.id)!;
+		const costs = (len: number) => countUp((len + t) / maxStock) > countUp(len / maxStock);
+		if (costs(own) && !costs(other)) lengths.set(prev.id, other + t);
+		else lengths.set(r.id, own + t);
+	}
+	for (const r of runs) if (!lengths.has(r.id)) lengths.set(r.id, r.length);
+	return { lengths, laps };
+}
 
 /** Equal pieces no longer than the longest stock board. */
 export function splitRun(len: number, maxStock: number): number[] {
@@ -119,6 +161,10 @@ export interface FormsResult {
 	cutList: { stock: Length; cuts: { run: string; length: Length }[]; offcut: Length }[];
 	stakes: { count: number; length: Small; spacing: Length };
 	screws: number;
+	/** Cleats across splices, each CLEAT_M of board. */
+	cleats: number;
+	/** Corners where one board laps the other. */
+	corners: number;
 	isolationStrip: Length;
 }
 
@@ -140,8 +186,12 @@ export function formFit(depth: number, thickness: number): Pick<FormsResult, 'fi
 	};
 }
 
-export function computeForms(m: Model, layout: Layout): { forms: FormsResult; stakes: StakePoint[] } {
-	const runs = formRuns(m, layout);
+export function computeForms(
+	m: Model,
+	layout: Layout,
+	splits: readonly SplitBulkhead[] = []
+): { forms: FormsResult; stakes: StakePoint[] } {
+	const runs = formRuns(m, layout, splits);
 	const maxStock = m.forms.stockLengths[m.forms.stockLengths.length - 1];
 	const pieces: { run: string; length: number }[] = [];
 	const stakes: StakePoint[] = [];
@@ -149,14 +199,20 @@ export function computeForms(m: Model, layout: Layout): { forms: FormsResult; st
 	const seen = new Set<number>(); // a corner shared by two runs gets one stake
 	const key = (p: Pt) => Math.round(p[0] * 1e4) * 1e8 + Math.round(p[1] * 1e4); // 0.1 mm grid
 	let formLength = 0;
+	let cleats = 0;
+	const { lengths: boardLength, laps: corners } = lapLengths(runs, m.forms.boardThickness, maxStock, key);
 	for (const r of runs) {
 		if (!r.formed) continue;
 		formLength += r.length;
-		const parts = splitRun(boardRunLength(r, m), maxStock);
+		const parts = splitRun(boardLength.get(r.id)!, maxStock);
 		const splices: number[] = [];
 		for (let i = 0; i < parts.length; i++) {
 			pieces.push({ run: r.id, length: parts[i] });
-			if (i) splices.push(parts[0] * i);
+			if (i) {
+				splices.push(parts[0] * i);
+				pieces.push({ run: `${r.id} cleat`, length: Math.min(CLEAT_M, maxStock) });
+				cleats++;
+			}
 		}
 		for (const s of runStakes(r, splices, m.forms.stakeSpacing)) {
 			fixings += s.kind === 'splice' ? 2 : 1;
@@ -196,7 +252,9 @@ export function computeForms(m: Model, layout: Layout): { forms: FormsResult; st
 				offcut: length(b.left)
 			})),
 			stakes: { count: stakes.length, length: small(m.forms.stakeLength), spacing: length(m.forms.stakeSpacing) },
-			screws: fixings * SCREWS_PER_FIXING,
+			screws: fixings * SCREWS_PER_FIXING + cleats * SCREWS_PER_CLEAT + corners * SCREWS_PER_CORNER,
+			cleats,
+			corners,
 			isolationStrip: length(runs.filter((r) => !r.formed).reduce((a, r) => a + r.length, 0))
 		}
 	};

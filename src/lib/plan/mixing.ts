@@ -58,7 +58,109 @@ export interface Split {
 	bagsPerPart: number[];
 	/** Where the new cold joints go, in plan coordinates; empty when impractical. */
 	coldJoints: { from: Pt; to: Pt }[];
+	/** true when the control joints of this section were re-laid closer so a cold joint could sit on one. */
+	relaid: boolean;
 	note: string;
+}
+
+/** A split as the engine uses it: the cuts in metres and each part's volume. */
+export interface SplitPlan extends Split {
+	/** Cold-joint segments in metres (plan frame), for the bulkhead forms. */
+	segments: { from: Pt; to: Pt }[];
+	partsM3: number[];
+	/** Cut positions in the frame and whether they are w (true) or u values, for the joint layout. */
+	cut: { alongW: boolean; at: number[] };
+}
+
+/**
+ * Greedy cuts on joint lines: from one end, each part runs to the farthest line that keeps it within
+ * maxBags. Returns the cut positions, or null when one strip between neighbouring lines is too big.
+ */
+export function cutsOnLines(poly: readonly Pt[], lines: number[], bagsFor: (area: number) => number, maxBags: number): number[] | null {
+	const total = Math.abs(signedArea(poly));
+	const cuts: number[] = [];
+	let before = 0;
+	for (;;) {
+		if (bagsFor(total - before) <= maxBags) return cuts;
+		let best: number | null = null;
+		for (const l of lines) {
+			if (cuts.length && l <= cuts[cuts.length - 1]) continue;
+			const a = areaLeftOf(poly, l);
+			if (a - before > 0 && bagsFor(a - before) <= maxBags) best = l;
+		}
+		if (best === null) return null;
+		cuts.push(best);
+		before = areaLeftOf(poly, best);
+	}
+}
+
+/**
+ * Split into pours of at most maxBags, with every cold joint on a control-joint line (ACI 302.1R
+ * panels stay ≤ 1.5 : 1). When no line falls where a cut must go, relay(maxSpacing) lays the
+ * section's joints closer and the cut is tried again.
+ */
+export function splitSection(
+	grid: SectionGrid,
+	sectionM3: number,
+	yieldM3: number,
+	maxBags: number,
+	frame: Frame,
+	units: Model['units'],
+	eps: number,
+	relay?: (maxSpacing: number) => SectionGrid
+): SplitPlan {
+	const bags = countUp(sectionM3 / yieldM3);
+	const uSpan = grid.us[grid.us.length - 1] - grid.us[0];
+	const wSpan = grid.ws[grid.ws.length - 1] - grid.ws[0];
+	// Cut across the longer direction; work with x as that direction.
+	const across = wSpan > uSpan;
+	const flip = (g: SectionGrid) => (across ? g.poly.map((q): Pt => [q[1], q[0]]) : g.poly);
+	const poly = flip(grid);
+	const total = Math.abs(signedArea(poly));
+	const bagsFor = (a: number) => countUp(((a / total) * sectionM3) / yieldM3);
+	const span = across ? wSpan : uSpan;
+	let lines = (across ? grid.ws : grid.us).slice(1, -1);
+	let cuts = cutsOnLines(poly, lines, bagsFor, maxBags);
+	let relaid = false;
+	if ((cuts === null || cuts.length + 1 > MAX_PRACTICAL_PARTS) && relay) {
+		// Strips narrow enough that each holds at most maxBags, with 10 % to spare for rounding.
+		const g = relay((span * maxBags * 0.9) / bags);
+		lines = (across ? g.ws : g.us).slice(1, -1);
+		const again = cutsOnLines(flip(g), lines, bagsFor, maxBags);
+		if (again !== null && (cuts === null || again.length < cuts.length)) {
+			cuts = again;
+			relaid = true;
+		}
+	}
+	if (cuts === null || cuts.length + 1 > MAX_PRACTICAL_PARTS) {
+		const parts = Math.max(countUp(bags / maxBags), (cuts?.length ?? 0) + 1);
+		return {
+			parts,
+			bagsPerPart: times(parts, (k) => Math.floor(bags / parts) + (k < bags % parts ? 1 : 0)),
+			coldJoints: [],
+			segments: [],
+			partsM3: [sectionM3],
+			cut: { alongW: across, at: [] },
+			relaid: false,
+			note: `The crew would need ${parts} separate pours for this section; ready-mix or more hands is the practical answer.`
+		};
+	}
+	const ends = [...cuts.map((c) => areaLeftOf(poly, c)), total];
+	const partsM3 = ends.map((a, i) => ((a - (i ? ends[i - 1] : 0)) / total) * sectionM3);
+	const toPlane = (q: Pt): Pt => fromFrame(frame, across ? [q[1], q[0]] : q);
+	const segments: SplitPlan['segments'] = [];
+	for (const c of cuts) for (const [a, b] of clipVertical(poly, c, eps)) segments.push({ from: toPlane([c, a]), to: toPlane([c, b]) });
+	const P = (p: Pt): Pt => [mToPlan(p[0], units), mToPlan(p[1], units)];
+	return {
+		parts: cuts.length + 1,
+		bagsPerPart: partsM3.map((v) => countUp(v / yieldM3)),
+		coldJoints: segments.map((j) => ({ from: P(j.from), to: P(j.to) })),
+		segments,
+		partsM3,
+		cut: { alongW: across, at: cuts },
+		relaid,
+		note: `Pour this section as ${cuts.length + 1} parts on separate days, each cold joint on a control-joint line with a bulkhead board${relaid ? ' (the control joints are laid closer for this)' : ''}; or order ready-mix.`
+	};
 }
 
 export interface MixingSection extends CrewTime {
@@ -70,6 +172,8 @@ export interface MixingSection extends CrewTime {
 	spareMinutes: number;
 	fits: boolean;
 	split?: Split;
+	/** The pours this section is placed in, in order: one, or the parts of a split. */
+	pours: { bags: number; cubicMeters: number }[];
 }
 
 export interface MixingResult {
@@ -77,92 +181,12 @@ export interface MixingResult {
 	method: 'hand' | 'drum';
 	people: number;
 	sections: MixingSection[];
+	/** Bags poured over every pour: the same count as the planned bag size bought. */
+	totalBags: number;
 	fits: boolean;
 	readyMixSuggested: boolean;
 	bagsPerPerson: number;
 	heaviestLift: { mass: Mass; loadConstant: Mass; overLoadConstant: boolean };
-}
-
-/**
- * Cut positions x = c leaving the given shares of area to the left. Between two vertex x's the
- * chord length is linear, so the area is quadratic in c: bracket with the area at each vertex x,
- * fit the quadratic from one midpoint, and solve it.
- */
-export function cutsAt(poly: readonly Pt[], shares: number[]): number[] {
-	const xs = [...new Set(poly.map((p) => p[0]))].sort((a, b) => a - b);
-	// Area left of each vertex x, worked out only as far as the scans below reach (each is O(n)).
-	const known: number[] = [];
-	const at = (k: number) => (known[k] ??= areaLeftOf(poly, xs[k]));
-	const total = at(xs.length - 1);
-	return shares.map((share) => {
-		const target = share * total;
-		let k = 0;
-		while (k + 2 < xs.length && at(k + 1) < target) k++;
-		const h = xs[k + 1] - xs[k];
-		const d1 = at(k + 1) - at(k);
-		const dm = areaLeftOf(poly, xs[k] + h / 2) - at(k);
-		const s = (4 * (d1 - 2 * dm)) / (h * h); // d(chord)/dx
-		const l0 = (d1 - (s * h * h) / 2) / h; // chord at xs[k]
-		const r = target - at(k);
-		const root = Math.sqrt(Math.max(0, l0 * l0 + 2 * s * r));
-		const t = l0 + root > 0 ? (2 * r) / (l0 + root) : 0;
-		return xs[k] + Math.min(h, Math.max(0, t));
-	});
-}
-
-/** Split into parts of at most maxBags, cutting across the section's longer direction. */
-export function splitSection(
-	grid: SectionGrid,
-	bags: number,
-	maxBags: number,
-	frame: Frame,
-	units: Model['units'],
-	eps: number
-): Split {
-	const parts = countUp(bags / maxBags);
-	if (parts > MAX_PRACTICAL_PARTS)
-		return {
-			parts,
-			bagsPerPart: times(parts, (k) => Math.floor(bags / parts) + (k < bags % parts ? 1 : 0)),
-			coldJoints: [],
-			note: `The crew would need ${parts} separate pours for this section; ready-mix or more hands is the practical answer.`
-		};
-	const uSpan = grid.us[grid.us.length - 1] - grid.us[0];
-	const wSpan = grid.ws[grid.ws.length - 1] - grid.ws[0];
-	// Cut across the longer direction; work with x as that direction.
-	const across = wSpan > uSpan;
-	const poly = across ? grid.poly.map((q): Pt => [q[1], q[0]]) : grid.poly;
-	const lines = across ? grid.ws : grid.us;
-	const total = Math.abs(signedArea(poly));
-	const bagsIn = (a: number) => countUp((a / total) * bags);
-	const exacts = cutsAt(poly, times(parts - 1, (k) => (k + 1) / parts));
-	const cuts: number[] = [];
-	let before = 0;
-	const inner = lines.slice(1, -1);
-	exacts.forEach((exact, k) => {
-		// Move the cut onto the nearest control-joint line if both parts beside it still fit.
-		let snap = exact;
-		for (const l of inner) if (Math.abs(l - exact) < Math.abs(snap - exact)) snap = l;
-		const a = areaLeftOf(poly, snap);
-		const after = k + 1 < exacts.length ? areaLeftOf(poly, exacts[k + 1]) : total;
-		const fits = a > before && after > a && bagsIn(a - before) <= maxBags && bagsIn(after - a) <= maxBags;
-		cuts.push(fits ? snap : exact);
-		before = fits ? a : areaLeftOf(poly, exact);
-	});
-	const ends = [...cuts.map((c) => areaLeftOf(poly, c)), total];
-	const bagsPerPart = ends.map((a, i) => bagsIn(a - (i ? ends[i - 1] : 0)));
-	const P = (q: Pt): Pt => {
-		const p = fromFrame(frame, across ? [q[1], q[0]] : q);
-		return [mToPlan(p[0], units), mToPlan(p[1], units)];
-	};
-	const coldJoints: Split['coldJoints'] = [];
-	for (const c of cuts) for (const [a, b] of clipVertical(poly, c, eps)) coldJoints.push({ from: P([c, a]), to: P([c, b]) });
-	return {
-		parts,
-		bagsPerPart,
-		coldJoints,
-		note: `Pour this section as ${parts} parts with a bulkhead at each new cold joint (on a control-joint line where one is near), or order ready-mix.`
-	};
 }
 
 export function computeMixing(
@@ -172,36 +196,50 @@ export function computeMixing(
 	frame: Frame,
 	pourDays: number[],
 	tempOn: (day: number) => number,
-	eps: number
-): MixingResult {
+	eps: number,
+	relay?: (section: number, maxSpacing: number) => SectionGrid
+): { mixing: MixingResult; splits: (SplitPlan | undefined)[] } {
 	const bag = m.bags.plan;
+	const splits: (SplitPlan | undefined)[] = [];
 	const sections = orderM3.map((v, i): MixingSection => {
-		const bags = countUp(v / bag.yieldM3);
-		const time = crewTime(bags, bag, m.crew);
+		const whole = countUp(v / bag.yieldM3);
+		const time = crewTime(whole, bag, m.crew);
 		const t = m.concreteTemp ?? tempOn(pourDays[i]);
 		const working = workingMinutes(m.crew.workingMinutesAt21C, t);
 		const spare = working - time.totalMinutes - m.crew.finishMinutes;
 		const s: MixingSection = {
 			index: i,
-			bags,
+			bags: whole,
 			...time,
 			temperature: temperature(t),
 			workingMinutes: working,
 			finishMinutes: m.crew.finishMinutes,
 			spareMinutes: spare,
-			fits: spare >= 0
+			fits: spare >= 0,
+			pours: [{ bags: whole, cubicMeters: v }]
 		};
-		const perBag = bags ? time.totalMinutes / bags : 0;
-		const maxBags = perBag ? Math.floor((working - m.crew.finishMinutes) / perBag + 1e-9) : bags;
-		if (!s.fits && maxBags >= 1) s.split = splitSection(grids[i], bags, maxBags, frame, m.units, eps);
+		const perBag = whole ? time.totalMinutes / whole : 0;
+		const maxBags = perBag ? Math.floor((working - m.crew.finishMinutes) / perBag + 1e-9) : whole;
+		if (!s.fits && maxBags >= 1) {
+			const plan = splitSection(grids[i], v, bag.yieldM3, maxBags, frame, m.units, eps, relay && ((max) => relay(i, max)));
+			const { parts, bagsPerPart, coldJoints, relaid, note } = plan;
+			s.split = { parts, bagsPerPart, coldJoints, relaid, note };
+			splits[i] = plan;
+			if (plan.segments.length) {
+				// One rounding rule: each pour is rounded up to whole bags, and the section is their sum.
+				s.pours = plan.partsM3.map((p) => ({ bags: countUp(p / bag.yieldM3), cubicMeters: p }));
+				s.bags = s.pours.reduce((a, p) => a + p.bags, 0);
+			}
+		}
 		return s;
 	});
 	const totalBags = sections.reduce((a, s) => a + s.bags, 0);
-	return {
+	const mixing: MixingResult = {
 		bag: { size: bag.size, unit: m.units === 'imperial' ? 'lb' : 'kg', mass: mass(bag.kg) },
 		method: m.crew.method,
 		people: m.crew.people,
 		sections,
+		totalBags,
 		fits: sections.every((s) => s.fits),
 		readyMixSuggested: sections.some((s) => !s.fits),
 		bagsPerPerson: countUp(totalBags / m.crew.people),
@@ -211,4 +249,5 @@ export function computeMixing(
 			overLoadConstant: bag.kg > NIOSH_LOAD_CONSTANT_KG
 		}
 	};
+	return { mixing, splits };
 }

@@ -9,7 +9,10 @@ import type { Units } from './units';
 // Bound once: under the test runner every call through an import is a getter call.
 const {
 	KG_PER_LB,
+	L_PER_US_GAL,
+	M2_PER_FT2,
 	M3_PER_FT3,
+	M3_PER_YD3,
 	M_PER_IN,
 	massToKg,
 	orderVolumeToM3,
@@ -58,8 +61,9 @@ export interface Model {
 		stockLengths: number[];
 		boardThickness: number;
 	};
-	thickened: { edges: 'none' | 'free' | EdgeRef[]; width: number; extraDepth: number };
-	base: { depth: number; bulking: number };
+	thickened: { edges: 'none' | 'free' | EdgeRef[]; width: number; extraDepth: number; profile: 'rectangular' | 'tapered' };
+	/** Densities in kg/m³. */
+	base: { depth: number; bulking: number; overhang: number; stoneDensity: number; soilDensity: number };
 	fill: null | { volume?: number; share?: number; largestPiece: number };
 	reinforcement: ParsedPlan['reinforcement'];
 	loads: { vehicles: boolean; pointLoads: boolean };
@@ -78,6 +82,29 @@ export interface Model {
 		releaseAgent?: number;
 		isolationStripPerM?: number;
 		curingCoverPerM2?: number;
+		/** Per litre. */
+		curingCompoundPerL?: number;
+		fiberPerKg?: number;
+		rebarPerM?: number;
+		chair?: number;
+		tools?: number;
+		haulSoil?: number;
+	};
+	exposure: 'negligible' | 'moderate' | 'severe';
+	/** coverage in m² per litre. */
+	curing: { method: 'cover' | 'wet' | 'compound'; coverage: number };
+	reinforcing: {
+		meshForm: 'sheet' | 'roll';
+		meshWidth: number;
+		meshLength: number;
+		wireSpacing: number;
+		chairSpacing: number;
+		barSpacing: number;
+		barDiameter: number;
+		barStock: number;
+		lapDiameters: number;
+		/** kg of fiber per bag of the plan's size, when the label's dose is given. */
+		fiberPerBagKg?: number;
 	};
 	crew: {
 		people: number;
@@ -92,6 +119,8 @@ export interface Model {
 	};
 	/** Daily mean air temperature from the first pour day on, °C. */
 	airTemps: number[];
+	/** Daily low air temperature from the first pour day on, °C; empty when not given. */
+	airLows: number[];
 	humidity: number;
 	windKmh: number;
 	concreteTemp?: number;
@@ -168,9 +197,16 @@ export function toModel(p: ParsedPlan): Model {
 		thickened: {
 			edges: p.thickenedEdge.edges,
 			width: S(p.thickenedEdge.width),
-			extraDepth: p.thickenedEdge.extraDepth === undefined ? S(p.thickness) : S(p.thickenedEdge.extraDepth)
+			extraDepth: p.thickenedEdge.extraDepth === undefined ? S(p.thickness) : S(p.thickenedEdge.extraDepth),
+			profile: p.thickenedEdge.profile
 		},
-		base: { depth: S(p.base.depth), bulking: p.base.bulking },
+		base: {
+			depth: S(p.base.depth),
+			bulking: p.base.bulking,
+			overhang: S(p.base.overhang),
+			stoneDensity: density(p.base.stoneDensity, u),
+			soilDensity: density(p.base.soilDensity, u)
+		},
 		fill: p.fill
 			? {
 					volume: p.fill.volume === undefined ? undefined : planVolumeToM3(p.fill.volume, u),
@@ -202,7 +238,32 @@ export function toModel(p: ParsedPlan): Model {
 			meshPerM2: p.prices.mesh === undefined ? undefined : p.prices.mesh / L(1) ** 2,
 			releaseAgent: p.prices.releaseAgent,
 			isolationStripPerM: perL(p.prices.isolationStrip),
-			curingCoverPerM2: p.prices.curingCover === undefined ? undefined : p.prices.curingCover / L(1) ** 2
+			curingCoverPerM2: p.prices.curingCover === undefined ? undefined : p.prices.curingCover / L(1) ** 2,
+			curingCompoundPerL: p.prices.curingCompound === undefined ? undefined : u === 'imperial' ? p.prices.curingCompound / L_PER_US_GAL : p.prices.curingCompound,
+			fiberPerKg: p.prices.fiber === undefined ? undefined : p.prices.fiber / massToKg(1, u),
+			rebarPerM: perL(p.prices.rebar),
+			chair: p.prices.chair,
+			tools: p.prices.tools,
+			haulSoil: p.prices.haulSoil
+		},
+		exposure: p.exposure,
+		curing: {
+			method: p.curing.method,
+			// ft²/gal → m²/L: × 0.3048² / 3.785411784
+			coverage: u === 'imperial' ? (p.curing.coverage * M2_PER_FT2) / L_PER_US_GAL : p.curing.coverage
+		},
+		reinforcing: {
+			meshForm: p.reinforcing.meshForm,
+			meshWidth: L(p.reinforcing.meshWidth),
+			meshLength: L(p.reinforcing.meshLength),
+			wireSpacing: S(p.reinforcing.wireSpacing),
+			chairSpacing: L(p.reinforcing.chairSpacing),
+			barSpacing: S(p.reinforcing.barSpacing),
+			barDiameter: S(p.reinforcing.barDiameter),
+			barStock: L(p.reinforcing.barStock),
+			lapDiameters: p.reinforcing.lapDiameters,
+			fiberPerBagKg:
+				p.reinforcing.fiberPerBag === undefined ? undefined : u === 'imperial' ? (p.reinforcing.fiberPerBag / 16) * KG_PER_LB : p.reinforcing.fiberPerBag / 1000
 		},
 		crew: {
 			people: p.crew.people,
@@ -216,6 +277,9 @@ export function toModel(p: ParsedPlan): Model {
 			payloadKg: massToKg(p.crew.payload, u)
 		},
 		airTemps: temps.map((t) => tempToC(t, u)),
+		airLows: (p.conditions.airLow === undefined ? [] : Array.isArray(p.conditions.airLow) ? p.conditions.airLow : [p.conditions.airLow]).map((t) =>
+			tempToC(t, u)
+		),
 		humidity: p.conditions.humidity,
 		windKmh: windToKmh(p.conditions.wind, u),
 		concreteTemp: p.conditions.concreteTemp === undefined ? undefined : tempToC(p.conditions.concreteTemp, u),
@@ -224,6 +288,15 @@ export function toModel(p: ParsedPlan): Model {
 		jointMethod: p.joints.method
 	};
 }
+
+/** Short tons per yd³ (2000 lb each) or t per m³, to kg/m³. */
+function density(v: number, u: Units): number {
+	return u === 'imperial' ? (v * 2000 * KG_PER_LB) / M3_PER_YD3 : v * 1000;
+}
+
+/** Daily low on a day counted from the first pour, holding the last given value; the mean when none was given. */
+export const airLowOn = (m: Model, day: number) =>
+	m.airLows.length ? m.airLows[Math.min(day, m.airLows.length - 1)] : airTempOn(m, day);
 
 /** Air temperature on a day counted from the first pour (0), holding the last given value. */
 export const airTempOn = (m: Model, day: number) => m.airTemps[Math.min(day, m.airTemps.length - 1)];

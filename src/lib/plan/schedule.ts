@@ -1,5 +1,6 @@
-// The day plan: site work, one pour per day (a bulkhead comes off only once the earlier section has
-// set), stripping, moist curing, and the strength milestones from the equivalent-age timeline.
+// The day plan: the utility locate, site work, one pour per day (a bulkhead comes off only once the
+// earlier pour has set), finishing and jointing, curing, and the strength milestones from the
+// equivalent-age timeline.
 
 import type { ColdJointSeg } from './geometry';
 import type { Model } from './model';
@@ -11,16 +12,62 @@ import type { StrengthDay } from './strength';
 const { times } = utilLib;
 const { ageFactor, equivalentAges, strengthRatio, strengthTimeline } = strengthLib;
 
-/** Plan day of the first pour: day 1 layout and digging, day 2 forms and base. */
-export const FIRST_POUR_DAY = 3;
+/** Plan day of the first pour when no date is known: day 1 the locate call, day 4 layout and digging, day 5 forms and base. */
+export const FIRST_POUR_DAY = 6;
+/**
+ * Working days' notice the one-call centre gets before digging: 2–3 in most US states, so the plan
+ * keeps 3 (state one-call laws; 811 guidance says a few working days — common practice).
+ */
+export const LOCATE_WORKING_DAYS = 3;
+
+/** 0 Sunday … 6 Saturday; 1970-01-01 was a Thursday. */
+export const weekday = (dayNum: number) => (((dayNum + 4) % 7) + 7) % 7;
+
+/** Calendar days from the locate call back from a dig date: the call leaves n working days before it (weekends skipped; holidays are the reader's to add). */
+export function locateLead(digIso: string | undefined, n = LOCATE_WORKING_DAYS): number {
+	if (!digIso) return n;
+	const dig = dayNumber(+digIso.slice(0, 4), +digIso.slice(5, 7), +digIso.slice(8, 10));
+	let d = dig;
+	for (let count = 0; count < n; ) {
+		d--;
+		const w = weekday(d);
+		if (w !== 0 && w !== 6) count++;
+	}
+	return dig - d;
+}
+
+/** Plan day of the first pour: the call on day 1, digging when the notice has run, forms the next day, then the pour. */
+export function firstPourDay(m: Pick<Model, 'pourDate'>): number {
+	return 1 + locateLead(m.pourDate ? addDays(m.pourDate, -2) : undefined) + 2;
+}
+
+/** One pour: a whole section, or one part of a split section. */
+export interface Pour {
+	section: number;
+	part: number;
+	bags: number;
+}
 /** Days of timeline computed so late milestones in cold weather are still found. */
 const HORIZON = 90;
 
-/** ACI 308R / ACI 318 §26.5.3: keep moist at least 7 days (3 high-early), and until 70 % of f'c. */
+/**
+ * End of curing: 7 days (3 high-early) at 20 °C equivalent age — ACI 318-19 §26.5.3.1 asks them
+ * above 50 °F, so cooler days count for less (ASTM C1074) — or sooner once 70 % of f'c is reached,
+ * whichever comes first (the 70 % alternative: ACI 308.1, from memory).
+ */
 export const CURING = { typeI: 7, typeIII: 3, percent: 70 } as const;
 
-/** Calendar offset (0 = first pour) of each section's pour. */
-export function pourOffsets(m: Model, coldJoints: readonly ColdJointSeg[], tempOn: (d: number) => number): number[] {
+/**
+ * Calendar offset (0 = first pour) of each pour. A pour waits a day after the one before, and its
+ * bulkheads come off only once the pour behind each has set (the forms-off equivalent age): the
+ * earlier part of its own section, or any earlier section it shares a cold joint with.
+ */
+export function pourOffsets(
+	m: Model,
+	coldJoints: readonly ColdJointSeg[],
+	tempOn: (d: number) => number,
+	pours: readonly Pick<Pour, 'section' | 'part'>[] = m.sections.map((s) => ({ section: s.index, part: 0 }))
+): number[] {
 	// cumulative[d]: equivalent age gained from day 0 up to the start of day d.
 	const cumulative = [0];
 	let lastT = NaN;
@@ -34,8 +81,16 @@ export function pourOffsets(m: Model, coldJoints: readonly ColdJointSeg[], tempO
 		cumulative.push(cumulative[d] + f);
 	}
 	const offsets: number[] = [];
-	for (let k = 0; k < m.sections.length; k++) {
-		const earlier = coldJoints.filter((j) => j.sections[1] === k).map((j) => offsets[j.sections[0]]);
+	for (let k = 0; k < pours.length; k++) {
+		const { section, part } = pours[k];
+		const earlier: number[] = [];
+		if (part > 0) earlier.push(offsets[k - 1]);
+		else
+			for (const j of coldJoints)
+				if (j.sections[1] === section)
+					pours.forEach((q, i) => {
+						if (i < k && q.section === j.sections[0]) earlier.push(offsets[i]);
+					});
 		let day = k === 0 ? 0 : offsets[k - 1] + 1;
 		const set = (from: number) => cumulative[Math.min(day, HORIZON)] - cumulative[from] >= m.milestones.formsOffDays - 1e-9;
 		while (day < HORIZON && !earlier.every(set)) day++;
@@ -95,8 +150,12 @@ export interface ScheduleDay {
 
 export interface ScheduleResult {
 	days: ScheduleDay[];
-	pourDays: { section: number; day: number; date?: string }[];
+	/** One entry per pour; a split section has one per part. */
+	pourDays: { section: number; part: number; bags: number; day: number; date?: string }[];
 	curingDays: number;
+	/** The plan day of the locate call and of digging. */
+	locateDay: number;
+	digDay: number;
 }
 
 /** Equivalent age after each whole day since the last pour, far enough out for cold weather. */
@@ -116,6 +175,7 @@ export function strengthSeries(m: Model, lastPour: number, tempOn: (d: number) =
 }
 
 export function milestones(m: Model, ages: number[], lastPour: number): Milestone[] {
+	const first0 = firstPourDay(m);
 	const ms = m.milestones;
 	const first = (ok: (te: number) => boolean) => {
 		const i = ages.findIndex(ok);
@@ -125,46 +185,83 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 	const byPercent = (p: number) => first((te) => strengthRatio(te, m.cement) * 100 >= p - 1e-9);
 	const curingMin = CURING[m.cement];
 	const to70 = byPercent(CURING.percent);
+	const byDays = byAge(curingMin);
 	const list: Omit<Milestone, 'planDay' | 'date'>[] = [
 		{ id: 'forms-off', title: 'Strip the forms', day: byAge(ms.formsOffDays), rule: `${ms.formsOffDays} day(s) at 20 °C equivalent age`, source: 'common practice (about 24 h)' },
 		{ id: 'walk', title: 'Walk on it', day: byAge(ms.walkDays), rule: `${ms.walkDays} day(s) at 20 °C equivalent age`, source: 'common practice (24–48 h)' },
 		{ id: 'furniture', title: 'Set furniture on it', day: byAge(ms.furnitureDays), rule: `${ms.furnitureDays} day(s) at 20 °C equivalent age`, source: 'from memory' },
-		{ id: 'vehicles', title: 'Drive on it', day: byPercent(ms.vehiclePercent), rule: `${ms.vehiclePercent} % of design strength`, source: 'common practice (about 70 % of design strength)' },
-		{ id: 'curing-done', title: 'Stop moist curing', day: to70 === null ? null : Math.max(curingMin, to70), rule: `at least ${curingMin} days and until ${CURING.percent} % of design strength`, source: 'ACI 308R; ACI 318 §26.5.3' }
+		...(m.loads.vehicles
+			? [{ id: 'vehicles' as const, title: 'Drive on it', day: byPercent(ms.vehiclePercent), rule: `${ms.vehiclePercent} % of design strength`, source: 'common practice (about 70 % of design strength)' }]
+			: []),
+		{
+			id: 'curing-done',
+			title: m.curing.method === 'compound' ? 'Curing compound has done its work' : 'Stop curing',
+			day: byDays === null ? to70 : to70 === null ? byDays : Math.min(byDays, to70),
+			rule: `${curingMin} days at 20 °C equivalent age, or sooner once ${CURING.percent} % of design strength, whichever comes first`,
+			source: `ACI 318-19 §26.5.3.1 (${curingMin} days above 50 °F); 70 %: ACI 308.1 (from memory)`
+		}
 	];
 	const date = m.pourDate ? datesFrom(m.pourDate) : null;
 	return list.map((x) => {
-		const planDay = x.day === null ? null : FIRST_POUR_DAY + lastPour + x.day;
-		return { ...x, planDay, date: date && planDay !== null ? date(planDay - FIRST_POUR_DAY) : undefined };
+		const planDay = x.day === null ? null : first0 + lastPour + x.day;
+		return { ...x, planDay, date: date && planDay !== null ? date(planDay - first0) : undefined };
 	});
+}
+
+/** Finishing steps on a pour day, each with its source (ACI 302.1R or common practice). */
+function finishing(m: Model, jointDepthIn: string): { id: string; text: string }[] {
+	return [
+		{ id: 'screed', text: 'Screed the surface off the forms as each load goes in, then bull-float it at once (common practice).' },
+		{ id: 'bleed', text: 'Wait until the bleed water has left the surface before edging or floating again: working water back in weakens the top (ACI 302.1R, from memory).' },
+		{ id: 'edge', text: 'Run an edger along every form and bulkhead (common practice).' },
+		m.jointMethod === 'saw'
+			? { id: 'saw-window', text: `Saw the control joints ${jointDepthIn} deep as soon as the cut does not ravel: about 4–12 h after placing with a conventional saw, sooner in heat, 1–4 h with an early-entry saw (ACI 302.1R-15, as ACI's own guidance states).` }
+			: { id: 'tool', text: `Tool the control joints ${jointDepthIn} deep with a groover while the concrete is still plastic, and again after floating (ACI 302.1R).` },
+		{ id: 'broom', text: 'Broom the surface across the fall for grip once it holds the marks (common practice).' }
+	];
+}
+
+/** The curing step for the chosen method (ACI 308R lists water, sheet and membrane curing). */
+function curingStep(m: Model): string {
+	switch (m.curing.method) {
+		case 'wet':
+			return 'Start wet curing once the surface will not mark: keep it continuously wet by sprinkling or ponding, never letting it dry between wettings (ACI 308R).';
+		case 'compound':
+			return 'Once the surface sheen has gone, spray the ASTM C309 curing compound in one even coat at the label rate (ACI 308R).';
+		default:
+			return 'Once the surface will not mark, wet it and cover it with plastic sheet or wet burlap, lapped and weighted at the edges; keep it moist under the cover (ACI 308R).';
+	}
 }
 
 export function buildSchedule(
 	m: Model,
+	pours: readonly Pour[],
 	offsets: number[],
-	bagsPerSection: number[],
-	stones: Milestone[]
+	stones: Milestone[],
+	jointDepthIn = '¼ of the thickness'
 ): ScheduleResult {
+	const first0 = firstPourDay(m);
+	const digDay = first0 - 2;
 	const days = new Map<number, ScheduleDay['tasks']>();
 	const add = (day: number, id: string, text: string) => {
 		if (!days.has(day)) days.set(day, []);
 		days.get(day)!.push({ id, text });
 	};
-	add(0, 'locate', 'Before digging: call 811 (or your one-call number) and wait for the utility marks.');
-	add(1, 'layout', 'Lay out the outline with stakes and string; mark the high point from the reference.');
-	add(1, 'dig', 'Dig to slab thickness plus base depth, and the trenches for any thickened edges.');
-	add(2, 'forms', 'Set the form boards and stakes to the level-line table; coat the boards with release agent.');
-	add(2, 'base', 'Spread the base and compact it in lifts; fit the isolation strip against the house.');
+	add(1, 'locate', `Call 811 (or your one-call number) at least ${LOCATE_WORKING_DAYS} working days before digging, and wait until every utility has marked or cleared (state one-call law rules the notice).`);
+	add(digDay, 'layout', 'Check the utility marks are all in; lay out the outline with stakes and string; mark the high point from the reference.');
+	add(digDay, 'dig', 'Dig to slab thickness plus base depth, the base past the forms, and the trenches for any thickened edges; dig by hand near any marks.');
+	add(digDay + 1, 'forms', 'Set the form boards and stakes to the level-line table; coat the boards with release agent.');
+	add(digDay + 1, 'base', 'Spread the base and compact it in lifts; fit the isolation strip against the house.');
 	if (m.reinforcement === 'mesh' || m.reinforcement === 'rebar')
-		add(2, 'reinforcement', 'Lay the reinforcement on supports so it ends up within the slab, not on the ground.');
-	offsets.forEach((o, i) => {
-		const day = FIRST_POUR_DAY + o;
-		if (i > 0) add(day, `bulkhead-${i}`, 'Take off the bulkhead at the cold joint before this pour.');
-		add(day, `pour-${i}`, `Pour ${m.sections[i].name}: ${bagsPerSection[i]} bags — mix, place, screed, float, edge.`);
-		add(day, `joints-${i}`, m.jointMethod === 'saw'
-			? 'Saw the control joints as soon as the surface is firm enough not to ravel (from memory: within about 4–12 h).'
-			: 'Tool the control joints with a groover while the concrete is still plastic.');
-		add(day, `cure-${i}`, 'Start moist curing once the surface can take it without marking.');
+		add(digDay + 1, 'reinforcement', 'Lay the reinforcement on chairs so it ends up within the slab, not on the ground.');
+	pours.forEach((p, i) => {
+		const day = first0 + offsets[i];
+		const name = `${m.sections[p.section].name}${pours.some((q) => q.section === p.section && q.part > 0) ? `, part ${p.part + 1}` : ''}`;
+		if (p.part > 0) add(day, `bulkhead-${i}`, 'Take off the bulkhead at the cold joint from the last pour; oil its edge and leave the joint straight.');
+		else if (i > 0) add(day, `bulkhead-${i}`, 'Take off the bulkhead at the cold joint before this pour.');
+		add(day, `pour-${i}`, `Pour ${name}: ${p.bags} bags — mix, place and strike off.`);
+		for (const f of finishing(m, jointDepthIn)) add(day, `${f.id}-${i}`, f.text);
+		add(day, `cure-${i}`, curingStep(m));
 	});
 	for (const s of stones)
 		if (s.planDay !== null) add(s.planDay, s.id, `${s.title} (${s.rule}).`);
@@ -174,16 +271,20 @@ export function buildSchedule(
 		.sort((a, b) => a[0] - b[0])
 		.map(([day, tasks]) => ({
 			day,
-			date: date ? date(day - FIRST_POUR_DAY) : undefined,
+			date: date ? date(day - first0) : undefined,
 			tasks
 		}));
 	return {
 		days: list,
-		pourDays: offsets.map((o, i) => ({
-			section: i,
-			day: FIRST_POUR_DAY + o,
-			date: date ? date(o) : undefined
+		pourDays: pours.map((p, i) => ({
+			section: p.section,
+			part: p.part,
+			bags: p.bags,
+			day: first0 + offsets[i],
+			date: date ? date(offsets[i]) : undefined
 		})),
-		curingDays: curing
+		curingDays: curing,
+		locateDay: 1,
+		digDay
 	};
 }

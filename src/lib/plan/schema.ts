@@ -171,7 +171,11 @@ function planSchemaFor<U extends Units>(units: U) {
 				width: smallDim.default(d.edgeWidth).describe(`Trench width, ${S}; from memory.`),
 				extraDepth: smallDim
 					.optional()
-					.describe(`Depth below the slab, ${S}; defaults to the thickness (common practice).`)
+					.describe(`Depth below the slab, ${S}; defaults to the thickness (common practice).`),
+				profile: z
+					.enum(['rectangular', 'tapered'])
+					.default('rectangular')
+					.describe('tapered: full depth at the form, sloping up to the slab underside at the trench width.')
 			})
 		),
 		base: withDefaults(
@@ -182,7 +186,10 @@ function planSchemaFor<U extends Units>(units: U) {
 					.min(1)
 					.max(2)
 					.default(COMMON.baseBulking)
-					.describe('Loose ÷ compacted volume (common practice 1.15–1.30).')
+					.describe('Loose ÷ compacted volume (common practice 1.15–1.30).'),
+				overhang: smallDim.default(d.baseOverhang).describe(`Base past the forms, ${S}; common practice.`),
+				stoneDensity: z.number().min(0.5).max(3).default(d.stoneDensity).describe(`Compacted stone, ${imp ? 'short tons per yd³' : 't per m³'}; common practice.`),
+				soilDensity: z.number().min(0.5).max(3).default(d.soilDensity).describe(`Dug soil in the ground, ${imp ? 'short tons per yd³' : 't per m³'}; from memory.`)
 			})
 		),
 		fill: z
@@ -261,7 +268,13 @@ function planSchemaFor<U extends Units>(units: U) {
 				mesh: price.optional().describe(`Per ${L}².`),
 				releaseAgent: price.optional(),
 				isolationStrip: price.optional().describe(`Per ${L}.`),
-				curingCover: price.optional().describe(`Per ${L}².`)
+				curingCover: price.optional().describe(`Per ${L}².`),
+				curingCompound: price.optional().describe(`Per ${imp ? 'US gal' : 'L'}.`),
+				fiber: price.optional().describe(`Per ${imp ? 'lb' : 'kg'} of fiber.`),
+				rebar: price.optional().describe(`Per ${L} of bar.`),
+				chair: price.optional().describe('Per support chair.'),
+				tools: price.optional().describe('Tools bought or hired, one sum; counted for bags and ready-mix alike.'),
+				haulSoil: price.optional().describe('Per load of dug soil hauled away.')
 			})
 		),
 		crew: withDefaults(
@@ -298,6 +311,10 @@ function planSchemaFor<U extends Units>(units: U) {
 					.union([temp, z.array(temp).min(1).max(60)])
 					.default(d.airTemp)
 					.describe(`Daily mean air temperature, ${T}: one value or one per day from the first pour.`),
+				airLow: z
+					.union([temp, z.array(temp).min(1).max(60)])
+					.optional()
+					.describe(`Daily low air temperature, ${T}: one value or one per day; checked against ACI 306R's 40 °F.`),
 				humidity: z.number().min(0).max(100).default(COMMON.humidity).describe('Relative humidity, %.'),
 				wind: z.number().min(0).max(imp ? 100 : 160).default(d.wind).describe(imp ? 'mph' : 'km/h'),
 				concreteTemp: temp.optional().describe(`As placed, ${T}; defaults to the air temperature.`),
@@ -313,7 +330,31 @@ function planSchemaFor<U extends Units>(units: U) {
 			})
 		)
 			.describe('Days are equivalent age at 20 °C (ASTM C1074), so cold weather pushes them out.'),
-		joints: withDefaults(z.strictObject({ method: z.enum(['tool', 'saw']).default('tool') }))
+		joints: withDefaults(z.strictObject({ method: z.enum(['tool', 'saw']).default('tool') })),
+		exposure: z
+			.enum(['negligible', 'moderate', 'severe'])
+			.default('moderate')
+			.describe('Freeze–thaw weathering where the slab is (IRC Table R402.2): severe where winters freeze hard and de-icers are used.'),
+		curing: withDefaults(
+			z.strictObject({
+				method: z.enum(['cover', 'wet', 'compound']).default('cover').describe('cover: plastic sheet or wet burlap; wet: sprinkle or pond; compound: ASTM C309 membrane.'),
+				coverage: z.number().min(imp ? 50 : 1).max(imp ? 800 : 20).default(d.compoundCoverage).describe(`Compound coverage, ${imp ? 'ft² per US gal' : 'm² per L'}; the label rules.`)
+			})
+		),
+		reinforcing: withDefaults(
+			z.strictObject({
+				meshForm: z.enum(['sheet', 'roll']).default('sheet'),
+				meshWidth: z.number().min(imp ? 2 : 0.6).max(imp ? 12 : 3.6).default(d.meshWidth).describe(`${L}; sheet or roll width.`),
+				meshLength: z.number().min(imp ? 2 : 0.6).max(imp ? 300 : 90).default(d.meshLength).describe(`${L}; sheet or roll length.`),
+				wireSpacing: smallDim.default(d.wireSpacing).describe(`${S}; 6 in for 6×6 mesh.`),
+				chairSpacing: z.number().min(imp ? 1 : 0.3).max(imp ? 6 : 1.8).default(d.chairSpacing).describe(`${L}; supports every 3 ft at most (WRI).`),
+				barSpacing: smallDim.default(d.barSpacing).describe(`${S}; from the design, this is an example.`),
+				barDiameter: smallDim.default(d.barDiameter).describe(`${S}; #3 bar is ⅜ in.`),
+				barStock: z.number().min(imp ? 4 : 1.2).max(imp ? 40 : 12).default(d.barStock).describe(`${L}; bar length on sale.`),
+				lapDiameters: z.number().min(0).max(100).default(40).describe('Lap splice in bar diameters; common practice 40.'),
+				fiberPerBag: z.number().min(0).max(imp ? 16 : 500).optional().describe(`${imp ? 'oz' : 'g'} of fiber per bag of the plan's size, as the fiber label gives it.`)
+			})
+		)
 	});
 }
 

@@ -8,7 +8,7 @@ import type { Area, Small, Volume } from './units';
 
 // Bound once: under the test runner every call through an import is a getter call.
 const { cross } = polygonLib;
-const { area, small, volume } = unitsLib;
+const { KG_PER_LB, area, countUp, small, volume } = unitsLib;
 
 /** Which edges of each section get a thickened edge. */
 export function thickenedEdges(m: Model, layout: Layout): boolean[][] {
@@ -52,6 +52,26 @@ export function trenchArea(sec: SectionShape, thick: readonly boolean[], width: 
 	return total;
 }
 
+/**
+ * Trench concrete below the slab. Rectangular: plan area × depth. Tapered (full depth at the form,
+ * a straight slope up to the slab underside at the trench width): the profile's area w·d/2 along each
+ * edge, less at each mitred corner the profile's first moment about the outer face, d·w²/6, over
+ * tan(θ/2) — as the rectangle's d·w²/2 over tan(θ/2) gives the mitred ring area (geometry).
+ */
+export function trenchVolume(sec: SectionShape, thick: readonly boolean[], width: number, depth: number, profile: 'rectangular' | 'tapered'): number {
+	if (profile === 'rectangular') return trenchArea(sec, thick, width) * depth;
+	const n = sec.edges.length;
+	const miter = (v: number) => (depth * width ** 2) / 6 / Math.tan(interiorAngle(sec, v) / 2);
+	let total = 0;
+	for (let i = 0; i < n; i++) {
+		if (!thick[i]) continue;
+		const start = thick[(i + n - 1) % n] ? miter(i) : 0;
+		const end = thick[(i + 1) % n] ? miter((i + 1) % n) : 0;
+		total += Math.max(0, (sec.edges[i].length * width * depth) / 2 - start - end);
+	}
+	return total;
+}
+
 export interface SectionVolume {
 	index: number;
 	slab: Volume;
@@ -71,7 +91,20 @@ export interface VolumeResult {
 	wastePercent: number;
 	trenchArea: Area;
 	sections: SectionVolume[];
-	base: { depth: Small; bulking: number; compacted: Volume; loose: Volume };
+	base: {
+		depth: Small;
+		bulking: number;
+		/** Plan area under base: the slab less its thickened-edge trenches, plus the strip past the forms. */
+		area: Area;
+		overhang: Small;
+		compacted: Volume;
+		loose: Volume;
+		/** Compacted volume × the stone density, short tons and tonnes. */
+		weight: { shortTons: number; tonnes: number };
+		note: string;
+	};
+	/** Soil dug out, taking the finished surface at today's grade. */
+	dig: { volume: Volume; weight: { shortTons: number; tonnes: number }; loads: number; note: string };
 }
 
 /** Chunk fill per section, spread in proportion to each section's trench volume. */
@@ -90,9 +123,11 @@ function fillPerSection(m: Model, trench: number[]): number[] {
 	return trench.map((t) => t * share);
 }
 
+const tons = (kg: number) => ({ shortTons: kg / KG_PER_LB / 2000, tonnes: kg / 1000 });
+
 export function computeVolume(m: Model, layout: Layout, thick: boolean[][]): VolumeResult {
 	const trenchA = layout.sections.map((s, i) => trenchArea(s, thick[i], m.thickened.width));
-	const trenchV = trenchA.map((a) => a * m.thickened.extraDepth);
+	const trenchV = layout.sections.map((s, i) => trenchVolume(s, thick[i], m.thickened.width, m.thickened.extraDepth, m.thickened.profile));
 	const fill = fillPerSection(m, trenchV);
 	const k = 1 + m.wastePercent / 100;
 	const sections = layout.sections.map((s, i): SectionVolume => {
@@ -109,7 +144,21 @@ export function computeVolume(m: Model, layout: Layout, thick: boolean[][]): Vol
 	const sum = (f: (s: SectionVolume) => Volume) => sections.reduce((a, s) => a + f(s).cubicMeters, 0);
 	const net = sum((s) => s.net);
 	const slabArea = layout.sections.reduce((a, s) => a + s.area, 0);
-	const compacted = slabArea * m.base.depth;
+	const trenchTotal = trenchA.reduce((a, b) => a + b, 0);
+	// The base runs past the forms on outer edges that are neither thickened nor along the house.
+	const house = (s: number, e: number) => m.houseEdges.some((h) => h.section === s && h.edge === e);
+	let outerRun = 0;
+	for (const sec of layout.sections)
+		for (const e of sec.edges)
+			if (!thick[sec.index][e.index] && !house(sec.index, e.index))
+				for (const [t0, t1] of e.free) outerRun += (t1 - t0) * e.length;
+	const overhangArea = m.base.depth > 0 ? outerRun * m.base.overhang : 0;
+	const baseArea = m.base.depth > 0 ? slabArea - trenchTotal + overhangArea : 0;
+	const compacted = baseArea * m.base.depth;
+	const trenchConcrete = trenchV.reduce((a, b) => a + b, 0);
+	// Down to the base bottom under the slab and the strip past the forms, and the trench below the slab.
+	const digM3 = (slabArea + overhangArea) * m.thickness + compacted + trenchConcrete;
+	const digKg = digM3 * m.base.soilDensity;
 	return {
 		slab: volume(sum((s) => s.slab)),
 		thickenedEdges: volume(sum((s) => s.thickenedEdges)),
@@ -123,8 +172,20 @@ export function computeVolume(m: Model, layout: Layout, thick: boolean[][]): Vol
 		base: {
 			depth: small(m.base.depth),
 			bulking: m.base.bulking,
+			area: area(baseArea),
+			overhang: small(m.base.overhang),
 			compacted: volume(compacted),
-			loose: volume(compacted * m.base.bulking)
+			loose: volume(compacted * m.base.bulking),
+			weight: tons(compacted * m.base.stoneDensity),
+			note: trenchTotal > 0
+				? 'No base under the thickened edges: they bear on firm undisturbed soil at the trench bottom (common practice, no published source); the base runs past the other forms.'
+				: 'The base runs past the forms so their stakes and the slab edge sit on it (common practice, no published source).'
+		},
+		dig: {
+			volume: volume(digM3),
+			weight: tons(digKg),
+			loads: countUp(digKg / m.crew.payloadKg),
+			note: "Taking the finished surface at today's grade; soil swells when dug, so the heap is larger than the hole (from memory)."
 		}
 	};
 }
