@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { MIN_THICKNESS_M, modulusOfRupture } from './cautions';
+import { modulusOfRupture } from './cautions';
 import { computePlan } from './index';
 import type { PlanInput } from './schema';
 import { rect } from './test-plans';
@@ -20,17 +20,22 @@ describe('every plan', () => {
 	});
 
 	it('compares the bag with the NIOSH load constant', () => {
-		const c = computePlan(base).cautions.find((x) => x.id === 'bag-weight')!;
-		expect(c.severity).toBe('warning'); // 80 lb = 36.3 kg > 23 kg, NIOSH Pub. 94-110
-		const light = computePlan({ ...base, bags: { offered: [{ size: 40 }] } }).cautions.find((x) => x.id === 'bag-weight')!;
-		expect(light.severity).toBe('info'); // 40 lb = 18.1 kg < 23 kg, NIOSH Pub. 94-110
+		const sev = (size: number) => computePlan({ ...base, bags: { offered: [{ size }] } }).cautions.find((x) => x.id === 'bag-weight')!.severity;
+		expect(sev(80)).toBe('warning'); // 80 lb = 36.3 kg > 23 kg, NIOSH Pub. 94-110
+		expect(sev(51)).toBe('warning'); // 51 lb = 23.13 kg, just over the 23 kg (51 lb) load constant
+		expect(sev(50)).toBe('info'); // 50 lb = 22.68 kg < 23 kg, NIOSH Pub. 94-110
+	});
+
+	it('calls the utility locate 3 working days ahead', () => {
+		expect(computePlan(base).cautions.find((x) => x.id === 'utility-locate')!.action).toMatch(/3 working days/); // state one-call laws, 2–3 days
 	});
 });
 
 describe('plan-specific cautions', () => {
 	it('flags a slab under 3½ in', () => {
-		expect(MIN_THICKNESS_M).toBeCloseTo(0.0889, 12); // 3½ in, IRC R506.1
-		expect(ids({ thickness: 3 })).toContain('thin-slab'); // IRC R506.1
+		expect(ids({ thickness: 3.4 })).toContain('thin-slab'); // IRC R506.1, 3½ in
+		expect(ids({ units: 'metric', sections: [{ outline: rect(0, 0, 3, 2) }], thickness: 88 })).toContain('thin-slab'); // 88 < 88.9 mm
+		expect(ids({ units: 'metric', sections: [{ outline: rect(0, 0, 3, 2) }], thickness: 89 })).not.toContain('thin-slab'); // IRC R506.1
 		expect(ids({ thickness: 3.5 })).not.toContain('thin-slab'); // IRC R506.1
 	});
 
@@ -41,6 +46,29 @@ describe('plan-specific cautions', () => {
 		expect(c.severity).toBe('danger');
 		expect(c.reason).toMatch(/411 psi/);
 		expect(ids({ reinforcement: 'mesh' })).not.toContain('unreinforced-loads');
+	});
+
+	it('keeps the loads caution when mesh or rebar is chosen', () => {
+		// Mesh holds cracks closed; the cracking load is still the modulus of rupture (ACI 318-19 §19.2.3).
+		for (const reinforcement of ['mesh', 'rebar'] as const) {
+			const c = computePlan({ ...base, reinforcement, loads: { vehicles: true } }).cautions.find((x) => x.id === 'loads-need-design')!;
+			expect(c.severity).toBe('danger');
+			expect(c.reason).toMatch(/411 psi/); // 7.5 √3000
+			expect(c.reason).toMatch(/hold the cracks closed/);
+		}
+		expect(ids({ reinforcement: 'mesh' })).not.toContain('loads-need-design'); // no loads: nothing to design for
+	});
+
+	it('asks for air entrainment and strength where winters freeze', () => {
+		// IRC Table R402.2 (porches, carport slabs, steps exposed to weather): severe → 3500 psi and 5–7 % air.
+		const severe = computePlan({ ...base, exposure: 'severe' }).cautions.find((x) => x.id === 'freeze-thaw')!;
+		expect(severe.reason).toMatch(/3500 psi and 5–7 % entrained air/);
+		expect(severe.action).toMatch(/Raise the design strength to 3500 psi/);
+		const moderate = computePlan({ ...base, exposure: 'moderate' }).cautions.find((x) => x.id === 'freeze-thaw')!;
+		expect(moderate.action).not.toMatch(/Raise/); // 3000 psi meets moderate
+		expect(ids({ exposure: 'negligible' })).not.toContain('freeze-thaw'); // 2500 psi, no air asked
+		expect(ids({ exposure: 'moderate' })).toContain('first-winter-deicer');
+		expect(ids({ exposure: 'negligible' })).not.toContain('first-winter-deicer');
 	});
 
 	it('flags silica when saw-cutting', () => {
@@ -69,6 +97,9 @@ describe('plan-specific cautions', () => {
 
 	it('flags cold, hot and fast-drying weather', () => {
 		expect(ids({ conditions: { airTemp: 38 } })).toContain('cold-weather'); // 38 °F ≤ 40 °F, ACI 306R
+		expect(ids({ conditions: { airTemp: 55, airLow: 34 } })).toContain('cold-weather'); // a 34 °F night, ACI 306R
+		expect(ids({ conditions: { airTemp: 55, airLow: 45 } })).not.toContain('cold-weather');
+		expect(ids({ conditions: { airTemp: 48 } })).toContain('cool-curing'); // ≤ 50 °F, ACI 318-19 §26.5.3.1
 		expect(ids({ conditions: { airTemp: 98 } })).toContain('hot-weather'); // 98 °F > 95 °F, ACI 305R
 		expect(ids({ conditions: { airTemp: 90, humidity: 20, wind: 15 } })).toContain('evaporation'); // Uno 1998 vs ACI 305R
 		expect(ids({ conditions: { airTemp: 70 } })).not.toContain('cold-weather');

@@ -21,11 +21,8 @@ describe.each(plans)('$id', ({ input, result: r }) => {
 
 	it('lists forms, stakes and elevations', () => {
 		expect(r.forms.buy.length).toBeGreaterThan(0);
-		expect(r.forms.cutList.length).toBe(r.forms.buy.reduce((n, b) => n + b.count, 0));
 		expect(r.forms.stakes.count).toBeGreaterThan(3);
 		expect(r.elevations.vertices).toHaveLength(vertices);
-		expect(r.elevations.stakes).toHaveLength(r.forms.stakes.count);
-		expect(Math.min(...r.elevations.stakes.map((s) => s.belowLevelLine.millimeters))).toBe(0);
 	});
 
 	it('prices bags and ready-mix', () => {
@@ -43,8 +40,8 @@ describe.each(plans)('$id', ({ input, result: r }) => {
 		expect(r.strength).toHaveLength(28);
 		expect(r.strength.every((d, i) => i === 0 || d.percent > r.strength[i - 1].percent)).toBe(true);
 		expect(r.milestones.every((m) => m.day !== null)).toBe(true);
-		expect(r.schedule.pourDays).toHaveLength(input.sections.length);
-		expect(r.weather.pours).toHaveLength(input.sections.length);
+		expect(r.schedule.pourDays.length).toBeGreaterThanOrEqual(input.sections.length);
+		expect(r.schedule.pourDays.reduce((a, p) => a + p.bags, 0)).toBe(r.bags.find((b) => b.planned)!.count); // bought = poured
 	});
 
 	it('lists materials and cautions', () => {
@@ -58,6 +55,13 @@ describe.each(plans)('$id', ({ input, result: r }) => {
 describe('what each demo shows', () => {
 	it('the back patio is cheaper as a short load of ready-mix than as bags', () => {
 		const r = byId('lind-back-patio');
+		// 14 × 12 ft × 4 in = 56 ft³ + 8 % = 60.48 ft³ = 2.24 yd³ → 2.25 yd³ at the 0.25 increment,
+		// under the 3 yd³ minimum: 2.25 × $185 + $75 = $491.25
+		expect(r.volume.order.cubicFeet).toBeCloseTo(60.48, 9);
+		expect(r.readyMix.order).toBeCloseTo(2.25, 12);
+		expect(r.readyMix.cost).toBeCloseTo(491.25, 9);
+		// ¼ in/ft over the 12 ft from the house: the far stakes sit 3 in below the level line
+		expect(Math.max(...r.elevations.stakes.map((s) => s.belowLevelLine.inches))).toBeCloseTo(3, 9);
 		expect(r.readyMix.shortLoad).toBe(true);
 		expect(r.cost.cheaper).toBe('readyMix');
 		expect(r.mixing.readyMixSuggested).toBe(true);

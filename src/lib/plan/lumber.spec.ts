@@ -47,16 +47,33 @@ describe('stakes', () => {
 	it('counts boards, stakes and screws for a rectangle against the house', () => {
 		const { m, layout } = modelOf({ units: 'imperial', sections: [{ outline: rect(0, 0, 20, 12) }] });
 		const { forms } = computeForms(m, layout);
-		// Formed runs 12, 20, 12 ft (the house edge takes an isolation strip). The 20 ft run plus a
-		// 1½ in corner lap is 20.125 ft: two 10.0625 pieces with a splice stake between.
+		// Formed runs 12, 20, 12 ft (the house edge takes an isolation strip). Two corners, each lapped by
+		// one board's 1½ in (DOC PS 20): the 20 ft run takes one (20.125 ft needs two boards either way:
+		// two 10.0625 pieces and a splice), the last 12 ft run the other; the first 12 ft run butts, so a
+		// 12 ft board does.
 		// Stakes: 5 + 9 + 5 − 2 shared corners = 17 (common practice: every 3 ft, corners, splices).
 		expect(forms.stakes.count).toBe(17);
-		// Fixings: 5 + (9 + 1 at the splice) + 5 = 20; 2 screws each (from memory).
-		expect(forms.screws).toBe(40);
-		// 12.125 ft pieces need 16s; the 10.0625 pieces need 12s.
-		expect(forms.buy.map((b) => [Math.round(b.stock.feet), b.count])).toEqual([[12, 2], [16, 2]]);
+		// Fixings 5 + (9 + 1 at the splice) + 5 = 20 × 2 screws, 1 splice cleat × 4, 2 corners × 2 (from memory).
+		expect(forms.cleats).toBe(1);
+		expect(forms.corners).toBe(2);
+		expect(forms.screws).toBe(20 * 2 + 4 + 2 * 2);
+		// 12.125 → a 16 (its offcut takes the 0.6 m cleat); 12 → a 12; 10.0625 × 2 → two 12s.
+		expect(forms.buy.map((b) => [Math.round(b.stock.feet), b.count])).toEqual([[12, 3], [16, 1]]);
 		expect(forms.isolationStrip.feet).toBeCloseTo(20, 9);
 		expect(forms.formLength.feet).toBeCloseTo(44, 9); // 12 + 20 + 12
+	});
+
+	it('moves a corner lap off a run that a stock board would just cover', () => {
+		// A freestanding 16 × 10 ft pad: a 16 ft side plus 1½ in would need a splice, so both 10 ft sides
+		// lap at both their ends (10.25 ft, a 12 ft board) and the 16 ft sides take whole 16 ft boards.
+		const { m, layout } = modelOf({ units: 'imperial', houseEdge: null, sections: [{ outline: rect(0, 0, 16, 10) }] });
+		const { forms } = computeForms(m, layout);
+		expect(forms.cleats).toBe(0);
+		expect(forms.corners).toBe(4);
+		expect(forms.buy.map((b) => [Math.round(b.stock.feet), b.count])).toEqual([[12, 2], [16, 2]]);
+		expect(forms.cutList.flatMap((c) => c.cuts.map((x) => x.length.feet)).sort((a, b) => a - b)).toEqual(
+			[10.25, 10.25, 16, 16].map((x) => expect.closeTo(x, 9))
+		);
 	});
 
 	it('adds a bulkhead at a cold joint', () => {

@@ -196,8 +196,22 @@ export function computeForms(
 	const pieces: { run: string; length: number }[] = [];
 	const stakes: StakePoint[] = [];
 	let fixings = 0;
-	const seen = new Set<number>(); // a corner shared by two runs gets one stake
-	const key = (p: Pt) => Math.round(p[0] * 1e4) * 1e8 + Math.round(p[1] * 1e4); // 0.1 mm grid
+	// A point shared by two runs gets one stake: points within 0.1 mm are the same, looked up in the
+	// neighbouring 1 mm cells too so float noise at a cell border cannot make two stakes of one.
+	const cells = new Map<number, Pt[]>();
+	const cellKey = (i: number, j: number) => i * 1e8 + j;
+	const taken = (p: Pt) => {
+		const i = Math.round(p[0] * 1e3);
+		const j = Math.round(p[1] * 1e3);
+		for (let di = -1; di <= 1; di++)
+			for (let dj = -1; dj <= 1; dj++)
+				for (const q of cells.get(cellKey(i + di, j + dj)) ?? []) if (dist(p, q) <= 1e-4) return true;
+		const k = cellKey(i, j);
+		if (!cells.has(k)) cells.set(k, []);
+		cells.get(k)!.push(p);
+		return false;
+	};
+	const key = (p: Pt) => Math.round(p[0] * 1e4) * 1e8 + Math.round(p[1] * 1e4); // run ends share exact vertices
 	let formLength = 0;
 	let cleats = 0;
 	const { lengths: boardLength, laps: corners } = lapLengths(runs, m.forms.boardThickness, maxStock, key);
@@ -216,9 +230,7 @@ export function computeForms(
 		}
 		for (const s of runStakes(r, splices, m.forms.stakeSpacing)) {
 			fixings += s.kind === 'splice' ? 2 : 1;
-			const k = key(s.at);
-			if (seen.has(k)) continue;
-			seen.add(k);
+			if (taken(s.at)) continue;
 			stakes.push({ id: `S${stakes.length + 1}`, run: r.id, at: s.at, kind: s.kind });
 		}
 	}

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import type { SectionGrid } from './joints';
-import { NIOSH_LOAD_CONSTANT_KG, crewTime, cutsAt, splitSection, workingMinutes } from './mixing';
+import { crewTime, cutsOnLines, splitSection, workingMinutes } from './mixing';
 import type { BagOffer, Model } from './model';
-import { areaLeftOf, type Frame } from './polygon';
+import type { Frame } from './polygon';
 
 const bag80: BagOffer = { size: 80, kg: 80 * 0.45359237, yieldM3: 0.6 * 0.3048 ** 3 };
 const crew = (over: Partial<Model['crew']>): Model['crew'] => ({
@@ -44,45 +44,50 @@ describe('crew time', () => {
 	});
 });
 
-describe('the heaviest lift', () => {
-	it('compares a bag with the NIOSH load constant', () => {
-		expect(NIOSH_LOAD_CONSTANT_KG).toBe(23); // NIOSH Pub. 94-110, 23 kg (51 lb)
-		expect(bag80.kg).toBeGreaterThan(NIOSH_LOAD_CONSTANT_KG); // 36.3 kg, NIOSH Pub. 94-110
-	});
-});
-
 describe('splitting a section', () => {
 	const poly: [number, number][] = [[0, 0], [24, 0], [24, 12], [0, 12]];
+	// Yield 1 per bag and 30 units of concrete: a part holding a share of the 288 area needs ⌈30 × share⌉ bags.
 
-	it('cuts at equal areas', () => {
-		const tri: [number, number][] = [[0, 0], [10, 0], [0, 10]];
-		const [c] = cutsAt(tri, [0.5]);
-		// Area left of c in the triangle: 50 − (10 − c)² / 2 = 25 → c = 10 − √50
-		expect(c).toBeCloseTo(10 - Math.sqrt(50), 9);
-		expect(areaLeftOf(tri, c)).toBeCloseTo(25, 9);
+	it('puts every cold joint on a control-joint line, farthest first', () => {
+		const grid: SectionGrid = { poly, us: [0, 8, 16, 24], ws: [0, 12] };
+		const s = splitSection(grid, 30, 1, 12, identity, 'metric', 1e-9);
+		expect(s.parts).toBe(3); // 10 bags a third; two thirds (20) would pass 12
+		expect(s.coldJoints.map((j) => j.from[0])).toEqual([8, 16]);
+		expect(s.bagsPerPart).toEqual([10, 10, 10]);
+		const wide = splitSection(grid, 30, 1, 20, identity, 'metric', 1e-9);
+		expect(wide.coldJoints.map((j) => j.from[0])).toEqual([16]); // 20 then 10 bags
+		expect(wide.bagsPerPart).toEqual([20, 10]);
 	});
 
-	it('puts cold joints on control-joint lines when the parts still fit', () => {
-		const grid: SectionGrid = { poly, us: [0, 8, 16, 24], ws: [0, 12] };
-		const s = splitSection(grid, 30, 12, identity, 'metric', 1e-9);
-		expect(s.parts).toBe(3); // 30 bags, 12 a part at most
+	it('lays the joints closer when no line falls where a cut must go', () => {
+		// Lines at 12 only: half the slab is 15 bags > 12. The joints are re-laid at most
+		// 24 × 12 × 0.9 / 30 = 8.64 apart (strips of ≤ 12 bags with 10 % to spare, an engine choice).
+		const asked: number[] = [];
+		const relay = (max: number): SectionGrid => {
+			asked.push(max);
+			return { poly, us: [0, 8, 16, 24], ws: [0, 6, 12] };
+		};
+		const s = splitSection({ poly, us: [0, 12, 24], ws: [0, 12] }, 30, 1, 12, identity, 'metric', 1e-9, relay);
+		expect(asked).toEqual([expect.closeTo(8.64, 9)]);
+		expect(s.relaid).toBe(true);
 		expect(s.coldJoints.map((j) => j.from[0])).toEqual([8, 16]);
 		expect(s.bagsPerPart).toEqual([10, 10, 10]);
 	});
 
 	it('draws no cold joints for a split nobody should attempt', () => {
 		const grid: SectionGrid = { poly, us: [0, 12, 24], ws: [0, 12] };
-		const s = splitSection(grid, 80, 10, identity, 'metric', 1e-9);
-		expect(s.parts).toBe(8); // 80 bags at 10 a pour
+		const s = splitSection(grid, 80, 1, 10, identity, 'metric', 1e-9);
+		expect(s.parts).toBe(8); // 80 bags at 10 a pour, past 3 pours (engine choice)
 		expect(s.coldJoints).toEqual([]);
-		expect(s.bagsPerPart).toEqual([10, 10, 10, 10, 10, 10, 10, 10]);
 		expect(s.note).toMatch(/ready-mix/);
 	});
 
-	it('keeps the exact cut when a joint line would overfill a part', () => {
-		const grid: SectionGrid = { poly, us: [0, 12, 24], ws: [0, 12] };
-		const s = splitSection(grid, 30, 10, identity, 'metric', 1e-9);
-		expect(s.coldJoints.map((j) => j.from[0])).toEqual([8, 16].map((x) => expect.closeTo(x, 9))); // thirds of 24
-		expect(s.coldJoints[0].to).toEqual([expect.closeTo(8, 9), 12]);
+	it('picks cuts greedily on lines', () => {
+		// Lines every 4 in a 24 wide strip of area 288; 12 bags a part at most of 30.
+		const lines = [4, 8, 12, 16, 20];
+		const bagsFor = (a: number) => Math.ceil((a / 288) * 30 - 1e-9);
+		// 4 → 5 bags, 8 → 10, 12 → 15: cut at 8; from 8, 16 → 10: cut at 16; the last 8 → 10 bags.
+		expect(cutsOnLines(poly, lines, bagsFor, 12)).toEqual([8, 16]);
+		expect(cutsOnLines(poly, [12], bagsFor, 12)).toBeNull(); // 15 bags in either half
 	});
 });

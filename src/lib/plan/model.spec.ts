@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { DRESSED_DEPTH_IN, DRESSED_THICKNESS_IN, airTempOn, defaultYieldM3, toModel } from './model';
+import { airTempOn, defaultYieldM3, toModel } from './model';
 import { parsePlanInput, type PlanInput } from './schema';
 
 const model = (input: PlanInput) => {
@@ -10,9 +10,11 @@ const model = (input: PlanInput) => {
 const sections = [{ outline: [[0, 0], [20, 0], [20, 12], [0, 12]] as [number, number][] }];
 
 describe('dressed lumber', () => {
-	it('uses the PS 20 dry sizes', () => {
-		expect(DRESSED_DEPTH_IN).toEqual({ '2x4': 3.5, '2x6': 5.5, '2x8': 7.25, '2x10': 9.25, '2x12': 11.25 }); // DOC PS 20
-		expect(DRESSED_THICKNESS_IN).toBe(1.5); // DOC PS 20, nominal 2 in
+	it('sets each nominal board at its PS 20 dry depth', () => {
+		const depth = (lumber: '2x4' | '2x6' | '2x8' | '2x10' | '2x12') => model({ units: 'imperial', sections, forms: { lumber } }).forms.depth / 0.0254;
+		// DOC PS 20 dressed dry sizes: 3½, 5½, 7¼, 9¼, 11¼ in
+		expect(['2x4', '2x6', '2x8', '2x10', '2x12'].map((l) => depth(l as '2x4'))).toEqual([3.5, 5.5, 7.25, 9.25, 11.25].map((x) => expect.closeTo(x, 9)));
+		expect(model({ units: 'imperial', sections }).forms.boardThickness / 0.0254).toBeCloseTo(1.5, 9); // DOC PS 20, nominal 2 in
 	});
 });
 
