@@ -2,7 +2,7 @@
 // defaults claim, worked by hand.
 
 import { describe, expect, it } from 'vitest';
-import { computePlan, parsePlanInput } from './index';
+import { EXAMPLE_PRICES, computePlan, parsePlanInput, planInputJsonSchema } from './index';
 import { rect } from './test-plans';
 
 const plain = computePlan({ units: 'imperial', sections: [{ outline: rect(0, 0, 20, 12) }] });
@@ -35,5 +35,20 @@ describe('a plan given only its outline', () => {
 	it('still reads a plan stored before exposure, curing and reinforcing details existed', () => {
 		const old = parsePlanInput({ units: 'imperial', sections: [{ outline: rect(0, 0, 10, 8) }], reinforcement: 'mesh', prices: { gravel: 40 } });
 		expect(old.ok && [old.plan.exposure, old.plan.curing.method, old.plan.reinforcing.meshForm]).toEqual(['moderate', 'cover', 'sheet']);
+	});
+});
+
+describe('example prices', () => {
+	it('give an example for every price field, in both unit systems, and are never applied', () => {
+		// The request schema's price fields, read from its JSON Schema (one branch per unit system).
+		const schema = planInputJsonSchema() as { anyOf?: { properties: { prices: { properties: object } } }[]; oneOf?: typeof schema.anyOf };
+		const branches = schema.anyOf ?? schema.oneOf ?? [];
+		for (const [i, units] of (['imperial', 'metric'] as const).entries()) {
+			const fields = Object.keys(branches[i].properties.prices.properties).sort();
+			expect(Object.keys(EXAMPLE_PRICES[units]).sort()).toEqual(fields);
+			// Strict parsing accepts them all as prices.
+			expect(parsePlanInput({ units, sections: [{ outline: rect(0, 0, 4, 4) }], prices: { ...EXAMPLE_PRICES[units] } }).ok).toBe(true);
+		}
+		expect(plain.materials.diyTotal.amount).toBe(0); // nothing is priced unless the person enters it
 	});
 });
