@@ -120,10 +120,11 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 	// Working time is judged on each section's day as if none were split; splits then add pour days.
 	const sectionDays = pourOffsets(m, layout.coldJoints, tempOn);
 	let { joints, grids } = computeJoints(m, layout, plane.frame, plane.framed);
-	const maxFor = new Map<number, number>();
+	const closer = new Map<number, Required<SectionGrid>>();
 	const relay = (i: number, max: number) => {
-		maxFor.set(i, max);
-		return closerGrid(plane.framed[i], max, m.thickness, layout.eps);
+		const g = closerGrid(plane.framed[i], max, m.thickness, layout.eps) as Required<SectionGrid>;
+		closer.set(i, g);
+		return g;
 	};
 	const orders = volume.sections.map((s) => s.order.cubicMeters);
 	const { mixing, splits } = computeMixing(m, orders, grids, plane.frame, sectionDays, tempOn, layout.eps, relay);
@@ -131,9 +132,12 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 	splits.forEach((sp, i) => {
 		if (!sp?.segments.length) return;
 		cuts.set(i, sp.cut);
-		if (!sp.relaid) maxFor.delete(i);
 	});
-	if (cuts.size) ({ joints, grids } = computeJoints(m, layout, plane.frame, plane.framed, { maxFor, coldCuts: cuts }));
+	if (cuts.size) {
+		// Only the re-laid sections change grid; the rest keep theirs.
+		const prior = grids.map((g, i) => (splits[i]?.relaid ? closer.get(i)! : (g as Required<SectionGrid>)));
+		({ joints, grids } = computeJoints(m, layout, plane.frame, plane.framed, { coldCuts: cuts, prior }));
+	}
 	const pours: Pour[] = mixing.sections.flatMap((s) => s.pours.map((q, part) => ({ section: s.index, part, bags: q.bags })));
 	const offsets = pourOffsets(m, layout.coldJoints, tempOn, pours);
 	const bulkheads = splits.flatMap((sp, i) => (sp ? sp.segments.map((g) => ({ section: i, from: g.from, to: g.to })) : []));

@@ -152,6 +152,8 @@ export interface SectionGrid {
 	poly: Pt[];
 	us: number[];
 	ws: number[];
+	panels?: number;
+	maxAspect?: number;
 }
 
 const maxGap = (v: number[]) => v.slice(1).reduce((m, x, i) => Math.max(m, x - v[i]), 0);
@@ -160,14 +162,14 @@ const maxGap = (v: number[]) => v.slice(1).reduce((m, x, i) => Math.max(m, x - v
 export function closerGrid(poly: Pt[], maxSpacing: number, thickness: number, eps: number): SectionGrid {
 	const { min, max } = jointSpacing(thickness);
 	const g = panelGrid(poly, Math.min(max, maxSpacing), Math.min(min, maxSpacing), eps);
-	return { poly, us: g.us, ws: g.ws };
+	return { poly, us: g.us, ws: g.ws, panels: g.panels, maxAspect: g.maxAspect };
 }
 
 export interface JointOptions {
-	/** Closer maximum spacing per section, where a pour split needed it. */
-	maxFor?: Map<number, number>;
 	/** Lines that are cold joints (bulkheads) instead of control joints, per section. */
 	coldCuts?: Map<number, { alongW: boolean; at: number[] }>;
+	/** Grids already laid (a first pass, or joints re-laid closer for a pour split), reused as they are. */
+	prior?: Required<SectionGrid>[];
 }
 
 /** framed: the outlines already in the frame (slopePlane works them out); computed here if absent. */
@@ -184,9 +186,8 @@ export function computeJoints(
 	const grids: SectionGrid[] = [];
 	const sections = layout.sections.map((s): SectionJoints => {
 		const poly = framed?.[s.index] ?? s.outline.map((p) => toFrame(frame, p));
-		const closer = opts.maxFor?.get(s.index);
-		const g = closer === undefined ? panelGrid(poly, max, min, layout.eps) : panelGrid(poly, Math.min(max, closer), Math.min(min, closer), layout.eps);
-		grids.push({ poly, us: g.us, ws: g.ws });
+		const g = opts.prior?.[s.index] ?? panelGrid(poly, max, min, layout.eps);
+		grids.push({ poly, us: g.us, ws: g.ws, panels: g.panels, maxAspect: g.maxAspect });
 		const cold = opts.coldCuts?.get(s.index);
 		const isCold = (v: number, alongW: boolean) => !!cold && cold.alongW === alongW && cold.at.some((c) => Math.abs(c - v) <= layout.eps);
 		const lines: JointLine[] = [];

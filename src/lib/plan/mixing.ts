@@ -78,20 +78,33 @@ export interface SplitPlan extends Split {
  */
 export function cutsOnLines(poly: readonly Pt[], lines: number[], bagsFor: (area: number) => number, maxBags: number): number[] | null {
 	const total = Math.abs(signedArea(poly));
+	const left = lines.map((l) => areaLeftOf(poly, l)); // each O(n), worked out once
 	const cuts: number[] = [];
 	let before = 0;
+	let from = 0;
 	for (;;) {
 		if (bagsFor(total - before) <= maxBags) return cuts;
-		let best: number | null = null;
-		for (const l of lines) {
-			if (cuts.length && l <= cuts[cuts.length - 1]) continue;
-			const a = areaLeftOf(poly, l);
-			if (a - before > 0 && bagsFor(a - before) <= maxBags) best = l;
-		}
-		if (best === null) return null;
-		cuts.push(best);
-		before = areaLeftOf(poly, best);
+		let best = -1;
+		for (let k = from; k < lines.length; k++) if (left[k] - before > 0 && bagsFor(left[k] - before) <= maxBags) best = k;
+		if (best < 0) return null;
+		cuts.push(lines[best]);
+		before = left[best];
+		from = best + 1;
 	}
+}
+
+/** More pours than a crew should attempt: the count, even shares, and no cold joints drawn. */
+function impractical(parts: number, bags: number, sectionM3: number, across: boolean): SplitPlan {
+	return {
+		parts,
+		bagsPerPart: times(parts, (k) => Math.floor(bags / parts) + (k < bags % parts ? 1 : 0)),
+		coldJoints: [],
+		segments: [],
+		partsM3: [sectionM3],
+		cut: { alongW: across, at: [] },
+		relaid: false,
+		note: `The crew would need ${parts} separate pours for this section; ready-mix or more hands is the practical answer.`
+	};
 }
 
 /**
@@ -110,6 +123,8 @@ export function splitSection(
 	relay?: (maxSpacing: number) => SectionGrid
 ): SplitPlan {
 	const bags = countUp(sectionM3 / yieldM3);
+	const fewest = countUp(bags / maxBags);
+	if (fewest > MAX_PRACTICAL_PARTS) return impractical(fewest, bags, sectionM3, grid.ws[grid.ws.length - 1] - grid.ws[0] > grid.us[grid.us.length - 1] - grid.us[0]);
 	const uSpan = grid.us[grid.us.length - 1] - grid.us[0];
 	const wSpan = grid.ws[grid.ws.length - 1] - grid.ws[0];
 	// Cut across the longer direction; work with x as that direction.
@@ -132,19 +147,7 @@ export function splitSection(
 			relaid = true;
 		}
 	}
-	if (cuts === null || cuts.length + 1 > MAX_PRACTICAL_PARTS) {
-		const parts = Math.max(countUp(bags / maxBags), (cuts?.length ?? 0) + 1);
-		return {
-			parts,
-			bagsPerPart: times(parts, (k) => Math.floor(bags / parts) + (k < bags % parts ? 1 : 0)),
-			coldJoints: [],
-			segments: [],
-			partsM3: [sectionM3],
-			cut: { alongW: across, at: [] },
-			relaid: false,
-			note: `The crew would need ${parts} separate pours for this section; ready-mix or more hands is the practical answer.`
-		};
-	}
+	if (cuts === null || cuts.length + 1 > MAX_PRACTICAL_PARTS) return impractical(Math.max(fewest, (cuts?.length ?? 0) + 1), bags, sectionM3, across);
 	const ends = [...cuts.map((c) => areaLeftOf(poly, c)), total];
 	const partsM3 = ends.map((a, i) => ((a - (i ? ends[i - 1] : 0)) / total) * sectionM3);
 	const toPlane = (q: Pt): Pt => fromFrame(frame, across ? [q[1], q[0]] : q);
