@@ -39,7 +39,7 @@ export const DEFAULTS = {
 		stockLengths: [2.4, 3.0, 3.6, 4.8], // m — usual stock lengths
 		edgeWidth: 200, // mm — from memory
 		baseDepth: 100, // mm — IRC R506.2.2 (4 in)
-		designStrength: 20, // MPa — from memory
+		designStrength: 21, // MPa — from memory; ≥ 3000 psi (20.7 MPa), IRC Table R402.2 moderate weathering
 		bagSizes: [40, 30, 20], // kg — common practice; sizes vary by store
 		readyMixIncrement: 0.2, // m³ — from memory; ask the plant
 		readyMixMinimum: 1, // m³ — from memory; ask the plant

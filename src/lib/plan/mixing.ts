@@ -124,11 +124,12 @@ export function splitSection(
 ): SplitPlan {
 	const bags = countUp(sectionM3 / yieldM3);
 	const fewest = countUp(bags / maxBags);
-	if (fewest > MAX_PRACTICAL_PARTS) return impractical(fewest, bags, sectionM3, grid.ws[grid.ws.length - 1] - grid.ws[0] > grid.us[grid.us.length - 1] - grid.us[0]);
+	if (fewest > MAX_PRACTICAL_PARTS) return impractical(fewest, bags, sectionM3, false);
 	const uSpan = grid.us[grid.us.length - 1] - grid.us[0];
 	const wSpan = grid.ws[grid.ws.length - 1] - grid.ws[0];
-	// Cut across the longer direction; work with x as that direction.
-	const across = wSpan > uSpan;
+	// Cut across the longer direction; work with x as that direction. A square cuts across u, whatever
+	// float noise a turned outline brings.
+	const across = wSpan > uSpan * (1 + 1e-9);
 	const flip = (g: SectionGrid) => (across ? g.poly.map((q): Pt => [q[1], q[0]]) : g.poly);
 	const poly = flip(grid);
 	const total = Math.abs(signedArea(poly));
