@@ -215,7 +215,7 @@ function finishing(m: Model, jointDepthIn: string): { id: string; text: string }
 		{ id: 'bleed', text: 'Wait until the bleed water has left the surface before edging or floating again: working water back in weakens the top (ACI 302.1R, from memory).' },
 		{ id: 'edge', text: 'Run an edger along every form and bulkhead (common practice).' },
 		m.jointMethod === 'saw'
-			? { id: 'saw-window', text: `Saw the control joints ${jointDepthIn} deep as soon as the cut does not ravel: about 4–12 h after placing with a conventional saw, sooner in heat, 1–4 h with an early-entry saw (ACI 302.1R-15, as ACI's own guidance states).` }
+			? { id: 'saw-window', text: `Saw the control joints ${jointDepthIn} deep as soon as the cut does not ravel: about 4–12 h after placing with a conventional saw, sooner in heat (ACI 302.1R-15, as ACI's own guidance states); an early-entry saw can cut within a few hours.` }
 			: { id: 'tool', text: `Tool the control joints ${jointDepthIn} deep with a groover while the concrete is still plastic, and again after floating (ACI 302.1R).` },
 		{ id: 'broom', text: 'Broom the surface across the fall for grip once it holds the marks (common practice).' }
 	];
