@@ -276,7 +276,7 @@ function planSchemaFor<U extends Units>(units: U) {
 					.min(1)
 					.max(6)
 					.default(d.bagSizes.map((size) => ({ size }))),
-				planSize: z.number().optional().describe('Bag size the mixing plan uses; default the largest.'),
+				planSize: z.number().min(imp ? 10 : 5).max(imp ? 100 : 50).optional().describe('Bag size the mixing plan uses; default the largest.'),
 				waterRatio: z
 					.number()
 					.min(0)
