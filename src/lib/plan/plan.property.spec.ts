@@ -152,4 +152,18 @@ describe('the answer stays within its stated bound for any plan inside the limit
 		expect(bytes).toBeLessThanOrEqual(answerBytesBound(r.plan.elevations.stakes.length, 300, 3));
 		expect(bytes).toBeLessThan(1_000_000);
 	});
+
+	it('does not grow with the bag count when a section would take thousands of pours', () => {
+		// 40 × 50 ft of 10 lb bags (about 9,800) for one person with 10 min of working time: a pour a bag.
+		const r = estimate({
+			units: 'imperial',
+			sections: [{ outline: rect(0, 0, 50, 40) }],
+			bags: { offered: [{ size: 10 }] },
+			crew: { people: 1, method: 'hand', handMixMinutes: 30, workingMinutes: 10, finishMinutes: 0 }
+		});
+		if (!r.ok) throw new Error(JSON.stringify(r.errors));
+		expect(r.plan.mixing.sections[0].split?.parts).toBeGreaterThan(9000);
+		const bytes = Buffer.byteLength(toRoundedJson(r.plan));
+		expect(bytes).toBeLessThanOrEqual(answerBytesBound(r.plan.elevations.stakes.length, 4, 1));
+	});
 });
