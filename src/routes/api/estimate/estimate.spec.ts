@@ -118,7 +118,7 @@ describe('POST /api/estimate: scope limits', () => {
 			}),
 			{ numRuns: 60 }
 		);
-	});
+	}, 60_000);
 
 	it('answers the largest plan in scope under 1 MB', async () => {
 		const res = await postJson(largestPlan());
