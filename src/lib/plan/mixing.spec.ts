@@ -79,6 +79,8 @@ describe('splitting a section', () => {
 		const s = splitSection(grid, 80, 1, 10, identity, 'metric', 1e-9);
 		expect(s.parts).toBe(8); // 80 bags at 10 a pour, past 3 pours (engine choice)
 		expect(s.coldJoints).toEqual([]);
+		expect(s.bagsPerPart).toEqual([]); // not laid out: the list would grow with the bags
+		expect(s.note).toMatch(/8 separate pours of about 10 bags/);
 		expect(s.note).toMatch(/ready-mix/);
 	});
 

@@ -5,13 +5,11 @@ import type { SectionGrid } from './joints';
 import type { BagOffer, Model } from './model';
 import * as polygonLib from './polygon';
 import type { Frame, Pt } from './polygon';
-import * as utilLib from './util';
 import * as unitsLib from './units';
 import type { Mass, Temperature } from './units';
 
 // Bound once: under the test runner every call through an import is a getter call.
 const { areaLeftOf, clipVertical, fromFrame, signedArea } = polygonLib;
-const { times } = utilLib;
 const { countUp, mass, mToPlan, temperature } = unitsLib;
 
 /** Beyond this many pours a section belongs to ready-mix; no cold-joint lines are drawn (engine choice). */
@@ -55,6 +53,7 @@ export function crewTime(bags: number, bag: BagOffer, crew: Model['crew']): Crew
 
 export interface Split {
 	parts: number;
+	/** Bags in each part; empty when there are more parts than MAX_PRACTICAL_PARTS. */
 	bagsPerPart: number[];
 	/** Where the new cold joints go, in plan coordinates; empty when impractical. */
 	coldJoints: { from: Pt; to: Pt }[];
@@ -93,17 +92,20 @@ export function cutsOnLines(poly: readonly Pt[], lines: number[], bagsFor: (area
 	}
 }
 
-/** More pours than a crew should attempt: the count, even shares, and no cold joints drawn. */
+/**
+ * More pours than a crew should attempt: the count and no cold joints drawn, and not laid out part
+ * by part, since a list per part would grow with the bag count, not the slab's size.
+ */
 function impractical(parts: number, bags: number, sectionM3: number, across: boolean): SplitPlan {
 	return {
 		parts,
-		bagsPerPart: times(parts, (k) => Math.floor(bags / parts) + (k < bags % parts ? 1 : 0)),
+		bagsPerPart: [],
 		coldJoints: [],
 		segments: [],
 		partsM3: [sectionM3],
 		cut: { alongW: across, at: [] },
 		relaid: false,
-		note: `The crew would need ${parts} separate pours for this section; ready-mix or more hands is the practical answer.`
+		note: `The crew would need ${parts} separate pours of about ${countUp(bags / parts)} bags for this section; ready-mix or more hands is the practical answer.`
 	};
 }
 
