@@ -21,6 +21,9 @@ const RATE_MAX: Record<(typeof RATE_UNITS)[number], number> = {
 
 const MAX_SECTIONS = 12;
 
+/** ISO 4217 codes this runtime can format (Intl); prices are shown with Intl.NumberFormat. */
+const CURRENCIES = new Set(Intl.supportedValuesOf('currency'));
+
 function deepFreeze<T>(v: T): T {
 	if (v && typeof v === 'object') {
 		for (const x of Object.values(v)) deepFreeze(x);
@@ -88,6 +91,13 @@ function planSchemaFor<U extends Units>(units: U) {
 	return z.strictObject({
 		units: z.literal(units),
 		name: z.string().trim().max(100).optional(),
+		currency: z
+			.string()
+			.trim()
+			.toUpperCase()
+			.refine((c) => CURRENCIES.has(c), { message: 'Enter a three-letter currency code such as USD, CAD or EUR (ISO 4217).' })
+			.default('USD')
+			.describe('ISO 4217 code of every price in the plan.'),
 		sections: z
 			.array(section)
 			.min(1)
