@@ -51,8 +51,11 @@ describe('unit text', () => {
 	});
 
 	it('money, quantities and dates', () => {
-		expect(formatMoney(646.4000000000001)).toBe('646.40');
-		expect(formatMoney(1683.2)).toBe('1,683.20');
+		expect(formatMoney(646.4000000000001)).toBe('$646.40');
+		expect(formatMoney(1683.2, 'USD')).toBe('$1,683.20');
+		expect(formatMoney(1683.2, 'EUR')).toBe('€1,683.20');
+		expect(formatMoney(12, 'CAD')).toBe('CA$12.00');
+		expect(formatMoney(1500, 'JPY')).toBe('¥1,500'); // ISO 4217: the yen has no minor unit
 		expect(formatQuantity(13.999999999999998, 'ft')).toBe('14 ft');
 		expect(formatQuantity(2.4888, 'yd³')).toBe('2.49 yd³');
 		expect(formatQuantity(77.4558, 'gal')).toBe('77.5 gal');
@@ -74,7 +77,7 @@ describe('rows from a computed plan', () => {
 
 	it('names the cheaper option only when both prices exist', () => {
 		const items = summaryItems(patio);
-		expect(items.find((i) => i.label === 'Costs less')?.value).toMatch(/^Ready-mix: 491\.25 against 646\.40/);
+		expect(items.find((i) => i.label === 'Costs less')?.value).toMatch(/^Ready-mix: \$491\.25 against \$646\.40/);
 		const unpriced = { ...patio, cost: { cheaper: null } };
 		expect(summaryItems(unpriced).some((i) => i.label === 'Costs less')).toBe(false);
 	});

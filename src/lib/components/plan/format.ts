@@ -38,9 +38,17 @@ export function formatMinutes(minutes: number): string {
 	return `${Math.floor(m / 60)} h${rest ? ` ${rest} min` : ''}`;
 }
 
-/** Prices carry no currency in the plan, so amounts are shown as plain two-decimal figures. */
-export const formatMoney = (amount: number) =>
-	amount.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+const moneyFormats = new Map<string, Intl.NumberFormat>();
+
+/**
+ * An amount in the plan's currency (ISO 4217), e.g. "$1,683.20", "CA$12.00", "€5.10". One fixed
+ * locale, so the server-rendered page, the browser and the PDF print the same text.
+ */
+export function formatMoney(amount: number, currency = 'USD'): string {
+	let f = moneyFormats.get(currency);
+	if (!f) moneyFormats.set(currency, (f = new Intl.NumberFormat('en-US', { style: 'currency', currency })));
+	return f.format(amount);
+}
 
 /** A material quantity; a zero quantity means the unit text says it all ("per your layout"). */
 export function formatQuantity(quantity: number, unit: string): string {
@@ -68,11 +76,11 @@ export interface SummaryItem {
 	note?: string;
 }
 
-export type SummaryPlan = Pick<PlanResult, 'units' | 'area' | 'volume' | 'bags' | 'readyMix' | 'cost' | 'materials'>;
+export type SummaryPlan = Pick<PlanResult, 'units' | 'area' | 'volume' | 'bags' | 'readyMix' | 'cost' | 'materials'> & { currency?: string };
 
 export function summaryItems(p: SummaryPlan): SummaryItem[] {
 	const u = p.units;
-	const money = (x?: number) => (x === undefined ? '' : ` · ${formatMoney(x)}`);
+	const money = (x?: number) => (x === undefined ? '' : ` · ${formatMoney(x, p.currency)}`);
 	const items: SummaryItem[] = [
 		{ label: 'Area', value: formatArea(p.area, u) },
 		{ label: 'Outside edge', value: formatLength(p.area.perimeter, u) },
@@ -92,21 +100,22 @@ export function summaryItems(p: SummaryPlan): SummaryItem[] {
 	return items;
 }
 
-function cheaperText({ cost, bags }: SummaryPlan): string | undefined {
+function cheaperText({ cost, bags, currency }: SummaryPlan): string | undefined {
+	const formatMoneyIn = (x: number) => formatMoney(x, currency);
 	if (!cost.cheaper || cost.bagCost === undefined || cost.readyMixCost === undefined) return undefined;
 	const bag = bags.find((b) => b.size === cost.bagSize);
 	const bagLabel = bag ? `${formatBagSize(bag)} bags` : 'bags';
 	return cost.cheaper === 'bags'
-		? `${bagLabel}: ${formatMoney(cost.bagCost)} against ${formatMoney(cost.readyMixCost)} for ready-mix`
-		: `Ready-mix: ${formatMoney(cost.readyMixCost)} against ${formatMoney(cost.bagCost)} for ${bagLabel}`;
+		? `${bagLabel}: ${formatMoneyIn(cost.bagCost)} against ${formatMoneyIn(cost.readyMixCost)} for ready-mix`
+		: `Ready-mix: ${formatMoneyIn(cost.readyMixCost)} against ${formatMoneyIn(cost.bagCost)} for ${bagLabel}`;
 }
 
 /** The DIY total, or undefined when nothing in the list has a price. */
-export function diyTotal({ materials }: Pick<PlanResult, 'materials'>): { amount: string; note?: string } | undefined {
+export function diyTotal({ materials, currency }: Pick<PlanResult, 'materials'> & { currency?: string }): { amount: string; note?: string } | undefined {
 	if (!materials.items.some((i) => i.cost !== undefined)) return undefined;
 	const { amount, complete, unpriced } = materials.diyTotal;
 	const names = unpriced.map((id) => materials.items.find((i) => i.id === id)?.name ?? id);
-	return { amount: formatMoney(amount), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
+	return { amount: formatMoney(amount, currency), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
 }
 
 const RUN_KIND = { outer: 'Outer form', house: 'House side', bulkhead: 'Bulkhead' } as const;
@@ -274,12 +283,12 @@ export interface MaterialRow {
 	note?: string;
 }
 
-export const materialRows = ({ materials }: Pick<PlanResult, 'materials'>): MaterialRow[] =>
+export const materialRows = ({ materials, currency }: Pick<PlanResult, 'materials'> & { currency?: string }): MaterialRow[] =>
 	materials.items.map((i) => ({
 		id: i.id,
 		name: i.name,
 		quantity: formatQuantity(i.quantity, i.unit),
-		cost: i.cost === undefined ? undefined : formatMoney(i.cost),
+		cost: i.cost === undefined ? undefined : formatMoney(i.cost, currency),
 		note: i.note
 	}));
 

@@ -1,5 +1,6 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
+import { currentResult } from '$lib/components/plan/currentResult';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';
@@ -9,7 +10,7 @@ export const load = (async ({ parent }) => {
 	// The layout found the plan among the user's own; only then are its photos listed.
 	const { plan } = await parent();
 	const photos = (await listPhotos(plan.id)).map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height }));
-	return { photos, maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024 };
+	return { photos, maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024, result: currentResult(plan.input, plan.result) };
 }) satisfies PageServerLoad;
 
 export const actions = {
@@ -29,3 +30,4 @@ export const actions = {
 		return { removed: true };
 	}
 } satisfies Actions;
+
