@@ -151,12 +151,14 @@ describe('buildScene', () => {
 			for (const p of [j.from, j.to]) expect(p[2]).toBeCloseTo(surfaceAt(scene.surface, [p[0], p[1]]) + LINE_LIFT_M, 9);
 	});
 
-	it('sets the house wall back from each house edge by the gap', () => {
-		const scene = buildScene(computePlan(pad), { houseGapM: 0.012 });
+	it('sets the house wall back from each house edge by the typed gap', () => {
+		const scene = buildScene(computePlan(pad));
 		expect(scene.house).toHaveLength(1);
 		const ys = scene.house[0].footprint.map((p) => p[1]);
 		expect(Math.max(...ys)).toBeCloseTo(-0.012, 9);
 		expect(Math.min(...ys)).toBeCloseTo(-0.312, 9);
+		const wide = buildScene(computePlan({ ...pad, gapToHouse: 40 })).house[0].footprint.map((p) => p[1]);
+		expect(Math.max(...wide)).toBeCloseTo(-0.04, 9); // the typed 40 mm, not a default
 		expect(Math.max(...scene.house[0].top)).toBeGreaterThan(scene.bounds.max[2]);
 	});
 
