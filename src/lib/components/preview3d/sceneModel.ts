@@ -341,6 +341,8 @@ export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSce
 		labels.push({ text, at: [p[0], p[1], top(p) + 0.05], kind: 'fall' });
 	}
 
+	spreadLabels(labels);
+
 	// Look from the low side, well off square, so the fall runs across the view toward the viewer.
 	const target = lerp3(bounds.min, bounds.max, 0.5);
 	const d = downhill ?? unit([0.4, -1]);
@@ -366,6 +368,28 @@ export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSce
 		labels,
 		view: { target, eye }
 	};
+}
+
+/** Labels closer than this (m, in plan) would overlap on screen at the opening view. */
+export const LABEL_CLEARANCE_M = 0.9;
+/** How far a crowded label is lifted above the one it would cover, m. */
+const LABEL_STEP_M = 0.3;
+
+/**
+ * Lift each label that sits within LABEL_CLEARANCE_M (in plan) of an earlier one until it is clear
+ * of every earlier label in height too, so on screen they stack instead of covering each other.
+ */
+export function spreadLabels(labels: Label[]): void {
+	for (let i = 1; i < labels.length; i++) {
+		const a = labels[i];
+		for (let tries = 0; tries < 20; tries++) {
+			const hit = labels
+				.slice(0, i)
+				.some((b) => Math.hypot(a.at[0] - b.at[0], a.at[1] - b.at[1]) < LABEL_CLEARANCE_M && Math.abs(a.at[2] - b.at[2]) < LABEL_STEP_M - 1e-9);
+			if (!hit) break;
+			a.at = [a.at[0], a.at[1], a.at[2] + LABEL_STEP_M];
+		}
+	}
 }
 
 /** Ear clipping for a simple counter-clockwise polygon: triangles as index triples. */
