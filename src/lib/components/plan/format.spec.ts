@@ -10,6 +10,8 @@ import {
 	formatMass,
 	formatMinutes,
 	formatMoney,
+	plural,
+	strengthNote,
 	formatQuantity,
 	formatTemperature,
 	milestoneRows,
@@ -111,5 +113,18 @@ describe('rows from a computed plan', () => {
 		const sorted = sortCautions([c('local-codes', 'info'), c('a', 'info'), c('b', 'warning'), c('c', 'danger'), c('d', 'warning')]);
 		expect(sorted.deferral?.id).toBe('local-codes');
 		expect(sorted.rest.map((x) => x.id)).toEqual(['c', 'b', 'd', 'a']);
+	});
+});
+
+describe('small words', () => {
+	it('counts one board, not one boards', () => {
+		expect(plural(1, 'board')).toBe('1 board');
+		expect(plural(3, 'board')).toBe('3 boards');
+	});
+
+	it('explains a strength curve past 100 % and says nothing below it', () => {
+		// ACI 209R-92 Eq. 2-1, moist-cured Type I: 28 / (4.0 + 0.85 × 28) = 1.0072 → 100.7 % at day 28.
+		expect(strengthNote([{ percent: 70 }, { percent: 100.7 }])).toMatch(/ACI 209R-92.*100\.7 %/);
+		expect(strengthNote([{ percent: 70 }, { percent: 99 }])).toBeUndefined();
 	});
 });

@@ -50,6 +50,19 @@ export function formatMoney(amount: number, currency = 'USD'): string {
 	return f.format(amount);
 }
 
+/** "1 board", "3 boards". */
+export const plural = (n: number, word: string) => `${n} ${n === 1 ? word : `${word}s`}`;
+
+/**
+ * Why the strength curve may pass 100 %, or nothing when it stays below. 100 % is the 28-day
+ * strength at the standard temperature; ACI 209R-92 Eq. 2-1 (moist-cured Type I, a = 4.0, b = 0.85)
+ * gives 28 / (4 + 0.85 × 28) = 100.7 % at day 28, and warm days age concrete faster (ASTM C1074).
+ */
+export function strengthNote(strength: { percent: number }[]): string | undefined {
+	if (!strength.some((d) => d.percent > 100)) return undefined;
+	return 'The curve passes 100 %: 100 % is the design (28-day) strength, and concrete keeps gaining after day 28. The strength-gain formula (ACI 209R-92 Eq. 2-1) gives about 100.7 % at day 28 for ordinary cement, and warm weather makes concrete age faster than the calendar (ASTM C1074).';
+}
+
 /** A material quantity; a zero quantity means the unit text says it all ("per your layout"). */
 export function formatQuantity(quantity: number, unit: string): string {
 	if (quantity <= 0) return unit;
@@ -295,7 +308,13 @@ export const materialRows = ({ materials, currency }: Pick<PlanResult, 'material
 /** Shown only if a result ever lacks the engine's own local-codes caution. */
 export const DEFERRAL_FALLBACK = 'Local codes, permits and licensed professionals come before anything in this plan.';
 
-export const SEVERITY_LABEL: Record<Severity, string> = { danger: 'Danger', warning: 'Caution', info: 'Good to know' };
+/**
+ * Signal words and colours per ANSI Z535.4 (hazard labels): DANGER on safety red, WARNING on safety
+ * orange (CAUTION, yellow, is not used). Plain information takes a heading of our own, in blue.
+ */
+export const SEVERITY_LABEL: Record<Severity, string> = { danger: 'Danger', warning: 'Warning', info: 'Good to know' };
+/** ANSI Z535.1 safety red and safety orange (approximate sRGB), and our own information blue. */
+export const SEVERITY_COLOR: Record<Severity, string> = { danger: '#c8102e', warning: '#e8730c', info: '#1f4e66' };
 const SEVERITY_RANK: Record<Severity, number> = { danger: 0, warning: 1, info: 2 };
 
 /** The deferral to local codes apart, the rest most severe first (stable within a level). */

@@ -18,7 +18,7 @@ const textOf = async (pdf: Uint8Array) => (await extractText(pdf)).replace(/[ \t
 const covered = (cp: number) => cp <= 0xff || cp === 0x2212 || (cp >= 0x2000 && cp <= 0x206f);
 
 describe('planPdf', () => {
-	it.each(plans)('$id: a PDF with Nunito embedded and the plan numbers in its text', async ({ name, result }) => {
+	it.each(plans)('$id: a PDF with Nunito embedded and the plan numbers in its text', { timeout: 30_000 }, async ({ name, result }) => {
 		const pdf = await planPdf({ name, result, createdAt: new Date('2027-04-01T12:00:00Z') });
 		const raw = Buffer.from(pdf).toString('latin1');
 		expect(raw.startsWith('%PDF-')).toBe(true);

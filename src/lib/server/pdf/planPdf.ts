@@ -12,6 +12,7 @@ import { layoutDrawing, type LayoutDrawing } from '$lib/components/plan/layoutDr
 import {
 	DEFERRAL_FALLBACK,
 	READY_MIX_HINT,
+	SEVERITY_COLOR,
 	SEVERITY_LABEL,
 	crewItems,
 	dayRows,
@@ -24,6 +25,7 @@ import {
 	sortCautions,
 	stakeIntro,
 	stakeRows,
+	strengthNote,
 	summaryItems,
 	type MilestoneRow
 } from '$lib/components/plan/format';
@@ -117,7 +119,6 @@ const C = {
 	danger: '#a32626',
 	sky: '#1f4e66'
 } as const;
-const SEVERITY_COLOR = { danger: C.danger, warning: C.clay, info: C.sky } as const;
 
 /**
  * The plan as PDF bytes. `createdAt`: when the plan was last saved; `madeAt`: when this PDF is
@@ -313,6 +314,8 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	heading('Strength over time');
 	const stones = milestoneRows(r);
 	strengthChart(doc, r.strength, stones, { x: left, width, t });
+	const over = strengthNote(r.strength);
+	if (over) text(over, { size: 8, color: C.soft, gap: 6 });
 	table(
 		['#', 'Milestone', 'When', 'Strength then', 'Rule and source'],
 		stones.map((m, i) => [String(i + 1), m.title, m.when, m.strength ?? '—', `${m.rule}; ${m.source}`]),
@@ -340,7 +343,15 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	heading('Cautions');
 	for (const c of deferral ? [deferral, ...rest] : rest) {
 		room(70);
-		text(`${SEVERITY_LABEL[c.severity]}: ${c.title}`, { bold: true, size: 11, color: SEVERITY_COLOR[c.severity], gap: 1 });
+		// The signal word on its ANSI Z535 colour, as on a hazard label; the title in ink beside it.
+		const word = t(SEVERITY_LABEL[c.severity].toUpperCase());
+		doc.font('bold').fontSize(8);
+		const w = doc.widthOfString(word) + 8;
+		const y = doc.y;
+		doc.rect(left, y + 1, w, 12).fill(SEVERITY_COLOR[c.severity]);
+		doc.fillColor(c.severity === 'warning' ? '#000000' : '#ffffff').text(word, left + 4, y + 3.5, { lineBreak: false });
+		doc.font('bold').fontSize(11).fillColor(C.ink).text(t(c.title), left + w + 6, y, { width: width - w - 6, paragraphGap: 1 });
+		doc.x = left;
 		text(c.reason);
 		text(`What to do: ${c.action}`);
 		text(`Source: ${c.source}`, { size: 9, color: C.soft, gap: 8 });
