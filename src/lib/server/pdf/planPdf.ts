@@ -8,6 +8,7 @@ import PDFDocument from 'pdfkit';
 import type { PlanResult } from '$lib/plan';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
 import { buildCardItems } from '$lib/components/plan/buildCard';
+import { GLOSSARY } from '$lib/components/plan/glossary';
 import { layoutDrawing, type LayoutDrawing } from '$lib/components/plan/layoutDrawing';
 import {
 	DEFERRAL_FALLBACK,
@@ -357,6 +358,14 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 		text(`Source: ${c.source}`, { size: 9, color: C.soft, gap: 8 });
 	}
 	if (!deferral) text(DEFERRAL_FALLBACK, { bold: true, color: C.sky });
+
+	heading('Trade words in plain language');
+	for (const g of GLOSSARY) {
+		room(40);
+		text(g.term, { bold: true, gap: 0 });
+		text(g.plain, { gap: g.source ? 0 : 5 });
+		if (g.source) text(`Source: ${g.source}`, { size: 8, color: C.soft, gap: 5 });
+	}
 
 	// Footer on every page: the plan, the page count, and the reminder that local rules come first.
 	const pages = doc.bufferedPageRange();
