@@ -10,6 +10,7 @@ import {
 	formatMass,
 	formatMinutes,
 	formatMoney,
+	readerLocale,
 	plural,
 	strengthNote,
 	formatQuantity,
@@ -63,6 +64,11 @@ describe('unit text', () => {
 		expect(formatQuantity(77.4558, 'gal')).toBe('77.5 gal');
 		expect(formatQuantity(0, 'per your layout')).toBe('per your layout');
 		expect(formatDate('2027-05-15')).toBe('Sat, May 15, 2027');
+		expect(formatDate('2027-05-15', 'en-GB')).toBe('Sat, 15 May 2027');
+		expect(formatDate('2027-05-15', 'de-DE')).toBe('Sa., 15. Mai 2027');
+		expect(readerLocale('de-DE,de;q=0.9,en;q=0.8')).toBe('de-DE');
+		expect(readerLocale('x-!!, en-GB;q=0.5')).toBe('en-GB');
+		expect(readerLocale(null)).toBe('en-US');
 	});
 });
 

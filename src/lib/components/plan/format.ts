@@ -69,9 +69,27 @@ export function formatQuantity(quantity: number, unit: string): string {
 	return `${num(quantity, quantity >= 10 ? 1 : 2)} ${unit}`;
 }
 
-/** ISO day to text, read in UTC so the server and the browser print the same date. */
-export const formatDate = (iso: string) =>
-	new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-US', {
+/**
+ * The reader's locale from an Accept-Language header: the first tag this runtime can format dates
+ * in, else en-US. Read on the server, so the page renders and hydrates with the same dates.
+ */
+export function readerLocale(acceptLanguage: string | null | undefined): string {
+	for (const part of (acceptLanguage ?? '').split(',').slice(0, 10)) {
+		const tag = part.split(';')[0].trim();
+		if (!tag || tag === '*') continue;
+		try {
+			const [ok] = Intl.DateTimeFormat.supportedLocalesOf(tag);
+			if (ok) return ok;
+		} catch {
+			// not a well-formed language tag: try the next one
+		}
+	}
+	return 'en-US';
+}
+
+/** ISO day to text in the reader's locale, read in UTC so the server and the browser agree. */
+export const formatDate = (iso: string, locale = 'en-US') =>
+	new Date(`${iso}T00:00:00Z`).toLocaleDateString(locale, {
 		weekday: 'short',
 		month: 'short',
 		day: 'numeric',
@@ -242,12 +260,12 @@ export interface DayRow {
 	tasks: { id: string; text: string }[];
 }
 
-export function dayRows({ schedule }: Pick<PlanResult, 'schedule'>): DayRow[] {
+export function dayRows({ schedule }: Pick<PlanResult, 'schedule'>, locale?: string): DayRow[] {
 	const pours = new Set(schedule.pourDays.map((d) => d.day));
 	return schedule.days.map((d) => ({
 		day: d.day,
 		label: `Day ${d.day}`,
-		date: d.date ? formatDate(d.date) : undefined,
+		date: d.date ? formatDate(d.date, locale) : undefined,
 		pour: pours.has(d.day),
 		tasks: d.tasks
 	}));
@@ -266,13 +284,13 @@ export interface MilestoneRow {
 	source: string;
 }
 
-export function milestoneRows(p: Pick<PlanResult, 'milestones' | 'strength'>): MilestoneRow[] {
+export function milestoneRows(p: Pick<PlanResult, 'milestones' | 'strength'>, locale?: string): MilestoneRow[] {
 	return p.milestones.map((m) => {
 		const percent = m.day === null ? undefined : p.strength.find((d) => d.day === m.day)?.percent;
 		const when =
 			m.day === null
 				? 'not reached in the forecast period'
-				: [`day ${m.day} after the last pour`, m.planDay === null ? '' : `plan day ${m.planDay}`, m.date ? formatDate(m.date) : '']
+				: [`day ${m.day} after the last pour`, m.planDay === null ? '' : `plan day ${m.planDay}`, m.date ? formatDate(m.date, locale) : '']
 						.filter(Boolean)
 						.join(' · ');
 		return {

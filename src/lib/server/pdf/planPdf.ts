@@ -123,9 +123,9 @@ const C = {
 
 /**
  * The plan as PDF bytes. `createdAt`: when the plan was last saved; `madeAt`: when this PDF is
- * made (now by default).
+ * made (now by default); `locale`: the reader's, for dates (en-US by default).
  */
-export async function planPdf(plan: { name: string; result: PlanResult; createdAt?: Date; madeAt?: Date }): Promise<Uint8Array> {
+export async function planPdf(plan: { name: string; result: PlanResult; createdAt?: Date; madeAt?: Date; locale?: string }): Promise<Uint8Array> {
 	const f = await loadFonts();
 	const r = plan.result;
 	const t = (s: string) => pdfText(s, f.covers);
@@ -201,7 +201,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	// Title and the deferral to local codes, first thing on the page.
 	const { deferral, rest } = sortCautions(r.cautions);
 	text(plan.name, { size: 24, bold: true, gap: 0 });
-	const day = (d: Date) => formatDate(d.toISOString().slice(0, 10));
+	const day = (d: Date) => formatDate(d.toISOString().slice(0, 10), plan.locale);
 	text(
 		[
 			'Concrete slab plan',
@@ -303,7 +303,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	}
 
 	heading('Day by day');
-	for (const d of dayRows(r)) {
+	for (const d of dayRows(r, plan.locale)) {
 		room(36);
 		text([d.label, d.date, d.pour ? 'pour day' : ''].filter(Boolean).join(' · '), { bold: true, color: d.pour ? C.moss : C.ink, gap: 0 });
 		doc.font('regular').fontSize(10).fillColor(C.ink);
@@ -313,7 +313,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	}
 
 	heading('Strength over time');
-	const stones = milestoneRows(r);
+	const stones = milestoneRows(r, plan.locale);
 	strengthChart(doc, r.strength, stones, { x: left, width, t });
 	const over = strengthNote(r.strength);
 	if (over) text(over, { size: 8, color: C.soft, gap: 6 });
