@@ -49,6 +49,7 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 
 	const labels: DrawnLabel[] = [];
 	const house: DrawnLine[] = [];
+	const cornerAt = new Map<string, DrawnLabel>();
 	for (const s of r.geometry.sections) {
 		const o = s.outline;
 		const n = o.length;
@@ -66,7 +67,15 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 			const k = Math.hypot(bis[0], bis[1]) || 1;
 			const at = P(v);
 			const text = sheet.corners.find((c) => c.section === s.index && c.vertex === i)?.label ?? '';
-			labels.push({ kind: 'corner', text, at: [at[0] + (bis[0] / k) * 14, at[1] + (bis[1] / k) * 14] });
+			// Where pours share a corner, one label names it for both: "1B/2A".
+			const key = `${Math.round(at[0])},${Math.round(at[1])}`;
+			const shared = cornerAt.get(key);
+			if (shared) shared.text = `${shared.text}/${text}`;
+			else {
+				const label: DrawnLabel = { kind: 'corner', text, at: [at[0] + (bis[0] / k) * 14, at[1] + (bis[1] / k) * 14] };
+				cornerAt.set(key, label);
+				labels.push(label);
+			}
 		});
 		for (const e of s.edges) {
 			const [a, b] = [o[e.index], o[(e.index + 1) % n]];

@@ -239,7 +239,8 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 		doc.y = rowTop;
 	}
 	heading('Layout drawing');
-	const drawing = layoutDrawing(r, sheet, { width, height: Math.max(160, bottom() - doc.y - 40) });
+	// Room below the drawing for its two-line legend, so the legend never spills onto a page of its own.
+	const drawing = layoutDrawing(r, sheet, { width, height: Math.max(160, bottom() - doc.y - 44) });
 	drawLayout(doc, drawing, { x: left + (width - drawing.width) / 2, y: doc.y, t });
 	doc.y += drawing.height + 4;
 	text(
