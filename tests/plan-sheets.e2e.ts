@@ -56,12 +56,18 @@ test('the plan page opens with the build card and carries a layout sheet with sq
 	expect(errors).toEqual([]);
 });
 
-test('a metric plan in two pours: corners carry the section number and diagonals read in metres', async ({ page }) => {
+test('a metric plan in two pours on a phone: corners carry the section number and diagonals read in metres', async ({ page }) => {
+	await page.setViewportSize({ width: 390, height: 844 });
 	const errors = await openDemoPlan(page, 'castell-shed-pad');
 	const sheet = page.getByTestId('layout-sheet');
 	// Two pours of 1.8 × 2.4 m: Pythagoras √(1.8² + 2.4²) = √9 = 3 m.
 	await expect(sheet.getByTestId('diagonals')).toContainText('1A–1C 3.000 m');
 	await expect(sheet.getByTestId('diagonals')).toContainText('2B–2D 3.000 m');
+	// On a phone the build card and the sheet fit the width: nothing scrolls sideways.
+	await expect(page.getByTestId('build-card')).toBeVisible();
+	await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
+	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+	await page.screenshot({ path: 'test-results/screens/plan-layout-sheet-390.png', fullPage: true });
 	const card = page.getByTestId('build-card');
 	// 100 mm slab + 100 mm thickened-edge trench + 100 mm base at the thickened edges.
 	await expect(card.locator('div', { hasText: /^Dig at thickened edges/ }).getByRole('definition').first()).toHaveText('300 mm');
