@@ -26,6 +26,7 @@ import { parsePlanInput, type EdgeRef, type ParsedPlan, type PlanInput } from '.
 import type { StrengthDay } from './strength';
 import * as unitsLib from './units';
 import type { Area, Length, Units } from './units';
+import { computeSlab, type SlabResult } from './slab';
 import { computeVolume, thickenedEdges, type VolumeResult } from './volume';
 import { assessWeather, type WeatherResult } from './weather';
 
@@ -54,8 +55,12 @@ export interface GeometryResult {
 export interface PlanResult {
 	units: Units;
 	name?: string;
+	/** ISO 4217 code of every price. */
+	currency: string;
 	area: Area & { perimeter: Length; sections: SectionArea[] };
 	geometry: GeometryResult;
+	/** Thickness, base, dig depths, trench, house gap and the finished surface, for every view. */
+	slab: SlabResult;
 	volume: VolumeResult;
 	forms: FormsResult;
 	elevations: ElevationResult;
@@ -178,6 +183,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 	return {
 		units: m.units,
 		name: m.name,
+		currency: p.currency,
 		area: {
 			...area(slabArea),
 			perimeter: length(layout.outerPerimeter),
@@ -189,6 +195,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 			}))
 		},
 		geometry: geometryResult(m, layout, thick),
+		slab: computeSlab(m, plane, thick),
 		volume,
 		forms,
 		elevations,
@@ -245,4 +252,5 @@ export type { MixingResult, MixingSection, Split } from './mixing';
 export type { Milestone, ScheduleResult, ScheduleDay } from './schedule';
 export type { StrengthDay } from './strength';
 export type { VolumeResult, SectionVolume } from './volume';
+export type { SlabResult } from './slab';
 export type { WeatherResult, PourWeather } from './weather';

@@ -19,6 +19,7 @@ const UNIT: Record<Units, Record<UnitKind, string>> = {
 const FIELDS: Record<string, [string, UnitKind?]> = {
 	units: ['the units'],
 	name: ['the plan name'],
+	currency: ['the currency code (ISO 4217, such as USD)'],
 	sections: ['the pour sections'],
 	'sections.name': ['the section name'],
 	'sections.outline': ['the outline', 'L'],

@@ -64,6 +64,9 @@ const text = (max: number) =>
 		.max(max)
 		.refine((v) => !BAD_TEXT.test(v), { error: 'Remove the control character or broken character (such as NUL) from this text.' });
 
+/** ISO 4217 codes this runtime can format (Intl); prices are shown with Intl.NumberFormat. */
+const CURRENCIES = new Set(Intl.supportedValuesOf('currency'));
+
 function deepFreeze<T>(v: T): T {
 	if (v && typeof v === 'object') {
 		for (const x of Object.values(v)) deepFreeze(x);
@@ -129,6 +132,13 @@ function planSchemaFor<U extends Units>(units: U) {
 	return z.strictObject({
 		units: z.literal(units),
 		name: text(100).optional(),
+		currency: z
+			.string()
+			.trim()
+			.toUpperCase()
+			.refine((c) => CURRENCIES.has(c), { error: 'Enter a three-letter currency code such as USD, CAD or EUR (ISO 4217).' })
+			.default('USD')
+			.describe('ISO 4217 code of every price in the plan.'),
 		sections: z
 			.array(section)
 			.min(1)

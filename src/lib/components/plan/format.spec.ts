@@ -10,6 +10,9 @@ import {
 	formatMass,
 	formatMinutes,
 	formatMoney,
+	readerLocale,
+	plural,
+	strengthNote,
 	formatQuantity,
 	formatTemperature,
 	milestoneRows,
@@ -51,13 +54,21 @@ describe('unit text', () => {
 	});
 
 	it('money, quantities and dates', () => {
-		expect(formatMoney(646.4000000000001)).toBe('646.40');
-		expect(formatMoney(1683.2)).toBe('1,683.20');
+		expect(formatMoney(646.4000000000001)).toBe('$646.40');
+		expect(formatMoney(1683.2, 'USD')).toBe('$1,683.20');
+		expect(formatMoney(1683.2, 'EUR')).toBe('€1,683.20');
+		expect(formatMoney(12, 'CAD')).toBe('CA$12.00');
+		expect(formatMoney(1500, 'JPY')).toBe('¥1,500'); // ISO 4217: the yen has no minor unit
 		expect(formatQuantity(13.999999999999998, 'ft')).toBe('14 ft');
 		expect(formatQuantity(2.4888, 'yd³')).toBe('2.49 yd³');
 		expect(formatQuantity(77.4558, 'gal')).toBe('77.5 gal');
 		expect(formatQuantity(0, 'per your layout')).toBe('per your layout');
 		expect(formatDate('2027-05-15')).toBe('Sat, May 15, 2027');
+		expect(formatDate('2027-05-15', 'en-GB')).toBe('Sat, 15 May 2027');
+		expect(formatDate('2027-05-15', 'de-DE')).toBe('Sa., 15. Mai 2027');
+		expect(readerLocale('de-DE,de;q=0.9,en;q=0.8')).toBe('de-DE');
+		expect(readerLocale('x-!!, en-GB;q=0.5')).toBe('en-GB');
+		expect(readerLocale(null)).toBe('en-US');
 	});
 });
 
@@ -74,7 +85,7 @@ describe('rows from a computed plan', () => {
 
 	it('names the cheaper option only when both prices exist', () => {
 		const items = summaryItems(patio);
-		expect(items.find((i) => i.label === 'Costs less')?.value).toMatch(/^Ready-mix: 491\.25 against 646\.40/);
+		expect(items.find((i) => i.label === 'Costs less')?.value).toMatch(/^Ready-mix: \$491\.25 against \$646\.40/);
 		const unpriced = { ...patio, cost: { cheaper: null } };
 		expect(summaryItems(unpriced).some((i) => i.label === 'Costs less')).toBe(false);
 	});
@@ -108,5 +119,18 @@ describe('rows from a computed plan', () => {
 		const sorted = sortCautions([c('local-codes', 'info'), c('a', 'info'), c('b', 'warning'), c('c', 'danger'), c('d', 'warning')]);
 		expect(sorted.deferral?.id).toBe('local-codes');
 		expect(sorted.rest.map((x) => x.id)).toEqual(['c', 'b', 'd', 'a']);
+	});
+});
+
+describe('small words', () => {
+	it('counts one board, not one boards', () => {
+		expect(plural(1, 'board')).toBe('1 board');
+		expect(plural(3, 'board')).toBe('3 boards');
+	});
+
+	it('explains a strength curve past 100 % and says nothing below it', () => {
+		// ACI 209R-92 Eq. 2-1, moist-cured Type I: 28 / (4.0 + 0.85 × 28) = 1.0072 → 100.7 % at day 28.
+		expect(strengthNote([{ percent: 70 }, { percent: 100.7 }])).toMatch(/ACI 209R-92.*100\.7 %/);
+		expect(strengthNote([{ percent: 70 }, { percent: 99 }])).toBeUndefined();
 	});
 });

@@ -38,9 +38,30 @@ export function formatMinutes(minutes: number): string {
 	return `${Math.floor(m / 60)} h${rest ? ` ${rest} min` : ''}`;
 }
 
-/** Prices carry no currency in the plan, so amounts are shown as plain two-decimal figures. */
-export const formatMoney = (amount: number) =>
-	amount.toLocaleString('en-US', { minimumFractionDigits: 2, maximumFractionDigits: 2 });
+const moneyFormats = new Map<string, Intl.NumberFormat>();
+
+/**
+ * An amount in the plan's currency (ISO 4217), e.g. "$1,683.20", "CA$12.00", "€5.10". One fixed
+ * locale, so the server-rendered page, the browser and the PDF print the same text.
+ */
+export function formatMoney(amount: number, currency = 'USD'): string {
+	let f = moneyFormats.get(currency);
+	if (!f) moneyFormats.set(currency, (f = new Intl.NumberFormat('en-US', { style: 'currency', currency })));
+	return f.format(amount);
+}
+
+/** "1 board", "3 boards". */
+export const plural = (n: number, word: string) => `${n} ${n === 1 ? word : `${word}s`}`;
+
+/**
+ * Why the strength curve may pass 100 %, or nothing when it stays below. 100 % is the 28-day
+ * strength at the standard temperature; ACI 209R-92 Eq. 2-1 (moist-cured Type I, a = 4.0, b = 0.85)
+ * gives 28 / (4 + 0.85 × 28) = 100.7 % at day 28, and warm days age concrete faster (ASTM C1074).
+ */
+export function strengthNote(strength: { percent: number }[]): string | undefined {
+	if (!strength.some((d) => d.percent > 100)) return undefined;
+	return 'The curve passes 100 %: 100 % is the design (28-day) strength, and concrete keeps gaining after day 28. The strength-gain formula (ACI 209R-92 Eq. 2-1) gives about 100.7 % at day 28 for ordinary cement, and warm weather makes concrete age faster than the calendar (ASTM C1074).';
+}
 
 /** A material quantity; a zero quantity means the unit text says it all ("per your layout"). */
 export function formatQuantity(quantity: number, unit: string): string {
@@ -48,9 +69,27 @@ export function formatQuantity(quantity: number, unit: string): string {
 	return `${num(quantity, quantity >= 10 ? 1 : 2)} ${unit}`;
 }
 
-/** ISO day to text, read in UTC so the server and the browser print the same date. */
-export const formatDate = (iso: string) =>
-	new Date(`${iso}T00:00:00Z`).toLocaleDateString('en-US', {
+/**
+ * The reader's locale from an Accept-Language header: the first tag this runtime can format dates
+ * in, else en-US. Read on the server, so the page renders and hydrates with the same dates.
+ */
+export function readerLocale(acceptLanguage: string | null | undefined): string {
+	for (const part of (acceptLanguage ?? '').split(',').slice(0, 10)) {
+		const tag = part.split(';')[0].trim();
+		if (!tag || tag === '*') continue;
+		try {
+			const [ok] = Intl.DateTimeFormat.supportedLocalesOf(tag);
+			if (ok) return ok;
+		} catch {
+			// not a well-formed language tag: try the next one
+		}
+	}
+	return 'en-US';
+}
+
+/** ISO day to text in the reader's locale, read in UTC so the server and the browser agree. */
+export const formatDate = (iso: string, locale = 'en-US') =>
+	new Date(`${iso}T00:00:00Z`).toLocaleDateString(locale, {
 		weekday: 'short',
 		month: 'short',
 		day: 'numeric',
@@ -68,11 +107,11 @@ export interface SummaryItem {
 	note?: string;
 }
 
-export type SummaryPlan = Pick<PlanResult, 'units' | 'area' | 'volume' | 'bags' | 'readyMix' | 'cost' | 'materials'>;
+export type SummaryPlan = Pick<PlanResult, 'units' | 'area' | 'volume' | 'bags' | 'readyMix' | 'cost' | 'materials'> & { currency?: string };
 
 export function summaryItems(p: SummaryPlan): SummaryItem[] {
 	const u = p.units;
-	const money = (x?: number) => (x === undefined ? '' : ` · ${formatMoney(x)}`);
+	const money = (x?: number) => (x === undefined ? '' : ` · ${formatMoney(x, p.currency)}`);
 	const items: SummaryItem[] = [
 		{ label: 'Area', value: formatArea(p.area, u) },
 		{ label: 'Outside edge', value: formatLength(p.area.perimeter, u) },
@@ -92,21 +131,22 @@ export function summaryItems(p: SummaryPlan): SummaryItem[] {
 	return items;
 }
 
-function cheaperText({ cost, bags }: SummaryPlan): string | undefined {
+function cheaperText({ cost, bags, currency }: SummaryPlan): string | undefined {
+	const formatMoneyIn = (x: number) => formatMoney(x, currency);
 	if (!cost.cheaper || cost.bagCost === undefined || cost.readyMixCost === undefined) return undefined;
 	const bag = bags.find((b) => b.size === cost.bagSize);
 	const bagLabel = bag ? `${formatBagSize(bag)} bags` : 'bags';
 	return cost.cheaper === 'bags'
-		? `${bagLabel}: ${formatMoney(cost.bagCost)} against ${formatMoney(cost.readyMixCost)} for ready-mix`
-		: `Ready-mix: ${formatMoney(cost.readyMixCost)} against ${formatMoney(cost.bagCost)} for ${bagLabel}`;
+		? `${bagLabel}: ${formatMoneyIn(cost.bagCost)} against ${formatMoneyIn(cost.readyMixCost)} for ready-mix`
+		: `Ready-mix: ${formatMoneyIn(cost.readyMixCost)} against ${formatMoneyIn(cost.bagCost)} for ${bagLabel}`;
 }
 
 /** The DIY total, or undefined when nothing in the list has a price. */
-export function diyTotal({ materials }: Pick<PlanResult, 'materials'>): { amount: string; note?: string } | undefined {
+export function diyTotal({ materials, currency }: Pick<PlanResult, 'materials'> & { currency?: string }): { amount: string; note?: string } | undefined {
 	if (!materials.items.some((i) => i.cost !== undefined)) return undefined;
 	const { amount, complete, unpriced } = materials.diyTotal;
 	const names = unpriced.map((id) => materials.items.find((i) => i.id === id)?.name ?? id);
-	return { amount: formatMoney(amount), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
+	return { amount: formatMoney(amount, currency), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
 }
 
 const RUN_KIND = { outer: 'Outer form', house: 'House side', bulkhead: 'Bulkhead' } as const;
@@ -221,12 +261,12 @@ export interface DayRow {
 	tasks: { id: string; text: string }[];
 }
 
-export function dayRows({ schedule }: Pick<PlanResult, 'schedule'>): DayRow[] {
+export function dayRows({ schedule }: Pick<PlanResult, 'schedule'>, locale?: string): DayRow[] {
 	const pours = new Set(schedule.pourDays.map((d) => d.day));
 	return schedule.days.map((d) => ({
 		day: d.day,
 		label: `Day ${d.day}`,
-		date: d.date ? formatDate(d.date) : undefined,
+		date: d.date ? formatDate(d.date, locale) : undefined,
 		pour: pours.has(d.day),
 		tasks: d.tasks
 	}));
@@ -245,13 +285,13 @@ export interface MilestoneRow {
 	source: string;
 }
 
-export function milestoneRows(p: Pick<PlanResult, 'milestones' | 'strength'>): MilestoneRow[] {
+export function milestoneRows(p: Pick<PlanResult, 'milestones' | 'strength'>, locale?: string): MilestoneRow[] {
 	return p.milestones.map((m) => {
 		const percent = m.day === null ? undefined : p.strength.find((d) => d.day === m.day)?.percent;
 		const when =
 			m.day === null
 				? 'not reached in the forecast period'
-				: [`day ${m.day} after the last pour`, m.planDay === null ? '' : `plan day ${m.planDay}`, m.date ? formatDate(m.date) : '']
+				: [`day ${m.day} after the last pour`, m.planDay === null ? '' : `plan day ${m.planDay}`, m.date ? formatDate(m.date, locale) : '']
 						.filter(Boolean)
 						.join(' · ');
 		return {
@@ -275,19 +315,25 @@ export interface MaterialRow {
 	note?: string;
 }
 
-export const materialRows = ({ materials }: Pick<PlanResult, 'materials'>): MaterialRow[] =>
+export const materialRows = ({ materials, currency }: Pick<PlanResult, 'materials'> & { currency?: string }): MaterialRow[] =>
 	materials.items.map((i) => ({
 		id: i.id,
 		name: i.name,
 		quantity: formatQuantity(i.quantity, i.unit),
-		cost: i.cost === undefined ? undefined : formatMoney(i.cost),
+		cost: i.cost === undefined ? undefined : formatMoney(i.cost, currency),
 		note: i.note
 	}));
 
 /** Shown only if a result ever lacks the engine's own local-codes caution. */
 export const DEFERRAL_FALLBACK = 'Local codes, permits and licensed professionals come before anything in this plan.';
 
-export const SEVERITY_LABEL: Record<Severity, string> = { danger: 'Danger', warning: 'Caution', info: 'Good to know' };
+/**
+ * Signal words and colours per ANSI Z535.4 (hazard labels): DANGER on safety red, WARNING on safety
+ * orange (CAUTION, yellow, is not used). Plain information takes a heading of our own, in blue.
+ */
+export const SEVERITY_LABEL: Record<Severity, string> = { danger: 'Danger', warning: 'Warning', info: 'Good to know' };
+/** ANSI Z535.1 safety red and safety orange (approximate sRGB), and our own information blue. */
+export const SEVERITY_COLOR: Record<Severity, string> = { danger: '#c8102e', warning: '#e8730c', info: '#1f4e66' };
 const SEVERITY_RANK: Record<Severity, number> = { danger: 0, warning: 1, info: 2 };
 
 /** The deferral to local codes apart, the rest most severe first (stable within a level). */

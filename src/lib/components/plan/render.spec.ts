@@ -3,7 +3,10 @@ import { describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
 import { formatSmall, formatVolume } from '$lib/plan/format';
 import demo from '../../../../fixtures/demo-plans.json';
+import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
+import BuildCard from './BuildCard.svelte';
 import CautionList from './CautionList.svelte';
+import LayoutSheet from './LayoutSheet.svelte';
 import DayPlan from './DayPlan.svelte';
 import MaterialsList from './MaterialsList.svelte';
 import MixingPlan from './MixingPlan.svelte';
@@ -35,6 +38,20 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 		expect(out).toContain(formatVolume(result.volume.net, u));
 		expect(out).toContain(formatVolume(result.volume.order, u));
 		for (const b of result.bags) expect(out).toContain(`${b.size} ${b.unit} bags ${b.count} bags`);
+	});
+
+	it('BuildCard states the thickness and dig depth from the slab block', () => {
+		const out = text(render(BuildCard, { props: { plan: result } }).body);
+		expect(out).toContain(`Slab thickness ${formatSmall(result.slab.thickness, u)}`);
+		expect(out).toContain(`Dig depth ${formatSmall(result.slab.digDepth, u)}`);
+	});
+
+	it('LayoutSheet draws the top view and places every stake along its board', () => {
+		const html = render(LayoutSheet, { props: { plan: result } }).body;
+		expect(html).toContain('<svg');
+		expect((html.match(/<polygon/g) ?? []).length).toBe(result.geometry.sections.length);
+		const out = text(html);
+		for (const s of layoutSheet(result).stakes) expect(out).toContain(`${s.id} ${s.board} ${s.from}, along ${s.along} ${tapeLength(s.distance, u)}`);
 	});
 
 	it('StakeMarkTable lists every stake with its mark, in an accessible table', () => {

@@ -3,7 +3,9 @@ import { computePlan, type PlanInput } from '$lib/plan';
 import { M_PER_FT, M_PER_IN } from '$lib/plan/units';
 import {
 	buildScene,
+	LABEL_CLEARANCE_M,
 	LAWN_OVERLAP_M,
+	spreadLabels,
 	LINE_LIFT_M,
 	prismTriangles,
 	signedArea,
@@ -151,12 +153,14 @@ describe('buildScene', () => {
 			for (const p of [j.from, j.to]) expect(p[2]).toBeCloseTo(surfaceAt(scene.surface, [p[0], p[1]]) + LINE_LIFT_M, 9);
 	});
 
-	it('sets the house wall back from each house edge by the gap', () => {
-		const scene = buildScene(computePlan(pad), { houseGapM: 0.012 });
+	it('sets the house wall back from each house edge by the typed gap', () => {
+		const scene = buildScene(computePlan(pad));
 		expect(scene.house).toHaveLength(1);
 		const ys = scene.house[0].footprint.map((p) => p[1]);
 		expect(Math.max(...ys)).toBeCloseTo(-0.012, 9);
 		expect(Math.min(...ys)).toBeCloseTo(-0.312, 9);
+		const wide = buildScene(computePlan({ ...pad, gapToHouse: 40 })).house[0].footprint.map((p) => p[1]);
+		expect(Math.max(...wide)).toBeCloseTo(-0.04, 9); // the typed 40 mm, not a default
 		expect(Math.max(...scene.house[0].top)).toBeGreaterThan(scene.bounds.max[2]);
 	});
 
@@ -170,5 +174,24 @@ describe('buildScene', () => {
 		// Boards stand outside the slab: nothing of them is inside the 3 × 2 m outline.
 		for (const f of scene.forms)
 			for (const [x, y] of f.solid.footprint) expect(x <= 1e-9 || x >= 3 - 1e-9 || y <= 1e-9 || y >= 2 - 1e-9).toBe(true);
+	});
+
+	it('keeps labels apart: none within the clearance of another at the same height', () => {
+		const small = computePlan({ ...pad, sections: [{ outline: [[0, 0], [1, 0], [1, 0.8], [0, 0.8]] }] });
+		for (const scene of [buildScene(small), buildScene(computePlan(patio)), buildScene(computePlan(pad))]) {
+			const ls = scene.labels;
+			for (let i = 0; i < ls.length; i++)
+				for (let j = 0; j < i; j++) {
+					const near = Math.hypot(ls[i].at[0] - ls[j].at[0], ls[i].at[1] - ls[j].at[1]) < LABEL_CLEARANCE_M;
+					if (near) expect(Math.abs(ls[i].at[2] - ls[j].at[2])).toBeGreaterThanOrEqual(0.3 - 1e-9);
+				}
+		}
+		// Two labels on one spot: the second is lifted.
+		const pair = [
+			{ text: 'a', at: [0, 0, 0] as const, kind: 'edge' as const },
+			{ text: 'b', at: [0.1, 0, 0] as const, kind: 'edge' as const }
+		];
+		spreadLabels(pair);
+		expect(pair[1].at[2]).toBeCloseTo(0.3, 9);
 	});
 });

@@ -63,8 +63,6 @@ export interface SlabSceneModel {
 export interface SceneOptions {
 	/** How many times steeper the pitch is drawn. */
 	exaggeration?: number;
-	/** Space between slab and wall, m. PlanResult does not carry it; the input default is 12 mm. */
-	houseGapM?: number;
 }
 
 const BOARD_M = DRESSED_THICKNESS_IN * M_PER_IN;
@@ -96,27 +94,6 @@ const near = (a: P2, b: P2) => len(sub(a, b)) < 1e-3;
 export { signedArea };
 
 export const surfaceAt = (s: Surface, p: P2) => s.z0 + s.dzdx * p[0] + s.dzdy * p[1];
-
-/** Least-squares plane through the vertex elevations: exact, since the engine's top is a plane. */
-function fitPlane(pts: P3[]): { mean: P3; b: number; c: number } {
-	const n = pts.length;
-	const mx = pts.reduce((a, p) => a + p[0], 0) / n;
-	const my = pts.reduce((a, p) => a + p[1], 0) / n;
-	const mz = pts.reduce((a, p) => a + p[2], 0) / n;
-	let [sxx, sxy, syy, sxz, syz] = [0, 0, 0, 0, 0];
-	for (const [x, y, z] of pts) {
-		const [dx, dy, dz] = [x - mx, y - my, z - mz];
-		sxx += dx * dx;
-		sxy += dx * dy;
-		syy += dy * dy;
-		sxz += dx * dz;
-		syz += dy * dz;
-	}
-	const det = sxx * syy - sxy * sxy;
-	const b = det ? (sxz * syy - syz * sxy) / det : 0;
-	const c = det ? (syz * sxx - sxz * sxy) / det : 0;
-	return { mean: [mx, my, mz], b, c };
-}
 
 function prism(footprint: P2[], top: (p: P2) => number, bottom: (p: P2) => number): Prism {
 	const fp = signedArea(footprint) < 0 ? [...footprint].reverse() : footprint;
@@ -162,32 +139,6 @@ function band(es: EdgeLine[], i: number, d0: number, d1: number, joins: (j: numb
 		joins((i + n - 1) % n) ? mitre(e.a, prev, e, d) : add(add(e.a, e.n, d), e.t, -extend[0]);
 	const end = (d: number) => (joins((i + 1) % n) ? mitre(e.b, e, next, d) : add(add(e.b, e.n, d), e.t, extend[1]));
 	return [start(d0), end(d0), end(d1), start(d1)];
-}
-
-/**
- * Trench width from the engine's trench area: each thickened edge adds length × w and each mitred
- * corner takes w² / (2 tan(θ/2)) (see trenchArea in volume.ts), so solve c·w² − L·w + A = 0.
- */
-function trenchWidth(sections: EdgeLine[][], thick: boolean[][], area: number): number {
-	let L = 0, c = 0;
-	sections.forEach((es, s) => {
-		const n = es.length;
-		const coeff = (e1: EdgeLine, e2: EdgeLine) => {
-			const turn = Math.atan2(cross(e1.t, e2.t), e1.t[0] * e2.t[0] + e1.t[1] * e2.t[1]);
-			// Interior angle: π minus the turn, measured toward the inside of the section.
-			const inward = cross(e1.t, e1.n) > 0 ? 1 : -1;
-			return 1 / (2 * Math.tan((Math.PI - inward * turn) / 2));
-		};
-		es.forEach((e, i) => {
-			if (!thick[s][i]) return;
-			L += len(sub(e.b, e.a));
-			if (thick[s][(i + n - 1) % n]) c += coeff(es[(i + n - 1) % n], e);
-			if (thick[s][(i + 1) % n]) c += coeff(e, es[(i + 1) % n]);
-		});
-	});
-	if (area <= 0 || L <= 0) return 0;
-	const disc = L * L - 4 * c * area;
-	return Math.abs(c) < 1e-12 || disc < 0 ? area / L : (L - Math.sqrt(disc)) / (2 * c);
 }
 
 type Run = PlanResult['forms']['runs'][number] & { from: P2; to: P2; t: P2; out: P2 };
@@ -302,14 +253,16 @@ export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSce
 	const k = opts.exaggeration ?? 10;
 	const M = (p: readonly [number, number]): P2 => [planToM(p[0], result.units), planToM(p[1], result.units)];
 	const mm = (v: { millimeters: number }) => v.millimeters / 1000;
-	const thickness = mm(result.forms.thickness);
+	const thickness = mm(result.slab.thickness);
 	const boardDepth = mm(result.forms.boardDepth);
 
-	// The surface, steepened about its high point.
-	const verts = result.elevations.vertices.map((v): P3 => [...M([v.x, v.y]), mm(v.elevation)]);
-	const high = Math.max(...verts.map((v) => v[2]));
-	const { mean, b, c } = fitPlane(verts);
-	const surface: Surface = { z0: high + k * (mean[2] - b * mean[0] - c * mean[1] - high), dzdx: k * b, dzdy: k * c };
+	// The engine's surface plane, steepened about its high point: z = h − down·(p − at), in metres.
+	const { at: planAt, atHeight, down } = result.slab.surface;
+	const at = M(planAt);
+	const h = mm(atHeight);
+	const high = Math.max(...result.elevations.vertices.map((v) => mm(v.elevation)));
+	const [b, c] = [-down[0], -down[1]];
+	const surface: Surface = { z0: high + k * (h - b * at[0] - c * at[1] - high), dzdx: k * b, dzdy: k * c };
 	const top = (p: P2) => surfaceAt(surface, p);
 	const slabBottom = (p: P2) => top(p) - thickness;
 	const lift = (p: P2): P3 => [p[0], p[1], top(p) + LINE_LIFT_M];
@@ -328,9 +281,8 @@ export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSce
 
 	const sections = geo.map((s, i) => ({ index: s.index, name: s.name, solid: prism(outlines[i], top, slabBottom) }));
 
-	const trenchA = result.volume.trenchArea.squareMeters;
-	const width = trenchWidth(lines, thick, trenchA);
-	const extraDepth = trenchA > 0 ? result.volume.thickenedEdges.cubicMeters / trenchA : 0;
+	const width = result.slab.trench ? mm(result.slab.trench.width) : 0;
+	const extraDepth = result.slab.trench ? mm(result.slab.trench.depth) : 0;
 	const strips = geo.flatMap((s, si) =>
 		s.edges
 			.filter((e) => e.thickened)
@@ -368,7 +320,7 @@ export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSce
 	};
 
 	const wallTop = bounds.max[2] + WALL_ABOVE_M;
-	const house = houseWalls(ctx, opts.houseGapM ?? 0.012, wallTop, lawn);
+	const house = houseWalls(ctx, result.slab.houseGap ? mm(result.slab.houseGap) : 0, wallTop, lawn);
 
 	const downhill: P2 | null = Math.hypot(b, c) > 1e-9 ? unit([-b, -c]) : null;
 	const arrow = fallArrow(ctx, downhill);
@@ -388,6 +340,8 @@ export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSce
 		const text = `Falls ${Math.round(percent * 10) / 10} % · ${drop}`;
 		labels.push({ text, at: [p[0], p[1], top(p) + 0.05], kind: 'fall' });
 	}
+
+	spreadLabels(labels);
 
 	// Look from the low side, well off square, so the fall runs across the view toward the viewer.
 	const target = lerp3(bounds.min, bounds.max, 0.5);
@@ -414,6 +368,28 @@ export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSce
 		labels,
 		view: { target, eye }
 	};
+}
+
+/** Labels closer than this (m, in plan) would overlap on screen at the opening view. */
+export const LABEL_CLEARANCE_M = 0.9;
+/** How far a crowded label is lifted above the one it would cover, m. */
+const LABEL_STEP_M = 0.3;
+
+/**
+ * Lift each label that sits within LABEL_CLEARANCE_M (in plan) of an earlier one until it is clear
+ * of every earlier label in height too, so on screen they stack instead of covering each other.
+ */
+export function spreadLabels(labels: Label[]): void {
+	for (let i = 1; i < labels.length; i++) {
+		const a = labels[i];
+		for (let tries = 0; tries < 20; tries++) {
+			const hit = labels
+				.slice(0, i)
+				.some((b) => Math.hypot(a.at[0] - b.at[0], a.at[1] - b.at[1]) < LABEL_CLEARANCE_M && Math.abs(a.at[2] - b.at[2]) < LABEL_STEP_M - 1e-9);
+			if (!hit) break;
+			a.at = [a.at[0], a.at[1], a.at[2] + LABEL_STEP_M];
+		}
+	}
 }
 
 /** Ear clipping for a simple counter-clockwise polygon: triangles as index triples. */

@@ -4,7 +4,10 @@ import { describe, expect, it } from 'vitest';
 import { computePlan, type PlanResult } from '$lib/plan';
 import { formatSmall, formatVolume } from '$lib/plan/format';
 import demo from '../../../../fixtures/demo-plans.json';
-import { pdfText as extractText } from '../../../../tests/pdf-text';
+import { pdfPagePixels, pdfPageText, pdfText as extractText } from '../../../../tests/pdf-text';
+import { buildCardItems } from '$lib/components/plan/buildCard';
+import { layoutDrawing } from '$lib/components/plan/layoutDrawing';
+import { layoutSheet } from '$lib/plan/layout-sheet';
 import { pdfText, planPdf, woffToSfnt } from './planPdf';
 
 const plans = demo.plans.map((p) => ({ id: p.id, name: p.input.name, result: computePlan(p.input) }));
@@ -15,7 +18,7 @@ const textOf = async (pdf: Uint8Array) => (await extractText(pdf)).replace(/[ \t
 const covered = (cp: number) => cp <= 0xff || cp === 0x2212 || (cp >= 0x2000 && cp <= 0x206f);
 
 describe('planPdf', () => {
-	it.each(plans)('$id: a PDF with Nunito embedded and the plan numbers in its text', async ({ name, result }) => {
+	it.each(plans)('$id: a PDF with Nunito embedded and the plan numbers in its text', { timeout: 30_000 }, async ({ name, result }) => {
 		const pdf = await planPdf({ name, result, createdAt: new Date('2027-04-01T12:00:00Z') });
 		const raw = Buffer.from(pdf).toString('latin1');
 		expect(raw.startsWith('%PDF-')).toBe(true);
@@ -47,6 +50,41 @@ describe('planPdf', () => {
 		const text = await textOf(await planPdf({ name: a.name, result: a.result }));
 		expect(text).toContain(formatVolume(a.result.volume.order, a.result.units));
 		expect(text).not.toContain(other);
+	});
+
+	it.each(plans)('$id: the first page holds the build card numbers and a drawing that renders', { timeout: 60_000 }, async ({ name, result }) => {
+		const pdf = await planPdf({ name, result, madeAt: new Date('2027-04-02T08:00:00Z') });
+		const first = (await pdfPageText(pdf, 1)).replace(/[ \t\n]+/g, ' ');
+		const u = result.units;
+		// The numbers themselves, from the engine's slab block, as the card prints them.
+		expect(first).toContain(`Slab thickness ${pdfText(formatSmall(result.slab.thickness, u), covered)}`);
+		expect(first).toContain(`Dig depth ${pdfText(formatSmall(result.slab.digDepth, u), covered)}`);
+		for (const item of buildCardItems(result)) expect(first).toContain(pdfText(item.value, covered).replace(/[ \t\n]+/g, ' '));
+		expect(first).toContain('PDF made Fri, Apr 2, 2027');
+		expect(first).toContain(`prices in ${result.currency}`);
+
+		// Render page 1 with pdf.js and look inside the drawing's box: the slab's fill and the lines
+		// over it make it far from blank, and the box below it is where the drawing ends.
+		const px = await pdfPagePixels(pdf, 1);
+		const fill = [0xee, 0xf5, 0xef];
+		let slab = 0;
+		let ink = 0;
+		let lowest = 0;
+		for (let y = 0; y < px.height; y++)
+			for (let x = 0; x < px.width; x++) {
+				const i = (y * px.width + x) * 4;
+				const [r, g, b] = [px.data[i], px.data[i + 1], px.data[i + 2]];
+				if (Math.abs(r - fill[0]) + Math.abs(g - fill[1]) + Math.abs(b - fill[2]) < 6) {
+					slab++;
+					lowest = Math.max(lowest, y);
+				} else if (r < 200 || g < 200 || b < 200) ink++;
+			}
+		// The slab is drawn at least 150 pt across on a 612 pt page, so its fill covers thousands of pixels.
+		const drawn = layoutDrawing(result, layoutSheet(result), { width: 504, height: 300 });
+		expect(Math.max(...drawn.slabs.flat().map((p) => p[0])) - Math.min(...drawn.slabs.flat().map((p) => p[0]))).toBeGreaterThan(150);
+		expect(slab).toBeGreaterThan(5000);
+		expect(ink).toBeGreaterThan(5000);
+		expect(lowest).toBeGreaterThan(px.height / 2); // below the build card, in the lower half
 	});
 
 	it('uses Letter for imperial plans and A4 for metric ones', async () => {

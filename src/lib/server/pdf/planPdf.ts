@@ -6,9 +6,14 @@ import { inflateSync } from 'node:zlib';
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import type { PlanResult } from '$lib/plan';
+import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
+import { buildCardItems } from '$lib/components/plan/buildCard';
+import { GLOSSARY } from '$lib/components/plan/glossary';
+import { layoutDrawing, type LayoutDrawing } from '$lib/components/plan/layoutDrawing';
 import {
 	DEFERRAL_FALLBACK,
 	READY_MIX_HINT,
+	SEVERITY_COLOR,
 	SEVERITY_LABEL,
 	crewItems,
 	dayRows,
@@ -21,6 +26,7 @@ import {
 	sortCautions,
 	stakeIntro,
 	stakeRows,
+	strengthNote,
 	summaryItems,
 	type MilestoneRow
 } from '$lib/components/plan/format';
@@ -114,9 +120,12 @@ const C = {
 	danger: '#a32626',
 	sky: '#1f4e66'
 } as const;
-const SEVERITY_COLOR = { danger: C.danger, warning: C.clay, info: C.sky } as const;
 
-export async function planPdf(plan: { name: string; result: PlanResult; createdAt?: Date }): Promise<Uint8Array> {
+/**
+ * The plan as PDF bytes. `createdAt`: when the plan was last saved; `madeAt`: when this PDF is
+ * made (now by default); `locale`: the reader's, for dates (en-US by default).
+ */
+export async function planPdf(plan: { name: string; result: PlanResult; createdAt?: Date; madeAt?: Date; locale?: string }): Promise<Uint8Array> {
 	const f = await loadFonts();
 	const r = plan.result;
 	const t = (s: string) => pdfText(s, f.covers);
@@ -192,14 +201,75 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	// Title and the deferral to local codes, first thing on the page.
 	const { deferral, rest } = sortCautions(r.cautions);
 	text(plan.name, { size: 24, bold: true, gap: 0 });
+	const day = (d: Date) => formatDate(d.toISOString().slice(0, 10), plan.locale);
 	text(
-		['Concrete slab plan', plan.createdAt ? `created ${formatDate(plan.createdAt.toISOString().slice(0, 10))}` : '']
+		[
+			'Concrete slab plan',
+			plan.createdAt ? `saved ${day(plan.createdAt)}` : '',
+			`PDF made ${day(plan.madeAt ?? new Date())}`,
+			`prices in ${r.currency ?? 'USD'}`
+		]
 			.filter(Boolean)
 			.join(' · '),
 		{ color: C.soft }
 	);
 	doc.moveDown(0.4);
 	text(deferral ? `${deferral.title}. ${deferral.reason}` : DEFERRAL_FALLBACK, { size: 9, color: C.sky });
+
+	// First page: the build card beside nothing else, then the drawing to lay the slab out by.
+	const sheet = layoutSheet(r);
+	if (r.slab) {
+		heading('Build card');
+		const cells = buildCardItems(r);
+		const colW = width / 2;
+		const top = doc.y;
+		let rowTop = top;
+		for (let i = 0; i < cells.length; i += 2) {
+			let h = 0;
+			for (const [k, c] of cells.slice(i, i + 2).entries()) {
+				const x = left + k * colW;
+				doc.font('regular').fontSize(8).fillColor(C.soft).text(t(c.label), x, rowTop, { width: colW - 8 });
+				doc.font('bold').fontSize(12).fillColor(C.ink).text(t(c.value), x, doc.y, { width: colW - 8 });
+				if (c.note) doc.font('regular').fontSize(8).fillColor(C.soft).text(t(c.note), x, doc.y, { width: colW - 8 });
+				h = Math.max(h, doc.y - rowTop);
+			}
+			rowTop += h + 5;
+		}
+		doc.x = left;
+		doc.y = rowTop;
+	}
+	heading('Layout drawing');
+	// Room below the drawing for its two-line legend, so the legend never spills onto a page of its own.
+	const drawing = layoutDrawing(r, sheet, { width, height: Math.max(160, bottom() - doc.y - 44) });
+	drawLayout(doc, drawing, { x: left + (width - drawing.width) / 2, y: doc.y, t });
+	doc.y += drawing.height + 4;
+	text(
+		`Start at corner ${sheet.start.corner} (${sheet.start.why}, circled). Brown: house wall; dashed black: control joints; blue: cold joints; grey dashes: diagonals; squares: stakes, numbered as in the stake marks; R ids: boards as in the cut list.`,
+		{ size: 8, color: C.soft }
+	);
+
+	doc.addPage();
+	heading('Layout sheet');
+	const tape = (l: { feet: number; meters: number }) => tapeLength(l, r.units);
+	const check = sheet.squareCheck;
+	if (check)
+		text(
+			`Squaring the first corner${check.ratio ? ` (${check.ratio})` : ''}: from corner ${check.corner}, mark ${tape(check.legA)} along ${check.edges[0]} and ${tape(check.legB)} along ${check.edges[1]}; the marks are ${tape(check.diagonal)} apart when the corner is as drawn${check.ratio ? ' (square)' : ` (${Math.round(check.angle * 10) / 10}°)`}.`,
+			{ bold: true }
+		);
+	for (const d of sheet.diagonals)
+		text(`Diagonals of ${d.name}: ${d.first.from}–${d.first.to} ${tape(d.first.length)}, ${d.second.from}–${d.second.to} ${tape(d.second.length)}${d.square ? ' (equal: square)' : ''}.`);
+	doc.moveDown(0.3);
+	table(
+		['Stake', 'Board', 'From corner, along', 'Distance'],
+		sheet.stakes.map((s) => [s.id, s.board, `${s.from}, along ${s.along}`, tape(s.distance)]),
+		[50, 50, '*', 110]
+	);
+	table(
+		['Board', 'Edge', 'Kind', 'Length'],
+		sheet.boards.map((b) => [b.id, b.edge, b.formed ? b.kind : 'isolation strip, no board', tape(b.length)]),
+		[50, 70, '*', 110]
+	);
 
 	heading('Summary');
 	table(
@@ -234,7 +304,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	}
 
 	heading('Day by day');
-	for (const d of dayRows(r)) {
+	for (const d of dayRows(r, plan.locale)) {
 		room(36);
 		text([d.label, d.date, d.pour ? 'pour day' : ''].filter(Boolean).join(' · '), { bold: true, color: d.pour ? C.moss : C.ink, gap: 0 });
 		doc.font('regular').fontSize(10).fillColor(C.ink);
@@ -244,8 +314,10 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	}
 
 	heading('Strength over time');
-	const stones = milestoneRows(r);
+	const stones = milestoneRows(r, plan.locale);
 	strengthChart(doc, r.strength, stones, { x: left, width, t });
+	const over = strengthNote(r.strength);
+	if (over) text(over, { size: 8, color: C.soft, gap: 6 });
 	table(
 		['#', 'Milestone', 'When', 'Strength then', 'Rule and source'],
 		stones.map((m, i) => [String(i + 1), m.title, m.when, m.strength ?? '—', `${m.rule}; ${m.source}`]),
@@ -273,12 +345,28 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	heading('Cautions');
 	for (const c of deferral ? [deferral, ...rest] : rest) {
 		room(70);
-		text(`${SEVERITY_LABEL[c.severity]}: ${c.title}`, { bold: true, size: 11, color: SEVERITY_COLOR[c.severity], gap: 1 });
+		// The signal word on its ANSI Z535 colour, as on a hazard label; the title in ink beside it.
+		const word = t(SEVERITY_LABEL[c.severity].toUpperCase());
+		doc.font('bold').fontSize(8);
+		const w = doc.widthOfString(word) + 8;
+		const y = doc.y;
+		doc.rect(left, y + 1, w, 12).fill(SEVERITY_COLOR[c.severity]);
+		doc.fillColor(c.severity === 'warning' ? '#000000' : '#ffffff').text(word, left + 4, y + 3.5, { lineBreak: false });
+		doc.font('bold').fontSize(11).fillColor(C.ink).text(t(c.title), left + w + 6, y, { width: width - w - 6, paragraphGap: 1 });
+		doc.x = left;
 		text(c.reason);
 		text(`What to do: ${c.action}`);
 		text(`Source: ${c.source}`, { size: 9, color: C.soft, gap: 8 });
 	}
 	if (!deferral) text(DEFERRAL_FALLBACK, { bold: true, color: C.sky });
+
+	heading('Trade words in plain language');
+	for (const g of GLOSSARY) {
+		room(40);
+		text(g.term, { bold: true, gap: 0 });
+		text(g.plain, { gap: g.source ? 0 : 5 });
+		if (g.source) text(`Source: ${g.source}`, { size: 8, color: C.soft, gap: 5 });
+	}
 
 	// Footer on every page: the plan, the page count, and the reminder that local rules come first.
 	const pages = doc.bufferedPageRange();
@@ -329,4 +417,35 @@ function strengthChart(
 	doc.stroke().restore();
 	doc.x = o.x;
 	doc.y = top + h + 32;
+}
+
+/** The layout drawing in vector: the same shapes the plan page draws as SVG. */
+function drawLayout(doc: InstanceType<typeof PDFDocument>, d: LayoutDrawing, o: { x: number; y: number; t: (s: string) => string }) {
+	const P = (p: readonly [number, number]): [number, number] => [o.x + p[0], o.y + p[1]];
+	const seg = (l: { from: readonly [number, number]; to: readonly [number, number] }) => doc.moveTo(...P(l.from)).lineTo(...P(l.to));
+	doc.save();
+	for (const s of d.slabs) {
+		doc.polygon(...s.map(P)).lineWidth(1.2).fillAndStroke(C.mossLight, C.ink);
+	}
+	doc.lineWidth(0.6).strokeColor(C.soft).dash(2, { space: 3 });
+	for (const l of d.diagonals) seg(l).stroke();
+	doc.lineWidth(0.9).strokeColor(C.ink).dash(5, { space: 3 });
+	for (const l of d.joints) seg(l).stroke();
+	doc.undash().lineWidth(2.5).strokeColor(C.sky);
+	for (const l of d.coldJoints) seg(l).stroke();
+	doc.lineWidth(5).strokeColor(C.clay);
+	for (const l of d.house) seg(l).stroke();
+	if (d.start) doc.lineWidth(2).strokeColor(C.moss).circle(...P(d.start), 7).stroke();
+	doc.fillColor(C.sky);
+	for (const s of d.stakes) doc.rect(P(s.at)[0] - 2, P(s.at)[1] - 2, 4, 4).fill();
+	const FONT = { corner: ['bold', 10, C.ink], board: ['bold', 8, C.clay], length: ['regular', 7, C.soft], stake: ['regular', 6, C.sky] } as const;
+	for (const l of d.labels) {
+		const [font, size, color] = FONT[l.kind];
+		doc.font(font).fontSize(size).fillColor(color);
+		const txt = o.t(l.text);
+		const w = doc.widthOfString(txt);
+		const [x, y] = P(l.at);
+		doc.text(txt, x - w / 2, y - size / 2, { lineBreak: false });
+	}
+	doc.restore();
 }

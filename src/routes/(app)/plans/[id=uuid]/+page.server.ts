@@ -1,15 +1,17 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
+import { currentResult } from '$lib/components/plan/currentResult';
+import { readerLocale } from '$lib/components/plan/format';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load = (async ({ parent }) => {
+export const load = (async ({ parent, request }) => {
 	// The layout found the plan among the user's own; only then are its photos listed.
 	const { plan } = await parent();
 	const photos = (await listPhotos(plan.id)).map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height }));
-	return { photos, maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024 };
+	return { photos, maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024, result: currentResult(plan.input, plan.result), locale: readerLocale(request.headers.get('accept-language')) };
 }) satisfies PageServerLoad;
 
 export const actions = {
@@ -29,3 +31,4 @@ export const actions = {
 		return { removed: true };
 	}
 } satisfies Actions;
+

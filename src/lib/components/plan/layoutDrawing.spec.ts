@@ -1,0 +1,30 @@
+import { describe, expect, it } from 'vitest';
+import { computePlan } from '$lib/plan';
+import { layoutSheet } from '$lib/plan/layout-sheet';
+import { layoutDrawing } from './layoutDrawing';
+
+const twoPours = computePlan({ units: 'metric', sections: [{ outline: [[0, 0], [2, 0], [2, 3], [0, 3]] }, { outline: [[2, 0], [4, 0], [4, 3], [2, 3]] }] });
+
+describe('layout drawing', () => {
+	it('fits the slab in the box at one scale and keeps its proportions', () => {
+		const d = layoutDrawing(twoPours, layoutSheet(twoPours), { width: 500, height: 500 });
+		const xs = d.slabs.flat().map((p) => p[0]);
+		const ys = d.slabs.flat().map((p) => p[1]);
+		// 4 m wide, 3 m deep: the drawn box keeps 4 : 3.
+		expect((Math.max(...xs) - Math.min(...xs)) / (Math.max(...ys) - Math.min(...ys))).toBeCloseTo(4 / 3, 9);
+		expect(Math.max(...xs)).toBeLessThanOrEqual(d.width);
+		expect(Math.max(...ys)).toBeLessThanOrEqual(d.height);
+	});
+
+	it('names every stake and board, the cold joint, and a shared corner once for both pours', () => {
+		const sheet = layoutSheet(twoPours);
+		const d = layoutDrawing(twoPours, sheet, { width: 500, height: 400 });
+		const texts = (kind: string) => d.labels.filter((l) => l.kind === kind).map((l) => l.text);
+		expect(texts('stake').sort()).toEqual(twoPours.elevations.stakes.map((s) => s.id).sort());
+		expect(texts('board')).toEqual(twoPours.forms.runs.filter((r) => r.formed && r.kind !== 'bulkhead').map((r) => r.id));
+		expect(texts('corner')).toEqual(expect.arrayContaining(['1A', '1B/2A', '1C/2D', '2B', '2C', '1D']));
+		expect(d.coldJoints).toHaveLength(1);
+		expect(d.diagonals).toHaveLength(4); // two per four-cornered pour
+		expect(d.house).toHaveLength(1); // the default house edge, section 1 edge A–B
+	});
+});

@@ -1,0 +1,75 @@
+import { expect, test, type Page } from '@playwright/test';
+import demo from '../fixtures/demo.json' with { type: 'json' };
+import { demoPassword, signIn } from './helpers';
+
+test.describe.configure({ timeout: 90_000 });
+
+/** A fresh visitor signs in as the demo homeowner who owns `planId` and opens that plan. */
+async function openDemoPlan(page: Page, planId: string) {
+	const errors: string[] = [];
+	page.on('pageerror', (e) => errors.push(e.message));
+	const owner = demo.users.find((u) => (u as { plans?: string[] }).plans?.includes(planId))!;
+	await signIn(page, owner.email, demoPassword);
+	await page.goto('/plans');
+	await page.getByRole('link', { name: /Back patio|Shed pad|Corner patio/ }).first().click();
+	await page.waitForURL(/\/plans\/[0-9a-f-]{36}$/);
+	await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+	return errors;
+}
+
+test('the plan page opens with the build card and carries a layout sheet with squaring diagonals, on screen and in print', async ({ page }) => {
+	const errors = await openDemoPlan(page, 'lind-back-patio');
+	// The demo back patio: 14 × 12 ft, 4 in thick on 4 in of base (fixtures/demo-plans.json).
+	const card = page.getByTestId('build-card');
+	await expect(card).toBeVisible();
+	await expect(card.getByText('Slab thickness')).toBeVisible();
+	await expect(card.locator('div', { hasText: 'Slab thickness' }).getByRole('definition').first()).toHaveText('4 in');
+	// 4 in of slab + 4 in of base.
+	await expect(card.locator('div', { hasText: /^Dig depth/ }).getByRole('definition').first()).toHaveText('8 in');
+	// The build card comes before everything else in the plan.
+	const cardTop = (await card.boundingBox())!.y;
+	const summaryTop = (await page.getByRole('heading', { name: 'Summary' }).boundingBox())!.y;
+	expect(cardTop).toBeLessThan(summaryTop);
+
+	const sheet = page.getByTestId('layout-sheet');
+	await expect(sheet.getByRole('heading', { name: 'Layout sheet' })).toBeVisible();
+	await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
+	// Pythagoras: √(14² + 12²) = √340 = 18.4391 ft = 18 ft 5.269 in → 5 1/4 in to the sixteenth.
+	await expect(sheet.getByTestId('diagonals')).toContainText('A–C 18 ft 5 1/4 in');
+	await expect(sheet.getByTestId('diagonals')).toContainText('B–D 18 ft 5 1/4 in');
+	// 6-8-10: 6² + 8² = 10² (Pythagoras), the 8 ft leg along the 14 ft house edge A–B.
+	await expect(sheet.getByTestId('square-check')).toContainText('6-8-10 ft');
+	await expect(sheet.getByTestId('square-check')).toContainText('mark 8 ft 0 in along A–B');
+	// Every stake of the stake-mark table appears on the sheet under the same id.
+	const stakeIds = await page.locator('#plan-stake-marks ~ div tbody th').evaluateAll((ths) => ths.map((t) => /^S\d+/.exec(t.textContent!.trim())![0]));
+	expect(stakeIds.length).toBeGreaterThan(4);
+	for (const id of stakeIds) await expect(sheet.getByRole('rowheader', { name: id, exact: true })).toBeVisible();
+	await page.screenshot({ path: 'test-results/screens/plan-layout-sheet.png', fullPage: true });
+
+	// The print view keeps the build card and the layout sheet and drops the buttons.
+	await page.emulateMedia({ media: 'print' });
+	await expect(page.getByTestId('build-card')).toBeVisible();
+	await expect(page.getByTestId('layout-sheet')).toBeVisible();
+	await expect(page.getByTestId('layout-drawing')).toBeVisible();
+	await expect(page.getByRole('link', { name: 'Edit the plan' })).toBeHidden();
+	await page.screenshot({ path: 'test-results/screens/plan-print.png', fullPage: true });
+	expect(errors).toEqual([]);
+});
+
+test('a metric plan in two pours on a phone: corners carry the section number and diagonals read in metres', async ({ page }) => {
+	await page.setViewportSize({ width: 390, height: 844 });
+	const errors = await openDemoPlan(page, 'castell-shed-pad');
+	const sheet = page.getByTestId('layout-sheet');
+	// Two pours of 1.8 × 2.4 m: Pythagoras √(1.8² + 2.4²) = √9 = 3 m.
+	await expect(sheet.getByTestId('diagonals')).toContainText('1A–1C 3.000 m');
+	await expect(sheet.getByTestId('diagonals')).toContainText('2B–2D 3.000 m');
+	// On a phone the build card and the sheet fit the width: nothing scrolls sideways.
+	await expect(page.getByTestId('build-card')).toBeVisible();
+	await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
+	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+	await page.screenshot({ path: 'test-results/screens/plan-layout-sheet-390.png', fullPage: true });
+	const card = page.getByTestId('build-card');
+	// 100 mm slab + 100 mm thickened-edge trench + 100 mm base at the thickened edges.
+	await expect(card.locator('div', { hasText: /^Dig at thickened edges/ }).getByRole('definition').first()).toHaveText('300 mm');
+	expect(errors).toEqual([]);
+});
