@@ -43,7 +43,7 @@ describe('the plan the wizard edits', () => {
 	});
 
 	it('editableCopy copies frozen data and sameData ignores absent keys', () => {
-		const frozen = Object.freeze({ a: Object.freeze([1, 2]), b: Object.freeze({ c: 3 }) });
+		const frozen: { a: number[]; b: { c: number } } = Object.freeze({ a: Object.freeze([1, 2]) as number[], b: Object.freeze({ c: 3 }) });
 		const copy = editableCopy(frozen);
 		copy.b.c = 4;
 		expect(copy).toEqual({ a: [1, 2], b: { c: 4 } });

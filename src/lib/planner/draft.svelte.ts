@@ -37,6 +37,8 @@ export class PlanDraft {
 	/** Why the last unit switch was refused, shown beside the unit choice. */
 	unitsMessage = $state('');
 	#unitMemory: UnitMemory | null = null;
+	/** The shape form as last seen in each unit system, so switching back shows what was typed. */
+	#presets: Partial<Record<Units, Preset>> = {};
 
 	constructor(data: { name: string; postcode?: string; input: ParsedPlan }) {
 		this.name = data.name;
@@ -86,8 +88,9 @@ export class PlanDraft {
 		}
 		this.unitsMessage = '';
 		this.#unitMemory = r.memory;
+		this.#presets[this.#input.units] = editableCopy(this.preset);
 		this.input = r.plan;
-		this.preset = detectPreset(this.#input);
+		this.preset = editableCopy(this.#presets[to]) ?? detectPreset(this.#input);
 		return true;
 	}
 
