@@ -122,6 +122,7 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 });
 
 test('a signed-out visitor’s draft is kept through sign-up and lands in the new account', async ({ page }) => {
+	test.setTimeout(60_000);
 	await page.goto('/');
 	expect(await seriousViolations(page)).toEqual([]);
 	await page.getByRole('link', { name: 'Start a plan' }).click();
