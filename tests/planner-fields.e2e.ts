@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signUp, uniqueEmail } from './helpers';
+import { signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
 
 // Every step of a new plan, as a visitor types: each number field gets a new value and each
 // select a new choice. A field added later without an entry below still gets typed into (the
@@ -53,12 +53,6 @@ const CHOICES: Record<string, string> = {
 
 const stepBody = (page: Page) => page.locator('section[aria-labelledby="step-heading"]');
 
-export function watchErrors(page: Page) {
-	const errors: string[] = [];
-	page.on('pageerror', (e) => errors.push(e.message));
-	return errors;
-}
-
 /** Types into every number field and changes every select of the step on screen. */
 async function fillStep(page: Page, typed: Record<string, string>) {
 	const done = new Set<string>();
@@ -97,11 +91,6 @@ async function fillStep(page: Page, typed: Record<string, string>) {
 		}
 		if (!found) break;
 	}
-}
-
-async function goTo(page: Page, title: string) {
-	await page.getByRole('navigation', { name: 'Plan steps' }).getByRole('button', { name: new RegExp(title) }).click();
-	await expect(page.getByRole('heading', { name: new RegExp(`\\d\\. ${title}`) })).toBeVisible();
 }
 
 /** The whole wizard, step by step; returns what was typed, by field id. */

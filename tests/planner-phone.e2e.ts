@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signUp, uniqueEmail } from './helpers';
+import { signUp, uniqueEmail, watchErrors, wizardStep } from './helpers';
 
 test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
 
@@ -12,20 +12,18 @@ async function noSidewaysScroll(page: Page, where: string) {
 
 async function everyStep(page: Page, where: string) {
 	for (const title of STEPS) {
-		await page.getByRole('navigation', { name: 'Plan steps' }).getByRole('button', { name: new RegExp(title) }).click();
-		await expect(page.getByRole('heading', { name: new RegExp(`\\d\\. ${title}`) })).toBeVisible();
+		await wizardStep(page, title);
 		await noSidewaysScroll(page, `${where}, step ${title}`);
 	}
 }
 
 test('on a phone the key results stay in sight while editing, corners are big enough to touch, and nothing scrolls sideways', async ({ page }) => {
 	test.setTimeout(120_000);
-	const errors: string[] = [];
-	page.on('pageerror', (e) => errors.push(e.message));
+	const errors = watchErrors(page);
 	await page.goto('/plans/new');
 	await everyStep(page, 'new plan');
 
-	await page.getByRole('navigation', { name: 'Plan steps' }).getByRole('button', { name: /Build-up/ }).click();
+	await wizardStep(page, 'Build-up');
 	const thickness = page.getByLabel('Thickness');
 	await thickness.focus();
 	await thickness.fill('6');
@@ -39,7 +37,7 @@ test('on a phone the key results stay in sight while editing, corners are big en
 	await expect(bar.getByText(/Mixing and placing/)).toBeVisible();
 	await page.screenshot({ path: 'test-results/screens/phone-results-bar.png' });
 
-	await page.getByRole('navigation', { name: 'Plan steps' }).getByRole('button', { name: /Outline/ }).click();
+	await wizardStep(page, 'Outline');
 	for (const hit of await page.getByTestId('corner-hit').all()) {
 		const box = (await hit.boundingBox())!;
 		expect(box.width).toBeGreaterThanOrEqual(44);

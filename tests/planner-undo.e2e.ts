@@ -1,11 +1,11 @@
 import { expect, test } from '@playwright/test';
+import { watchErrors, wizardStep } from './helpers';
 
 test('undo brings back a deleted corner, redo removes it again, and Start over resets the plan', async ({ page }) => {
 	test.setTimeout(90_000);
-	const errors: string[] = [];
-	page.on('pageerror', (e) => errors.push(e.message));
+	const errors = watchErrors(page);
 	await page.goto('/plans/new');
-	await page.getByRole('navigation', { name: 'Plan steps' }).getByRole('button', { name: /Outline/ }).click();
+	await wizardStep(page, 'Outline');
 	const corners = page.getByRole('button', { name: /^Section 1, corner / });
 	await expect(corners).toHaveCount(4);
 	await expect(page.getByTestId('result-area')).toHaveText('120 ft²'); // the starter: 12 × 10 ft
@@ -30,7 +30,7 @@ test('undo brings back a deleted corner, redo removes it again, and Start over r
 	await expect(corners).toHaveCount(3);
 	await page.keyboard.press('Control+z');
 
-	await page.getByRole('navigation', { name: 'Plan steps' }).getByRole('button', { name: /Build-up/ }).click();
+	await wizardStep(page, 'Build-up');
 	await page.getByLabel('Thickness').fill('6');
 	await page.getByLabel('Thickness').press('Control+z'); // inside a field the plan's undo still applies
 	await expect(page.getByLabel('Thickness')).toHaveValue('4');

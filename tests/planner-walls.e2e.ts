@@ -1,10 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signUp, uniqueEmail } from './helpers';
+import { signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
 
-async function goTo(page: Page, title: string) {
-	await page.getByRole('navigation', { name: 'Plan steps' }).getByRole('button', { name: new RegExp(title) }).click();
-	await expect(page.getByRole('heading', { name: new RegExp(`\\d\\. ${title}`) })).toBeVisible();
-}
 const wallBox = (page: Page, edge: string) => page.getByLabel(`Edge ${edge} runs along a house wall`);
 const housesDrawn = (page: Page) => page.locator('svg line[data-house]');
 
@@ -16,8 +12,7 @@ async function saved(page: Page) {
 
 test('an L around a house corner keeps both walls through save, reload, a split and the plan page', async ({ page }) => {
 	test.setTimeout(120_000);
-	const errors: string[] = [];
-	page.on('pageerror', (e) => errors.push(e.message));
+	const errors = watchErrors(page);
 	await signUp(page, { name: 'Cora Nook', email: uniqueEmail('corner'), password: 'around-the-corner' });
 	await page.goto('/plans/new');
 	await goTo(page, 'Outline');
@@ -74,8 +69,7 @@ test('an L around a house corner keeps both walls through save, reload, a split 
 
 test('a freestanding shed pad with a chosen high edge, in two pours, saved and reloaded', async ({ page }) => {
 	test.setTimeout(120_000);
-	const errors: string[] = [];
-	page.on('pageerror', (e) => errors.push(e.message));
+	const errors = watchErrors(page);
 	await signUp(page, { name: 'Shay Padd', email: uniqueEmail('pad'), password: 'freestanding-pad' });
 	await page.goto('/plans/new');
 	await goTo(page, 'Outline');
