@@ -115,6 +115,7 @@ async function fillEveryStep(page: Page) {
 	await page.getByLabel('Length of edge D–A in ft').blur();
 	await expect(page.getByLabel('Length of edge B–C in ft')).toHaveValue('10');
 	await expect(page.getByTestId('result-area')).toHaveText('150 ft²'); // 15 × 10 ft, still a rectangle
+	await expect(page.getByLabel('Edge A–B runs along a house wall')).toBeChecked(); // the wall stays where it was
 
 	await goTo(page, 'Pitch');
 	await fillStep(page, typed);

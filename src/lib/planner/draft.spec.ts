@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
-import { completeInput, starterInput } from './draft.svelte';
+import { completeInput, PlanDraft, starterInput } from './draft.svelte';
 import { editableCopy, sameData } from './editable';
 import { EditHistory } from './history.svelte';
 import { detectPreset, presetHouse, presetOutline } from './presets';
@@ -93,5 +93,18 @@ describe('shape presets', () => {
 		input.otherHouseEdges = [];
 		expect(detectPreset(input).house).toBe('none');
 		expect(detectPreset(starterInput())).toMatchObject({ shape: 'rectangle', length: 12, width: 10, house: 'side' });
+	});
+});
+
+describe('walls through outline changes', () => {
+	it('a split keeps both notch walls of an L; removing a corner keeps the wall on the merged edge', () => {
+		const draft = new PlanDraft({ name: 'L', input: completeInput({ units: 'imperial', sections: [{ outline: lShape(24, 18, 8, 6) }], houseEdge: { section: 0, edge: 2 }, otherHouseEdges: [{ section: 0, edge: 3 }] })! });
+		draft.addCorner(0, 2); // C–D halved: both halves are wall
+		expect(draft.houseEdges).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }, { section: 0, edge: 4 }]);
+		draft.removeCorner(0, 3); // the new middle corner goes: one wall C–D again
+		expect(draft.houseEdges).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }]);
+		draft.removeCorner(0, 0); // A goes: F–A and A–B merge; walls C–D, D–E renumber to 1, 2
+		expect(draft.houseEdges).toEqual([{ section: 0, edge: 1 }, { section: 0, edge: 2 }]);
+		expect(draft.outcome.ok).toBe(true);
 	});
 });

@@ -144,12 +144,10 @@ export class PlanDraft {
 		if (Array.isArray(thick)) this.#input.thickenedEdge.edges = dedupe(move(thick));
 	}
 
-	setOutline(section: number, outline: Pt[]) {
-		this.setOutlines(this.#input.sections.map((s, i) => (i === section ? outline : (s.outline as Pt[]))));
-	}
-
+	/** A new corner halves an edge: a wall stays a wall on both halves. (Same corner count: assign.) */
 	addCorner(section: number, edge: number) {
-		this.setOutline(section, splitEdge(this.#input.sections[section].outline as Pt[], edge));
+		const next = splitEdge(this.#input.sections[section].outline as Pt[], edge);
+		this.setOutlines(this.#input.sections.map((s, i) => (i === section ? next : (s.outline as Pt[]))));
 	}
 
 	removeCorner(section: number, v: number) {
