@@ -54,3 +54,16 @@ export async function mailLink(page: Page, email: string, subject: RegExp): Prom
 	}).toPass({ timeout: 15_000 });
 	return href!;
 }
+
+/** Page errors seen from now on; a planner test ends by expecting none. */
+export function watchErrors(page: Page) {
+	const errors: string[] = [];
+	page.on('pageerror', (e) => errors.push(e.message));
+	return errors;
+}
+
+/** Opens a planner step from the step list and waits for its heading. */
+export async function wizardStep(page: Page, title: string) {
+	await page.getByRole('navigation', { name: 'Plan steps' }).getByRole('button', { name: new RegExp(title) }).click();
+	await expect(page.getByRole('heading', { name: new RegExp(`\\d\\. ${title}`) })).toBeVisible();
+}

@@ -34,16 +34,16 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	await nextStep(page, '1-site');
 
 	await page.getByLabel('L-shape (notched corner)').check();
-	await page.getByLabel('Along the house', { exact: true }).fill('16');
-	await page.getByLabel('Out from the house').fill('12');
-	await page.getByLabel('Notch along').fill('6');
-	await page.getByLabel('Notch out').fill('5');
+	await page.getByLabel('Length (A–B)').fill('16');
+	await page.getByLabel('Width (B–C side)').fill('12');
+	await page.getByLabel('Notch length (C–D)').fill('6');
+	await page.getByLabel('Notch width (D–E)').fill('5');
 	await page.getByRole('button', { name: 'Use this L-shape' }).click();
 	// Keyboard: nudge a corner right and back; the outline ends where it started.
-	const corner = page.getByRole('button', { name: /Section 1, corner 2,/ });
+	const corner = page.getByRole('button', { name: /Section 1, corner B,/ });
 	await corner.focus();
 	await page.keyboard.press('ArrowRight');
-	await expect(page.getByRole('button', { name: 'Section 1, corner 2, at 16.5 by 0 ft' })).toBeVisible();
+	await expect(page.getByRole('button', { name: 'Section 1, corner B, at 16.5 by 0 ft' })).toBeVisible();
 	await page.keyboard.press('ArrowLeft');
 	await expect(page.getByTestId('result-area')).toHaveText(`${fmt(expected.area.squareFeet)} ft²`); // 16×12 − 6×5 = 162 ft²
 	await nextStep(page, '2-outline');
@@ -122,6 +122,7 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 });
 
 test('a signed-out visitor’s draft is kept through sign-up and lands in the new account', async ({ page }) => {
+	test.setTimeout(60_000);
 	await page.goto('/');
 	expect(await seriousViolations(page)).toEqual([]);
 	await page.getByRole('link', { name: 'Start a plan' }).click();

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
-import { convertPlan } from './convert';
-import { starterInput } from './draft.svelte';
+import { convertPlan, switchUnits } from './convert';
+import { completeInput, starterInput } from './draft.svelte';
 import { lShape } from './shapes';
 
 describe('unit switch', () => {
@@ -22,5 +22,40 @@ describe('unit switch', () => {
 		expect(back.sections[0].outline[2]).toEqual([12, 10]);
 		expect(back.thickness).toBeCloseTo(4, 1);
 		expect(back.conditions.airTemp).toBeCloseTo(70, 0); // 70 °F → 21.1 °C → 70 °F
+	});
+});
+
+describe('switching units in the wizard', () => {
+	it('there and back returns every value exactly as typed, and keeps the bag count', () => {
+		const typed = { ...starterInput('imperial'), thickness: 4, gapToHouse: 1, conditions: { ...starterInput().conditions, airTemp: 70, wind: 7 } };
+		typed.bags.offered[0].price = 6.4;
+		const there = switchUnits(typed, 'metric', null);
+		expect(there.ok).toBe(true);
+		if (!there.ok) return;
+		expect(there.plan.thickness).toBe(102); // 4 × 25.4 = 101.6 mm, rounded
+		const back = switchUnits(there.plan, 'imperial', there.memory);
+		expect(back.ok).toBe(true);
+		if (!back.ok) return;
+		expect(back.plan).toEqual(completeInput(typed));
+		expect(computePlan(back.plan).bags.map((b) => b.count)).toEqual(computePlan(typed).bags.map((b) => b.count));
+	});
+
+	it('an edit made in between is converted; the rest comes back as typed', () => {
+		const typed = starterInput('imperial');
+		const there = switchUnits(typed, 'metric', null);
+		if (!there.ok) throw new Error('switch refused');
+		const edited = { ...there.plan, thickness: 150 };
+		const back = switchUnits(edited, 'imperial', there.memory);
+		if (!back.ok) throw new Error('switch refused');
+		expect(back.plan.thickness).toBe(5.91); // 150 mm ÷ 25.4 = 5.905 in
+		expect(back.plan.gapToHouse).toBe(typed.gapToHouse);
+		expect(back.plan.sections).toEqual(typed.sections);
+	});
+
+	it('refuses, saying why, while the plan has an error', () => {
+		const bad = { ...starterInput('imperial'), thickness: null };
+		const r = switchUnits(bad, 'metric', null);
+		expect(r.ok).toBe(false);
+		if (!r.ok) expect(r.reason).toMatch(/thickness/);
 	});
 });

@@ -2,6 +2,7 @@
 // depend on the market (bag sizes, lumber stock lengths, ready-mix increments) take the new
 // system's usual values instead of odd conversions.
 import { parsePlanInput, type ParsedPlan, type Units } from '$lib/plan';
+import { sameData } from './editable';
 
 const FT = 0.3048;
 const IN = 25.4;
@@ -34,14 +35,16 @@ export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 		if (x.unit === 'totalDrop') return { ...x, value: small(x.value) };
 		return metric ? { value: r(x.value * (1000 / 12), 1), unit: 'mmPerM' as const } : { value: r(x.value * (12 / 1000), 3), unit: 'inPerFt' as const };
 	};
-	const fresh = parsePlanInput({ units: to, sections: p.sections });
-	if (!fresh.ok) throw new Error('conversion lost the outline');
+	const sections = p.sections.map((s) => ({ ...s, outline: s.outline.map(([x, y]) => [len(x), len(y)] as [number, number]) }));
+	// The new system's market sizes (bags, boards, ready-mix steps) come from its own defaults.
+	const fresh = parsePlanInput({ units: to, sections });
+	if (!fresh.ok) throw new Error(`the outline does not fit in ${to} units: ${fresh.errors[0].message}`);
 	const d = fresh.plan;
 
 	const converted = {
 		...p,
 		units: to,
-		sections: p.sections.map((s) => ({ ...s, outline: s.outline.map(([x, y]) => [len(x), len(y)] as [number, number]) })),
+		sections,
 		gapToHouse: small(p.gapToHouse),
 		reference: { ...p.reference, below: small(p.reference.below) },
 		slope: { ...p.slope, fall: rate(p.slope.fall), crossFall: rate(p.slope.crossFall) },
@@ -98,4 +101,56 @@ export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 	const out = parsePlanInput(converted);
 	if (!out.ok) throw new Error(`converted plan is invalid: ${out.errors[0].path} ${out.errors[0].message}`);
 	return out.plan;
+}
+
+/** The last switch: the plan as it was before, and what the switch made of it. */
+export type UnitMemory = { before: ParsedPlan; after: ParsedPlan };
+export type UnitSwitch = { ok: true; plan: ParsedPlan; memory: UnitMemory } | { ok: false; reason: string };
+
+/**
+ * Switches the plan being edited to other units. Refuses, saying why, when the plan cannot be
+ * converted as it stands. Switching back restores every value that was not edited in between
+ * exactly as typed, instead of converting it twice (4 in → 102 mm → 4.02 in).
+ */
+export function switchUnits(current: unknown, to: Units, memory: UnitMemory | null): UnitSwitch {
+	const parsed = parsePlanInput(current);
+	if (!parsed.ok) {
+		const e = parsed.errors[0];
+		return { ok: false, reason: `The units stay as they are until the marked fields are fixed (${e.path}: ${e.message}).` };
+	}
+	if (parsed.plan.units === to) return { ok: true, plan: parsed.plan, memory: memory ?? { before: parsed.plan, after: parsed.plan } };
+	let plan: ParsedPlan;
+	try {
+		plan = convertPlan(parsed.plan, to);
+	} catch (e) {
+		return { ok: false, reason: `The plan cannot be shown in ${to === 'metric' ? 'metric' : 'imperial'} units: ${(e as Error).message}.` };
+	}
+	if (memory && memory.before.units === to && memory.after.units === parsed.plan.units) {
+		const restored = parsePlanInput(restoreTyped(plan, parsed.plan, memory.after, memory.before));
+		if (restored.ok) plan = restored.plan;
+	}
+	return { ok: true, plan, memory: { before: parsed.plan, after: plan } };
+}
+
+type Tree = Record<string, unknown>;
+const isObj = (v: unknown): v is Tree => v !== null && typeof v === 'object' && !Array.isArray(v);
+
+/**
+ * Walks the plan converted back (`back`) beside the current plan (`cur`), what the last switch
+ * produced (`made`) and what was there before it (`was`): any part left as the switch made it
+ * takes its earlier value; edited parts keep their conversion.
+ */
+function restoreTyped(back: unknown, cur: unknown, made: unknown, was: unknown): unknown {
+	if (sameData(cur, made)) return was;
+	if (Array.isArray(back) && Array.isArray(cur) && Array.isArray(made) && Array.isArray(was)) {
+		if (back.length === cur.length && made.length === cur.length && was.length === cur.length)
+			return back.map((b, i) => restoreTyped(b, cur[i], made[i], was[i]));
+		return back;
+	}
+	if (isObj(back) && isObj(cur) && isObj(made) && isObj(was)) {
+		const out: Tree = {};
+		for (const k of new Set([...Object.keys(back), ...Object.keys(was)])) out[k] = restoreTyped(back[k], cur[k], made[k], was[k]);
+		return out;
+	}
+	return back;
 }

@@ -1,23 +1,28 @@
-import { estimate, parsePlanInput, type ParsedPlan, type PlanInput, type Units } from '$lib/plan';
-import { lShape, rectangle } from './shapes';
+import { estimate, parsePlanInput, type EdgeRef, type ParsedPlan, type PlanInput, type Units } from '$lib/plan';
+import { switchUnits, type UnitMemory } from './convert';
+import { editableCopy } from './editable';
+import { detectPreset, type Preset } from './presets';
+import { edgesAfter, lShape, rectangle, removeVertex, splitEdge, type Pt } from './shapes';
 
 /** A new plan: a rectangle along the house with every engine default filled in, so every field binds. */
 export function starterInput(units: Units = 'imperial', name = 'My slab'): ParsedPlan {
 	const outline = units === 'imperial' ? rectangle(12, 10) : rectangle(3.6, 3);
 	const parsed = parsePlanInput({ units, name, sections: [{ outline }], reference: { label: 'door sill', below: units === 'imperial' ? 1 : 25 } });
 	if (!parsed.ok) throw new Error(`starter plan is invalid: ${parsed.errors[0].message}`);
-	return parsed.plan;
+	return editableCopy(parsed.plan);
 }
 
 /** Fills in defaults for an input saved earlier (older inputs may lack newer fields). */
 export function completeInput(input: unknown): ParsedPlan | null {
 	const parsed = parsePlanInput(input);
-	return parsed.ok ? parsed.plan : null;
+	return parsed.ok ? editableCopy(parsed.plan) : null;
 }
 
 export { lShape, rectangle };
 
 export type DraftData = { name: string; postcode: string; input: PlanInput };
+
+const sameRef = (a: EdgeRef, b: EdgeRef) => a.section === b.section && a.edge === b.edge;
 
 /**
  * The plan being edited in the browser. Results are derived by the same engine the server runs,
@@ -26,15 +31,31 @@ export type DraftData = { name: string; postcode: string; input: PlanInput };
 export class PlanDraft {
 	name = $state('');
 	postcode = $state('');
-	input = $state() as ParsedPlan;
+	#input = $state() as ParsedPlan;
+	/** The "start from a shape" form: kept here so revisiting the step shows what was typed. */
+	preset = $state() as Preset;
+	/** Why the last unit switch was refused, shown beside the unit choice. */
+	unitsMessage = $state('');
+	#unitMemory: UnitMemory | null = null;
+	/** The shape form as last seen in each unit system, so switching back shows what was typed. */
+	#presets: Partial<Record<Units, Preset>> = {};
 
 	constructor(data: { name: string; postcode?: string; input: ParsedPlan }) {
 		this.name = data.name;
 		this.postcode = data.postcode ?? '';
 		this.input = data.input;
+		this.preset = detectPreset(this.#input);
 	}
 
-	outcome = $derived(estimate(this.input));
+	/** Every plan put here is copied first: edited state never shares or holds a frozen object. */
+	get input(): ParsedPlan {
+		return this.#input;
+	}
+	set input(v: ParsedPlan) {
+		this.#input = editableCopy(v);
+	}
+
+	outcome = $derived(estimate(this.#input));
 	result = $derived(this.outcome.ok ? this.outcome.plan : null);
 	/** Engine messages by dotted path ("sections.0.outline"), for the field that caused them. */
 	errors = $derived(this.outcome.ok ? {} : (Object.fromEntries(this.outcome.errors.map((e) => [e.path, e.message])) as Record<string, string>));
@@ -45,6 +66,100 @@ export class PlanDraft {
 	}
 
 	snapshot(): DraftData {
-		return { name: this.name, postcode: this.postcode, input: $state.snapshot(this.input) as PlanInput };
+		return { name: this.name, postcode: this.postcode, input: editableCopy(this.#input) as PlanInput };
+	}
+
+	/** Puts back a snapshot (undo, redo, another tab's version). */
+	restore(d: DraftData) {
+		const input = completeInput(d.input);
+		this.name = d.name;
+		this.postcode = d.postcode;
+		if (input) this.input = input;
+		else this.#input = editableCopy(d.input) as ParsedPlan;
+		this.preset = detectPreset(this.#input, this.preset);
+	}
+
+	/** Switch units, or leave them and say why; returns whether the switch happened. */
+	switchUnits(to: Units): boolean {
+		const r = switchUnits(this.snapshot().input, to, this.#unitMemory);
+		if (!r.ok) {
+			this.unitsMessage = r.reason;
+			return false;
+		}
+		this.unitsMessage = '';
+		this.#unitMemory = r.memory;
+		this.#presets[this.#input.units] = editableCopy(this.preset);
+		this.input = r.plan;
+		this.preset = editableCopy(this.#presets[to]) ?? detectPreset(this.#input);
+		return true;
+	}
+
+	/** A new starter plan in the same units; the name and postcode stay. */
+	startOver() {
+		this.input = starterInput(this.#input.units);
+		this.preset = detectPreset(this.#input);
+		this.unitsMessage = '';
+	}
+
+	// ---- House edges: houseEdge is the first wall, otherHouseEdges the rest; none is freestanding.
+
+	get houseEdges(): EdgeRef[] {
+		return this.#input.houseEdge ? [this.#input.houseEdge, ...this.#input.otherHouseEdges] : [];
+	}
+	set houseEdges(refs: EdgeRef[]) {
+		const copy = refs.slice(0, 9).map((r) => ({ section: r.section, edge: r.edge }));
+		this.#input.houseEdge = copy[0] ?? null;
+		this.#input.otherHouseEdges = copy.slice(1);
+	}
+	isHouseEdge(ref: EdgeRef) {
+		return this.houseEdges.some((h) => sameRef(h, ref));
+	}
+	toggleHouseEdge(ref: EdgeRef) {
+		const list = this.houseEdges;
+		this.houseEdges = list.some((h) => sameRef(h, ref)) ? list.filter((h) => !sameRef(h, ref)) : [...list, ref];
+	}
+
+	/**
+	 * Replaces the outlines and carries every edge reference (walls, high edge, thickened edges)
+	 * to the new edges that lie along the old ones. `fallback` maps a reference whose edge is gone
+	 * (a removed corner merges two edges).
+	 */
+	setOutlines(next: Pt[][], fallback?: (r: EdgeRef) => EdgeRef | null) {
+		const before = this.#input.sections.map((s) => s.outline as Pt[]);
+		const move = (refs: EdgeRef[]) =>
+			refs.flatMap((r) => {
+				const found = edgesAfter(before, next, [r]);
+				if (found.length) return found;
+				const f = fallback?.(r);
+				return f ? [f] : [];
+			});
+		const dedupe = (refs: EdgeRef[]) => refs.filter((r, i) => refs.findIndex((x) => sameRef(x, r)) === i);
+		const house = dedupe(move(this.houseEdges));
+		const high = this.#input.slope.highEdge ? move([this.#input.slope.highEdge])[0] : undefined;
+		const thick = this.#input.thickenedEdge.edges;
+		const names = this.#input.sections.map((s) => s.name);
+		this.#input.sections = next.map((outline, i) => ({ name: next.length === before.length ? names[i] : undefined, outline: outline.map((p) => [p[0], p[1]] as Pt) }));
+		this.houseEdges = house;
+		this.#input.slope.highEdge = high ? { ...high } : undefined;
+		if (Array.isArray(thick)) this.#input.thickenedEdge.edges = dedupe(move(thick));
+	}
+
+	/** A new corner halves an edge: a wall stays a wall on both halves. (Same corner count: assign.) */
+	addCorner(section: number, edge: number) {
+		const next = splitEdge(this.#input.sections[section].outline as Pt[], edge);
+		this.setOutlines(this.#input.sections.map((s, i) => (i === section ? next : (s.outline as Pt[]))));
+	}
+
+	removeCorner(section: number, v: number) {
+		const o = this.#input.sections[section].outline as Pt[];
+		if (o.length <= 3) return;
+		const n = o.length;
+		// The two edges meeting at the corner become one: edge v−1 (or the new last edge, for corner 0).
+		const merged = v - 1;
+		const after = (e: number) => (e === v ? (v === 0 ? n - 2 : merged) : e > v ? e - 1 : e);
+		this.setOutlines(
+			this.#input.sections.map((s, i) => (i === section ? removeVertex(o, v) : (s.outline as Pt[]))),
+			(r) => (r.section === section ? { section, edge: after(r.edge) } : null)
+		);
 	}
 }

@@ -15,8 +15,14 @@ export const localDraft = {
 			return null;
 		}
 	},
-	write(d: DraftData) {
-		localStorage.setItem(DRAFT_KEY, JSON.stringify(d));
+	/** False when the browser would not keep it (storage full or blocked). */
+	write(d: DraftData): boolean {
+		try {
+			localStorage.setItem(DRAFT_KEY, JSON.stringify(d));
+			return true;
+		} catch {
+			return false;
+		}
 	},
 	clear() {
 		localStorage.removeItem(DRAFT_KEY);
@@ -34,6 +40,8 @@ export class PlanSaver {
 	revision = $state(0);
 	conflict = $state<PlanRecord | null>(null);
 	message = $state('');
+	/** The plan exactly as the server last stored it (serialised); "Saved" is only said for it. */
+	stored = $state<string | null>(null);
 
 	#timer: ReturnType<typeof setTimeout> | undefined;
 	#inFlight: Promise<void> | null = null;
@@ -73,6 +81,7 @@ export class PlanSaver {
 	async #save() {
 		if (this.status === 'conflict') return;
 		const data = this.#read();
+		const sent = JSON.stringify(data);
 		this.status = 'saving';
 		try {
 			const res = this.id
@@ -85,7 +94,9 @@ export class PlanSaver {
 			if (res.ok) {
 				const { plan } = (await res.json()) as { plan: PlanRecord };
 				this.revision = plan.revision;
-				this.status = 'saved';
+				this.stored = sent;
+				// An edit made while this save was on its way is not stored yet.
+				this.status = JSON.stringify(this.#read()) === sent ? 'saved' : 'pending';
 				if (!this.id) {
 					this.id = plan.id;
 					this.#onCreated(plan.id);
@@ -105,5 +116,10 @@ export class PlanSaver {
 			this.status = 'offline';
 			this.message = 'No connection; your changes are kept here and saved when you edit again.';
 		}
+	}
+
+	/** What the indicator may say: never "Saved" while the plan differs from what was stored. */
+	shown(current: string): SaveStatus {
+		return this.status === 'saved' && this.stored !== current ? 'pending' : this.status;
 	}
 }

@@ -32,16 +32,26 @@ export function edgeLength(o: Pt[], i: number): number {
 	return Math.hypot(b[0] - a[0], b[1] - a[1]);
 }
 
-/** Sets edge i's length by moving its end vertex along the edge's direction. */
+/**
+ * Sets edge i's length by moving its end vertex along the edge's direction, together with the
+ * run of corners after it that lie square across from it (the far side of a rectangle, or the
+ * far side of an L's notch), so right angles stay right angles. A lone corner moves alone.
+ */
 export function setEdgeLength(o: Pt[], i: number, length: number): Pt[] {
 	const a = o[i];
 	const j = (i + 1) % o.length;
 	const b = o[j];
 	const current = edgeLength(o, i);
 	if (current === 0 || !(length > 0)) return o;
-	const k = length / current;
-	const moved: Pt = [round(a[0] + (b[0] - a[0]) * k), round(a[1] + (b[1] - a[1]) * k)];
-	return o.map((p, n) => (n === j ? moved : p));
+	const ux = (b[0] - a[0]) / current;
+	const uy = (b[1] - a[1]) / current;
+	const dx = ux * (length - current);
+	const dy = uy * (length - current);
+	const along = (p: Pt) => (p[0] - a[0]) * ux + (p[1] - a[1]) * uy;
+	const eps = 1e-6 * Math.max(current, length, 1);
+	const moving = new Set([j]);
+	for (let k = (j + 1) % o.length; k !== i && Math.abs(along(o[k]) - current) < eps; k = (k + 1) % o.length) moving.add(k);
+	return o.map((p, n) => (moving.has(n) ? [round(p[0] + dx), round(p[1] + dy)] : p));
 }
 
 /** Inserts a vertex at the middle of edge i. */
@@ -101,4 +111,40 @@ export function splitSection(o: Pt[], at = 0.5): [Pt[], Pt[]] | null {
 	const onCut = (piece: Pt[]) => piece.filter((p) => p[axis] === c).length;
 	if (onCut(first) !== 2 || onCut(second) !== 2) return null;
 	return [first, second];
+}
+
+/** True when edge (p, q) lies on the segment a–b (collinear, both ends within it). */
+function onSegment(p: Pt, q: Pt, a: Pt, b: Pt): boolean {
+	const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
+	if (len === 0 || Math.hypot(q[0] - p[0], q[1] - p[1]) < 1e-9) return false;
+	const eps = 1e-6 * Math.max(len, 1);
+	const inside = (x: Pt) => {
+		const t = ((x[0] - a[0]) * (b[0] - a[0]) + (x[1] - a[1]) * (b[1] - a[1])) / len;
+		const off = Math.abs((x[0] - a[0]) * (b[1] - a[1]) - (x[1] - a[1]) * (b[0] - a[0])) / len;
+		return off < eps && t > -eps && t < len + eps;
+	};
+	return inside(p) && inside(q);
+}
+
+export type EdgeAt = { section: number; edge: number };
+
+/**
+ * Where edges went after the sections changed (a split, a removed pour): every new edge lying
+ * along one of the old edges, in section order. A wall split in two by a pour cut stays a wall on
+ * both pours; an edge whose section is gone maps to nothing.
+ */
+export function edgesAfter(before: Pt[][], after: Pt[][], refs: EdgeAt[]): EdgeAt[] {
+	const out: EdgeAt[] = [];
+	for (const ref of refs) {
+		const o = before[ref.section];
+		if (!o || ref.edge >= o.length) continue;
+		const a = o[ref.edge];
+		const b = o[(ref.edge + 1) % o.length];
+		after.forEach((n, s) =>
+			n.forEach((p, e) => {
+				if (onSegment(p, n[(e + 1) % n.length], a, b) && !out.some((r) => r.section === s && r.edge === e)) out.push({ section: s, edge: e });
+			})
+		);
+	}
+	return out;
 }

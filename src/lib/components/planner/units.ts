@@ -8,3 +8,6 @@ export function unitLabels(u: Units) {
 }
 
 export const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });
+
+/** Corner letters as the edge table and the drawing use them: A, B, … Z, A1, B1, … */
+export const cornerName = (i: number) => String.fromCharCode(65 + (i % 26)) + (i >= 26 ? Math.floor(i / 26) : '');

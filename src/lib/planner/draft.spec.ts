@@ -1,0 +1,110 @@
+import { describe, expect, it } from 'vitest';
+import { computePlan } from '$lib/plan';
+import { completeInput, PlanDraft, starterInput } from './draft.svelte';
+import { editableCopy, sameData } from './editable';
+import { EditHistory } from './history.svelte';
+import { detectPreset, presetHouse, presetOutline } from './presets';
+import { lShape } from './shapes';
+
+/** Every object and array reachable from v, v included. */
+function objects(v: unknown, out: object[] = []): object[] {
+	if (v !== null && typeof v === 'object') {
+		out.push(v);
+		for (const x of Object.values(v)) objects(x, out);
+	}
+	return out;
+}
+
+describe('the plan the wizard edits', () => {
+	it('is a deep copy with nothing frozen, so every field can be written', () => {
+		for (const input of [starterInput('imperial'), starterInput('metric'), completeInput({ units: 'imperial', sections: [{ outline: lShape(16, 12, 6, 5) }] })!]) {
+			const all = objects(input);
+			expect(all.length).toBeGreaterThan(20);
+			expect(all.filter((o) => Object.isFrozen(o) || !Object.isExtensible(o))).toEqual([]);
+			// The fields that threw on a new plan: fall, cross fall, bag prices.
+			input.slope.fall.value = 0.25;
+			input.slope.fall.unit = 'inPerFt';
+			input.slope.crossFall.value = 1;
+			input.bags.offered[0].price = 6.5;
+			expect(input.slope.fall).toEqual({ value: 0.25, unit: 'inPerFt' });
+		}
+		// Two new plans share no object.
+		const a = objects(starterInput());
+		const b = new Set(objects(starterInput()));
+		expect(a.some((o) => b.has(o))).toBe(false);
+	});
+
+	it('a fall of ¼ in per ft on the starter’s 10 ft run is 2.08 % and 2.5 in', () => {
+		const input = starterInput();
+		input.slope.fall = { value: 0.25, unit: 'inPerFt' };
+		const r = computePlan(input);
+		expect(r.elevations.steepest.percent).toBeCloseTo((0.25 / 12) * 100, 6); // ¼ in ÷ 12 in = 2.083 % (definition of percent grade)
+		expect(r.elevations.totalDrop.inches).toBeCloseTo(2.5, 6); // 10 ft × ¼ in/ft
+	});
+
+	it('editableCopy copies frozen data and sameData ignores absent keys', () => {
+		const frozen: { a: number[]; b: { c: number } } = Object.freeze({ a: Object.freeze([1, 2]) as number[], b: Object.freeze({ c: 3 }) });
+		const copy = editableCopy(frozen);
+		copy.b.c = 4;
+		expect(copy).toEqual({ a: [1, 2], b: { c: 4 } });
+		expect(sameData({ a: 1, b: undefined }, { a: 1 })).toBe(true);
+		expect(sameData({ a: [1, 2] }, { a: [1, 2, 3] })).toBe(false);
+	});
+});
+
+describe('edit history', () => {
+	it('undoes and redoes, merges quick edits, and drops redo after a new edit', () => {
+		const h = new EditHistory('a', { quietMs: 500 });
+		expect(h.canUndo).toBe(false);
+		h.record('b', 1000);
+		h.record('bc', 1200); // typing on: the same step
+		h.record('bcd', 2000); // a pause: a new step
+		expect(h.undo()).toBe('bc');
+		expect(h.undo()).toBe('a');
+		expect(h.canUndo).toBe(false);
+		expect(h.redo()).toBe('bc');
+		h.record('x', 5000);
+		expect(h.canRedo).toBe(false);
+		expect(h.undo()).toBe('bc');
+		h.record('bc', 6000); // the restored snapshot is not a new step
+		expect(h.canRedo).toBe(true);
+	});
+
+	it('keeps the first snapshot reachable even when edits come fast', () => {
+		const h = new EditHistory('start', { quietMs: 500 });
+		h.record('one', 10);
+		h.record('two', 20); // within the quiet time of 'one': merged into it, not into 'start'
+		expect(h.undo()).toBe('start');
+		expect(h.redo()).toBe('two');
+	});
+});
+
+describe('shape presets', () => {
+	it('read their sizes and walls back from the plan, so a revisit shows what was applied', () => {
+		const p = { shape: 'l' as const, length: 24, width: 18, notchLength: 8, notchWidth: 6, house: 'corner' as const };
+		const input = starterInput();
+		input.sections = [{ outline: presetOutline(p) }];
+		const walls = presetHouse(p);
+		input.houseEdge = walls[0];
+		input.otherHouseEdges = walls.slice(1);
+		expect(detectPreset(input)).toEqual(p);
+		expect(walls).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }]);
+		input.houseEdge = null;
+		input.otherHouseEdges = [];
+		expect(detectPreset(input).house).toBe('none');
+		expect(detectPreset(starterInput())).toMatchObject({ shape: 'rectangle', length: 12, width: 10, house: 'side' });
+	});
+});
+
+describe('walls through outline changes', () => {
+	it('a split keeps both notch walls of an L; removing a corner keeps the wall on the merged edge', () => {
+		const draft = new PlanDraft({ name: 'L', input: completeInput({ units: 'imperial', sections: [{ outline: lShape(24, 18, 8, 6) }], houseEdge: { section: 0, edge: 2 }, otherHouseEdges: [{ section: 0, edge: 3 }] })! });
+		draft.addCorner(0, 2); // C–D halved: both halves are wall
+		expect(draft.houseEdges).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }, { section: 0, edge: 4 }]);
+		draft.removeCorner(0, 3); // the new middle corner goes: one wall C–D again
+		expect(draft.houseEdges).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }]);
+		draft.removeCorner(0, 0); // A goes: F–A and A–B merge; walls C–D, D–E renumber to 1, 2
+		expect(draft.houseEdges).toEqual([{ section: 0, edge: 1 }, { section: 0, edge: 2 }]);
+		expect(draft.outcome.ok).toBe(true);
+	});
+});

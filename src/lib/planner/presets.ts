@@ -1,0 +1,46 @@
+// "Start from a shape": a rectangle or an L, with the house along one side, around the notch
+// (an inside house corner) or nowhere (a freestanding pad).
+import type { EdgeRef, ParsedPlan } from '$lib/plan';
+import { lShape, rectangle, type Pt } from './shapes';
+
+export type HouseSide = 'side' | 'corner' | 'none';
+export type Preset = { shape: 'rectangle' | 'l'; length: number; width: number; notchLength: number; notchWidth: number; house: HouseSide };
+
+export function presetOutline(p: Preset): Pt[] {
+	return p.shape === 'rectangle' ? rectangle(p.length, p.width) : lShape(p.length, p.width, p.notchLength, p.notchWidth);
+}
+
+/** The walls a preset stands against: edge A–B, or both notch edges C–D and D–E of the L. */
+export function presetHouse(p: Preset): EdgeRef[] {
+	if (p.house === 'none') return [];
+	if (p.house === 'corner' && p.shape === 'l') return [{ section: 0, edge: 2 }, { section: 0, edge: 3 }];
+	return [{ section: 0, edge: 0 }];
+}
+
+const same = (a: Pt[], b: Pt[]) => a.length === b.length && a.every((p, i) => p[0] === b[i][0] && p[1] === b[i][1]);
+
+/**
+ * The preset form as the plan stands: its own sizes when the outline is one of the presets,
+ * otherwise what the form held before (or a patio of typical size in the plan's units).
+ */
+export function detectPreset(input: ParsedPlan, previous?: Preset): Preset {
+	const houses = input.houseEdge ? [input.houseEdge, ...input.otherHouseEdges] : [];
+	const o = input.sections.length === 1 ? (input.sections[0].outline as Pt[]) : [];
+	const onlyEdges = (...edges: number[]) => houses.length === edges.length && houses.every((h) => h.section === 0 && edges.includes(h.edge));
+	const house: HouseSide = houses.length === 0 ? 'none' : onlyEdges(2, 3) ? 'corner' : 'side';
+	if (o.length === 4 && same(o, rectangle(o[2][0], o[2][1])))
+		return { ...(previous ?? typical(input.units)), shape: 'rectangle', length: o[2][0], width: o[2][1], house: house === 'corner' ? 'side' : house };
+	if (o.length === 6) {
+		const [L, W] = [o[1][0], o[5][1]];
+		const nl = L - o[3][0];
+		const nw = W - o[2][1];
+		if (nl > 0 && nw > 0 && same(o, lShape(L, W, nl, nw))) return { shape: 'l', length: L, width: W, notchLength: nl, notchWidth: nw, house };
+	}
+	return previous ?? { ...typical(input.units), house };
+}
+
+function typical(units: ParsedPlan['units']): Preset {
+	return units === 'imperial'
+		? { shape: 'rectangle', length: 16, width: 12, notchLength: 6, notchWidth: 5, house: 'side' }
+		: { shape: 'rectangle', length: 4.8, width: 3.6, notchLength: 1.8, notchWidth: 1.5, house: 'side' };
+}

@@ -1,0 +1,222 @@
+import { expect, test, type Page } from '@playwright/test';
+import { signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
+
+// Every step of a new plan, as a visitor types: each number field gets a new value and each
+// select a new choice. A field added later without an entry below still gets typed into (the
+// fallback), so "every field" stays true as the planner grows.
+const VALUES: Record<string, string> = {
+	'ref-below': '1.5',
+	gap: '0.75',
+	'air-temp': '65',
+	humidity: '55',
+	wind: '8',
+	'shape-length': '14',
+	'shape-width': '10',
+	'shape-notch-length': '4',
+	'shape-notch-width': '3',
+	fall: '0.25',
+	'cross-fall': '0.5',
+	thickness: '5',
+	waste: '8',
+	'custom-depth': '5.5',
+	'stake-spacing': '4',
+	'base-depth': '5',
+	bulking: '1.25',
+	'edge-width': '10',
+	'edge-depth': '4',
+	'fill-share': '0.25',
+	'fill-piece': '3',
+	people: '3',
+	'hand-minutes': '7',
+	'drum-minutes': '5',
+	'drum-mass': '120',
+	'place-minutes': '3',
+	'working-minutes': '100',
+	'finish-minutes': '40',
+	payload: '1200',
+	'bag-price-0': '6.5',
+	'bag-price-1': '5.25',
+	'bag-price-2': '3.75',
+	'readymix-price': '190'
+};
+// Selects: the choice to make; the edge table's lengths are typed by label below.
+const CHOICES: Record<string, string> = {
+	'high-edge': '0:0',
+	'fall-unit': 'inPerFt',
+	'cross-unit': 'totalDrop',
+	reinforcement: 'mesh',
+	lumber: 'custom',
+	release: 'oil',
+	edges: 'free',
+	method: 'drum'
+};
+
+const stepBody = (page: Page) => page.locator('section[aria-labelledby="step-heading"]');
+
+/** Types into every number field and changes every select of the step on screen. */
+async function fillStep(page: Page, typed: Record<string, string>) {
+	const done = new Set<string>();
+	for (let round = 0; round < 5; round++) {
+		let found = false;
+		for (const field of await stepBody(page).locator('input[type=number][id]').all()) {
+			const id = (await field.getAttribute('id'))!;
+			if (done.has(id) || !(await field.isVisible())) continue;
+			found = true;
+			done.add(id);
+			// Unknown fields (prices and the like): a small positive number within the field's bounds.
+			const max = Number((await field.getAttribute('max')) ?? Infinity);
+			const value = VALUES[id] ?? (id.startsWith('price-') ? '1.5' : String(Math.min(max, Number((await field.inputValue()) || 0) + 1)));
+			await field.fill(value);
+			await field.blur();
+			await expect(field).toHaveValue(value);
+			typed[id] = value;
+		}
+		for (const select of await stepBody(page).locator('select[id]').all()) {
+			const id = (await select.getAttribute('id'))!;
+			if (done.has(`select:${id}`) || !(await select.isVisible())) continue;
+			found = true;
+			done.add(`select:${id}`);
+			const options = await select.locator('option').evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value));
+			const now = await select.inputValue();
+			const value = CHOICES[id] ?? options.find((o) => o !== now)!;
+			await select.selectOption(value);
+			await expect(select).toHaveValue(value);
+			typed[`select:${id}`] = value;
+		}
+		// A chunk fill only shows its fields once chosen.
+		const chunks = stepBody(page).getByLabel('Lay broken concrete chunks in the trench');
+		if ((await chunks.count()) && !(await chunks.isChecked())) {
+			await chunks.check();
+			found = true;
+		}
+		if (!found) break;
+	}
+}
+
+/** The whole wizard, step by step; returns what was typed, by field id. */
+async function fillEveryStep(page: Page) {
+	const typed: Record<string, string> = {};
+	await goTo(page, 'Site');
+	await fillStep(page, typed);
+
+	await goTo(page, 'Outline');
+	await page.getByLabel('L-shape (notched corner)').check();
+	await fillStep(page, typed);
+	await page.getByLabel('Rectangle').check();
+	await page.getByRole('button', { name: 'Use this rectangle' }).click();
+	await expect(page.getByTestId('result-area')).toHaveText('140 ft²'); // 14 × 10 ft
+	// The edge table: A–B longer; the rectangle stays square (its far side moves with it).
+	await page.getByLabel('Length of edge A–B in ft').fill('15');
+	await page.getByLabel('Length of edge A–B in ft').blur();
+	await expect(page.getByLabel('Length of edge C–D in ft')).toHaveValue('15');
+	await page.getByLabel('Length of edge B–C in ft').fill('9');
+	await page.getByLabel('Length of edge B–C in ft').blur();
+	await page.getByLabel('Length of edge D–A in ft').fill('10');
+	await page.getByLabel('Length of edge D–A in ft').blur();
+	await expect(page.getByLabel('Length of edge B–C in ft')).toHaveValue('10');
+	await expect(page.getByTestId('result-area')).toHaveText('150 ft²'); // 15 × 10 ft, still a rectangle
+	await expect(page.getByLabel('Edge A–B runs along a house wall')).toBeChecked(); // the wall stays where it was
+
+	await goTo(page, 'Pitch');
+	await fillStep(page, typed);
+	// The cross fall was typed and its unit changed; set it back to none so the fall alone shows.
+	await page.getByLabel('Cross fall').fill('0');
+	await page.getByLabel('Cross fall').blur();
+	typed['cross-fall'] = '0';
+	// ¼ in per ft = 0.25 ÷ 12 = 2.083 % (percent grade by definition); over the 10 ft run 10 × ¼ = 2.5 in.
+	await expect(page.getByLabel('Resulting pitch')).toContainText('2.08 %');
+	await expect(page.getByLabel('Resulting pitch')).toContainText('2.5 in');
+
+	await goTo(page, 'Build-up');
+	await fillStep(page, typed);
+	await goTo(page, 'Crew');
+	await fillStep(page, typed);
+	await goTo(page, 'Review');
+	return typed;
+}
+
+/** Every input and select value of every step, as shown, keyed by id. */
+async function readEveryStep(page: Page, skip = /^shape-/) {
+	const seen: Record<string, string> = {};
+	for (const title of ['Site', 'Outline', 'Pitch', 'Build-up', 'Crew']) {
+		await goTo(page, title);
+		for (const el of await stepBody(page).locator('input[type=number], select').all()) {
+			const id = (await el.getAttribute('id')) ?? (await el.getAttribute('aria-label'))!;
+			if (!skip.test(id)) seen[`${title}:${id}`] = await el.inputValue();
+		}
+	}
+	return seen;
+}
+
+test('a new visitor types into every field of every step: no page error, and the results follow', async ({ page }) => {
+	test.setTimeout(120_000);
+	const errors = watchErrors(page);
+	await page.goto('/plans/new');
+	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
+	const before = await page.getByTestId('result-bags').textContent();
+	const typed = await fillEveryStep(page);
+	expect(Object.keys(typed).length).toBeGreaterThan(35);
+	// Thicker slab, larger area: more bags than the starter's 12 × 10 × 4 in.
+	expect(Number(await page.getByTestId('result-bags').textContent())).toBeGreaterThan(Number(before));
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');
+	// The visitor's plan is shown whole, and the way to keep it is offered.
+	await expect(page.getByTestId('account-offer')).toBeVisible();
+	await expect(page.getByRole('heading', { name: 'Stake marks' })).toBeVisible();
+	await expect(page.getByRole('heading', { name: 'Mixing plan' })).toBeVisible();
+	// Kept in this browser: a reload shows every value again.
+	const shown = await readEveryStep(page);
+	await page.reload();
+	expect(await readEveryStep(page)).toEqual(shown);
+	expect(errors).toEqual([]);
+});
+
+test('signed in, every typed value is saved and comes back after a reload', async ({ page }) => {
+	test.setTimeout(150_000);
+	const errors = watchErrors(page);
+	await signUp(page, { name: 'Wes Fielding', email: uniqueEmail('fields'), password: 'every-field-typed' });
+	await page.goto('/plans/new');
+	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
+	const typed = await fillEveryStep(page);
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 15_000 });
+	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
+	const shown = await readEveryStep(page);
+	for (const [id, v] of Object.entries(typed)) {
+		if (id.startsWith('shape-')) continue;
+		const key = Object.keys(shown).find((k) => k.endsWith(`:${id.replace(/^select:/, '')}`));
+		if (key) expect(Number(shown[key]) || shown[key], id).toEqual(Number(v) || v);
+	}
+	await page.reload();
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved');
+	expect(await readEveryStep(page)).toEqual(shown);
+	expect(errors).toEqual([]);
+});
+
+test('units imperial → metric → imperial leave every typed value unchanged', async ({ page }) => {
+	test.setTimeout(120_000);
+	const errors = watchErrors(page);
+	await page.goto('/plans/new');
+	await fillEveryStep(page);
+	const shown = await readEveryStep(page, /^$/);
+	const bags = await page.getByTestId('result-bags').textContent();
+	await goTo(page, 'Site');
+	await page.getByLabel('metres and millimetres').check();
+	await goTo(page, 'Build-up');
+	await expect(page.getByLabel('Thickness')).toHaveValue('127'); // 5 in × 25.4 = 127 mm (exact inch)
+	await goTo(page, 'Site');
+	await page.getByLabel('feet and inches').check();
+	expect(await readEveryStep(page, /^$/)).toEqual(shown);
+	await expect(page.getByTestId('result-bags')).toHaveText(bags!);
+
+	// With an outline the engine refuses, the switch says why and the units stay.
+	await goTo(page, 'Outline');
+	await page.getByLabel('Length of edge A–B in ft').fill('0');
+	await page.getByLabel('Length of edge A–B in ft').blur();
+	await page.getByRole('button', { name: 'Section 1, corner B,' }).focus();
+	for (let i = 0; i < 15; i++) await page.keyboard.press('Shift+ArrowLeft');
+	await goTo(page, 'Site');
+	await page.getByLabel('metres and millimetres').click(); // refused: the radio goes back
+	await expect(page.getByTestId('units-message')).toContainText('The units stay as they are');
+	await expect(page.getByLabel('feet and inches')).toBeChecked();
+	await expect(page.getByLabel('High point of the slab below it by')).toHaveValue('1.5');
+	expect(errors).toEqual([]);
+});

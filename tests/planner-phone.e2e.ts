@@ -1,0 +1,60 @@
+import { expect, test, type Page } from '@playwright/test';
+import { signUp, uniqueEmail, watchErrors, wizardStep } from './helpers';
+
+test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+
+const STEPS = ['Site', 'Outline', 'Pitch', 'Build-up', 'Crew', 'Review'];
+
+async function noSidewaysScroll(page: Page, where: string) {
+	const { scroll, client } = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, client: document.documentElement.clientWidth }));
+	expect(scroll, `${where} is wider than the screen`).toBeLessThanOrEqual(client);
+}
+
+async function everyStep(page: Page, where: string) {
+	for (const title of STEPS) {
+		await wizardStep(page, title);
+		await noSidewaysScroll(page, `${where}, step ${title}`);
+	}
+}
+
+test('on a phone the key results stay in sight while editing, corners are big enough to touch, and nothing scrolls sideways', async ({ page }) => {
+	test.setTimeout(120_000);
+	const errors = watchErrors(page);
+	await page.goto('/plans/new');
+	await everyStep(page, 'new plan');
+
+	await wizardStep(page, 'Build-up');
+	const thickness = page.getByLabel('Thickness');
+	await thickness.focus();
+	await thickness.fill('6');
+	const bar = page.getByTestId('results-bar');
+	await expect(bar).toBeInViewport();
+	// The starter's 12 × 10 ft; the bag count is the panel's, which follows the field.
+	await expect(bar.getByTestId('bar-area')).toHaveText('120 ft²');
+	const bags = await page.getByTestId('result-bags').innerText();
+	await expect(bar.getByTestId('bar-bags')).toHaveText(new RegExp(`^${bags} ×`));
+	await bar.getByRole('button').first().click();
+	await expect(bar.getByText(/Mixing and placing/)).toBeVisible();
+	await page.screenshot({ path: 'test-results/screens/phone-results-bar.png' });
+
+	await wizardStep(page, 'Outline');
+	for (const hit of await page.getByTestId('corner-hit').all()) {
+		const box = (await hit.boundingBox())!;
+		expect(box.width).toBeGreaterThanOrEqual(44);
+		expect(box.height).toBeGreaterThanOrEqual(44);
+	}
+	expect(errors).toEqual([]);
+});
+
+test('on a phone the edit page and the plan page of a saved plan do not scroll sideways', async ({ page }) => {
+	test.setTimeout(120_000);
+	await signUp(page, { name: 'Phoebe Small', email: uniqueEmail('phone'), password: 'small-screen-plan' });
+	const created = await page.request.post('/api/plans', {
+		data: { name: 'Phone patio', input: { units: 'imperial', sections: [{ outline: [[0, 0], [14, 0], [14, 12], [0, 12]] }] } }
+	});
+	const { plan } = await created.json();
+	await page.goto(`/plans/${plan.id}/edit`);
+	await everyStep(page, 'edit page');
+	await page.goto(`/plans/${plan.id}`);
+	await noSidewaysScroll(page, 'plan page');
+});

@@ -1,0 +1,44 @@
+import { expect, test } from '@playwright/test';
+import { watchErrors, wizardStep } from './helpers';
+
+test('undo brings back a deleted corner, redo removes it again, and Start over resets the plan', async ({ page }) => {
+	test.setTimeout(90_000);
+	const errors = watchErrors(page);
+	await page.goto('/plans/new');
+	await wizardStep(page, 'Outline');
+	const corners = page.getByRole('button', { name: /^Section 1, corner / });
+	await expect(corners).toHaveCount(4);
+	await expect(page.getByTestId('result-area')).toHaveText('120 ft²'); // the starter: 12 × 10 ft
+
+	await page.getByRole('button', { name: 'Remove corner B' }).click();
+	await expect(corners).toHaveCount(3);
+	await expect(page.getByTestId('result-area')).toHaveText('60 ft²'); // the triangle A, C, D: ½ × 12 × 10
+	await page.getByRole('button', { name: 'Undo' }).click();
+	await expect(corners).toHaveCount(4);
+	await expect(page.getByTestId('result-area')).toHaveText('120 ft²');
+	await page.getByRole('button', { name: 'Redo' }).click();
+	await expect(corners).toHaveCount(3);
+
+	// The keyboard: Delete on a focused corner, then Ctrl+Z and Shift+Ctrl+Z.
+	await page.getByRole('button', { name: 'Undo' }).click();
+	await page.getByRole('button', { name: /^Section 1, corner C,/ }).focus();
+	await page.keyboard.press('Delete');
+	await expect(corners).toHaveCount(3);
+	await page.keyboard.press('Control+z');
+	await expect(corners).toHaveCount(4);
+	await page.keyboard.press('Control+Shift+z');
+	await expect(corners).toHaveCount(3);
+	await page.keyboard.press('Control+z');
+
+	await wizardStep(page, 'Build-up');
+	await page.getByLabel('Thickness').fill('6');
+	await page.getByLabel('Thickness').press('Control+z'); // inside a field the plan's undo still applies
+	await expect(page.getByLabel('Thickness')).toHaveValue('4');
+	await page.getByLabel('Thickness').fill('6');
+	await page.getByRole('button', { name: 'Start over' }).click();
+	await expect(page.getByLabel('Thickness')).toHaveValue('4');
+	await expect(page.getByTestId('result-area')).toHaveText('120 ft²');
+	await page.getByRole('button', { name: 'Undo' }).click();
+	await expect(page.getByLabel('Thickness')).toHaveValue('6');
+	expect(errors).toEqual([]);
+});

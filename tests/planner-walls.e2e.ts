@@ -1,0 +1,103 @@
+import { expect, test, type Page } from '@playwright/test';
+import { signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
+
+const wallBox = (page: Page, edge: string) => page.getByLabel(`Edge ${edge} runs along a house wall`);
+const housesDrawn = (page: Page) => page.locator('svg line[data-house]');
+
+async function saved(page: Page) {
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 15_000 });
+	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
+	return page.url().split('/').at(-2)!;
+}
+
+test('an L around a house corner keeps both walls through save, reload, a split and the plan page', async ({ page }) => {
+	test.setTimeout(120_000);
+	const errors = watchErrors(page);
+	await signUp(page, { name: 'Cora Nook', email: uniqueEmail('corner'), password: 'around-the-corner' });
+	await page.goto('/plans/new');
+	await goTo(page, 'Outline');
+	await page.getByLabel('L-shape (notched corner)').check();
+	await page.getByLabel('Length (A–B)').fill('24');
+	await page.getByLabel('Width (B–C side)').fill('18');
+	await page.getByLabel('Notch length (C–D)').fill('8');
+	await page.getByLabel('Notch width (D–E)').fill('6');
+	await page.getByLabel('Around a house corner').check();
+	await expect(page.getByTestId('preset-state')).toContainText('Not applied yet');
+	await page.getByRole('button', { name: 'Use this L-shape' }).click();
+	await expect(page.getByTestId('preset-state')).toContainText('This is the outline now');
+	await expect(page.getByTestId('result-area')).toHaveText('384 ft²'); // 24 × 18 − 8 × 6 = 432 − 48
+	await expect(wallBox(page, 'C–D')).toBeChecked();
+	await expect(wallBox(page, 'D–E')).toBeChecked();
+	await expect(wallBox(page, 'A–B')).not.toBeChecked();
+	await expect(housesDrawn(page)).toHaveCount(2);
+	// Revisiting the step shows the sizes that were applied, not the form's own defaults.
+	await goTo(page, 'Pitch');
+	await page.getByLabel('Cross fall').fill('2');
+	await goTo(page, 'Outline');
+	await expect(page.getByLabel('Length (A–B)')).toHaveValue('24');
+	await expect(page.getByLabel('Notch width (D–E)')).toHaveValue('6');
+
+	const id = await saved(page);
+	const stored = (await (await page.request.get(`/api/plans/${id}`)).json()).plan.input;
+	expect([stored.houseEdge, ...stored.otherHouseEdges]).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }]);
+	await page.reload();
+	await goTo(page, 'Outline');
+	await expect(wallBox(page, 'C–D')).toBeChecked();
+	await expect(wallBox(page, 'D–E')).toBeChecked();
+
+	// Two pours: the cut runs across the long side; both walls stay walls on the pour beside them.
+	await page.getByRole('button', { name: 'Split pour 1 in two' }).click();
+	await expect(page.getByRole('tab', { name: 'Pour 2' })).toBeVisible();
+	await expect(housesDrawn(page)).toHaveCount(2);
+	await expect(page.getByTestId('result-area')).toHaveText('384 ft²');
+	await saved(page);
+	const split = (await (await page.request.get(`/api/plans/${id}`)).json()).plan;
+	const walls = [split.input.houseEdge, ...split.input.otherHouseEdges];
+	expect(walls).toHaveLength(2);
+	// Each wall is still 8 ft and 6 ft long, as the notch was.
+	const lengths = walls.map((w: { section: number; edge: number }) => {
+		const o = split.input.sections[w.section].outline;
+		const [a, b] = [o[w.edge], o[(w.edge + 1) % o.length]];
+		return Math.hypot(b[0] - a[0], b[1] - a[1]);
+	});
+	expect(lengths.sort()).toEqual([6, 8]);
+
+	await page.goto(`/plans/${id}`);
+	await expect(housesDrawn(page)).toHaveCount(2);
+	expect(errors).toEqual([]);
+});
+
+test('a freestanding shed pad with a chosen high edge, in two pours, saved and reloaded', async ({ page }) => {
+	test.setTimeout(120_000);
+	const errors = watchErrors(page);
+	await signUp(page, { name: 'Shay Padd', email: uniqueEmail('pad'), password: 'freestanding-pad' });
+	await page.goto('/plans/new');
+	await goTo(page, 'Outline');
+	await page.getByLabel('Length (A–B)').fill('10');
+	await page.getByLabel('Width (B–C side)').fill('12');
+	await page.getByLabel('None: a freestanding pad').check();
+	await page.getByRole('button', { name: 'Use this rectangle' }).click();
+	await expect(page.getByLabel('Freestanding: no house wall along the slab (a shed pad, a path)')).toBeChecked();
+	await expect(housesDrawn(page)).toHaveCount(0);
+
+	await goTo(page, 'Pitch');
+	await page.getByLabel('High side').selectOption({ label: 'edge C–D' });
+	await page.getByLabel('Fall', { exact: true }).fill('1');
+	// 1 % over the 12 ft from C–D to A–B: 12 × 12 in × 1 % = 1.44 in.
+	await expect(page.getByLabel('Resulting pitch')).toContainText('1.44 in');
+
+	await goTo(page, 'Outline');
+	await page.getByRole('button', { name: 'Split pour 1 in two' }).click();
+	await expect(page.getByRole('tab', { name: 'Pour 2' })).toBeVisible();
+	const id = await saved(page);
+	await page.reload();
+	await goTo(page, 'Pitch');
+	// The cut runs across the 12 ft side: the old C–D is now the second pour's edge B–C.
+	await expect(page.getByLabel('High side').locator('option:checked')).toHaveText('pour 2, edge B–C');
+	await expect(page.getByLabel('Resulting pitch')).toContainText('1.44 in');
+	const stored = (await (await page.request.get(`/api/plans/${id}`)).json()).plan.input;
+	expect(stored.houseEdge).toBeNull();
+	expect(stored.sections).toHaveLength(2);
+	expect(stored.slope.highEdge).toEqual({ section: 1, edge: 1 });
+	expect(errors).toEqual([]);
+});
