@@ -103,11 +103,14 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	const diy = Math.round(result.materials.diyTotal.amount * 100);
 	await expect(mine.getByTestId('bid-vs-diy')).toHaveText(`${240_000 >= diy ? '+' : '−'}${formatMoney(Math.abs(240_000 - diy))}`);
 	await page.screenshot({ path: 'test-results/screens/bids-compare.png', fullPage: true });
-	await mine.getByRole('button', { name: 'Accept' }).click();
+	// Accepting asks first and says what follows.
+	await mine.getByText('Accept…').click();
+	await expect(mine.getByTestId('accept-bid')).toContainText('The other contractor is told they were not selected.');
+	await mine.getByRole('button', { name: 'Yes, accept this bid' }).click();
 	await expect(page.getByText('Bid accepted.')).toBeVisible();
 	await expect(mine.getByTestId('bid-status')).toHaveText('Accepted');
 	await expect(rows.filter({ hasText: 'Ridgeback Flatwork' }).getByTestId('bid-status')).toHaveText('Not selected');
-	await expect(page.getByRole('button', { name: 'Accept' })).toHaveCount(0);
+	await expect(page.getByText('Accept…')).toHaveCount(0);
 
 	await mine.getByRole('link', { name: pro.business }).click();
 	await expect(page.getByTestId('contractor-contact')).toContainText('(541) 555-0123');
@@ -236,7 +239,8 @@ test.describe('without JavaScript', () => {
 		await expect(page).toHaveURL(/\/plans$/);
 		await page.goto(`/plans/${planId}/bids`);
 		const row = page.getByTestId('bid-row').filter({ hasText: 'Quarry Lane Slabs' });
-		await row.getByRole('button', { name: 'Accept' }).click();
+		await row.getByText('Accept…').click();
+		await row.getByRole('button', { name: 'Yes, accept this bid' }).click();
 		await expect(page.getByText('Bid accepted.')).toBeVisible();
 		await expect(page.getByTestId('bid-row').filter({ hasText: 'Quarry Lane Slabs' }).getByTestId('bid-status')).toHaveText('Accepted');
 		await page.getByRole('link', { name: 'Quarry Lane Slabs' }).click();

@@ -1,5 +1,5 @@
 /** Lead and bid states, shared by the pages of both sides. */
-export const leadStatuses = ['new', 'viewed', 'bid_sent', 'declined', 'won', 'not_selected', 'withdrawn'] as const;
+export const leadStatuses = ['new', 'viewed', 'bid_sent', 'declined', 'won', 'not_selected', 'withdrawn', 'released'] as const;
 export type LeadStatus = (typeof leadStatuses)[number];
 export const leadStatusLabels: Record<LeadStatus, string> = {
 	new: 'New',
@@ -8,12 +8,20 @@ export const leadStatusLabels: Record<LeadStatus, string> = {
 	declined: 'Declined',
 	won: 'Won',
 	not_selected: 'Not selected',
-	withdrawn: 'Withdrawn'
+	withdrawn: 'Withdrawn',
+	released: 'Released during suspension'
 };
 
-export const bidStatuses = ['open', 'accepted', 'not_selected', 'withdrawn'] as const;
+/** `released`: the homeowner reopened bidding while the accepted contractor's account was suspended. */
+export const bidStatuses = ['open', 'accepted', 'not_selected', 'withdrawn', 'released'] as const;
 export type BidStatus = (typeof bidStatuses)[number];
-export const bidStatusLabels: Record<BidStatus, string> = { open: 'Open', accepted: 'Accepted', not_selected: 'Not selected', withdrawn: 'Withdrawn' };
+export const bidStatusLabels: Record<BidStatus, string> = {
+	open: 'Open',
+	accepted: 'Accepted',
+	not_selected: 'Not selected',
+	withdrawn: 'Withdrawn',
+	released: 'Released during suspension'
+};
 
 export const timeframes = ['soon', 'within_month', 'within_season', 'flexible'] as const;
 export type Timeframe = (typeof timeframes)[number];

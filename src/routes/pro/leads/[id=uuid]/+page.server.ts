@@ -46,7 +46,7 @@ export const actions = {
 	},
 	withdraw: async (event) => {
 		const user = await requireApprovedContractor(event);
-		return step({}, () => withdrawBid(user.id, event.params.id), { withdrawn: true });
+		return step({}, () => withdrawBid(user.id, event.params.id, event.url.origin), { withdrawn: true });
 	},
 	decline: async (event) => {
 		const user = await requireApprovedContractor(event);
