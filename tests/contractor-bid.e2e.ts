@@ -50,8 +50,11 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await expect(page.getByRole('heading', { name: 'Back patio' })).toBeVisible();
 	await expect(page.getByText(/Albany, OR · 0(\.\d)? mi from you/)).toBeVisible();
 	await expect(page.getByTestId('lead-notes')).toHaveText('The side gate is 36 in wide.');
-	await expect(page.getByTestId('plan-figures')).toContainText(`${Math.round(area)} ft²`);
+	// The spec sheet opens the page; the DIY-only parts (bags, mixing by hand) are folded away.
+	await expect(page.getByTestId('spec-area')).toHaveText(`${Math.round(area)} ft²`);
 	const bags = result.bags[0];
+	await expect(page.getByTestId('plan-figures')).toBeHidden();
+	await page.getByText("The homeowner's full plan").click();
 	await expect(page.getByTestId('plan-figures')).toContainText(`${bags.count} × ${bags.size} ${bags.unit}`);
 	// The planner's own views draw the frozen result.
 	await expect(page.getByTestId('frozen-plan').getByRole('heading', { name: 'Outline, joints and pours' })).toBeVisible();

@@ -2,7 +2,7 @@ import { and, asc, count, desc, eq, gt, inArray, ne, notInArray, sql, type SQL }
 import { isExpired, type LeadStatus } from '$lib/leads';
 import type { BidInput } from '$lib/schemas/leads';
 import type { ServiceKind } from '$lib/schemas/contractor';
-import type { Timeframe } from '$lib/leads';
+import type { ExistingSurface, Finish, Timeframe } from '$lib/leads';
 import { db } from '$lib/server/db';
 import { bid, contractor, lead, leadMessage, plan, planPhoto, user } from '$lib/server/db/schema';
 import { deliverSoon, queueMail } from './mail';
@@ -44,7 +44,7 @@ const leadContractors = (tx: Tx, leadIds: string[]) =>
 export async function sendLeads(
 	owner: Actor,
 	planId: string,
-	input: { scope: ServiceKind; timeframe: Timeframe; notes: string; contractors: string[] },
+	input: { scope: ServiceKind; timeframe: Timeframe; notes: string; finish?: Finish; existingSurface?: ExistingSurface; siteAccess?: string; contractors: string[] },
 	origin: string
 ) {
 	const out = await db.transaction(async (tx) => {
@@ -65,6 +65,9 @@ export async function sendLeads(
 					scope: input.scope,
 					timeframe: input.timeframe,
 					notes: input.notes,
+					finish: input.finish,
+					existingSurface: input.existingSurface,
+					siteAccess: input.siteAccess,
 					planRevision: p.revision,
 					latestRevision: p.revision,
 					snapshot: { name: p.name, postcode: p.postcode, input: p.input, result: p.result, photoIds },

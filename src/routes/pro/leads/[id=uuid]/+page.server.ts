@@ -17,7 +17,7 @@ export const load = (async (event) => {
 	const { snapshot, homeownerId: _h, contractorId: _c, ...lead } = found.lead;
 	return {
 		lead: { ...lead, status: lead.status === 'new' ? ('viewed' as const) : lead.status },
-		plan: { name: snapshot.name, figures: planFigures(snapshot.input, snapshot.result), result: fullResult(snapshot.result), photoIds: snapshot.photoIds ?? [] },
+		plan: { name: snapshot.name, input: snapshot.input, figures: planFigures(snapshot.input, snapshot.result), result: fullResult(snapshot.result), photoIds: snapshot.photoIds ?? [] },
 		bid: found.bid,
 		homeowner: found.homeowner,
 		unit: found.unitPref,
