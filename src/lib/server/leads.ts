@@ -125,7 +125,7 @@ const unreadFor = (side: 'homeowner' | 'contractor') =>
 export async function leadsForPlan(planId: string) {
 	return db
 		.select({
-			lead: { id: lead.id, contractorId: lead.contractorId, status: lead.status, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
+			lead: { id: lead.id, contractorId: lead.contractorId, status: lead.status, scope: lead.scope, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
 			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade, status: contractor.status },
 			bid,
 			unread: unreadFor('homeowner')
