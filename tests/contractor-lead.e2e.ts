@@ -2,6 +2,9 @@ import { expect, test } from '@playwright/test';
 import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { insertPlan } from './pro-helpers';
 
+// Long journeys on a shared machine: give each the time a slow run needs.
+test.describe.configure({ timeout: 180_000 });
+
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
 test('a contractor prices a lead from its spec sheet and bids from a phone', async ({ page }) => {
