@@ -147,7 +147,7 @@ test.describe('without JavaScript', () => {
 		await expect(page.getByTestId('sent-back')).toContainText('Please upload the insurance certificate, not the licence twice.');
 		await page.getByLabel('Insurance certificate').setInputFiles(pdf('brask-insurance'));
 		await page.getByLabel('Phone').fill('(541) 555-0177');
-		await page.getByRole('button', { name: 'Send for review' }).click();
+		await page.getByRole('button', { name: 'Send for review again' }).click();
 		await expect(page).toHaveURL(/\/pro$/);
 		await expect(page.getByRole('heading', { name: 'Awaiting review' })).toBeVisible();
 		await signOut(page);
