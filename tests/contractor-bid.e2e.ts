@@ -4,7 +4,7 @@ import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './
 import { approvedNewContractor, bumpPlanRevision, insertPlan, proMailLink } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
-test.describe.configure({ timeout: 180_000 });
+test.describe.configure({ timeout: 300_000 });
 
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
@@ -20,7 +20,7 @@ async function sendBid(page: Page, o: { total: string; days: string; labour?: st
 }
 
 test('a plan goes to two vetted contractors, both bid, the homeowner accepts one and they talk', async ({ page }) => {
-	test.setTimeout(120_000);
+	test.setTimeout(300_000);
 	const stamp = Date.now();
 	const pro = { name: 'Wes Harrow', email: uniqueEmail('bidder'), password: 'level-line-41', business: `Harrow Slabworks ${stamp}`, zip: '97321' };
 	await approvedNewContractor(page, pro);

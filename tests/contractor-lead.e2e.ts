@@ -3,12 +3,12 @@ import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './
 import { insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
-test.describe.configure({ timeout: 180_000 });
+test.describe.configure({ timeout: 300_000 });
 
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
 test('a contractor prices a lead from its spec sheet and bids from a phone', async ({ page }) => {
-	test.setTimeout(120_000);
+	test.setTimeout(300_000);
 	const errors: string[] = [];
 	page.on('pageerror', (e) => errors.push(e.message));
 	const homeEmail = uniqueEmail('spec');

@@ -3,7 +3,7 @@ import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './
 import { fillProfile, pdf, pngCertificate, proMailLink } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
-test.describe.configure({ timeout: 180_000 });
+test.describe.configure({ timeout: 300_000 });
 
 test('a contractor onboards with documents, an admin approves, and only they two can open the documents', async ({ page }) => {
 	const email = uniqueEmail('vet');
@@ -97,7 +97,7 @@ test.describe('without JavaScript', () => {
 	test.use({ javaScriptEnabled: false });
 
 	test('the profile form reports missing fields and documents, and the send-back loop is seen from both sides', async ({ page }) => {
-		test.setTimeout(120_000);
+		test.setTimeout(300_000);
 		const email = uniqueEmail('nojs');
 		const business = `Brask Base & Form ${Date.now()}`;
 		await signUp(page, { name: 'Ivo Brask', email, password: 'plain-forms-ok', role: 'contractor' });
