@@ -57,10 +57,10 @@ test('a duplicate e-mail is refused with status 400 and nothing stored', async (
 	await expect(page).toHaveURL(/\/plans$/);
 });
 
-test('a new contractor sees that the account awaits review', async ({ page }) => {
+test('a new contractor sees that the profile is not yet submitted for review', async ({ page }) => {
 	await signUp(page, { name: 'Lena Fossbrook', email: uniqueEmail('pro'), password: 'forms-and-stakes', role: 'contractor' });
 	await expect(page).toHaveURL(/\/pro$/);
-	await expect(page.getByRole('heading', { name: 'Awaiting review' })).toBeVisible();
+	await expect(page.getByRole('heading', { name: 'Not yet submitted' })).toBeVisible();
 	await page.screenshot({ path: 'test-results/screens/pro-awaiting-review.png' });
 });
 

@@ -1,7 +1,10 @@
 import { expect, test, type Page } from '@playwright/test';
 import { formatMoney } from '../src/lib/leads';
-import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
-import { approvedNewContractor, bumpPlanRevision, insertPlan } from './pro-helpers';
+import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { approvedNewContractor, bumpPlanRevision, insertPlan, proMailLink } from './pro-helpers';
+
+// Long journeys on a shared machine: give each the time a slow run needs.
+test.describe.configure({ timeout: 300_000 });
 
 const inDays = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 
@@ -17,7 +20,7 @@ async function sendBid(page: Page, o: { total: string; days: string; labour?: st
 }
 
 test('a plan goes to two vetted contractors, both bid, the homeowner accepts one and they talk', async ({ page }) => {
-	test.setTimeout(120_000);
+	test.setTimeout(300_000);
 	const stamp = Date.now();
 	const pro = { name: 'Wes Harrow', email: uniqueEmail('bidder'), password: 'level-line-41', business: `Harrow Slabworks ${stamp}`, zip: '97321' };
 	await approvedNewContractor(page, pro);
@@ -45,13 +48,16 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	// The new contractor follows the e-mail to the lead: the plan, town and distance, no homeowner contact.
 	await signIn(page, pro.email, pro.password);
 	await expect(page).toHaveURL(/\/pro$/);
-	const leadLink = await mailLink(page, pro.email, /New lead near Albany, OR/);
+	const leadLink = await proMailLink(page, pro.email, /New lead near Albany, OR/);
 	await page.goto(leadLink);
 	await expect(page.getByRole('heading', { name: 'Back patio' })).toBeVisible();
 	await expect(page.getByText(/Albany, OR · 0(\.\d)? mi from you/)).toBeVisible();
 	await expect(page.getByTestId('lead-notes')).toHaveText('The side gate is 36 in wide.');
-	await expect(page.getByTestId('plan-figures')).toContainText(`${Math.round(area)} ft²`);
+	// The spec sheet opens the page; the DIY-only parts (bags, mixing by hand) are folded away.
+	await expect(page.getByTestId('spec-area')).toHaveText(`${Math.round(area)} ft²`);
 	const bags = result.bags[0];
+	await expect(page.getByTestId('plan-figures')).toBeHidden();
+	await page.getByText("The homeowner's full plan").click();
 	await expect(page.getByTestId('plan-figures')).toContainText(`${bags.count} × ${bags.size} ${bags.unit}`);
 	// The planner's own views draw the frozen result.
 	await expect(page.getByTestId('frozen-plan').getByRole('heading', { name: 'Outline, joints and pours' })).toBeVisible();
@@ -86,7 +92,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	// The homeowner compares and accepts.
 	await signIn(page, homeEmail, 'my-back-patio');
 	await expect(page).toHaveURL(/\/plans$/);
-	const bidMail = await mailLink(page, homeEmail, new RegExp(`New bid from ${pro.business}`));
+	const bidMail = await proMailLink(page, homeEmail, new RegExp(`New bid from ${pro.business}`));
 	expect(bidMail).toContain(`/plans/${planId}/bids`);
 	await page.goto(`/plans/${planId}/bids`);
 	const rows = page.getByTestId('bid-row');
@@ -103,11 +109,14 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	const diy = Math.round(result.materials.diyTotal.amount * 100);
 	await expect(mine.getByTestId('bid-vs-diy')).toHaveText(`${240_000 >= diy ? '+' : '−'}${formatMoney(Math.abs(240_000 - diy))}`);
 	await page.screenshot({ path: 'test-results/screens/bids-compare.png', fullPage: true });
-	await mine.getByRole('button', { name: 'Accept' }).click();
+	// Accepting asks first and says what follows.
+	await mine.getByText('Accept…').click();
+	await expect(mine.getByTestId('accept-bid')).toContainText('The other contractor is told they were not selected.');
+	await mine.getByRole('button', { name: 'Yes, accept this bid' }).click();
 	await expect(page.getByText('Bid accepted.')).toBeVisible();
 	await expect(mine.getByTestId('bid-status')).toHaveText('Accepted');
 	await expect(rows.filter({ hasText: 'Ridgeback Flatwork' }).getByTestId('bid-status')).toHaveText('Not selected');
-	await expect(page.getByRole('button', { name: 'Accept' })).toHaveCount(0);
+	await expect(page.getByText('Accept…')).toHaveCount(0);
 
 	await mine.getByRole('link', { name: pro.business }).click();
 	await expect(page.getByTestId('contractor-contact')).toContainText('(541) 555-0123');
@@ -129,7 +138,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await page.getByLabel('Write to Nell Quarry').fill('Saturday works. I will bring the forms on Friday.');
 	await page.getByRole('button', { name: 'Send the message' }).click();
 	await expect(page.getByTestId('messages')).toContainText('Saturday works.');
-	expect(await mailLink(page, pro.email, /bid near Albany, OR was accepted/)).toBe(leadUrl);
+	expect(await proMailLink(page, pro.email, /bid near Albany, OR was accepted/)).toBe(leadUrl);
 	await signOut(page);
 
 	await signIn(page, demoUser('contractor').email, demoPassword);
@@ -198,7 +207,7 @@ test('a contractor who has the plan learns of a newer revision and keeps seeing 
 
 	await signIn(page, demoUser('contractor').email, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
-	await page.goto(await mailLink(page, 'dell@ridgebackflatwork.example', /newer plan revision/));
+	await page.goto(await proMailLink(page, 'dell@ridgebackflatwork.example', /newer plan revision/));
 	await expect(page.getByRole('heading', { name: 'Shed pad', exact: true })).toBeVisible();
 	await expect(page.getByText('re-sent this plan as revision 2. This page shows revision 1')).toBeVisible();
 });
@@ -236,7 +245,8 @@ test.describe('without JavaScript', () => {
 		await expect(page).toHaveURL(/\/plans$/);
 		await page.goto(`/plans/${planId}/bids`);
 		const row = page.getByTestId('bid-row').filter({ hasText: 'Quarry Lane Slabs' });
-		await row.getByRole('button', { name: 'Accept' }).click();
+		await row.getByText('Accept…').click();
+		await row.getByRole('button', { name: 'Yes, accept this bid' }).click();
 		await expect(page.getByText('Bid accepted.')).toBeVisible();
 		await expect(page.getByTestId('bid-row').filter({ hasText: 'Quarry Lane Slabs' }).getByTestId('bid-status')).toHaveText('Accepted');
 		await page.getByRole('link', { name: 'Quarry Lane Slabs' }).click();

@@ -1,12 +1,15 @@
 import { expect, test } from '@playwright/test';
-import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
-import { fillProfile, pdf, pngCertificate } from './pro-helpers';
+import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { fillProfile, pdf, pngCertificate, proMailLink } from './pro-helpers';
+
+// Long journeys on a shared machine: give each the time a slow run needs.
+test.describe.configure({ timeout: 300_000 });
 
 test('a contractor onboards with documents, an admin approves, and only they two can open the documents', async ({ page }) => {
 	const email = uniqueEmail('vet');
 	const business = `Larkspur Flatwork ${Date.now()}`;
 	await signUp(page, { name: 'Tove Larkin', email, password: 'pour-day-sunny', role: 'contractor' });
-	await expect(page.getByRole('heading', { name: 'Awaiting review' })).toBeVisible();
+	await expect(page.getByRole('heading', { name: 'Not yet submitted' })).toBeVisible();
 	await page.getByRole('link', { name: 'Set up the business profile' }).click();
 	await expect(page.getByLabel('Contact person')).toHaveValue('Tove Larkin');
 
@@ -46,7 +49,7 @@ test('a contractor onboards with documents, an admin approves, and only they two
 	await expect(page.getByTestId('contractor-status')).toHaveText('Awaiting review');
 	await expect(page.getByRole('link', { name: 'insurance-certificate.png' })).toBeVisible();
 	expect((await page.request.get(licenceHref)).status()).toBe(200);
-	await page.getByRole('button', { name: 'Request changes' }).click();
+	await page.getByRole('button', { name: 'Send back' }).click();
 	await expect(page.locator('#field-reason-error')).toHaveText(/Say what the contractor needs to know/);
 	await page.getByRole('button', { name: 'Approve' }).click();
 	await expect(page.getByText('Saved. The contractor was e-mailed.')).toBeVisible();
@@ -62,7 +65,7 @@ test('a contractor onboards with documents, an admin approves, and only they two
 	await page.goto(`/admin/users?q=${encodeURIComponent(email)}&role=homeowner`);
 	await expect(page.getByTestId('users-table').getByRole('row')).toHaveCount(1);
 
-	const link = await mailLink(page, email, /pro account is approved/);
+	const link = await proMailLink(page, email, /pro account is approved/);
 	expect(link).toMatch(/\/pro$/);
 	await signOut(page);
 
@@ -93,19 +96,21 @@ test('a contractor onboards with documents, an admin approves, and only they two
 test.describe('without JavaScript', () => {
 	test.use({ javaScriptEnabled: false });
 
-	test('the profile form reports missing fields and documents, and a request for changes reaches the contractor', async ({ page }) => {
+	test('the profile form reports missing fields and documents, and the send-back loop is seen from both sides', async ({ page }) => {
+		test.setTimeout(300_000);
 		const email = uniqueEmail('nojs');
+		const business = `Brask Base & Form ${Date.now()}`;
 		await signUp(page, { name: 'Ivo Brask', email, password: 'plain-forms-ok', role: 'contractor' });
 		await page.goto('/pro/profile');
-		await page.getByLabel('Business name').fill('Brask Base & Form');
+		await page.getByLabel('Business name').fill(business);
 		await page.getByLabel('ZIP code').fill('00000');
 		await page.getByRole('button', { name: 'Send for review' }).click();
 		await expect(page.locator('#field-phone-error')).toHaveText('Enter a phone number with its area code.');
 		await expect(page.locator('#services-error')).toHaveText('Choose at least one service.');
 		await expect(page.locator('#field-licence-error')).toHaveText('Add your licence document.');
-		await expect(page.getByLabel('Business name')).toHaveValue('Brask Base & Form');
+		await expect(page.getByLabel('Business name')).toHaveValue(business);
 
-		await fillProfile(page, 'Brask Base & Form');
+		await fillProfile(page, business);
 		await page.getByLabel('ZIP code').fill('00000');
 		await page.getByLabel('Licence document').setInputFiles(pdf('brask-licence'));
 		await page.getByLabel('Insurance certificate').setInputFiles(pdf('brask-insurance'));
@@ -113,20 +118,54 @@ test.describe('without JavaScript', () => {
 		await expect(page.locator('#field-servicePostcode-error')).toHaveText('We do not know this ZIP code. Please check it.');
 		await page.getByLabel('ZIP code').fill('97321');
 		await page.getByLabel('Licence document').setInputFiles(pdf('brask-licence'));
-		await page.getByLabel('Insurance certificate').setInputFiles(pdf('brask-insurance'));
+		await page.getByLabel('Insurance certificate').setInputFiles(pdf('brask-licence'));
 		await page.getByRole('button', { name: 'Send for review' }).click();
 		await expect(page).toHaveURL(/\/pro$/);
 		await signOut(page);
 
-		await signIn(page, demoUser('admin').email, demoPassword);
-		await page.getByTestId('vetting-queue').getByRole('link', { name: 'Brask Base & Form' }).last().click();
+		// The queue shows its length on every admin page (the e-mail to every admin is checked in vetting.integration.spec.ts).
+		const admin = demoUser('admin').email;
+		await signIn(page, admin, demoPassword);
+		await page.goto('/admin/users');
+		expect(Number(await page.getByTestId('queue-count').textContent())).toBeGreaterThan(0);
+		await page.getByRole('link', { name: /Vetting queue/ }).click();
+		await page.getByTestId('vetting-queue').getByRole('link', { name: business }).click();
+		await expect(page.getByRole('heading', { name: business })).toBeVisible();
+		await expect(page.getByTestId('changes-since-review')).toHaveCount(0); // first review: everything is new
 		await page.getByLabel('Reason').fill('Please upload the insurance certificate, not the licence twice.');
-		await page.getByRole('button', { name: 'Request changes' }).click();
-		await expect(page.getByTestId('contractor-status')).toHaveText('Changes requested');
+		await page.getByRole('button', { name: 'Send back' }).click();
+		await expect(page.getByTestId('contractor-status')).toHaveText('Sent back: documents needed');
+		await expect(page.getByLabel('Reason')).toHaveValue(''); // the box clears after a decision
+		await signOut(page);
+
+		// The contractor follows the e-mail to the profile page, where the reason is.
+		await signIn(page, email, 'plain-forms-ok');
+		await expect(page.getByRole('heading', { name: 'Sent back: documents needed' })).toBeVisible();
+		await expect(page.getByTestId('status-reason')).toHaveText('Please upload the insurance certificate, not the licence twice.');
+		await page.goto(await proMailLink(page, email, /profile was sent back/));
+		await expect(page).toHaveURL(/\/pro\/profile$/);
+		await expect(page.getByTestId('sent-back')).toContainText('Please upload the insurance certificate, not the licence twice.');
+		await page.getByLabel('Insurance certificate').setInputFiles(pdf('brask-insurance'));
+		await page.getByLabel('Phone').fill('(541) 555-0177');
+		await page.getByRole('button', { name: 'Send for review again' }).click();
+		await expect(page).toHaveURL(/\/pro$/);
+		await expect(page.getByRole('heading', { name: 'Awaiting review' })).toBeVisible();
+		await signOut(page);
+
+		// The admin sees what changed since the send-back, and the replaced file as history.
+		await signIn(page, admin, demoPassword);
+		await page.getByTestId('vetting-queue').getByRole('link', { name: business }).click();
+		await expect(page.getByTestId('changes-since-review')).toContainText('Phone');
+		await expect(page.getByTestId('changes-since-review')).toContainText('New insurance certificate');
+		await expect(page.getByTestId('changes-since-review')).not.toContainText('Licence');
+		await expect(page.getByTestId('earlier-documents')).toContainText('Insurance certificate: brask-licence.pdf');
+		await expect(page.getByRole('link', { name: 'brask-insurance.pdf' })).toBeVisible();
+		await page.screenshot({ path: 'test-results/screens/admin-changes-since-review.png', fullPage: true });
+		await page.getByRole('button', { name: 'Approve' }).click();
+		await expect(page.getByTestId('contractor-status')).toHaveText('Approved');
 		await signOut(page);
 
 		await signIn(page, email, 'plain-forms-ok');
-		await expect(page.getByRole('heading', { name: 'Changes requested' })).toBeVisible();
-		await expect(page.getByTestId('status-reason')).toHaveText('Please upload the insurance certificate, not the licence twice.');
+		await expect(page.getByRole('heading', { name: 'Approved' })).toBeVisible();
 	});
 });

@@ -1,25 +1,90 @@
 import { describe, expect, it } from 'vitest';
-import { contractorStatuses, decisionsFrom, statusAfterEdit, vettingMoves } from './contractor-status';
+import { contractorStatuses, decisionMeta, decisionsFrom, decisionTarget, statusAfterEdit, vettingDecisions, type ContractorStatus, type VettingDecision } from './contractor-status';
 
-describe('contractor status', () => {
-	it('goes back to review when an approved account changes licence or insurance, not otherwise', () => {
-		expect(statusAfterEdit('approved', true)).toBe('awaiting_review');
-		expect(statusAfterEdit('approved', false)).toBe('approved');
-	});
+// Written out by hand, one row per status, one column per decision; null = refused.
+// Reinstate is tested separately below because its target depends on what the suspension remembers.
+const expected: Record<ContractorStatus, Record<Exclude<VettingDecision, 'reinstate'>, ContractorStatus | null>> = {
+	draft: { approve: null, send_back: null, suspend: 'suspended' },
+	awaiting_review: { approve: 'approved', send_back: 'sent_back', suspend: 'suspended' },
+	approved: { approve: null, send_back: 'sent_back', suspend: 'suspended' },
+	sent_back: { approve: null, send_back: null, suspend: 'suspended' },
+	suspended: { approve: null, send_back: null, suspend: null }
+};
+const clean = { before: null, credentialsChanged: false };
 
-	it('returns a changes-requested account to review on any save, and keeps a suspension', () => {
-		expect(statusAfterEdit('changes_requested', false)).toBe('awaiting_review');
-		expect(statusAfterEdit('suspended', true)).toBe('suspended');
-		expect(statusAfterEdit('awaiting_review', true)).toBe('awaiting_review');
-	});
+describe('vetting decisions, every (status, decision) pair', () => {
+	for (const status of contractorStatuses) {
+		for (const decision of vettingDecisions.filter((d) => d !== 'reinstate') as Exclude<VettingDecision, 'reinstate'>[]) {
+			it(`${status} × ${decision} → ${expected[status][decision] ?? 'refused'}`, () => {
+				expect(decisionTarget(status, decision, clean)).toBe(expected[status][decision]);
+			});
+		}
+		if (status !== 'suspended') {
+			it(`${status} × reinstate → refused`, () => {
+				expect(decisionTarget(status, 'reinstate', { before: 'approved', credentialsChanged: false })).toBeNull();
+			});
+		}
+	}
 
-	it('offers the decisions that fit each state', () => {
+	// suspended × reinstate: back where the account stood, or to review when credentials changed.
+	const reinstate: [ContractorStatus | null, boolean, ContractorStatus][] = [
+		['draft', false, 'draft'], // never submitted stays never submitted: a suspension is no shortcut to approval
+		['draft', true, 'awaiting_review'], // submitted during the suspension: first submission goes to the queue
+		['awaiting_review', false, 'awaiting_review'],
+		['awaiting_review', true, 'awaiting_review'],
+		['approved', false, 'approved'],
+		['approved', true, 'awaiting_review'], // new licence or insurance nobody has checked
+		['sent_back', false, 'sent_back'],
+		['sent_back', true, 'awaiting_review'],
+		[null, false, 'awaiting_review'] // a suspension that remembers nothing goes to the queue, never to approved
+	];
+	for (const [before, changed, to] of reinstate) {
+		it(`suspended (from ${before ?? 'unknown'}${changed ? ', credentials changed' : ''}) × reinstate → ${to}`, () => {
+			expect(decisionTarget('suspended', 'reinstate', { before, credentialsChanged: changed })).toBe(to);
+		});
+	}
+
+	it('offers exactly the decisions the table allows, and asks a reason for send back and suspend only', () => {
 		expect(Object.fromEntries(contractorStatuses.map((s) => [s, decisionsFrom(s)]))).toEqual({
-			awaiting_review: ['approve', 'request_changes', 'suspend'],
-			approved: ['request_changes', 'suspend'],
-			changes_requested: ['suspend'],
+			draft: ['suspend'],
+			awaiting_review: ['approve', 'send_back', 'suspend'],
+			approved: ['send_back', 'suspend'],
+			sent_back: ['suspend'],
 			suspended: ['reinstate']
 		});
-		expect(vettingMoves.request_changes.reason && vettingMoves.suspend.reason).toBe(true);
+		expect(vettingDecisions.filter((d) => decisionMeta[d].reason)).toEqual(['send_back', 'suspend']);
+	});
+
+	it('reaches approved only by approving an account awaiting review, or reinstating an approved one untouched', () => {
+		const ways = new Set<string>();
+		for (const s of contractorStatuses)
+			for (const d of vettingDecisions)
+				for (const before of [null, ...contractorStatuses])
+					for (const changed of [false, true])
+						if (decisionTarget(s, d, { before, credentialsChanged: changed }) === 'approved') ways.add(d === 'reinstate' ? `${s}:${d}:${before}:${changed}` : `${s}:${d}`);
+		expect([...ways].sort()).toEqual(['awaiting_review:approve', 'suspended:reinstate:approved:false']);
+	});
+});
+
+describe('profile saves, every (status, credentials changed or not) pair', () => {
+	const expectedEdit: [ContractorStatus, boolean, ContractorStatus][] = [
+		['draft', false, 'awaiting_review'], // the first submission always enters the queue
+		['draft', true, 'awaiting_review'],
+		['awaiting_review', false, 'awaiting_review'],
+		['awaiting_review', true, 'awaiting_review'],
+		['approved', false, 'approved'], // a new phone number needs no review
+		['approved', true, 'awaiting_review'],
+		['sent_back', false, 'awaiting_review'], // answering a send-back returns to the queue
+		['sent_back', true, 'awaiting_review'],
+		['suspended', false, 'suspended'], // only an admin lifts a suspension
+		['suspended', true, 'suspended']
+	];
+	for (const [from, changed, to] of expectedEdit) {
+		it(`${from} + save${changed ? ' with new credentials' : ''} → ${to}`, () => {
+			expect(statusAfterEdit(from, changed)).toBe(to);
+		});
+	}
+	it('covers every status', () => {
+		expect(new Set(expectedEdit.map(([s]) => s))).toEqual(new Set(contractorStatuses));
 	});
 });

@@ -1,35 +1,75 @@
-/** A contractor account's vetting states and the admin decisions that move between them. */
-export const contractorStatuses = ['awaiting_review', 'approved', 'changes_requested', 'suspended'] as const;
+/**
+ * A contractor account's vetting states and every way between them, as two tables: the admin's
+ * decisions and the contractor's own profile saves. Nothing else changes a status.
+ */
+export const contractorStatuses = ['draft', 'awaiting_review', 'approved', 'sent_back', 'suspended'] as const;
 export type ContractorStatus = (typeof contractorStatuses)[number];
 
 export const statusLabels: Record<ContractorStatus, string> = {
+	draft: 'Not yet submitted',
 	awaiting_review: 'Awaiting review',
 	approved: 'Approved',
-	changes_requested: 'Changes requested',
+	sent_back: 'Sent back: documents needed',
 	suspended: 'Suspended'
 };
 
-export const vettingDecisions = ['approve', 'request_changes', 'suspend', 'reinstate'] as const;
+export const vettingDecisions = ['approve', 'send_back', 'suspend', 'reinstate'] as const;
 export type VettingDecision = (typeof vettingDecisions)[number];
 
-/** From which states each decision may be taken, where it leads, and whether it needs a reason. */
-export const vettingMoves: Record<VettingDecision, { from: readonly ContractorStatus[]; to: ContractorStatus; reason: boolean; label: string }> = {
-	approve: { from: ['awaiting_review'], to: 'approved', reason: false, label: 'Approve' },
-	request_changes: { from: ['awaiting_review', 'approved'], to: 'changes_requested', reason: true, label: 'Request changes' },
-	suspend: { from: ['awaiting_review', 'approved', 'changes_requested'], to: 'suspended', reason: true, label: 'Suspend' },
-	reinstate: { from: ['suspended'], to: 'approved', reason: false, label: 'Reinstate' }
+/** Button label, and whether the decision needs a reason the contractor will read. */
+export const decisionMeta: Record<VettingDecision, { label: string; reason: boolean }> = {
+	approve: { label: 'Approve', reason: false },
+	send_back: { label: 'Send back', reason: true },
+	suspend: { label: 'Suspend', reason: true },
+	reinstate: { label: 'Reinstate', reason: false }
 };
 
-export const decisionsFrom = (status: ContractorStatus) => vettingDecisions.filter((d) => vettingMoves[d].from.includes(status));
+/** `restore`: back to where the account stood when it was suspended (see `decisionTarget`). */
+type DecisionCell = ContractorStatus | 'restore';
 
 /**
- * The status after a contractor saves the profile. A changed licence or insurance needs a fresh
- * look, so an approved account goes back to review; answering a change request sends it back too.
- * A suspension stays until an admin lifts it.
+ * Status × decision. A missing cell is a refused decision. Only an account awaiting review can be
+ * approved, so nobody is approved without an admin looking at what they submitted last.
  */
-export function statusAfterEdit(current: ContractorStatus, credentialsChanged: boolean): ContractorStatus {
-	if (current === 'suspended') return 'suspended';
-	if (current === 'changes_requested') return 'awaiting_review';
-	if (current === 'approved') return credentialsChanged ? 'awaiting_review' : 'approved';
-	return 'awaiting_review';
+export const decisionTable: Record<ContractorStatus, Partial<Record<VettingDecision, DecisionCell>>> = {
+	draft: { suspend: 'suspended' },
+	awaiting_review: { approve: 'approved', send_back: 'sent_back', suspend: 'suspended' },
+	approved: { send_back: 'sent_back', suspend: 'suspended' },
+	sent_back: { suspend: 'suspended' },
+	suspended: { reinstate: 'restore' }
+};
+
+/** What a suspension remembers so that reinstating it cannot skip the review. */
+export type SuspensionMemory = { before: ContractorStatus | null; credentialsChanged: boolean };
+
+/**
+ * Where `decision` takes an account in `current`, or null when the table refuses it. Reinstating
+ * returns to the status before the suspension; to review instead when the licence or insurance
+ * changed during the suspension, since nobody has looked at the new ones.
+ */
+export function decisionTarget(current: ContractorStatus, decision: VettingDecision, memory: SuspensionMemory): ContractorStatus | null {
+	const cell = decisionTable[current][decision];
+	if (!cell) return null;
+	if (cell !== 'restore') return cell;
+	if (memory.credentialsChanged) return 'awaiting_review';
+	// A suspension from before this table existed remembers nothing: the safe place is the queue.
+	return memory.before && memory.before !== 'suspended' ? memory.before : 'awaiting_review';
 }
+
+export const decisionsFrom = (status: ContractorStatus) => vettingDecisions.filter((d) => decisionTable[status][d]);
+
+/**
+ * Status × profile save (same credentials / changed licence or insurance). The first save is the
+ * submission and always enters the queue; a sent-back profile returns to it on any save; an
+ * approved one only when the credentials changed. A suspension stays until an admin lifts it.
+ */
+export const editTable: Record<ContractorStatus, { same: ContractorStatus; credentials: ContractorStatus }> = {
+	draft: { same: 'awaiting_review', credentials: 'awaiting_review' },
+	awaiting_review: { same: 'awaiting_review', credentials: 'awaiting_review' },
+	approved: { same: 'approved', credentials: 'awaiting_review' },
+	sent_back: { same: 'awaiting_review', credentials: 'awaiting_review' },
+	suspended: { same: 'suspended', credentials: 'suspended' }
+};
+
+export const statusAfterEdit = (current: ContractorStatus, credentialsChanged: boolean): ContractorStatus =>
+	editTable[current][credentialsChanged ? 'credentials' : 'same'];

@@ -1,5 +1,5 @@
 /** Lead and bid states, shared by the pages of both sides. */
-export const leadStatuses = ['new', 'viewed', 'bid_sent', 'declined', 'won', 'not_selected', 'withdrawn'] as const;
+export const leadStatuses = ['new', 'viewed', 'bid_sent', 'declined', 'won', 'not_selected', 'withdrawn', 'released'] as const;
 export type LeadStatus = (typeof leadStatuses)[number];
 export const leadStatusLabels: Record<LeadStatus, string> = {
 	new: 'New',
@@ -8,12 +8,20 @@ export const leadStatusLabels: Record<LeadStatus, string> = {
 	declined: 'Declined',
 	won: 'Won',
 	not_selected: 'Not selected',
-	withdrawn: 'Withdrawn'
+	withdrawn: 'Withdrawn',
+	released: 'Released during suspension'
 };
 
-export const bidStatuses = ['open', 'accepted', 'not_selected', 'withdrawn'] as const;
+/** `released`: the homeowner reopened bidding while the accepted contractor's account was suspended. */
+export const bidStatuses = ['open', 'accepted', 'not_selected', 'withdrawn', 'released'] as const;
 export type BidStatus = (typeof bidStatuses)[number];
-export const bidStatusLabels: Record<BidStatus, string> = { open: 'Open', accepted: 'Accepted', not_selected: 'Not selected', withdrawn: 'Withdrawn' };
+export const bidStatusLabels: Record<BidStatus, string> = {
+	open: 'Open',
+	accepted: 'Accepted',
+	not_selected: 'Not selected',
+	withdrawn: 'Withdrawn',
+	released: 'Released during suspension'
+};
 
 export const timeframes = ['soon', 'within_month', 'within_season', 'flexible'] as const;
 export type Timeframe = (typeof timeframes)[number];
@@ -22,6 +30,33 @@ export const timeframeLabels: Record<Timeframe, string> = {
 	within_month: 'Within a month',
 	within_season: 'This season',
 	flexible: 'No fixed date'
+};
+
+/** The latest day the homeowner wants the work done by, from the day the plan was sent; null = no fixed date. */
+export const timeframeDays: Record<Timeframe, number | null> = { soon: 14, within_month: 31, within_season: 90, flexible: null };
+export function wantedBy(sentAt: Date, timeframe: Timeframe): string | null {
+	const days = timeframeDays[timeframe];
+	return days === null ? null : new Date(sentAt.getTime() + days * 86_400_000).toISOString().slice(0, 10);
+}
+
+/** The surface finish the homeowner asks for. */
+export const finishes = ['broom', 'float', 'trowel', 'decide_with_contractor'] as const;
+export type Finish = (typeof finishes)[number];
+export const finishLabels: Record<Finish, string> = {
+	broom: 'Broom finish (non-slip)',
+	float: 'Float finish',
+	trowel: 'Smooth trowel finish',
+	decide_with_contractor: 'To decide with the contractor'
+};
+
+/** What covers the ground now and must come out before the forms go in. */
+export const existingSurfaces = ['grass_soil', 'gravel', 'pavers', 'old_concrete'] as const;
+export type ExistingSurface = (typeof existingSurfaces)[number];
+export const existingSurfaceLabels: Record<ExistingSurface, string> = {
+	grass_soil: 'Grass or bare soil (strip sod and topsoil)',
+	gravel: 'Gravel',
+	pavers: 'Pavers or flagstones',
+	old_concrete: 'Old concrete (break out and haul away)'
 };
 
 export const lineItemKinds = ['labour', 'materials', 'base', 'forms', 'removal', 'other'] as const;

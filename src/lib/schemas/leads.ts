@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { lineItemKinds, MAX_CONTRACTORS_PER_SEND, timeframes } from '$lib/leads';
+import { existingSurfaces, finishes, lineItemKinds, MAX_CONTRACTORS_PER_SEND, timeframes } from '$lib/leads';
 import { serviceKinds, wholeNumber } from './contractor';
 
 const uuid = z.uuid('Unknown contractor.');
@@ -8,6 +8,9 @@ export const getBidsSchema = z.object({
 	scope: z.enum(serviceKinds, { error: 'Choose what you want done.' }),
 	timeframe: z.enum(timeframes, { error: 'Choose when the work should happen.' }),
 	notes: z.string().trim().max(2000, 'Use at most 2000 characters.').default(''),
+	finish: z.enum(finishes, { error: 'Choose a finish.' }).default('broom'),
+	existingSurface: z.enum(existingSurfaces, { error: 'Choose what is there now.' }).default('grass_soil'),
+	siteAccess: z.string().trim().max(500, 'Use at most 500 characters.').default(''),
 	contractors: z
 		.array(uuid)
 		.min(1, 'Choose at least one contractor.')

@@ -39,10 +39,10 @@ describe('users', () => {
 		expect(rows.map((r) => r.name)).toEqual(['First']);
 	});
 
-	it('start contractors awaiting review', async () => {
+	it('start contractors as not yet submitted: the first profile save puts them in the review queue', async () => {
 		const u = await createUser({ name: 'Formwright', email: unique('pro'), password: 'contractor-pass', role: 'contractor' });
 		const [c] = await db.select().from(contractor).where(eq(contractor.userId, u.id));
-		expect(c.status).toBe('awaiting_review');
+		expect(c.status).toBe('draft');
 	});
 });
 

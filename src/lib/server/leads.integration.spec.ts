@@ -8,6 +8,8 @@ import { bid, contractor, lead, mailOutbox, plan, planPhoto } from './db/schema'
 import {
 	acceptBid,
 	announceRevision,
+	reopenBidding,
+	tellHomeownersOfContractorChange,
 	contractorLead,
 	declineLead,
 	LeadRefused,
@@ -76,6 +78,7 @@ const bidInput = (dollars: number) => ({
 	notes: ''
 });
 const ids = (rows: { id: string }[]) => rows.map((r) => r.id);
+const status = async (id: string) => (await db.select({ s: contractor.status }).from(contractor).where(eq(contractor.userId, id)))[0].s;
 
 describe('matching', () => {
 	it('finds approved contractors whose radius covers the plan, nearest first, in miles or km, for the chosen work', async () => {
@@ -206,7 +209,7 @@ describe('leads', () => {
 		expect(await db.select().from(plan).where(eq(plan.id, p.id))).toHaveLength(1);
 	});
 
-	it('refuse an expired or withdrawn bid, and a suspension withdraws open bids', async () => {
+	it('refuse an expired or withdrawn bid; withdrawing tells the homeowner and closes the thread', async () => {
 		const [a, b] = await Promise.all(['Gale', 'Hazel'].map((n) => approvedContractor(n, { postcode: HOME_ZIP, radius: 10, unit: 'mi' })));
 		const { owner, plan: p } = await homeownerWithPlan();
 		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [a.id, b.id] }, origin);
@@ -219,12 +222,122 @@ describe('leads', () => {
 		await expect(acceptBid(owner.id, p.id, expired.id, origin)).rejects.toThrow(/valid until 2020-01-01/);
 
 		await saveBid(b.id, lb.id, bidInput(1700), origin);
-		const admin = await createUser({ name: 'Ivy Admin', email: unique('admin'), password: 'admin-password', role: 'admin' });
-		await decide(admin, b.id, 'suspend', 'Licence lapsed.', origin);
+		expect(await withdrawBid(b.id, lb.id, origin)).toBe(true);
 		expect((await db.select().from(bid).where(eq(bid.leadId, lb.id)))[0].status).toBe('withdrawn');
 		expect((await db.select().from(lead).where(eq(lead.id, lb.id)))[0].status).toBe('withdrawn');
-		await expect(withdrawBid(b.id, lb.id)).rejects.toThrow(/no open bid/);
-		await expect(saveBid(b.id, lb.id, bidInput(1700), origin)).rejects.toThrow(/approved/);
+		const told = await mailsTo(owner.email);
+		expect(told.filter((m) => /withdrew their bid/.test(m.subject))).toHaveLength(1);
+		await expect(withdrawBid(b.id, lb.id, origin)).rejects.toThrow(/no open bid/);
+		await expect(saveBid(b.id, lb.id, bidInput(1700), origin)).rejects.toThrow(/closed/);
+		// The thread stays readable but takes no new messages from either side.
+		await expect(postMessage({ ...b, role: 'contractor' }, lb.id, 'One more thing', origin)).rejects.toThrow(/read|closed/);
+		await expect(postMessage({ ...owner, role: 'homeowner' }, lb.id, 'Why?', origin)).rejects.toBeInstanceOf(LeadRefused);
+	});
+});
+
+const mailsTo = (to: string) => db.select().from(mailOutbox).where(eq(mailOutbox.to, to)).orderBy(mailOutbox.createdAt);
+
+describe('suspension and reinstatement', () => {
+	it('tell each homeowner with an open or accepted bid that Stakeline suspended the contractor, withdraw nothing, and restore open leads on reinstatement', async () => {
+		const admin = await createUser({ name: 'Ivy Admin', email: unique('admin'), password: 'admin-password', role: 'admin' });
+		const c = await approvedContractor('Quill', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const other = await approvedContractor('Rook', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		// Homeowner A: an open bid from c. Homeowner B: c's bid accepted, Rook not selected. Homeowner C: a lead c declined.
+		const a = await homeownerWithPlan();
+		const b = await homeownerWithPlan();
+		const d = await homeownerWithPlan();
+		await sendLeads(a.owner, a.plan.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id] }, origin);
+		await sendLeads(b.owner, b.plan.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id, other.id] }, origin);
+		await sendLeads(d.owner, d.plan.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id] }, origin);
+		const leadOf = async (planId: string, who: string) => (await db.select().from(lead).where(and(eq(lead.planId, planId), eq(lead.contractorId, who))))[0];
+		const la = await leadOf(a.plan.id, c.id);
+		const lb = await leadOf(b.plan.id, c.id);
+		const lbOther = await leadOf(b.plan.id, other.id);
+		await saveBid(c.id, la.id, bidInput(1800), origin);
+		await saveBid(c.id, lb.id, bidInput(2100), origin);
+		await saveBid(other.id, lbOther.id, bidInput(2300), origin);
+		await declineLead(c.id, (await leadOf(d.plan.id, c.id)).id, 'Too far for us.');
+		const [won] = await db.select().from(bid).where(eq(bid.leadId, lb.id));
+		await acceptBid(b.owner.id, b.plan.id, won.id, origin);
+
+		await decide(admin, c.id, 'suspend', 'A complaint to look into.', origin);
+		// Nothing is withdrawn: the bids keep their state, and the open one simply cannot be accepted.
+		expect((await db.select().from(bid).where(eq(bid.leadId, la.id)))[0].status).toBe('open');
+		expect((await leadOf(a.plan.id, c.id)).status).toBe('bid_sent');
+		expect((await db.select().from(bid).where(eq(bid.leadId, lb.id)))[0].status).toBe('accepted');
+		const [openBid] = await db.select().from(bid).where(eq(bid.leadId, la.id));
+		await expect(acceptBid(a.owner.id, a.plan.id, openBid.id, origin)).rejects.toThrow(/not approved/);
+
+		const toA = (await mailsTo(a.owner.email)).filter((m) => /suspended for now/.test(m.subject));
+		const toB = (await mailsTo(b.owner.email)).filter((m) => /suspended for now/.test(m.subject));
+		expect(toA).toHaveLength(1);
+		expect(toB).toHaveLength(1);
+		expect(toA[0].text).toContain('the contractor did not withdraw');
+		expect(toA[0].text).not.toMatch(/withdrew/);
+		expect(toA[0].text).toContain('cannot be accepted until the account is active again');
+		expect(toB[0].text).toContain('the job is on hold');
+		expect(toB[0].text).toContain('reopen bidding');
+		expect(toA[0].text).toContain(`${origin}/plans/${a.plan.id}/bids`);
+		// The declined lead's homeowner has nothing at stake and hears nothing.
+		expect((await mailsTo(d.owner.email)).filter((m) => /suspended/.test(m.subject))).toHaveLength(0);
+
+		await decide(admin, c.id, 'reinstate', null, origin);
+		expect((await status(c.id))).toBe('approved');
+		expect((await leadOf(a.plan.id, c.id)).status).toBe('bid_sent');
+		expect((await acceptBid(a.owner.id, a.plan.id, openBid.id, origin))).toBe(true);
+		for (const who of [a.owner.email, b.owner.email]) expect((await mailsTo(who)).filter((m) => /is active again/.test(m.subject))).toHaveLength(1);
+		const toContractor = (await mailsTo(c.email)).filter((m) => /active again/.test(m.subject));
+		expect(toContractor[0].text).toContain('your leads that are still open are back on your desk');
+	});
+
+	it('let the homeowner of an accepted job reopen bidding while the contractor is suspended, and tell both contractors', async () => {
+		const admin = await createUser({ name: 'Ivy Admin', email: unique('admin'), password: 'admin-password', role: 'admin' });
+		const c = await approvedContractor('Sable', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const other = await approvedContractor('Teal', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const { owner, plan: p } = await homeownerWithPlan();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id, other.id] }, origin);
+		const leads = await db.select().from(lead).where(eq(lead.planId, p.id));
+		const lc = leads.find((l) => l.contractorId === c.id)!;
+		const lo = leads.find((l) => l.contractorId === other.id)!;
+		await saveBid(c.id, lc.id, bidInput(2000), origin);
+		await saveBid(other.id, lo.id, bidInput(2200), origin);
+		await acceptBid(owner.id, p.id, (await db.select().from(bid).where(eq(bid.leadId, lc.id)))[0].id, origin);
+		await expect(reopenBidding(owner.id, p.id, origin)).rejects.toThrow(/good standing/);
+
+		await decide(admin, c.id, 'suspend', 'A complaint to look into.', origin);
+		expect(await reopenBidding(owner.id, p.id, origin)).toEqual({ reopened: 1 });
+		const byLead = async (id: string) => [(await db.select().from(bid).where(eq(bid.leadId, id)))[0].status, (await db.select().from(lead).where(eq(lead.id, id)))[0].status];
+		expect(await byLead(lc.id)).toEqual(['released', 'released']);
+		expect(await byLead(lo.id)).toEqual(['open', 'bid_sent']);
+		expect((await mailsTo(c.email)).filter((m) => /was released/.test(m.subject))).toHaveLength(1);
+		expect((await mailsTo(other.email)).filter((m) => /Bidding reopened/.test(m.subject))).toHaveLength(1);
+		// The reopened bid can now be accepted.
+		expect(await acceptBid(owner.id, p.id, (await db.select().from(bid).where(eq(bid.leadId, lo.id)))[0].id, origin)).toBe(true);
+	});
+});
+
+describe('notices', () => {
+	it('are written in the transaction of the change they report: rolled back with it, kept with its commit', async () => {
+		const c = await approvedContractor('Umber', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const { owner, plan: p } = await homeownerWithPlan();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id] }, origin);
+		const [l] = await db.select().from(lead).where(eq(lead.planId, p.id));
+		await saveBid(c.id, l.id, bidInput(1500), origin);
+		const before = (await mailsTo(owner.email)).length;
+		// A crash after the notices were written and before the commit: neither change nor notice survives.
+		await expect(
+			db.transaction(async (tx) => {
+				await tx.update(contractor).set({ status: 'suspended' }).where(eq(contractor.userId, c.id));
+				expect(await tellHomeownersOfContractorChange(tx, c.id, 'Umber', 'suspended', origin)).toBe(1);
+				throw new Error('crash before commit');
+			})
+		).rejects.toThrow('crash before commit');
+		expect(await mailsTo(owner.email)).toHaveLength(before);
+		expect(await status(c.id)).toBe('approved');
+		await db.transaction(async (tx) => {
+			await tellHomeownersOfContractorChange(tx, c.id, 'Umber', 'suspended', origin);
+		});
+		expect(await mailsTo(owner.email)).toHaveLength(before + 1);
 	});
 });
 

@@ -2,11 +2,22 @@ import { and, asc, count, desc, eq, gt, inArray, ne, notInArray, sql, type SQL }
 import { isExpired, type LeadStatus } from '$lib/leads';
 import type { BidInput } from '$lib/schemas/leads';
 import type { ServiceKind } from '$lib/schemas/contractor';
-import type { Timeframe } from '$lib/leads';
+import type { ExistingSurface, Finish, Timeframe } from '$lib/leads';
 import { db } from '$lib/server/db';
 import { bid, contractor, lead, leadMessage, plan, planPhoto, user } from '$lib/server/db/schema';
-import { queueMail } from './mail';
-import { bidDecisionMail, newBidMail, newerRevisionMail, newLeadMail, newMessageMail } from './mail/pro-notices';
+import { deliverSoon, queueMail } from './mail';
+import {
+	bidDecisionMail,
+	biddingReopenedMail,
+	bidWithdrawnMail,
+	contractorActiveAgainMail,
+	contractorPausedMail,
+	jobReleasedMail,
+	newBidMail,
+	newerRevisionMail,
+	newLeadMail,
+	newMessageMail
+} from './mail/pro-notices';
 import { matchContractors, placeOf } from './matching';
 
 /** A step that does not fit the lead's or bid's state; the message says why. */
@@ -17,7 +28,13 @@ type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 const leadUrl = (origin: string, leadId: string) => `${origin}/pro/leads/${leadId}`;
 const bidsUrl = (origin: string, planId: string) => `${origin}/plans/${planId}/bids`;
-const CLOSED: LeadStatus[] = ['declined', 'won', 'not_selected', 'withdrawn'];
+const CLOSED: LeadStatus[] = ['declined', 'won', 'not_selected', 'withdrawn', 'released'];
+
+/** Name and e-mail of each lead's contractor, with the lead's town, in one query. */
+const leadContractors = (tx: Tx, leadIds: string[]) =>
+	leadIds.length
+		? tx.select({ leadId: lead.id, town: lead.town, name: user.name, email: user.email }).from(lead).innerJoin(user, eq(user.id, lead.contractorId)).where(inArray(lead.id, leadIds))
+		: Promise.resolve([]);
 
 /**
  * Sends the plan to the chosen contractors. Each lead freezes the plan's current revision and a
@@ -27,7 +44,7 @@ const CLOSED: LeadStatus[] = ['declined', 'won', 'not_selected', 'withdrawn'];
 export async function sendLeads(
 	owner: Actor,
 	planId: string,
-	input: { scope: ServiceKind; timeframe: Timeframe; notes: string; contractors: string[] },
+	input: { scope: ServiceKind; timeframe: Timeframe; notes: string; finish?: Finish; existingSurface?: ExistingSurface; siteAccess?: string; contractors: string[] },
 	origin: string
 ) {
 	const out = await db.transaction(async (tx) => {
@@ -48,6 +65,9 @@ export async function sendLeads(
 					scope: input.scope,
 					timeframe: input.timeframe,
 					notes: input.notes,
+					finish: input.finish,
+					existingSurface: input.existingSurface,
+					siteAccess: input.siteAccess,
 					planRevision: p.revision,
 					latestRevision: p.revision,
 					snapshot: { name: p.name, postcode: p.postcode, input: p.input, result: p.result, photoIds },
@@ -57,14 +77,12 @@ export async function sendLeads(
 			)
 			.onConflictDoNothing({ target: [lead.planId, lead.contractorId] })
 			.returning({ id: lead.id });
-		return { created: rows.map((r) => r.id), town: place.town, planName: p.name };
+		for (const to of await leadContractors(tx, rows.map((r) => r.id)))
+			await queueMail(to.email, newLeadMail(to.name, place.town, p.name, leadUrl(origin, to.leadId)), tx);
+		return { created: rows.length };
 	});
-	if (!out) return null;
-	for (const id of out.created) {
-		const [to] = await leadContractor(id);
-		await queueMail(to.email, newLeadMail(to.name, out.town, out.planName, leadUrl(origin, id)));
-	}
-	return { created: out.created.length };
+	deliverSoon();
+	return out;
 }
 
 /**
@@ -79,15 +97,13 @@ export async function announceRevision(owner: Actor, planId: string, origin: str
 			.update(lead)
 			.set({ latestRevision: p.revision, updatedAt: new Date() })
 			.where(and(eq(lead.planId, planId), sql`${lead.latestRevision} < ${p.revision}`, notInArray(lead.status, CLOSED)))
-			.returning({ id: lead.id, town: lead.town });
-		return { rows, revision: p.revision };
+			.returning({ id: lead.id });
+		for (const to of await leadContractors(tx, rows.map((r) => r.id)))
+			await queueMail(to.email, newerRevisionMail(to.name, to.town ?? 'you', p.revision, leadUrl(origin, to.leadId)), tx);
+		return rows.length;
 	});
-	if (!out) return null;
-	for (const r of out.rows) {
-		const [to] = await leadContractor(r.id);
-		await queueMail(to.email, newerRevisionMail(to.name, r.town ?? 'you', out.revision, leadUrl(origin, r.id)));
-	}
-	return out.rows.length;
+	deliverSoon();
+	return out;
 }
 
 /** The owner's plan, locked against a concurrent accept; refused once a bid is accepted. */
@@ -99,9 +115,6 @@ async function lockOpenPlan(tx: Tx, ownerId: string, planId: string) {
 	return p;
 }
 
-const leadContractor = (leadId: string) =>
-	db.select({ name: user.name, email: user.email }).from(lead).innerJoin(user, eq(user.id, lead.contractorId)).where(eq(lead.id, leadId));
-
 /** Messages in `leadId`'s thread the viewer has not read: sent by the other side after the viewer last looked. */
 const unreadFor = (side: 'homeowner' | 'contractor') =>
 	sql<number>`(select count(*)::int from ${leadMessage} m where m.lead_id = ${lead.id}
@@ -112,7 +125,7 @@ const unreadFor = (side: 'homeowner' | 'contractor') =>
 export async function leadsForPlan(planId: string) {
 	return db
 		.select({
-			lead: { id: lead.id, contractorId: lead.contractorId, status: lead.status, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
+			lead: { id: lead.id, contractorId: lead.contractorId, status: lead.status, scope: lead.scope, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
 			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade, status: contractor.status },
 			bid,
 			unread: unreadFor('homeowner')
@@ -151,15 +164,12 @@ export async function acceptBid(ownerId: string, planId: string, bidId: string, 
 			.set({ status: 'not_selected', updatedAt: now })
 			.where(and(eq(lead.planId, planId), ne(lead.id, b.leadId), notInArray(lead.status, ['declined', 'withdrawn'])))
 			.returning({ id: lead.id });
-		return { winner: b.leadId, others: others.map((o) => o.id) };
+		for (const to of await leadContractors(tx, [b.leadId, ...others.map((o) => o.id)]))
+			await queueMail(to.email, bidDecisionMail(to.name, to.leadId === b.leadId, to.town ?? 'you', leadUrl(origin, to.leadId)), tx);
+		return true;
 	});
-	if (!out) return false;
-	for (const id of [out.winner, ...out.others]) {
-		const [to] = await leadContractor(id);
-		const [{ town }] = await db.select({ town: lead.town }).from(lead).where(eq(lead.id, id));
-		await queueMail(to.email, bidDecisionMail(to.name, id === out.winner, town ?? 'you', leadUrl(origin, id)));
-	}
-	return true;
+	deliverSoon();
+	return !!out;
 }
 
 /** The contractor's inbox: their leads only, optionally of one status, newest first. */
@@ -240,7 +250,7 @@ export async function saveBid(contractorId: string, leadId: string, input: BidIn
 	const out = await db.transaction(async (tx) => {
 		const c = await requireApproved(tx, contractorId);
 		const locked = await lockOwnLead(tx, contractorId, leadId);
-		if (!locked) return null;
+		if (!locked) return false;
 		if (CLOSED.includes(locked.lead.status)) throw new LeadRefused('This lead is closed; the bid cannot change.');
 		if (locked.bid && locked.bid.status !== 'open') throw new LeadRefused('This bid is no longer open.');
 		if (locked.bid && isExpired(locked.bid.validUntil)) throw new LeadRefused('This bid has expired; it can no longer be changed.');
@@ -248,23 +258,31 @@ export async function saveBid(contractorId: string, leadId: string, input: BidIn
 		if (locked.bid) await tx.update(bid).set({ ...input, updatedAt: now }).where(eq(bid.id, locked.bid.id));
 		else await tx.insert(bid).values({ ...input, leadId, planId: locked.lead.planId, contractorId });
 		await tx.update(lead).set({ status: 'bid_sent', updatedAt: now }).where(eq(lead.id, leadId));
-		return { updated: !!locked.bid, lead: locked.lead, business: c.businessName ?? 'A contractor' };
+		const home = await homeownerOf(tx, locked.lead.homeownerId);
+		await queueMail(home.email, newBidMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, !!locked.bid, bidsUrl(origin, locked.lead.planId)), tx);
+		return true;
 	});
-	if (!out) return false;
-	const [home] = await db.select({ name: user.name, email: user.email }).from(user).where(eq(user.id, out.lead.homeownerId));
-	await queueMail(home.email, newBidMail(home.name, out.business, out.lead.snapshot.name, out.updated, bidsUrl(origin, out.lead.planId)));
-	return true;
+	deliverSoon();
+	return out;
 }
 
-export async function withdrawBid(contractorId: string, leadId: string) {
-	return db.transaction(async (tx) => {
+const homeownerOf = async (tx: Tx, id: string) => (await tx.select({ name: user.name, email: user.email }).from(user).where(eq(user.id, id)))[0];
+
+/** Withdraws the open bid for good (it cannot be sent again) and tells the homeowner. */
+export async function withdrawBid(contractorId: string, leadId: string, origin = '') {
+	const out = await db.transaction(async (tx) => {
+		const c = await requireApproved(tx, contractorId);
 		const locked = await lockOwnLead(tx, contractorId, leadId);
 		if (!locked) return false;
 		if (locked.bid?.status !== 'open') throw new LeadRefused('There is no open bid to withdraw.');
 		await tx.update(bid).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(bid.id, locked.bid.id));
 		await tx.update(lead).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(lead.id, leadId));
+		const home = await homeownerOf(tx, locked.lead.homeownerId);
+		await queueMail(home.email, bidWithdrawnMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, bidsUrl(origin, locked.lead.planId)), tx);
 		return true;
 	});
+	deliverSoon();
+	return out;
 }
 
 /** Declining also withdraws an open bid; the homeowner sees the reason. */
@@ -279,44 +297,101 @@ export async function declineLead(contractorId: string, leadId: string, reason: 
 	});
 }
 
-/** A suspended contractor's open bids are withdrawn with their leads (inside the suspension's transaction). */
-export async function withdrawOpenBidsOf(tx: Tx, contractorId: string) {
-	const withdrawn = await tx
-		.update(bid)
-		.set({ status: 'withdrawn', updatedAt: new Date() })
-		.where(and(eq(bid.contractorId, contractorId), eq(bid.status, 'open')))
-		.returning({ leadId: bid.leadId });
-	if (withdrawn.length) await tx.update(lead).set({ status: 'withdrawn', updatedAt: new Date() }).where(inArray(lead.id, withdrawn.map((w) => w.leadId)));
-	return withdrawn.length;
+/**
+ * Tells each homeowner with an open lead or an accepted bid from this contractor what a vetting
+ * decision means for them (inside the decision's transaction). Nothing is withdrawn: while the
+ * contractor is not approved their bids simply cannot be accepted, and they are open again after.
+ */
+export async function tellHomeownersOfContractorChange(tx: Tx, contractorId: string, business: string, change: 'suspended' | 'review' | 'active', origin: string) {
+	const rows = await tx
+		.select({ planId: lead.planId, planName: sql<string>`${lead.snapshot}->>'name'`, accepted: sql<boolean>`${bid.status} = 'accepted'`, name: user.name, email: user.email })
+		.from(lead)
+		.innerJoin(user, eq(user.id, lead.homeownerId))
+		.leftJoin(bid, eq(bid.leadId, lead.id))
+		.where(and(eq(lead.contractorId, contractorId), sql`(${lead.status} not in ('declined', 'won', 'not_selected', 'withdrawn', 'released') or ${bid.status} = 'accepted')`));
+	for (const r of rows) {
+		const url = bidsUrl(origin, r.planId);
+		const mail = change === 'active' ? contractorActiveAgainMail(r.name, business, r.planName, url) : contractorPausedMail(r.name, business, r.planName, change, !!r.accepted, url);
+		await queueMail(r.email, mail, tx);
+	}
+	return rows.length;
+}
+
+/**
+ * The homeowner's way out of an accepted job whose contractor Stakeline suspended or sent back:
+ * the accepted bid is released (not "withdrawn": the contractor did not withdraw), the bids that
+ * were not selected and are still valid are open again, and every contractor concerned is told.
+ */
+export async function reopenBidding(ownerId: string, planId: string, origin: string) {
+	const out = await db.transaction(async (tx) => {
+		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+		if (!p) return null;
+		const [won] = await tx
+			.select({ bidId: bid.id, leadId: bid.leadId, status: contractor.status })
+			.from(bid)
+			.innerJoin(contractor, eq(contractor.userId, bid.contractorId))
+			.where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
+		if (!won) throw new LeadRefused('There is no accepted bid to release.');
+		if (won.status === 'approved') throw new LeadRefused('The contractor you hired is in good standing; talk to them in the messages first.');
+		const now = new Date();
+		await tx.update(bid).set({ status: 'released', updatedAt: now }).where(eq(bid.id, won.bidId));
+		await tx.update(lead).set({ status: 'released', updatedAt: now }).where(eq(lead.id, won.leadId));
+		const today = new Date().toISOString().slice(0, 10);
+		const reopened = await tx
+			.update(bid)
+			.set({ status: 'open', updatedAt: now })
+			.where(and(eq(bid.planId, planId), eq(bid.status, 'not_selected'), sql`${bid.validUntil} >= ${today}`))
+			.returning({ leadId: bid.leadId });
+		if (reopened.length) await tx.update(lead).set({ status: 'bid_sent', updatedAt: now }).where(inArray(lead.id, reopened.map((r) => r.leadId)));
+		for (const to of await leadContractors(tx, [won.leadId, ...reopened.map((r) => r.leadId)])) {
+			const url = leadUrl(origin, to.leadId);
+			await queueMail(to.email, to.leadId === won.leadId ? jobReleasedMail(to.name, to.town ?? 'you', url) : biddingReopenedMail(to.name, to.town ?? 'you', url), tx);
+		}
+		return { reopened: reopened.length };
+	});
+	deliverSoon();
+	return out;
 }
 
 export async function threadOf(leadId: string) {
 	return db.select().from(leadMessage).where(eq(leadMessage.leadId, leadId)).orderBy(asc(leadMessage.createdAt), asc(leadMessage.id));
 }
 
+/** Who can still write in a lead's thread: open leads, and the hired contractor's. */
+export const canWriteThread = (status: LeadStatus) => !['declined', 'not_selected', 'withdrawn', 'released'].includes(status);
+
 /** Posts to a lead's thread when `sender` is one of its two sides, and tells the other side by e-mail. */
 export async function postMessage(sender: Actor & { role: string }, leadId: string, body: string, origin: string) {
 	const side: SQL | undefined =
 		sender.role === 'homeowner' ? eq(lead.homeownerId, sender.id) : sender.role === 'contractor' ? eq(lead.contractorId, sender.id) : undefined;
 	if (!side) return false;
-	const [l] = await db.select().from(lead).where(and(eq(lead.id, leadId), side));
-	if (!l) return false;
-	const now = new Date();
-	await db.insert(leadMessage).values({ leadId, senderId: sender.id, body, createdAt: now });
-	// Writing in a thread means having read it.
-	await db
-		.update(lead)
-		.set(sender.role === 'homeowner' ? { homeownerReadAt: now } : { contractorReadAt: now })
-		.where(eq(lead.id, leadId));
-	const toId = sender.role === 'homeowner' ? l.contractorId : l.homeownerId;
-	const [to] = await db.select({ name: user.name, email: user.email }).from(user).where(eq(user.id, toId));
-	if (sender.role === 'homeowner') {
-		await queueMail(to.email, newMessageMail(to.name, `the homeowner near ${l.town ?? 'you'}`, leadUrl(origin, leadId)));
-	} else {
-		const [c] = await db.select({ b: contractor.businessName }).from(contractor).where(eq(contractor.userId, sender.id));
-		await queueMail(to.email, newMessageMail(to.name, c?.b ?? sender.name, `${bidsUrl(origin, l.planId)}/${leadId}`));
-	}
-	return true;
+	const homeowner = sender.role === 'homeowner';
+	const out = await db.transaction(async (tx) => {
+		// The lead, the other side's address and the contractor's business name in one query.
+		const [l] = await tx
+			.select({ lead, business: contractor.businessName, toName: user.name, toEmail: user.email })
+			.from(lead)
+			.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
+			.innerJoin(user, eq(user.id, homeowner ? lead.contractorId : lead.homeownerId))
+			.where(and(eq(lead.id, leadId), side));
+		if (!l) return false;
+		// Threads of a closed lead stay readable; only the open ones (and the hired contractor's) take new messages.
+		if (!canWriteThread(l.lead.status)) throw new LeadRefused('This thread is closed: the lead is no longer open.');
+		const now = new Date();
+		await tx.insert(leadMessage).values({ leadId, senderId: sender.id, body, createdAt: now });
+		// Writing in a thread means having read it.
+		await tx
+			.update(lead)
+			.set(homeowner ? { homeownerReadAt: now } : { contractorReadAt: now })
+			.where(eq(lead.id, leadId));
+		const mail = homeowner
+			? newMessageMail(l.toName, `the homeowner near ${l.lead.town ?? 'you'}`, leadUrl(origin, leadId))
+			: newMessageMail(l.toName, l.business ?? sender.name, `${bidsUrl(origin, l.lead.planId)}/${leadId}`);
+		await queueMail(l.toEmail, mail, tx);
+		return true;
+	});
+	deliverSoon();
+	return out;
 }
 
 /** Unread messages across all of a user's threads, for the navigation. */

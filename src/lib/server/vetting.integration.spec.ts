@@ -4,7 +4,7 @@ import { desc, eq } from 'drizzle-orm';
 import { client, db } from './db';
 import { mailIdle } from './mail';
 import { auditLog, contractor, contractorDocument, mailOutbox } from './db/schema';
-import { findContractor, saveContractorProfile } from './contractors';
+import { changesSinceReview, findContractor, saveContractorProfile } from './contractors';
 import { storage } from './storage';
 import type { SniffedUpload } from './uploads';
 import { createUser } from './users';
@@ -74,12 +74,13 @@ describe('contractor profile', () => {
 		const after = await status(u.id);
 		expect(after.status).toBe('awaiting_review');
 		expect(after.reviewRequestedAt.getTime()).toBeGreaterThanOrEqual(before - 1000);
-		// The replaced file is gone from storage; the new one replaced the row.
-		expect(await storage().get(oldInsurance.storageKey)).toBeNull();
-		expect((await db.select().from(contractorDocument).where(eq(contractorDocument.contractorId, u.id))).map((d) => d.originalName).sort()).toEqual([
-			'new-insurance.pdf',
-			'new-licence.pdf'
-		]);
+		// The replaced file is kept as history, no longer current; the new ones are current.
+		expect(await storage().get(oldInsurance.storageKey)).not.toBeNull();
+		const c = (await findContractor(u.id))!;
+		expect(c.documents.map((d) => d.originalName).sort()).toEqual(['new-insurance.pdf', 'new-licence.pdf']);
+		expect(c.earlierDocuments.map((d) => d.originalName).sort()).toEqual(['insurance.pdf', 'licence.pdf']);
+		// The admin sees what changed since the last decision (the approval of FH-2).
+		expect(changesSinceReview(c)).toEqual({ fields: [], documents: ['licence', 'insurance'] });
 	});
 });
 
@@ -87,14 +88,15 @@ describe('vetting decisions', () => {
 	it('move the status, keep the reason, write an audit row and queue an e-mail each', async () => {
 		const u = await onboarded();
 		const a = await admin();
-		await decide(a, u.id, 'request_changes', 'The insurance certificate has expired.', origin);
+		await decide(a, u.id, 'send_back', 'The insurance certificate has expired.', origin);
 		let c = await status(u.id);
-		expect([c.status, c.statusReason]).toEqual(['changes_requested', 'The insurance certificate has expired.']);
+		expect([c.status, c.statusReason]).toEqual(['sent_back', 'The insurance certificate has expired.']);
 
-		// Answering the request sends the profile back to the queue.
-		await saveContractorProfile(u.id, profile, centroid, { insurance: pdf('renewed') });
+		// Answering the send-back returns the profile to the queue; the admin sees what changed.
+		await saveContractorProfile(u.id, { ...profile, licenceAuthority: 'Fernhollow Licensing Office' }, centroid, { insurance: pdf('renewed') });
 		c = await status(u.id);
 		expect([c.status, c.statusReason]).toEqual(['awaiting_review', null]);
+		expect(changesSinceReview((await findContractor(u.id))!)).toEqual({ fields: ['Licence issued by'], documents: ['insurance'] });
 
 		await decide(a, u.id, 'approve', null, origin);
 		await decide(a, u.id, 'suspend', 'Complaints about unfinished work.', origin);
@@ -108,14 +110,14 @@ describe('vetting decisions', () => {
 			['reinstate', 'Resolved with the homeowner.', a.id, 'Vera Admin'],
 			['suspend', 'Complaints about unfinished work.', a.id, 'Vera Admin'],
 			['approve', null, a.id, 'Vera Admin'],
-			['request_changes', 'The insurance certificate has expired.', a.id, 'Vera Admin']
+			['send_back', 'The insurance certificate has expired.', a.id, 'Vera Admin']
 		]);
 		expect(log[0].subjectName).toBe('Cinderbank Pours (Ola Frett)');
 
 		const mails = await db.select().from(mailOutbox).where(eq(mailOutbox.to, u.email)).orderBy(mailOutbox.createdAt);
 		const vetting = mails.filter((m) => !/Confirm/.test(m.subject));
 		expect(vetting.map((m) => m.subject)).toEqual([
-			'Your Stakeline profile needs a change',
+			'Your Stakeline profile was sent back',
 			'Your Stakeline pro account is approved',
 			'Your Stakeline pro account is suspended',
 			'Your Stakeline pro account is active again'
@@ -129,11 +131,11 @@ describe('vetting decisions', () => {
 		const a = await admin();
 		const u = await onboarded();
 		await expect(decide(a, u.id, 'reinstate', null, origin)).rejects.toBeInstanceOf(VettingRefused);
-		await expect(decide(a, u.id, 'request_changes', null, origin)).rejects.toThrow('A reason is required.');
+		await expect(decide(a, u.id, 'send_back', null, origin)).rejects.toThrow('A reason is required.');
 
 		const fresh = await createUser({ name: 'Half Done', email: unique('half'), password: 'contractor-pass', role: 'contractor' });
-		await expect(decide(a, fresh.id, 'approve', null, origin)).rejects.toThrow(/not complete/);
-		expect((await status(fresh.id)).status).toBe('awaiting_review');
+		await expect(decide(a, fresh.id, 'approve', null, origin)).rejects.toThrow(/it cannot get “Approve” now/);
+		expect((await status(fresh.id)).status).toBe('draft');
 		expect(await audits(u.id)).toHaveLength(0);
 		expect(await audits(fresh.id)).toHaveLength(0);
 		expect(await decide(a, crypto.randomUUID(), 'approve', null, origin)).toBe(false);
@@ -145,5 +147,81 @@ describe('vetting decisions', () => {
 		const results = await Promise.allSettled([decide(a, u.id, 'approve', null, origin), decide(b, u.id, 'approve', null, origin)]);
 		expect(results.map((r) => r.status).sort()).toEqual(['fulfilled', 'rejected']);
 		expect(await audits(u.id)).toHaveLength(1);
+	});
+});
+
+describe('suspend and reinstate', () => {
+	it('return a never-submitted account to not submitted, never to approved', async () => {
+		const a = await admin();
+		const fresh = await createUser({ name: 'Never Sent', email: unique('never'), password: 'contractor-pass', role: 'contractor' });
+		expect((await status(fresh.id)).status).toBe('draft');
+		await decide(a, fresh.id, 'suspend', 'Suspicious sign-up pattern.', origin);
+		expect((await status(fresh.id)).status).toBe('suspended');
+		await decide(a, fresh.id, 'reinstate', null, origin);
+		const c = await status(fresh.id);
+		expect([c.status, c.suspendedFrom, c.statusReason]).toEqual(['draft', null, null]);
+		// Nor can it be approved from there: only a submitted profile in the queue can.
+		await expect(decide(a, fresh.id, 'approve', null, origin)).rejects.toBeInstanceOf(VettingRefused);
+	});
+
+	it('return an account awaiting review to the queue, where it still needs an approval', async () => {
+		const a = await admin();
+		const u = await onboarded();
+		await decide(a, u.id, 'suspend', 'Checking a complaint first.', origin);
+		await decide(a, u.id, 'reinstate', null, origin);
+		expect((await status(u.id)).status).toBe('awaiting_review');
+		const queued = await db.select().from(contractor).where(eq(contractor.userId, u.id));
+		expect(queued[0].reviewRequestedAt).toBeInstanceOf(Date);
+		const mails = await db.select().from(mailOutbox).where(eq(mailOutbox.to, u.email)).orderBy(desc(mailOutbox.createdAt)).limit(1);
+		expect(mails[0].text).toContain('The suspension is lifted.');
+		expect(mails[0].text).not.toContain('can send you their plans again');
+	});
+
+	it('send an approved account to review when its credentials changed during the suspension, and a first submission during it too', async () => {
+		const a = await admin();
+		const u = await onboarded();
+		await decide(a, u.id, 'approve', null, origin);
+		await decide(a, u.id, 'suspend', 'Insurance lapsed.', origin);
+		await saveContractorProfile(u.id, profile, centroid, { insurance: pdf('renewed-insurance') });
+		expect((await status(u.id)).status).toBe('suspended');
+		await decide(a, u.id, 'reinstate', null, origin);
+		expect((await status(u.id)).status).toBe('awaiting_review');
+
+		const fresh = await createUser({ name: 'Late Sender', email: unique('late'), password: 'contractor-pass', role: 'contractor' });
+		await decide(a, fresh.id, 'suspend', 'Checking identity.', origin);
+		await saveContractorProfile(fresh.id, profile, centroid, { licence: pdf('licence'), insurance: pdf('insurance') });
+		await decide(a, fresh.id, 'reinstate', null, origin);
+		expect((await status(fresh.id)).status).toBe('awaiting_review');
+	});
+
+	it('return an approved account untouched to approved, and a sent-back one to sent back with its reason', async () => {
+		const a = await admin();
+		const u = await onboarded();
+		await decide(a, u.id, 'approve', null, origin);
+		await decide(a, u.id, 'suspend', 'Complaint under review.', origin);
+		await saveContractorProfile(u.id, { ...profile, phone: '(541) 555-0111' }, centroid, {});
+		await decide(a, u.id, 'reinstate', null, origin);
+		expect((await status(u.id)).status).toBe('approved');
+
+		const v = await onboarded();
+		await decide(a, v.id, 'send_back', 'The licence scan is unreadable.', origin);
+		await decide(a, v.id, 'suspend', 'Complaint under review.', origin);
+		await decide(a, v.id, 'reinstate', null, origin);
+		const c = await status(v.id);
+		expect([c.status, c.statusReason]).toEqual(['sent_back', 'The licence scan is unreadable.']);
+	});
+});
+
+describe('submission', () => {
+	it('tells every admin, in the same transaction as the submission, and only when the profile enters the queue', async () => {
+		const a = await admin();
+		const u = await createUser({ name: 'Queue Entrant', email: unique('entrant'), password: 'contractor-pass', role: 'contractor' });
+		await saveContractorProfile(u.id, { ...profile, businessName: `Entrant ${u.id}` }, centroid, { licence: pdf('licence'), insurance: pdf('insurance') }, origin);
+		const toAdmin = async () => (await db.select().from(mailOutbox).where(eq(mailOutbox.to, a.email))).filter((m) => m.subject.includes(`Entrant ${u.id}`));
+		expect(await toAdmin()).toHaveLength(1);
+		expect((await toAdmin())[0].text).toContain(`${origin}/admin/contractors/${u.id}`);
+		// A correction while in the queue keeps its place and sends nothing new.
+		await saveContractorProfile(u.id, { ...profile, businessName: `Entrant ${u.id}`, phone: '(541) 555-0122' }, centroid, {}, origin);
+		expect(await toAdmin()).toHaveLength(1);
 	});
 });

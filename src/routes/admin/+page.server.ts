@@ -1,4 +1,4 @@
-import { and, asc, count, eq, isNotNull, isNull } from 'drizzle-orm';
+import { asc, count, eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { contractor, user } from '$lib/server/db/schema';
 import { requireRole } from '$lib/server/guards';
@@ -12,11 +12,11 @@ export const load = (async (event) => {
 		.select({ id: user.id, name: user.name, email: user.email, businessName: contractor.businessName, since: contractor.reviewRequestedAt })
 		.from(contractor)
 		.innerJoin(user, eq(user.id, contractor.userId))
-		.where(and(eq(contractor.status, 'awaiting_review'), isNotNull(contractor.submittedAt)))
+		.where(eq(contractor.status, 'awaiting_review'))
 		.orderBy(asc(contractor.reviewRequestedAt));
 	const [unfinished] = await db
 		.select({ n: count() })
 		.from(contractor)
-		.where(and(eq(contractor.status, 'awaiting_review'), isNull(contractor.submittedAt)));
+		.where(eq(contractor.status, 'draft'));
 	return { counts: Object.fromEntries(byRole.map((r) => [r.role, r.n])) as Record<string, number>, waiting, unfinished: unfinished.n };
 }) satisfies PageServerLoad;

@@ -9,7 +9,7 @@ export const load = (async (event) => {
 	const [profile] = await db.select().from(contractor).where(eq(contractor.userId, user.id));
 	return {
 		contractor: {
-			status: profile?.status ?? 'awaiting_review',
+			status: profile?.status ?? 'draft',
 			reason: profile?.statusReason ?? null,
 			businessName: profile?.businessName ?? null,
 			submitted: !!profile?.submittedAt

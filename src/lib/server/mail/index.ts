@@ -23,17 +23,25 @@ const inFlight = new Set<Promise<unknown>>();
 /** Resolves once background sends started by queueMail have finished (tests close the pool after). */
 export const mailIdle = () => Promise.allSettled([...inFlight]);
 
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
 /**
  * Writes the message to the outbox and tries to send it at once. The action that sends mail
- * never fails because SMTP does: what cannot go now is retried by the worker.
+ * never fails because SMTP does: what cannot go now is retried by the worker. Given `tx`, the
+ * message is written in that transaction (it exists exactly when the change it reports does);
+ * the caller then calls deliverSoon() after the commit.
  */
-export async function queueMail(to: string, mail: Mail) {
-	const [row] = await db.insert(mailOutbox).values({ to, ...mail }).returning({ id: mailOutbox.id });
-	// Sent in the background: the request that queued it does not wait on the SMTP server.
+export async function queueMail(to: string, mail: Mail, tx?: Tx) {
+	const [row] = await (tx ?? db).insert(mailOutbox).values({ to, ...mail }).returning({ id: mailOutbox.id });
+	if (!tx) deliverSoon();
+	return row.id;
+}
+
+/** Starts sending what is due in the background: the request does not wait on the SMTP server. */
+export function deliverSoon() {
 	const sending = deliverDue().catch((err) => console.error('mail delivery:', err));
 	inFlight.add(sending);
 	void sending.finally(() => inFlight.delete(sending));
-	return row.id;
 }
 
 /**

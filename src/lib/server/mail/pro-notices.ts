@@ -1,4 +1,4 @@
-import type { VettingDecision } from '$lib/contractor-status';
+import type { ContractorStatus, VettingDecision } from '$lib/contractor-status';
 import { notice, type Mail } from './templates';
 
 const vettingText: Record<VettingDecision, { subject: string; line: string; action: string; path: string }> = {
@@ -8,33 +8,42 @@ const vettingText: Record<VettingDecision, { subject: string; line: string; acti
 		action: 'Open the pro desk',
 		path: '/pro'
 	},
-	request_changes: {
-		subject: 'Your Stakeline profile needs a change',
-		line: 'We looked at your profile and need something changed before we can approve it.',
+	send_back: {
+		subject: 'Your Stakeline profile was sent back',
+		line: 'We looked at your profile and need something from you before we can approve it. The reason is also on your profile page.',
 		action: 'Update my profile',
 		path: '/pro/profile'
 	},
 	suspend: {
 		subject: 'Your Stakeline pro account is suspended',
-		line: 'Your account is suspended: you receive no new leads, and open bids were withdrawn.',
+		line: 'Your account is suspended: you receive no new leads, and your open leads and bids are on hold. The homeowners concerned are told that Stakeline suspended the account, not that you withdrew.',
 		action: 'Open the pro desk',
 		path: '/pro'
 	},
 	reinstate: {
 		subject: 'Your Stakeline pro account is active again',
-		line: 'The suspension is lifted. Homeowners in your service area can send you their plans again.',
+		line: 'The suspension is lifted.',
 		action: 'Open the pro desk',
 		path: '/pro'
 	}
 };
 
+/** Where a reinstated account stands now; reinstating does not skip a review. */
+const afterReinstate: Partial<Record<ContractorStatus, string>> = {
+	approved: 'Homeowners in your service area can send you their plans again, and your leads that are still open are back on your desk.',
+	awaiting_review: 'Your licence or insurance changed while the account was suspended, so an administrator checks them before leads come back.',
+	sent_back: 'Your profile is still sent back: please make the change asked for earlier.',
+	draft: 'Finish your business profile and send it for review to receive leads.'
+};
+
 /** Tells a contractor what an admin decided, with the reason when one was given. */
-export function vettingDecisionMail(name: string, decision: VettingDecision, reason: string | null, origin: string): Mail {
+export function vettingDecisionMail(name: string, decision: VettingDecision, to: ContractorStatus, reason: string | null, origin: string): Mail {
 	const t = vettingText[decision];
+	const next = decision === 'reinstate' ? afterReinstate[to] : undefined;
 	return notice({
 		subject: t.subject,
 		name,
-		lines: [t.line, ...(reason ? [`Note from the reviewer: ${reason}`] : [])],
+		lines: [t.line, ...(next ? [next] : []), ...(reason ? [`Note from the reviewer: ${reason}`] : [])],
 		action: t.action,
 		url: origin + t.path,
 		footer: 'You receive this because you have a contractor account on Stakeline.'
@@ -72,3 +81,46 @@ export const bidDecisionMail = (name: string, won: boolean, town: string, url: s
 
 export const newMessageMail = (name: string, from: string, url: string) =>
 	simple(`New message from ${from}`, name, [`${from} wrote to you about a slab plan on Stakeline.`], 'Read the message', url);
+
+export const bidWithdrawnMail = (name: string, business: string, planName: string, url: string) =>
+	simple(`${business} withdrew their bid`, name, [`${business} withdrew their bid for “${planName}”. Their other bids and messages stay as they were.`], 'Compare the bids', url);
+
+/**
+ * To a homeowner whose contractor Stakeline suspended or sent back to review: it was our decision,
+ * not the contractor's, and what it means for their bid or the accepted job.
+ */
+export function contractorPausedMail(name: string, business: string, planName: string, why: 'suspended' | 'review', accepted: boolean, url: string) {
+	const what =
+		why === 'suspended'
+			? `Stakeline has suspended the account of ${business} while we look into a concern. This is our decision; the contractor did not withdraw.`
+			: `Stakeline is checking the licence or insurance of ${business} again. This is our check; the contractor did not withdraw.`;
+	const effect = accepted
+		? `You accepted their bid for “${planName}”, so the job is on hold. You can wait for us, or reopen bidding on your bids page.`
+		: `Their bid or lead for “${planName}” stays on your page, but it cannot be accepted until the account is active again.`;
+	return simple(why === 'suspended' ? `${business} is suspended for now` : `${business} is under review for now`, name, [what, effect, 'We will e-mail you when this changes.'], 'Open your bids', url);
+}
+
+export const contractorActiveAgainMail = (name: string, business: string, planName: string, url: string) =>
+	simple(`${business} is active again`, name, [`The account of ${business} is active again. Their bid or lead for “${planName}” is open as before.`], 'Open your bids', url);
+
+export const jobReleasedMail = (name: string, town: string, url: string) =>
+	simple(
+		`A job near ${town} was released`,
+		name,
+		['While your account was suspended, the homeowner released the job they had accepted your bid for and reopened bidding. Your bid is closed.'],
+		'Open the lead',
+		url
+	);
+
+export const biddingReopenedMail = (name: string, town: string, url: string) =>
+	simple(`Bidding reopened near ${town}`, name, ['The homeowner reopened bidding on a plan you bid for. Your bid is open again and can be accepted.'], 'Open the lead', url);
+
+export const profileSubmittedMail = (name: string, business: string, url: string) =>
+	notice({
+		subject: `A contractor profile is waiting for review: ${business}`,
+		name,
+		lines: [`${business} sent their profile for review.`],
+		action: 'Open the vetting queue',
+		url,
+		footer: 'You receive this because you are a Stakeline administrator.'
+	});

@@ -43,7 +43,7 @@ export const actions = {
 			const kept = Object.keys(uploads).length ? ' Files you chose were not kept; please choose them again.' : '';
 			return formError(values, `Please correct the fields marked below.${kept}`, errors);
 		}
-		await saveContractorProfile(user.id, data, { lat: place.latitude, lon: place.longitude }, uploads);
+		await saveContractorProfile(user.id, data, { lat: place.latitude, lon: place.longitude }, uploads, event.url.origin);
 		redirect(303, '/pro');
 	}
 } satisfies Actions;

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { doublePrecision, index, integer, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
+import { boolean, date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { user } from './auth';
 import { contractorStatuses, type ContractorStatus } from '../../../contractor-status';
 import { serviceKinds, distanceUnits, documentKinds } from '../../../schemas/contractor';
@@ -31,8 +31,17 @@ export const contractor = pgTable(
 		// The service postcode's centroid, stored so matching does not depend on where it came from.
 		serviceLat: doublePrecision('service_lat'),
 		serviceLon: doublePrecision('service_lon'),
-		status: contractorStatusEnum('status').notNull().default('awaiting_review'),
+		status: contractorStatusEnum('status').notNull().default('draft'),
 		statusReason: text('status_reason'),
+		/** While suspended: the status to return to on reinstatement, unless the credentials changed meanwhile. */
+		suspendedFrom: contractorStatusEnum('suspended_from'),
+		credentialsChangedWhileSuspended: boolean('credentials_changed_while_suspended').notNull().default(false),
+		/** What the admin saw at the last decision, so the next review can show what changed since. */
+		reviewedSnapshot: jsonb('reviewed_snapshot').$type<ReviewedSnapshot>(),
+		licenceExpiresOn: date('licence_expires_on'),
+		insuranceExpiresOn: date('insurance_expires_on'),
+		/** The smallest days-before-expiry reminder already sent (30, 7); cleared when a date changes. */
+		expiryReminderDays: integer('expiry_reminder_days'),
 		/** When the profile was first sent for review; null while the contractor is still filling it in. */
 		submittedAt: timestamp('submitted_at', { withTimezone: true }),
 		/** When it (re-)entered the vetting queue: the queue is oldest first by this. */
@@ -43,7 +52,10 @@ export const contractor = pgTable(
 	(t) => [index('contractor_status_idx').on(t.status, t.reviewRequestedAt)]
 );
 
-/** The licence or insurance certificate a contractor uploaded; one current file of each kind. */
+/**
+ * The licence or insurance certificate a contractor uploaded. One current file of each kind; a
+ * replaced file stays as history (superseded) so the reviewer can see what was there before.
+ */
 export const contractorDocument = pgTable(
 	'contractor_document',
 	{
@@ -56,10 +68,14 @@ export const contractorDocument = pgTable(
 		contentType: text('content_type').notNull(),
 		bytes: integer('bytes').notNull(),
 		originalName: text('original_name').notNull(),
-		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
+		supersededAt: timestamp('superseded_at', { withTimezone: true })
 	},
-	(t) => [unique('contractor_document_kind_uq').on(t.contractorId, t.kind)]
+	(t) => [uniqueIndex('contractor_document_current_uq').on(t.contractorId, t.kind).where(sql`${t.supersededAt} is null`)]
 );
+
+/** The reviewed profile fields and current document ids, as of an admin's last decision. */
+export type ReviewedSnapshot = { fields: Record<string, unknown>; documentIds: string[] };
 
 export type Contractor = typeof contractor.$inferSelect;
 export type ContractorDocument = typeof contractorDocument.$inferSelect;

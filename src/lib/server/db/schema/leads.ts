@@ -1,5 +1,5 @@
 import { date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, unique, uuid } from 'drizzle-orm/pg-core';
-import { bidStatuses, leadStatuses, lineItemKinds, timeframes, type LineItemKind } from '../../../leads';
+import { bidStatuses, leadStatuses, lineItemKinds, timeframes, type ExistingSurface, type Finish, type LineItemKind } from '../../../leads';
 import { user } from './auth';
 import { contractor, serviceKindEnum } from './contractors';
 import { plan } from './plans';
@@ -35,6 +35,10 @@ export const lead = pgTable(
 		scope: serviceKindEnum('scope').notNull(),
 		timeframe: timeframeEnum('timeframe').notNull(),
 		notes: text('notes').notNull().default(''),
+		// Checked by getBidsSchema; text so a new choice needs no migration.
+		finish: text('finish').$type<Finish>().notNull().default('broom'),
+		existingSurface: text('existing_surface').$type<ExistingSurface>().notNull().default('grass_soil'),
+		siteAccess: text('site_access').notNull().default(''),
 		planRevision: integer('plan_revision').notNull(),
 		snapshot: jsonb('snapshot').$type<PlanSnapshot>().notNull(),
 		latestRevision: integer('latest_revision').notNull(),

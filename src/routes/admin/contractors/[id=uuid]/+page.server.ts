@@ -1,10 +1,10 @@
 import { error } from '@sveltejs/kit';
 import { desc, eq } from 'drizzle-orm';
-import { vettingMoves, type VettingDecision } from '$lib/contractor-status';
+import { decisionMeta, type VettingDecision } from '$lib/contractor-status';
 import { optionalReasonSchema, vettingReasonSchema } from '$lib/schemas/contractor';
 import { db } from '$lib/server/db';
 import { auditLog, user } from '$lib/server/db/schema';
-import { findContractor } from '$lib/server/contractors';
+import { changesSinceReview, findContractor } from '$lib/server/contractors';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
 import { decide, VettingRefused } from '$lib/server/vetting';
@@ -16,13 +16,13 @@ export const load = (async (event) => {
 	if (!profile) error(404, 'No such contractor');
 	const [account] = await db.select({ name: user.name, email: user.email, createdAt: user.createdAt }).from(user).where(eq(user.id, event.params.id));
 	const history = await db.select().from(auditLog).where(eq(auditLog.subjectId, event.params.id)).orderBy(desc(auditLog.createdAt)).limit(20);
-	return { profile, account, history };
+	return { profile, account, history, changes: changesSinceReview(profile) };
 }) satisfies PageServerLoad;
 
 /** One action per decision; the reason is required where the decision says so. */
 const decision = (d: VettingDecision) => async (event: RequestEvent) => {
 	const admin = requireRole(event, 'admin');
-	const { data, values, failure } = await parseForm(event.request, vettingMoves[d].reason ? vettingReasonSchema : optionalReasonSchema);
+	const { data, values, failure } = await parseForm(event.request, decisionMeta[d].reason ? vettingReasonSchema : optionalReasonSchema);
 	if (failure) return failure;
 	try {
 		if (!(await decide(admin, event.params.id, d, data.reason || null, event.url.origin))) error(404, 'No such contractor');
@@ -35,7 +35,7 @@ const decision = (d: VettingDecision) => async (event: RequestEvent) => {
 
 export const actions = {
 	approve: decision('approve'),
-	requestChanges: decision('request_changes'),
+	sendBack: decision('send_back'),
 	suspend: decision('suspend'),
 	reinstate: decision('reinstate')
 } satisfies Actions;

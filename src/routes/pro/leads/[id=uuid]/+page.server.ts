@@ -17,7 +17,7 @@ export const load = (async (event) => {
 	const { snapshot, homeownerId: _h, contractorId: _c, ...lead } = found.lead;
 	return {
 		lead: { ...lead, status: lead.status === 'new' ? ('viewed' as const) : lead.status },
-		plan: { name: snapshot.name, figures: planFigures(snapshot.input, snapshot.result), result: fullResult(snapshot.result), photoIds: snapshot.photoIds ?? [] },
+		plan: { name: snapshot.name, input: snapshot.input, figures: planFigures(snapshot.input, snapshot.result), result: fullResult(snapshot.result), photoIds: snapshot.photoIds ?? [] },
 		bid: found.bid,
 		homeowner: found.homeowner,
 		unit: found.unitPref,
@@ -46,7 +46,7 @@ export const actions = {
 	},
 	withdraw: async (event) => {
 		const user = await requireApprovedContractor(event);
-		return step({}, () => withdrawBid(user.id, event.params.id), { withdrawn: true });
+		return step({}, () => withdrawBid(user.id, event.params.id, event.url.origin), { withdrawn: true });
 	},
 	decline: async (event) => {
 		const user = await requireApprovedContractor(event);

@@ -5,7 +5,7 @@ import { serviceKinds, type ServiceKind } from '$lib/schemas/contractor';
 import { acceptSchema, getBidsSchema } from '$lib/schemas/leads';
 import { formError, parseForm, validateForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
-import { acceptBid, announceRevision, LeadRefused, leadsForPlan, sendLeads } from '$lib/server/leads';
+import { acceptBid, announceRevision, LeadRefused, leadsForPlan, reopenBidding, sendLeads } from '$lib/server/leads';
 import { findOwnPlan } from '$lib/server/plans';
 import { matchContractors, placeOf } from '$lib/server/matching';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
@@ -69,5 +69,16 @@ export const actions = {
 			throw err;
 		}
 		return { accepted: true };
+	},
+	reopen: async (event) => {
+		const { user, plan } = await ownPlan(event);
+		try {
+			const out = await reopenBidding(user.id, plan.id, event.url.origin);
+			if (!out) error(404, 'No such plan');
+			return { reopened: out.reopened };
+		} catch (err) {
+			if (err instanceof LeadRefused) return formError({}, err.message, {}, 409);
+			throw err;
+		}
 	}
 } satisfies Actions;

@@ -5,7 +5,7 @@ import { db } from '$lib/server/db';
 import { bid, contractor, lead } from '$lib/server/db/schema';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
-import { markLeadReadByHomeowner, postMessage, threadOf } from '$lib/server/leads';
+import { canWriteThread, LeadRefused, markLeadReadByHomeowner, postMessage, threadOf } from '$lib/server/leads';
 import { isUuid } from '$lib/uuid';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
@@ -21,6 +21,7 @@ async function ownLead(event: RequestEvent | Parameters<PageServerLoad>[0]) {
 				businessName: contractor.businessName,
 				description: contractor.description,
 				yearsInTrade: contractor.yearsInTrade,
+				status: contractor.status,
 				contactName: contractor.contactName,
 				phone: contractor.phone
 			},
@@ -46,6 +47,7 @@ export const load = (async (event) => {
 		contractor: { ...publicProfile, contact: won ? { contactName, phone } : null },
 		bid: row.bid,
 		messages: await threadOf(row.lead.id),
+		threadOpen: canWriteThread(row.lead.status),
 		viewerId: user.id
 	};
 }) satisfies PageServerLoad;
@@ -55,7 +57,12 @@ export const actions = {
 		const { user, row } = await ownLead(event);
 		const { data, values, failure } = await parseForm(event.request, messageSchema);
 		if (failure) return failure;
-		if (!(await postMessage(user, row.lead.id, data.body, event.url.origin))) return formError(values, 'This thread is closed.', {}, 404);
+		try {
+			if (!(await postMessage(user, row.lead.id, data.body, event.url.origin))) return formError(values, 'This thread is closed.', {}, 404);
+		} catch (err) {
+			if (err instanceof LeadRefused) return formError(values, err.message, {}, 409);
+			throw err;
+		}
 		return { messageSent: true };
 	}
 } satisfies Actions;
