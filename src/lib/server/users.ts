@@ -4,7 +4,7 @@ import { contractor, user, type Role, type User } from '$lib/server/db/schema';
 import { hashPassword } from './password';
 import { createEmailToken } from './email-tokens';
 import { queueMail } from './mail';
-import { resetPasswordMail, verifyEmailMail } from './mail/templates';
+import { resetPasswordMail, signInLinkMail, verifyEmailMail } from './mail/templates';
 
 export class EmailTakenError extends Error {
 	constructor() {
@@ -60,14 +60,23 @@ export async function markEmailVerified(userId: string) {
 	await db.update(user).set({ emailVerifiedAt: new Date() }).where(eq(user.id, userId));
 }
 
-export async function sendVerificationMail(u: Pick<User, 'id' | 'name' | 'email'>, origin: string) {
+type MailUser = Pick<User, 'id' | 'name' | 'email' | 'emailVerifiedAt'>;
+/** The name the sign-up form chose is used only once the address is confirmed as its owner's. */
+const greeting = (u: MailUser) => (u.emailVerifiedAt ? u.name : '');
+
+export async function sendVerificationMail(u: MailUser, origin: string) {
 	const token = await createEmailToken(u.id, 'verify_email');
-	await queueMail(u.email, verifyEmailMail(u.name, `${origin}/verify-email?token=${token}`));
+	await queueMail(u.email, verifyEmailMail('', `${origin}/verify-email?token=${token}`));
 }
 
-export async function sendPasswordResetMail(u: Pick<User, 'id' | 'name' | 'email'>, origin: string) {
+export async function sendPasswordResetMail(u: MailUser, origin: string) {
 	const token = await createEmailToken(u.id, 'reset_password');
-	await queueMail(u.email, resetPasswordMail(u.name, `${origin}/reset-password?token=${token}`));
+	await queueMail(u.email, resetPasswordMail(greeting(u), `${origin}/reset-password?token=${token}`));
+}
+
+export async function sendSignInLinkMail(u: MailUser, origin: string) {
+	const token = await createEmailToken(u.id, 'sign_in');
+	await queueMail(u.email, signInLinkMail(greeting(u), `${origin}/signin/link?token=${token}`));
 }
 
 /** The first admin, from ADMIN_EMAIL / ADMIN_PASSWORD; nothing happens when it exists already. */
