@@ -25,7 +25,8 @@ export const actions = {
 			if (err instanceof EmailTakenError) return formError(values, 'Please correct the fields marked below.', { email: err.message + ' Sign in instead?' });
 			throw err;
 		}
-		await sendVerificationMail(user, event.url.origin);
+		// In the background, so a new address costs no more time than a taken one.
+		void sendVerificationMail(user, event.url.origin).catch((err) => console.error('verification mail:', err));
 		await startSession(event, user.id);
 		redirect(303, user.role === 'contractor' ? '/pro' : safeRedirect(values.redirectTo, homeFor(user.role)));
 	}
