@@ -14,7 +14,7 @@ async function post(path, fields) {
 	const res = await fetch(base + path, {
 		method: 'POST',
 		redirect: 'manual',
-		headers: { 'content-type': 'application/x-www-form-urlencoded', origin: base, 'x-forwarded-for': `192.0.2.${n++ % 250}` },
+		headers: { accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded', origin: base, 'x-forwarded-for': `192.0.2.${n++ % 250}` },
 		body: new URLSearchParams(fields)
 	});
 	await res.arrayBuffer();
