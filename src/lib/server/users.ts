@@ -90,3 +90,11 @@ export async function ensureAdmin(email: string | undefined, password: string | 
 		if (!(err instanceof EmailTakenError)) throw err; // another app server got there first
 	}
 }
+
+/**
+ * Lets a mail send finish after the answer (so the answer's time does not depend on it). A failure
+ * is logged by its first line only: Drizzle's second line lists the query's parameters.
+ */
+export function inBackground(what: string, sending: Promise<unknown>) {
+	sending.catch((err) => console.error(`${what}:`, String((err as Error)?.message ?? err).split('\n')[0]));
+}

@@ -1,7 +1,7 @@
 import { requestResetSchema } from '$lib/schemas/account';
 import { formError, parseForm } from '$lib/server/forms';
 import { countMailRequest, formatWait } from '$lib/server/throttle';
-import { findUserByEmail, sendPasswordResetMail } from '$lib/server/users';
+import { findUserByEmail, inBackground, sendPasswordResetMail } from '$lib/server/users';
 import type { Actions } from './$types';
 
 export const actions = {
@@ -13,7 +13,7 @@ export const actions = {
 		if (!allowed.ok) return formError(values, `Too many e-mails asked for. Please wait ${formatWait(allowed.waitMs)}.`, {}, 429);
 		const user = await findUserByEmail(data.email);
 		// Sent in the background and answered the same way, so neither the words nor the time tell who has an account.
-		if (user) void sendPasswordResetMail(user, url.origin).catch((err) => console.error('password reset mail:', err));
+		if (user) inBackground('password reset mail', sendPasswordResetMail(user, url.origin));
 		return { sent: true, values };
 	}
 } satisfies Actions;

@@ -3,7 +3,7 @@ import { signUpSchema } from '$lib/schemas/account';
 import { startSession } from '$lib/server/auth';
 import { formError, parseForm } from '$lib/server/forms';
 import { homeFor, safeRedirect } from '$lib/server/guards';
-import { createUser, EmailTakenError, sendVerificationMail } from '$lib/server/users';
+import { createUser, EmailTakenError, inBackground, sendVerificationMail } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (({ locals, url }) => {
@@ -26,7 +26,7 @@ export const actions = {
 			throw err;
 		}
 		// In the background, so a new address costs no more time than a taken one.
-		void sendVerificationMail(user, event.url.origin).catch((err) => console.error('verification mail:', err));
+		inBackground('verification mail', sendVerificationMail(user, event.url.origin));
 		await startSession(event, user.id);
 		redirect(303, user.role === 'contractor' ? '/pro' : safeRedirect(values.redirectTo, homeFor(user.role)));
 	}

@@ -7,7 +7,7 @@ import { consumeEmailToken, peekEmailToken } from '$lib/server/email-tokens';
 import { formError, parseForm } from '$lib/server/forms';
 import { homeFor } from '$lib/server/guards';
 import { countMailRequest, formatWait } from '$lib/server/throttle';
-import { findUserByEmail, findUserById, markEmailVerified, sendSignInLinkMail } from '$lib/server/users';
+import { findUserByEmail, findUserById, inBackground, markEmailVerified, sendSignInLinkMail } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
 const tokenSchema = z.object({ token: plainText().min(1, 'This sign-in link is not complete.').max(100, 'This sign-in link is not complete.') });
@@ -27,7 +27,7 @@ export const actions = {
 		if (!allowed.ok) return formError(values, `Too many e-mails asked for. Please wait ${formatWait(allowed.waitMs)}.`, {}, 429);
 		const user = await findUserByEmail(data.email);
 		// Sent in the background and answered the same way, so neither the words nor the time tell who has an account.
-		if (user) void sendSignInLinkMail(user, event.url.origin).catch((err) => console.error('sign-in link mail:', err));
+		if (user) inBackground('sign-in link mail', sendSignInLinkMail(user, event.url.origin));
 		return { sent: true, values };
 	},
 	use: async (event) => {
