@@ -38,7 +38,7 @@ describe('planPdf', () => {
 		expect(text).toContain(result.cautions.find((c) => c.id === 'local-codes')!.title);
 		expect(text).not.toContain('\u0000'); // no glyph the font lacks
 		expect(text).not.toContain('\uFFFD');
-	});
+	}, 30_000); // the first PDF loads and subsets the font: seconds on a busy shared machine
 
 	it("does not find another plan's volume: the text check can fail", async () => {
 		const [a, b] = plans;
