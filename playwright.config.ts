@@ -11,6 +11,8 @@ export default defineConfig({
 	fullyParallel: false,
 	forbidOnly: !!process.env.CI,
 	retries: 0,
+	// Up to eight test runs share two cores here; a journey that takes 10 s alone can take 40 s.
+	timeout: 90_000,
 	reporter: [['list']],
 	outputDir: 'test-results',
 	use: {

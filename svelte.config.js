@@ -7,7 +7,25 @@ const config = {
 	kit: {
 		adapter: adapter(),
 		// Forms post back to the same origin; adapter-node reads ORIGIN for the check.
-		csrf: { trustedOrigins: [] }
+		csrf: { trustedOrigins: [] },
+		// SvelteKit adds a nonce (server-rendered pages) or hash (prerendered) to its own scripts; no
+		// other inline script runs. Inline styles stay allowed: Svelte's style: directives use them.
+		csp: {
+			mode: 'auto',
+			directives: {
+				'default-src': ['self'],
+				'script-src': ['self'],
+				'style-src': ['self', 'unsafe-inline'],
+				'img-src': ['self', 'data:', 'blob:'],
+				'font-src': ['self', 'data:'],
+				'connect-src': ['self'],
+				'worker-src': ['self', 'blob:'],
+				'object-src': ['none'],
+				'base-uri': ['self'],
+				'form-action': ['self'],
+				'frame-ancestors': ['none']
+			}
+		}
 	}
 };
 

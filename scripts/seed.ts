@@ -24,6 +24,14 @@ type DemoUser = { email: string; name: string; role: string; plans?: string[]; c
 type DemoPlan = { id: string; postcode?: string; input: { name: string } };
 
 if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set');
+// The demo accounts share a published password, an admin among them: they go only into this
+// project's own local cluster (127.0.0.1 on PGPORT), or anywhere else only when SEED_DEMO=1.
+const target = new URL(process.env.DATABASE_URL);
+const localCluster = ['127.0.0.1', 'localhost', '[::1]'].includes(target.hostname) && target.port === String(process.env.PGPORT ?? 54329);
+if (!localCluster && process.env.SEED_DEMO !== '1') {
+	console.log(`Demo data not loaded into ${target.host}${target.pathname}: it is not the local cluster (set SEED_DEMO=1 to load it anyway).`);
+	process.exit(0);
+}
 const read = (file: string) => JSON.parse(fs.readFileSync(new URL(`../fixtures/${file}`, import.meta.url), 'utf8'));
 const demo: { password: string; users: DemoUser[] } = read('demo.json');
 const demoPlans: DemoPlan[] = read('demo-plans.json').plans;

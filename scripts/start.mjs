@@ -17,7 +17,7 @@ ensureDependencies();
 ensurePostgres(s);
 migrate(s.env);
 seed(s.env);
-if (!dev) build();
+if (!dev) build({ devMailbox: s.useFakeMail });
 
 // A server already on the port would answer the health check below in this one's place.
 if (!(await portFree(s.host, s.port))) fail(`Port ${s.port} on ${s.host} is in use (another Stakeline running?); stop it or set PORT.`);

@@ -29,7 +29,7 @@ try {
 		run(bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings'], opts);
 	});
 	step('Unit and integration tests (vitest)', () => run(bin('vitest'), ['run'], opts));
-	step('Build', () => build({ force: true }));
+	step('Build', () => build({ force: true, devMailbox: s.useFakeMail }));
 	step('End-to-end tests (playwright)', () => run(bin('playwright'), ['test'], opts));
 	log(`All checks passed in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
 	process.exit(0);

@@ -1,5 +1,7 @@
 // See https://svelte.dev/docs/kit/types#app.d.ts
 declare global {
+	/** True only in the dev server and in builds made for the local fake mail server (vite.config.ts). */
+	const __DEV_MAILBOX__: boolean;
 	namespace App {
 		interface Locals {
 			user: import('$lib/server/auth').SessionValidationResult['user'];

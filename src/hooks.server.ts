@@ -1,9 +1,10 @@
-import type { Handle, ServerInit } from '@sveltejs/kit';
+import { error, type Handle, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { env } from '$env/dynamic/private';
 import * as auth from '$lib/server/auth';
 import { mailIdle, startMailWorker } from '$lib/server/mail';
+import { startLinkPurge } from '$lib/server/email-tokens';
 import { ensureAdmin } from '$lib/server/users';
 import { client } from '$lib/server/db';
 
@@ -11,6 +12,7 @@ export const init: ServerInit = async () => {
 	if (building) return;
 	await ensureAdmin(env.ADMIN_EMAIL, env.ADMIN_PASSWORD);
 	startMailWorker();
+	startLinkPurge();
 	// Let mail already being sent finish before the pool closes.
 	process.on('sveltekit:shutdown', () => void mailIdle().then(() => client.end({ timeout: 5 })));
 };
@@ -30,8 +32,26 @@ const handleAuth: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
+/** BODY_SIZE_LIMIT as adapter-node reads it ("16M", "512K", bytes). */
+const bodyLimit = (() => {
+	const m = /^(\d+)([KMG]?)$/i.exec(env.BODY_SIZE_LIMIT ?? '512K');
+	return m ? Number(m[1]) * 1024 ** ' KMG'.indexOf(m[2].toUpperCase() || ' ') : Infinity;
+})();
+
+/** A body over the limit is refused up front with 413 and the limit, not a parse error later. */
+const refuseLargeBodies: Handle = async ({ event, resolve }) => {
+	const length = Number(event.request.headers.get('content-length') ?? 0);
+	if (length > bodyLimit) {
+		const mb = (n: number) => `${(n / 1024 ** 2).toFixed(1)} MB`;
+		error(413, `The request is ${mb(length)}; the limit is ${mb(bodyLimit)}. Send smaller files, one at a time.`);
+	}
+	return resolve(event);
+};
+
 const securityHeaders: Handle = async ({ event, resolve }) => {
 	const response = await resolve(event);
+	// Only over HTTPS, or a plain-HTTP local run would be told to use HTTPS it does not have.
+	if (event.url.protocol === 'https:') response.headers.set('Strict-Transport-Security', 'max-age=31536000; includeSubDomains');
 	response.headers.set('X-Content-Type-Options', 'nosniff');
 	response.headers.set('Referrer-Policy', 'strict-origin-when-cross-origin');
 	response.headers.set('X-Frame-Options', 'DENY');
@@ -39,4 +59,4 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(handleAuth, securityHeaders);
+export const handle = sequence(refuseLargeBodies, handleAuth, securityHeaders);

@@ -130,8 +130,18 @@ test('repeated failed sign-ins are throttled with the wait time', async ({ page 
 	}
 	// Even the right password waits now.
 	await signIn(page, email, 'right-password-9');
-	await expect(page.getByText(/Too many failed sign-ins\. For your safety, please wait 15 minutes/)).toBeVisible();
+	await expect(page.getByText(/Too many sign-in attempts from here\. For your safety, please wait 15 minutes/)).toBeVisible();
 	await expect(page).toHaveURL(/\/signin/);
+
+	// The way around: a one-time sign-in link by e-mail.
+	await page.getByRole('link', { name: 'E-mail me a sign-in link instead' }).click();
+	await expect(page.getByLabel('E-mail')).toHaveValue(email);
+	await page.getByRole('button', { name: 'Send the link' }).click();
+	await expect(page.getByText(`If an account uses ${email}, a sign-in link is on its way.`)).toBeVisible();
+	const link = await mailLink(page, email, /sign-in link/);
+	await page.goto(link);
+	await page.getByRole('button', { name: 'Sign me in' }).click();
+	await expect(page).toHaveURL(/\/plans$/);
 });
 
 test.describe('without JavaScript', () => {

@@ -49,7 +49,7 @@ export async function mailLink(page: Page, email: string, subject: RegExp): Prom
 	await expect(async () => {
 		await page.goto(`/dev/mailbox?to=${encodeURIComponent(email)}`);
 		const mail = page.getByTestId('mail').filter({ has: page.getByRole('heading', { name: subject }) }).first();
-		href = await mail.getByTestId('mail-link').first().getAttribute('href', { timeout: 500 });
+		href = await mail.getByTestId('mail-link').first().getAttribute('href', { timeout: 3000 });
 		expect(href).toBeTruthy();
 	}).toPass({ timeout: 15_000 });
 	return href!;

@@ -37,15 +37,20 @@ function newestMtime(p) {
 	return max;
 }
 
-/** vite build, skipped when build/ is newer than every source file. */
-export function build({ force = false } = {}) {
+/**
+ * vite build, skipped when build/ is newer than every source file. `devMailbox` compiles in
+ * /dev/mailbox (only when the local fake mail server is used); a build made otherwise lacks it.
+ */
+export function build({ force = false, devMailbox = false } = {}) {
 	const stamp = path.join(root, 'build', '.stakeline-built');
 	const inputs = ['src', 'static', 'package-lock.json', 'svelte.config.js', 'vite.config.ts', 'tsconfig.json'];
 	const newest = Math.max(...inputs.map((p) => newestMtime(path.join(root, p))));
-	if (!force && fs.existsSync(stamp) && fs.statSync(stamp).mtimeMs >= newest) return log('Build is up to date');
+	const kind = devMailbox ? 'with-dev-mailbox' : 'plain';
+	const fresh = fs.existsSync(stamp) && fs.statSync(stamp).mtimeMs >= newest && fs.readFileSync(stamp, 'utf8').endsWith(kind);
+	if (!force && fresh) return log('Build is up to date');
 	log('Building the app (vite build)…');
-	run(bin('vite'), ['build'], { cwd: root });
-	fs.writeFileSync(stamp, new Date().toISOString());
+	run(bin('vite'), ['build'], { cwd: root, env: { ...process.env, STAKELINE_DEV_MAILBOX: devMailbox ? '1' : '0' } });
+	fs.writeFileSync(stamp, `${new Date().toISOString()} ${kind}`);
 }
 
 export function chromiumPath() {

@@ -1,19 +1,18 @@
 import { z } from 'zod';
+import { plainText } from '$lib/plan/text';
 
 export const PASSWORD_MIN = 10;
 
-const email = z
-	.string()
+const email = plainText()
 	.trim()
 	.min(1, 'Enter your e-mail address.')
 	.pipe(z.email('That does not look like an e-mail address.'));
-const newPassword = z
-	.string()
+const newPassword = plainText()
 	.min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
 	.max(200, 'Use at most 200 characters.');
 
 export const signUpSchema = z.object({
-	name: z.string().trim().min(1, 'Enter your name.').max(100, 'Use at most 100 characters.'),
+	name: plainText().trim().min(1, 'Enter your name.').max(100, 'Use at most 100 characters.'),
 	email,
 	password: newPassword,
 	role: z.enum(['homeowner', 'contractor'], { error: 'Choose how you will use Stakeline.' })
@@ -21,17 +20,17 @@ export const signUpSchema = z.object({
 
 export const signInSchema = z.object({
 	email,
-	password: z.string().min(1, 'Enter your password.')
+	password: plainText().min(1, 'Enter your password.')
 });
 
 export const requestResetSchema = z.object({ email });
 
 export const resetPasswordSchema = z.object({
-	token: z.string().min(1),
+	token: plainText().min(1),
 	password: newPassword
 });
 
 export const changePasswordSchema = z.object({
-	current: z.string().min(1, 'Enter your current password.'),
+	current: plainText().min(1, 'Enter your current password.'),
 	password: newPassword
 });

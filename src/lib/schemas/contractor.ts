@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from '$lib/plan/text';
 
 /** The parts of a slab job a contractor can take on; "whole" means all of them. */
 export const serviceKinds = ['layout_forms', 'base_prep', 'pour_finish', 'whole_job'] as const;
@@ -19,8 +20,7 @@ export const documentLabels: Record<DocumentKind, string> = { licence: 'Licence 
 
 /** A whole number typed into a text or number field; empty is "missing", not zero. */
 export const wholeNumber = (missing: string, min: number, max: number, unit = '') =>
-	z
-		.string()
+	plainText()
 		.trim()
 		.min(1, missing)
 		.pipe(
@@ -31,11 +31,10 @@ export const wholeNumber = (missing: string, min: number, max: number, unit = ''
 				.max(max, `Use at most ${max}${unit}.`)
 		);
 
-const text = (missing: string, max: number) => z.string().trim().min(1, missing).max(max, `Use at most ${max} characters.`);
+const text = (missing: string, max: number) => plainText().trim().min(1, missing).max(max, `Use at most ${max} characters.`);
 
 /** A US ZIP code: five digits (ZIP+4 is accepted and shortened). */
-export const zipCode = z
-	.string()
+export const zipCode = plainText()
 	.trim()
 	.regex(/^\d{5}(-\d{4})?$/, 'Enter a five-digit ZIP code.')
 	.transform((s) => s.slice(0, 5));
@@ -43,8 +42,7 @@ export const zipCode = z
 export const contractorProfileSchema = z.object({
 	businessName: text('Enter the business name.', 120),
 	contactName: text('Enter who homeowners will deal with.', 100),
-	phone: z
-		.string()
+	phone: plainText()
 		.trim()
 		.regex(/^\+?[0-9 ()./-]{7,25}$/, 'Enter a phone number with its area code.'),
 	description: text('Tell homeowners what your business does.', 2000),
@@ -59,6 +57,6 @@ export const contractorProfileSchema = z.object({
 export type ContractorProfileInput = z.output<typeof contractorProfileSchema>;
 
 export const vettingReasonSchema = z.object({
-	reason: z.string().trim().min(5, 'Say what the contractor needs to know (at least 5 characters).').max(1000, 'Use at most 1000 characters.')
+	reason: plainText().trim().min(5, 'Say what the contractor needs to know (at least 5 characters).').max(1000, 'Use at most 1000 characters.')
 });
-export const optionalReasonSchema = z.object({ reason: z.string().trim().max(1000, 'Use at most 1000 characters.').optional() });
+export const optionalReasonSchema = z.object({ reason: plainText().trim().max(1000, 'Use at most 1000 characters.').optional() });

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { plainText } from '$lib/plan/text';
 import { existingSurfaces, finishes, lineItemKinds, MAX_CONTRACTORS_PER_SEND, timeframes } from '$lib/leads';
 import { serviceKinds, wholeNumber } from './contractor';
 
@@ -7,10 +8,10 @@ const uuid = z.uuid('Unknown contractor.');
 export const getBidsSchema = z.object({
 	scope: z.enum(serviceKinds, { error: 'Choose what you want done.' }),
 	timeframe: z.enum(timeframes, { error: 'Choose when the work should happen.' }),
-	notes: z.string().trim().max(2000, 'Use at most 2000 characters.').default(''),
+	notes: plainText().trim().max(2000, 'Use at most 2000 characters.').default(''),
 	finish: z.enum(finishes, { error: 'Choose a finish.' }).default('broom'),
 	existingSurface: z.enum(existingSurfaces, { error: 'Choose what is there now.' }).default('grass_soil'),
-	siteAccess: z.string().trim().max(500, 'Use at most 500 characters.').default(''),
+	siteAccess: plainText().trim().max(500, 'Use at most 500 characters.').default(''),
 	contractors: z
 		.array(uuid)
 		.min(1, 'Choose at least one contractor.')
@@ -21,20 +22,18 @@ export const getBidsSchema = z.object({
 const DOLLARS = /^\$?\s*(\d{1,3}(,\d{3})+|\d+)(\.\d{1,2})?$/;
 const toCents = (s: string) => Math.round(Number(s.replace(/[$,\s]/g, '')) * 100);
 const dollarsMessage = 'Enter an amount in dollars, like 1850 or 1,850.00.';
-const dollars = z
-	.string()
+const dollars = plainText()
 	.trim()
 	.regex(DOLLARS, dollarsMessage)
 	.transform(toCents)
 	.pipe(z.number().max(1_000_000_00, 'That is more than this kind of job can cost.'));
-const optionalDollars = z
-	.string()
+const optionalDollars = plainText()
 	.trim()
 	.default('')
 	.refine((s) => s === '' || DOLLARS.test(s), dollarsMessage)
 	.transform((s) => (s === '' ? null : toCents(s)));
 
-const isoDate = (missing: string) => z.string().trim().min(1, missing).regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter a date.');
+const isoDate = (missing: string) => plainText().trim().min(1, missing).regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter a date.');
 const today = () => new Date().toISOString().slice(0, 10);
 
 export const bidSchema = z
@@ -44,9 +43,9 @@ export const bidSchema = z
 		earliestStart: isoDate('Enter the earliest start date.').refine((d) => d >= today(), 'Pick today or a later date.'),
 		durationDays: wholeNumber('Enter how many days the job takes.', 1, 60, ' days'),
 		validUntil: isoDate('Enter how long the price holds.').refine((d) => d >= today(), 'Pick today or a later date.'),
-		inclusions: z.string().trim().max(2000, 'Use at most 2000 characters.').default(''),
-		exclusions: z.string().trim().max(2000, 'Use at most 2000 characters.').default(''),
-		notes: z.string().trim().max(2000, 'Use at most 2000 characters.').default('')
+		inclusions: plainText().trim().max(2000, 'Use at most 2000 characters.').default(''),
+		exclusions: plainText().trim().max(2000, 'Use at most 2000 characters.').default(''),
+		notes: plainText().trim().max(2000, 'Use at most 2000 characters.').default('')
 	})
 	.transform((b, ctx) => {
 		const raw = b as unknown as Record<string, number | null>;
@@ -67,11 +66,11 @@ export const bidSchema = z
 export type BidInput = z.output<typeof bidSchema>;
 
 export const declineSchema = z.object({
-	reason: z.string().trim().min(3, 'Say briefly why, so the homeowner knows.').max(1000, 'Use at most 1000 characters.')
+	reason: plainText().trim().min(3, 'Say briefly why, so the homeowner knows.').max(1000, 'Use at most 1000 characters.')
 });
 
 export const messageSchema = z.object({
-	body: z.string().trim().min(1, 'Write a message first.').max(4000, 'Use at most 4000 characters.')
+	body: plainText().trim().min(1, 'Write a message first.').max(4000, 'Use at most 4000 characters.')
 });
 
 export const acceptSchema = z.object({ bid: z.uuid('Unknown bid.') });

@@ -1,13 +1,13 @@
 import { z } from 'zod';
+import { plainText } from '$lib/plan/text';
 
 /**
  * What a saved plan adds around the engine's input: its name and where it is. The engine's own
  * schema (planInputSchema in $lib/plan) validates `input`.
  */
 export const planMetaSchema = z.object({
-	name: z.string().trim().min(1, 'Give the plan a name.').max(100, 'Use at most 100 characters.'),
-	postcode: z
-		.string()
+	name: plainText().trim().min(1, 'Give the plan a name.').max(100, 'Use at most 100 characters.'),
+	postcode: plainText()
 		.trim()
 		.max(12, 'Use at most 12 characters.')
 		.regex(/^[A-Za-z0-9 -]*$/, 'Letters, digits, spaces and dashes only.')

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { needsRenewal, sessionExpiry, SESSION_LIFETIME_MS } from './auth';
+import { ABSOLUTE_LIFETIME_MS, needsRenewal, sessionExpiry, SESSION_LIFETIME_MS } from './auth';
 
 const DAY = 86_400_000;
 
@@ -16,5 +16,13 @@ describe('session lifetime', () => {
 		expect(needsRenewal(new Date(now + 15 * DAY + 1000), now)).toBe(false);
 		expect(needsRenewal(new Date(now + 15 * DAY - 1000), now)).toBe(true);
 		expect(needsRenewal(new Date(now + DAY), now)).toBe(true);
+	});
+
+	it('never runs past 90 days from sign-in, however often it is renewed', () => {
+		const signedIn = Date.parse('2026-03-01T00:00:00Z');
+		expect(ABSOLUTE_LIFETIME_MS).toBe(90 * DAY);
+		// Used on day 70: 30 more days would be day 100; the cap is day 90 (30 May).
+		expect(sessionExpiry(signedIn + 70 * DAY, signedIn).toISOString()).toBe('2026-05-30T00:00:00.000Z');
+		expect(sessionExpiry(signedIn + 20 * DAY, signedIn).toISOString()).toBe('2026-04-20T00:00:00.000Z');
 	});
 });

@@ -7,12 +7,15 @@ import { generateToken, hashToken } from './tokens';
 const DAY_IN_MS = 1000 * 60 * 60 * 24;
 export const SESSION_LIFETIME_MS = 30 * DAY_IN_MS;
 export const RENEW_WHEN_UNDER_MS = 15 * DAY_IN_MS;
+/** However often it is used, a session ends this long after sign-in. */
+export const ABSOLUTE_LIFETIME_MS = 90 * DAY_IN_MS;
 export const sessionCookieName = 'stakeline_session';
 
 export const generateSessionToken = generateToken;
 
-export function sessionExpiry(now = Date.now()): Date {
-	return new Date(now + SESSION_LIFETIME_MS);
+/** 30 days from now, but never past the absolute lifetime counted from `createdAt`. */
+export function sessionExpiry(now = Date.now(), createdAt = now): Date {
+	return new Date(Math.min(now + SESSION_LIFETIME_MS, createdAt + ABSOLUTE_LIFETIME_MS));
 }
 
 /** Sliding expiry: a session used in its second half gets a fresh 30 days. */
@@ -21,7 +24,8 @@ export function needsRenewal(expiresAt: Date, now = Date.now()): boolean {
 }
 
 export async function createSession(token: string, userId: string) {
-	const session: table.Session = { id: hashToken(token), userId, expiresAt: sessionExpiry() };
+	const now = Date.now();
+	const session: table.Session = { id: hashToken(token), userId, expiresAt: sessionExpiry(now), createdAt: new Date(now) };
 	await db.insert(table.session).values(session);
 	return session;
 }
@@ -46,12 +50,14 @@ export async function validateSessionToken(token: string) {
 	if (!result) return { session: null, user: null };
 	const { session, user } = result;
 
-	if (Date.now() >= session.expiresAt.getTime()) {
+	const now = Date.now();
+	if (now >= session.expiresAt.getTime() || now >= session.createdAt.getTime() + ABSOLUTE_LIFETIME_MS) {
 		await db.delete(table.session).where(eq(table.session.id, session.id));
 		return { session: null, user: null };
 	}
-	if (needsRenewal(session.expiresAt)) {
-		session.expiresAt = sessionExpiry();
+	const renewed = sessionExpiry(now, session.createdAt.getTime());
+	if (needsRenewal(session.expiresAt) && renewed > session.expiresAt) {
+		session.expiresAt = renewed;
 		await db.update(table.session).set({ expiresAt: session.expiresAt }).where(eq(table.session.id, session.id));
 	}
 	return { session, user };

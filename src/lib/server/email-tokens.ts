@@ -1,4 +1,4 @@
-import { and, eq, gt, isNull } from 'drizzle-orm';
+import { and, eq, gt, isNull, sql } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { emailToken, type TokenPurpose } from '$lib/server/db/schema';
 import { generateToken, hashToken } from './tokens';
@@ -6,7 +6,8 @@ import { generateToken, hashToken } from './tokens';
 const HOUR_MS = 60 * 60 * 1000;
 export const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
 	verify_email: 48 * HOUR_MS,
-	reset_password: HOUR_MS
+	reset_password: HOUR_MS,
+	sign_in: HOUR_MS / 4
 };
 
 /** A new one-time link token; earlier unused ones of the same purpose stop working. */
@@ -41,4 +42,25 @@ export async function peekEmailToken(token: string, purpose: TokenPurpose): Prom
 export async function consumeEmailToken(token: string, purpose: TokenPurpose): Promise<string | null> {
 	const [row] = await db.update(emailToken).set({ usedAt: new Date() }).where(usable(token, purpose)).returning({ userId: emailToken.userId });
 	return row?.userId ?? null;
+}
+
+/**
+ * One-time links do not outlive their sending: once a message has left the outbox (sent, or given
+ * up), its `token=` values are blanked, so the table and its backups hold no working link.
+ */
+export async function purgeSentLinks(): Promise<number> {
+	const rows = await db.execute(sql`
+		UPDATE mail_outbox
+		SET text = regexp_replace(text, 'token=[A-Za-z0-9_-]+', 'token=removed', 'g'),
+			html = regexp_replace(html, 'token=[A-Za-z0-9_-]+', 'token=removed', 'g')
+		WHERE status <> 'pending' AND text ~ 'token=[A-Za-z0-9_-]{10,}'
+		RETURNING id`);
+	return rows.length;
+}
+
+/** Runs the purge on a timer in every app server (the UPDATE is idempotent). */
+export function startLinkPurge(everyMs = 60_000) {
+	const timer = setInterval(() => purgeSentLinks().catch((err) => console.error('link purge:', err)), everyMs);
+	timer.unref();
+	return () => clearInterval(timer);
 }

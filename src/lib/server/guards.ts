@@ -4,12 +4,25 @@ import type { SessionUser } from './auth';
 
 export const homeFor = (role: Role) => roleHome[role].href;
 
-/** Only same-site paths may be redirected to after sign-in. */
+const BASE = 'http://stakeline.invalid';
+
+/**
+ * Only same-site paths may be redirected to after sign-in. The target is normalised the way a
+ * browser would read it (dot segments, percent-decoding by the query parser) and the result must
+ * still be a plain path: "/.//evil.example" normalises to "//evil.example", another site.
+ */
 export function safeRedirect(target: string | null | undefined, fallback: string): string {
-	// Browsers drop tabs and newlines and read "\\" as "/", so "/\t/evil.example" would leave the site.
-	if (!target || !target.startsWith('/') || /[\s\\]/.test(target)) return fallback;
-	const url = new URL(target, 'http://stakeline.invalid');
-	return url.origin === 'http://stakeline.invalid' ? url.pathname + url.search + url.hash : fallback;
+	// Browsers drop tabs and newlines and read "\" as "/", so "/\t/evil.example" would leave the site.
+	if (!target || !target.startsWith('/') || /[\s\\\u0000-\u001f\u007f]/.test(target)) return fallback;
+	let url: URL;
+	try {
+		url = new URL(target, BASE);
+	} catch {
+		return fallback;
+	}
+	const path = url.pathname + url.search + url.hash;
+	if (url.origin !== BASE || path.startsWith('//') || new URL(path, BASE).origin !== BASE) return fallback;
+	return path;
 }
 
 /** Signed-out visitors go to sign in and come back here afterwards. */

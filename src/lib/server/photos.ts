@@ -1,12 +1,18 @@
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, count, eq } from 'drizzle-orm';
 import sharp, { type OutputInfo } from 'sharp';
 import { db } from '$lib/server/db';
-import { planPhoto, type PlanPhoto } from '$lib/server/db/schema';
+import { plan, planPhoto, type PlanPhoto } from '$lib/server/db/schema';
 import { storage } from './storage';
 import { imageTypes, MB, sniffUpload } from './uploads';
 
 export const MAX_PHOTO_BYTES = 12 * MB;
 export const MAX_PHOTOS_PER_PLAN = 20;
+/**
+ * Largest image decoded: 40 megapixels (a 48 MP phone's default 24 MP photos pass). A PNG of
+ * 16383 × 16383 pixels is under a megabyte on disk but 268 MP, 800 MB once decoded.
+ */
+export const MAX_INPUT_PIXELS = 40_000_000;
+const tooMany = `A plan holds at most ${MAX_PHOTOS_PER_PLAN} photos.`;
 
 export class PhotoRejected extends Error {}
 
@@ -14,10 +20,17 @@ export class PhotoRejected extends Error {}
  * Stores a site photo, already checked by sniffUpload: re-encoded upright without its metadata
  * (phone photos carry the GPS position of the house), plus a small thumbnail.
  */
-export async function addPhoto(planId: string, bytes: Uint8Array, originalName: string): Promise<PlanPhoto> {	let image: Buffer, thumb: Buffer, info: OutputInfo;
+export async function addPhoto(planId: string, bytes: Uint8Array, originalName: string): Promise<PlanPhoto> {
+	// The header alone gives the size: a bomb is refused before any pixel is decoded.
+	const meta = await sharp(bytes).metadata().catch(() => null);
+	if (!meta?.width || !meta.height) throw new PhotoRejected('That image could not be read; it may be damaged.');
+	if (meta.width * meta.height > MAX_INPUT_PIXELS)
+		throw new PhotoRejected(`That image is ${meta.width} × ${meta.height} pixels; the limit is ${MAX_INPUT_PIXELS / 1e6} megapixels. Please send a smaller photo.`);
+	let image: Buffer, thumb: Buffer, info: OutputInfo;
 	try {
-		({ data: image, info } = await sharp(bytes).rotate().resize({ width: 2400, height: 2400, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 85 }).toBuffer({ resolveWithObject: true }));
-		thumb = await sharp(bytes).rotate().resize({ width: 360, height: 270, fit: 'cover' }).webp({ quality: 75 }).toBuffer();
+		// Decoded once: the thumbnail is made from the small re-encoded copy, not from the upload.
+		({ data: image, info } = await sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS }).rotate().resize({ width: 2400, height: 2400, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 85 }).toBuffer({ resolveWithObject: true }));
+		thumb = await sharp(image).resize({ width: 360, height: 270, fit: 'cover' }).webp({ quality: 75 }).toBuffer();
 	} catch {
 		throw new PhotoRejected('That image could not be read; it may be damaged.');
 	}
@@ -25,20 +38,31 @@ export async function addPhoto(planId: string, bytes: Uint8Array, originalName: 
 	const key = `plans/${planId}/photos/${id}`;
 	await storage().put(`${key}.jpg`, image, 'image/jpeg');
 	await storage().put(`${key}-thumb.webp`, thumb, 'image/webp');
-	const [row] = await db
-		.insert(planPhoto)
-		.values({
-			id,
-			planId,
-			storageKey: `${key}.jpg`,
-			thumbKey: `${key}-thumb.webp`,
-			contentType: 'image/jpeg',
-			bytes: image.byteLength,
-			width: info.width,
-			height: info.height,
-			originalName: originalName.slice(0, 200) || 'photo'
-		})
-		.returning();
+	const row = await db.transaction(async (tx) => {
+		// The plan row is locked while counting, so parallel uploads cannot all see room for one more.
+		await tx.select({ id: plan.id }).from(plan).where(eq(plan.id, planId)).for('update');
+		const [{ n }] = await tx.select({ n: count() }).from(planPhoto).where(eq(planPhoto.planId, planId));
+		if (n >= MAX_PHOTOS_PER_PLAN) return null;
+		const [inserted] = await tx
+			.insert(planPhoto)
+			.values({
+				id,
+				planId,
+				storageKey: `${key}.jpg`,
+				thumbKey: `${key}-thumb.webp`,
+				contentType: 'image/jpeg',
+				bytes: image.byteLength,
+				width: info.width,
+				height: info.height,
+				originalName: originalName.slice(0, 200) || 'photo'
+			})
+			.returning();
+		return inserted;
+	});
+	if (!row) {
+		await Promise.all([storage().delete(`${key}.jpg`), storage().delete(`${key}-thumb.webp`)]);
+		throw new PhotoRejected(tooMany);
+	}
 	return row;
 }
 
@@ -62,7 +86,8 @@ export type PhotoUpload = { ok: true; photo: PlanPhoto } | { ok: false; status: 
 /** Everything one uploaded file goes through, from the upload route and the no-JavaScript form alike. */
 export async function acceptPhotoUpload(planId: string, file: FormDataEntryValue | null): Promise<PhotoUpload> {
 	if (!(file instanceof File) || file.size === 0) return { ok: false, status: 400, message: 'Choose a photo to upload.' };
-	if ((await listPhotos(planId)).length >= MAX_PHOTOS_PER_PLAN) return { ok: false, status: 400, message: `A plan holds at most ${MAX_PHOTOS_PER_PLAN} photos.` };
+	// A quick answer when full; addPhoto checks again under a lock.
+	if ((await listPhotos(planId)).length >= MAX_PHOTOS_PER_PLAN) return { ok: false, status: 400, message: tooMany };
 	const checked = await sniffUpload(file, { maxBytes: MAX_PHOTO_BYTES, accept: imageTypes, what: 'photo' });
 	if (!checked.ok) return { ok: false, status: 400, message: checked.message };
 	try {

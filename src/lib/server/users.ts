@@ -4,7 +4,7 @@ import { contractor, user, type Role, type User } from '$lib/server/db/schema';
 import { hashPassword } from './password';
 import { createEmailToken } from './email-tokens';
 import { queueMail } from './mail';
-import { resetPasswordMail, verifyEmailMail } from './mail/templates';
+import { resetPasswordMail, signInLinkMail, verifyEmailMail } from './mail/templates';
 
 export class EmailTakenError extends Error {
 	constructor() {
@@ -60,14 +60,23 @@ export async function markEmailVerified(userId: string) {
 	await db.update(user).set({ emailVerifiedAt: new Date() }).where(eq(user.id, userId));
 }
 
-export async function sendVerificationMail(u: Pick<User, 'id' | 'name' | 'email'>, origin: string) {
+type MailUser = Pick<User, 'id' | 'name' | 'email' | 'emailVerifiedAt'>;
+/** The name the sign-up form chose is used only once the address is confirmed as its owner's. */
+const greeting = (u: MailUser) => (u.emailVerifiedAt ? u.name : '');
+
+export async function sendVerificationMail(u: MailUser, origin: string) {
 	const token = await createEmailToken(u.id, 'verify_email');
-	await queueMail(u.email, verifyEmailMail(u.name, `${origin}/verify-email?token=${token}`));
+	await queueMail(u.email, verifyEmailMail('', `${origin}/verify-email?token=${token}`));
 }
 
-export async function sendPasswordResetMail(u: Pick<User, 'id' | 'name' | 'email'>, origin: string) {
+export async function sendPasswordResetMail(u: MailUser, origin: string) {
 	const token = await createEmailToken(u.id, 'reset_password');
-	await queueMail(u.email, resetPasswordMail(u.name, `${origin}/reset-password?token=${token}`));
+	await queueMail(u.email, resetPasswordMail(greeting(u), `${origin}/reset-password?token=${token}`));
+}
+
+export async function sendSignInLinkMail(u: MailUser, origin: string) {
+	const token = await createEmailToken(u.id, 'sign_in');
+	await queueMail(u.email, signInLinkMail(greeting(u), `${origin}/signin/link?token=${token}`));
 }
 
 /** The first admin, from ADMIN_EMAIL / ADMIN_PASSWORD; nothing happens when it exists already. */
@@ -80,4 +89,12 @@ export async function ensureAdmin(email: string | undefined, password: string | 
 	} catch (err) {
 		if (!(err instanceof EmailTakenError)) throw err; // another app server got there first
 	}
+}
+
+/**
+ * Lets a mail send finish after the answer (so the answer's time does not depend on it). A failure
+ * is logged by its first line only: Drizzle's second line lists the query's parameters.
+ */
+export function inBackground(what: string, sending: Promise<unknown>) {
+	sending.catch((err) => console.error(`${what}:`, String((err as Error)?.message ?? err).split('\n')[0]));
 }

@@ -5,10 +5,12 @@ const escape = (s: string) =>
 
 /** One plain layout for every notice: a greeting, a few lines, one button, the same link as text. */
 export function notice(o: { subject: string; name: string; lines: string[]; action: string; url: string; footer: string }): Mail {
-	const text = [`Hello ${o.name},`, '', ...o.lines, '', `${o.action}: ${o.url}`, '', o.footer, '', '— Stakeline'].join('\n');
+	// No name: mail to an address nobody has confirmed carries no text the sign-up form chose.
+	const hello = o.name ? `Hello ${o.name},` : 'Hello,';
+	const text = [hello, '', ...o.lines, '', `${o.action}: ${o.url}`, '', o.footer, '', '— Stakeline'].join('\n');
 	const html = `<!doctype html><html><body style="font-family:Nunito,Arial,sans-serif;color:#1f2d27;background:#f6f3ea;padding:24px">
 <div style="max-width:520px;margin:auto;background:#fff;border-radius:12px;padding:24px">
-<p>Hello ${escape(o.name)},</p>
+<p>${escape(hello)}</p>
 ${o.lines.map((l) => `<p>${escape(l)}</p>`).join('\n')}
 <p><a href="${escape(o.url)}" style="display:inline-block;background:#2f6b4f;color:#fff;padding:10px 18px;border-radius:8px;text-decoration:none">${escape(o.action)}</a></p>
 <p style="font-size:13px;color:#5b6a62">Or open this address: ${escape(o.url)}</p>
@@ -36,5 +38,16 @@ export function resetPasswordMail(name: string, url: string): Mail {
 		action: 'Choose a new password',
 		url,
 		footer: 'The link works once and for 1 hour. If you did not ask for it, your password stays as it is.'
+	});
+}
+
+export function signInLinkMail(name: string, url: string): Mail {
+	return notice({
+		subject: 'Your Stakeline sign-in link',
+		name,
+		lines: ['Someone (we hope you) asked for a link to sign in to Stakeline without the password.'],
+		action: 'Sign me in',
+		url,
+		footer: 'The link works once and for 15 minutes. If you did not ask for it, ignore this message; your password stays as it is.'
 	});
 }

@@ -4,6 +4,7 @@ import { invalidateUserSessions, startSession } from '$lib/server/auth';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireUser } from '$lib/server/guards';
 import { verifyPassword } from '$lib/server/password';
+import { countMailRequest, formatWait } from '$lib/server/throttle';
 import { findUserById, sendVerificationMail, setPassword } from '$lib/server/users';
 import type { Actions } from './$types';
 
@@ -25,6 +26,8 @@ export const actions = {
 	resend: async (event) => {
 		const me = requireUser(event);
 		if (me.emailVerifiedAt) return fail(400, { message: 'Your e-mail is already confirmed.' });
+		const allowed = await countMailRequest(me.email, event.getClientAddress());
+		if (!allowed.ok) return fail(429, { message: `Too many confirmation e-mails sent. Please wait ${formatWait(allowed.waitMs)}.` });
 		await sendVerificationMail(me, event.url.origin);
 		return { resent: true };
 	}

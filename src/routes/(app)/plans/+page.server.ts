@@ -47,7 +47,8 @@ export const actions = {
 		const { data, failure } = await parseForm(event.request, idSchema);
 		if (failure) return failure;
 		try {
-			await deletePlan(data.id, me.id);
+			// Someone else's plan answers as missing, never as done.
+			if (!(await deletePlan(data.id, me.id))) return fail(404, { message: 'That plan no longer exists.' });
 		} catch (err) {
 			if (err instanceof PlanHasLeads) return fail(409, { message: err.message });
 			throw err;

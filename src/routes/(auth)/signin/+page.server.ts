@@ -4,7 +4,7 @@ import { startSession } from '$lib/server/auth';
 import { formError, parseForm } from '$lib/server/forms';
 import { homeFor, safeRedirect } from '$lib/server/guards';
 import { dummyHash, verifyPassword } from '$lib/server/password';
-import { clearSignInFailures, formatWait, recordSignInFailure, signInWait } from '$lib/server/throttle';
+import { countSignInAttempt, formatWait, signInSucceeded } from '$lib/server/throttle';
 import { findUserByEmail } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
@@ -19,17 +19,17 @@ export const actions = {
 		const { data, values, failure } = await parseForm(event.request, signInSchema);
 		if (failure) return failure;
 		const ip = event.getClientAddress();
-		const wait = await signInWait(data.email, ip);
-		if (wait > 0) return formError(values, `Too many failed sign-ins. For your safety, please wait ${formatWait(wait)} and try again.`, {}, 429);
-
+		// Counted before the password is checked, so parallel guesses cannot slip past the limit.
+		const gate = await countSignInAttempt(data.email, ip);
+		if (!gate.ok) {
+			const when = `please wait ${formatWait(gate.waitMs)}`;
+			return formError(values, `Too many sign-in attempts ${gate.scope === 'pair' ? 'from here' : 'on this account'}. For your safety, ${when}, or have a sign-in link e-mailed to you.`, {}, 429);
+		}
 		const user = await findUserByEmail(data.email);
 		// An unknown address is checked against a dummy hash, so timing does not tell who has an account.
 		const ok = await verifyPassword(user?.passwordHash ?? (await dummyHash()), data.password);
-		if (!user || !ok) {
-			await recordSignInFailure(data.email, ip);
-			return formError(values, 'That e-mail and password do not match an account.', { password: 'Check your password, or reset it.' });
-		}
-		await clearSignInFailures(data.email);
+		if (!user || !ok) return formError(values, 'That e-mail and password do not match an account.', { password: 'Check your password, or reset it.' });
+		await signInSucceeded(data.email, ip);
 		await startSession(event, user.id);
 		redirect(303, safeRedirect(values.redirectTo, homeFor(user.role)));
 	}

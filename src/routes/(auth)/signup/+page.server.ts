@@ -3,7 +3,7 @@ import { signUpSchema } from '$lib/schemas/account';
 import { startSession } from '$lib/server/auth';
 import { formError, parseForm } from '$lib/server/forms';
 import { homeFor, safeRedirect } from '$lib/server/guards';
-import { createUser, EmailTakenError, sendVerificationMail } from '$lib/server/users';
+import { createUser, EmailTakenError, inBackground, sendVerificationMail } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (({ locals, url }) => {
@@ -25,7 +25,8 @@ export const actions = {
 			if (err instanceof EmailTakenError) return formError(values, 'Please correct the fields marked below.', { email: err.message + ' Sign in instead?' });
 			throw err;
 		}
-		await sendVerificationMail(user, event.url.origin);
+		// In the background, so a new address costs no more time than a taken one.
+		inBackground('verification mail', sendVerificationMail(user, event.url.origin));
 		await startSession(event, user.id);
 		redirect(303, user.role === 'contractor' ? '/pro' : safeRedirect(values.redirectTo, homeFor(user.role)));
 	}

@@ -4,13 +4,17 @@ import { db } from '$lib/server/db';
 import { contractor, user } from '$lib/server/db/schema';
 import { requireRole } from '$lib/server/guards';
 import { pageFrom } from '$lib/paging';
+import { searchSchema } from '$lib/schemas/search';
+import { error } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
 
 const likePattern = (s: string) => `%${s.replace(/[%_\\]/g, '\\$&')}%`;
 
 export const load = (async (event) => {
 	requireRole(event, 'admin');
-	const q = event.url.searchParams.get('q')?.trim().slice(0, 100) ?? '';
+	const search = searchSchema.safeParse({ q: event.url.searchParams.get('q') ?? undefined });
+	if (!search.success) error(400, search.error.issues[0].message);
+	const q = search.data.q;
 	const roleParam = event.url.searchParams.get('role') ?? '';
 	const role = (roles as readonly string[]).includes(roleParam) ? (roleParam as Role) : null;
 	const paging = pageFrom(event.url, 25);

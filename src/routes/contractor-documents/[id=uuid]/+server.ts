@@ -17,7 +17,8 @@ export const GET: RequestHandler = async (event) => {
 		headers: {
 			'Content-Type': doc.contentType,
 			'Content-Length': String(bytes.byteLength),
-			'Content-Disposition': `inline; filename="${doc.originalName.replace(/[^\w.() -]/g, '_')}"`,
+			// Named by the server from the sniffed type the key was stored under, never the uploader's name.
+			'Content-Disposition': `inline; filename="${doc.kind}.${doc.storageKey.split('.').pop()}"`,
 			'Cache-Control': 'private, no-store',
 			// The bytes were sniffed, but never let a document run script in our origin.
 			'Content-Security-Policy': "default-src 'none'; style-src 'unsafe-inline'; sandbox"

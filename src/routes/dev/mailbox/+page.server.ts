@@ -3,17 +3,17 @@ import { desc, ilike } from 'drizzle-orm';
 import { env } from '$env/dynamic/private';
 import { db } from '$lib/server/db';
 import { devMail } from '$lib/server/db/schema';
+import { searchSchema } from '$lib/schemas/search';
+import { mailboxOpen } from '$lib/server/dev-mailbox';
 import type { PageServerLoad } from './$types';
 
 const LINK = /https?:\/\/[^\s<>"]+/g;
 
-const LOOPBACK = /^(127\.|::1$|::ffff:127\.)/;
-
 export const load = (async ({ url, getClientAddress }) => {
-	// Only the local fake SMTP server fills this table; without it the page does not exist. It holds
-	// sign-in links, so even then it answers only to this machine.
-	if (env.MAIL_FAKE !== '1' || !LOOPBACK.test(getClientAddress())) error(404, 'Not found');
-	const to = url.searchParams.get('to')?.trim().toLowerCase() ?? '';
+	if (!mailboxOpen(url, getClientAddress(), env, __DEV_MAILBOX__)) error(404, 'Not found');
+	const search = searchSchema.safeParse({ q: url.searchParams.get('to') ?? undefined });
+	if (!search.success) error(400, search.error.issues[0].message);
+	const to = search.data.q.toLowerCase();
 	const rows = await db
 		.select()
 		.from(devMail)

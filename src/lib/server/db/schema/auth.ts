@@ -1,5 +1,4 @@
-import { sql } from 'drizzle-orm';
-import { index, pgEnum, pgTable, serial, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, integer, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 import { roles, type Role } from '../../../roles';
 
@@ -25,12 +24,14 @@ export const session = pgTable(
 		userId: uuid('user_id')
 			.notNull()
 			.references(() => user.id, { onDelete: 'cascade' }),
-		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull()
+		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+		// Renewal never moves a session past its absolute lifetime, counted from here.
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 	},
 	(t) => [index('session_user_idx').on(t.userId)]
 );
 
-export const tokenPurposes = ['verify_email', 'reset_password'] as const;
+export const tokenPurposes = ['verify_email', 'reset_password', 'sign_in'] as const;
 export type TokenPurpose = (typeof tokenPurposes)[number];
 export const tokenPurposeEnum = pgEnum('token_purpose', tokenPurposes);
 
@@ -49,16 +50,15 @@ export const emailToken = pgTable(
 	(t) => [index('email_token_user_idx').on(t.userId, t.purpose)]
 );
 
-/** Failed sign-ins, keyed `email:…` or `ip:…`; read by the throttle, pruned as they age out. */
-export const signInFailure = pgTable(
-	'sign_in_failure',
-	{
-		id: serial('id').primaryKey(),
-		key: text('key').notNull(),
-		at: timestamp('at', { withTimezone: true }).notNull().default(sql`now()`)
-	},
-	(t) => [index('sign_in_failure_key_at_idx').on(t.key, t.at)]
-);
+/**
+ * rate-limiter-flexible's counters (sign-in attempts, requested mail), in the shape its Drizzle
+ * store reads: one row per key, reset when `expire` has passed.
+ */
+export const throttleCounter = pgTable('throttle_counter', {
+	key: text('key').primaryKey(),
+	points: integer('points').notNull().default(0),
+	expire: timestamp('expire', { withTimezone: true })
+});
 
 export type User = typeof user.$inferSelect;
 export type Session = typeof session.$inferSelect;

@@ -1,0 +1,57 @@
+import { expect, test, type Page } from '@playwright/test';
+import { demoPassword, demoUser, signIn } from './helpers';
+
+/** Fails the test on any page error or any script, style or connection the page's CSP blocked. */
+function watch(page: Page) {
+	const problems: string[] = [];
+	page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
+	page.on('console', (m) => {
+		if (m.type() === 'error' && /Content Security Policy/i.test(m.text())) problems.push(m.text());
+	});
+	return problems;
+}
+
+test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and chart run under it', async ({ page }) => {
+	const problems = watch(page);
+	const home = await page.goto('/');
+	const csp = home!.headers()['content-security-policy'];
+	const scriptSrc = csp.split(';').find((d) => d.trim().startsWith('script-src'))!;
+	expect(scriptSrc).toMatch(/'nonce-[\w+/=]+'/);
+	expect(scriptSrc).not.toContain('unsafe-inline');
+	expect(csp).toContain("frame-ancestors 'none'");
+
+	await page.goto('/plans/new', { waitUntil: 'networkidle' });
+	await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
+
+	const owner = demoUser('homeowner');
+	await signIn(page, owner.email, demoPassword);
+	await expect(page).toHaveURL(/\/plans$/);
+	await page.getByRole('link', { name: /patio|pad|walk/i }).first().click();
+	await page.getByRole('button', { name: 'Show 3D preview' }).click();
+	await expect(page.locator('canvas').first()).toBeVisible();
+	await page.waitForLoadState('networkidle');
+	expect(problems).toEqual([]);
+});
+
+test('sign-in never redirects off the site, whatever form the target takes', async ({ page }) => {
+	const problems = watch(page);
+	const owner = demoUser('homeowner');
+	for (const target of ['%2F.%2F%2Fevil.example', '%2F%2Fevil.example', '%2F%5Cevil.example', '%2F%09%2Fevil.example']) {
+		await page.context().clearCookies();
+		await page.goto(`/signin?redirectTo=${target}`, { waitUntil: 'networkidle' });
+		await page.getByLabel('E-mail').fill(owner.email);
+		await page.getByLabel('Password').fill(demoPassword);
+		await page.getByRole('button', { name: 'Sign in' }).click();
+		await expect(page).toHaveURL(/^http:\/\/127\.0\.0\.1:\d+\/plans$/);
+	}
+	expect(problems).toEqual([]);
+});
+
+test('a 20 MB body is refused with 413 and the limit', async ({ request }) => {
+	const res = await request.post('/forgot-password', {
+		headers: { 'content-type': 'application/x-www-form-urlencoded', origin: new URL(test.info().project.use.baseURL!).origin },
+		data: Buffer.alloc(20 * 1024 * 1024, 'a')
+	});
+	expect(res.status()).toBe(413);
+	expect(await res.text()).toContain('the limit is 16.0 MB');
+});
