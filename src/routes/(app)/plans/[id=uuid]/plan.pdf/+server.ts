@@ -1,6 +1,6 @@
-import { error } from '@sveltejs/kit';
+import { error, json } from '@sveltejs/kit';
 import { requireApiRole } from '$lib/server/api';
-import { planPdf } from '$lib/server/pdf/planPdf';
+import { PdfRefused, renderPlanPdf } from '$lib/server/pdf/pool';
 import { findOwnPlan, planView } from '$lib/server/plans';
 import type { RequestHandler } from './$types';
 
@@ -9,7 +9,14 @@ export const GET: RequestHandler = async ({ locals, params }) => {
 	const found = await findOwnPlan(params.id, me.id);
 	if (!found) error(404, 'No such plan.');
 	const view = planView(found);
-	const bytes = await planPdf({ name: view.name, result: view.result, createdAt: found.updatedAt });
+	let bytes: Uint8Array;
+	try {
+		// Drawn in a worker thread with a time and memory cap, never on the request loop.
+		bytes = await renderPlanPdf({ name: view.name, result: view.result, createdAt: found.updatedAt });
+	} catch (err) {
+		if (!(err instanceof PdfRefused)) throw err;
+		return json({ message: err.message }, { status: err.status, headers: err.status === 503 ? { 'retry-after': '5' } : {} });
+	}
 	const file = view.name.replace(/[^A-Za-z0-9 _-]/g, '').trim().replace(/\s+/g, '-') || 'plan';
 	return new Response(bytes as BodyInit, {
 		headers: {
