@@ -1,4 +1,5 @@
 import type { Handle, ServerInit } from '@sveltejs/kit';
+import { requestHandle, serverErrorHandler } from '$lib/server/requests';
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { env } from '$env/dynamic/private';
@@ -39,4 +40,6 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(handleAuth, securityHeaders);
+// Request log and the database-down 503 come first, so they see every other hook's outcome.
+export const handle = sequence(requestHandle(), handleAuth, securityHeaders);
+export const handleError = serverErrorHandler();

@@ -4,3 +4,4 @@ export * from './contractors';
 export * from './leads';
 export * from './mail';
 export * from './plans';
+export * from './idempotency';
