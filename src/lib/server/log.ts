@@ -44,6 +44,7 @@ export function errorSummary(err: unknown): Record<string, unknown> {
 		code: (err as { code?: unknown }).code ?? (cause as { code?: unknown } | undefined)?.code,
 		message: firstLine(err.message),
 		cause: cause && firstLine(cause.message),
-		stack: err.stack?.split('\n').slice(1, 6).join('\n')
+		// Only the frames: the stack's head repeats the whole message.
+		stack: err.stack?.split('\n').filter((l) => /^\s+at /.test(l)).slice(0, 5).join('\n')
 	};
 }
