@@ -40,7 +40,7 @@ function newestMtime(p) {
 /** vite build, skipped when build/ is newer than every source file. */
 export function build({ force = false } = {}) {
 	const stamp = path.join(root, 'build', '.stakeline-built');
-	const inputs = ['src', 'static', 'package-lock.json', 'svelte.config.js', 'vite.config.ts', 'tsconfig.json'];
+	const inputs = ['src', 'static', 'package-lock.json', 'svelte.config.js', 'vite.config.ts', 'vite-plugins', 'tsconfig.json'];
 	const newest = Math.max(...inputs.map((p) => newestMtime(path.join(root, p))));
 	if (!force && fs.existsSync(stamp) && fs.statSync(stamp).mtimeMs >= newest) return log('Build is up to date');
 	log('Building the app (vite build)…');
