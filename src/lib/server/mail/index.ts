@@ -4,6 +4,7 @@ import { env } from '$env/dynamic/private';
 import { db } from '$lib/server/db';
 import { mailOutbox, type OutboxMail } from '$lib/server/db/schema';
 import type { Mail } from './templates';
+import { log } from '../log';
 
 export const MAX_ATTEMPTS = 8;
 
@@ -30,7 +31,7 @@ export const mailIdle = () => Promise.allSettled([...inFlight]);
 export async function queueMail(to: string, mail: Mail) {
 	const [row] = await db.insert(mailOutbox).values({ to, ...mail }).returning({ id: mailOutbox.id });
 	// Sent in the background: the request that queued it does not wait on the SMTP server.
-	const sending = deliverDue().catch((err) => console.error('mail delivery:', err));
+	const sending = deliverDue().catch((err) => log.warn({ err }, 'mail delivery failed'));
 	inFlight.add(sending);
 	void sending.finally(() => inFlight.delete(sending));
 	return row.id;
@@ -82,7 +83,7 @@ async function send(mail: OutboxMail, transport?: Transporter): Promise<boolean>
 
 /** Retries on a timer in every app server; the claim above keeps them from colliding. */
 export function startMailWorker(everyMs = 15_000) {
-	const timer = setInterval(() => deliverDue().catch((err) => console.error('mail worker:', err)), everyMs);
+	const timer = setInterval(() => deliverDue().catch((err) => log.warn({ err }, 'mail worker failed')), everyMs);
 	timer.unref();
 	return () => clearInterval(timer);
 }

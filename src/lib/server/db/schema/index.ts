@@ -5,3 +5,4 @@ export * from './leads';
 export * from './mail';
 export * from './plans';
 export * from './idempotency';
+export * from './rate';
