@@ -33,7 +33,7 @@ export function requestHandle(logger: Logger = defaultLog): Handle {
 		idFor.set(event.request, requestId);
 		let response: Response;
 		try {
-			response = await resolve(event);
+			response = refuseEarly(event, requestId) ?? (await resolve(event));
 			if (downFor.has(event.request) && response.status === 500) {
 				const headers = new Headers(response.headers);
 				headers.set('retry-after', String(RETRY_AFTER_S));
@@ -64,6 +64,30 @@ export function requestHandle(logger: Logger = defaultLog): Handle {
 		});
 		return response;
 	};
+}
+
+/** adapter-node's body limit (BODY_SIZE_LIMIT, e.g. "16M"), so an over-long body gets 413 before any action reads it. */
+function bodyLimit(): number {
+	const m = /^(\d+)([KMG]?)$/i.exec(process.env.BODY_SIZE_LIMIT ?? '512K');
+	if (!m) return Infinity;
+	return Number(m[1]) * ({ '': 1, K: 1024, M: 1024 ** 2, G: 1024 ** 3 } as Record<string, number>)[m[2].toUpperCase()];
+}
+
+/** Requests answered with a 4xx before routing: too large a body; a form naming the reserved "default" action. */
+function refuseEarly(event: RequestEvent, requestId: string): Response | null {
+	const headers = { 'x-request-id': requestId };
+	const length = Number(event.request.headers.get('content-length') ?? 0);
+	const limit = bodyLimit();
+	if (length > limit) {
+		const message = `The request body is ${length} bytes; the limit is ${limit} bytes.`;
+		return json({ message, errors: [{ path: '', message }] }, { status: 413, headers });
+	}
+	// SvelteKit throws (a 500) when a client names the default action; it is simply not an action name.
+	if (event.request.method === 'POST' && event.url.searchParams.has('/default')) {
+		const message = 'No such form action.';
+		return json({ message, errors: [{ path: '', message }] }, { status: 400, headers });
+	}
+	return null;
 }
 
 /** Unexpected errors: logged without query parameters; the database being down is said plainly. */

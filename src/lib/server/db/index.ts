@@ -16,7 +16,7 @@ export const client = postgres(env.DATABASE_URL ?? '', {
 	connect_timeout: 3,
 	// Retry a lost server every quarter second rather than the default growing pause (up to 20 s):
 	// queries wait on that pause, so it decides how fast an outage answers and how fast we recover.
-	backoff: 0.25,
+	backoff: () => 0.25,
 	idle_timeout: 60,
 	connection: { statement_timeout: 10_000, idle_in_transaction_session_timeout: 15_000 }
 });
