@@ -55,6 +55,7 @@ export function crewTime(bags: number, bag: BagOffer, crew: Model['crew']): Crew
 
 export interface Split {
 	parts: number;
+	/** Bags in each part; empty when there are more parts than MAX_PRACTICAL_PARTS. */
 	bagsPerPart: number[];
 	/** Where the new cold joints go, in plan coordinates; empty when impractical. */
 	coldJoints: { from: Pt; to: Pt }[];
@@ -121,11 +122,12 @@ export function splitSection(
 ): Split {
 	const parts = countUp(bags / maxBags);
 	if (parts > MAX_PRACTICAL_PARTS)
+		// Not laid out part by part: a list per part would grow with the bag count, not the slab's size.
 		return {
 			parts,
-			bagsPerPart: times(parts, (k) => Math.floor(bags / parts) + (k < bags % parts ? 1 : 0)),
+			bagsPerPart: [],
 			coldJoints: [],
-			note: `The crew would need ${parts} separate pours for this section; ready-mix or more hands is the practical answer.`
+			note: `The crew would need ${parts} separate pours of about ${countUp(bags / parts)} bags for this section; ready-mix or more hands is the practical answer.`
 		};
 	const uSpan = grid.us[grid.us.length - 1] - grid.us[0];
 	const wSpan = grid.ws[grid.ws.length - 1] - grid.ws[0];

@@ -1,13 +1,18 @@
 // Properties that must hold for any slab: volume scales with thickness and area, moving or turning
-// the outline changes nothing, and splitting a rectangle into two pours keeps the total.
+// the outline changes nothing, splitting a rectangle into two pours keeps the total, and the answer
+// to any plan inside the schema's limits stays within its stated size (time is the bench's job).
 
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { computePlan, type PlanInput, type PlanResult } from './index';
-import { ELL, rect } from './test-plans';
+import { planInside } from './bounds.arbitraries';
+import { toRoundedJson } from './format';
+import { computePlan, estimate, type PlanInput, type PlanResult } from './index';
+import { answerBytesBound, LIMITS } from './schema';
+import { ELL, largestPlan, rect } from './test-plans';
 
 const RUNS = { numRuns: 40 };
-const size = fc.double({ min: 4, max: 40, noNaN: true });
+// Up to 27 ft a side, so twice that stays inside the 3000 ft² limit.
+const size = fc.double({ min: 4, max: 27, noNaN: true });
 const plan = (outline: [number, number][], over: Partial<PlanInput> = {}): PlanInput =>
 	({ units: 'imperial', sections: [{ outline }], ...over }) as PlanInput;
 const close = (a: number, b: number, rel = 1e-9) => expect(Math.abs(a - b)).toBeLessThanOrEqual(rel * Math.max(1, Math.abs(a)));
@@ -115,5 +120,51 @@ describe('splitting a rectangle into two sections', () => {
 			}),
 			RUNS
 		);
+	});
+});
+
+describe('the answer stays within its stated bound for any plan inside the limits', () => {
+	it('grows at most linearly with stakes, corners and sections, and stays under 1 MB', () => {
+		fc.assert(
+			fc.property(planInside, (input) => {
+				const r = estimate(input);
+				if (!r.ok) {
+					// The generator does not work out bag counts: only the bag limit may refuse its plans.
+					for (const e of r.errors) expect(e.message).toMatch(/bags; the limit is 10,000/);
+					return;
+				}
+				const bytes = Buffer.byteLength(toRoundedJson(r.plan));
+				const corners = r.plan.geometry.sections.reduce((s, x) => s + x.outline.length, 0);
+				const stakes = r.plan.elevations.stakes.length;
+				expect(stakes).toBeLessThanOrEqual(LIMITS.stakes + corners); // one per spacing plus corners
+				expect(bytes).toBeLessThanOrEqual(answerBytesBound(stakes, corners, r.plan.geometry.sections.length));
+				expect(bytes).toBeLessThan(1_000_000);
+			}),
+			{ numRuns: 80 }
+		);
+		// Large plans take a while on a loaded machine; time itself is the bench's concern.
+	}, 60_000);
+
+	it('meets the bound at every limit at once', () => {
+		// The largest plan: 3 sections of 100 corners, 600 stakes' worth of outline, the smallest bag.
+		const r = estimate(largestPlan());
+		if (!r.ok) throw new Error(JSON.stringify(r.errors));
+		const bytes = Buffer.byteLength(toRoundedJson(r.plan));
+		expect(bytes).toBeLessThanOrEqual(answerBytesBound(r.plan.elevations.stakes.length, 300, 3));
+		expect(bytes).toBeLessThan(1_000_000);
+	});
+
+	it('does not grow with the bag count when a section would take thousands of pours', () => {
+		// 40 × 50 ft of 10 lb bags (about 9,800) for one person with 10 min of working time: a pour a bag.
+		const r = estimate({
+			units: 'imperial',
+			sections: [{ outline: rect(0, 0, 50, 40) }],
+			bags: { offered: [{ size: 10 }] },
+			crew: { people: 1, method: 'hand', handMixMinutes: 30, workingMinutes: 10, finishMinutes: 0 }
+		});
+		if (!r.ok) throw new Error(JSON.stringify(r.errors));
+		expect(r.plan.mixing.sections[0].split?.parts).toBeGreaterThan(9000);
+		const bytes = Buffer.byteLength(toRoundedJson(r.plan));
+		expect(bytes).toBeLessThanOrEqual(answerBytesBound(r.plan.elevations.stakes.length, 4, 1));
 	});
 });

@@ -84,3 +84,87 @@ describe('JSON Schema', () => {
 		expect(JSON.stringify(s)).toContain('"maximum":1000'); // coordinate bound, ft
 	});
 });
+
+describe('scope limits', () => {
+	const rect = (w: number, h: number) => [[0, 0], [w, 0], [w, h], [0, h]];
+	const plan = (over: object) => ({ units: 'imperial', ...over });
+	const messages = (input: unknown) => {
+		const r = parsePlanInput(input);
+		return r.ok ? [] : r.errors.map((e) => `${e.path}: ${e.message}`);
+	};
+
+	it('takes 3000 ft² of slab and refuses more, naming the limit', () => {
+		expect(messages(plan({ sections: [{ outline: rect(50, 60) }] }))).toEqual([]); // 50 × 60 = 3000 ft²
+		expect(messages(plan({ sections: [{ outline: rect(50, 60.1) }] }))).toEqual([
+			'sections: The slab is 3,005 ft²; the limit is 3,000 ft². Plan a larger job as separate slabs.' // 50 × 60.1 = 3005
+		]);
+		expect(messages({ units: 'metric', sections: [{ outline: rect(14, 21) }] })[0]).toMatch(/is 294 m²; the limit is 280 m²/); // 14 × 21
+	});
+
+	it('takes 1000 ft of outline and refuses more', () => {
+		expect(messages(plan({ sections: [{ outline: rect(499, 1) }], forms: { stakeSpacing: 2 } }))).toEqual([]); // 2 × 499 + 2 = 1000 ft
+		expect(messages(plan({ sections: [{ outline: rect(499.5, 1) }], forms: { stakeSpacing: 2 } }))[0]).toMatch(
+			/add up to 1,001 ft of edge; the limit is 1,000 ft/
+		);
+	});
+
+	it('counts stakes as outline ÷ spacing: 600 taken, 601 refused at the spacing', () => {
+		expect(messages(plan({ sections: [{ outline: rect(290, 10) }], forms: { stakeSpacing: 1 } }))).toEqual([]); // 600 ft at 1 ft
+		expect(messages(plan({ sections: [{ outline: rect(290.5, 10) }], forms: { stakeSpacing: 1 } }))).toEqual([
+			'forms.stakeSpacing: Stakes every 1 ft along 601 ft of outline make about 601 stakes; the limit is 600. Space the stakes wider.'
+		]);
+	});
+
+	it('refuses a bag size that would take over 10,000 bags', () => {
+		// 40 × 40 ft × 6 in = 800 ft³, + 10 % waste = 880 ft³; 10 lb → 0.075 ft³ (80 lb → 0.60 ft³, bag labels): 11,734 bags.
+		const slab = plan({ sections: [{ outline: rect(40, 40) }], thickness: 6, bags: { offered: [{ size: 20 }, { size: 10 }] } });
+		expect(messages(slab)).toEqual([
+			'bags.offered.1.size: With 10 lb bags this slab takes about 11,734 bags; the limit is 10,000 of a size. Offer a larger bag, or plan ready-mix.'
+		]); // 20 lb → 0.15 ft³: 5,867 bags, taken
+	});
+
+	it('counts corners per section and in all', () => {
+		const star = (n: number, cx: number) =>
+			Array.from({ length: n }, (_, i) => [cx + 5 * Math.cos((2 * Math.PI * i) / n), 5 * Math.sin((2 * Math.PI * i) / n)]);
+		expect(messages(plan({ sections: [{ outline: star(101, 0) }] }))).toEqual(['sections.0.outline: Give at most 100 corners in the outline.']);
+		const four = [0, 11, 22, 33].map((cx) => ({ outline: star(76, cx) })); // 4 × 76 = 304
+		expect(messages(plan({ sections: four }))).toEqual(['sections: The outlines have 304 corners in all; the limit is 300. Use fewer corners.']);
+	});
+});
+
+describe('messages in plain words', () => {
+	const messageAt = (input: object, path: string) => {
+		const r = parsePlanInput({ ...base, ...input });
+		if (r.ok) throw new Error('expected errors');
+		return r.errors.find((e) => e.path === path)?.message;
+	};
+
+	it('name the field, its unit and the range, in the plan’s units', () => {
+		expect(messageAt({ thickness: 'four' }, 'thickness')).toBe('Enter the thickness, 2–12 in.');
+		expect(messageAt({ forms: { stakeSpacing: 9 } }, 'forms.stakeSpacing')).toBe('Enter the stake spacing, 1–8 ft.');
+		expect(messageAt({ units: 'metric', forms: { stakeSpacing: 9 } }, 'forms.stakeSpacing')).toBe('Enter the stake spacing, 0.3–2.5 m.');
+		expect(messageAt({ conditions: { wind: -1 } }, 'conditions.wind')).toBe('Enter the wind speed, 0–100 mph.');
+		expect(messageAt({ reference: { below: 50 } }, 'reference.below')).toBe('Enter how far the slab sits below the reference mark, −48 to 48 in.');
+		expect(messageAt({ loads: { vehicles: 1 } }, 'loads.vehicles')).toBe('Choose yes or no (true or false) for whether vehicles drive on the slab.');
+		expect(messageAt({ name: 'x'.repeat(101) }, 'name')).toBe('Shorten the plan name to 100 characters or fewer.');
+		expect(messageAt({ slope: { fall: { value: 4, unit: 'inPerFt' } } }, 'slope.fall.value')).toBe('Enter the fall, at most 3 in per ft (a 25 % slope).');
+	});
+
+	it('give every number field a message with its range, never the validator’s text', () => {
+		const s = planInputJsonSchema() as { oneOf: { properties: Record<string, { type?: string; properties?: Record<string, { type?: string }> }> }[] };
+		let checked = 0;
+		for (const [key, field] of Object.entries(s.oneOf[0].properties)) {
+			const nested = field.properties ? Object.entries(field.properties).filter(([, f]) => f.type === 'number' || f.type === 'integer') : [];
+			const paths = field.type === 'number' ? [[key]] : nested.map(([k]) => [key, k]);
+			for (const [a, b] of paths) {
+				const r = parsePlanInput({ ...base, [a]: b ? { [b]: null } : null });
+				if (r.ok) throw new Error(`${a}.${b} took null`);
+				const m = r.errors[0].message;
+				expect(m, `${a}.${b ?? ''}`).toMatch(/^Enter (the|how) .+, (a whole number )?−?[\d.,]+( to |–)[\d.,]+/);
+				expect(m).not.toMatch(/expected|received|Invalid|Too (small|big)/);
+				checked++;
+			}
+		}
+		expect(checked).toBeGreaterThan(30);
+	});
+});

@@ -4,8 +4,9 @@
 import { z } from 'zod';
 import { COMMON, DEFAULTS } from './defaults';
 import { geometryIssues, type PlanIssue } from './geometry';
-import { perimeter } from './polygon';
-import type { Units } from './units';
+import { planErrorMaps, plainNumber } from './messages';
+import { perimeter, signedArea } from './polygon';
+import { KG_PER_LB, M2_PER_FT2, M3_PER_FT3, M_PER_FT, M_PER_IN, type Units } from './units';
 
 export const LUMBER_SIZES = ['2x4', '2x6', '2x8', '2x10', '2x12'] as const;
 export const RATE_UNITS = ['percent', 'inPerFt', 'mmPerM', 'totalDrop'] as const;
@@ -18,8 +19,50 @@ const RATE_MAX: Record<(typeof RATE_UNITS)[number], number> = {
 	mmPerM: 250,
 	totalDrop: Infinity
 };
+const RATE_WORDS: Record<(typeof RATE_UNITS)[number], string> = { percent: '%', inPerFt: 'in per ft', mmPerM: 'mm per m', totalDrop: '' };
 
 const MAX_SECTIONS = 12;
+const MAX_VERTICES = 100;
+
+/**
+ * The product's scope: a homeowner's slab, not a parking lot. Each limit keeps one output (and its
+ * computation) small; the engine's outputs grow at most linearly with corners, stakes and sections.
+ * Documented in docs/api.md; each refusal names its limit.
+ */
+export const LIMITS = {
+	/** Pour sections (each its own pour day at least). */
+	sections: MAX_SECTIONS,
+	/** Corners of one section's outline. */
+	verticesPerSection: MAX_VERTICES,
+	/** Corners of all outlines together. */
+	vertices: 300,
+	/** Slab area of all sections, ft² / m². */
+	area: { imperial: 3000, metric: 280 },
+	/** Outline length of all sections (forms, bulkheads, stake marks), ft / m. */
+	perimeter: { imperial: 1000, metric: 300 },
+	/** Stakes: outline length ÷ stake spacing. */
+	stakes: 600,
+	/** Bags of each offered size for the whole order. */
+	bags: 10000
+} as const;
+
+/**
+ * Largest answer (rounded JSON, bytes) a plan inside LIMITS may get: it grows linearly with stakes,
+ * corners and sections. At the limits this is 20 + 180 + 240 + 96 kB, under 1 MB.
+ */
+export const answerBytesBound = (stakes: number, corners: number, sections: number) =>
+	20_000 + 300 * stakes + 800 * corners + 8_000 * sections;
+
+/** NUL and other control characters, and UTF-16 halves without their other half. */
+const BAD_TEXT = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
+
+/** One line of text a person typed: trimmed, bounded, and free of characters that break storage. */
+const text = (max: number) =>
+	z
+		.string()
+		.trim()
+		.max(max)
+		.refine((v) => !BAD_TEXT.test(v), { error: 'Remove the control character or broken character (such as NUL) from this text.' });
 
 function deepFreeze<T>(v: T): T {
 	if (v && typeof v === 'object') {
@@ -36,8 +79,6 @@ function deepFreeze<T>(v: T): T {
 function withDefaults<T extends z.ZodObject>(schema: T) {
 	return schema.default(deepFreeze(schema.parse({})) as z.util.NoUndefined<z.output<T>>);
 }
-const MAX_VERTICES = 200;
-
 function planSchemaFor<U extends Units>(units: U) {
 	const d = DEFAULTS[units];
 	const imp = units === 'imperial';
@@ -59,7 +100,7 @@ function planSchemaFor<U extends Units>(units: U) {
 			.describe('Edge i runs from vertex i to vertex i + 1; the last edge closes to vertex 0.')
 	});
 
-	const rate = (signed: boolean) =>
+	const rate = (signed: boolean, label: string) =>
 		z
 			.strictObject({
 				value: z.number().min(signed ? -d.maxSmall : 0).max(d.maxSmall),
@@ -72,12 +113,12 @@ function planSchemaFor<U extends Units>(units: U) {
 					ctx.addIssue({
 						code: 'custom',
 						path: ['value'],
-						message: `At most ${RATE_MAX[unit]} ${unit} (a 25 % fall).`
+						message: `Enter ${label}, at most ${RATE_MAX[unit]} ${RATE_WORDS[unit]} (a 25 % slope).`
 					});
 			});
 
 	const section = z.strictObject({
-		name: z.string().trim().max(60).optional(),
+		name: text(60).optional(),
 		outline: z
 			.array(z.tuple([coord, coord]))
 			.min(3)
@@ -87,7 +128,7 @@ function planSchemaFor<U extends Units>(units: U) {
 
 	return z.strictObject({
 		units: z.literal(units),
-		name: z.string().trim().max(100).optional(),
+		name: text(100).optional(),
 		sections: z
 			.array(section)
 			.min(1)
@@ -111,7 +152,7 @@ function planSchemaFor<U extends Units>(units: U) {
 			.describe('true: a form board along the house; false: poured against an isolation strip.'),
 		reference: withDefaults(
 			z.strictObject({
-				label: z.string().trim().max(80).default('reference mark'),
+				label: text(80).default('reference mark'),
 				below: z
 					.number()
 					.min(-d.maxSmall)
@@ -122,10 +163,10 @@ function planSchemaFor<U extends Units>(units: U) {
 		),
 		slope: withDefaults(
 			z.strictObject({
-				fall: rate(false)
+				fall: rate(false, 'the fall')
 					.default({ value: COMMON.slopePercent, unit: 'percent' })
 					.describe('Fall away from the high edge (IRC R401.3: ≥ 2 % near the foundation).'),
-				crossFall: rate(true)
+				crossFall: rate(true, 'the cross fall')
 					.default({ value: 0, unit: 'percent' })
 					.describe('Fall along the high edge; positive falls toward its end vertex.'),
 				highEdge: edgeRef
@@ -235,7 +276,7 @@ function planSchemaFor<U extends Units>(units: U) {
 					.min(1)
 					.max(6)
 					.default(d.bagSizes.map((size) => ({ size }))),
-				planSize: z.number().optional().describe('Bag size the mixing plan uses; default the largest.'),
+				planSize: z.number().min(imp ? 10 : 5).max(imp ? 100 : 50).optional().describe('Bag size the mixing plan uses; default the largest.'),
 				waterRatio: z
 					.number()
 					.min(0)
@@ -319,54 +360,134 @@ function planSchemaFor<U extends Units>(units: U) {
 
 type EdgeRefOut = { section: number; edge: number };
 
-/** Cross-field checks: edge references in range, custom board depth, fill, bag size, geometry. */
-function crossChecks(plan: z.output<ReturnType<typeof planSchemaFor>>): PlanIssue[] {
+type Parsed = z.output<ReturnType<typeof planSchemaFor>>;
+
+/** Cross-field checks: edge references in range, custom board depth, fill, bag size, scope, geometry. */
+function crossChecks(plan: Parsed): PlanIssue[] {
 	const issues: PlanIssue[] = [];
 	const outlines = plan.sections.map((s) => s.outline);
 	const checkEdge = (ref: EdgeRefOut | null | undefined, path: string) => {
 		if (!ref) return;
 		const o = outlines[ref.section];
-		if (!o) issues.push({ path: `${path}.section`, message: `There is no section ${ref.section}.` });
+		if (!o)
+			issues.push({ path: `${path}.section`, message: `Choose a section from 0 to ${outlines.length - 1}; there is no section ${ref.section}.` });
 		else if (ref.edge >= o.length)
-			issues.push({ path: `${path}.edge`, message: `Section ${ref.section} has ${o.length} edges (0–${o.length - 1}).` });
+			issues.push({ path: `${path}.edge`, message: `Choose an edge of section ${ref.section} from 0 to ${o.length - 1}; it has ${o.length} edges.` });
 	};
 	checkEdge(plan.houseEdge, 'houseEdge');
 	plan.otherHouseEdges.forEach((r, i) => checkEdge(r, `otherHouseEdges.${i}`));
 	if (!plan.houseEdge && plan.otherHouseEdges.length)
-		issues.push({ path: 'otherHouseEdges', message: 'Set houseEdge first.' });
+		issues.push({ path: 'otherHouseEdges', message: 'Choose the house edge first, or remove the other house edges.' });
 	checkEdge(plan.slope.highEdge, 'slope.highEdge');
 	const te = plan.thickenedEdge.edges;
 	if (Array.isArray(te)) te.forEach((r, i) => checkEdge(r, `thickenedEdge.edges.${i}`));
 	if (plan.forms.lumber === 'custom' && !plan.forms.customDepth)
-		issues.push({ path: 'forms.customDepth', message: 'Give the board depth for custom lumber.' });
+		issues.push({ path: 'forms.customDepth', message: 'Enter the board depth for custom lumber.' });
 	if (plan.fill && (plan.fill.volume === undefined) === (plan.fill.shareOfTrench === undefined))
-		issues.push({ path: 'fill', message: 'Give either volume or shareOfTrench.' });
+		issues.push({ path: 'fill', message: 'Give the fill as either a volume or a share of the trench, not both.' });
 	if (plan.bags.planSize !== undefined && !plan.bags.offered.some((b) => b.size === plan.bags.planSize))
-		issues.push({ path: 'bags.planSize', message: 'planSize must be one of the offered sizes.' });
+		issues.push({
+			path: 'bags.planSize',
+			message: `Choose the bag size for the mixing plan from the sizes on sale (${plan.bags.offered.map((b) => b.size).join(', ')}).`
+		});
 	const d = DEFAULTS[plan.units];
 	// A plain loop: flatMap costs more than this whole check on every keystroke.
 	const far: PlanIssue[] = [];
 	outlines.forEach((o, s) => {
 		const j = o.findIndex((p) => Math.abs(p[0]) > d.maxCoordinate || Math.abs(p[1]) > d.maxCoordinate);
-		if (j >= 0) far.push({ path: `sections.${s}.outline.${j}`, message: `Coordinates must lie within ±${d.maxCoordinate}.` });
+		if (j >= 0)
+			far.push({
+				path: `sections.${s}.outline.${j}`,
+				message: `Enter each corner within ±${plainNumber(d.maxCoordinate)} ${lengthUnit(plan.units)} of the origin.`
+			});
 	});
 	if (far.length) return [...issues, ...far];
-	const edgeTotal = outlines.reduce((s, o) => s + perimeter(o), 0);
-	if (edgeTotal > 10 * d.maxCoordinate)
-		issues.push({
-			path: 'sections',
-			message: `The outlines total ${Math.round(edgeTotal)} of edge; the limit is ${10 * d.maxCoordinate}.`
-		});
+	const scope = scopeIssues(plan);
+	// Out of scope: stop before the costlier geometry checks.
+	if (scope.length) return [...issues, ...scope];
 	issues.push(...geometryIssues(outlines));
 	return issues;
 }
 
+const lengthUnit = (u: Units) => (u === 'imperial' ? 'ft' : 'm');
+
+/** The plan against LIMITS: corners, outline length, area, stakes and bags. */
+function scopeIssues(plan: Parsed): PlanIssue[] {
+	const u = plan.units;
+	const imp = u === 'imperial';
+	const L = lengthUnit(u);
+	const issues: PlanIssue[] = [];
+	const outlines = plan.sections.map((s) => s.outline);
+	let vertices = 0;
+	let edge = 0;
+	let area = 0;
+	for (const o of outlines) {
+		vertices += o.length;
+		edge += perimeter(o);
+		area += Math.abs(signedArea(o));
+	}
+	if (vertices > LIMITS.vertices)
+		issues.push({
+			path: 'sections',
+			message: `The outlines have ${vertices} corners in all; the limit is ${LIMITS.vertices}. Use fewer corners.`
+		});
+	if (edge > LIMITS.perimeter[u])
+		issues.push({
+			path: 'sections',
+			message: `The outlines add up to ${plainNumber(Math.ceil(edge))} ${L} of edge; the limit is ${plainNumber(LIMITS.perimeter[u])} ${L}. Plan a larger job as separate slabs.`
+		});
+	if (area > LIMITS.area[u])
+		issues.push({
+			path: 'sections',
+			message: `The slab is ${plainNumber(Math.ceil(area))} ${L}²; the limit is ${plainNumber(LIMITS.area[u])} ${L}². Plan a larger job as separate slabs.`
+		});
+	if (issues.length) return issues;
+	const stakes = Math.ceil(edge / plan.forms.stakeSpacing);
+	if (stakes > LIMITS.stakes)
+		issues.push({
+			path: 'forms.stakeSpacing',
+			message: `Stakes every ${plainNumber(plan.forms.stakeSpacing)} ${L} along ${plainNumber(Math.round(edge))} ${L} of outline make about ${plainNumber(stakes)} stakes; the limit is ${LIMITS.stakes}. Space the stakes wider.`
+		});
+	// Concrete ordered, m³: slab plus the most a thickened edge can add, plus waste.
+	const small = imp ? M_PER_IN : 0.001;
+	const te = plan.thickenedEdge;
+	const trenchLength =
+		te.edges === 'none' ? 0 : te.edges === 'free' ? edge : te.edges.reduce((s, r) => s + edgeLength(outlines, r), 0);
+	const orderM3 =
+		(area * (imp ? M2_PER_FT2 : 1) * plan.thickness * small +
+			trenchLength * (imp ? M_PER_FT : 1) * te.width * small * (te.extraDepth ?? plan.thickness) * small) *
+		(1 + plan.wastePercent / 100);
+	plan.bags.offered.forEach((b, i) => {
+		const kg = imp ? b.size * KG_PER_LB : b.size;
+		// Default yield from the bag-label ratio, 80 lb → 0.60 ft³ (as the engine's model).
+		const yieldM3 = b.yield === undefined ? (kg / KG_PER_LB / COMMON.dryMixLbPerFt3) * M3_PER_FT3 : b.yield * (imp ? M3_PER_FT3 : 1);
+		const count = Math.ceil(orderM3 / yieldM3);
+		if (count > LIMITS.bags)
+			issues.push({
+				path: `bags.offered.${i}.size`,
+				message: `With ${plainNumber(b.size)} ${imp ? 'lb' : 'kg'} bags this slab takes about ${plainNumber(count)} bags; the limit is ${plainNumber(LIMITS.bags)} of a size. Offer a larger bag, or plan ready-mix.`
+			});
+	});
+	return issues;
+}
+
+function edgeLength(outlines: readonly (readonly (readonly [number, number])[])[], r: EdgeRefOut): number {
+	const o = outlines[r.section];
+	if (!o || r.edge >= o.length) return 0;
+	const [a, b] = [o[r.edge], o[(r.edge + 1) % o.length]];
+	return Math.hypot(b[0] - a[0], b[1] - a[1]);
+}
+
 export const planInputSchema = z
 	.discriminatedUnion('units', [planSchemaFor('imperial'), planSchemaFor('metric')])
-	.superRefine((plan, ctx) => {
-		for (const i of crossChecks(plan))
-			ctx.addIssue({ code: 'custom', path: i.path.split('.').map(pathPart), message: i.message });
-	});
+	.superRefine(
+		(plan, ctx) => {
+			for (const i of crossChecks(plan))
+				ctx.addIssue({ code: 'custom', path: i.path.split('.').map(pathPart), message: i.message });
+		},
+		// Only on input that passed every field check: an over-long outline never reaches the geometry.
+		{ when: (payload) => payload.issues.length === 0 }
+	);
 
 const pathPart = (p: string) => (/^\d+$/.test(p) ? Number(p) : p);
 
@@ -378,11 +499,22 @@ export type EdgeRef = EdgeRefOut;
 
 export type ParseResult = { ok: true; plan: ParsedPlan } | { ok: false; errors: PlanIssue[] };
 
-/** Validate anything against the schema; errors carry dotted paths like "sections.0.outline". */
+const isMetric = (input: unknown) => !!input && typeof input === 'object' && (input as { units?: unknown }).units === 'metric';
+
+/**
+ * Validate anything against the schema; errors carry dotted paths like "sections.0.outline" and
+ * plain-words messages (messages.ts), each (path, message) once.
+ */
 export function parsePlanInput(input: unknown): ParseResult {
-	const r = planInputSchema.safeParse(input);
+	const r = planInputSchema.safeParse(input, { error: planErrorMaps[isMetric(input) ? 'metric' : 'imperial'] });
 	if (r.success) return { ok: true, plan: r.data };
-	return { ok: false, errors: r.error.issues.map(toPlanIssue) };
+	const seen = new Set<string>();
+	const errors: PlanIssue[] = [];
+	for (const i of r.error.issues.map(toPlanIssue)) {
+		const k = `${i.path}\n${i.message}`;
+		if (!seen.has(k)) errors.push(i), seen.add(k);
+	}
+	return { ok: false, errors };
 }
 
 function toPlanIssue(issue: z.core.$ZodIssue): PlanIssue {

@@ -52,3 +52,28 @@ export function wavyPad(): PlanInput {
 		conditions: { airTemp: [60, 55, 50, 58, 62, 65], humidity: 40, wind: 8, pourDate: '2027-06-01' }
 	};
 }
+
+/**
+ * The costliest plan inside the schema's limits (the bench times it): three 100-corner stars with
+ * stakes every foot along 560 ft of zigzag outline, 2 in thick, the smallest bag, one person by hand.
+ */
+export function largestPlan(): PlanInput {
+	const star = (cx: number): [number, number][] =>
+		Array.from({ length: 100 }, (_, i) => {
+			const a = (2 * Math.PI * i) / 100;
+			const r = i % 2 ? 7.2 : 9;
+			return [Math.round((cx + r * Math.cos(a)) * 1000) / 1000, Math.round(r * Math.sin(a) * 1000) / 1000];
+		});
+	return {
+		units: 'imperial',
+		name: 'Largest plan in scope',
+		sections: [star(0), star(25), star(50)].map((outline) => ({ outline })),
+		houseEdge: null,
+		thickness: 2,
+		forms: { stakeSpacing: 1 },
+		thickenedEdge: { edges: 'free' },
+		bags: { offered: [{ size: 10 }, { size: 20 }, { size: 40 }, { size: 60 }, { size: 80 }, { size: 100 }] },
+		crew: { people: 1, method: 'hand', handMixMinutes: 30 },
+		conditions: { airTemp: Array.from({ length: 60 }, (_, i) => 20 + i) }
+	};
+}

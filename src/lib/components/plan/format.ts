@@ -193,6 +193,7 @@ export const READY_MIX_HINT =
 	'At least one section would stiffen before this crew could place it: split it as shown, add people or a mixer, or order ready-mix.';
 
 function splitText(parts: number, bags: number[]): string {
+	if (!bags.length) return `${parts} pours, too many to lay out`;
 	const same = bags.every((b) => b === bags[0]);
 	return same ? `${parts} parts of ${bags[0]} bags each` : `${parts} parts: ${bags.join(', ')} bags`;
 }

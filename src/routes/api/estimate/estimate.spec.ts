@@ -1,5 +1,7 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { planOutside } from '$lib/plan/bounds.arbitraries';
+import { largestPlan } from '$lib/plan/test-plans';
 import { POST } from './+server';
 import { GET } from './schema/+server';
 import { ESTIMATE_LIMIT } from '$lib/server/rate-limit';
@@ -16,13 +18,23 @@ const valid = {
 	readyMix: { price: 185 }
 };
 
-async function expectBad(res: Response, path?: string) {
+/** A validator's own wording, which a person should never read. */
+const RAW = /expected|received|invalid input|too small|too big|>=|<=/i;
+
+async function expectBad(res: Response, path?: string): Promise<{ path: string; message: string }[]> {
 	expect(res.status).toBe(400);
 	const body = await res.json();
 	expect(Array.isArray(body.errors)).toBe(true);
 	expect(body.errors.length).toBeGreaterThan(0);
-	for (const e of body.errors) expect(typeof e.path === 'string' && typeof e.message === 'string').toBe(true);
+	for (const e of body.errors) {
+		expect(typeof e.path === 'string' && typeof e.message === 'string').toBe(true);
+		expect(e.message).not.toMatch(RAW);
+	}
+	// Each problem once.
+	const keys = body.errors.map((e: { path: string; message: string }) => `${e.path} ${e.message}`);
+	expect(new Set(keys).size).toBe(keys.length);
 	if (path !== undefined) expect(body.errors.map((e: { path: string }) => e.path)).toContain(path);
+	return body.errors;
 }
 
 describe('POST /api/estimate', () => {
@@ -94,6 +106,62 @@ describe('POST /api/estimate', () => {
 			}),
 			{ numRuns: 60 }
 		);
+	});
+});
+
+describe('POST /api/estimate: scope limits', () => {
+	it('refuses the 263-byte attack (a 2000 × 2000 ft slab of 10 lb bags) quickly, naming the limits', async () => {
+		const attack = {
+			units: 'imperial',
+			sections: [{ outline: [[-1000, -1000], [1000, -1000], [1000, 1000], [-1000, 1000]] }],
+			bags: { offered: [{ size: 10 }] },
+			crew: { method: 'drum', drumBatchMass: 20 }
+		};
+		const errors = await expectBad(await postJson(attack), 'sections');
+		const text = errors.map((e) => e.message).join(' ');
+		expect(text).toContain('the limit is 3,000 ft²');
+		expect(text).toContain('the limit is 1,000 ft');
+	});
+
+	it('answers every plan outside one limit with a 400 that names that limit', async () => {
+		await fc.assert(
+			fc.asyncProperty(planOutside, async ({ limit, needle, plan }) => {
+				const errors = await expectBad(await postJson(plan));
+				expect(errors.map((e) => e.message).join(' | '), limit).toContain(needle);
+			}),
+			{ numRuns: 60 }
+		);
+	}, 60_000);
+
+	it('answers the largest plan in scope under 1 MB', async () => {
+		const res = await postJson(largestPlan());
+		expect(res.status).toBe(200);
+		expect((await res.arrayBuffer()).byteLength).toBeLessThan(1_000_000);
+	});
+});
+
+describe('POST /api/estimate: messages in plain words', () => {
+	const messageAt = async (plan: unknown, path: string) =>
+		(await expectBad(await postJson(plan), path)).find((e) => e.path === path)!.message;
+
+	it('names the field, its unit and the range to enter', async () => {
+		expect(await messageAt({ ...valid, thickness: null }, 'thickness')).toBe('Enter the thickness, 2–12 in.');
+		expect(await messageAt({ ...valid, thickness: 1 }, 'thickness')).toBe('Enter the thickness, 2–12 in.');
+		expect(await messageAt({ ...valid, units: 'metric', thickness: 20 }, 'thickness')).toBe('Enter the thickness, 50–300 mm.');
+		expect(await messageAt({ ...valid, crew: { people: 2.5 } }, 'crew.people')).toBe('Enter the number of people, a whole number 1–20.');
+		expect(await messageAt({ ...valid, crew: { method: 'robot' } }, 'crew.method')).toBe('Choose the mixing method: hand or drum.');
+		expect(await messageAt({ ...valid, units: 'cubits' }, 'units')).toBe('Choose the units: imperial or metric.');
+		expect(await messageAt({ ...valid, conditions: { pourDate: 'soon' } }, 'conditions.pourDate')).toBe('Enter the pour date as a date, YYYY-MM-DD.');
+		expect(await messageAt({ ...valid, colour: 'grey' }, 'colour')).toMatch(/"colour" is not part of a plan/);
+	});
+
+	it('refuses NUL characters and lone surrogates in text with a 400 at the field', async () => {
+		for (const bad of ['Patio\u0000', 'Patio \ud800', '\udc00 Patio'])
+			expect(await messageAt({ ...valid, name: bad }, 'name')).toMatch(/control character or broken character/);
+		expect(await messageAt({ ...valid, sections: [{ ...valid.sections[0], name: 'A\u0000' }] }, 'sections.0.name')).toMatch(/control character/);
+		expect(await messageAt({ ...valid, reference: { label: '\ud83d' } }, 'reference.label')).toMatch(/broken character/);
+		// A whole surrogate pair (an emoji) is text like any other.
+		expect((await postJson({ ...valid, name: 'Patio \ud83d\ude00' })).status).toBe(200);
 	});
 });
 
