@@ -1,9 +1,12 @@
 import tailwindcss from '@tailwindcss/vite';
 import { sveltekit } from '@sveltejs/kit/vite';
 import { defineConfig } from 'vitest/config';
+import { postgresWriteGuard } from './vite-plugins/postgres-write-guard';
 
 export default defineConfig(({ command }) => ({
-	plugins: [tailwindcss(), sveltekit()],
+	plugins: [postgresWriteGuard(), tailwindcss(), sveltekit()],
+	// Bundled, so the write guard above applies to the server's copy of postgres.js.
+	ssr: { noExternal: ['postgres'] },
 	// The fake mailbox (/dev/mailbox) shows sign-in links: it is compiled in only for the dev server
 	// and for builds that npm start / npm test make with the local fake mail server, never `npm run build`.
 	define: { __DEV_MAILBOX__: JSON.stringify(command === 'serve' || process.env.STAKELINE_DEV_MAILBOX === '1') },
@@ -16,6 +19,7 @@ export default defineConfig(({ command }) => ({
 		expect: { requireAssertions: true, poll: { timeout: 10_000 } },
 		// Integration specs share one test database; run files one after another.
 		fileParallelism: false,
+		server: { deps: { inline: ['postgres'] } },
 		benchmark: { include: ['src/**/*.bench.ts'] }
 	}
 }));

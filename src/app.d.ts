@@ -9,6 +9,10 @@ declare global {
 		}
 		interface Error {
 			message: string;
+			/** The id in the request's log line, for support. */
+			requestId?: string;
+			/** The database was down: the page says so and the status is 503. */
+			unavailable?: boolean;
 		}
 		interface PageState {
 			/** The planner wizard's step, kept in history so back/forward walk the steps. */

@@ -1,4 +1,5 @@
 import { error, type Handle, type ServerInit } from '@sveltejs/kit';
+import { requestHandle, serverErrorHandler } from '$lib/server/requests';
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { env } from '$env/dynamic/private';
@@ -59,4 +60,6 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 	return response;
 };
 
-export const handle = sequence(refuseLargeBodies, handleAuth, securityHeaders);
+// Request log and the database-down 503 come first, so they see every other hook's outcome.
+export const handle = sequence(requestHandle(), refuseLargeBodies, handleAuth, securityHeaders);
+export const handleError = serverErrorHandler();

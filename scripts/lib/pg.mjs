@@ -118,3 +118,21 @@ export function stopPostgres(s) {
 	const [c, a] = asOwner(path.join(bin, 'pg_ctl'), ['-D', dataDir, '-m', 'fast', '-w', 'stop']);
 	run(c, a);
 }
+
+/**
+ * The running cluster's tools for the fault drill and backups: how to stop/start/restart it, whether
+ * it answers, and the path of a server binary (pg_dump, pg_restore) of the same version.
+ */
+export function pgCluster(s) {
+	const bin = findBinDir();
+	if (!bin) fail('PostgreSQL is not installed; run npm start or npm test once first.');
+	const { dataDir, runDir } = clusterDirs(s.dataDir);
+	const logFile = path.join(runDir, 'server.log');
+	const ctlOptions = { stop: ['-m', 'fast'], start: ['-l', logFile, '-t', '30'], restart: ['-m', 'fast', '-l', logFile, '-t', '30'] };
+	return {
+		bin: (name) => path.join(bin, name),
+		/** [command, args] of pg_ctl stop/start/restart, for callers that must not block (the fault drill). */
+		ctlCommand: (action) => asOwner(path.join(bin, 'pg_ctl'), ['-D', dataDir, ...ctlOptions[action], '-w', action]),
+		ready: () => capture(path.join(bin, 'pg_isready'), ['-q', '-h', '127.0.0.1', '-p', String(s.pgPort)]) !== null
+	};
+}

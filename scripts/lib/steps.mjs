@@ -43,7 +43,7 @@ function newestMtime(p) {
  */
 export function build({ force = false, devMailbox = false } = {}) {
 	const stamp = path.join(root, 'build', '.stakeline-built');
-	const inputs = ['src', 'static', 'package-lock.json', 'svelte.config.js', 'vite.config.ts', 'tsconfig.json'];
+	const inputs = ['src', 'static', 'package-lock.json', 'svelte.config.js', 'vite.config.ts', 'vite-plugins', 'tsconfig.json'];
 	const newest = Math.max(...inputs.map((p) => newestMtime(path.join(root, p))));
 	const kind = devMailbox ? 'with-dev-mailbox' : 'plain';
 	const fresh = fs.existsSync(stamp) && fs.statSync(stamp).mtimeMs >= newest && fs.readFileSync(stamp, 'utf8').endsWith(kind);

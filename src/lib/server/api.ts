@@ -23,7 +23,34 @@ export async function readBody<S extends z.ZodType>(request: Request, schema: S)
 	} catch {
 		return { response: badRequest([{ path: '', message: 'The body must be JSON.' }]) };
 	}
+	const bad = unsafeText(raw);
+	if (bad) return { response: badRequest([bad]) };
 	const parsed = schema.safeParse(raw);
 	if (!parsed.success) return { response: badRequest(parsed.error.issues.map((i) => ({ path: i.path.join('.'), message: i.message }))) };
 	return { data: parsed.data };
+}
+
+/** A NUL or a lone UTF-16 surrogate: PostgreSQL cannot store either, and no person types them. */
+export const UNSAFE_CHAR = /\u0000|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
+const UNSAFE_MESSAGE = 'Text must not contain NUL characters or unpaired surrogates.';
+
+/**
+ * The first string (or key) in a parsed body holding such a character, as the 400 error to send;
+ * walked without recursion, so a deeply nested body cannot overflow the stack.
+ */
+export function unsafeText(value: unknown): ApiError | null {
+	const stack: [unknown, string][] = [[value, '']];
+	while (stack.length) {
+		const [v, path] = stack.pop()!;
+		if (typeof v === 'string') {
+			if (UNSAFE_CHAR.test(v)) return { path, message: UNSAFE_MESSAGE };
+		} else if (v && typeof v === 'object') {
+			for (const [k, child] of Object.entries(v)) {
+				const at = path ? `${path}.${k}` : k;
+				if (UNSAFE_CHAR.test(k)) return { path: at, message: UNSAFE_MESSAGE };
+				stack.push([child, at]);
+			}
+		}
+	}
+	return null;
 }

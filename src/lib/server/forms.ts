@@ -1,5 +1,6 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
+import { unsafeText } from './api';
 
 export type FieldErrors = Record<string, string | undefined>;
 
@@ -28,6 +29,9 @@ export function validateForm<S extends z.ZodType>(form: FormData, schema: S, lis
 			.filter(([k]) => !SECRET.test(k))
 			.map(([k, v]) => [k, Array.isArray(v) ? v.join(' ') : v])
 	) as Record<string, string>;
+	// NUL and lone surrogates never reach a schema or the database (both would fail deep inside).
+	const bad = unsafeText(raw);
+	if (bad) return { data: null, values, failure: fail(400, { errors: { [bad.path.split('.')[0] || 'form']: bad.message }, values, message: bad.message }) };
 	const parsed = schema.safeParse(raw);
 	if (parsed.success) return { data: parsed.data as z.output<S>, values, failure: null };
 	const errors: FieldErrors = {};

@@ -1,6 +1,6 @@
 import { and, desc, eq, sql } from 'drizzle-orm';
 import { estimate, type PlanIssue, type PlanResult } from '$lib/plan';
-import { db } from '$lib/server/db';
+import { db, type Db } from '$lib/server/db';
 import { lead, plan, planPhoto, type Plan } from '$lib/server/db/schema';
 import { storage } from './storage';
 import type { PlanRecord } from '$lib/planner/types';
@@ -57,9 +57,10 @@ export async function findOwnPlan(id: string, ownerId: string): Promise<Plan | u
 	return found;
 }
 
-export async function createPlan(ownerId: string, data: { name: string; postcode?: string; input: unknown }): Promise<Plan> {
+/** `conn` lets a caller create the plan inside its own transaction (the idempotent API create). */
+export async function createPlan(ownerId: string, data: { name: string; postcode?: string; input: unknown }, conn: Pick<Db, 'insert'> = db): Promise<Plan> {
 	const result = compute(data.input);
-	const [created] = await db
+	const [created] = await conn
 		.insert(plan)
 		.values({ ownerId, name: data.name, postcode: data.postcode || null, input: data.input, result })
 		.returning();

@@ -4,6 +4,7 @@ import { env } from '$env/dynamic/private';
 import { db } from '$lib/server/db';
 import { mailOutbox, type OutboxMail } from '$lib/server/db/schema';
 import type { Mail } from './templates';
+import { log } from '../log';
 
 export const MAX_ATTEMPTS = 8;
 
@@ -39,7 +40,7 @@ export async function queueMail(to: string, mail: Mail, tx?: Tx) {
 
 /** Starts sending what is due in the background: the request does not wait on the SMTP server. */
 export function deliverSoon() {
-	const sending = deliverDue().catch((err) => console.error('mail delivery:', err));
+	const sending = deliverDue().catch((err) => log.warn({ err }, 'mail delivery failed'));
 	inFlight.add(sending);
 	void sending.finally(() => inFlight.delete(sending));
 }
@@ -90,7 +91,7 @@ async function send(mail: OutboxMail, transport?: Transporter): Promise<boolean>
 
 /** Retries on a timer in every app server; the claim above keeps them from colliding. */
 export function startMailWorker(everyMs = 15_000) {
-	const timer = setInterval(() => deliverDue().catch((err) => console.error('mail worker:', err)), everyMs);
+	const timer = setInterval(() => deliverDue().catch((err) => log.warn({ err }, 'mail worker failed')), everyMs);
 	timer.unref();
 	return () => clearInterval(timer);
 }

@@ -1,5 +1,7 @@
 import { estimate } from '$lib/plan';
 import { badRequest } from '$lib/server/api';
+import { log } from '$lib/server/log';
+import { limitEstimate } from '$lib/server/rate-limit';
 import { toRoundedJson } from '$lib/plan/format';
 import type { RequestHandler } from './$types';
 
@@ -9,7 +11,9 @@ const MAX_BODY_CHARS = 256 * 1024;
 const JSON_TYPE = { 'content-type': 'application/json; charset=utf-8' };
 
 /** Public estimate: plan input as JSON in, the full plan out. No sign-in. */
-export const POST: RequestHandler = async ({ request }) => {
+export const POST: RequestHandler = async ({ request, getClientAddress }) => {
+	const limited = await limitEstimate(getClientAddress());
+	if (limited) return limited;
 	let text: string;
 	try {
 		text = await request.text();
@@ -30,7 +34,7 @@ export const POST: RequestHandler = async ({ request }) => {
 		return new Response(toRoundedJson(result.plan), { headers: JSON_TYPE });
 	} catch (e) {
 		// The schema should have caught it; answer as bad input rather than fail, and keep the trace.
-		console.error('estimate failed on validated input', e);
+		log.error({ err: e }, 'estimate failed on validated input');
 		return badRequest([{ path: '', message: 'This plan could not be computed; check the outlines and sizes.' }]);
 	}
 };

@@ -4,9 +4,11 @@ import { planOutside } from '$lib/plan/bounds.arbitraries';
 import { largestPlan } from '$lib/plan/test-plans';
 import { POST } from './+server';
 import { GET } from './schema/+server';
+import { ESTIMATE_LIMIT } from '$lib/server/rate-limit';
 
-const post = (body: string) =>
-	POST({ request: new Request('http://localhost/api/estimate', { method: 'POST', body }) } as any) as Promise<Response>;
+// Each call from its own address, so the per-client rate limit (tested below) stays out of the way.
+const post = (body: string, address = `test-${crypto.randomUUID()}`) =>
+	POST({ request: new Request('http://localhost/api/estimate', { method: 'POST', body }), getClientAddress: () => address } as any) as Promise<Response>;
 const postJson = (value: unknown) => post(JSON.stringify(value));
 
 const valid = {
@@ -36,6 +38,17 @@ async function expectBad(res: Response, path?: string): Promise<{ path: string; 
 }
 
 describe('POST /api/estimate', () => {
+	it('is rate-limited per client address, with Retry-After and the limit in the message', async () => {
+		const address = `limit-${crypto.randomUUID()}`;
+		for (let i = 0; i < ESTIMATE_LIMIT.points; i++) expect((await post(JSON.stringify(valid), address)).status).toBe(200);
+		const over = await post(JSON.stringify(valid), address);
+		expect(over.status).toBe(429);
+		expect(Number(over.headers.get('retry-after'))).toBeGreaterThan(0);
+		expect((await over.json()).message).toMatch(`Over ${ESTIMATE_LIMIT.points} estimates a minute`);
+		// Another client is not affected.
+		expect((await post(JSON.stringify(valid))).status).toBe(200);
+	});
+
 	it('answers a valid plan with the full result', async () => {
 		const res = await postJson(valid);
 		expect(res.status).toBe(200);

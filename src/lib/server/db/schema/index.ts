@@ -4,3 +4,5 @@ export * from './contractors';
 export * from './leads';
 export * from './mail';
 export * from './plans';
+export * from './idempotency';
+export * from './rate';

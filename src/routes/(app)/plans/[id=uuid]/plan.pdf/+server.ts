@@ -1,8 +1,8 @@
-import { error } from '@sveltejs/kit';
+import { error, json } from '@sveltejs/kit';
 import { requireApiRole } from '$lib/server/api';
 import { currentResult } from '$lib/components/plan/currentResult';
 import { readerLocale } from '$lib/components/plan/format';
-import { planPdf } from '$lib/server/pdf/planPdf';
+import { PdfRefused, renderPlanPdf } from '$lib/server/pdf/pool';
 import { findOwnPlan, planView } from '$lib/server/plans';
 import type { RequestHandler } from './$types';
 
@@ -11,7 +11,14 @@ export const GET: RequestHandler = async ({ locals, params, request }) => {
 	const found = await findOwnPlan(params.id, me.id);
 	if (!found) error(404, 'No such plan.');
 	const view = planView(found);
-	const bytes = await planPdf({ name: view.name, result: currentResult(view.input, view.result), createdAt: found.updatedAt, locale: readerLocale(request.headers.get('accept-language')) });
+	let bytes: Uint8Array;
+	try {
+		// Drawn in a worker thread with a time and memory cap, never on the request loop.
+		bytes = await renderPlanPdf({ name: view.name, result: currentResult(view.input, view.result), createdAt: found.updatedAt, locale: readerLocale(request.headers.get('accept-language')) });
+	} catch (err) {
+		if (!(err instanceof PdfRefused)) throw err;
+		return json({ message: err.message }, { status: err.status, headers: err.status === 503 ? { 'retry-after': '5' } : {} });
+	}
 	const file = view.name.replace(/[^A-Za-z0-9 _-]/g, '').trim().replace(/\s+/g, '-') || 'plan';
 	return new Response(bytes as BodyInit, {
 		headers: {
