@@ -1,4 +1,4 @@
-import { error, type Handle, type ServerInit } from '@sveltejs/kit';
+import type { Handle, ServerInit } from '@sveltejs/kit';
 import { requestHandle, serverErrorHandler } from '$lib/server/requests';
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
@@ -33,22 +33,6 @@ const handleAuth: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-/** BODY_SIZE_LIMIT as adapter-node reads it ("16M", "512K", bytes). */
-const bodyLimit = (() => {
-	const m = /^(\d+)([KMG]?)$/i.exec(env.BODY_SIZE_LIMIT ?? '512K');
-	return m ? Number(m[1]) * 1024 ** ' KMG'.indexOf(m[2].toUpperCase() || ' ') : Infinity;
-})();
-
-/** A body over the limit is refused up front with 413 and the limit, not a parse error later. */
-const refuseLargeBodies: Handle = async ({ event, resolve }) => {
-	const length = Number(event.request.headers.get('content-length') ?? 0);
-	if (length > bodyLimit) {
-		const mb = (n: number) => `${(n / 1024 ** 2).toFixed(1)} MB`;
-		error(413, `The request is ${mb(length)}; the limit is ${mb(bodyLimit)}. Send smaller files, one at a time.`);
-	}
-	return resolve(event);
-};
-
 const securityHeaders: Handle = async ({ event, resolve }) => {
 	const response = await resolve(event);
 	// Only over HTTPS, or a plain-HTTP local run would be told to use HTTPS it does not have.
@@ -61,5 +45,5 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 };
 
 // Request log and the database-down 503 come first, so they see every other hook's outcome.
-export const handle = sequence(requestHandle(), refuseLargeBodies, handleAuth, securityHeaders);
+export const handle = sequence(requestHandle(), handleAuth, securityHeaders);
 export const handleError = serverErrorHandler();

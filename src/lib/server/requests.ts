@@ -79,7 +79,8 @@ function refuseEarly(event: RequestEvent, requestId: string): Response | null {
 	const length = Number(event.request.headers.get('content-length') ?? 0);
 	const limit = bodyLimit();
 	if (length > limit) {
-		const message = `The request body is ${length} bytes; the limit is ${limit} bytes.`;
+		const mb = (n: number) => `${(n / 1024 ** 2).toFixed(1)} MB`;
+		const message = `The request is ${mb(length)}; the limit is ${mb(limit)}. Send smaller files, one at a time.`;
 		return json({ message, errors: [{ path: '', message }] }, { status: 413, headers });
 	}
 	// SvelteKit throws (a 500) when a client names the default action; it is simply not an action name.
