@@ -3,7 +3,7 @@
 // stake-mark table, boards the run ids of the cut list. Pure: it reads a computed plan only.
 
 import type { PlanResult } from './index';
-import type { Pt } from './polygon';
+import { dist as d, type Pt } from './polygon';
 import * as unitsLib from './units';
 import type { Length, Units } from './units';
 
@@ -57,8 +57,6 @@ export interface LayoutSheet {
 	boards: { id: string; kind: 'outer' | 'house' | 'bulkhead'; formed: boolean; edge: string; length: Length }[];
 	stakes: { id: string; board: string; from: string; along: string; distance: Length }[];
 }
-
-const d = (a: Pt, b: Pt) => Math.hypot(b[0] - a[0], b[1] - a[1]);
 
 /** Right-triangle legs to try at the first corner, largest first, in the plan's length unit. */
 const CHECKS: Record<Units, { k: number; name: string }[]> = {
