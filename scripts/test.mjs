@@ -1,6 +1,8 @@
 // npm test: the same set-up as npm start against a fresh test database, then every check:
 // svelte-check, Vitest (unit + integration on the real PostgreSQL), the build, and Playwright in
 // Debian's Chromium. Exits non-zero on the first failure.
+// `npm test -- FILE...` runs the same set-up and type check, then only the named files: *.e2e.ts with
+// Playwright (after a build), the rest with Vitest.
 import path from 'node:path';
 import { root, settings } from './lib/settings.mjs';
 import { background, log, run } from './lib/run.mjs';
@@ -8,6 +10,10 @@ import { ensurePostgres } from './lib/pg.mjs';
 import { bin, build, chromiumPath, ensureDependencies, migrate, node, seed } from './lib/steps.mjs';
 
 const s = settings('test');
+const files = process.argv.slice(2).filter((a) => !a.startsWith('-'));
+const e2eFiles = files.filter((f) => f.endsWith('.e2e.ts'));
+const unitFiles = files.filter((f) => !f.endsWith('.e2e.ts'));
+const all = files.length === 0;
 const t0 = Date.now();
 const step = (name, fn) => {
 	const t = Date.now();
@@ -28,9 +34,12 @@ try {
 		run(bin('svelte-kit'), ['sync'], opts);
 		run(bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings'], opts);
 	});
-	step('Unit and integration tests (vitest)', () => run(bin('vitest'), ['run'], opts));
-	step('Build', () => build({ force: true, devMailbox: s.useFakeMail }));
-	step('End-to-end tests (playwright)', () => run(bin('playwright'), ['test'], opts));
+	if (all || unitFiles.length)
+		step('Unit and integration tests (vitest)', () => run(bin('vitest'), ['run', ...unitFiles], opts));
+	if (all || e2eFiles.length) {
+		step('Build', () => build({ force: true, devMailbox: s.useFakeMail }));
+		step('End-to-end tests (playwright)', () => run(bin('playwright'), ['test', ...e2eFiles], opts));
+	}
 	log(`All checks passed in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
 	process.exit(0);
 } catch (err) {
