@@ -44,6 +44,17 @@ describe('stakes', () => {
 		expect(s.map((p) => p.at[0] / FT)).toEqual([0, 3, 6, 9, 12].map((x) => expect.closeTo(x, 9)));
 	});
 
+	it('puts one stake at a shared corner wherever the corner falls against the 1 mm lookup cells', () => {
+		// The same 20 × 12 ft pad moved so its corners land within float noise of a 1 mm cell border
+		// (3.0005 m, 1.0005 m): the count must not change with where the pad sits.
+		const count = (dx: number, dy: number) => {
+			const { m, layout } = modelOf({ units: 'imperial', sections: [{ outline: rect(dx, dy, 20, 12) }] });
+			return computeForms(m, layout).forms.stakes.count;
+		};
+		expect(count(3.0005 / FT, 1.0005 / FT)).toBe(count(0, 0));
+		expect(count(-2.9995 / FT, 0.0005 / FT)).toBe(count(0, 0));
+	});
+
 	it('counts boards, stakes and screws for a rectangle against the house', () => {
 		const { m, layout } = modelOf({ units: 'imperial', sections: [{ outline: rect(0, 0, 20, 12) }] });
 		const { forms } = computeForms(m, layout);

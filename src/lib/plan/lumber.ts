@@ -80,17 +80,30 @@ export function formRuns(m: Model, layout: Layout, splits: readonly SplitBulkhea
 export function lapLengths(
 	runs: readonly Run[],
 	t: number,
-	maxStock: number,
-	key: (p: Pt) => number
+	maxStock: number
 ): { lengths: Map<string, number>; laps: number } {
 	const lengths = new Map<string, number>();
 	let laps = 0;
 	const formed = runs.filter((r) => r.formed && r.kind !== 'bulkhead');
-	const endingAt = new Map<number, Run>();
-	for (const r of formed) endingAt.set(key(r.to), r);
+	// Run ends share exact vertices; a 0.1 mm grid absorbs float noise. Keyed by a small-integer
+	// hash of the grid point (a collision is resolved by comparing the points).
+	const q = (v: number) => Math.round(v * 1e4);
+	const hash = (p: Pt) => (Math.imul(q(p[0]), 73856093) ^ Math.imul(q(p[1]), 19349663)) & 0x3fffffff;
+	const endingAt = new Map<number, Run[]>();
+	for (const r of formed) {
+		const h = hash(r.to);
+		const list = endingAt.get(h);
+		if (list) list.push(r);
+		else endingAt.set(h, [r]);
+	}
+	const runEndingAt = (p: Pt) => {
+		let found: Run | undefined; // the last run listed that ends here
+		for (const r of endingAt.get(hash(p)) ?? []) if (q(r.to[0]) === q(p[0]) && q(r.to[1]) === q(p[1])) found = r;
+		return found;
+	};
 	for (const r of formed) lengths.set(r.id, r.length);
 	for (const r of formed) {
-		const prev = endingAt.get(key(r.from));
+		const prev = runEndingAt(r.from);
 		if (!prev) continue; // a free end (against the house): no corner to lap
 		laps++;
 		const own = lengths.get(r.id)!;
@@ -196,25 +209,33 @@ export function computeForms(
 	const pieces: { run: string; length: number }[] = [];
 	const stakes: StakePoint[] = [];
 	let fixings = 0;
-	// A point shared by two runs gets one stake: points within 0.1 mm are the same, looked up in the
-	// neighbouring 1 mm cells too so float noise at a cell border cannot make two stakes of one.
+	// A point shared by two runs gets one stake: points within 0.1 mm are the same. Points sit in
+	// 1 mm cells; a lookup visits only the cells its ±0.1 mm box touches (one, near a cell border
+	// two or four), so float noise at a border cannot make two stakes of one. Cell keys are hashed
+	// to small integers (collisions only cost a distance check).
 	const cells = new Map<number, Pt[]>();
-	const cellKey = (i: number, j: number) => i * 1e8 + j;
-	const taken = (p: Pt) => {
-		const i = Math.round(p[0] * 1e3);
-		const j = Math.round(p[1] * 1e3);
-		for (let di = -1; di <= 1; di++)
-			for (let dj = -1; dj <= 1; dj++)
-				for (const q of cells.get(cellKey(i + di, j + dj)) ?? []) if (dist(p, q) <= 1e-4) return true;
-		const k = cellKey(i, j);
-		if (!cells.has(k)) cells.set(k, []);
-		cells.get(k)!.push(p);
+	const cellKey = (i: number, j: number) => (Math.imul(i, 73856093) ^ Math.imul(j, 19349663)) & 0x3fffffff;
+	const near = (p: Pt, i: number, j: number) => {
+		const list = cells.get(cellKey(i, j));
+		if (list) for (const q of list) if (dist(p, q) <= 1e-4) return true;
 		return false;
 	};
-	const key = (p: Pt) => Math.round(p[0] * 1e4) * 1e8 + Math.round(p[1] * 1e4); // run ends share exact vertices
+	const taken = (p: Pt) => {
+		const i0 = Math.floor((p[0] - 1e-4) * 1e3);
+		const i1 = Math.floor((p[0] + 1e-4) * 1e3);
+		const j0 = Math.floor((p[1] - 1e-4) * 1e3);
+		const j1 = Math.floor((p[1] + 1e-4) * 1e3);
+		if (near(p, i0, j0) || (i1 !== i0 && near(p, i1, j0)) || (j1 !== j0 && (near(p, i0, j1) || (i1 !== i0 && near(p, i1, j1)))))
+			return true;
+		const k = cellKey(Math.floor(p[0] * 1e3), Math.floor(p[1] * 1e3));
+		const list = cells.get(k);
+		if (list) list.push(p);
+		else cells.set(k, [p]);
+		return false;
+	};
 	let formLength = 0;
 	let cleats = 0;
-	const { lengths: boardLength, laps: corners } = lapLengths(runs, m.forms.boardThickness, maxStock, key);
+	const { lengths: boardLength, laps: corners } = lapLengths(runs, m.forms.boardThickness, maxStock);
 	for (const r of runs) {
 		if (!r.formed) continue;
 		formLength += r.length;
