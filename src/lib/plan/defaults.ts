@@ -74,7 +74,7 @@ export const COMMON = {
 	handMixMinutesPer80lb: 8, // common practice, 5–8 min a bag by hand
 	drumMixMinutesPerBatch: 6, // from memory
 	drumBatch80lbBags: 2, // common practice, a small drum takes two 80 lb bags
-	placeMinutesPerBag: 2, // wheel, dump and spread one bag's worth; from memory
+	placeMinutesPerBag: 2, // wheel, dump and spread one 80 lb bag's worth; from memory
 	workingMinutesAt70F: 90, // common practice, 1½–2 h at 70 °F, about half at 90 °F
 	finishMinutes: 30, // screed, float, edge and tool joints after the last batch; from memory
 	humidity: 50, // % — placeholder; enter the forecast

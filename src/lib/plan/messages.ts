@@ -100,7 +100,7 @@ const FIELDS: Record<string, [string, UnitKind?]> = {
 	'crew.handMixMinutes': ['the hand-mixing time per 80 lb (36 kg) of mix', 'min'],
 	'crew.drumMinutesPerBatch': ['the drum time per batch', 'min'],
 	'crew.drumBatchMass': ['the dry mix per drum batch', 'M'],
-	'crew.placeMinutesPerBag': ['the placing time per bag', 'min'],
+	'crew.placeMinutesPerBag': ['the placing time per 80 lb (36 kg) bag', 'min'],
 	'crew.workingMinutes': ['the working time of the mix', 'min'],
 	'crew.finishMinutes': ['the finishing time', 'min'],
 	'crew.payload': ['the vehicle payload', 'M'],

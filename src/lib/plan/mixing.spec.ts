@@ -11,7 +11,7 @@ const crew = (over: Partial<Model['crew']>): Model['crew'] => ({
 	handMinutesPerKg: 8 / bag80.kg, // 8 min an 80 lb bag, common practice 5–8
 	drumMinutesPerBatch: 6, // from memory
 	drumBatchKg: 2 * bag80.kg, // two 80 lb bags, common practice
-	placeMinutesPerBag: 2, // from memory
+	placeMinutesPer80lb: 2, // from memory
 	workingMinutesAt21C: 90, // common practice, 1½–2 h at 70 °F
 	finishMinutes: 30,
 	payloadKg: 453.6,
@@ -37,6 +37,15 @@ describe('crew time', () => {
 		const t = crewTime(10, bag80, crew({ method: 'drum', people: 3 }));
 		expect(t.batches).toBe(5); // 10 bags, 2 a batch (common practice)
 		expect(t.totalMinutes).toBeCloseTo(30, 9); // max(5 × 6, 10 × 2 / 2)
+	});
+
+	it('places a small bag in the time its share of concrete takes', () => {
+		// Two 40 lb bags hold what one 80 lb bag does (bag labels: 0.30 and 0.60 ft³), so 20 of them
+		// mix and place in the time 10 of the 80s take: 20 × (4 + 1) / 2 people (common practice, no
+		// published source: mixing and placing time go with the mass handled).
+		const bag40: BagOffer = { size: 40, kg: 40 * 0.45359237, yieldM3: 0.3 * 0.3048 ** 3 };
+		expect(crewTime(20, bag40, crew({})).totalMinutes).toBeCloseTo(50, 9);
+		expect(crewTime(20, bag40, crew({})).placeMinutes).toBeCloseTo(10, 9); // 20 × 1 min / 2 people
 	});
 
 	it('adds the placing when one person runs the drum alone', () => {

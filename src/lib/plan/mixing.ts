@@ -10,7 +10,7 @@ import type { Mass, Temperature } from './units';
 
 // Bound once: under the test runner every call through an import is a getter call.
 const { areaLeftOf, clipVertical, fromFrame, signedArea } = polygonLib;
-const { countUp, mass, mToPlan, temperature } = unitsLib;
+const { countUp, KG_PER_LB, mass, mToPlan, temperature } = unitsLib;
 
 /** Beyond this many pours a section belongs to ready-mix; no cold-joint lines are drawn (engine choice). */
 export const MAX_PRACTICAL_PARTS = 3;
@@ -36,7 +36,7 @@ export interface CrewTime {
 
 /** Elapsed time for a crew to mix and place a number of bags. */
 export function crewTime(bags: number, bag: BagOffer, crew: Model['crew']): CrewTime {
-	const place = bags * crew.placeMinutesPerBag;
+	const place = bags * crew.placeMinutesPer80lb * (bag.kg / (80 * KG_PER_LB));
 	if (crew.method === 'hand') {
 		// Everyone mixes and places their own tub or barrow.
 		const mix = bags * crew.handMinutesPerKg * bag.kg;

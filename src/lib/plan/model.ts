@@ -112,7 +112,8 @@ export interface Model {
 		handMinutesPerKg: number;
 		drumMinutesPerBatch: number;
 		drumBatchKg: number;
-		placeMinutesPerBag: number;
+		/** Per 80 lb of dry mix: placing time goes with the concrete wheeled and spread. */
+		placeMinutesPer80lb: number;
 		workingMinutesAt21C: number;
 		finishMinutes: number;
 		payloadKg: number;
@@ -271,7 +272,7 @@ export function toModel(p: ParsedPlan): Model {
 			handMinutesPerKg: p.crew.handMixMinutes / (80 * KG_PER_LB),
 			drumMinutesPerBatch: p.crew.drumMinutesPerBatch,
 			drumBatchKg: massToKg(p.crew.drumBatchMass, u),
-			placeMinutesPerBag: p.crew.placeMinutesPerBag,
+			placeMinutesPer80lb: p.crew.placeMinutesPerBag,
 			workingMinutesAt21C: p.crew.workingMinutes,
 			finishMinutes: p.crew.finishMinutes,
 			payloadKg: massToKg(p.crew.payload, u)

@@ -155,12 +155,13 @@ describe('the answer stays within its stated bound for any plan inside the limit
 	});
 
 	it('does not grow with the bag count when a section would take thousands of pours', () => {
-		// 40 × 50 ft of 10 lb bags (about 9,800) for one person with 10 min of working time: a pour a bag.
+		// 40 × 50 ft of 10 lb bags (about 9,800) for one person with 10 min of working time and 7.5 min
+		// to mix and place each bag (30 min per 80 lb each): a pour a bag.
 		const r = estimate({
 			units: 'imperial',
 			sections: [{ outline: rect(0, 0, 50, 40) }],
 			bags: { offered: [{ size: 10 }] },
-			crew: { people: 1, method: 'hand', handMixMinutes: 30, workingMinutes: 10, finishMinutes: 0 }
+			crew: { people: 1, method: 'hand', handMixMinutes: 30, placeMinutesPerBag: 30, workingMinutes: 10, finishMinutes: 0 }
 		});
 		if (!r.ok) throw new Error(JSON.stringify(r.errors));
 		expect(r.plan.mixing.sections[0].split?.parts).toBeGreaterThan(9000);

@@ -345,7 +345,12 @@ function planSchemaFor<U extends Units>(units: U) {
 					.max(imp ? 500 : 225)
 					.default(imp ? 160 : 72)
 					.describe(`Dry mix per drum batch, ${M}; common practice two 80 lb bags.`),
-				placeMinutesPerBag: z.number().min(0).max(30).default(COMMON.placeMinutesPerBag),
+				placeMinutesPerBag: z
+					.number()
+					.min(0)
+					.max(30)
+					.default(COMMON.placeMinutesPerBag)
+					.describe('Per 80 lb (36 kg) of dry mix placed; smaller bags take their share. From memory, about 2 min.'),
 				workingMinutes: z
 					.number()
 					.min(10)
