@@ -1,19 +1,8 @@
 // Bagged concrete per offered size, ready-mix to order, and which costs less.
 
 import type { BagOffer, Model } from './model';
-import * as unitsLib from './units';
+import { L_PER_US_GAL, countUp, m3ToOrderVolume, orderVolumeToM3, mass, roundUpTo, volume } from './units';
 import type { Mass, Volume } from './units';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const {
-	L_PER_US_GAL,
-	countUp,
-	m3ToOrderVolume,
-	orderVolumeToM3,
-	mass,
-	roundUpTo,
-	volume
-} = unitsLib;
 
 export interface BagOption {
 	size: number;

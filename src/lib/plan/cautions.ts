@@ -7,13 +7,10 @@ import type { JointsResult } from './joints';
 import type { MixingResult } from './mixing';
 import { NIOSH_LOAD_CONSTANT_KG } from './mixing';
 import type { Model } from './model';
-import * as unitsLib from './units';
+import { M_PER_IN } from './units';
 import type { VolumeResult } from './volume';
 import { addDays as addDaysIso, type ScheduleResult } from './schedule';
 import { toLbPerFt2h, type WeatherResult } from './weather';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { M_PER_IN } = unitsLib;
 
 export type Severity = 'info' | 'warning' | 'danger';
 

@@ -4,14 +4,10 @@
 import type { Layout } from './geometry';
 import type { StakePoint } from './lumber';
 import type { Model } from './model';
-import * as polygonLib from './polygon';
+import { dist, sub, toFrame } from './polygon';
 import type { Frame, Pt } from './polygon';
-import * as unitsLib from './units';
+import { M_PER_FT, small } from './units';
 import type { Small } from './units';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { dist, sub, toFrame } = polygonLib;
-const { M_PER_FT, small } = unitsLib;
 
 /** IRC R401.3: impervious surfaces within 10 ft of the foundation fall ≥ 2 % away from it. */
 export const IRC_R401_3 = { minFall: 0.02, within: 10 * M_PER_FT } as const;

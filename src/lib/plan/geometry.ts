@@ -1,25 +1,7 @@
 // Section outlines: validity, areas, shared edges (cold joints) and the free edges that get forms.
 
-import * as polygonLib from './polygon';
+import { bbox, boxesMeet, cross, dist, edgeBoxes, edgeBoxesMeet, interiorPoint, lerp, next, perimeter, pointInPolygon, project, segmentRelation, signedArea } from './polygon';
 import type { Box, Pt } from './polygon';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const {
-	bbox,
-	boxesMeet,
-	cross,
-	dist,
-	edgeBoxes,
-	edgeBoxesMeet,
-	interiorPoint,
-	lerp,
-	next,
-	perimeter,
-	pointInPolygon,
-	project,
-	segmentRelation,
-	signedArea
-} = polygonLib;
 
 /** A problem with the input, addressed by its path in the request (e.g. "sections.0.outline"). */
 export interface PlanIssue {

@@ -24,14 +24,11 @@ import {
 } from './schedule';
 import { parsePlanInput, type EdgeRef, type ParsedPlan, type PlanInput } from './schema';
 import type { StrengthDay } from './strength';
-import * as unitsLib from './units';
+import { area, length, mToPlan } from './units';
 import type { Area, Length, Units } from './units';
 import { computeSlab, type SlabResult } from './slab';
 import { computeVolume, thickenedEdges, type VolumeResult } from './volume';
 import { assessWeather, type WeatherResult } from './weather';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { area, length, mToPlan } = unitsLib;
 
 export interface SectionArea extends Area {
 	index: number;

@@ -3,14 +3,10 @@
 
 import type { Layout } from './geometry';
 import type { Model } from './model';
-import * as polygonLib from './polygon';
+import { clipVertical, fromFrame, isReflex, pointInPolygon, signedArea, toFrame } from './polygon';
 import type { Frame, Pt } from './polygon';
-import * as unitsLib from './units';
+import { M_PER_FT, M_PER_IN, countUp, length, mToPlan, small } from './units';
 import type { Length, Small } from './units';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { clipVertical, fromFrame, isReflex, pointInPolygon, signedArea, toFrame } = polygonLib;
-const { M_PER_FT, M_PER_IN, countUp, length, mToPlan, small } = unitsLib;
 
 /** ACI 302.1R, unreinforced slabs on ground. */
 export const ACI_302 = {

@@ -4,11 +4,8 @@
 
 import type { PlanResult } from './index';
 import { dist as d, type Pt } from './polygon';
-import * as unitsLib from './units';
+import { M_PER_FT, length } from './units';
 import type { Length, Units } from './units';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { M_PER_FT, length } = unitsLib;
 
 /** Corner letter as the edge table writes it: A…Z, then A1, B1… */
 export const cornerLetter = (i: number) => String.fromCharCode(65 + (i % 26)) + (i >= 26 ? Math.floor(i / 26) : '');

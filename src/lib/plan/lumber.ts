@@ -2,16 +2,11 @@
 
 import type { Layout } from './geometry';
 import type { Model } from './model';
-import * as polygonLib from './polygon';
+import { dist, lerp } from './polygon';
 import type { Pt } from './polygon';
-import * as unitsLib from './units';
+import { countUp, length, mToPlan, small } from './units';
 import type { Length, Small } from './units';
-import * as utilLib from './util';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { dist, lerp } = polygonLib;
-const { countUp, length, mToPlan, small } = unitsLib;
-const { times } = utilLib;
+import { times } from './util';
 
 /** Saw kerf lost per cut, 3 mm (⅛ in); from memory. */
 export const KERF_M = 0.003;

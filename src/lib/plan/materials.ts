@@ -3,15 +3,11 @@
 import type { BagOption } from './bags';
 import type { FormsResult } from './lumber';
 import type { Model } from './model';
-import * as polygonLib from './polygon';
+import { clipVertical, signedArea } from './polygon';
 import type { Pt } from './polygon';
-import * as unitsLib from './units';
+import { KG_PER_LB, L_PER_US_GAL, M2_PER_FT2, M3_PER_YD3, M_PER_IN, countUp, length, m3ToOrderVolume } from './units';
 import type { Length } from './units';
 import type { VolumeResult } from './volume';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { KG_PER_LB, L_PER_US_GAL, M2_PER_FT2, M3_PER_YD3, M_PER_IN, countUp, length, m3ToOrderVolume } = unitsLib;
-const { clipVertical, signedArea } = polygonLib;
 
 export interface MaterialItem {
 	id: string;

@@ -3,14 +3,10 @@
 
 import type { SectionGrid } from './joints';
 import type { BagOffer, Model } from './model';
-import * as polygonLib from './polygon';
+import { areaLeftOf, clipVertical, fromFrame, signedArea } from './polygon';
 import type { Frame, Pt } from './polygon';
-import * as unitsLib from './units';
+import { countUp, KG_PER_LB, mass, mToPlan, temperature } from './units';
 import type { Mass, Temperature } from './units';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { areaLeftOf, clipVertical, fromFrame, signedArea } = polygonLib;
-const { countUp, KG_PER_LB, mass, mToPlan, temperature } = unitsLib;
 
 /** Beyond this many pours a section belongs to ready-mix; no cold-joint lines are drawn (engine choice). */
 export const MAX_PRACTICAL_PARTS = 3;

@@ -3,25 +3,8 @@
 import { COMMON } from './defaults';
 import type { Pt } from './polygon';
 import type { EdgeRef, ParsedPlan } from './schema';
-import * as unitsLib from './units';
+import { KG_PER_LB, L_PER_US_GAL, M2_PER_FT2, M3_PER_FT3, M3_PER_YD3, M_PER_IN, massToKg, orderVolumeToM3, planToM, planVolumeToM3, smallToM, tempToC, windToKmh } from './units';
 import type { Units } from './units';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const {
-	KG_PER_LB,
-	L_PER_US_GAL,
-	M2_PER_FT2,
-	M3_PER_FT3,
-	M3_PER_YD3,
-	M_PER_IN,
-	massToKg,
-	orderVolumeToM3,
-	planToM,
-	planVolumeToM3,
-	smallToM,
-	tempToC,
-	windToKmh
-} = unitsLib;
 
 /** PS 20 dressed (dry) depth of each nominal board, inches (DOC PS 20). */
 export const DRESSED_DEPTH_IN = { '2x4': 3.5, '2x6': 5.5, '2x8': 7.25, '2x10': 9.25, '2x12': 11.25 } as const;

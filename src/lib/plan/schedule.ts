@@ -4,13 +4,9 @@
 
 import type { ColdJointSeg } from './geometry';
 import type { Model } from './model';
-import * as utilLib from './util';
-import * as strengthLib from './strength';
+import { times } from './util';
+import { ageFactor, equivalentAges, strengthRatio, strengthTimeline } from './strength';
 import type { StrengthDay } from './strength';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { times } = utilLib;
-const { ageFactor, equivalentAges, strengthRatio, strengthTimeline } = strengthLib;
 
 /** Plan day of the first pour when no date is known: day 1 the locate call, day 4 layout and digging, day 5 forms and base. */
 export const FIRST_POUR_DAY = 6;

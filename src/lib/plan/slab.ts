@@ -4,11 +4,8 @@
 import type { Plane } from './elevations';
 import type { Model } from './model';
 import type { Pt } from './polygon';
-import * as unitsLib from './units';
+import { mToPlan, small } from './units';
 import type { Small } from './units';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { mToPlan, small } = unitsLib;
 
 export interface SlabResult {
 	thickness: Small;

@@ -2,13 +2,9 @@
 
 import { PlanInputError, type Layout, type SectionShape } from './geometry';
 import type { Model } from './model';
-import * as polygonLib from './polygon';
-import * as unitsLib from './units';
+import { cross } from './polygon';
+import { KG_PER_LB, area, countUp, small, volume } from './units';
 import type { Area, Small, Volume } from './units';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { cross } = polygonLib;
-const { KG_PER_LB, area, countUp, small, volume } = unitsLib;
 
 /** Which edges of each section get a thickened edge. */
 export function thickenedEdges(m: Model, layout: Layout): boolean[][] {

@@ -1,11 +1,8 @@
 // Cold and hot weather per ACI 306R / 305R, and the evaporation rate of bleed water (Uno 1998).
 
 import { ACI_209, ageFactor } from './strength';
-import * as unitsLib from './units';
+import { KG_PER_LB, M_PER_FT, temperature } from './units';
 import type { Temperature } from './units';
-
-// Bound once: under the test runner every call through an import is a getter call.
-const { KG_PER_LB, M_PER_FT, temperature } = unitsLib;
 
 export const ACI_306 = {
 	/** Cold weather: air that falls to 40 °F (4.4 °C) during the protection period. */
