@@ -26,8 +26,8 @@ export const actions = {
 		const me = requireRole(event, 'homeowner');
 		const owned = await findOwnPlan(event.params.id, me.id);
 		const photoId = z.uuid().safeParse((await event.request.formData()).get('photoId'));
-		if (!owned || !photoId.success) return fail(404, { message: 'No such photo.' });
-		await deletePhoto(owned.id, photoId.data);
+		// Only a photo of this very plan: another plan's photo id (anyone's) answers as missing, and stays.
+		if (!owned || !photoId.success || !(await deletePhoto(owned.id, photoId.data))) return fail(404, { message: 'No such photo.' });
 		return { removed: true };
 	}
 } satisfies Actions;
