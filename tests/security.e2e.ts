@@ -1,3 +1,4 @@
+import http from 'node:http';
 import { expect, test, type Page } from '@playwright/test';
 import { demoPassword, demoUser, signIn } from './helpers';
 
@@ -54,4 +55,47 @@ test('a 20 MB body is refused with 413 and the limit', async ({ request }) => {
 	});
 	expect(res.status()).toBe(413);
 	expect(await res.text()).toContain('the limit is 16.0 MB');
+});
+
+/** Posts `total` bytes without Content-Length (chunked), 64 kB at a time; resolves with the answer. */
+function postChunked(url: string, total: number): Promise<{ status: number; text: string }> {
+	return new Promise((resolve, reject) => {
+		const req = http.request(url, {
+			method: 'POST',
+			headers: { 'content-type': 'application/x-www-form-urlencoded', 'transfer-encoding': 'chunked', origin: new URL(url).origin, accept: 'application/json' }
+		});
+		req.on('response', (res) => {
+			let text = '';
+			res.setEncoding('utf8');
+			res.on('data', (d) => (text += d));
+			res.on('end', () => resolve({ status: res.statusCode!, text }));
+			res.on('error', reject);
+		});
+		// The server may answer and close before every byte is written; the answer is what counts.
+		req.on('error', (err) => (/ECONNRESET|EPIPE/.test(String(err)) ? undefined : reject(err)));
+		const chunk = Buffer.alloc(64 * 1024, 'a');
+		let sent = 0;
+		const write = () => {
+			while (sent < total) {
+				const part = chunk.subarray(0, Math.min(chunk.length, total - sent));
+				sent += part.length;
+				if (!req.write(part)) return void req.once('drain', write);
+			}
+			req.end();
+		};
+		write();
+	});
+}
+
+test('a chunked body over the limit gets the same 413 and limit as a sized one; a small one goes through', async ({ baseURL }) => {
+	const big = await postChunked(`${baseURL}/forgot-password`, 20 * 1024 * 1024);
+	expect(big.status).toBe(413);
+	expect(big.text).toContain('the limit is 16.0 MB');
+	const api = await postChunked(`${baseURL}/api/plans`, 17 * 1024 * 1024);
+	expect(api.status).toBe(413);
+	expect(api.text).toContain('the limit is 16.0 MB');
+	// Under the limit the form reads the body as usual: a field error, not a 413 or a 500.
+	const small = await postChunked(`${baseURL}/forgot-password`, 1000);
+	expect(small.status).toBe(200);
+	expect(JSON.parse(small.text)).toMatchObject({ type: 'failure', status: 400 });
 });

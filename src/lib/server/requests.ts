@@ -33,7 +33,7 @@ export function requestHandle(logger: Logger = defaultLog): Handle {
 		idFor.set(event.request, requestId);
 		let response: Response;
 		try {
-			response = refuseEarly(event, requestId) ?? (await resolve(event));
+			response = refuseEarly(event, requestId) ?? (await limitUnsizedBody(event, requestId)) ?? (await resolve(event));
 			if (downFor.has(event.request) && response.status === 500) {
 				const headers = new Headers(response.headers);
 				headers.set('retry-after', String(RETRY_AFTER_S));
@@ -73,16 +73,60 @@ function bodyLimit(): number {
 	return Number(m[1]) * ({ '': 1, K: 1024, M: 1024 ** 2, G: 1024 ** 3 } as Record<string, number>)[m[2].toUpperCase()];
 }
 
+const mb = (n: number) => `${(n / 1024 ** 2).toFixed(1)} MB`;
+const tooLarge = (message: string, requestId: string) =>
+	json({ message, errors: [{ path: '', message }] }, { status: 413, headers: { 'x-request-id': requestId } });
+
+/**
+ * A body sent without Content-Length (chunked) is read here, up to the limit: past it the answer is
+ * the same 413 with the limit as a sized body gets, before any action or route sees a half-read
+ * stream. Under it, the request goes on with the bytes read.
+ */
+async function limitUnsizedBody(event: RequestEvent, requestId: string): Promise<Response | null> {
+	const request = event.request;
+	if (!request.body || request.headers.has('content-length')) return null;
+	const limit = bodyLimit();
+	const over = () => tooLarge(`The request is over ${mb(limit)}; the limit is ${mb(limit)}. Send smaller files, one at a time.`, requestId);
+	const reader = request.body.getReader();
+	const chunks: Uint8Array[] = [];
+	let size = 0;
+	try {
+		for (;;) {
+			const { done, value } = await reader.read();
+			if (done) break;
+			size += value.byteLength;
+			if (size > limit) {
+				void reader.cancel().catch(() => {});
+				return over();
+			}
+			chunks.push(value);
+		}
+	} catch (err) {
+		// adapter-node's own stream stops at the same limit with a 413 error.
+		if ((err as { status?: number }).status === 413) return over();
+		throw err;
+	}
+	const body = new Uint8Array(size);
+	let at = 0;
+	for (const c of chunks) {
+		body.set(c, at);
+		at += c.byteLength;
+	}
+	const headers = new Headers(request.headers);
+	headers.delete('transfer-encoding');
+	headers.set('content-length', String(size));
+	const sized = new Request(request.url, { method: request.method, headers, body, signal: request.signal });
+	idFor.set(sized, requestId);
+	event.request = sized;
+	return null;
+}
+
 /** Requests answered with a 4xx before routing: too large a body; a form naming the reserved "default" action. */
 function refuseEarly(event: RequestEvent, requestId: string): Response | null {
 	const headers = { 'x-request-id': requestId };
 	const length = Number(event.request.headers.get('content-length') ?? 0);
 	const limit = bodyLimit();
-	if (length > limit) {
-		const mb = (n: number) => `${(n / 1024 ** 2).toFixed(1)} MB`;
-		const message = `The request is ${mb(length)}; the limit is ${mb(limit)}. Send smaller files, one at a time.`;
-		return json({ message, errors: [{ path: '', message }] }, { status: 413, headers });
-	}
+	if (length > limit) return tooLarge(`The request is ${mb(length)}; the limit is ${mb(limit)}. Send smaller files, one at a time.`, requestId);
 	// SvelteKit throws (a 500) when a client names the default action; it is simply not an action name.
 	if (event.request.method === 'POST' && event.url.searchParams.has('/default')) {
 		const message = 'No such form action.';
