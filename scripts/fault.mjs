@@ -7,6 +7,7 @@
 // Options: --short (3 s outage; the e2e suite runs this against its server), --url URL (use a
 // running app instead of starting one on its own database).
 import { spawn } from 'node:child_process';
+import postgres from 'postgres';
 import { settings } from './lib/settings.mjs';
 import { ensurePostgres, pgCluster } from './lib/pg.mjs';
 import { background, log } from './lib/run.mjs';
@@ -35,6 +36,8 @@ if (!base) {
 	const port = Number(process.env.FAULT_PORT ?? s.port + 40);
 	base = `http://127.0.0.1:${port}`;
 	const env = { ...process.env, ...s.env, PORT: String(port), ORIGIN: base, LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' };
+	// The confirmation mail of the sign-up below goes through the local fake SMTP server.
+	if (s.useFakeMail) background(node, [path.join(root, 'scripts', 'mail-fake.mjs')], { env, stdio: ['ignore', 'ignore', 'inherit'] });
 	background(node, [path.join(root, 'build')], { env, stdio: ['ignore', 'ignore', 'inherit'] });
 	for (let i = 0; ; i++) {
 		if (await fetch(`${base}/healthz`).then((r) => r.ok, () => false)) break;
@@ -50,12 +53,25 @@ const ctl = (action) =>
 		spawn(cmd, a, { stdio: 'ignore' }).on('exit', (code) => (code === 0 ? resolve() : reject(new Error(`pg_ctl ${action} exited with ${code}`))));
 	});
 
-// A fresh homeowner, signed up through the form like a visitor.
+// A fresh homeowner, signed up through the form like a visitor; sign-up is confirm-first, so the
+// session comes from the e-mailed link, read where the fake SMTP server stores mail (dev_mail).
 const email = `fault-${Date.now()}-${process.pid}@fault.stakeline.test`;
+const formHeaders = { origin: base, accept: 'text/html', 'content-type': 'application/x-www-form-urlencoded' };
 const form = new URLSearchParams({ role: 'homeowner', name: 'Fault Drill', email, password: 'fault-drill-password', redirectTo: '' });
-const signup = await fetch(`${base}/signup`, { method: 'POST', body: form, redirect: 'manual', headers: { origin: base, 'content-type': 'application/x-www-form-urlencoded' } });
-const cookie = (signup.headers.getSetCookie?.() ?? []).map((c) => c.split(';')[0]).join('; ');
-if (!cookie) throw new Error(`Sign-up gave no session (status ${signup.status})`);
+const signup = await fetch(`${base}/signup`, { method: 'POST', body: form, redirect: 'manual', headers: formHeaders });
+if (signup.status !== 200) throw new Error(`Sign-up answered ${signup.status}`);
+const mailDb = postgres(s.env.DATABASE_URL, { max: 1, onnotice: () => {} });
+let token = null;
+for (let i = 0; !token; i++) {
+	if (i > 150) throw new Error(`No confirmation mail reached ${email} in 30 s (is the fake mail server running?)`);
+	await sleep(200);
+	const [m] = await mailDb`SELECT text FROM dev_mail WHERE "to" ILIKE ${'%' + email + '%'} AND subject LIKE 'Confirm%' ORDER BY received_at DESC LIMIT 1`;
+	token = m?.text.match(/verify-email\?token=([\w=-]+)/)?.[1] ?? null;
+}
+await mailDb.end();
+const confirm = await fetch(`${base}/verify-email`, { method: 'POST', body: new URLSearchParams({ token, next: '' }), redirect: 'manual', headers: formHeaders });
+const cookie = (confirm.headers.getSetCookie?.() ?? []).map((c) => c.split(';')[0]).join('; ');
+if (!cookie) throw new Error(`Following the confirmation link gave no session (status ${confirm.status})`);
 const headers = { cookie, origin: base, 'content-type': 'application/json' };
 
 const input = { units: 'imperial', sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }] };

@@ -57,6 +57,7 @@ const matrix: Record<string, Row[]> = {
 	'GET /reset-password': [r('/reset-password', x(200, 200, 200, 200, 200, 200, 200, 200))],
 	'POST /reset-password': [r('/reset-password', x(400, 400, 400, 400, 400, 400, 400, 400), { form: {} })],
 	'GET /verify-email': [r('/verify-email', x(200, 200, 200, 200, 200, 200, 200, 200))],
+	'POST /verify-email': [r('/verify-email', x(400, 400, 400, 400, 400, 400, 400, 400), { form: { token: 'not-a-token' } })],
 	'GET /account': [r('/account', x(303, 200, 200, 200, 200, 200, 200, 200))],
 	'POST /account?/password': [r('/account?/password', x(303, 400, 400, 400, 400, 400, 400, 400), { form: {} })],
 	'POST /account?/resend': [r('/account?/resend', x(303, 400, 400, 400, 400, 400, 400, 400), { form: {} })],

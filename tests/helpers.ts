@@ -14,13 +14,22 @@ export function uniqueEmail(label: string) {
  */
 const openForm = (page: Page, path: string) => page.goto(path, { waitUntil: 'networkidle' });
 
-export async function signUp(page: Page, o: { name: string; email: string; password: string; role?: 'homeowner' | 'contractor' }) {
-	await openForm(page, '/signup');
+/**
+ * Signs up through the form and follows the confirmation link from the fake mailbox, which signs the
+ * new account in (sign-up is confirm-first): ends where the link lands, /pro for a contractor, else
+ * the page the sign-up form was opened for (`path`, e.g. '/signup?redirectTo=/plans/new') or /plans.
+ */
+export async function signUp(page: Page, o: { name: string; email: string; password: string; role?: 'homeowner' | 'contractor'; path?: string }) {
+	await openForm(page, o.path ?? '/signup');
 	if (o.role === 'contractor') await page.getByLabel(/Bid on local jobs/).check();
 	await page.getByLabel('Your name').fill(o.name);
 	await page.getByLabel('E-mail').fill(o.email);
 	await page.getByLabel('Password', { exact: true }).fill(o.password);
 	await submitAndWait(page, 'Create account');
+	await expect(page.getByRole('heading', { name: 'Check your e-mail' })).toBeVisible();
+	await page.goto(await mailLink(page, o.email, /Confirm your e-mail/, 60_000), { waitUntil: 'networkidle' });
+	await submitAndWait(page, 'Confirm my e-mail');
+	await page.waitForURL((url) => url.pathname !== '/verify-email');
 }
 
 export async function signIn(page: Page, email: string, password: string) {
@@ -44,14 +53,14 @@ export async function signOut(page: Page) {
 }
 
 /** The newest link in a message to `email` whose subject matches, read from the fake mailbox. */
-export async function mailLink(page: Page, email: string, subject: RegExp): Promise<string> {
+export async function mailLink(page: Page, email: string, subject: RegExp, timeout = 15_000): Promise<string> {
 	let href: string | null = null;
 	await expect(async () => {
 		await page.goto(`/dev/mailbox?to=${encodeURIComponent(email)}`);
 		const mail = page.getByTestId('mail').filter({ has: page.getByRole('heading', { name: subject }) }).first();
 		href = await mail.getByTestId('mail-link').first().getAttribute('href', { timeout: 3000 });
 		expect(href).toBeTruthy();
-	}).toPass({ timeout: 15_000 });
+	}).toPass({ timeout });
 	return href!;
 }
 

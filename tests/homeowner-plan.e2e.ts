@@ -4,7 +4,7 @@ import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { computePlan } from '../src/lib/plan/index';
 import { formatVolume } from '../src/lib/plan/format';
-import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { pdfText } from './pdf-text';
 
 const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });
@@ -23,7 +23,7 @@ async function nextStep(page: Page, shot: string) {
 }
 
 test('a homeowner builds an L-shaped plan; results match the engine, survive a reload, and the plan page, 3D, photos and PDF work', async ({ page, request }) => {
-	test.setTimeout(90_000);
+	test.setTimeout(150_000); // sign-up waits on the confirmation mail
 	await signUp(page, { name: 'Hazel Brook', email: uniqueEmail('planner'), password: 'l-shaped-patio' });
 	await page.getByRole('link', { name: 'Start a new plan' }).click();
 	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
@@ -122,7 +122,7 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 });
 
 test('a signed-out visitor’s draft is kept through sign-up and lands in the new account', async ({ page }) => {
-	test.setTimeout(60_000);
+	test.setTimeout(120_000);
 	await page.goto('/');
 	expect(await seriousViolations(page)).toEqual([]);
 	await page.getByRole('link', { name: 'Start a plan' }).click();
@@ -131,9 +131,14 @@ test('a signed-out visitor’s draft is kept through sign-up and lands in the ne
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');
 	await page.getByRole('link', { name: 'Create an account' }).click();
 	await page.getByLabel('Your name').fill('Nell Quarry');
-	await page.getByLabel('E-mail').fill(uniqueEmail('draft'));
+	const email = uniqueEmail('draft');
+	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password', { exact: true }).fill('draft-kept-safe');
 	await page.getByRole('button', { name: 'Create account' }).click();
+	// Confirm-first: the e-mailed link signs the new account in and returns to the planner.
+	await expect(page.getByRole('heading', { name: 'Check your e-mail' })).toBeVisible();
+	await page.goto(await mailLink(page, email, /Confirm your e-mail/, 60_000), { waitUntil: 'networkidle' });
+	await page.getByRole('button', { name: 'Confirm my e-mail' }).click();
 	await expect(page.getByText('The plan you started before signing in is now saved to your account.')).toBeVisible();
 	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
 	await page.goto('/plans');

@@ -4,7 +4,7 @@ import { contractor, user, type Role, type User } from '$lib/server/db/schema';
 import { hashPassword } from './password';
 import { createEmailToken } from './email-tokens';
 import { queueMail } from './mail';
-import { resetPasswordMail, signInLinkMail, verifyEmailMail } from './mail/templates';
+import { resetPasswordMail, signInLinkMail, signUpAttemptMail, verifyEmailMail } from './mail/templates';
 
 export class EmailTakenError extends Error {
 	constructor() {
@@ -64,9 +64,21 @@ type MailUser = Pick<User, 'id' | 'name' | 'email' | 'emailVerifiedAt'>;
 /** The name the sign-up form chose is used only once the address is confirmed as its owner's. */
 const greeting = (u: MailUser) => (u.emailVerifiedAt ? u.name : '');
 
-export async function sendVerificationMail(u: MailUser, origin: string) {
+/** `next`: where a new account lands once the link is followed (kept from the sign-up form). */
+export async function sendVerificationMail(u: MailUser, origin: string, next = '') {
 	const token = await createEmailToken(u.id, 'verify_email');
-	await queueMail(u.email, verifyEmailMail('', `${origin}/verify-email?token=${token}`));
+	await queueMail(u.email, verifyEmailMail('', `${origin}/verify-email?token=${token}${next ? `&next=${encodeURIComponent(next)}` : ''}`));
+}
+
+/**
+ * Someone signed up with an address that has an account: the form says nothing, its owner hears of
+ * it. An account never confirmed gets a fresh confirmation link instead (the first one may be lost).
+ */
+export async function sendSignUpAttemptMail(email: string, origin: string, next = '') {
+	const u = await findUserByEmail(email);
+	if (!u) return;
+	if (!u.emailVerifiedAt) return sendVerificationMail(u, origin, next);
+	await queueMail(u.email, signUpAttemptMail(greeting(u), `${origin}/signin`));
 }
 
 export async function sendPasswordResetMail(u: MailUser, origin: string) {

@@ -30,6 +30,21 @@ export function verifyEmailMail(name: string, url: string): Mail {
 	});
 }
 
+/** To the owner of an address someone tried to sign up with: it says nothing the sign-up form chose. */
+export function signUpAttemptMail(name: string, url: string): Mail {
+	return notice({
+		subject: 'Someone tried to create a Stakeline account with your e-mail',
+		name,
+		lines: [
+			'Someone (maybe you) tried to create a new Stakeline account with this e-mail address. It already has an account, so nothing was created and nothing changed.',
+			'If it was you, sign in instead. Forgot the password? Choose a new one from the sign-in page.'
+		],
+		action: 'Sign in',
+		url,
+		footer: 'If it was not you, you need do nothing: your account and password stay as they are.'
+	});
+}
+
 export function resetPasswordMail(name: string, url: string): Mail {
 	return notice({
 		subject: 'Choose a new Stakeline password',

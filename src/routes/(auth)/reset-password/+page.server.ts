@@ -3,7 +3,7 @@ import { resetPasswordSchema } from '$lib/schemas/account';
 import { invalidateUserSessions } from '$lib/server/auth';
 import { consumeEmailToken, peekEmailToken } from '$lib/server/email-tokens';
 import { formError, parseForm } from '$lib/server/forms';
-import { setPassword } from '$lib/server/users';
+import { markEmailVerified, setPassword } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async ({ url }) => {
@@ -18,6 +18,8 @@ export const actions = {
 		const userId = await consumeEmailToken(data.token, 'reset_password');
 		if (!userId) return formError(values, 'This reset link has expired or was used already. Ask for a new one.');
 		await setPassword(userId, data.password);
+		// The link reached the address, which proves it is the owner's.
+		await markEmailVerified(userId);
 		// A reset means the old password may be known to someone else: end every session.
 		await invalidateUserSessions(userId);
 		redirect(303, '/signin?reset=1');

@@ -28,7 +28,12 @@ export const actions = {
 		const user = await findUserByEmail(data.email);
 		// An unknown address is checked against a dummy hash, so timing does not tell who has an account.
 		const ok = await verifyPassword(user?.passwordHash ?? (await dummyHash()), data.password);
-		if (!user || !ok) return formError(values, 'That e-mail and password do not match an account.', { password: 'Check your password, or reset it.' });
+		// An account whose address was never confirmed answers like a wrong password: otherwise signing up
+		// with an address and then signing in would tell whether the address had an account already.
+		if (!user || !ok || !user.emailVerifiedAt)
+			return formError(values, 'That e-mail and password do not match an account. Just signed up? Open the link we e-mailed you first.', {
+				password: 'Check your password, or reset it.'
+			});
 		await signInSucceeded(data.email, ip);
 		await startSession(event, user.id);
 		redirect(303, safeRedirect(values.redirectTo, homeFor(user.role)));

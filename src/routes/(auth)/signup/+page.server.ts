@@ -1,9 +1,8 @@
 import { redirect } from '@sveltejs/kit';
 import { signUpSchema } from '$lib/schemas/account';
-import { startSession } from '$lib/server/auth';
-import { formError, parseForm } from '$lib/server/forms';
+import { parseForm } from '$lib/server/forms';
 import { homeFor, safeRedirect } from '$lib/server/guards';
-import { createUser, EmailTakenError, inBackground, sendVerificationMail } from '$lib/server/users';
+import { createUser, EmailTakenError, inBackground, normalizeEmail, sendSignUpAttemptMail, sendVerificationMail } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (({ locals, url }) => {
@@ -15,19 +14,20 @@ export const load = (({ locals, url }) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
+	// Confirm-first: no session here. A new address gets a confirmation link that signs the account in;
+	// a taken one gets a note to its owner. The answer is the same either way, and neither waits on mail.
 	default: async (event) => {
 		const { data, values, failure } = await parseForm(event.request, signUpSchema);
 		if (failure) return failure;
-		let user;
+		const next = data.role === 'contractor' ? '/pro' : safeRedirect(values.redirectTo, homeFor(data.role));
 		try {
-			user = await createUser(data);
+			// Hashes the password before the insert, so a taken address costs the same time as a new one.
+			const user = await createUser(data);
+			inBackground('verification mail', sendVerificationMail(user, event.url.origin, next));
 		} catch (err) {
-			if (err instanceof EmailTakenError) return formError(values, 'Please correct the fields marked below.', { email: err.message + ' Sign in instead?' });
-			throw err;
+			if (!(err instanceof EmailTakenError)) throw err;
+			inBackground('sign-up attempt mail', sendSignUpAttemptMail(data.email, event.url.origin, next));
 		}
-		// In the background, so a new address costs no more time than a taken one.
-		inBackground('verification mail', sendVerificationMail(user, event.url.origin));
-		await startSession(event, user.id);
-		redirect(303, user.role === 'contractor' ? '/pro' : safeRedirect(values.redirectTo, homeFor(user.role)));
+		return { sent: true, email: normalizeEmail(data.email) };
 	}
 } satisfies Actions;
