@@ -28,10 +28,14 @@ const emails = Array.from({ length: rounds }, (_, i) => `timing-${run}-${i}@meas
 const signUp = (email) => post('/signup', { name: 'Timing Check', email, password: 'timing-password-1', role: 'homeowner' });
 const fresh = [];
 const taken = [];
-// Interleaved, so load on the machine affects both sides alike.
-for (const email of emails) {
+const confirmed = [];
+// Addresses with a confirmed account: the demo accounts (loaded into the local cluster).
+const demo = JSON.parse(await import('node:fs').then((fs) => fs.readFileSync(new URL('../fixtures/demo.json', import.meta.url), 'utf8')));
+// Interleaved, so load on the machine affects all sides alike.
+for (const [i, email] of emails.entries()) {
 	fresh.push(await signUp(email));
 	taken.push(await signUp(email));
+	confirmed.push(await signUp(demo.users[i % demo.users.length].email));
 }
 const resetKnown = [];
 const resetUnknown = [];
@@ -40,6 +44,7 @@ for (const [i, email] of emails.entries()) {
 	resetUnknown.push(await post('/forgot-password', { email: `nobody-${run}-${i}@measure.stakeline.test` }));
 }
 row('sign-up, new address', fresh);
-row('sign-up, address already has an account', taken);
+row('sign-up, taken, not yet confirmed', taken);
+row('sign-up, taken, confirmed account', confirmed);
 row('reset, address has an account', resetKnown);
 row('reset, no such account', resetUnknown);

@@ -3,6 +3,8 @@ import { db } from '$lib/server/db';
 import { emailToken, type TokenPurpose } from '$lib/server/db/schema';
 import { generateToken, hashToken } from './tokens';
 
+type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
+
 const HOUR_MS = 60 * 60 * 1000;
 export const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
 	verify_email: 48 * HOUR_MS,
@@ -11,9 +13,10 @@ export const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
 };
 
 /** A new one-time link token; earlier unused ones of the same purpose stop working. */
-export async function createEmailToken(userId: string, purpose: TokenPurpose): Promise<string> {
+export async function createEmailToken(userId: string, purpose: TokenPurpose, inTx?: Tx): Promise<string> {
 	const token = generateToken();
-	await db.transaction(async (tx) => {
+	const run = (fn: (tx: Tx) => Promise<void>) => (inTx ? fn(inTx) : db.transaction(fn));
+	await run(async (tx) => {
 		await tx
 			.update(emailToken)
 			.set({ usedAt: new Date() })

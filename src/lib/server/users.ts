@@ -3,7 +3,7 @@ import { db } from '$lib/server/db';
 import { contractor, user, type Role, type User } from '$lib/server/db/schema';
 import { hashPassword } from './password';
 import { createEmailToken } from './email-tokens';
-import { queueMail } from './mail';
+import { deliverSoon, queueMail } from './mail';
 import { resetPasswordMail, signInLinkMail, signUpAttemptMail, verifyEmailMail } from './mail/templates';
 
 export class EmailTakenError extends Error {
@@ -64,21 +64,39 @@ type MailUser = Pick<User, 'id' | 'name' | 'email' | 'emailVerifiedAt'>;
 /** The name the sign-up form chose is used only once the address is confirmed as its owner's. */
 const greeting = (u: MailUser) => (u.emailVerifiedAt ? u.name : '');
 
+const verifyLink = (origin: string, token: string, next: string) => `${origin}/verify-email?token=${token}${next ? `&next=${encodeURIComponent(next)}` : ''}`;
+
 /** `next`: where a new account lands once the link is followed (kept from the sign-up form). */
 export async function sendVerificationMail(u: MailUser, origin: string, next = '') {
 	const token = await createEmailToken(u.id, 'verify_email');
-	await queueMail(u.email, verifyEmailMail('', `${origin}/verify-email?token=${token}${next ? `&next=${encodeURIComponent(next)}` : ''}`));
+	await queueMail(u.email, verifyEmailMail('', verifyLink(origin, token, next)));
 }
 
 /**
- * Someone signed up with an address that has an account: the form says nothing, its owner hears of
- * it. An account never confirmed gets a fresh confirmation link instead (the first one may be lost).
+ * Confirm-first sign-up, the same work whether or not the address is taken: the password is hashed,
+ * then one transaction tries the insert and queues one mail, and commits. A new address gets its
+ * account (unusable until confirmed) and a confirmation link; a confirmed taken one a note to its
+ * owner that someone tried; one never confirmed a fresh link (the first may be lost). Mail goes out
+ * after the commit, in the background.
  */
-export async function sendSignUpAttemptMail(email: string, origin: string, next = '') {
-	const u = await findUserByEmail(email);
-	if (!u) return;
-	if (!u.emailVerifiedAt) return sendVerificationMail(u, origin, next);
-	await queueMail(u.email, signUpAttemptMail(greeting(u), `${origin}/signin`));
+export async function signUpOrNotify(input: { name: string; email: string; password: string; role: Role }, origin: string, next: string) {
+	const passwordHash = await hashPassword(input.password);
+	const email = normalizeEmail(input.email);
+	await db.transaction(async (tx) => {
+		const [created] = await tx
+			.insert(user)
+			.values({ name: input.name.trim(), email, role: input.role, passwordHash, emailVerifiedAt: null })
+			.onConflictDoNothing({ target: user.email })
+			.returning();
+		if (created?.role === 'contractor') await tx.insert(contractor).values({ userId: created.id });
+		const owner = created ?? (await tx.select().from(user).where(eq(user.email, email)))[0];
+		if (!owner) return; // deleted in between: nothing to say to anyone
+		if (!owner.emailVerifiedAt) {
+			const token = await createEmailToken(owner.id, 'verify_email', tx);
+			await queueMail(owner.email, verifyEmailMail('', verifyLink(origin, token, next)), tx);
+		} else await queueMail(owner.email, signUpAttemptMail(greeting(owner), `${origin}/signin`), tx);
+	});
+	deliverSoon();
 }
 
 export async function sendPasswordResetMail(u: MailUser, origin: string) {

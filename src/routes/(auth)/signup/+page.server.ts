@@ -2,7 +2,7 @@ import { redirect } from '@sveltejs/kit';
 import { signUpSchema } from '$lib/schemas/account';
 import { parseForm } from '$lib/server/forms';
 import { homeFor, safeRedirect } from '$lib/server/guards';
-import { createUser, EmailTakenError, inBackground, normalizeEmail, sendSignUpAttemptMail, sendVerificationMail } from '$lib/server/users';
+import { normalizeEmail, signUpOrNotify } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (({ locals, url }) => {
@@ -14,20 +14,13 @@ export const load = (({ locals, url }) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	// Confirm-first: no session here. A new address gets a confirmation link that signs the account in;
-	// a taken one gets a note to its owner. The answer is the same either way, and neither waits on mail.
+	// Confirm-first: no session here, and the same answer and the same work whether or not the
+	// address has an account (see signUpOrNotify); the e-mailed link signs a new account in.
 	default: async (event) => {
 		const { data, values, failure } = await parseForm(event.request, signUpSchema);
 		if (failure) return failure;
 		const next = data.role === 'contractor' ? '/pro' : safeRedirect(values.redirectTo, homeFor(data.role));
-		try {
-			// Hashes the password before the insert, so a taken address costs the same time as a new one.
-			const user = await createUser(data);
-			inBackground('verification mail', sendVerificationMail(user, event.url.origin, next));
-		} catch (err) {
-			if (!(err instanceof EmailTakenError)) throw err;
-			inBackground('sign-up attempt mail', sendSignUpAttemptMail(data.email, event.url.origin, next));
-		}
+		await signUpOrNotify(data, event.url.origin, next);
 		return { sent: true, email: normalizeEmail(data.email) };
 	}
 } satisfies Actions;
