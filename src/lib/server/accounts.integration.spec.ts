@@ -9,7 +9,7 @@ import { consumeEmailToken, createEmailToken, peekEmailToken } from './email-tok
 import { deliverDue, mailIdle, queueMail } from './mail';
 import { verifyPassword } from './password';
 import { hashToken } from './tokens';
-import { createUser, EmailTakenError } from './users';
+import { createUser, EmailTakenError, markEmailVerified, signUpOrNotify } from './users';
 
 const DAY = 86_400_000;
 const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
@@ -17,6 +17,51 @@ const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.
 afterAll(async () => {
 	await mailIdle();
 	await client.end();
+});
+
+describe('confirm-first sign-up', () => {
+	const origin = 'http://stakeline.test';
+	const subjects = async (to: string) => (await db.select({ subject: mailOutbox.subject }).from(mailOutbox).where(eq(mailOutbox.to, to)).orderBy(mailOutbox.createdAt)).map((m) => m.subject);
+	const signUp = (email: string, name: string, role: 'homeowner' | 'contractor' = 'homeowner') =>
+		signUpOrNotify({ name, email, password: `${name}-password-1`, role }, origin, '/plans/new');
+
+	it('creates an unconfirmed account and queues its confirmation link, with where to land', async () => {
+		const email = unique('new');
+		await signUp(email, 'Fresh', 'contractor');
+		const [u] = await db.select().from(user).where(eq(user.email, email));
+		expect(u).toMatchObject({ name: 'Fresh', role: 'contractor', emailVerifiedAt: null });
+		expect(await db.select().from(contractor).where(eq(contractor.userId, u.id))).toHaveLength(1);
+		expect(await subjects(email)).toEqual(['Confirm your e-mail for Stakeline']);
+		const [m] = await db.select().from(mailOutbox).where(eq(mailOutbox.to, email));
+		expect(m.text).toMatch(/\/verify-email\?token=[\w=-]+&next=%2Fplans%2Fnew/);
+	});
+
+	it('tells the owner of a confirmed address that someone tried, and changes nothing of the account', async () => {
+		const email = unique('owner');
+		const owner = await createUser({ name: 'Owner', email, password: 'owner-password-1', role: 'homeowner', verified: true });
+		await signUp(email.toUpperCase(), 'Intruder', 'contractor');
+		const rows = await db.select().from(user).where(eq(user.email, email));
+		expect(rows).toHaveLength(1);
+		expect(rows[0]).toMatchObject({ id: owner.id, name: 'Owner', role: 'homeowner', passwordHash: owner.passwordHash });
+		expect(await subjects(email)).toEqual(['Someone tried to create a Stakeline account with your e-mail']);
+		const [m] = await db.select().from(mailOutbox).where(eq(mailOutbox.to, email));
+		expect(m.text).not.toContain('Intruder');
+	});
+
+	it('sends a fresh confirmation link for an address signed up but never confirmed; the old link stops working', async () => {
+		const email = unique('again');
+		await signUp(email, 'First');
+		const [first] = await db.select().from(mailOutbox).where(eq(mailOutbox.to, email));
+		const oldToken = first.text.match(/token=([\w=-]+)/)![1];
+		await signUp(email, 'Second');
+		expect(await subjects(email)).toEqual(['Confirm your e-mail for Stakeline', 'Confirm your e-mail for Stakeline']);
+		expect(await peekEmailToken(oldToken, 'verify_email')).toBeNull();
+		const rows = await db.select().from(user).where(eq(user.email, email));
+		expect(rows.map((r) => r.name)).toEqual(['First']);
+		await markEmailVerified(rows[0].id);
+		await signUp(email, 'Third');
+		expect((await subjects(email)).at(-1)).toBe('Someone tried to create a Stakeline account with your e-mail');
+	});
 });
 
 describe('users', () => {
