@@ -1,5 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
+import { pdfText } from './pdf-text';
 
 // The engine inputs that got their own wizard fields: exposure, the day-by-day forecast, concrete
 // temperature, pour names, strength and cement, reinforcement details, stakes and board lengths,
@@ -219,5 +220,35 @@ test('signed in, the new inputs are saved and hold after a reload', async ({ pag
 	expect(stored.conditions.airLow).toEqual([55, 56, 57, 58, 59, 60, 61]);
 	expect(stored.sections[0].name).toBe('Back patio');
 	expect(stored.currency).toBe('EUR');
+	expect(errors).toEqual([]);
+});
+
+test("a freestanding pad's chosen high edge is marked on the plan page: 2D view, build card, layout sheet and PDF", async ({ page }) => {
+	test.setTimeout(120_000);
+	const errors = watchErrors(page);
+	await signUp(page, { name: 'Hal Uphill', email: uniqueEmail('high-edge'), password: 'the-high-side-shows' });
+	await page.goto('/plans/new');
+	await goTo(page, 'Outline');
+	await page.getByLabel('Freestanding: no house wall along the slab').check();
+	await goTo(page, 'Pitch');
+	await choose(page, 'high-edge', '0:2'); // edge C–D, the back of the 12 × 10 ft starter
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 15_000 });
+	const id = page.url().split('/').at(-2)!;
+	await page.goto(`/plans/${id}`);
+	await expect(page.getByTestId('outline-high-edge')).toBeVisible();
+	await expect(page.locator('figure svg line[data-high]')).toHaveCount(1);
+	await expect(page.locator('figure svg text', { hasText: 'high side' })).toHaveCount(1);
+	const card = page.getByTestId('build-card');
+	await expect(card.locator('div', { hasText: /^High side/ }).getByRole('definition').first()).toHaveText('edge C–D');
+	const sheet = page.getByTestId('layout-sheet');
+	await expect(sheet.getByTestId('sheet-high-edge')).toHaveText('high side, edge C–D');
+	await expect(sheet.locator('svg line[data-high]')).toHaveCount(1);
+	await expect(sheet.getByTestId('layout-drawing').getByText('HIGH SIDE')).toBeVisible();
+	const pdf = await page.request.get(`/plans/${id}/plan.pdf`);
+	expect(pdf.status()).toBe(200);
+	const text = (await pdfText(await pdf.body())).replace(/\s+/g, ' ');
+	expect(text).toContain('High side edge C–D');
+	expect(text).toContain('Green dashes: the high side, edge C–D');
+	expect(text).toContain('HIGH SIDE');
 	expect(errors).toEqual([]);
 });
