@@ -1,3 +1,4 @@
+import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
 import { pdfText } from './pdf-text';
@@ -251,4 +252,34 @@ test("a freestanding pad's chosen high edge is marked on the plan page: 2D view,
 	expect(text).toContain('Green dashes: the high side, edge C–D');
 	expect(text).toContain('HIGH SIDE');
 	expect(errors).toEqual([]);
+});
+
+test.describe('on a phone', () => {
+	test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
+
+	test('the new fields fit a 390 px screen without sideways scroll and pass axe', async ({ page }) => {
+		test.setTimeout(120_000);
+		const errors = watchErrors(page);
+		await page.goto('/plans/new');
+		const check = async (where: string) => {
+			const { scroll, client } = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, client: document.documentElement.clientWidth }));
+			expect(scroll, `${where} is wider than the screen`).toBeLessThanOrEqual(client);
+			const { violations } = await new AxeBuilder({ page }).include('section[aria-labelledby="step-heading"]').analyze();
+			expect(violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${where} ${v.id}: ${v.nodes[0]?.target}`)).toEqual([]);
+		};
+		await goTo(page, 'Site');
+		await page.getByLabel('Enter the forecast day by day').check();
+		await typeInto(page, 'air-low-0', '45');
+		await check('site, day by day');
+		await goTo(page, 'Build-up');
+		await choose(page, 'edges', 'free');
+		for (const r of ['mesh', 'rebar', 'fiber']) {
+			await choose(page, 'reinforcement', r);
+			await check(`build-up, ${r}`);
+		}
+		await goTo(page, 'Crew');
+		await choose(page, 'curing-method', 'compound');
+		await check('crew');
+		expect(errors).toEqual([]);
+	});
 });
