@@ -151,7 +151,7 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 			quantity: containers,
 			unit: imp ? 'gal containers' : '4 L containers',
 			cost: priced(containers, p.releaseAgent),
-			note: `About ${round1(imp ? releaseL / L_PER_US_GAL : releaseL)} ${imp ? 'gal' : 'L'} for ${Math.round(imp ? faceM2 / M2_PER_FT2 : faceM2)} ${lu}² of form face (common practice coverage; the label rules).` // coverage from memory
+			note: `About ${round1(imp ? releaseL / L_PER_US_GAL : releaseL, releaseL < 3.8 ? 2 : 1)} ${imp ? 'gal' : 'L'} for ${Math.round(imp ? faceM2 / M2_PER_FT2 : faceM2)} ${lu}² of form face (common practice coverage; the label rules).` // coverage from memory
 		});
 	}
 	if (x.forms.isolationStrip.meters > 0)

@@ -183,9 +183,9 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 	const to70 = byPercent(CURING.percent);
 	const byDays = byAge(curingMin);
 	const list: Omit<Milestone, 'planDay' | 'date'>[] = [
-		{ id: 'forms-off', title: 'Strip the forms', day: byAge(ms.formsOffDays), rule: `${ms.formsOffDays} day(s) at 20 °C equivalent age`, source: 'common practice (about 24 h)' },
-		{ id: 'walk', title: 'Walk on it', day: byAge(ms.walkDays), rule: `${ms.walkDays} day(s) at 20 °C equivalent age`, source: 'common practice (24–48 h)' },
-		{ id: 'furniture', title: 'Set furniture on it', day: byAge(ms.furnitureDays), rule: `${ms.furnitureDays} day(s) at 20 °C equivalent age`, source: 'common practice, no published source' }, // from memory
+		{ id: 'forms-off', title: 'Strip the forms', day: byAge(ms.formsOffDays), rule: `${dayCount(ms.formsOffDays)} at 20 °C equivalent age`, source: 'common practice (about 24 h)' },
+		{ id: 'walk', title: 'Walk on it', day: byAge(ms.walkDays), rule: `${dayCount(ms.walkDays)} at 20 °C equivalent age`, source: 'common practice (24–48 h)' },
+		{ id: 'furniture', title: 'Set furniture on it', day: byAge(ms.furnitureDays), rule: `${dayCount(ms.furnitureDays)} at 20 °C equivalent age`, source: 'common practice, no published source' }, // from memory
 		...(m.loads.vehicles
 			? [{ id: 'vehicles' as const, title: 'Drive on it', day: byPercent(ms.vehiclePercent), rule: `${ms.vehiclePercent} % of design strength`, source: 'common practice (about 70 % of design strength)' }]
 			: []),
@@ -203,6 +203,9 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 		return { ...x, planDay, date: date && planDay !== null ? date(planDay - first0) : undefined };
 	});
 }
+
+/** "1 day", "1.5 days", "2 days". */
+const dayCount = (n: number) => `${n} day${n === 1 ? '' : 's'}`;
 
 /** Finishing steps on a pour day, each with its source (ACI 302.1R or common practice). */
 function finishing(m: Model, jointDepthIn: string): { id: string; text: string }[] {

@@ -64,6 +64,10 @@ describe('text a person reads', () => {
 		expect(strings(r).flatMap(articleSlips)).toEqual([]);
 	});
 
+	it.each(results)('no "day(s)" and no quantity rounded to nothing ("About 0 gal"): %s', (_, r) => {
+		expect(strings(r).filter((t) => /\w\(s\)|\bAbout 0 /.test(t))).toEqual([]);
+	});
+
 	it('the article check itself catches the slips it is for', () => {
 		expect(articleSlips('carry a 80 lb bag, an 4 in slab, an 18 in stake, a 60 lb bag, an 8 ft board, a 1.2 m level')).toEqual(['a 80', 'an 4']);
 	});
