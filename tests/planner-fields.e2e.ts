@@ -37,7 +37,36 @@ const VALUES: Record<string, string> = {
 	'bag-price-0': '6.5',
 	'bag-price-1': '5.25',
 	'bag-price-2': '3.75',
-	'readymix-price': '190'
+	'readymix-price': '190',
+	'air-low': '50',
+	'concrete-temp': '68',
+	'design-strength': '3500',
+	'stake-length': '20',
+	'board-length-0': '10',
+	'board-length-1': '12',
+	'board-length-2': '14',
+	'board-length-3': '16',
+	'base-overhang': '8',
+	'stone-density': '1.5',
+	'soil-density': '1.4',
+	'mesh-width': '5',
+	'mesh-length': '10',
+	'wire-spacing': '6',
+	'chair-spacing': '2.5',
+	'bag-size-0': '90',
+	'bag-size-1': '60',
+	'bag-size-2': '40',
+	'bag-yield-0': '0.68',
+	'bag-yield-1': '0.45',
+	'bag-yield-2': '0.3',
+	'water-ratio': '0.09',
+	'readymix-increment': '0.5',
+	'readymix-minimum': '2',
+	'short-load-fee': '60',
+	'curing-coverage': '250',
+	'forms-off-days': '2',
+	'walk-days': '3',
+	'furniture-days': '4'
 };
 // Selects: the choice to make; the edge table's lengths are typed by label below.
 const CHOICES: Record<string, string> = {
@@ -48,7 +77,15 @@ const CHOICES: Record<string, string> = {
 	lumber: 'custom',
 	release: 'oil',
 	edges: 'free',
-	method: 'drum'
+	method: 'drum',
+	exposure: 'severe',
+	cement: 'typeIII',
+	'mesh-form': 'roll',
+	'edge-profile': 'tapered',
+	'plan-size': '60',
+	'joint-method': 'saw',
+	'curing-method': 'compound',
+	currency: 'CAD'
 };
 
 const stepBody = (page: Page) => page.locator('section[aria-labelledby="step-heading"]');
@@ -155,7 +192,7 @@ test('a new visitor types into every field of every step: no page error, and the
 	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
 	const before = await page.getByTestId('result-bags').textContent();
 	const typed = await fillEveryStep(page);
-	expect(Object.keys(typed).length).toBeGreaterThan(35);
+	expect(Object.keys(typed).length).toBeGreaterThan(70);
 	// Thicker slab, larger area: more bags than the starter's 12 × 10 × 4 in.
 	expect(Number(await page.getByTestId('result-bags').textContent())).toBeGreaterThan(Number(before));
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');

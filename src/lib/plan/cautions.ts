@@ -58,7 +58,8 @@ const localCodes: Rule = () => ({
 	title: 'Local codes, permits and licensed practice come first',
 	reason: 'Every number here is a planning estimate from published general rules; your town may require a permit, an inspection or different details.',
 	action: 'Check with the local building department before you dig, and hire a licensed professional where the work, the loads or the site call for one.',
-	source: 'Local building code as adopted (e.g. IRC R105 permits, from memory)',
+	// IRC R105 section number from memory
+	source: 'Local building code as adopted (e.g. IRC R105 permits)',
 	severity: 'info'
 });
 
@@ -157,7 +158,8 @@ const freezeThaw: Rule[] = [
 					title: 'No de-icing salt the first winter',
 					reason: 'Young concrete has not dried out enough to resist de-icers; salts scale the surface where water freezes in it.',
 					action: 'Use sand for grip in the first winter; never use ammonium sulfate or ammonium nitrate de-icers at all.',
-					source: 'common practice, no published source (concrete industry guidance, from memory)',
+					// concrete industry guidance, from memory
+					source: 'common practice, no published source (concrete industry guidance)',
 					severity: 'info'
 				}
 ];
@@ -183,7 +185,8 @@ const oilRelease: Rule = ({ m }) =>
 				title: 'Use a form release agent, never waste motor oil',
 				reason: 'The plan lists oil as the form release; used motor oil soaks into the soil and stains the concrete edge.',
 				action: 'Use a commercial release agent made for concrete forms, applied thinly before the pour.',
-				source: 'common practice; used-oil rules under 40 CFR 279 (from memory)',
+				// 40 CFR 279 citation from memory
+				source: 'common practice; used-oil rules under 40 CFR 279',
 				severity: 'warning'
 			};
 
@@ -219,7 +222,8 @@ const drainage: Rule[] = [
 					title: 'Steep surface',
 					reason: `The surface falls ${one(e.steepest.percent)} % at its steepest; past about 5 % (1:20) it reads as a ramp and furniture tips.`,
 					action: 'Lower the fall, step the slab, or treat it as a walk ramp with a rough finish.',
-					source: 'from memory (ADA 2010 Standards §403.3, 1:20 running slope)',
+					// from memory: the ADA running-slope limit applied to a patio
+					source: 'common practice, after ADA 2010 Standards §403.3 (1:20 running slope)',
 					severity: 'warning'
 				}
 			: null,
@@ -261,7 +265,8 @@ const weatherRules: Rule[] = [
 					title: 'Too cool to cure without cover',
 					reason: `A daily mean of ${one(Math.min(...w.pours.map((p) => p.coldestCuringMean.fahrenheit)))} °F (${one(Math.min(...w.pours.map((p) => p.coldestCuringMean.celsius)))} °C) falls in the first ${m.cement === 'typeIII' ? 3 : 7} days after a pour; concrete should stay above 50 °F (10 °C) and moist that long.`,
 					action: 'Cover the slab with insulated curing blankets over the moist cure, or pour in a warmer week; strength gain slows and the milestones move out.',
-					source: 'ACI 318-19 §26.5.3.1 (section number from memory)',
+					// ACI 318-19 section number from memory
+					source: 'ACI 318-19 §26.5.3.1',
 					severity: 'warning'
 				},
 	({ weather: w }) =>
@@ -272,7 +277,8 @@ const weatherRules: Rule[] = [
 					title: 'Hot weather',
 					reason: `The concrete would be placed above about 95 °F (35 °C).`,
 					action: 'Pour early in the morning, use cool water, shade the materials, and have extra hands so it is finished before it stiffens.',
-					source: 'ACI 305R (95 °F from memory)',
+					// the 95 °F figure from memory
+					source: 'ACI 305R (hot weather concreting)',
 					severity: 'warning'
 				},
 	({ weather: w }) => {

@@ -236,6 +236,7 @@ export function estimate(input: unknown): EstimateOutcome {
 
 export { PlanInputError, type PlanIssue } from './geometry';
 export { parsePlanInput, planInputSchema, planInputJsonSchema } from './schema';
+export { fieldLabel } from './messages';
 export { EXAMPLE_PRICES } from './defaults';
 export type { ParsedPlan, PlanInput, EdgeRef, ParseResult } from './schema';
 export type { Area, Length, Mass, Small, Temperature, Units, Volume } from './units';

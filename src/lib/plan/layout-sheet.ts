@@ -49,6 +49,8 @@ export interface LayoutSheet {
 	units: Units;
 	corners: SheetCorner[];
 	start: { corner: string; why: string };
+	/** A freestanding pad's high side ("A–B"), where the top is highest; null along a house. */
+	highEdge: string | null;
 	squareCheck: SquareCheck | null;
 	diagonals: { section: number; name: string; first: { from: string; to: string; length: Length }; second: { from: string; to: string; length: Length }; square: boolean }[];
 	boards: { id: string; kind: 'outer' | 'house' | 'bulkhead'; formed: boolean; edge: string; length: Length }[];
@@ -72,12 +74,18 @@ const CHECKS: Record<Units, { k: number; name: string }[]> = {
 /** Lengths are given in the plan's unit; Length carries both systems. */
 const planLength = (v: number, u: Units) => length(u === 'imperial' ? v * M_PER_FT : v);
 
+/** An edge by its corner letters as the layout sheet names it: "A–B", or "2A–2B" with several pours. */
+export function sheetEdgeName(g: Pick<PlanResult['geometry'], 'sections'>, s: number, e: number): string {
+	const label = (v: number) => `${g.sections.length > 1 ? s + 1 : ''}${cornerLetter(v)}`;
+	return `${label(e)}–${label((e + 1) % g.sections[s].outline.length)}`;
+}
+
 export function layoutSheet(r: PlanResult): LayoutSheet {
 	const u = r.units;
 	const many = r.geometry.sections.length > 1;
 	const label = (s: number, v: number) => `${many ? s + 1 : ''}${cornerLetter(v)}`;
 	const outline = (s: number) => r.geometry.sections[s].outline;
-	const edgeName = (s: number, e: number) => `${label(s, e)}–${label(s, (e + 1) % outline(s).length)}`;
+	const edgeName = (s: number, e: number) => sheetEdgeName(r.geometry, s, e);
 	const corners = r.geometry.sections.flatMap((s) => s.outline.map((at, v) => ({ section: s.index, vertex: v, label: label(s.index, v), at })));
 
 	// Start where the house wall begins (the wall is the one straight line already on site), else
@@ -149,5 +157,6 @@ export function layoutSheet(r: PlanResult): LayoutSheet {
 		};
 	});
 
-	return { units: u, corners, start, squareCheck, diagonals, boards, stakes };
+	const highEdge = r.geometry.houseEdges.length ? null : edgeName(r.geometry.highEdge.section, r.geometry.highEdge.edge);
+	return { units: u, corners, start, highEdge, squareCheck, diagonals, boards, stakes };
 }

@@ -151,7 +151,7 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 			quantity: containers,
 			unit: imp ? 'gal containers' : '4 L containers',
 			cost: priced(containers, p.releaseAgent),
-			note: `About ${round1(imp ? releaseL / L_PER_US_GAL : releaseL)} ${imp ? 'gal' : 'L'} for ${Math.round(imp ? faceM2 / M2_PER_FT2 : faceM2)} ${lu}² of form face (coverage from memory; the label rules).`
+			note: `About ${round1(imp ? releaseL / L_PER_US_GAL : releaseL, releaseL < 3.8 ? 2 : 1)} ${imp ? 'gal' : 'L'} for ${Math.round(imp ? faceM2 / M2_PER_FT2 : faceM2)} ${lu}² of form face (common practice coverage; the label rules).` // coverage from memory
 		});
 	}
 	if (x.forms.isolationStrip.meters > 0)
@@ -193,7 +193,7 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 			quantity: imp ? kg / KG_PER_LB : kg,
 			unit: imp ? 'lb' : 'kg',
 			cost: priced(kg, p.fiberPerKg),
-			note: `${round1(imp ? (perBag / KG_PER_LB) * 16 : perBag * 1000, 2)} ${imp ? 'oz' : 'g'} in each of ${x.planned.count} bags${m.reinforcing.fiberPerBagKg === undefined ? ' (1.5 lb/yd³, from memory: use the dose on the fiber label)' : ', as its label gives it'}.`
+			note: `${round1(imp ? (perBag / KG_PER_LB) * 16 : perBag * 1000, 2)} ${imp ? 'oz' : 'g'} in each of ${x.planned.count} bags${m.reinforcing.fiberPerBagKg === undefined ? ' (1.5 lb/yd³, common practice: use the dose on the fiber label)' : ', as its label gives it'}.`
 		});
 	}
 	if (m.curing.method === 'cover')
@@ -209,7 +209,7 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 		quantity: dig.loads,
 		unit: 'loads',
 		cost: priced(dig.loads, p.haulSoil),
-		note: `${round1(imp ? dig.volume.cubicYards : dig.volume.cubicMeters)} ${imp ? 'yd³' : 'm³'} in the ground, about ${round1(imp ? dig.weight.shortTons : dig.weight.tonnes)} ${imp ? 'short tons' : 't'} at the vehicle's payload (soil density from memory). ${dig.note}`
+		note: `${round1(imp ? dig.volume.cubicYards : dig.volume.cubicMeters)} ${imp ? 'yd³' : 'm³'} in the ground, about ${round1(imp ? dig.weight.shortTons : dig.weight.tonnes)} ${imp ? 'short tons' : 't'} at the vehicle's payload (soil density: common practice, no published source). ${dig.note}` // soil density from memory
 	});
 	items.push({ id: 'tools', name: 'Tools (bought or hired)', quantity: 1, unit: 'set', cost: p.tools, note: 'The tool list below; counted for bags and ready-mix alike.' });
 	return { items, tools: tools(m, x), diyTotal: total(items) };

@@ -5,11 +5,11 @@
 import type { z } from 'zod';
 import type { Units } from './units';
 
-type UnitKind = 'L' | 'S' | 'T' | 'M' | 'V' | 'PV' | 'psi' | 'wind' | '%' | 'min' | 'days' | 'money' | 'x';
+type UnitKind = 'L' | 'S' | 'T' | 'M' | 'V' | 'PV' | 'psi' | 'wind' | '%' | 'min' | 'days' | 'money' | 'x' | 'dens' | 'cover' | 'dose';
 
 const UNIT: Record<Units, Record<UnitKind, string>> = {
-	imperial: { L: 'ft', S: 'in', T: '°F', M: 'lb', V: 'yd³', PV: 'ft³', psi: 'psi', wind: 'mph', '%': '%', min: 'min', days: 'days', money: '', x: '' },
-	metric: { L: 'm', S: 'mm', T: '°C', M: 'kg', V: 'm³', PV: 'm³', psi: 'MPa', wind: 'km/h', '%': '%', min: 'min', days: 'days', money: '', x: '' }
+	imperial: { L: 'ft', S: 'in', T: '°F', M: 'lb', V: 'yd³', PV: 'ft³', psi: 'psi', wind: 'mph', '%': '%', min: 'min', days: 'days', money: '', x: '', dens: 'short tons per yd³', cover: 'ft² per US gal', dose: 'oz' },
+	metric: { L: 'm', S: 'mm', T: '°C', M: 'kg', V: 'm³', PV: 'm³', psi: 'MPa', wind: 'km/h', '%': '%', min: 'min', days: 'days', money: '', x: '', dens: 't per m³', cover: 'm² per L', dose: 'g' }
 };
 
 /**
@@ -58,9 +58,13 @@ const FIELDS: Record<string, [string, UnitKind?]> = {
 	'thickenedEdge.edges.edge': ['the thickened edge’s edge number'],
 	'thickenedEdge.width': ['the trench width', 'S'],
 	'thickenedEdge.extraDepth': ['the trench depth below the slab', 'S'],
+	'thickenedEdge.profile': ['the trench profile'],
 	base: ['the base'],
 	'base.depth': ['the base depth', 'S'],
 	'base.bulking': ['the loose-to-compacted ratio of the base stone', 'x'],
+	'base.overhang': ['how far the base reaches past the forms', 'S'],
+	'base.stoneDensity': ['the weight of the compacted base stone', 'dens'],
+	'base.soilDensity': ['the weight of the dug soil', 'dens'],
 	fill: ['the fill'],
 	'fill.volume': ['the fill volume', 'PV'],
 	'fill.shareOfTrench': ['the fill’s share of the trench (0.2 for a fifth)', 'x'],
@@ -94,6 +98,12 @@ const FIELDS: Record<string, [string, UnitKind?]> = {
 	'prices.releaseAgent': ['the release agent price', 'money'],
 	'prices.isolationStrip': ['the isolation strip price', 'money'],
 	'prices.curingCover': ['the curing cover price', 'money'],
+	'prices.curingCompound': ['the curing compound price', 'money'],
+	'prices.fiber': ['the fibre price', 'money'],
+	'prices.rebar': ['the reinforcing bar price', 'money'],
+	'prices.chair': ['the support chair price', 'money'],
+	'prices.tools': ['the tools price', 'money'],
+	'prices.haulSoil': ['the price of hauling a load of soil', 'money'],
 	crew: ['the crew'],
 	'crew.people': ['the number of people'],
 	'crew.method': ['the mixing method'],
@@ -106,6 +116,7 @@ const FIELDS: Record<string, [string, UnitKind?]> = {
 	'crew.payload': ['the vehicle payload', 'M'],
 	conditions: ['the weather'],
 	'conditions.airTemp': ['the air temperature', 'T'],
+	'conditions.airLow': ['the low air temperature', 'T'],
 	'conditions.humidity': ['the humidity', '%'],
 	'conditions.wind': ['the wind speed', 'wind'],
 	'conditions.concreteTemp': ['the concrete temperature', 'T'],
@@ -116,8 +127,47 @@ const FIELDS: Record<string, [string, UnitKind?]> = {
 	'milestones.furnitureDays': ['the days before furniture', 'days'],
 	'milestones.vehiclePercent': ['the strength share before vehicles', '%'],
 	joints: ['the joints'],
-	'joints.method': ['the jointing method']
+	'joints.method': ['the jointing method'],
+	exposure: ['the freeze–thaw exposure'],
+	curing: ['the curing'],
+	'curing.method': ['the curing method'],
+	'curing.coverage': ['the curing compound coverage', 'cover'],
+	reinforcing: ['the reinforcement details'],
+	'reinforcing.meshForm': ['whether the mesh comes in sheets or a roll'],
+	'reinforcing.meshWidth': ['the mesh sheet or roll width', 'L'],
+	'reinforcing.meshLength': ['the mesh sheet or roll length', 'L'],
+	'reinforcing.wireSpacing': ['the wire spacing of the mesh', 'S'],
+	'reinforcing.chairSpacing': ['the support chair spacing', 'L'],
+	'reinforcing.barSpacing': ['the bar spacing', 'S'],
+	'reinforcing.barDiameter': ['the bar diameter', 'S'],
+	'reinforcing.barStock': ['the bar length on sale', 'L'],
+	'reinforcing.lapDiameters': ['the lap splice, in bar diameters', 'x'],
+	'reinforcing.fiberPerBag': ['the fibre per bag', 'dose']
 };
+
+/**
+ * A field's name in plain words from an engine path: "sections.0.outline" → "the outline of pour 1",
+ * "bags.offered.2.price" → "the bag price (bag size 3)". Never shows the path itself.
+ */
+export function fieldLabel(path: string): string {
+	const parts = path.split('.').filter(Boolean);
+	const keys = parts.filter((p) => !/^\d+$/.test(p));
+	let label = '';
+	for (let n = keys.length; n > 0 && !label; n--) label = FIELDS[keys.slice(0, n).join('.')]?.[0] ?? '';
+	if (!label) label = keys.length ? fromKey(keys[keys.length - 1]) : 'the plan';
+	// The 1-based place of the item of `list` the path goes through, if it does.
+	const at = (list: string) => {
+		const i = parts.indexOf(list);
+		return i >= 0 && /^\d+$/.test(parts[i + 1] ?? '') ? Number(parts[i + 1]) + 1 : null;
+	};
+	const pour = at('sections');
+	if (pour !== null && keys[0] === 'sections') label += ` of pour ${pour}`;
+	const bag = parts[0] === 'bags' ? at('offered') : null;
+	if (bag !== null) label += ` (bag size ${bag})`;
+	const day = parts[0] === 'conditions' ? at(keys[keys.length - 1]) : null;
+	if (day !== null) label += ` (day ${day})`;
+	return label;
+}
 
 /** What to call a list's items when saying how many it may hold. */
 const ITEMS: Record<string, string> = {
@@ -127,7 +177,8 @@ const ITEMS: Record<string, string> = {
 	'thickenedEdge.edges': 'edges',
 	'forms.stockLengths': 'board lengths',
 	'bags.offered': 'bag sizes',
-	'conditions.airTemp': 'daily temperatures'
+	'conditions.airTemp': 'daily temperatures',
+	'conditions.airLow': 'daily temperatures'
 };
 
 /** "drumBatchMass" → "the drum batch mass": a readable name for a field missing from FIELDS. */
@@ -222,7 +273,7 @@ export function planMessage(iss: Issue, units: Units): string {
 			return `${iss.keys.length > 1 ? `The fields ${list(iss.keys.map((k) => `"${k}"`), 'and')} are` : `The field "${iss.keys[0]}" is`} not part of ${keys.length ? label : 'a plan'}; check the spelling or remove ${iss.keys.length > 1 ? 'them' : 'it'}.`;
 		case 'invalid_union':
 			if (key === 'units') return 'Choose the units: imperial or metric.';
-			if (key === 'conditions.airTemp') return `Enter ${label}${range(units === 'imperial' ? -40 : -40, units === 'imperial' ? 130 : 55, unit)}, as one value or a list of one per day.`;
+			if (key === 'conditions.airTemp' || key === 'conditions.airLow') return `Enter ${label}${range(units === 'imperial' ? -40 : -40, units === 'imperial' ? 130 : 55, unit)}, as one value or a list of one per day.`;
 			if (key === 'thickenedEdge.edges') return `Choose ${label}: none, free, or a list of edges ({ section, edge }).`;
 			return `Check ${label}.`;
 		default:

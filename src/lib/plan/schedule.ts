@@ -183,9 +183,9 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 	const to70 = byPercent(CURING.percent);
 	const byDays = byAge(curingMin);
 	const list: Omit<Milestone, 'planDay' | 'date'>[] = [
-		{ id: 'forms-off', title: 'Strip the forms', day: byAge(ms.formsOffDays), rule: `${ms.formsOffDays} day(s) at 20 °C equivalent age`, source: 'common practice (about 24 h)' },
-		{ id: 'walk', title: 'Walk on it', day: byAge(ms.walkDays), rule: `${ms.walkDays} day(s) at 20 °C equivalent age`, source: 'common practice (24–48 h)' },
-		{ id: 'furniture', title: 'Set furniture on it', day: byAge(ms.furnitureDays), rule: `${ms.furnitureDays} day(s) at 20 °C equivalent age`, source: 'from memory' },
+		{ id: 'forms-off', title: 'Strip the forms', day: byAge(ms.formsOffDays), rule: `${dayCount(ms.formsOffDays)} at 20 °C equivalent age`, source: 'common practice (about 24 h)' },
+		{ id: 'walk', title: 'Walk on it', day: byAge(ms.walkDays), rule: `${dayCount(ms.walkDays)} at 20 °C equivalent age`, source: 'common practice (24–48 h)' },
+		{ id: 'furniture', title: 'Set furniture on it', day: byAge(ms.furnitureDays), rule: `${dayCount(ms.furnitureDays)} at 20 °C equivalent age`, source: 'common practice, no published source' }, // from memory
 		...(m.loads.vehicles
 			? [{ id: 'vehicles' as const, title: 'Drive on it', day: byPercent(ms.vehiclePercent), rule: `${ms.vehiclePercent} % of design strength`, source: 'common practice (about 70 % of design strength)' }]
 			: []),
@@ -194,7 +194,7 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 			title: m.curing.method === 'compound' ? 'Curing compound has done its work' : 'Stop curing',
 			day: byDays === null ? to70 : to70 === null ? byDays : Math.min(byDays, to70),
 			rule: `${curingMin} days at 20 °C equivalent age, or sooner once ${CURING.percent} % of design strength, whichever comes first`,
-			source: `ACI 318-19 §26.5.3.1 (${curingMin} days above 50 °F); 70 %: ACI 308.1 (from memory)`
+			source: `ACI 318-19 §26.5.3.1 (${curingMin} days above 50 °F); 70 %: ACI 308.1` // the 70 % alternative from memory
 		}
 	];
 	const date = m.pourDate ? datesFrom(m.pourDate) : null;
@@ -204,11 +204,14 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 	});
 }
 
+/** "1 day", "1.5 days", "2 days". */
+const dayCount = (n: number) => `${n} day${n === 1 ? '' : 's'}`;
+
 /** Finishing steps on a pour day, each with its source (ACI 302.1R or common practice). */
 function finishing(m: Model, jointDepthIn: string): { id: string; text: string }[] {
 	return [
 		{ id: 'screed', text: 'Screed the surface off the forms as each load goes in, then bull-float it at once (common practice).' },
-		{ id: 'bleed', text: 'Wait until the bleed water has left the surface before edging or floating again: working water back in weakens the top (ACI 302.1R, from memory).' },
+		{ id: 'bleed', text: 'Wait until the bleed water has left the surface before edging or floating again: working water back in weakens the top (ACI 302.1R).' }, // from memory
 		{ id: 'edge', text: 'Run an edger along every form and bulkhead (common practice).' },
 		m.jointMethod === 'saw'
 			? { id: 'saw-window', text: `Saw the control joints ${jointDepthIn} deep as soon as the cut does not ravel: about 4–12 h after placing with a conventional saw, sooner in heat (ACI 302.1R-15, as ACI's own guidance states); an early-entry saw can cut within a few hours.` }

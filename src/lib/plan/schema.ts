@@ -155,7 +155,7 @@ function planSchemaFor<U extends Units>(units: U) {
 			.describe('More edges along the house, e.g. both sides of a notch around a house corner.'),
 		gapToHouse: smallDim
 			.default(d.gapToHouse)
-			.describe(`Space between slab and wall, ${S} (from memory: room for an isolation strip).`),
+			.describe(`Space between slab and wall, ${S} (room for an isolation strip; common practice).`), // from memory
 		houseEdgeFormed: z
 			.boolean()
 			.default(false)
@@ -200,7 +200,7 @@ function planSchemaFor<U extends Units>(units: U) {
 					.max(imp ? 8 : 2.5)
 					.default(d.stakeSpacing)
 					.describe(`${L}; common practice 3–4 ft, plus one at every corner and splice.`),
-				stakeLength: smallDim.default(d.stakeLength).describe(`${S}; from memory.`),
+				stakeLength: smallDim.default(d.stakeLength).describe(`Stake length, ${S}; common practice, no published source.`), // from memory
 				release: z
 					.enum(['agent', 'oil', 'none'])
 					.default('agent')
@@ -219,7 +219,7 @@ function planSchemaFor<U extends Units>(units: U) {
 					.union([z.enum(['none', 'free']), z.array(edgeRef).max(200)])
 					.default('none')
 					.describe("'free' thickens every edge not along the house or a cold joint."),
-				width: smallDim.default(d.edgeWidth).describe(`Trench width, ${S}; from memory.`),
+				width: smallDim.default(d.edgeWidth).describe(`Trench width, ${S}; common practice, no published source.`), // from memory
 				extraDepth: smallDim
 					.optional()
 					.describe(`Depth below the slab, ${S}; defaults to the thickness (common practice).`),
@@ -240,7 +240,7 @@ function planSchemaFor<U extends Units>(units: U) {
 					.describe('Loose ÷ compacted volume (common practice 1.15–1.30).'),
 				overhang: smallDim.default(d.baseOverhang).describe(`Base past the forms, ${S}; common practice.`),
 				stoneDensity: z.number().min(0.5).max(3).default(d.stoneDensity).describe(`Compacted stone, ${imp ? 'short tons per yd³' : 't per m³'}; common practice.`),
-				soilDensity: z.number().min(0.5).max(3).default(d.soilDensity).describe(`Dug soil in the ground, ${imp ? 'short tons per yd³' : 't per m³'}; from memory.`)
+				soilDensity: z.number().min(0.5).max(3).default(d.soilDensity).describe(`Dug soil in the ground, ${imp ? 'short tons per yd³' : 't per m³'}; common practice, no published source.`) // from memory
 			})
 		),
 		fill: z
@@ -266,7 +266,7 @@ function planSchemaFor<U extends Units>(units: U) {
 					.min(imp ? 1500 : 10)
 					.max(imp ? 8000 : 55)
 					.default(d.designStrength)
-					.describe(`28-day strength, ${imp ? 'psi' : 'MPa'}; from memory.`)
+					.describe(`28-day strength, ${imp ? 'psi' : 'MPa'}; IRC Table R402.2 asks 2500–3500 psi by weathering.`) // default from memory
 			})
 		),
 		wastePercent: z
@@ -299,14 +299,14 @@ function planSchemaFor<U extends Units>(units: U) {
 					.min(0)
 					.max(0.2)
 					.default(COMMON.waterPerKgDryMix)
-					.describe('Water per dry mix by mass; from memory — the bag label rules.')
+					.describe('Water per dry mix by mass; the bag label rules.') // default from memory
 			})
 		),
 		readyMix: withDefaults(
 			z.strictObject({
 				price: price.optional().describe(`Per ${V}.`),
-				increment: z.number().min(0.01).max(2).default(d.readyMixIncrement).describe(`${V}; from memory.`),
-				minimum: z.number().min(0).max(20).default(d.readyMixMinimum).describe(`${V}; from memory.`),
+				increment: z.number().min(0.01).max(2).default(d.readyMixIncrement).describe(`Order step, ${V}; ask the plant.`), // from memory
+				minimum: z.number().min(0).max(20).default(d.readyMixMinimum).describe(`Smallest order, ${V}; ask the plant.`), // from memory
 				shortLoadFee: price.optional()
 			})
 		),
@@ -350,7 +350,7 @@ function planSchemaFor<U extends Units>(units: U) {
 					.min(0)
 					.max(30)
 					.default(COMMON.placeMinutesPerBag)
-					.describe('Per 80 lb (36 kg) of dry mix placed; smaller bags take their share. From memory, about 2 min.'),
+					.describe('Per 80 lb (36 kg) of dry mix placed; smaller bags take their share; about 2 min (common practice).'), // from memory
 				workingMinutes: z
 					.number()
 					.min(10)

@@ -181,7 +181,7 @@ export function computeVolume(m: Model, layout: Layout, thick: boolean[][]): Vol
 			volume: volume(digM3),
 			weight: tons(digKg),
 			loads: countUp(digKg / m.crew.payloadKg),
-			note: "Taking the finished surface at today's grade; soil swells when dug, so the heap is larger than the hole (from memory)."
+			note: "Taking the finished surface at today's grade; soil swells when dug, so the heap is larger than the hole (common practice)." // from memory
 		}
 	};
 }

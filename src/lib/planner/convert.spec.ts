@@ -58,4 +58,18 @@ describe('switching units in the wizard', () => {
 		expect(r.ok).toBe(false);
 		if (!r.ok) expect(r.reason).toMatch(/thickness/);
 	});
+
+	it('names the field in plain words, never an engine path', () => {
+		const plan = starterInput('imperial');
+		const bad = { ...plan, sections: [{ outline: [[0, 0], [12, 0], [0, 0], [12, 0]] }] };
+		const r = switchUnits(bad, 'metric', null);
+		expect(r.ok).toBe(false);
+		if (r.ok) return;
+		expect(r.reason).toMatch(/^The units stay as they are until the outline of pour 1 is fixed: /);
+		expect(r.reason).not.toMatch(/sections\.|\.\d|outline\./);
+		const priced = { ...plan, bags: { ...plan.bags, offered: [plan.bags.offered[0], { ...plan.bags.offered[1], price: -1 }] } };
+		const p = switchUnits(priced, 'metric', null);
+		if (!p.ok) expect(p.reason).toMatch(/until the bag price \(bag size 2\) is fixed: Enter the bag price, 0–1,000,000\./);
+		else expect.unreachable('a negative price is refused');
+	});
 });

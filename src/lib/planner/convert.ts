@@ -1,7 +1,7 @@
 // Switching a plan between imperial and metric: the same physical slab, re-expressed. Sizes that
 // depend on the market (bag sizes, lumber stock lengths, ready-mix increments) take the new
 // system's usual values instead of odd conversions.
-import { parsePlanInput, type ParsedPlan, type Units } from '$lib/plan';
+import { fieldLabel, parsePlanInput, type ParsedPlan, type Units } from '$lib/plan';
 import { sameData } from './editable';
 
 const FT = 0.3048;
@@ -116,7 +116,8 @@ export function switchUnits(current: unknown, to: Units, memory: UnitMemory | nu
 	const parsed = parsePlanInput(current);
 	if (!parsed.ok) {
 		const e = parsed.errors[0];
-		return { ok: false, reason: `The units stay as they are until the marked fields are fixed (${e.path}: ${e.message}).` };
+		// The field in plain words ("the outline of pour 1"), never the engine's path.
+		return { ok: false, reason: `The units stay as they are until ${fieldLabel(e.path)} is fixed: ${e.message}` };
 	}
 	if (parsed.plan.units === to) return { ok: true, plan: parsed.plan, memory: memory ?? { before: parsed.plan, after: parsed.plan } };
 	let plan: ParsedPlan;

@@ -108,3 +108,35 @@ describe('walls through outline changes', () => {
 		expect(draft.outcome.ok).toBe(true);
 	});
 });
+
+describe('section names', () => {
+	const twoPours = () =>
+		new PlanDraft({
+			name: 'Names',
+			input: completeInput({ units: 'imperial', sections: [{ name: 'Front walk', outline: [[0, 0], [10, 0], [10, 4], [0, 4]] }, { name: 'Landing', outline: [[10, 0], [14, 0], [14, 4], [10, 4]] }] })!
+		});
+
+	it('survive splitting a pour: the split one names both halves, the others keep theirs', () => {
+		const d = twoPours();
+		d.splitSection(0, [[[0, 0], [5, 0], [5, 4], [0, 4]], [[5, 0], [10, 0], [10, 4], [5, 4]]]);
+		expect(d.input.sections.map((s) => s.name)).toEqual(['Front walk', 'Front walk, part 2', 'Landing']);
+		expect(d.result?.area.sections.length).toBe(3);
+	});
+
+	it('survive removing a pour: the rest keep their own names', () => {
+		const d = twoPours();
+		d.removeSection(0);
+		expect(d.input.sections.map((s) => s.name)).toEqual(['Landing']);
+		const e = twoPours();
+		e.splitSection(1, [[[10, 0], [12, 0], [12, 4], [10, 4]], [[12, 0], [14, 0], [14, 4], [12, 4]]]);
+		e.removeSection(0);
+		expect(e.input.sections.map((s) => s.name)).toEqual(['Landing', 'Landing, part 2']);
+	});
+
+	it('survive moving a corner (same number of pours)', () => {
+		const d = twoPours();
+		d.addCorner(1, 0);
+		d.removeCorner(1, 1);
+		expect(d.input.sections.map((s) => s.name)).toEqual(['Front walk', 'Landing']);
+	});
+});

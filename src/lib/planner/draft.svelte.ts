@@ -122,9 +122,10 @@ export class PlanDraft {
 	/**
 	 * Replaces the outlines and carries every edge reference (walls, high edge, thickened edges)
 	 * to the new edges that lie along the old ones. `fallback` maps a reference whose edge is gone
-	 * (a removed corner merges two edges).
+	 * (a removed corner merges two edges). `names` gives each new section its name; without it the
+	 * names stay where they were when the number of sections does not change.
 	 */
-	setOutlines(next: Pt[][], fallback?: (r: EdgeRef) => EdgeRef | null) {
+	setOutlines(next: Pt[][], fallback?: (r: EdgeRef) => EdgeRef | null, names?: (string | undefined)[]) {
 		const before = this.#input.sections.map((s) => s.outline as Pt[]);
 		const move = (refs: EdgeRef[]) =>
 			refs.flatMap((r) => {
@@ -137,11 +138,25 @@ export class PlanDraft {
 		const house = dedupe(move(this.houseEdges));
 		const high = this.#input.slope.highEdge ? move([this.#input.slope.highEdge])[0] : undefined;
 		const thick = this.#input.thickenedEdge.edges;
-		const names = this.#input.sections.map((s) => s.name);
-		this.#input.sections = next.map((outline, i) => ({ name: next.length === before.length ? names[i] : undefined, outline: outline.map((p) => [p[0], p[1]] as Pt) }));
+		const was = this.#input.sections.map((s) => s.name);
+		const named = names ?? (next.length === before.length ? was : []);
+		this.#input.sections = next.map((outline, i) => ({ name: named[i] || undefined, outline: outline.map((p) => [p[0], p[1]] as Pt) }));
 		this.houseEdges = house;
 		this.#input.slope.highEdge = high ? { ...high } : undefined;
 		if (Array.isArray(thick)) this.#input.thickenedEdge.edges = dedupe(move(thick));
+	}
+
+	/** Cuts section s in two along a straight line; its name goes with both halves ("Walk", "Walk, part 2"). */
+	splitSection(s: number, pieces: [Pt[], Pt[]]) {
+		const names = this.#input.sections.flatMap((x, i) => (i === s ? [x.name, x.name ? `${x.name}, part 2` : undefined] : [x.name]));
+		this.setOutlines(this.#input.sections.flatMap((x, i) => (i === s ? pieces : [x.outline as Pt[]])), undefined, names);
+	}
+
+	/** Removes section s; the other sections keep their names. */
+	removeSection(s: number) {
+		if (this.#input.sections.length <= 1) return;
+		const keep = (_: unknown, i: number) => i !== s;
+		this.setOutlines(this.#input.sections.map((x) => x.outline as Pt[]).filter(keep), undefined, this.#input.sections.map((x) => x.name).filter(keep));
 	}
 
 	/** A new corner halves an edge: a wall stays a wall on both halves. (Same corner count: assign.) */

@@ -3,9 +3,10 @@
 
 import type { PlanResult } from '$lib/plan';
 import { formatInches, formatLength, formatSmall, formatVolume } from '$lib/plan/format';
+import { sheetEdgeName } from '$lib/plan/layout-sheet';
 import type { SummaryItem } from './format';
 
-export type BuildCardPlan = Pick<PlanResult, 'units' | 'slab' | 'volume' | 'forms' | 'elevations' | 'joints' | 'bags' | 'readyMix' | 'mixing'>;
+export type BuildCardPlan = Pick<PlanResult, 'units' | 'slab' | 'volume' | 'forms' | 'elevations' | 'joints' | 'bags' | 'readyMix' | 'mixing' | 'geometry'>;
 
 const trim = (x: number, digits: number) => String(Math.round(x * 10 ** digits) / 10 ** digits);
 
@@ -48,6 +49,15 @@ export function buildCardItems(p: BuildCardPlan): SummaryItem[] {
 			value: fallText(p.elevations.fall, u),
 			note: `total drop ${S(p.elevations.totalDrop)}${p.elevations.crossFall.percent ? `; cross fall ${fallText(p.elevations.crossFall, u)}` : ''}`
 		},
+		...(p.geometry.houseEdges.length
+			? []
+			: [
+					{
+						label: 'High side',
+						value: `edge ${sheetEdgeName(p.geometry, p.geometry.highEdge.section, p.geometry.highEdge.edge)}`,
+						note: 'the top is highest along this edge and falls away from it (marked on the layout sheet)'
+					}
+				]),
 		{
 			label: 'Control joints',
 			value: p.joints.totalLength.meters > 0 ? `at most ${formatLength(p.joints.maxSpacing, u)} apart` : 'none needed',

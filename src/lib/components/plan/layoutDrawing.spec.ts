@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
 import { layoutSheet } from '$lib/plan/layout-sheet';
+import { buildCardItems } from './buildCard';
 import { layoutDrawing } from './layoutDrawing';
 
 const twoPours = computePlan({ units: 'metric', sections: [{ outline: [[0, 0], [2, 0], [2, 3], [0, 3]] }, { outline: [[2, 0], [4, 0], [4, 3], [2, 3]] }] });
@@ -26,5 +27,34 @@ describe('layout drawing', () => {
 		expect(d.coldJoints).toHaveLength(1);
 		expect(d.diagonals).toHaveLength(4); // two per four-cornered pour
 		expect(d.house).toHaveLength(1); // the default house edge, section 1 edge A–B
+	});
+});
+
+describe("a freestanding pad's high edge", () => {
+	// A 4 × 3 m shed pad, freestanding, high along edge C–D (vertex 2 to 3, the back).
+	const pad = computePlan({ units: 'metric', sections: [{ outline: [[0, 0], [4, 0], [4, 3], [0, 3]] }], houseEdge: null, slope: { highEdge: { section: 0, edge: 2 } } });
+	const alongHouse = computePlan({ units: 'metric', sections: [{ outline: [[0, 0], [4, 0], [4, 3], [0, 3]] }], slope: { highEdge: { section: 0, edge: 2 } } });
+
+	it('is drawn on the layout sheet along that edge, with its name', () => {
+		const sheet = layoutSheet(pad);
+		expect(sheet.highEdge).toBe('C–D');
+		const d = layoutDrawing(pad, sheet, { width: 500, height: 400 });
+		const [c, dd] = [d.slabs[0][2], d.slabs[0][3]];
+		expect(d.high).toEqual({ from: c, to: dd });
+		expect(d.labels.filter((l) => l.kind === 'high').map((l) => l.text)).toEqual(['HIGH SIDE']);
+		// The label sits outside the slab, beyond the high edge (y grows down the page).
+		expect(d.labels.find((l) => l.kind === 'high')!.at[1]).toBeGreaterThan(c[1]);
+	});
+
+	it('is named in the build card', () => {
+		const item = buildCardItems(pad).find((i) => i.label === 'High side');
+		expect(item?.value).toBe('edge C–D');
+	});
+
+	it('along a house, the wall is the high side and no other edge is marked', () => {
+		const sheet = layoutSheet(alongHouse);
+		expect(sheet.highEdge).toBeNull();
+		expect(layoutDrawing(alongHouse, sheet, { width: 500, height: 400 }).high).toBeNull();
+		expect(buildCardItems(alongHouse).map((i) => i.label)).not.toContain('High side');
 	});
 });

@@ -15,13 +15,15 @@ export interface DrawnLine {
 export interface DrawnLabel {
 	at: Pt;
 	text: string;
-	kind: 'corner' | 'board' | 'length' | 'stake';
+	kind: 'corner' | 'board' | 'length' | 'stake' | 'high';
 }
 export interface LayoutDrawing {
 	width: number;
 	height: number;
 	slabs: Pt[][];
 	house: DrawnLine[];
+	/** A freestanding pad's high side; null when a house wall is the high side. */
+	high: DrawnLine | null;
 	joints: DrawnLine[];
 	coldJoints: DrawnLine[];
 	diagonals: DrawnLine[];
@@ -49,6 +51,8 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 
 	const labels: DrawnLabel[] = [];
 	const house: DrawnLine[] = [];
+	let high: DrawnLine | null = null;
+	const freestanding = r.geometry.houseEdges.length === 0;
 	const cornerAt = new Map<string, DrawnLabel>();
 	for (const s of r.geometry.sections) {
 		const o = s.outline;
@@ -80,6 +84,13 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 		for (const e of s.edges) {
 			const [a, b] = [o[e.index], o[(e.index + 1) % n]];
 			if (e.kind === 'house') house.push(line(a, b));
+			if (freestanding && r.geometry.highEdge.section === s.index && r.geometry.highEdge.edge === e.index) {
+				high = line(a, b);
+				// Outside the slab, two thirds along: clear of the board id (a third along) and the stakes.
+				const at = P([a[0] + (b[0] - a[0]) * 0.65, a[1] + (b[1] - a[1]) * 0.65]);
+				const nn = out(e.index);
+				labels.push({ kind: 'high', text: 'HIGH SIDE', at: [at[0] + nn[0] * 22, at[1] + nn[1] * 22] });
+			}
 			if (e.kind === 'coldJoint') continue;
 			const mid = P([(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
 			const nn = out(e.index);
@@ -116,6 +127,7 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 		scale,
 		slabs: r.geometry.sections.map((s) => s.outline.map(P)),
 		house,
+		high,
 		joints: r.joints.sections.flatMap((s) => s.lines.map((l) => line(l.from, l.to))),
 		coldJoints: r.geometry.coldJoints.map((j) => line(j.from, j.to)),
 		diagonals,

@@ -244,7 +244,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	drawLayout(doc, drawing, { x: left + (width - drawing.width) / 2, y: doc.y, t });
 	doc.y += drawing.height + 4;
 	text(
-		`Start at corner ${sheet.start.corner} (${sheet.start.why}, circled). Brown: house wall; dashed black: control joints; blue: cold joints; grey dashes: diagonals; squares: stakes, numbered as in the stake marks; R ids: boards as in the cut list.`,
+		`Start at corner ${sheet.start.corner} (${sheet.start.why}, circled). ${sheet.highEdge ? `Green dashes: the high side, edge ${sheet.highEdge}; the top falls away from it. ` : ''}Brown: house wall; dashed black: control joints; blue: cold joints; grey dashes: diagonals; squares: stakes, numbered as in the stake marks; R ids: boards as in the cut list.`,
 		{ size: 8, color: C.soft }
 	);
 
@@ -435,10 +435,15 @@ function drawLayout(doc: InstanceType<typeof PDFDocument>, d: LayoutDrawing, o: 
 	for (const l of d.coldJoints) seg(l).stroke();
 	doc.lineWidth(5).strokeColor(C.clay);
 	for (const l of d.house) seg(l).stroke();
+	if (d.high) {
+		doc.lineWidth(4).strokeColor(C.moss).dash(8, { space: 3 });
+		seg(d.high).stroke();
+		doc.undash();
+	}
 	if (d.start) doc.lineWidth(2).strokeColor(C.moss).circle(...P(d.start), 7).stroke();
 	doc.fillColor(C.sky);
 	for (const s of d.stakes) doc.rect(P(s.at)[0] - 2, P(s.at)[1] - 2, 4, 4).fill();
-	const FONT = { corner: ['bold', 10, C.ink], board: ['bold', 8, C.clay], length: ['regular', 7, C.soft], stake: ['regular', 6, C.sky] } as const;
+	const FONT = { corner: ['bold', 10, C.ink], board: ['bold', 8, C.clay], length: ['regular', 7, C.soft], stake: ['regular', 6, C.sky], high: ['bold', 8, C.moss] } as const;
 	for (const l of d.labels) {
 		const [font, size, color] = FONT[l.kind];
 		doc.font(font).fontSize(size).fillColor(color);

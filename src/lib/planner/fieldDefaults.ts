@@ -1,0 +1,27 @@
+// The engine's default for each field, as the wizard shows it beside the field ("Default: 18 in").
+// Read from the schema itself (a minimal plan parsed once per unit system), never written twice.
+import { parsePlanInput, type ParsedPlan, type Units } from '$lib/plan';
+
+const cache: Partial<Record<Units, ParsedPlan>> = {};
+
+function defaultsFor(units: Units): ParsedPlan {
+	const found = cache[units];
+	if (found) return found;
+	const parsed = parsePlanInput({ units, sections: [{ outline: [[0, 0], [1, 0], [1, 1]] }] });
+	if (!parsed.ok) throw new Error('the minimal plan is invalid');
+	return (cache[units] = parsed.plan);
+}
+
+/** The default at a dotted path ("forms.stakeLength"), or undefined when the field has none. */
+export function fieldDefault(units: Units, path: string): unknown {
+	let v: unknown = defaultsFor(units);
+	for (const k of path.split('.')) v = v && typeof v === 'object' ? (v as Record<string, unknown>)[k] : undefined;
+	return v;
+}
+
+/** "Default: 18 in." / "Default: 0.08." for a number field; '' when the field has no number default. */
+export function defaultText(units: Units, path: string, unit = ''): string {
+	const v = fieldDefault(units, path);
+	if (typeof v !== 'number') return '';
+	return `Default: ${v.toLocaleString('en-US', { maximumFractionDigits: 3 })}${unit ? ` ${unit}` : ''}.`;
+}
