@@ -195,6 +195,10 @@ test('the admin sees credentials running out, and the firm sees its dates on the
 	await expect(row).toContainText(/in \d+ days/);
 	await expect(row).toContainText('reminders sent: 30 days');
 	await expect(page.getByTestId('expiring-row').filter({ hasText: 'Ridgeback Flatwork' })).toHaveCount(0);
+	// The reviewer sees both dates on the firm's page.
+	await row.getByRole('link', { name: 'Quarry Lane Slabs' }).click();
+	await expect(page.locator('dt').filter({ hasText: /^Insurance expires$/ })).toBeVisible();
+	await expect(page.locator('dt').filter({ hasText: /^Licence expires$/ })).toBeVisible();
 	await signOut(page);
 
 	await signIn(page, JUNE, demoPassword);
