@@ -33,7 +33,8 @@ const afterReinstate: Partial<Record<ContractorStatus, string>> = {
 	approved: 'Homeowners in your service area can send you their plans again, and your leads that are still open are back on your desk.',
 	awaiting_review: 'Your licence or insurance changed while the account was suspended, so an administrator checks them before leads come back.',
 	sent_back: 'Your profile is still sent back: please make the change asked for earlier.',
-	draft: 'Finish your business profile and send it for review to receive leads.'
+	draft: 'Finish your business profile and send it for review to receive leads.',
+	lapsed: 'Your licence or insurance is still past its expiry date: upload the renewed document with its new date to receive leads again.'
 };
 
 /** Tells a contractor what an admin decided, with the reason when one was given. */
