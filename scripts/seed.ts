@@ -18,6 +18,8 @@ type DemoProfile = {
 	servicePostcode: string;
 	serviceRadius: number;
 	serviceRadiusUnit: 'mi' | 'km';
+	licenceExpiresInDays: number;
+	insuranceExpiresInDays: number;
 };
 type DemoContractor = { businessName: string; status: string; profile: DemoProfile };
 type DemoUser = { email: string; name: string; role: string; plans?: string[]; contractor?: DemoContractor };
@@ -62,6 +64,9 @@ function demoPdf(line: string) {
 	return Buffer.from(out, 'latin1');
 }
 
+/** The ISO day `n` days after today: demo expiry dates stay ahead of the day the demo is loaded. */
+const day = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+
 /** A demo firm's business record with its profile, service-area centroid and two demo documents. */
 async function seedContractor(tx: postgres.TransactionSql, id: string, c: DemoContractor) {
 	const p = c.profile;
@@ -69,9 +74,9 @@ async function seedContractor(tx: postgres.TransactionSql, id: string, c: DemoCo
 	if (!at) throw new Error(`fixtures/demo.json: unknown ZIP code ${p.servicePostcode}`);
 	await tx`
 		INSERT INTO contractor (user_id, business_name, status, contact_name, phone, description, years_in_trade, services,
-			licence_number, licence_authority, service_postcode, service_radius, service_radius_unit, service_lat, service_lon, submitted_at)
+			licence_number, licence_authority, licence_expires_on, insurance_expires_on, service_postcode, service_radius, service_radius_unit, service_lat, service_lon, submitted_at)
 		VALUES (${id}, ${c.businessName}, ${c.status}, ${p.contactName}, ${p.phone}, ${p.description}, ${p.yearsInTrade},
-			${p.services}::service_kind[], ${p.licenceNumber}, ${p.licenceAuthority}, ${p.servicePostcode}, ${p.serviceRadius},
+			${p.services}::service_kind[], ${p.licenceNumber}, ${p.licenceAuthority}, ${day(p.licenceExpiresInDays)}, ${day(p.insuranceExpiresInDays)}, ${p.servicePostcode}, ${p.serviceRadius},
 			${p.serviceRadiusUnit}, ${at.latitude}, ${at.longitude}, now())`;
 	for (const kind of ['licence', 'insurance']) {
 		const key = `contractors/${id}/${kind}-demo.pdf`;

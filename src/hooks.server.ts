@@ -6,6 +6,7 @@ import { env } from '$env/dynamic/private';
 import * as auth from '$lib/server/auth';
 import { mailIdle, startMailWorker } from '$lib/server/mail';
 import { startLinkPurge } from '$lib/server/email-tokens';
+import { startSweeper } from '$lib/server/credentials';
 import { ensureAdmin } from '$lib/server/users';
 import { client } from '$lib/server/db';
 
@@ -14,6 +15,8 @@ export const init: ServerInit = async () => {
 	await ensureAdmin(env.ADMIN_EMAIL, env.ADMIN_PASSWORD);
 	startMailWorker();
 	startLinkPurge();
+	// Credential expiry, reminders and lead respond-by dates, hourly; the sweep locks so one server does it.
+	startSweeper(env.ORIGIN ?? `http://${env.HOST ?? '127.0.0.1'}:${env.PORT ?? '3000'}`);
 	// Let mail already being sent finish before the pool closes.
 	process.on('sveltekit:shutdown', () => void mailIdle().then(() => client.end({ timeout: 5 })));
 };

@@ -40,6 +40,9 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await page.getByRole('checkbox', { name: /Ridgeback Flatwork/ }).check();
 	await page.getByLabel('Within a month').check();
 	await page.getByLabel('Notes for the contractors').fill('The side gate is 36 in wide.');
+	// Given now, the address and phone go only to the contractor hired, and prefill the accept form.
+	await page.getByLabel('Site address').fill('41 Kestrel Way, Albany');
+	await page.getByLabel('Phone', { exact: true }).fill('(541) 555-0188');
 	await page.getByRole('button', { name: 'Send the plan' }).click();
 	await expect(page.getByText('Sent to 2 contractors.')).toBeVisible();
 	await page.screenshot({ path: 'test-results/screens/bids-sent.png', fullPage: true });
@@ -68,11 +71,14 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	expect((await page.request.get(photoPath)).headers()['content-type']).toBe('image/jpeg');
 	await expect(page.locator('main')).not.toContainText('Nell Quarry');
 	await expect(page.locator('main')).not.toContainText(homeEmail);
+	await expect(page.locator('main')).not.toContainText('Kestrel Way');
 	// Not in the page's data either, only hidden from view.
 	const pageData = await (await page.request.get(`${new URL(page.url()).pathname}/__data.json`)).text();
 	expect(pageData).toContain('Back patio');
 	expect(pageData).not.toContain(homeEmail);
 	expect(pageData).not.toContain('Nell Quarry');
+	expect(pageData).not.toContain('Kestrel Way');
+	expect(pageData).not.toContain('555-0188');
 	await page.getByRole('button', { name: 'Send the bid' }).click();
 	await expect(page.locator('#field-total-error')).toHaveText(/Enter an amount in dollars/);
 	await sendBid(page, { total: '2,400', labour: '1,500', days: '1' });
@@ -112,6 +118,8 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	// Accepting asks first and says what follows.
 	await mine.getByText('Accept…').click();
 	await expect(mine.getByTestId('accept-bid')).toContainText('The other contractor is told they were not selected.');
+	await expect(mine.getByLabel('Site address')).toHaveValue('41 Kestrel Way, Albany');
+	await expect(mine.getByLabel('Phone for the contractor')).toHaveValue('(541) 555-0188');
 	await mine.getByRole('button', { name: 'Yes, accept this bid' }).click();
 	await expect(page.getByText('Bid accepted.')).toBeVisible();
 	await expect(mine.getByTestId('bid-status')).toHaveText('Accepted');
@@ -133,6 +141,8 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await expect(page.getByTestId('lead-status')).toHaveText('Won');
 	await expect(page.getByTestId('homeowner-contact')).toContainText('Nell Quarry');
 	await expect(page.getByTestId('homeowner-contact')).toContainText(homeEmail);
+	await expect(page.getByTestId('homeowner-phone')).toHaveText('(541) 555-0188');
+	await expect(page.getByTestId('site-address')).toHaveText('41 Kestrel Way, Albany');
 	await expect(page.getByTestId('messages')).toContainText('Could you start on a Saturday?');
 	await expect(page.getByTestId('unread-count')).toHaveCount(0);
 	await page.getByLabel('Write to Nell Quarry').fill('Saturday works. I will bring the forms on Friday.');
@@ -147,6 +157,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await expect(page.getByTestId('lead-status')).toHaveText('Not selected');
 	await expect(page.getByTestId('homeowner-contact')).toHaveCount(0);
 	await expect(page.locator('main')).not.toContainText(homeEmail);
+	await expect(page.locator('main')).not.toContainText('Kestrel Way');
 	await signOut(page);
 
 	await signIn(page, homeEmail, 'my-back-patio');
@@ -182,7 +193,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	expect((await page.request.get(photoPath)).status()).toBe(403);
 	const origin = new URL(page.url()).origin;
 	const forged = await page.request.post(`/plans/${planId}/bids?/accept`, {
-		form: { bid: '00000000-0000-4000-8000-000000000000' },
+		form: { bid: '00000000-0000-4000-8000-000000000000', siteAddress: '1 Nowhere Road, Albany', phone: '(541) 555-0100' },
 		headers: { origin, accept: 'application/json', 'x-sveltekit-action': 'true' }
 	});
 	expect(forged.status()).toBe(404);
@@ -246,7 +257,13 @@ test.describe('without JavaScript', () => {
 		await page.goto(`/plans/${planId}/bids`);
 		const row = page.getByTestId('bid-row').filter({ hasText: 'Quarry Lane Slabs' });
 		await row.getByText('Accept…').click();
+		// Not given when sending: asked now, and checked on the server.
 		await row.getByRole('button', { name: 'Yes, accept this bid' }).click();
+		const again = page.getByTestId('bid-row').filter({ hasText: 'Quarry Lane Slabs' });
+		await expect(again.getByText('Enter the street address of the site')).toBeVisible();
+		await again.getByLabel('Site address').fill('8 Fernbank Court, Philomath');
+		await again.getByLabel('Phone for the contractor').fill('(541) 555-0139');
+		await again.getByRole('button', { name: 'Yes, accept this bid' }).click();
 		await expect(page.getByText('Bid accepted.')).toBeVisible();
 		await expect(page.getByTestId('bid-row').filter({ hasText: 'Quarry Lane Slabs' }).getByTestId('bid-status')).toHaveText('Accepted');
 		await page.getByRole('link', { name: 'Quarry Lane Slabs' }).click();

@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
-import { fillProfile, pdf, pngCertificate, proMailLink } from './pro-helpers';
+import { daysFromNow, fillProfile, pdf, pngCertificate, proMailLink } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
 test.describe.configure({ timeout: 300_000 });
@@ -14,12 +14,17 @@ test('a contractor onboards with documents, an admin approves, and only they two
 	await expect(page.getByLabel('Contact person')).toHaveValue('Tove Larkin');
 
 	await fillProfile(page, business);
+	// An insurance date already past is refused: an expired certificate cannot be sent for review.
+	await page.getByLabel('Insurance expires on').fill('2020-05-31');
 	// Text with a .pdf name and type is refused by its content; the other values stay.
 	await page.getByLabel('Licence document').setInputFiles({ name: 'licence.pdf', mimeType: 'application/pdf', buffer: Buffer.from('only words, no PDF here\n') });
 	await page.getByLabel('Insurance certificate').setInputFiles(await pngCertificate());
 	await page.getByRole('button', { name: 'Send for review' }).click();
 	await expect(page.locator('#field-licence-error')).toHaveText(/must be a PDF, a JPEG, a PNG, or a WebP image; this file is not one of them/);
 	await expect(page.getByText('Files you chose were not kept')).toBeVisible();
+	await expect(page.locator('#field-insuranceExpiresOn-error')).toHaveText(/This date has passed/);
+	await expect(page.getByLabel('Licence expires on')).toHaveValue(daysFromNow(400));
+	await page.getByLabel('Insurance expires on').fill(daysFromNow(200));
 	await expect(page.getByLabel('Business name')).toHaveValue(business);
 	await expect(page.getByLabel('Pour and finish')).toBeChecked();
 	await expect(page.getByLabel('Unit')).toHaveValue('km');

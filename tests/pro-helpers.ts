@@ -19,7 +19,14 @@ export const pngCertificate = async () => ({
 	buffer: await sharp({ create: { width: 40, height: 30, channels: 3, background: '#d6e8da' } }).png().toBuffer()
 });
 
-export async function fillProfile(page: Page, business: string, o: { zip?: string; radius?: string; unit?: 'mi' | 'km'; wholeJob?: boolean } = {}) {
+/** The ISO day `days` from today (UTC), as a date field takes it. */
+export const daysFromNow = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
+
+export async function fillProfile(
+	page: Page,
+	business: string,
+	o: { zip?: string; radius?: string; unit?: 'mi' | 'km'; wholeJob?: boolean; licenceExpiresOn?: string; insuranceExpiresOn?: string } = {}
+) {
 	await page.getByLabel('Business name').fill(business);
 	await page.getByLabel('Phone').fill('(541) 555-0123');
 	await page.getByLabel('Public description').fill('Shed pads and short walks, formed and poured by two of us.');
@@ -29,6 +36,8 @@ export async function fillProfile(page: Page, business: string, o: { zip?: strin
 	if (o.wholeJob) await page.getByLabel('The whole job').check();
 	await page.getByLabel('Licence number').fill('FH-CC-55120');
 	await page.getByLabel('Issued by').fill('Fernhollow County Contractors Board');
+	await page.getByLabel('Licence expires on').fill(o.licenceExpiresOn ?? daysFromNow(400));
+	await page.getByLabel('Insurance expires on').fill(o.insuranceExpiresOn ?? daysFromNow(200));
 	await page.getByLabel('ZIP code').fill(o.zip ?? '97322');
 	await page.getByLabel('Distance').fill(o.radius ?? '25');
 	await page.getByLabel('Unit').selectOption(o.unit ?? 'km');

@@ -2,7 +2,7 @@
  * A contractor account's vetting states and every way between them, as two tables: the admin's
  * decisions and the contractor's own profile saves. Nothing else changes a status.
  */
-export const contractorStatuses = ['draft', 'awaiting_review', 'approved', 'sent_back', 'suspended'] as const;
+export const contractorStatuses = ['draft', 'awaiting_review', 'approved', 'sent_back', 'suspended', 'lapsed'] as const;
 export type ContractorStatus = (typeof contractorStatuses)[number];
 
 export const statusLabels: Record<ContractorStatus, string> = {
@@ -10,7 +10,8 @@ export const statusLabels: Record<ContractorStatus, string> = {
 	awaiting_review: 'Awaiting review',
 	approved: 'Approved',
 	sent_back: 'Sent back: documents needed',
-	suspended: 'Suspended'
+	suspended: 'Suspended',
+	lapsed: 'Licence or insurance expired'
 };
 
 export const vettingDecisions = ['approve', 'send_back', 'suspend', 'reinstate'] as const;
@@ -36,7 +37,9 @@ export const decisionTable: Record<ContractorStatus, Partial<Record<VettingDecis
 	awaiting_review: { approve: 'approved', send_back: 'sent_back', suspend: 'suspended' },
 	approved: { send_back: 'sent_back', suspend: 'suspended' },
 	sent_back: { suspend: 'suspended' },
-	suspended: { reinstate: 'restore' }
+	suspended: { reinstate: 'restore' },
+	// An expired credential is renewed by the contractor (a profile save), not waved through by an admin.
+	lapsed: { suspend: 'suspended' }
 };
 
 /** What a suspension remembers so that reinstating it cannot skip the review. */
@@ -68,8 +71,44 @@ export const editTable: Record<ContractorStatus, { same: ContractorStatus; crede
 	awaiting_review: { same: 'awaiting_review', credentials: 'awaiting_review' },
 	approved: { same: 'approved', credentials: 'awaiting_review' },
 	sent_back: { same: 'awaiting_review', credentials: 'awaiting_review' },
-	suspended: { same: 'suspended', credentials: 'suspended' }
+	suspended: { same: 'suspended', credentials: 'suspended' },
+	// Renewing means new dates or documents, which an admin checks before leads come back.
+	lapsed: { same: 'lapsed', credentials: 'awaiting_review' }
 };
 
 export const statusAfterEdit = (current: ContractorStatus, credentialsChanged: boolean): ContractorStatus =>
 	editTable[current][credentialsChanged ? 'credentials' : 'same'];
+
+/**
+ * Status × the clock passing a licence or insurance expiry date. Only an approved account changes:
+ * it stops receiving leads until renewed. The others already receive none, and their review (or
+ * reinstatement, then the next sweep) catches the date.
+ */
+export const expiryTable: Record<ContractorStatus, ContractorStatus> = {
+	draft: 'draft',
+	awaiting_review: 'awaiting_review',
+	approved: 'lapsed',
+	sent_back: 'sent_back',
+	suspended: 'suspended',
+	lapsed: 'lapsed'
+};
+export const statusAfterExpiry = (current: ContractorStatus): ContractorStatus => expiryTable[current];
+
+/** Reminders go this many days before a licence or insurance expires (each once per date). */
+export const reminderDays = [30, 7] as const;
+export type ReminderDays = (typeof reminderDays)[number];
+
+/** Whole days from `today` to `expiresOn` (ISO days; negative once passed). */
+export const daysUntil = (expiresOn: string, today: string) => Math.round((Date.parse(`${expiresOn}T00:00:00Z`) - Date.parse(`${today}T00:00:00Z`)) / 86_400_000);
+
+/**
+ * The reminder due for a date `daysLeft` away: the 7-day one inside a week, the 30-day one inside
+ * a month, none otherwise (or once passed). A reminder skipped (the sweep did not run in time) is
+ * not sent late when the next one is already due.
+ */
+export function reminderDue(daysLeft: number): ReminderDays | null {
+	if (daysLeft < 0) return null;
+	if (daysLeft <= 7) return 7;
+	if (daysLeft <= 30) return 30;
+	return null;
+}

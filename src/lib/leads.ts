@@ -1,5 +1,5 @@
 /** Lead and bid states, shared by the pages of both sides. */
-export const leadStatuses = ['new', 'viewed', 'bid_sent', 'declined', 'won', 'not_selected', 'withdrawn', 'released'] as const;
+export const leadStatuses = ['new', 'viewed', 'bid_sent', 'declined', 'won', 'not_selected', 'withdrawn', 'released', 'expired', 'closed', 'done'] as const;
 export type LeadStatus = (typeof leadStatuses)[number];
 export const leadStatusLabels: Record<LeadStatus, string> = {
 	new: 'New',
@@ -9,18 +9,23 @@ export const leadStatusLabels: Record<LeadStatus, string> = {
 	won: 'Won',
 	not_selected: 'Not selected',
 	withdrawn: 'Withdrawn',
-	released: 'Released during suspension'
+	released: 'Released during suspension',
+	expired: 'No reply by the respond-by date',
+	closed: 'Request closed without hiring',
+	done: 'Job done'
 };
 
 /** `released`: the homeowner reopened bidding while the accepted contractor's account was suspended. */
-export const bidStatuses = ['open', 'accepted', 'not_selected', 'withdrawn', 'released'] as const;
+/** `closed`: the homeowner closed the request without hiring anyone. */
+export const bidStatuses = ['open', 'accepted', 'not_selected', 'withdrawn', 'released', 'closed'] as const;
 export type BidStatus = (typeof bidStatuses)[number];
 export const bidStatusLabels: Record<BidStatus, string> = {
 	open: 'Open',
 	accepted: 'Accepted',
 	not_selected: 'Not selected',
 	withdrawn: 'Withdrawn',
-	released: 'Released during suspension'
+	released: 'Released during suspension',
+	closed: 'Request closed without hiring'
 };
 
 export const timeframes = ['soon', 'within_month', 'within_season', 'flexible'] as const;
@@ -38,6 +43,13 @@ export function wantedBy(sentAt: Date, timeframe: Timeframe): string | null {
 	const days = timeframeDays[timeframe];
 	return days === null ? null : new Date(sentAt.getTime() + days * 86_400_000).toISOString().slice(0, 10);
 }
+
+/**
+ * Days a contractor has to answer a lead (bid or decline) before it expires: shorter when the
+ * homeowner wants the work soon. Our own choice, no published source.
+ */
+export const respondDays: Record<Timeframe, number> = { soon: 3, within_month: 7, within_season: 14, flexible: 14 };
+export const respondBy = (sentAt: Date, timeframe: Timeframe) => new Date(sentAt.getTime() + respondDays[timeframe] * 86_400_000).toISOString().slice(0, 10);
 
 /** The surface finish the homeowner asks for. */
 export const finishes = ['broom', 'float', 'trowel', 'decide_with_contractor'] as const;

@@ -39,6 +39,18 @@ export const zipCode = plainText()
 	.regex(/^\d{5}(-\d{4})?$/, 'Enter a five-digit ZIP code.')
 	.transform((s) => s.slice(0, 5));
 
+/** Latest expiry date a contractor may enter: credentials are renewed within a few years. */
+export const MAX_EXPIRY_YEARS = 10;
+const isoDay = (d: Date) => d.toISOString().slice(0, 10);
+const expiryDate = (what: string) =>
+	plainText()
+		.trim()
+		.min(1, `Enter the date your ${what} expires.`)
+		.regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter a date.')
+		.refine((d) => !Number.isNaN(Date.parse(`${d}T00:00:00Z`)) && isoDay(new Date(`${d}T00:00:00Z`)) === d, 'Enter a date that exists.')
+		.refine((d) => d >= isoDay(new Date()), `This date has passed: enter the expiry date of your renewed ${what}.`)
+		.refine((d) => d <= isoDay(new Date(Date.now() + MAX_EXPIRY_YEARS * 365.25 * 86_400_000)), `Use a date within ${MAX_EXPIRY_YEARS} years.`);
+
 export const contractorProfileSchema = z.object({
 	businessName: text('Enter the business name.', 120),
 	contactName: text('Enter who homeowners will deal with.', 100),
@@ -50,6 +62,8 @@ export const contractorProfileSchema = z.object({
 	services: z.array(z.enum(serviceKinds)).min(1, 'Choose at least one service.'),
 	licenceNumber: text('Enter your licence number.', 60),
 	licenceAuthority: text('Enter who issued the licence.', 120),
+	licenceExpiresOn: expiryDate('licence'),
+	insuranceExpiresOn: expiryDate('insurance'),
 	servicePostcode: zipCode,
 	serviceRadius: wholeNumber('Enter how far you travel.', 1, 250),
 	serviceRadiusUnit: z.enum(distanceUnits, { error: 'Choose miles or kilometres.' })

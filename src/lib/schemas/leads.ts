@@ -5,6 +5,22 @@ import { serviceKinds, wholeNumber } from './contractor';
 
 const uuid = z.uuid('Unknown contractor.');
 
+/** The job site's street address: told only to the contractor whose bid is accepted. */
+export const siteAddress = plainText()
+	.trim()
+	.min(8, 'Enter the street address of the site, with the town (at least 8 characters).')
+	.max(200, 'Use at most 200 characters.')
+	.regex(/\d/, 'Include the house or lot number.')
+	.regex(/\p{L}{2}/u, 'Include the street name.');
+/** A phone number with its area code: 7 to 15 digits, with spaces, dots, dashes or brackets between. */
+export const contactPhone = plainText()
+	.trim()
+	.regex(/^\+?[0-9 ()./-]{7,25}$/, 'Enter a phone number with its area code.')
+	.refine((p) => {
+		const digits = p.replace(/\D/g, '').length;
+		return digits >= 7 && digits <= 15;
+	}, 'Enter a phone number with its area code (7 to 15 digits).');
+
 export const getBidsSchema = z.object({
 	scope: z.enum(serviceKinds, { error: 'Choose what you want done.' }),
 	timeframe: z.enum(timeframes, { error: 'Choose when the work should happen.' }),
@@ -12,11 +28,23 @@ export const getBidsSchema = z.object({
 	finish: z.enum(finishes, { error: 'Choose a finish.' }).default('broom'),
 	existingSurface: z.enum(existingSurfaces, { error: 'Choose what is there now.' }).default('grass_soil'),
 	siteAccess: plainText().trim().max(500, 'Use at most 500 characters.').default(''),
+	// Optional when sending (asked again on accepting); given, both must be valid.
+	siteAddress: plainText().trim().max(200, 'Use at most 200 characters.').default(''),
+	phone: plainText().trim().max(25, 'Use at most 25 characters.').default(''),
 	contractors: z
 		.array(uuid)
 		.min(1, 'Choose at least one contractor.')
 		.max(MAX_CONTRACTORS_PER_SEND, `Choose at most ${MAX_CONTRACTORS_PER_SEND} contractors.`)
-});
+})
+	.superRefine((v, ctx) => {
+		for (const [key, schema] of [['siteAddress', siteAddress], ['phone', contactPhone]] as const) {
+			const bad = v[key] ? schema.safeParse(v[key]).error?.issues[0] : undefined;
+			if (bad) ctx.addIssue({ code: 'custom', path: [key], message: bad.message });
+		}
+		if (v.siteAddress && !v.phone) ctx.addIssue({ code: 'custom', path: ['phone'], message: 'Add a phone number too, or leave both empty for now.' });
+		if (v.phone && !v.siteAddress) ctx.addIssue({ code: 'custom', path: ['siteAddress'], message: 'Add the site address too, or leave both empty for now.' });
+	})
+	.transform(({ siteAddress, phone, ...rest }) => ({ ...rest, contact: siteAddress && phone ? { siteAddress, phone } : null }));
 
 /** Dollars as typed ("1,250", "$980.50") to whole cents; empty is allowed only where optional. */
 const DOLLARS = /^\$?\s*(\d{1,3}(,\d{3})+|\d+)(\.\d{1,2})?$/;
@@ -73,4 +101,4 @@ export const messageSchema = z.object({
 	body: plainText().trim().min(1, 'Write a message first.').max(4000, 'Use at most 4000 characters.')
 });
 
-export const acceptSchema = z.object({ bid: z.uuid('Unknown bid.') });
+export const acceptSchema = z.object({ bid: z.uuid('Unknown bid.'), siteAddress, phone: contactPhone });

@@ -98,15 +98,14 @@ export async function saveContractorProfile(
 		const status = await db.transaction(async (tx) => {
 			const [current] = await tx.select().from(contractor).where(eq(contractor.userId, userId)).for('update');
 			if (!current) throw new Error(`No contractor record for ${userId}`);
-			const expiries = input as { licenceExpiresOn?: string | null; insuranceExpiresOn?: string | null };
 			// The first submission counts as new credentials: nobody has looked at any of them yet.
 			const credentialsChanged =
 				current.status === 'draft' ||
 				written.length > 0 ||
 				current.licenceNumber !== input.licenceNumber ||
 				current.licenceAuthority !== input.licenceAuthority ||
-				(expiries.licenceExpiresOn !== undefined && (expiries.licenceExpiresOn ?? null) !== current.licenceExpiresOn) ||
-				(expiries.insuranceExpiresOn !== undefined && (expiries.insuranceExpiresOn ?? null) !== current.insuranceExpiresOn);
+				input.licenceExpiresOn !== current.licenceExpiresOn ||
+				input.insuranceExpiresOn !== current.insuranceExpiresOn;
 			const status = statusAfterEdit(current.status, credentialsChanged);
 			const entersQueue = status === 'awaiting_review' && current.status !== 'awaiting_review';
 			const now = new Date();

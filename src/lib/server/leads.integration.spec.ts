@@ -77,6 +77,7 @@ const bidInput = (dollars: number) => ({
 	exclusions: '',
 	notes: ''
 });
+const site = { siteAddress: '14 Alder Row, Keokuk', phone: '(319) 555-0190' };
 const ids = (rows: { id: string }[]) => rows.map((r) => r.id);
 const status = async (id: string) => (await db.select({ s: contractor.status }).from(contractor).where(eq(contractor.userId, id)))[0].s;
 
@@ -164,9 +165,9 @@ describe('leads', () => {
 		expect(JSON.stringify(before)).not.toContain(owner.email);
 
 		const [bidA] = await db.select().from(bid).where(eq(bid.leadId, leadOf(a.id)));
-		expect(await acceptBid(owner.id, p.id, bidA.id, origin)).toBe(true);
+		expect(await acceptBid(owner.id, p.id, bidA.id, origin, site)).toBe(true);
 		const after = await contractorLead(a.id, leadOf(a.id));
-		expect(after?.homeowner).toEqual({ name: 'Hale Owner', email: owner.email });
+		expect(after?.homeowner).toEqual({ name: 'Hale Owner', email: owner.email, ...site });
 		expect(after?.bid?.status).toBe('accepted');
 		const statuses = Object.fromEntries((await db.select().from(lead).where(eq(lead.planId, p.id))).map((l) => [l.contractorId, l.status]));
 		expect(statuses).toEqual({ [a.id]: 'won', [b.id]: 'not_selected', [c.id]: 'declined' });
@@ -185,7 +186,7 @@ describe('leads', () => {
 		const bids = await db.select().from(bid).where(eq(bid.planId, p.id));
 		expect(bids).toHaveLength(2);
 
-		const results = await Promise.allSettled(bids.map((x) => acceptBid(owner.id, p.id, x.id, origin)));
+		const results = await Promise.allSettled(bids.map((x) => acceptBid(owner.id, p.id, x.id, origin, site)));
 		expect(results.map((r) => r.status).sort()).toEqual(['fulfilled', 'rejected']);
 		const rejected = results.find((r) => r.status === 'rejected') as PromiseRejectedResult;
 		expect(rejected.reason).toBeInstanceOf(LeadRefused);
@@ -202,7 +203,7 @@ describe('leads', () => {
 		await saveBid(a.id, l.id, bidInput(1900), origin);
 		const [open] = await db.select().from(bid).where(eq(bid.leadId, l.id));
 		await db.update(contractor).set({ status: 'awaiting_review' }).where(eq(contractor.userId, a.id));
-		await expect(acceptBid(owner.id, p.id, open.id, origin)).rejects.toThrow(/not approved/);
+		await expect(acceptBid(owner.id, p.id, open.id, origin, site)).rejects.toThrow(/not approved/);
 		expect((await db.select().from(bid).where(eq(bid.id, open.id)))[0].status).toBe('open');
 		expect(await unreadMessageCount({ id: a.id, role: 'contractor' })).toBe(0);
 		await expect(deletePlan(p.id, owner.id)).rejects.toBeInstanceOf(PlanHasLeads);
@@ -219,7 +220,7 @@ describe('leads', () => {
 		await saveBid(a.id, la.id, bidInput(1500), origin);
 		await db.update(bid).set({ validUntil: '2020-01-01' }).where(eq(bid.leadId, la.id));
 		const [expired] = await db.select().from(bid).where(eq(bid.leadId, la.id));
-		await expect(acceptBid(owner.id, p.id, expired.id, origin)).rejects.toThrow(/valid until 2020-01-01/);
+		await expect(acceptBid(owner.id, p.id, expired.id, origin, site)).rejects.toThrow(/valid until 2020-01-01/);
 
 		await saveBid(b.id, lb.id, bidInput(1700), origin);
 		expect(await withdrawBid(b.id, lb.id, origin)).toBe(true);
@@ -258,7 +259,7 @@ describe('suspension and reinstatement', () => {
 		await saveBid(other.id, lbOther.id, bidInput(2300), origin);
 		await declineLead(c.id, (await leadOf(d.plan.id, c.id)).id, 'Too far for us.');
 		const [won] = await db.select().from(bid).where(eq(bid.leadId, lb.id));
-		await acceptBid(b.owner.id, b.plan.id, won.id, origin);
+		await acceptBid(b.owner.id, b.plan.id, won.id, origin, site);
 
 		await decide(admin, c.id, 'suspend', 'A complaint to look into.', origin);
 		// Nothing is withdrawn: the bids keep their state, and the open one simply cannot be accepted.
@@ -266,7 +267,7 @@ describe('suspension and reinstatement', () => {
 		expect((await leadOf(a.plan.id, c.id)).status).toBe('bid_sent');
 		expect((await db.select().from(bid).where(eq(bid.leadId, lb.id)))[0].status).toBe('accepted');
 		const [openBid] = await db.select().from(bid).where(eq(bid.leadId, la.id));
-		await expect(acceptBid(a.owner.id, a.plan.id, openBid.id, origin)).rejects.toThrow(/not approved/);
+		await expect(acceptBid(a.owner.id, a.plan.id, openBid.id, origin, site)).rejects.toThrow(/not approved/);
 
 		const toA = (await mailsTo(a.owner.email)).filter((m) => /suspended for now/.test(m.subject));
 		const toB = (await mailsTo(b.owner.email)).filter((m) => /suspended for now/.test(m.subject));
@@ -284,7 +285,7 @@ describe('suspension and reinstatement', () => {
 		await decide(admin, c.id, 'reinstate', null, origin);
 		expect((await status(c.id))).toBe('approved');
 		expect((await leadOf(a.plan.id, c.id)).status).toBe('bid_sent');
-		expect((await acceptBid(a.owner.id, a.plan.id, openBid.id, origin))).toBe(true);
+		expect((await acceptBid(a.owner.id, a.plan.id, openBid.id, origin, site))).toBe(true);
 		for (const who of [a.owner.email, b.owner.email]) expect((await mailsTo(who)).filter((m) => /is active again/.test(m.subject))).toHaveLength(1);
 		const toContractor = (await mailsTo(c.email)).filter((m) => /active again/.test(m.subject));
 		expect(toContractor[0].text).toContain('your leads that are still open are back on your desk');
@@ -301,7 +302,7 @@ describe('suspension and reinstatement', () => {
 		const lo = leads.find((l) => l.contractorId === other.id)!;
 		await saveBid(c.id, lc.id, bidInput(2000), origin);
 		await saveBid(other.id, lo.id, bidInput(2200), origin);
-		await acceptBid(owner.id, p.id, (await db.select().from(bid).where(eq(bid.leadId, lc.id)))[0].id, origin);
+		await acceptBid(owner.id, p.id, (await db.select().from(bid).where(eq(bid.leadId, lc.id)))[0].id, origin, site);
 		await expect(reopenBidding(owner.id, p.id, origin)).rejects.toThrow(/good standing/);
 
 		await decide(admin, c.id, 'suspend', 'A complaint to look into.', origin);
@@ -312,7 +313,7 @@ describe('suspension and reinstatement', () => {
 		expect((await mailsTo(c.email)).filter((m) => /was released/.test(m.subject))).toHaveLength(1);
 		expect((await mailsTo(other.email)).filter((m) => /Bidding reopened/.test(m.subject))).toHaveLength(1);
 		// The reopened bid can now be accepted.
-		expect(await acceptBid(owner.id, p.id, (await db.select().from(bid).where(eq(bid.leadId, lo.id)))[0].id, origin)).toBe(true);
+		expect(await acceptBid(owner.id, p.id, (await db.select().from(bid).where(eq(bid.leadId, lo.id)))[0].id, origin, site)).toBe(true);
 	});
 });
 

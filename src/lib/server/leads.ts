@@ -1,10 +1,12 @@
-import { and, asc, count, desc, eq, gt, inArray, ne, notInArray, sql, type SQL } from 'drizzle-orm';
-import { isExpired, type LeadStatus } from '$lib/leads';
+import { and, asc, count, desc, eq, gt, inArray, ne, sql, type SQL } from 'drizzle-orm';
+import { isExpired, respondBy, type LeadStatus } from '$lib/leads';
+import { isOpenLead, leadTarget, openLeadStatuses, statusesMovedBy, threadOpen } from '$lib/lead-status';
+import { formatDate } from '$lib/components/plan/format';
 import type { BidInput } from '$lib/schemas/leads';
 import type { ServiceKind } from '$lib/schemas/contractor';
 import type { ExistingSurface, Finish, Timeframe } from '$lib/leads';
 import { db } from '$lib/server/db';
-import { bid, contractor, lead, leadMessage, plan, planPhoto, user } from '$lib/server/db/schema';
+import { bid, contractor, jobContact, lead, leadMessage, plan, planPhoto, user } from '$lib/server/db/schema';
 import { deliverSoon, queueMail } from './mail';
 import {
 	bidDecisionMail,
@@ -12,8 +14,12 @@ import {
 	bidWithdrawnMail,
 	contractorActiveAgainMail,
 	contractorPausedMail,
+	jobDoneMail,
 	jobReleasedMail,
+	leadExpiredMail,
+	leadsUnansweredMail,
 	newBidMail,
+	requestClosedMail,
 	newerRevisionMail,
 	newLeadMail,
 	newMessageMail
@@ -28,7 +34,35 @@ type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 const leadUrl = (origin: string, leadId: string) => `${origin}/pro/leads/${leadId}`;
 const bidsUrl = (origin: string, planId: string) => `${origin}/plans/${planId}/bids`;
-const CLOSED: LeadStatus[] = ['declined', 'won', 'not_selected', 'withdrawn', 'released'];
+
+/** The job's site address and phone, as the homeowner gave them. */
+export type JobContactInput = { siteAddress: string; phone: string };
+
+async function saveJobContact(tx: Tx, planId: string, c: JobContactInput) {
+	const now = new Date();
+	await tx
+		.insert(jobContact)
+		.values({ planId, ...c, updatedAt: now })
+		.onConflictDoUpdate({ target: jobContact.planId, set: { ...c, updatedAt: now } });
+}
+
+/** The address and phone stored for the plan, for its owner's forms; null when none yet. */
+export async function jobContactOf(planId: string) {
+	const [c] = await db.select({ siteAddress: jobContact.siteAddress, phone: jobContact.phone }).from(jobContact).where(eq(jobContact.planId, planId));
+	return c ?? null;
+}
+
+/** Refuses `action` on a lead the table does not allow it for, with the reason in words. */
+function step(status: LeadStatus, action: Parameters<typeof leadTarget>[1], refusal: string): LeadStatus {
+	const to = leadTarget(status, action);
+	if (!to) throw new LeadRefused(refusal);
+	return to;
+}
+
+const today = () => new Date().toISOString().slice(0, 10);
+/** SQL: the contractor's licence and insurance dates have not passed (a missing date is not an expired one). */
+const credentialsCurrentSql = (day: string) =>
+	sql`(coalesce(${contractor.licenceExpiresOn}, 'infinity'::date) >= ${day}::date and coalesce(${contractor.insuranceExpiresOn}, 'infinity'::date) >= ${day}::date)`;
 
 /** Name and e-mail of each lead's contractor, with the lead's town, in one query. */
 const leadContractors = (tx: Tx, leadIds: string[]) =>
@@ -44,7 +78,16 @@ const leadContractors = (tx: Tx, leadIds: string[]) =>
 export async function sendLeads(
 	owner: Actor,
 	planId: string,
-	input: { scope: ServiceKind; timeframe: Timeframe; notes: string; finish?: Finish; existingSurface?: ExistingSurface; siteAccess?: string; contractors: string[] },
+	input: {
+		scope: ServiceKind;
+		timeframe: Timeframe;
+		notes: string;
+		finish?: Finish;
+		existingSurface?: ExistingSurface;
+		siteAccess?: string;
+		contractors: string[];
+		contact?: JobContactInput | null;
+	},
 	origin: string
 ) {
 	const out = await db.transaction(async (tx) => {
@@ -54,6 +97,8 @@ export async function sendLeads(
 		if (!place) throw new LeadRefused('The plan needs a US ZIP code we know before it can go to contractors.');
 		const matches = new Map((await matchContractors(place, input.scope, tx)).map((m) => [m.id, m]));
 		if (input.contractors.some((id) => !matches.has(id))) throw new LeadRefused('A contractor you chose does not serve this plan’s area for that work.');
+		if (input.contact) await saveJobContact(tx, planId, input.contact);
+		const due = respondBy(new Date(), input.timeframe);
 		const photoIds = (await tx.select({ id: planPhoto.id }).from(planPhoto).where(eq(planPhoto.planId, planId)).orderBy(asc(planPhoto.createdAt))).map((r) => r.id);
 		const rows = await tx
 			.insert(lead)
@@ -72,13 +117,14 @@ export async function sendLeads(
 					latestRevision: p.revision,
 					snapshot: { name: p.name, postcode: p.postcode, input: p.input, result: p.result, photoIds },
 					town: place.town,
+					respondBy: due,
 					distanceKm: matches.get(contractorId)!.distanceKm
 				}))
 			)
 			.onConflictDoNothing({ target: [lead.planId, lead.contractorId] })
 			.returning({ id: lead.id });
 		for (const to of await leadContractors(tx, rows.map((r) => r.id)))
-			await queueMail(to.email, newLeadMail(to.name, place.town, p.name, leadUrl(origin, to.leadId)), tx);
+			await queueMail(to.email, newLeadMail(to.name, place.town, p.name, formatDate(due), leadUrl(origin, to.leadId)), tx);
 		return { created: rows.length };
 	});
 	deliverSoon();
@@ -96,7 +142,7 @@ export async function announceRevision(owner: Actor, planId: string, origin: str
 		const rows = await tx
 			.update(lead)
 			.set({ latestRevision: p.revision, updatedAt: new Date() })
-			.where(and(eq(lead.planId, planId), sql`${lead.latestRevision} < ${p.revision}`, notInArray(lead.status, CLOSED)))
+			.where(and(eq(lead.planId, planId), sql`${lead.latestRevision} < ${p.revision}`, inArray(lead.status, [...openLeadStatuses])))
 			.returning({ id: lead.id });
 		for (const to of await leadContractors(tx, rows.map((r) => r.id)))
 			await queueMail(to.email, newerRevisionMail(to.name, to.town ?? 'you', p.revision, leadUrl(origin, to.leadId)), tx);
@@ -112,6 +158,8 @@ async function lockOpenPlan(tx: Tx, ownerId: string, planId: string) {
 	if (!p) return null;
 	const [accepted] = await tx.select({ id: bid.id }).from(bid).where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
 	if (accepted) throw new LeadRefused('You accepted a bid for this plan already.');
+	const [done] = await tx.select({ id: lead.id }).from(lead).where(and(eq(lead.planId, planId), eq(lead.status, 'done')));
+	if (done) throw new LeadRefused('You marked the job for this plan done.');
 	return p;
 }
 
@@ -125,7 +173,17 @@ const unreadFor = (side: 'homeowner' | 'contractor') =>
 export async function leadsForPlan(planId: string) {
 	return db
 		.select({
-			lead: { id: lead.id, contractorId: lead.contractorId, status: lead.status, scope: lead.scope, planRevision: lead.planRevision, distanceKm: lead.distanceKm, sentAt: lead.sentAt, declineReason: lead.declineReason },
+			lead: {
+				id: lead.id,
+				contractorId: lead.contractorId,
+				status: lead.status,
+				scope: lead.scope,
+				planRevision: lead.planRevision,
+				distanceKm: lead.distanceKm,
+				sentAt: lead.sentAt,
+				respondBy: lead.respondBy,
+				declineReason: lead.declineReason
+			},
 			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade, status: contractor.status },
 			bid,
 			unread: unreadFor('homeowner')
@@ -142,7 +200,7 @@ export async function leadsForPlan(planId: string) {
  * plan run one after the other and the second finds the first's accepted bid and is refused.
  * Every other open bid becomes not selected and the leads follow.
  */
-export async function acceptBid(ownerId: string, planId: string, bidId: string, origin: string) {
+export async function acceptBid(ownerId: string, planId: string, bidId: string, origin: string, contact: JobContactInput) {
 	const out = await db.transaction(async (tx) => {
 		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
 		if (!p) return null;
@@ -152,17 +210,22 @@ export async function acceptBid(ownerId: string, planId: string, bidId: string, 
 		if (already) throw new LeadRefused('You accepted a bid for this plan already.');
 		if (b.status !== 'open') throw new LeadRefused('This bid is no longer open.');
 		if (isExpired(b.validUntil)) throw new LeadRefused(`This bid was valid until ${b.validUntil}; ask the contractor to renew it.`);
-		// A contractor sent back to review or suspended since bidding cannot be hired through Stakeline.
-		const [c] = await tx.select({ status: contractor.status }).from(contractor).where(eq(contractor.userId, b.contractorId));
+		const [won] = await tx.select({ status: lead.status }).from(lead).where(eq(lead.id, b.leadId)).for('update');
+		const wonTo = step(won.status, 'accept', 'This request is no longer open.');
+		// A contractor sent back to review, suspended or with an expired licence or insurance since bidding cannot be hired through Stakeline.
+		const [c] = await tx.select({ status: contractor.status, current: credentialsCurrentSql(today()) }).from(contractor).where(eq(contractor.userId, b.contractorId));
 		if (c?.status !== 'approved') throw new LeadRefused('This contractor is not approved at the moment, so the bid cannot be accepted.');
+		if (!c.current) throw new LeadRefused('This contractor’s licence or insurance has expired, so the bid cannot be accepted until they renew it.');
+		await saveJobContact(tx, planId, contact);
 		const now = new Date();
 		await tx.update(bid).set({ status: 'accepted', updatedAt: now }).where(eq(bid.id, b.id));
 		await tx.update(bid).set({ status: 'not_selected', updatedAt: now }).where(and(eq(bid.planId, planId), eq(bid.status, 'open'), ne(bid.id, b.id)));
-		await tx.update(lead).set({ status: 'won', updatedAt: now }).where(eq(lead.id, b.leadId));
+		await tx.update(lead).set({ status: wonTo, updatedAt: now }).where(eq(lead.id, b.leadId));
+		// Only the leads the table moves (the open ones); declined, withdrawn and expired ones stay as they are.
 		const others = await tx
 			.update(lead)
 			.set({ status: 'not_selected', updatedAt: now })
-			.where(and(eq(lead.planId, planId), ne(lead.id, b.leadId), notInArray(lead.status, ['declined', 'withdrawn'])))
+			.where(and(eq(lead.planId, planId), ne(lead.id, b.leadId), inArray(lead.status, statusesMovedBy('accept_other', openLeadStatuses))))
 			.returning({ id: lead.id });
 		for (const to of await leadContractors(tx, [b.leadId, ...others.map((o) => o.id)]))
 			await queueMail(to.email, bidDecisionMail(to.name, to.leadId === b.leadId, to.town ?? 'you', leadUrl(origin, to.leadId)), tx);
@@ -184,6 +247,7 @@ export async function contractorLeads(contractorId: string, o: { status: LeadSta
 			scope: lead.scope,
 			timeframe: lead.timeframe,
 			sentAt: lead.sentAt,
+			respondBy: lead.respondBy,
 			planName: sql<string>`${lead.snapshot}->>'name'`,
 			newerRevision: sql<boolean>`${lead.latestRevision} > ${lead.planRevision}`,
 			unread: unreadFor('contractor')
@@ -211,7 +275,11 @@ export async function contractorLead(contractorId: string, leadId: string) {
 		.where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
 	if (!row) return null;
 	const { homeownerName, homeownerEmail, ...rest } = row;
-	return { ...rest, homeowner: row.lead.status === 'won' ? { name: homeownerName, email: homeownerEmail } : null };
+	// How many firms the homeowner asked for this plan: a count only, never who.
+	const [{ asked }] = await db.select({ asked: count() }).from(lead).where(eq(lead.planId, row.lead.planId));
+	const hired = row.lead.status === 'won' || row.lead.status === 'done';
+	const site = hired ? await jobContactOf(row.lead.planId) : null;
+	return { ...rest, asked, homeowner: hired ? { name: homeownerName, email: homeownerEmail, siteAddress: site?.siteAddress ?? null, phone: site?.phone ?? null } : null };
 }
 
 /** Opening a lead marks it viewed and its messages read. */
@@ -240,8 +308,12 @@ async function lockOwnLead(tx: Tx, contractorId: string, leadId: string) {
 }
 
 async function requireApproved(tx: Tx, contractorId: string) {
-	const [c] = await tx.select({ status: contractor.status, businessName: contractor.businessName }).from(contractor).where(eq(contractor.userId, contractorId));
+	const [c] = await tx
+		.select({ status: contractor.status, businessName: contractor.businessName, current: credentialsCurrentSql(today()) })
+		.from(contractor)
+		.where(eq(contractor.userId, contractorId));
 	if (c?.status !== 'approved') throw new LeadRefused('Only approved contractors can bid.');
+	if (!c.current) throw new LeadRefused('Your licence or insurance has expired: renew it on your profile before you bid.');
 	return c;
 }
 
@@ -251,13 +323,15 @@ export async function saveBid(contractorId: string, leadId: string, input: BidIn
 		const c = await requireApproved(tx, contractorId);
 		const locked = await lockOwnLead(tx, contractorId, leadId);
 		if (!locked) return false;
-		if (CLOSED.includes(locked.lead.status)) throw new LeadRefused('This lead is closed; the bid cannot change.');
+		const to = step(locked.lead.status, 'bid', 'This lead is closed; the bid cannot change.');
+		if (locked.lead.status !== 'bid_sent' && locked.lead.respondBy && locked.lead.respondBy < today())
+			throw new LeadRefused(`The respond-by date, ${formatDate(locked.lead.respondBy)}, has passed: this lead is closed.`);
 		if (locked.bid && locked.bid.status !== 'open') throw new LeadRefused('This bid is no longer open.');
 		if (locked.bid && isExpired(locked.bid.validUntil)) throw new LeadRefused('This bid has expired; it can no longer be changed.');
 		const now = new Date();
 		if (locked.bid) await tx.update(bid).set({ ...input, updatedAt: now }).where(eq(bid.id, locked.bid.id));
 		else await tx.insert(bid).values({ ...input, leadId, planId: locked.lead.planId, contractorId });
-		await tx.update(lead).set({ status: 'bid_sent', updatedAt: now }).where(eq(lead.id, leadId));
+		await tx.update(lead).set({ status: to, updatedAt: now }).where(eq(lead.id, leadId));
 		const home = await homeownerOf(tx, locked.lead.homeownerId);
 		await queueMail(home.email, newBidMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, !!locked.bid, bidsUrl(origin, locked.lead.planId)), tx);
 		return true;
@@ -275,8 +349,9 @@ export async function withdrawBid(contractorId: string, leadId: string, origin =
 		const locked = await lockOwnLead(tx, contractorId, leadId);
 		if (!locked) return false;
 		if (locked.bid?.status !== 'open') throw new LeadRefused('There is no open bid to withdraw.');
+		const to = step(locked.lead.status, 'withdraw', 'There is no open bid to withdraw.');
 		await tx.update(bid).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(bid.id, locked.bid.id));
-		await tx.update(lead).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(lead.id, leadId));
+		await tx.update(lead).set({ status: to, updatedAt: new Date() }).where(eq(lead.id, leadId));
 		const home = await homeownerOf(tx, locked.lead.homeownerId);
 		await queueMail(home.email, bidWithdrawnMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, bidsUrl(origin, locked.lead.planId)), tx);
 		return true;
@@ -290,9 +365,9 @@ export async function declineLead(contractorId: string, leadId: string, reason: 
 	return db.transaction(async (tx) => {
 		const locked = await lockOwnLead(tx, contractorId, leadId);
 		if (!locked) return false;
-		if (CLOSED.includes(locked.lead.status)) throw new LeadRefused('This lead is closed already.');
+		const to = step(locked.lead.status, 'decline', 'This lead is closed already.');
 		if (locked.bid?.status === 'open') await tx.update(bid).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(bid.id, locked.bid.id));
-		await tx.update(lead).set({ status: 'declined', declineReason: reason, updatedAt: new Date() }).where(eq(lead.id, leadId));
+		await tx.update(lead).set({ status: to, declineReason: reason, updatedAt: new Date() }).where(eq(lead.id, leadId));
 		return true;
 	});
 }
@@ -302,13 +377,13 @@ export async function declineLead(contractorId: string, leadId: string, reason: 
  * decision means for them (inside the decision's transaction). Nothing is withdrawn: while the
  * contractor is not approved their bids simply cannot be accepted, and they are open again after.
  */
-export async function tellHomeownersOfContractorChange(tx: Tx, contractorId: string, business: string, change: 'suspended' | 'review' | 'active', origin: string) {
+export async function tellHomeownersOfContractorChange(tx: Tx, contractorId: string, business: string, change: 'suspended' | 'review' | 'lapsed' | 'active', origin: string) {
 	const rows = await tx
 		.select({ planId: lead.planId, planName: sql<string>`${lead.snapshot}->>'name'`, accepted: sql<boolean>`${bid.status} = 'accepted'`, name: user.name, email: user.email })
 		.from(lead)
 		.innerJoin(user, eq(user.id, lead.homeownerId))
 		.leftJoin(bid, eq(bid.leadId, lead.id))
-		.where(and(eq(lead.contractorId, contractorId), sql`(${lead.status} not in ('declined', 'won', 'not_selected', 'withdrawn', 'released') or ${bid.status} = 'accepted')`));
+		.where(and(eq(lead.contractorId, contractorId), inArray(lead.status, [...openLeadStatuses, 'won'])));
 	for (const r of rows) {
 		const url = bidsUrl(origin, r.planId);
 		const mail = change === 'active' ? contractorActiveAgainMail(r.name, business, r.planName, url) : contractorPausedMail(r.name, business, r.planName, change, !!r.accepted, url);
@@ -335,14 +410,15 @@ export async function reopenBidding(ownerId: string, planId: string, origin: str
 		if (won.status === 'approved') throw new LeadRefused('The contractor you hired is in good standing; talk to them in the messages first.');
 		const now = new Date();
 		await tx.update(bid).set({ status: 'released', updatedAt: now }).where(eq(bid.id, won.bidId));
-		await tx.update(lead).set({ status: 'released', updatedAt: now }).where(eq(lead.id, won.leadId));
+		await tx.update(lead).set({ status: step('won', 'release', 'There is no accepted bid to release.'), updatedAt: now }).where(eq(lead.id, won.leadId));
 		const today = new Date().toISOString().slice(0, 10);
 		const reopened = await tx
 			.update(bid)
 			.set({ status: 'open', updatedAt: now })
 			.where(and(eq(bid.planId, planId), eq(bid.status, 'not_selected'), sql`${bid.validUntil} >= ${today}`))
 			.returning({ leadId: bid.leadId });
-		if (reopened.length) await tx.update(lead).set({ status: 'bid_sent', updatedAt: now }).where(inArray(lead.id, reopened.map((r) => r.leadId)));
+		// The table's reopen step: a not-selected lead with a still-valid bid is bid_sent again.
+		if (reopened.length) await tx.update(lead).set({ status: leadTarget('not_selected', 'reopen')!, updatedAt: now }).where(inArray(lead.id, reopened.map((r) => r.leadId)));
 		for (const to of await leadContractors(tx, [won.leadId, ...reopened.map((r) => r.leadId)])) {
 			const url = leadUrl(origin, to.leadId);
 			await queueMail(to.email, to.leadId === won.leadId ? jobReleasedMail(to.name, to.town ?? 'you', url) : biddingReopenedMail(to.name, to.town ?? 'you', url), tx);
@@ -358,7 +434,7 @@ export async function threadOf(leadId: string) {
 }
 
 /** Who can still write in a lead's thread: open leads, and the hired contractor's. */
-export const canWriteThread = (status: LeadStatus) => !['declined', 'not_selected', 'withdrawn', 'released'].includes(status);
+export const canWriteThread = threadOpen;
 
 /** Posts to a lead's thread when `sender` is one of its two sides, and tells the other side by e-mail. */
 export async function postMessage(sender: Actor & { role: string }, leadId: string, body: string, origin: string) {
@@ -443,4 +519,97 @@ export async function threadsOf(u: { id: string; role: string }) {
 export async function leadPhotoPlan(contractorId: string, leadId: string, photoId: string) {
 	const [l] = await db.select({ planId: lead.planId, snapshot: lead.snapshot }).from(lead).where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
 	return l?.snapshot.photoIds?.includes(photoId) ? l.planId : null;
+}
+
+/**
+ * The homeowner closes the request without hiring anyone: every open lead is closed (the table's
+ * close step), open bids close with it, and each contractor concerned is told, in one transaction.
+ * Refused once a bid was accepted: then the way out is marking the job done, or a release.
+ */
+export async function closeRequest(ownerId: string, planId: string, origin: string) {
+	const out = await db.transaction(async (tx) => {
+		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+		if (!p) return null;
+		const leads = await tx.select({ id: lead.id, status: lead.status }).from(lead).where(eq(lead.planId, planId)).for('update');
+		for (const l of leads) step(l.status, 'close', l.status === 'won' ? 'You accepted a bid already: mark the job done when it is finished.' : 'This job is done already.');
+		const moving = leads.filter((l) => isOpenLead(l.status) && leadTarget(l.status, 'close') !== l.status);
+		if (!moving.length) throw new LeadRefused('There is no open request to close.');
+		const now = new Date();
+		const ids = moving.map((l) => l.id);
+		await tx.update(lead).set({ status: 'closed', updatedAt: now }).where(inArray(lead.id, ids));
+		const closedBids = await tx
+			.update(bid)
+			.set({ status: 'closed', updatedAt: now })
+			.where(and(inArray(bid.leadId, ids), eq(bid.status, 'open')))
+			.returning({ leadId: bid.leadId });
+		const withBid = new Set(closedBids.map((b) => b.leadId));
+		for (const to of await leadContractors(tx, ids)) await queueMail(to.email, requestClosedMail(to.name, to.town ?? 'you', withBid.has(to.leadId), leadUrl(origin, to.leadId)), tx);
+		return { closed: ids.length };
+	});
+	deliverSoon();
+	return out;
+}
+
+/** The homeowner marks the hired job done (won → done) and the contractor is told. */
+export async function completeJob(ownerId: string, planId: string, origin: string) {
+	const out = await db.transaction(async (tx) => {
+		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+		if (!p) return null;
+		const [won] = await tx
+			.select({ id: lead.id, status: lead.status })
+			.from(lead)
+			.where(and(eq(lead.planId, planId), inArray(lead.status, ['won', 'done'])))
+			.for('update');
+		if (!won) throw new LeadRefused('Accept a bid first: only a hired job can be marked done.');
+		const to = step(won.status, 'complete', 'This job is marked done already.');
+		await tx.update(lead).set({ status: to, updatedAt: new Date() }).where(eq(lead.id, won.id));
+		for (const c of await leadContractors(tx, [won.id])) await queueMail(c.email, jobDoneMail(c.name, c.town ?? 'you', leadUrl(origin, c.leadId)), tx);
+		return true;
+	});
+	deliverSoon();
+	return out;
+}
+
+/**
+ * Leads nobody answered by their respond-by date expire (the table's expire step), in the
+ * caller's transaction: each contractor is told, and each homeowner once per plan with the firms
+ * that did not reply. The UPDATE takes each row once, so two sweeps cannot both send.
+ */
+export async function expireLeads(tx: Tx, day: string, origin: string, only: { contractorId?: string; planId?: string } = {}) {
+	const rows = await tx
+		.update(lead)
+		.set({ status: 'expired', updatedAt: new Date() })
+		.where(
+			and(
+				inArray(lead.status, statusesMovedBy('expire', openLeadStatuses)),
+				sql`${lead.respondBy} < ${day}::date`,
+				only.contractorId ? eq(lead.contractorId, only.contractorId) : undefined,
+				only.planId ? eq(lead.planId, only.planId) : undefined
+			)
+		)
+		.returning({ id: lead.id, planId: lead.planId, homeownerId: lead.homeownerId, respondBy: lead.respondBy, planName: sql<string>`${lead.snapshot}->>'name'` });
+	if (!rows.length) return 0;
+	for (const to of await leadContractors(tx, rows.map((r) => r.id))) {
+		const r = rows.find((x) => x.id === to.leadId)!;
+		await queueMail(to.email, leadExpiredMail(to.name, to.town ?? 'you', formatDate(r.respondBy!), leadUrl(origin, to.leadId)), tx);
+	}
+	const names = await tx
+		.select({ leadId: lead.id, business: sql<string>`coalesce(${contractor.businessName}, 'A contractor')` })
+		.from(lead)
+		.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
+		.where(inArray(lead.id, rows.map((r) => r.id)));
+	for (const planId of new Set(rows.map((r) => r.planId))) {
+		const mine = rows.filter((r) => r.planId === planId);
+		const home = await homeownerOf(tx, mine[0].homeownerId);
+		const firms = mine.map((r) => names.find((n) => n.leadId === r.id)!.business);
+		await queueMail(home.email, leadsUnansweredMail(home.name, mine[0].planName, firms, formatDate(mine[0].respondBy!), bidsUrl(origin, planId)), tx);
+	}
+	return rows.length;
+}
+
+/** Expires what is due for one plan or one contractor when their page loads (between sweeps). */
+export async function expireLeadsNow(only: { contractorId?: string; planId?: string }, origin: string, now = new Date()) {
+	const n = await db.transaction((tx) => expireLeads(tx, now.toISOString().slice(0, 10), origin, only));
+	if (n) deliverSoon();
+	return n;
 }

@@ -26,6 +26,7 @@ const radiusKm = sql<number>`(${contractor.serviceRadius} * case when ${contract
  */
 export async function matchContractors(place: LatLon, scope: ServiceKind, executor: Pick<typeof db, 'select'> = db) {
 	const d = distanceKm(place);
+	const day = new Date().toISOString().slice(0, 10);
 	return executor
 		.select({
 			id: contractor.userId,
@@ -39,6 +40,9 @@ export async function matchContractors(place: LatLon, scope: ServiceKind, execut
 		.where(
 			and(
 				eq(contractor.status, 'approved'),
+				// An expired licence or insurance stops leads at once, even before the sweep lapses the account.
+				sql`coalesce(${contractor.licenceExpiresOn}, 'infinity'::date) >= ${day}::date`,
+				sql`coalesce(${contractor.insuranceExpiresOn}, 'infinity'::date) >= ${day}::date`,
 				isNotNull(contractor.serviceLat),
 				sql`${d} <= ${radiusKm}`,
 				sql`(${scope}::service_kind = any(${contractor.services}) or 'whole_job' = any(${contractor.services}))`

@@ -27,6 +27,8 @@ const profile = {
 	services: ['pour_finish' as const],
 	licenceNumber: 'FH-1',
 	licenceAuthority: 'Fernhollow County Contractors Board',
+	licenceExpiresOn: new Date(Date.now() + 400 * 86_400_000).toISOString().slice(0, 10),
+	insuranceExpiresOn: new Date(Date.now() + 200 * 86_400_000).toISOString().slice(0, 10),
 	servicePostcode: '97321',
 	serviceRadius: 20,
 	serviceRadiusUnit: 'mi' as const

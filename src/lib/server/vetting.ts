@@ -39,6 +39,9 @@ export async function decide(admin: Admin, contractorId: string, decision: Vetti
 			.where(and(eq(contractorDocument.contractorId, contractorId), isNull(contractorDocument.supersededAt)));
 		if (to === 'approved' && decision === 'approve' && docs.length < 2)
 			throw new VettingRefused('The profile is not complete: it needs both documents before it can be approved.');
+		const today = new Date().toISOString().slice(0, 10);
+		if (to === 'approved' && [c.row.licenceExpiresOn, c.row.insuranceExpiresOn].some((d) => d !== null && d < today))
+			throw new VettingRefused('The licence or insurance on this profile has expired: the contractor needs to renew it first.');
 		const now = new Date();
 		const reviewed = decision === 'approve' || decision === 'send_back';
 		await tx

@@ -1,18 +1,25 @@
 import { eq } from 'drizzle-orm';
+import { readerLocale } from '$lib/components/plan/format';
 import { db } from '$lib/server/db';
 import { contractor } from '$lib/server/db/schema';
+import { sweepContractor } from '$lib/server/credentials';
 import { requireRole } from '$lib/server/guards';
 import type { LayoutServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const user = requireRole(event, 'contractor');
+	// Expiry dates, reminders and respond-by dates are evaluated on each visit too, not only by the hourly sweep.
+	await sweepContractor(user.id, new Date(), event.url.origin);
 	const [profile] = await db.select().from(contractor).where(eq(contractor.userId, user.id));
 	return {
 		contractor: {
 			status: profile?.status ?? 'draft',
 			reason: profile?.statusReason ?? null,
 			businessName: profile?.businessName ?? null,
-			submitted: !!profile?.submittedAt
-		}
+			submitted: !!profile?.submittedAt,
+			licenceExpiresOn: profile?.licenceExpiresOn ?? null,
+			insuranceExpiresOn: profile?.insuranceExpiresOn ?? null
+		},
+		locale: readerLocale(event.request.headers.get('accept-language'))
 	};
 }) satisfies LayoutServerLoad;

@@ -53,6 +53,8 @@ export async function drawStrengthChart(
 	const ink = token(canvas, '--color-ink-soft', '#4a5a52');
 	const grid = { color: token(canvas, '--color-line', '#d9d3c4') };
 	const axis = (text: string) => ({ display: true, text, color: ink });
+	// An effect that re-ran while chart.js was loading may have drawn here first: one chart per canvas.
+	Chart.getChart(canvas)?.destroy();
 	const chart = new Chart(canvas, {
 		type: 'line',
 		data: {

@@ -33,7 +33,8 @@ const afterReinstate: Partial<Record<ContractorStatus, string>> = {
 	approved: 'Homeowners in your service area can send you their plans again, and your leads that are still open are back on your desk.',
 	awaiting_review: 'Your licence or insurance changed while the account was suspended, so an administrator checks them before leads come back.',
 	sent_back: 'Your profile is still sent back: please make the change asked for earlier.',
-	draft: 'Finish your business profile and send it for review to receive leads.'
+	draft: 'Finish your business profile and send it for review to receive leads.',
+	lapsed: 'Your licence or insurance is still past its expiry date: upload the renewed document with its new date to receive leads again.'
 };
 
 /** Tells a contractor what an admin decided, with the reason when one was given. */
@@ -53,8 +54,8 @@ export function vettingDecisionMail(name: string, decision: VettingDecision, to:
 const footer = 'You receive this because you use Stakeline. Reply inside Stakeline, not to this e-mail.';
 const simple = (subject: string, name: string, lines: string[], action: string, url: string): Mail => notice({ subject, name, lines, action, url, footer });
 
-export const newLeadMail = (name: string, town: string, planName: string, url: string) =>
-	simple(`New lead near ${town}`, name, [`A homeowner near ${town} sent you the plan “${planName}” and asks for a bid.`], 'Open the lead', url);
+export const newLeadMail = (name: string, town: string, planName: string, respondBy: string, url: string) =>
+	simple(`New lead near ${town}`, name, [`A homeowner near ${town} sent you the plan “${planName}” and asks for a bid. Please bid or decline by ${respondBy}; after that date the lead closes.`], 'Open the lead', url);
 
 export const newerRevisionMail = (name: string, town: string, revision: number, url: string) =>
 	simple(
@@ -89,15 +90,18 @@ export const bidWithdrawnMail = (name: string, business: string, planName: strin
  * To a homeowner whose contractor Stakeline suspended or sent back to review: it was our decision,
  * not the contractor's, and what it means for their bid or the accepted job.
  */
-export function contractorPausedMail(name: string, business: string, planName: string, why: 'suspended' | 'review', accepted: boolean, url: string) {
+export function contractorPausedMail(name: string, business: string, planName: string, why: 'suspended' | 'review' | 'lapsed', accepted: boolean, url: string) {
 	const what =
 		why === 'suspended'
 			? `Stakeline has suspended the account of ${business} while we look into a concern. This is our decision; the contractor did not withdraw.`
-			: `Stakeline is checking the licence or insurance of ${business} again. This is our check; the contractor did not withdraw.`;
+			: why === 'lapsed'
+				? `The licence or insurance that ${business} gave Stakeline has passed its expiry date. Until they renew it and we check the new one, they cannot be hired through Stakeline; they did not withdraw.`
+				: `Stakeline is checking the licence or insurance of ${business} again. This is our check; the contractor did not withdraw.`;
 	const effect = accepted
 		? `You accepted their bid for “${planName}”, so the job is on hold. You can wait for us, or reopen bidding on your bids page.`
 		: `Their bid or lead for “${planName}” stays on your page, but it cannot be accepted until the account is active again.`;
-	return simple(why === 'suspended' ? `${business} is suspended for now` : `${business} is under review for now`, name, [what, effect, 'We will e-mail you when this changes.'], 'Open your bids', url);
+	const subject = why === 'suspended' ? `${business} is suspended for now` : why === 'lapsed' ? `${business}: licence or insurance expired` : `${business} is under review for now`;
+	return simple(subject, name, [what, effect, 'We will e-mail you when this changes.'], 'Open your bids', url);
 }
 
 export const contractorActiveAgainMail = (name: string, business: string, planName: string, url: string) =>
@@ -124,3 +128,73 @@ export const profileSubmittedMail = (name: string, business: string, url: string
 		url,
 		footer: 'You receive this because you are a Stakeline administrator.'
 	});
+
+/**
+ * Notices of the lead and credential life cycle. Each carries a `kind`, so an account can later
+ * choose which kinds it receives; none of them is a security mail.
+ */
+export type KindedMail = Mail & { kind: string };
+const kinded = (kind: string, mail: Mail): KindedMail => ({ ...mail, kind });
+const credentialName = { licence: 'licence', insurance: 'insurance' } as const;
+
+export const credentialReminderMail = (name: string, kind: 'licence' | 'insurance', expiresOn: string, daysLeft: number, url: string) =>
+	kinded(
+		'credential_reminder',
+		notice({
+			subject: `Your ${credentialName[kind]} on Stakeline expires in ${daysLeft} ${daysLeft === 1 ? 'day' : 'days'}`,
+			name,
+			lines: [
+				`The ${credentialName[kind]} on your Stakeline profile expires on ${expiresOn}.`,
+				'On that day your account stops receiving leads, and homeowners cannot accept your bids, until you upload the renewed document with its new date and an administrator checks it.'
+			],
+			action: 'Renew on my profile',
+			url,
+			footer: 'You receive this because you have a contractor account on Stakeline.'
+		})
+	);
+
+export const credentialLapsedMail = (name: string, kinds: ('licence' | 'insurance')[], url: string) =>
+	kinded(
+		'credential_lapsed',
+		notice({
+			subject: `Your ${kinds.map((k) => credentialName[k]).join(' and ')} on Stakeline has expired`,
+			name,
+			lines: [
+				`The ${kinds.map((k) => credentialName[k]).join(' and ')} on your Stakeline profile has expired, so your account receives no new leads and homeowners cannot accept your bids for now.`,
+				'Upload the renewed document with its new expiry date: an administrator checks it, and your leads come back once it is approved. The homeowners with your open bids are told why.'
+			],
+			action: 'Renew on my profile',
+			url,
+			footer: 'You receive this because you have a contractor account on Stakeline.'
+		})
+	);
+
+export const leadExpiredMail = (name: string, town: string, respondBy: string, url: string) =>
+	kinded('lead_expired', simple(`A lead near ${town} expired`, name, [`You did not bid or decline by ${respondBy}, the respond-by date, so the lead is closed. The homeowner was told you did not reply in time.`], 'Open the lead', url));
+
+export const leadsUnansweredMail = (name: string, planName: string, businesses: string[], respondBy: string, url: string) =>
+	kinded(
+		'lead_expired',
+		simple(
+			businesses.length === 1 ? `${businesses[0]} did not reply in time` : `${businesses.length} contractors did not reply in time`,
+			name,
+			[`${businesses.join(', ')} did not bid or decline on “${planName}” by ${respondBy}, so ${businesses.length === 1 ? 'that request is' : 'those requests are'} closed. Bids you already have are not affected.`],
+			'Open your bids',
+			url
+		)
+	);
+
+export const requestClosedMail = (name: string, town: string, hadBid: boolean, url: string) =>
+	kinded(
+		'request_closed',
+		simple(
+			`A request near ${town} was closed`,
+			name,
+			[`The homeowner closed their request without hiring anyone${hadBid ? '; your bid is closed and nobody else was chosen' : ''}. Thank you for your time.`],
+			'Open the lead',
+			url
+		)
+	);
+
+export const jobDoneMail = (name: string, town: string, url: string) =>
+	kinded('job_done', simple(`The job near ${town} is marked done`, name, ['The homeowner marked the job done. Thank you for the work. The lead and its messages stay on your desk for your records.'], 'Open the lead', url));

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { boolean, date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
+import { boolean, date, doublePrecision, index, integer, jsonb, pgEnum, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import { user } from './auth';
 import { contractorStatuses, type ContractorStatus } from '../../../contractor-status';
 import { serviceKinds, distanceUnits, documentKinds } from '../../../schemas/contractor';
@@ -40,8 +40,6 @@ export const contractor = pgTable(
 		reviewedSnapshot: jsonb('reviewed_snapshot').$type<ReviewedSnapshot>(),
 		licenceExpiresOn: date('licence_expires_on'),
 		insuranceExpiresOn: date('insurance_expires_on'),
-		/** The smallest days-before-expiry reminder already sent (30, 7); cleared when a date changes. */
-		expiryReminderDays: integer('expiry_reminder_days'),
 		/** When the profile was first sent for review; null while the contractor is still filling it in. */
 		submittedAt: timestamp('submitted_at', { withTimezone: true }),
 		/** When it (re-)entered the vetting queue: the queue is oldest first by this. */
@@ -74,8 +72,28 @@ export const contractorDocument = pgTable(
 	(t) => [uniqueIndex('contractor_document_current_uq').on(t.contractorId, t.kind).where(sql`${t.supersededAt} is null`)]
 );
 
+/**
+ * One row per expiry reminder sent: (contractor, credential, the date it expires, days before).
+ * The unique key makes each reminder go once, however many app servers sweep; a renewed date is a
+ * new key, so its reminders go again.
+ */
+export const credentialReminder = pgTable(
+	'credential_reminder',
+	{
+		contractorId: uuid('contractor_id')
+			.notNull()
+			.references(() => contractor.userId, { onDelete: 'cascade' }),
+		kind: documentKindEnum('kind').notNull(),
+		expiresOn: date('expires_on').notNull(),
+		daysBefore: integer('days_before').notNull(),
+		sentAt: timestamp('sent_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [primaryKey({ columns: [t.contractorId, t.kind, t.expiresOn, t.daysBefore] })]
+);
+
 /** The reviewed profile fields and current document ids, as of an admin's last decision. */
 export type ReviewedSnapshot = { fields: Record<string, unknown>; documentIds: string[] };
 
 export type Contractor = typeof contractor.$inferSelect;
+export type CredentialReminder = typeof credentialReminder.$inferSelect;
 export type ContractorDocument = typeof contractorDocument.$inferSelect;

@@ -46,6 +46,8 @@ export const lead = pgTable(
 		distanceKm: doublePrecision('distance_km').notNull(),
 		status: leadStatusEnum('status').notNull().default('new'),
 		declineReason: text('decline_reason'),
+		/** The day by which the contractor should bid or decline; after it an unanswered lead expires. Null on leads sent before there was one. */
+		respondBy: date('respond_by'),
 		homeownerReadAt: timestamp('homeowner_read_at', { withTimezone: true }).notNull().defaultNow(),
 		contractorReadAt: timestamp('contractor_read_at', { withTimezone: true }),
 		sentAt: timestamp('sent_at', { withTimezone: true }).notNull().defaultNow(),
@@ -53,6 +55,19 @@ export const lead = pgTable(
 	},
 	(t) => [unique('lead_plan_contractor_uq').on(t.planId, t.contractorId), index('lead_contractor_idx').on(t.contractorId, t.sentAt)]
 );
+
+/**
+ * Where the job is and how to reach the homeowner: asked when the plan is sent or a bid accepted,
+ * and shown only to the contractor whose bid was accepted, from then on.
+ */
+export const jobContact = pgTable('job_contact', {
+	planId: uuid('plan_id')
+		.primaryKey()
+		.references(() => plan.id, { onDelete: 'cascade' }),
+	siteAddress: text('site_address').notNull(),
+	phone: text('phone').notNull(),
+	updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
+});
 
 export type LineItem = { kind: LineItemKind; cents: number };
 
@@ -105,4 +120,5 @@ export const leadMessage = pgTable(
 
 export type Lead = typeof lead.$inferSelect;
 export type Bid = typeof bid.$inferSelect;
+export type JobContact = typeof jobContact.$inferSelect;
 export type LeadMessage = typeof leadMessage.$inferSelect;

@@ -4,12 +4,14 @@ import { bidSchema, declineSchema, messageSchema } from '$lib/schemas/leads';
 import { requireApprovedContractor } from '$lib/server/contractors';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
-import { contractorLead, declineLead, LeadRefused, markLeadSeen, postMessage, saveBid, threadOf, withdrawBid } from '$lib/server/leads';
+import { readerLocale } from '$lib/components/plan/format';
+import { contractorLead, declineLead, expireLeadsNow, LeadRefused, markLeadSeen, postMessage, saveBid, threadOf, withdrawBid } from '$lib/server/leads';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const user = requireRole(event, 'contractor');
 	await event.parent(); // approved only
+	await expireLeadsNow({ contractorId: user.id }, event.url.origin);
 	const found = await contractorLead(user.id, event.params.id);
 	if (!found) error(404, 'No such lead');
 	await markLeadSeen(user.id, event.params.id);
@@ -20,6 +22,8 @@ export const load = (async (event) => {
 		plan: { name: snapshot.name, input: snapshot.input, figures: planFigures(snapshot.input, snapshot.result), result: fullResult(snapshot.result), photoIds: snapshot.photoIds ?? [] },
 		bid: found.bid,
 		homeowner: found.homeowner,
+		asked: found.asked,
+		locale: readerLocale(event.request.headers.get('accept-language')),
 		unit: found.unitPref,
 		messages: await threadOf(event.params.id),
 		viewerId: user.id

@@ -5,7 +5,8 @@ import { serviceKinds, type ServiceKind } from '$lib/schemas/contractor';
 import { acceptSchema, getBidsSchema } from '$lib/schemas/leads';
 import { formError, parseForm, validateForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
-import { acceptBid, announceRevision, LeadRefused, leadsForPlan, reopenBidding, sendLeads } from '$lib/server/leads';
+import { readerLocale } from '$lib/components/plan/format';
+import { acceptBid, announceRevision, closeRequest, completeJob, expireLeadsNow, jobContactOf, LeadRefused, leadsForPlan, reopenBidding, sendLeads } from '$lib/server/leads';
 import { findOwnPlan } from '$lib/server/plans';
 import { matchContractors, placeOf } from '$lib/server/matching';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
@@ -23,6 +24,8 @@ export const load = (async (event) => {
 	const s = event.url.searchParams.get('scope') ?? '';
 	const scope: ServiceKind = (serviceKinds as readonly string[]).includes(s) ? (s as ServiceKind) : 'whole_job';
 	const place = placeOf(plan.postcode);
+	// Leads past their respond-by date expire now, not only at the next sweep.
+	await expireLeadsNow({ planId: plan.id }, event.url.origin);
 	const leads = await leadsForPlan(plan.id);
 	const already = new Set(leads.map((l) => l.lead.contractorId));
 	const matches = place ? await matchContractors(place, scope) : [];
@@ -32,6 +35,8 @@ export const load = (async (event) => {
 		scope,
 		matches: matches.map((m) => ({ ...m, alreadySent: already.has(m.id) })),
 		leads,
+		contact: await jobContactOf(plan.id),
+		locale: readerLocale(event.request.headers.get('accept-language')),
 		max: MAX_CONTRACTORS_PER_SEND
 	};
 }) satisfies PageServerLoad;
@@ -63,7 +68,7 @@ export const actions = {
 		const { data, values, failure } = await parseForm(event.request, acceptSchema);
 		if (failure) return failure;
 		try {
-			if (!(await acceptBid(user.id, plan.id, data.bid, event.url.origin))) error(404, 'No such bid');
+			if (!(await acceptBid(user.id, plan.id, data.bid, event.url.origin, { siteAddress: data.siteAddress, phone: data.phone }))) error(404, 'No such bid');
 		} catch (err) {
 			if (err instanceof LeadRefused) return formError(values, err.message, {}, 409);
 			throw err;
@@ -76,6 +81,27 @@ export const actions = {
 			const out = await reopenBidding(user.id, plan.id, event.url.origin);
 			if (!out) error(404, 'No such plan');
 			return { reopened: out.reopened };
+		} catch (err) {
+			if (err instanceof LeadRefused) return formError({}, err.message, {}, 409);
+			throw err;
+		}
+	},
+	close: async (event) => {
+		const { user, plan } = await ownPlan(event);
+		try {
+			const out = await closeRequest(user.id, plan.id, event.url.origin);
+			if (!out) error(404, 'No such plan');
+			return { closed: out.closed };
+		} catch (err) {
+			if (err instanceof LeadRefused) return formError({}, err.message, {}, 409);
+			throw err;
+		}
+	},
+	done: async (event) => {
+		const { user, plan } = await ownPlan(event);
+		try {
+			if (!(await completeJob(user.id, plan.id, event.url.origin))) error(404, 'No such plan');
+			return { done: true };
 		} catch (err) {
 			if (err instanceof LeadRefused) return formError({}, err.message, {}, 409);
 			throw err;
