@@ -58,3 +58,17 @@ describe("a freestanding pad's high edge", () => {
 		expect(buildCardItems(alongHouse).map((i) => i.label)).not.toContain('High side');
 	});
 });
+
+describe('a pour split inside one section', () => {
+	// 6 × 6 ft at 70 °F: more bags than the default crew places before the mix stiffens, so the engine
+	// splits the section with bulkheads that lie on no edge of the outline (edge −1).
+	const split = computePlan({ units: 'imperial', sections: [{ outline: [[0, 0], [6, 0], [6, 6], [0, 6]] }], conditions: { airTemp: 70 } });
+
+	it('draws its bulkheads and names every stake', () => {
+		expect(split.forms.runs.some((r) => r.kind === 'bulkhead' && r.edge === -1)).toBe(true);
+		const d = layoutDrawing(split, layoutSheet(split), { width: 500, height: 500 });
+		const stakes = d.labels.filter((l) => l.kind === 'stake');
+		expect(stakes.map((l) => l.text).sort()).toEqual(split.elevations.stakes.map((s) => s.id).sort());
+		expect(stakes.every((l) => l.at.every(Number.isFinite))).toBe(true);
+	});
+});

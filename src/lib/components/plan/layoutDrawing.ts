@@ -101,7 +101,8 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 	const runOut = new Map<string, Pt>();
 	for (const run of r.forms.runs) {
 		const o = r.geometry.sections[run.section].outline;
-		const [a, b] = [o[run.edge], o[(run.edge + 1) % o.length]];
+		// Along the run itself: a bulkhead where a pour is split lies on no edge (its edge is -1).
+		const [a, b] = [run.from, run.to];
 		const len = Math.hypot(b[0] - a[0], b[1] - a[1]) || 1;
 		const t = [(b[0] - a[0]) / len, (b[1] - a[1]) / len];
 		const out: Pt = signedArea(o) > 0 ? [t[1], -t[0]] : [-t[1], t[0]];

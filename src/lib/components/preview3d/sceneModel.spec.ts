@@ -206,3 +206,13 @@ describe('triangulate', () => {
 		expect(areas.reduce((a, b) => a + b, 0)).toBeCloseTo(168, 9);
 	});
 });
+
+describe('a pour split inside one section', () => {
+	it('builds the scene with bulkheads that lie on no edge', () => {
+		// 6 × 6 ft at 70 °F: the engine splits it with bulkheads of edge −1.
+		const split = computePlan({ units: 'imperial', sections: [{ outline: [[0, 0], [6, 0], [6, 6], [0, 6]] }], conditions: { airTemp: 70 } });
+		expect(split.forms.runs.some((r) => r.edge === -1)).toBe(true);
+		const scene = buildScene(split);
+		expect(scene.stakes).toHaveLength(split.elevations.stakes.length);
+	});
+});

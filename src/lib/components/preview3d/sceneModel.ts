@@ -263,8 +263,10 @@ export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSce
 	const thick = geo.map((s) => s.edges.map((e) => e.thickened));
 	const runs = result.forms.runs.map((r): Run => {
 		const [from, to] = [M(r.from), M(r.to)];
-		const n = lines[r.section][r.edge].n;
-		return { ...r, from, to, t: unit(sub(to, from)), out: [-n[0], -n[1]] };
+		const t = unit(sub(to, from));
+		// A bulkhead splitting a pour lies on no edge (edge −1): either side of it will do.
+		const n = r.edge >= 0 ? lines[r.section][r.edge].n : ([-t[1], t[0]] as P2);
+		return { ...r, from, to, t, out: [-n[0], -n[1]] };
 	});
 	const ctx: Ctx = { result, M, top, outlines, lines, runs, boardDepth };
 
