@@ -101,18 +101,3 @@ export async function bumpPlanRevision(planId: string) {
 		await sql.end();
 	}
 }
-
-/**
- * The first link of the newest e-mail to `email` whose subject matches, read from the fake
- * mailbox; patient enough for a loaded machine, where a page load alone can take seconds.
- */
-export async function proMailLink(page: Page, email: string, subject: RegExp): Promise<string> {
-	let href: string | null = null;
-	await expect(async () => {
-		await page.goto(`/dev/mailbox?to=${encodeURIComponent(email)}`);
-		const mail = page.getByTestId('mail').filter({ has: page.getByRole('heading', { name: subject }) }).first();
-		href = await mail.getByTestId('mail-link').first().getAttribute('href', { timeout: 5_000 });
-		expect(href).toBeTruthy();
-	}).toPass({ timeout: 60_000 });
-	return href!;
-}
