@@ -7,11 +7,12 @@ const HOUR_MS = 60 * 60 * 1000;
 export const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
 	verify_email: 48 * HOUR_MS,
 	reset_password: HOUR_MS,
-	sign_in: HOUR_MS / 4
+	sign_in: HOUR_MS / 4,
+	change_email: 48 * HOUR_MS
 };
 
 /** A new one-time link token; earlier unused ones of the same purpose stop working. */
-export async function createEmailToken(userId: string, purpose: TokenPurpose): Promise<string> {
+export async function createEmailToken(userId: string, purpose: TokenPurpose, newEmail?: string): Promise<string> {
 	const token = generateToken();
 	await db.transaction(async (tx) => {
 		await tx
@@ -22,6 +23,7 @@ export async function createEmailToken(userId: string, purpose: TokenPurpose): P
 			id: hashToken(token),
 			userId,
 			purpose,
+			newEmail: newEmail ?? null,
 			expiresAt: new Date(Date.now() + TOKEN_LIFETIME_MS[purpose])
 		});
 	});
@@ -42,6 +44,24 @@ export async function peekEmailToken(token: string, purpose: TokenPurpose): Prom
 export async function consumeEmailToken(token: string, purpose: TokenPurpose): Promise<string | null> {
 	const [row] = await db.update(emailToken).set({ usedAt: new Date() }).where(usable(token, purpose)).returning({ userId: emailToken.userId });
 	return row?.userId ?? null;
+}
+
+/** Uses up a change-of-address token: the account and the address it moves to. */
+export async function consumeEmailChangeToken(token: string): Promise<{ userId: string; newEmail: string } | null> {
+	const [row] = await db
+		.update(emailToken)
+		.set({ usedAt: new Date() })
+		.where(usable(token, 'change_email'))
+		.returning({ userId: emailToken.userId, newEmail: emailToken.newEmail });
+	return row?.newEmail ? { userId: row.userId, newEmail: row.newEmail } : null;
+}
+
+/** Open links of one purpose stop working (a new password ends a pending change of address). */
+export async function expireEmailTokens(userId: string, purpose: TokenPurpose) {
+	await db
+		.update(emailToken)
+		.set({ usedAt: new Date() })
+		.where(and(eq(emailToken.userId, userId), eq(emailToken.purpose, purpose), isNull(emailToken.usedAt)));
 }
 
 /**

@@ -1,4 +1,5 @@
 import type { ContractorStatus, VettingDecision } from '$lib/contractor-status';
+import type { MailKind } from '$lib/mail-kinds';
 import { notice, type Mail } from './templates';
 
 const vettingText: Record<VettingDecision, { subject: string; line: string; action: string; path: string }> = {
@@ -50,14 +51,16 @@ export function vettingDecisionMail(name: string, decision: VettingDecision, to:
 	});
 }
 
-const footer = 'You receive this because you use Stakeline. Reply inside Stakeline, not to this e-mail.';
-const simple = (subject: string, name: string, lines: string[], action: string, url: string): Mail => notice({ subject, name, lines, action, url, footer });
+const footer = 'You receive this because you use Stakeline. Reply inside Stakeline, not to this e-mail. Choose which e-mails you get on your account page.';
+const simple = (kind: MailKind | undefined, subject: string, name: string, lines: string[], action: string, url: string): Mail =>
+	notice({ subject, name, lines, action, url, footer, kind });
 
 export const newLeadMail = (name: string, town: string, planName: string, url: string) =>
-	simple(`New lead near ${town}`, name, [`A homeowner near ${town} sent you the plan “${planName}” and asks for a bid.`], 'Open the lead', url);
+	simple('new_lead', `New lead near ${town}`, name, [`A homeowner near ${town} sent you the plan “${planName}” and asks for a bid.`], 'Open the lead', url);
 
 export const newerRevisionMail = (name: string, town: string, revision: number, url: string) =>
 	simple(
+		'new_lead',
 		`A newer plan revision near ${town}`,
 		name,
 		[`The homeowner re-sent their plan as revision ${revision}. Your lead still shows the revision you received; check whether your bid needs a change.`],
@@ -67,6 +70,7 @@ export const newerRevisionMail = (name: string, town: string, revision: number, 
 
 export const newBidMail = (name: string, business: string, planName: string, updated: boolean, url: string) =>
 	simple(
+		'bid_update',
 		updated ? `${business} changed their bid` : `New bid from ${business}`,
 		name,
 		[updated ? `${business} changed their bid for “${planName}”.` : `${business} sent a bid for “${planName}”.`],
@@ -76,14 +80,14 @@ export const newBidMail = (name: string, business: string, planName: string, upd
 
 export const bidDecisionMail = (name: string, won: boolean, town: string, url: string) =>
 	won
-		? simple(`Your bid near ${town} was accepted`, name, ['The homeowner accepted your bid. Their contact details are now on the lead page.'], 'Open the lead', url)
-		: simple(`Your bid near ${town} was not selected`, name, ['The homeowner chose another bid for this plan. Thank you for bidding.'], 'Open the lead', url);
+		? simple('bid_result', `Your bid near ${town} was accepted`, name, ['The homeowner accepted your bid. Their contact details are now on the lead page.'], 'Open the lead', url)
+		: simple('bid_result', `Your bid near ${town} was not selected`, name, ['The homeowner chose another bid for this plan. Thank you for bidding.'], 'Open the lead', url);
 
 export const newMessageMail = (name: string, from: string, url: string) =>
-	simple(`New message from ${from}`, name, [`${from} wrote to you about a slab plan on Stakeline.`], 'Read the message', url);
+	simple('message', `New message from ${from}`, name, [`${from} wrote to you about a slab plan on Stakeline.`], 'Read the message', url);
 
 export const bidWithdrawnMail = (name: string, business: string, planName: string, url: string) =>
-	simple(`${business} withdrew their bid`, name, [`${business} withdrew their bid for “${planName}”. Their other bids and messages stay as they were.`], 'Compare the bids', url);
+	simple('bid_update', `${business} withdrew their bid`, name, [`${business} withdrew their bid for “${planName}”. Their other bids and messages stay as they were.`], 'Compare the bids', url);
 
 /**
  * To a homeowner whose contractor Stakeline suspended or sent back to review: it was our decision,
@@ -97,14 +101,15 @@ export function contractorPausedMail(name: string, business: string, planName: s
 	const effect = accepted
 		? `You accepted their bid for “${planName}”, so the job is on hold. You can wait for us, or reopen bidding on your bids page.`
 		: `Their bid or lead for “${planName}” stays on your page, but it cannot be accepted until the account is active again.`;
-	return simple(why === 'suspended' ? `${business} is suspended for now` : `${business} is under review for now`, name, [what, effect, 'We will e-mail you when this changes.'], 'Open your bids', url);
+	return simple(undefined, why === 'suspended' ? `${business} is suspended for now` : `${business} is under review for now`, name, [what, effect, 'We will e-mail you when this changes.'], 'Open your bids', url);
 }
 
 export const contractorActiveAgainMail = (name: string, business: string, planName: string, url: string) =>
-	simple(`${business} is active again`, name, [`The account of ${business} is active again. Their bid or lead for “${planName}” is open as before.`], 'Open your bids', url);
+	simple(undefined, `${business} is active again`, name, [`The account of ${business} is active again. Their bid or lead for “${planName}” is open as before.`], 'Open your bids', url);
 
 export const jobReleasedMail = (name: string, town: string, url: string) =>
 	simple(
+		'bid_result',
 		`A job near ${town} was released`,
 		name,
 		['While your account was suspended, the homeowner released the job they had accepted your bid for and reopened bidding. Your bid is closed.'],
@@ -113,7 +118,7 @@ export const jobReleasedMail = (name: string, town: string, url: string) =>
 	);
 
 export const biddingReopenedMail = (name: string, town: string, url: string) =>
-	simple(`Bidding reopened near ${town}`, name, ['The homeowner reopened bidding on a plan you bid for. Your bid is open again and can be accepted.'], 'Open the lead', url);
+	simple('bid_result', `Bidding reopened near ${town}`, name, ['The homeowner reopened bidding on a plan you bid for. Your bid is open again and can be accepted.'], 'Open the lead', url);
 
 export const profileSubmittedMail = (name: string, business: string, url: string) =>
 	notice({
@@ -122,5 +127,6 @@ export const profileSubmittedMail = (name: string, business: string, url: string
 		lines: [`${business} sent their profile for review.`],
 		action: 'Open the vetting queue',
 		url,
-		footer: 'You receive this because you are a Stakeline administrator.'
+		footer: 'You receive this because you are a Stakeline administrator.',
+		kind: 'review_queue'
 	});

@@ -5,7 +5,7 @@ import { formError, parseForm } from '$lib/server/forms';
 import { homeFor, safeRedirect } from '$lib/server/guards';
 import { dummyHash, verifyPassword } from '$lib/server/password';
 import { countSignInAttempt, formatWait, signInSucceeded } from '$lib/server/throttle';
-import { findUserByEmail } from '$lib/server/users';
+import { DISABLED_MESSAGE, findUserByEmail } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (({ locals, url }) => {
@@ -29,6 +29,8 @@ export const actions = {
 		// An unknown address is checked against a dummy hash, so timing does not tell who has an account.
 		const ok = await verifyPassword(user?.passwordHash ?? (await dummyHash()), data.password);
 		if (!user || !ok) return formError(values, 'That e-mail and password do not match an account.', { password: 'Check your password, or reset it.' });
+		// Told only to someone who knows the password, so it reveals nothing to a guesser.
+		if (user.disabledAt) return formError(values, DISABLED_MESSAGE, {}, 403);
 		await signInSucceeded(data.email, ip);
 		await startSession(event, user.id);
 		redirect(303, safeRedirect(values.redirectTo, homeFor(user.role)));
