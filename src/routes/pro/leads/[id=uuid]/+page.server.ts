@@ -1,6 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { fullResult, planFigures } from '$lib/plan-figures';
-import { bidSchema, declineSchema, messageSchema } from '$lib/schemas/leads';
+import { todayIn } from '$lib/reader';
+import { bidSchemaFor, declineSchema, messageSchema } from '$lib/schemas/leads';
 import { requireApprovedContractor } from '$lib/server/contractors';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
@@ -40,7 +41,7 @@ async function step(values: Record<string, string>, run: () => Promise<boolean>,
 export const actions = {
 	bid: async (event) => {
 		const user = await requireApprovedContractor(event);
-		const { data, values, failure } = await parseForm(event.request, bidSchema);
+		const { data, values, failure } = await parseForm(event.request, bidSchemaFor(() => todayIn(event.locals.reader.timeZone)));
 		if (failure) return failure;
 		return step(values, () => saveBid(user.id, event.params.id, data, event.url.origin), { bidSaved: true });
 	},
