@@ -81,7 +81,7 @@ function refuseEarly(event: RequestEvent, requestId: string): Response | null {
 	if (length > limit) {
 		const mb = (n: number) => `${(n / 1024 ** 2).toFixed(1)} MB`;
 		const message = `The request is ${mb(length)}; the limit is ${mb(limit)}. Send smaller files, one at a time.`;
-		return json({ message, errors: [{ path: '', message }] }, { status: 413, headers });
+		return tooLarge(event, message, headers);
 	}
 	// SvelteKit throws (a 500) when a client names the default action; it is simply not an action name.
 	if (event.request.method === 'POST' && event.url.searchParams.has('/default')) {
@@ -89,6 +89,31 @@ function refuseEarly(event: RequestEvent, requestId: string): Response | null {
 		return json({ message, errors: [{ path: '', message }] }, { status: 400, headers });
 	}
 	return null;
+}
+
+/**
+ * A body over the limit, answered in the form the sender reads: an enhanced form gets a form
+ * failure (the page keeps what was typed and shows the message), a plain form post a page that
+ * says why and leads back, everything else JSON. Never a bare 413.
+ */
+function tooLarge(event: RequestEvent, message: string, headers: Record<string, string>): Response {
+	if (event.request.headers.get('x-sveltekit-action') === 'true') {
+		// SvelteKit's ActionResult; `data` is devalue's encoding of { message }.
+		return json({ type: 'failure', status: 413, data: JSON.stringify([{ message: 1 }, message]) }, { headers });
+	}
+	if (!wantsJson(event) && event.request.method === 'POST') {
+		const esc = message.replace(/[&<>"]/g, (c) => `&#${c.charCodeAt(0)};`);
+		const back = event.request.headers.get('referer');
+		const safeBack = back && new URL(back, event.url).origin === event.url.origin ? new URL(back, event.url).pathname : '/';
+		return new Response(
+			`<!doctype html><html lang="en"><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>Files too large · Stakeline</title>` +
+				`<main style="font-family:sans-serif;max-width:32rem;margin:2rem auto;padding:0 1rem"><h1>The files are too large</h1><p>${esc}</p>` +
+				`<p>Nothing was saved. Use your browser's Back button: what you typed is still in the form; choose smaller files there.</p>` +
+				`<p><a href="${safeBack}">Open the form again</a> (empty)</p></main></html>`,
+			{ status: 413, headers: { ...headers, 'content-type': 'text/html; charset=utf-8' } }
+		);
+	}
+	return json({ message, errors: [{ path: '', message }] }, { status: 413, headers });
 }
 
 /** Unexpected errors: logged without query parameters; the database being down is said plainly. */
