@@ -13,7 +13,7 @@ describe('refuseFile', () => {
 	});
 	it('names the accepted types for a wrong one', () => {
 		expect(refuseFile({ name: 'notes.docx', size: 1000, type: 'application/vnd.openxmlformats-officedocument.wordprocessingml.document' }, doc)).toMatch(
-			/must be a PDF, a JPEG, a PNG or a WebP image/
+			/must be a PDF, a JPEG, a PNG, or a WebP image/
 		);
 		expect(refuseFile({ name: 'plan.pdf', size: 1000, type: 'application/pdf' }, uploadRules.photo)).toMatch(/photo must be a JPEG/);
 	});

@@ -19,10 +19,10 @@ export const formatMb = (n: number) => `${(n / MB).toFixed(n < 10 * MB ? 1 : 0)}
 /** The `accept` attribute of the file input. */
 export const acceptAttr = (rule: UploadRule) => Object.keys(rule.types).join(',');
 
-/** "a PDF, a JPEG, a PNG or a WebP image" */
+/** "a PDF, a JPEG, a PNG, or a WebP image" */
 export const typeList = (rule: UploadRule) => new Intl.ListFormat('en', { type: 'disjunction' }).format(Object.values(rule.types).map((t) => t[0]));
 
-/** "PDF, JPEG, PNG or WebP", for a hint. */
+/** "PDF, JPEG, PNG, or WebP", for a hint. */
 export const shortTypeList = (rule: UploadRule) =>
 	new Intl.ListFormat('en', { type: 'disjunction' }).format(Object.values(rule.types).map((t) => t[0].replace(/^an? /, '').replace(/ image$/, '')));
 
