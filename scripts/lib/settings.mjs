@@ -4,7 +4,10 @@ import path from 'node:path';
 
 export const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 
-/** Environment for one profile ('dev' or 'test'); anything already set in process.env wins. */
+/**
+ * Environment for one profile ('dev' or 'test'); anything already set in process.env wins.
+ * @param {'dev' | 'test'} profile
+ */
 export function settings(profile) {
 	const e = process.env;
 	const test = profile === 'test';

@@ -143,17 +143,23 @@ export function cutBoards(pieces: { run: string; length: number }[], stock: read
 
 /** Stakes along one run: both ends, every splice, and enough between that no gap exceeds spacing. */
 export function runStakes(r: Run, splices: number[], spacing: number): { at: Pt; kind: StakePoint['kind'] }[] {
-	const marks = [0];
-	for (const s of splices) marks.push(Math.min(s, r.length) / r.length);
-	marks.push(1);
-	const out: { at: Pt; kind: StakePoint['kind'] }[] = [{ at: r.from, kind: 'corner' }];
-	for (let i = 1; i < marks.length; i++) {
-		const gaps = Math.max(1, countUp(((marks[i] - marks[i - 1]) * r.length) / spacing));
-		for (let k = 1; k < gaps; k++)
-			out.push({ at: lerp(r.from, r.to, marks[i - 1] + ((marks[i] - marks[i - 1]) * k) / gaps), kind: 'line' });
-		out.push({ at: lerp(r.from, r.to, marks[i]), kind: i === marks.length - 1 ? 'corner' : 'splice' });
-	}
+	const out: { at: Pt; kind: StakePoint['kind'] }[] = [];
+	eachStake(r, splices, spacing, (at, kind) => void out.push({ at, kind }));
 	return out;
+}
+
+/** runStakes without the list: calls visit for each stake in order (the wizard's hot path). */
+function eachStake(r: Run, splices: readonly number[], spacing: number, visit: (at: Pt, kind: StakePoint['kind']) => void) {
+	visit(r.from, 'corner');
+	let prev = 0;
+	for (let i = 0; i <= splices.length; i++) {
+		const last = i === splices.length;
+		const mark = last ? 1 : Math.min(splices[i], r.length) / r.length;
+		const gaps = Math.max(1, countUp(((mark - prev) * r.length) / spacing));
+		for (let k = 1; k < gaps; k++) visit(lerp(r.from, r.to, prev + ((mark - prev) * k) / gaps), 'line');
+		visit(lerp(r.from, r.to, mark), last ? 'corner' : 'splice');
+		prev = mark;
+	}
 }
 
 export interface FormsResult {
@@ -234,21 +240,23 @@ export function computeForms(
 	for (const r of runs) {
 		if (!r.formed) continue;
 		formLength += r.length;
-		const parts = splitRun(boardLength.get(r.id)!, maxStock);
+		// As splitRun: equal pieces no longer than the longest stock board.
+		const board = boardLength.get(r.id)!;
+		const n = Math.max(1, countUp(board / maxStock));
+		const piece = board / n;
 		const splices: number[] = [];
-		for (let i = 0; i < parts.length; i++) {
-			pieces.push({ run: r.id, length: parts[i] });
+		for (let i = 0; i < n; i++) {
+			pieces.push({ run: r.id, length: piece });
 			if (i) {
-				splices.push(parts[0] * i);
+				splices.push(piece * i);
 				pieces.push({ run: `${r.id} cleat`, length: Math.min(CLEAT_M, maxStock) });
 				cleats++;
 			}
 		}
-		for (const s of runStakes(r, splices, m.forms.stakeSpacing)) {
-			fixings += s.kind === 'splice' ? 2 : 1;
-			if (taken(s.at)) continue;
-			stakes.push({ id: `S${stakes.length + 1}`, run: r.id, at: s.at, kind: s.kind });
-		}
+		eachStake(r, splices, m.forms.stakeSpacing, (at, kind) => {
+			fixings += kind === 'splice' ? 2 : 1;
+			if (!taken(at)) stakes.push({ id: `S${stakes.length + 1}`, run: r.id, at, kind });
+		});
 	}
 	const boards = cutBoards(pieces, m.forms.stockLengths);
 	const u = m.units;

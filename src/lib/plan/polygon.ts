@@ -13,6 +13,11 @@ export const dist = (a: Pt, b: Pt) => {
 /** Point at t along a→b; exact at the ends so shared corners compare equal. */
 export const lerp = (a: Pt, b: Pt, t: number): Pt =>
 	t === 0 ? a : t === 1 ? b : [a[0] + (b[0] - a[0]) * t, a[1] + (b[1] - a[1]) * t];
+/** a scaled to length 1. */
+export const unit = (a: Pt): Pt => {
+	const l = Math.sqrt(a[0] * a[0] + a[1] * a[1]);
+	return [a[0] / l, a[1] / l];
+};
 /** z of (b − a) × (p − a): positive when p is left of a→b. */
 export const cross = (a: Pt, b: Pt, p: Pt) => (b[0] - a[0]) * (p[1] - a[1]) - (b[1] - a[1]) * (p[0] - a[0]);
 

@@ -7,11 +7,11 @@ import {
 	LAWN_OVERLAP_M,
 	spreadLabels,
 	LINE_LIFT_M,
-	prismTriangles,
 	signedArea,
 	surfaceAt,
 	type Prism
 } from './sceneModel';
+import { prismTriangles, triangulate } from './meshes';
 
 // A 3 × 2 m pad against a wall along y = 0, falling 2 % away from it.
 const pad: PlanInput = {
@@ -193,5 +193,16 @@ describe('buildScene', () => {
 		];
 		spreadLabels(pair);
 		expect(pair[1].at[2]).toBeCloseTo(0.3, 9);
+	});
+});
+
+describe('triangulate', () => {
+	it('covers a counter-clockwise L exactly, every triangle wound as the outline', () => {
+		const L: [number, number][] = [[0, 0], [18, 0], [18, 6], [6, 6], [6, 16], [0, 16]]; // 18·6 + 6·10 = 168
+		const tris = triangulate(L);
+		expect(tris).toHaveLength(L.length - 2); // a simple n-gon has n − 2 triangles
+		const areas = tris.map((t) => signedArea(t.map((i) => L[i])));
+		expect(areas.every((a) => a > 0)).toBe(true);
+		expect(areas.reduce((a, b) => a + b, 0)).toBeCloseTo(168, 9);
 	});
 });

@@ -6,7 +6,7 @@
 import type { PlanResult } from '$lib/plan';
 import { formatLength, formatSmall } from '$lib/plan/format';
 import { DRESSED_THICKNESS_IN } from '$lib/plan/model';
-import { signedArea } from '$lib/plan/polygon';
+import { dist, pointInPolygon, signedArea, sub, unit } from '$lib/plan/polygon';
 import { M_PER_IN, planToM } from '$lib/plan/units';
 
 export type P2 = readonly [number, number];
@@ -80,16 +80,14 @@ export const LAWN_OVERLAP_M = 0.005;
 export const LINE_LIFT_M = 0.002;
 
 const add = (a: P2, b: P2, k = 1): P2 => [a[0] + b[0] * k, a[1] + b[1] * k];
-const sub = (a: P2, b: P2): P2 => [a[0] - b[0], a[1] - b[1]];
+/** z of the 2D vectors a × b (the engine's `cross` takes three points). */
 const cross = (a: P2, b: P2) => a[0] * b[1] - a[1] * b[0];
-const len = (a: P2) => Math.hypot(a[0], a[1]);
-const unit = (a: P2): P2 => [a[0] / len(a), a[1] / len(a)];
-const lerp3 = (a: P3, b: P3, f: number): P3 => [
+const near = (a: P2, b: P2) => dist(a, b) < 1e-3;
+export const lerp3 = (a: P3, b: P3, f: number): P3 => [
 	a[0] + (b[0] - a[0]) * f,
 	a[1] + (b[1] - a[1]) * f,
 	a[2] + (b[2] - a[2]) * f
 ];
-const near = (a: P2, b: P2) => len(sub(a, b)) < 1e-3;
 
 export { signedArea };
 
@@ -204,16 +202,7 @@ function houseWalls({ result, lines }: Ctx, gap: number, wallTop: number, lawn: 
 	});
 }
 
-function insideAny(p: P2, outlines: P2[][]): boolean {
-	return outlines.some((poly) => {
-		let inside = false;
-		for (let i = 0, j = poly.length - 1; i < poly.length; j = i++) {
-			const [a, b] = [poly[i], poly[j]];
-			if (a[1] > p[1] !== b[1] > p[1] && p[0] < a[0] + ((p[1] - a[1]) / (b[1] - a[1])) * (b[0] - a[0])) inside = !inside;
-		}
-		return inside;
-	});
-}
+const insideAny = (p: P2, outlines: P2[][]) => outlines.some((poly) => pointInPolygon(p, poly, 1e-9) === 'inside');
 
 /** An arrow down the fall, on the slab, clear of the middle where joints tend to cross. */
 function fallArrow({ outlines, top }: Ctx, downhill: P2 | null): Segment | null {
@@ -390,79 +379,4 @@ export function spreadLabels(labels: Label[]): void {
 			a.at = [a.at[0], a.at[1], a.at[2] + LABEL_STEP_M];
 		}
 	}
-}
-
-/** Ear clipping for a simple counter-clockwise polygon: triangles as index triples. */
-export function triangulate(poly: readonly P2[]): [number, number, number][] {
-	const idx = poly.map((_, i) => i);
-	const out: [number, number, number][] = [];
-	const inside = (p: P2, a: P2, b: P2, c: P2) =>
-		cross(sub(b, a), sub(p, a)) > 0 && cross(sub(c, b), sub(p, b)) > 0 && cross(sub(a, c), sub(p, c)) > 0;
-	let guard = idx.length * idx.length;
-	while (idx.length > 3 && guard-- > 0) {
-		for (let j = 0; j < idx.length; j++) {
-			const [i0, i1, i2] = [idx[(j + idx.length - 1) % idx.length], idx[j], idx[(j + 1) % idx.length]];
-			const [a, b2, c] = [poly[i0], poly[i1], poly[i2]];
-			if (cross(sub(b2, a), sub(c, b2)) <= 1e-12) continue;
-			if (idx.some((q) => q !== i0 && q !== i1 && q !== i2 && inside(poly[q], a, b2, c))) continue;
-			out.push([i0, i1, i2]);
-			idx.splice(j, 1);
-			break;
-		}
-	}
-	if (idx.length === 3) out.push([idx[0], idx[1], idx[2]]);
-	return out;
-}
-
-/** Closed triangle soup of a prism (x, y, z per vertex), wound counter-clockwise seen from outside. */
-export function prismTriangles(p: Prism): number[] {
-	const out: number[] = [];
-	const tri = (...corners: [number, number[]][]) =>
-		corners.forEach(([i, z]) => out.push(p.footprint[i][0], p.footprint[i][1], z[i]));
-	const { top: t, bottom: b } = p;
-	for (const [i, j, k] of triangulate(p.footprint)) {
-		tri([i, t], [j, t], [k, t]);
-		tri([i, b], [k, b], [j, b]);
-	}
-	const n = p.footprint.length;
-	for (let i = 0; i < n; i++) {
-		const j = (i + 1) % n;
-		tri([i, b], [j, b], [j, t]);
-		tri([i, b], [j, t], [i, t]);
-	}
-	return out;
-}
-
-/** A flat strip of the given width along a segment, facing up: how joint lines get drawn. */
-export function ribbonTriangles(s: Segment, width: number): number[] {
-	const d = unit(sub([s.to[0], s.to[1]], [s.from[0], s.from[1]]));
-	const n: P2 = [(-d[1] * width) / 2, (d[0] * width) / 2];
-	const q = (p: P3, k: number) => [p[0] + n[0] * k, p[1] + n[1] * k, p[2]];
-	const [a, b, c, e] = [q(s.from, -1), q(s.to, -1), q(s.to, 1), q(s.from, 1)];
-	return [...a, ...b, ...c, ...a, ...c, ...e];
-}
-
-/** Dashes of `on` metres with `off` gaps along a segment: the drawing convention for hidden edges. */
-export function dashes(s: Segment, on = 0.12, off = 0.08): Segment[] {
-	const L = Math.hypot(s.to[0] - s.from[0], s.to[1] - s.from[1]);
-	const out: Segment[] = [];
-	for (let d = 0; d < L; d += on + off)
-		out.push({ from: lerp3(s.from, s.to, d / L), to: lerp3(s.from, s.to, Math.min(1, (d + on) / L)) });
-	return out;
-}
-
-/** A flat arrow (shaft and head) lying along a segment, facing up. */
-export function arrowTriangles(s: Segment, width: number): number[] {
-	const L = Math.hypot(s.to[0] - s.from[0], s.to[1] - s.from[1]);
-	const head = Math.min(L / 3, width * 3);
-	const f = (L - head) / L;
-	const neck = lerp3(s.from, s.to, f);
-	const d = unit([s.to[0] - s.from[0], s.to[1] - s.from[1]]);
-	const n: P2 = [-d[1] * width * 1.5, d[0] * width * 1.5];
-	return [
-		...ribbonTriangles({ from: s.from, to: neck }, width),
-		neck[0] - n[0], neck[1] - n[1], neck[2],
-		s.to[0], s.to[1], s.to[2],
-		neck[0] + n[0], neck[1] + n[1], neck[2]
-	];
 }
