@@ -131,6 +131,7 @@ test("a contractor's leads list uses the unit they chose, else their language's;
 
 	// The bid form's first allowed day is the contractor's own today.
 	await item.getByRole('link', { name: 'Bin store pad' }).click();
+	await expect(page.getByText(/Albany, OR · [\d.]+ mi from you/)).toBeVisible();
 	await expect(page.getByLabel('Earliest start')).toHaveAttribute('min', todayIn('Pacific/Kiritimati'));
 
 	// Back to the language's default, as the demo data had it.

@@ -1,8 +1,8 @@
 import { error } from '@sveltejs/kit';
 import { fullResult, planFigures } from '$lib/plan-figures';
-import { todayIn } from '$lib/reader';
+import { defaultDistanceUnit, todayIn } from '$lib/reader';
 import { bidSchemaFor, declineSchema, messageSchema } from '$lib/schemas/leads';
-import { requireApprovedContractor } from '$lib/server/contractors';
+import { contractorDistanceUnit, requireApprovedContractor } from '$lib/server/contractors';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
 import { contractorLead, declineLead, LeadRefused, markLeadSeen, postMessage, saveBid, threadOf, withdrawBid } from '$lib/server/leads';
@@ -21,7 +21,8 @@ export const load = (async (event) => {
 		plan: { name: snapshot.name, input: snapshot.input, figures: planFigures(snapshot.input, snapshot.result), result: fullResult(snapshot.result), photoIds: snapshot.photoIds ?? [] },
 		bid: found.bid,
 		homeowner: found.homeowner,
-		unit: found.unitPref,
+		// As on the leads list: the unit the contractor chose, else their language's.
+		unit: (await contractorDistanceUnit(user.id)) ?? defaultDistanceUnit(event.locals.reader.locale),
 		messages: await threadOf(event.params.id),
 		viewerId: user.id
 	};
