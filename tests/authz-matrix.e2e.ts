@@ -60,6 +60,14 @@ const matrix: Record<string, Row[]> = {
 	'POST /verify-email': [r('/verify-email', x(400, 400, 400, 400, 400, 400, 400, 400), { form: { token: 'not-a-token' } })],
 	'GET /account': [r('/account', x(303, 200, 200, 200, 200, 200, 200, 200))],
 	'POST /account?/password': [r('/account?/password', x(303, 400, 400, 400, 400, 400, 400, 400), { form: {} })],
+	'POST /account?/email': [r('/account?/email', x(303, 400, 400, 400, 400, 400, 400, 400), { form: {} })],
+	// An empty form turns every optional e-mail off for that account; statuses are all this test reads.
+	'POST /account?/notices': [r('/account?/notices', x(303, 200, 200, 200, 200, 200, 200, 200), { form: {} })],
+	// The distance unit is a contractor's setting.
+	'POST /account?/distance': [r('/account?/distance', x(303, 403, 403, 400, 400, 400, 400, 403), { form: {} })],
+	// The e-mail-change link: a page anyone may open; confirming without a valid token is refused.
+	'GET /confirm-email': [r('/confirm-email', x(200, 200, 200, 200, 200, 200, 200, 200))],
+	'POST /confirm-email': [r('/confirm-email', x(400, 400, 400, 400, 400, 400, 400, 400), { form: {} })],
 	'POST /account?/resend': [r('/account?/resend', x(303, 400, 400, 400, 400, 400, 400, 400), { form: {} })],
 	'GET /messages': [r('/messages', x(303, 200, 200, 200, 200, 200, 200, 403))],
 
@@ -100,10 +108,8 @@ const matrix: Record<string, Row[]> = {
 	'POST /plans/[id]/bids?/accept': [
 		r('/plans/{planA}/bids?/accept', x(303, 400, 404, 403, 403, 403, 403, 403), { form: {} }),
 		// Plan B's page, plan A's bid.
-		r('/plans/{planB}/bids?/accept', x(303, 404, 404, 403, 403, 403, 403, 403), { form: { bid: '{bidA}' } })
+		r('/plans/{planB}/bids?/accept', x(303, 404, 404, 403, 403, 403, 403, 403), { form: { bid: '{bidA}', siteAddress: '12 Alder Street, Albany', phone: '(541) 555-0100' } })
 	],
-	// Plan A has an open request and no hired firm: closing it runs last (it ends the leads).
-	'POST /plans/[id]/bids?/close': [r('/plans/{planA}/bids?/close', x(303, 200, 404, 403, 403, 403, 403, 403), { form: {}, last: true })],
 	'POST /plans/[id]/bids?/done': [r('/plans/{planA}/bids?/done', x(303, 409, 404, 403, 403, 403, 403, 403), { form: {} })],
 	'POST /plans/[id]/bids?/reopen': [r('/plans/{planA}/bids?/reopen', x(303, 409, 404, 403, 403, 403, 403, 403), { form: {} })],
 	'GET /plans/[id]/bids/[leadId]': [
@@ -141,6 +147,8 @@ const matrix: Record<string, Row[]> = {
 	'POST /pro/leads/[id]?/withdraw': [r('/pro/leads/{leadA}?/withdraw', x(303, 403, 403, 403, 200, 404, 403, 403), { form: {}, last: true })],
 	// Runs after the withdraw above, so the lead's own contractor finds it closed (409).
 	'POST /pro/leads/[id]?/decline': [r('/pro/leads/{leadA}?/decline', x(303, 403, 403, 403, 409, 404, 403, 403), { form: { reason: 'Booked all season.' }, last: true })],
+	// After the withdraw and decline above (last rows run in this order): closing plan A's request ends its leads.
+	'POST /plans/[id]/bids?/close': [r('/plans/{planA}/bids?/close', x(303, 200, 404, 403, 403, 403, 403, 403), { form: {}, last: true })],
 	'GET /pro/leads/[id]/photos/[photoId]': [
 		r('/pro/leads/{leadA}/photos/{photoA}', x(303, 403, 403, 403, 200, 404, 403, 403)),
 		r('/pro/leads/{leadA}/photos/{photoB}', x(303, 403, 403, 403, 404, 404, 403, 403))
@@ -155,6 +163,10 @@ const matrix: Record<string, Row[]> = {
 	'GET /admin': [r('/admin', x(303, 403, 403, 403, 403, 403, 403, 200))],
 	'GET /admin/audit': [r('/admin/audit', x(303, 403, 403, 403, 403, 403, 403, 200))],
 	'GET /admin/users': [r('/admin/users', x(303, 403, 403, 403, 403, 403, 403, 200))],
+	'GET /admin/users/[id]': [r('/admin/users/{user.ownerB}', x(303, 403, 403, 403, 403, 403, 403, 200))],
+	// No reason given: the admin gets the form's 400 and nothing changes.
+	'POST /admin/users/[id]?/disable': [r('/admin/users/{user.ownerB}?/disable', x(303, 403, 403, 403, 403, 403, 403, 400), { form: {} })],
+	'POST /admin/users/[id]?/enable': [r('/admin/users/{user.ownerB}?/enable', x(303, 403, 403, 403, 403, 403, 403, 400), { form: {} })],
 	'GET /admin/expiring': [r('/admin/expiring', x(303, 403, 403, 403, 403, 403, 403, 200))],
 	'GET /admin/contractors/[id]': [r('/admin/contractors/{user.withLead}', x(303, 403, 403, 403, 403, 403, 403, 200))],
 	'POST /admin/contractors/[id]?/approve': [r('/admin/contractors/{user.withLead}?/approve', x(303, 403, 403, 403, 403, 403, 403, 409), { form: {} })],
@@ -187,7 +199,10 @@ function routesInFolder(): Map<string, 'page' | 'action' | 'server'> {
 				const block = text().split('export const actions')[1];
 				if (!block) continue;
 				const body = block.slice(0, block.search(/\n\}/));
-				for (const m of body.matchAll(/^\t(\w+)\s*[:(]/gm)) out.set(m[1] === 'default' ? `POST ${route}` : `POST ${route}?/${m[1]}`, 'action');
+				const names = [...body.matchAll(/^\t(\w+)\s*[:(]/gm)].map((m) => m[1]);
+				// Actions written on one line would be missed silently: say so instead.
+				if (!names.length) throw new Error(`${p}: write its actions one per line, so this test can list them`);
+				for (const n of names) out.set(n === 'default' ? `POST ${route}` : `POST ${route}?/${n}`, 'action');
 			} else if (e.name === '+server.ts') {
 				for (const m of text().matchAll(/export\s+(?:const|async function|function)\s+(GET|POST|PUT|PATCH|DELETE|HEAD|OPTIONS|fallback)\b/g)) out.set(`${m[1]} ${route}`, 'server');
 			}

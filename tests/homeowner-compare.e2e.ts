@@ -86,6 +86,9 @@ test('a homeowner compares bids for two kinds of work, one kind at a time, and a
 	await page.reload({ waitUntil: 'networkidle' });
 	await expect(page.getByTestId('compared-scope')).toHaveText('Pour and finish');
 	await rows.first().getByText('Accept…').click();
+	// The hired firm gets the site address and a phone number, asked for here.
+	await rows.first().getByLabel('Site address').fill('18 Larch Row, Albany');
+	await rows.first().getByLabel('Phone for the contractor').fill('(541) 555-0142');
 	await rows.first().getByRole('button', { name: 'Yes, accept this bid' }).click();
 	await expect(page.getByText('Bid accepted.')).toBeVisible();
 	await expect(page.getByTestId('compared-scope')).toHaveText('Pour and finish');

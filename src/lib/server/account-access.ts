@@ -1,6 +1,7 @@
 import { eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
-import { auditLog, session, user } from '$lib/server/db/schema';
+import { auditLog, contractor, session, user } from '$lib/server/db/schema';
+import { tellHomeownersOfContractorChange } from './leads';
 import { deliverSoon, queueMail } from './mail';
 import { accountAccessMail } from './mail/templates';
 
@@ -35,6 +36,11 @@ export async function setAccountDisabled(admin: Admin, userId: string, disable: 
 			createdAt: now
 		});
 		await queueMail(u.email, accountAccessMail(u.emailVerifiedAt ? u.name : '', disable, reason, origin), tx);
+		// Homeowners waiting on an approved firm are told, as for a suspension: its bids cannot be accepted meanwhile.
+		if (u.role === 'contractor') {
+			const [c] = await tx.select({ status: contractor.status, business: contractor.businessName }).from(contractor).where(eq(contractor.userId, userId));
+			if (c?.status === 'approved') await tellHomeownersOfContractorChange(tx, userId, c.business ?? u.name, disable ? 'suspended' : 'active', origin);
+		}
 		return true;
 	});
 	deliverSoon();

@@ -24,6 +24,7 @@ import {
 import { matchContractors, placeOf } from './matching';
 import { deletePlan, PlanHasLeads } from './plans';
 import { createUser } from './users';
+import { setAccountDisabled } from './account-access';
 import { decide } from './vetting';
 
 afterAll(async () => {
@@ -175,6 +176,35 @@ describe('leads', () => {
 		await expect(saveBid(a.id, leadOf(a.id), bidInput(9999), origin)).rejects.toThrow(/closed/);
 		const mails = await db.select().from(mailOutbox).where(eq(mailOutbox.to, b.email));
 		expect(mails.some((m) => /was not selected/.test(m.subject))).toBe(true);
+	});
+
+	it('tell a firm that never bid that another firm was hired, not that its bid lost', async () => {
+		const [a, quiet] = await Promise.all(['Hazel', 'Quince'].map((n) => approvedContractor(n, { postcode: HOME_ZIP, radius: 10, unit: 'mi' })));
+		const { owner, plan: p } = await homeownerWithPlan();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'within_month', notes: '', contractors: [a.id, quiet.id] }, origin);
+		const leads = await db.select().from(lead).where(eq(lead.planId, p.id));
+		const leadOf = (id: string) => leads.find((l) => l.contractorId === id)!.id;
+		expect(await saveBid(a.id, leadOf(a.id), bidInput(2400), origin)).toBe(true);
+		const [bidA] = await db.select().from(bid).where(eq(bid.leadId, leadOf(a.id)));
+		expect(await acceptBid(owner.id, p.id, bidA.id, origin, site)).toBe(true);
+		const subjects = (await db.select().from(mailOutbox).where(eq(mailOutbox.to, quiet.email))).map((m) => m.subject);
+		expect(subjects.some((t) => /another firm was hired/.test(t))).toBe(true);
+		expect(subjects.some((t) => /bid .* not selected/.test(t))).toBe(false);
+	});
+
+	it('take a disabled firm out of matching, refuse its bids, and tell the homeowners waiting on it', async () => {
+		const firm = await approvedContractor('Juniper', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
+		const { owner, plan: p } = await homeownerWithPlan();
+		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'within_month', notes: '', contractors: [firm.id] }, origin);
+		const [l] = await db.select().from(lead).where(eq(lead.planId, p.id));
+		expect(await saveBid(firm.id, l.id, bidInput(2400), origin)).toBe(true);
+		const admin = await createUser({ name: 'Desk Admin', email: `desk-${Date.now()}@example.test`, password: 'long-enough-pass', role: 'admin', verified: true });
+		expect(await setAccountDisabled(admin, firm.id, true, 'Complaints under review.', origin)).toBe(true);
+		const told = (await db.select().from(mailOutbox).where(eq(mailOutbox.to, owner.email))).map((m) => m.subject);
+		expect(told.some((t) => /Juniper.* is suspended for now/.test(t))).toBe(true);
+		expect((await matchContractors(placeOf(HOME_ZIP)!, 'whole_job')).map((c) => c.id)).not.toContain(firm.id);
+		const [b] = await db.select().from(bid).where(eq(bid.leadId, l.id));
+		await expect(acceptBid(owner.id, p.id, b.id, origin, site)).rejects.toBeInstanceOf(LeadRefused);
 	});
 
 	it('let exactly one of two concurrent accepts win', async () => {

@@ -213,8 +213,12 @@ export async function acceptBid(ownerId: string, planId: string, bidId: string, 
 		const [won] = await tx.select({ status: lead.status }).from(lead).where(eq(lead.id, b.leadId)).for('update');
 		const wonTo = step(won.status, 'accept', 'This request is no longer open.');
 		// A contractor sent back to review, suspended or with an expired licence or insurance since bidding cannot be hired through Stakeline.
-		const [c] = await tx.select({ status: contractor.status, current: credentialsCurrentSql(today()) }).from(contractor).where(eq(contractor.userId, b.contractorId));
-		if (c?.status !== 'approved') throw new LeadRefused('This contractor is not approved at the moment, so the bid cannot be accepted.');
+		const [c] = await tx
+			.select({ status: contractor.status, current: credentialsCurrentSql(today()), disabledAt: user.disabledAt })
+			.from(contractor)
+			.innerJoin(user, eq(user.id, contractor.userId))
+			.where(eq(contractor.userId, b.contractorId));
+		if (c?.status !== 'approved' || c.disabledAt) throw new LeadRefused('This contractor is not approved at the moment, so the bid cannot be accepted.');
 		if (!c.current) throw new LeadRefused('This contractor’s licence or insurance has expired, so the bid cannot be accepted until they renew it.');
 		await saveJobContact(tx, planId, contact);
 		const now = new Date();
@@ -227,8 +231,12 @@ export async function acceptBid(ownerId: string, planId: string, bidId: string, 
 			.set({ status: 'not_selected', updatedAt: now })
 			.where(and(eq(lead.planId, planId), ne(lead.id, b.leadId), inArray(lead.status, statusesMovedBy('accept_other', openLeadStatuses))))
 			.returning({ id: lead.id });
-		for (const to of await leadContractors(tx, [b.leadId, ...others.map((o) => o.id)]))
-			await queueMail(to.email, bidDecisionMail(to.name, to.leadId === b.leadId, to.town ?? 'you', leadUrl(origin, to.leadId)), tx);
+		// A firm that never bid is told another firm was hired, not that a bid of theirs lost.
+		const bidOn = new Set((await tx.select({ leadId: bid.leadId }).from(bid).where(eq(bid.planId, planId))).map((r) => r.leadId));
+		for (const to of await leadContractors(tx, [b.leadId, ...others.map((o) => o.id)])) {
+			const outcome = to.leadId === b.leadId ? 'won' : bidOn.has(to.leadId) ? 'not_selected' : 'hired_other';
+			await queueMail(to.email, bidDecisionMail(to.name, outcome, to.town ?? 'you', leadUrl(origin, to.leadId)), tx);
+		}
 		return true;
 	});
 	deliverSoon();

@@ -79,10 +79,13 @@ export const newBidMail = (name: string, business: string, planName: string, upd
 		url
 	);
 
-export const bidDecisionMail = (name: string, won: boolean, town: string, url: string) =>
-	won
+/** To each firm a plan was sent to, when the homeowner hires one: won, not selected, or (no bid sent) closed. */
+export const bidDecisionMail = (name: string, outcome: 'won' | 'not_selected' | 'hired_other', town: string, url: string) =>
+	outcome === 'won'
 		? simple('bid_result', `Your bid near ${town} was accepted`, name, ['The homeowner accepted your bid. Their contact details are now on the lead page.'], 'Open the lead', url)
-		: simple('bid_result', `Your bid near ${town} was not selected`, name, ['The homeowner chose another bid for this plan. Thank you for bidding.'], 'Open the lead', url);
+		: outcome === 'not_selected'
+			? simple('bid_result', `Your bid near ${town} was not selected`, name, ['The homeowner chose another bid for this plan. Thank you for bidding.'], 'Open the lead', url)
+			: simple('bid_result', `A lead near ${town} is closed: another firm was hired`, name, ['The homeowner hired another firm for this plan before you sent a bid, so the lead is closed. Nothing else changes on your account.'], 'Open the lead', url);
 
 export const newMessageMail = (name: string, from: string, url: string) =>
 	simple('message', `New message from ${from}`, name, [`${from} wrote to you about a slab plan on Stakeline.`], 'Read the message', url);

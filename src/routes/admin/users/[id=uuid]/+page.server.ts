@@ -49,4 +49,7 @@ const access = (disable: boolean) => async (event: RequestEvent) => {
 	return { decided: disable ? ('disabled' as const) : ('enabled' as const) };
 };
 
-export const actions = { disable: access(true), enable: access(false) } satisfies Actions;
+export const actions = {
+	disable: access(true),
+	enable: access(false)
+} satisfies Actions;
