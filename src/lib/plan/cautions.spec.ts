@@ -95,6 +95,20 @@ describe('plan-specific cautions', () => {
 		expect(ids({ houseEdge: null, slope: { fall: { value: 0.5, unit: 'percent' } } })).toContain('slope-flat'); // ⅛ in/ft, common practice
 	});
 
+	it('names the house wall by its corner letters and the fix by the wizard step and field', () => {
+		const c = (input: Partial<PlanInput>) => computePlan({ ...base, ...input } as PlanInput).cautions.find((x) => x.id === 'water-toward-foundation')!;
+		const high = c({ houseEdge: { section: 0, edge: 0 }, slope: { highEdge: { section: 0, edge: 2 } } });
+		expect(high.reason).toMatch(/house wall edge A–B /);
+		expect(high.reason).toMatch(/falls \d[\d.]* % toward the house/);
+		expect(high.action).toMatch(/Pitch step.*High side.*Cross fall/);
+		const level = c({ houseEdge: { section: 0, edge: 0 }, slope: { fall: { value: 0, unit: 'percent' } } });
+		expect(level.reason).toMatch(/edge A–B the surface is level/);
+		expect(level.action).toMatch(/Pitch step, raise Fall/);
+		const two = c({ sections: [{ outline: rect(0, 0, 10, 8) }, { name: 'Walk', outline: rect(10, 0, 14, 8) }], houseEdge: { section: 1, edge: 1 }, slope: { highEdge: { section: 0, edge: 3 } } });
+		expect(two.reason).toMatch(/edge 2B–2C of Walk/);
+		for (const x of [high, level, two]) expect(`${x.reason} ${x.action}`).not.toMatch(/slope\.|highEdge|edge \d+[ ,.]/);
+	});
+
 	it('flags cold, hot and fast-drying weather', () => {
 		expect(ids({ conditions: { airTemp: 38 } })).toContain('cold-weather'); // 38 °F ≤ 40 °F, ACI 306R
 		expect(ids({ conditions: { airTemp: 55, airLow: 34 } })).toContain('cold-weather'); // a 34 °F night, ACI 306R

@@ -46,6 +46,14 @@ export const IRC_R402_2 = {
 /** IRC R506.1 / ACI 332: slabs on ground at least 3½ in (89 mm). */
 export const MIN_THICKNESS_M = 3.5 * M_PER_IN;
 
+/** An edge by the corner letters the wizard and the layout sheet use: "edge D–E", or "edge 2A–2B" with several pours. */
+export function edgeLabel(m: Pick<Model, 'sections'>, s: number, e: number): string {
+	const many = m.sections.length > 1;
+	const n = m.sections[s].outline.length;
+	const at = (v: number) => `${many ? s + 1 : ''}${String.fromCharCode(65 + (v % 26)) + (v >= 26 ? Math.floor(v / 26) : '')}`;
+	return `edge ${at(e)}–${at((e + 1) % n)}`;
+}
+
 const one = (x: number, d = 1) => String(Math.round(x * 10 ** d) / 10 ** d);
 
 /** Modulus of rupture, ACI 318-19 §19.2.3: 7.5 √f'c psi, or 0.62 √f'c MPa. */
@@ -194,11 +202,17 @@ const drainage: Rule[] = [
 	({ m, elevations: e }) => {
 		const bad = e.houseEdges.filter((h) => h.fallAway.percent <= 0);
 		if (!bad.length) return null;
+		const walls = bad.map((h) => `${edgeLabel(m, h.section, h.edge)}${m.sections.length > 1 ? ` of ${m.sections[h.section].name}` : ''}`);
+		const worst = -Math.min(...bad.map((h) => h.fallAway.percent));
+		const high = m.highEdge;
+		const highIsBad = bad.some((h) => h.section === high.section && h.edge === high.edge);
 		return {
 			id: 'water-toward-foundation',
 			title: 'Water would run toward the foundation',
-			reason: `Along ${bad.map((h) => `${m.sections[h.section].name}, edge ${h.edge + 1},`).join(', ')} the surface falls ${one(-Math.min(...bad.map((h) => h.fallAway.percent)), 2)} % toward the house or not at all.`,
-			action: 'Make the house side the high side (set slope.highEdge to the house edge) or add a cross fall so every edge along the house falls away.',
+			reason: `Along the house wall ${walls.join(' and ')} the surface ${worst > 0.005 ? `falls ${one(worst, 2)} % toward the house` : 'is level, so water stands against the house'}.`,
+			action: highIsBad
+				? `In the Pitch step, raise Fall so the surface falls at least 2 % away from the house wall ${walls[0]}.`
+				: `In the Pitch step, choose the house wall ${walls[0]} as High side, or enter a Cross fall (under "Fall along the high side") so every house wall falls away from the house.`,
 			source: 'IRC R401.3',
 			severity: 'danger'
 		};
