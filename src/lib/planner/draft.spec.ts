@@ -3,7 +3,7 @@ import { computePlan } from '$lib/plan';
 import { completeInput, PlanDraft, starterInput } from './draft.svelte';
 import { editableCopy, sameData } from './editable';
 import { EditHistory } from './history.svelte';
-import { detectPreset, presetHouse, presetOutline } from './presets';
+import { detectPreset, presetCrossFall, presetHouse, presetOutline } from './presets';
 import { lShape } from './shapes';
 
 /** Every object and array reachable from v, v included. */
@@ -93,6 +93,21 @@ describe('shape presets', () => {
 		input.otherHouseEdges = [];
 		expect(detectPreset(input).house).toBe('none');
 		expect(detectPreset(starterInput())).toMatchObject({ shape: 'rectangle', length: 12, width: 10, house: 'side' });
+	});
+});
+
+describe('the house-corner preset', () => {
+	it.each([
+		{ value: 2, unit: 'percent' as const },
+		{ value: 0.25, unit: 'inPerFt' as const },
+		{ value: 3, unit: 'totalDrop' as const }
+	])('falls away from both walls (IRC R401.3) with the fall as %o', (fall) => {
+		const p = { shape: 'l' as const, length: 16, width: 12, notchLength: 6, notchWidth: 5, house: 'corner' as const };
+		const [houseEdge, ...otherHouseEdges] = presetHouse(p);
+		const r = computePlan(completeInput({ units: 'imperial', sections: [{ outline: presetOutline(p) }], houseEdge, otherHouseEdges, slope: { fall, crossFall: presetCrossFall(p, fall) } })!);
+		expect(r.elevations.houseEdges).toHaveLength(2);
+		for (const h of r.elevations.houseEdges) expect(h.fallAway.percent).toBeGreaterThan(0);
+		expect(r.cautions.map((c) => c.id)).not.toContain('water-toward-foundation');
 	});
 });
 

@@ -17,6 +17,19 @@ export function presetHouse(p: Preset): EdgeRef[] {
 	return [{ section: 0, edge: 0 }];
 }
 
+type Rate = ParsedPlan['slope']['fall'];
+
+/**
+ * The cross fall a preset starts with. Around a house corner the high side is the first wall
+ * (C–D) and the fall runs away from it; a cross fall of the same rate toward D then also runs the
+ * water away from the second wall (D–E), so both walls shed water (IRC R401.3). A total drop is
+ * not a rate along the other wall, so that case starts from 2 %.
+ */
+export function presetCrossFall(p: Preset, fall: Rate): Rate {
+	if (p.house !== 'corner' || p.shape !== 'l') return { value: 0, unit: fall.unit === 'totalDrop' ? 'percent' : fall.unit };
+	return fall.unit !== 'totalDrop' && fall.value > 0 ? { ...fall } : { value: 2, unit: 'percent' };
+}
+
 const same = (a: Pt[], b: Pt[]) => a.length === b.length && a.every((p, i) => p[0] === b[i][0] && p[1] === b[i][1]);
 
 /**
