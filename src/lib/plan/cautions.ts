@@ -198,6 +198,20 @@ const oilRelease: Rule = ({ m }) =>
 				severity: 'warning'
 			};
 
+/** A slab top above the door sill or the slab it meets sends water in under the door. */
+const aboveReference: Rule = ({ m }) =>
+	m.reference.below >= 0
+		? null
+		: {
+				id: 'above-reference',
+				title: `The slab would finish above the ${m.reference.label}`,
+				reason: `The Site step puts the high point of the slab ${m.units === 'metric' ? `${Math.round(-m.reference.below * 1000)} mm` : `${one(-m.reference.below / M_PER_IN, 2)} in`} above the ${m.reference.label}, so water running off it can reach the ${m.reference.label} and get in under a door or against the wall.`,
+				action: 'In the Site step, enter a positive "High point of the slab below it by": most slabs finish a little below a door sill or the slab they meet.',
+				// IRC R311.3 (landing at most 1½ in below the threshold) and R401.3: section numbers from memory
+				source: 'IRC R311.3 and R401.3',
+				severity: 'warning'
+			};
+
 const drainage: Rule[] = [
 	({ m, elevations: e }) => {
 		const bad = e.houseEdges.filter((h) => h.fallAway.percent <= 0);
@@ -369,7 +383,7 @@ const build: Rule[] = [
 				}
 ];
 
-const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, loads, ...freezeThaw, fillNearSurface, oilRelease, ...drainage, ...weatherRules, ...crew, ...build];
+const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, loads, ...freezeThaw, fillNearSurface, oilRelease, aboveReference, ...drainage, ...weatherRules, ...crew, ...build];
 
 export function computeCautions(c: CautionContext): Caution[] {
 	return RULES.map((r) => r(c)).filter((x): x is Caution => x !== null);
