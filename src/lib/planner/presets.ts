@@ -6,6 +6,20 @@ import { lShape, rectangle, type Pt } from './shapes';
 export type HouseSide = 'side' | 'corner' | 'none';
 export type Preset = { shape: 'rectangle' | 'l'; length: number; width: number; notchLength: number; notchWidth: number; house: HouseSide };
 
+/** Why the preset form cannot make a shape, naming the field to fix; null when it can. */
+export function presetProblem(p: Preset, units: 'imperial' | 'metric'): string | null {
+	const u = units === 'imperial' ? 'ft' : 'm';
+	const ok = (v: number) => typeof v === 'number' && Number.isFinite(v) && v > 0;
+	if (!ok(p.length)) return `Enter the length (A–B), above 0 ${u}.`;
+	if (!ok(p.width)) return `Enter the width (B–C side), above 0 ${u}.`;
+	if (p.shape === 'rectangle') return null;
+	if (!ok(p.notchLength)) return `Enter the notch length (C–D), above 0 ${u}.`;
+	if (!ok(p.notchWidth)) return `Enter the notch width (D–E), above 0 ${u}.`;
+	if (p.notchLength >= p.length) return `The notch length (C–D) must be less than the length (A–B), ${p.length} ${u}.`;
+	if (p.notchWidth >= p.width) return `The notch width (D–E) must be less than the width (B–C side), ${p.width} ${u}.`;
+	return null;
+}
+
 export function presetOutline(p: Preset): Pt[] {
 	return p.shape === 'rectangle' ? rectangle(p.length, p.width) : lShape(p.length, p.width, p.notchLength, p.notchWidth);
 }
