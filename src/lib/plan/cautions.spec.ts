@@ -109,6 +109,30 @@ describe('plan-specific cautions', () => {
 		for (const x of [high, level, two]) expect(`${x.reason} ${x.action}`).not.toMatch(/slope\.|highEdge|edge \d+[ ,.]/);
 	});
 
+	it('warns when the slab would finish above the door sill, and names an unnamed reference', () => {
+		expect(ids({ reference: { label: 'door sill', below: 1 } })).not.toContain('above-reference');
+		const c = computePlan({ ...base, reference: { label: 'door sill', below: -0.5 } }).cautions.find((x) => x.id === 'above-reference')!;
+		expect(c.severity).toBe('warning');
+		expect(c.reason).toMatch(/0\.5 in above the door sill/);
+		const unnamed = computePlan({ ...base, reference: { label: '  ', below: -1 } });
+		expect(unnamed.cautions.find((x) => x.id === 'above-reference')!.title).toBe('The slab would finish above the reference mark');
+		expect(unnamed.elevations.reference.label).toBe('reference mark');
+		expect(JSON.stringify(unnamed)).not.toMatch(/the \./);
+	});
+
+	it('the day plan coats the boards as the Build-up step chose, so it never contradicts the oil caution', () => {
+		const forms = (release: 'agent' | 'oil' | 'none') => {
+			const r = computePlan({ ...base, forms: { release } });
+			return { text: r.schedule.days.flatMap((d) => d.tasks).find((t) => t.id === 'forms')!.text, ids: r.cautions.map((c) => c.id) };
+		};
+		expect(forms('agent').text).toMatch(/release agent/);
+		const oil = forms('oil');
+		expect(oil.ids).toContain('form-release-oil');
+		expect(oil.text).not.toMatch(/release agent/);
+		expect(oil.text).toMatch(/never used motor oil/);
+		expect(forms('none').text).toMatch(/no release coat/);
+	});
+
 	it('flags cold, hot and fast-drying weather', () => {
 		expect(ids({ conditions: { airTemp: 38 } })).toContain('cold-weather'); // 38 °F ≤ 40 °F, ACI 306R
 		expect(ids({ conditions: { airTemp: 55, airLow: 34 } })).toContain('cold-weather'); // a 34 °F night, ACI 306R

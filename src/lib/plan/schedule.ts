@@ -249,7 +249,13 @@ export function buildSchedule(
 	add(1, 'locate', `Call 811 (or your one-call number) at least ${LOCATE_WORKING_DAYS} working days before digging, and wait until every utility has marked or cleared (state one-call law rules the notice).`);
 	add(digDay, 'layout', 'Check the utility marks are all in; lay out the outline with stakes and string; mark the high point from the reference.');
 	add(digDay, 'dig', 'Dig to slab thickness plus base depth, the base past the forms, and the trenches for any thickened edges; dig by hand near any marks.');
-	add(digDay + 1, 'forms', 'Set the form boards and stakes to the level-line table; coat the boards with release agent.');
+	// The coat follows the Build-up step's choice (oil: see the form-release-oil caution).
+	const coat = {
+		agent: 'coat the boards thinly with the form release agent.',
+		oil: 'you chose oil to keep concrete off the boards: use a thin film of clean form oil, never used motor oil (see the cautions).',
+		none: 'you chose no release coat: wet the boards before the pour and strip them with care.'
+	}[m.forms.release];
+	add(digDay + 1, 'forms', `Set the form boards and stakes to the level-line table; ${coat}`);
 	add(digDay + 1, 'base', 'Spread the base and compact it in lifts; fit the isolation strip against the house.');
 	if (m.reinforcement === 'mesh' || m.reinforcement === 'rebar')
 		add(digDay + 1, 'reinforcement', 'Lay the reinforcement on chairs so it ends up within the slab, not on the ground.');
