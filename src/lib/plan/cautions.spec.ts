@@ -26,6 +26,13 @@ describe('every plan', () => {
 		expect(sev(50)).toBe('info'); // 50 lb = 22.68 kg < 23 kg, NIOSH Pub. 94-110
 	});
 
+	it('names a metric bag once, in kg, and the load constant in the plan\'s unit first', () => {
+		const reason = (input: PlanInput) => computePlan(input).cautions.find((x) => x.id === 'bag-weight')!.reason;
+		const met = reason({ units: 'metric', sections: [{ outline: rect(0, 0, 3, 2) }], bags: { offered: [{ size: 40 }] } });
+		expect(met).toMatch(/^The 40 kg bags are over the NIOSH load constant of 23 kg \(51 lb\)/);
+		expect(reason({ ...base, bags: { offered: [{ size: 80 }] } })).toMatch(/^The 80 lb bags \(36\.3 kg\) are over the NIOSH load constant of 51 lb \(23 kg\)/);
+	});
+
 	it('calls the utility locate 3 working days ahead', () => {
 		expect(computePlan(base).cautions.find((x) => x.id === 'utility-locate')!.action).toMatch(/3 working days/); // state one-call laws, 2–3 days
 	});

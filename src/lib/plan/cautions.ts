@@ -95,7 +95,7 @@ const bagWeight: Rule = ({ mixing }) => {
 	return {
 		id: 'bag-weight',
 		title: over ? 'Each bag weighs more than the NIOSH load constant' : 'Lifting bags from the ground',
-		reason: `The ${one(mixing.bag.size)} ${mixing.bag.unit} bags (${one(kg)} kg) are ${over ? 'over' : 'near'} the NIOSH load constant of 23 kg (51 lb), and lifting from the ground lowers the recommended limit well below it; the crew handles about ${mixing.bagsPerPerson} bags each.`,
+		reason: `The ${one(mixing.bag.size)} ${mixing.bag.unit} bags${mixing.bag.unit === 'kg' ? '' : ` (${one(kg)} kg)`} are ${over ? 'over' : 'near'} the NIOSH load constant of ${mixing.bag.unit === 'kg' ? '23 kg (51 lb)' : '51 lb (23 kg)'}, and lifting from the ground lowers the recommended limit well below it; the crew handles about ${mixing.bagsPerPerson} bags each.`,
 		action: 'Lift with two people or slide bags at waist height from the vehicle; choose a smaller bag size; take turns.',
 		source: 'NIOSH Revised Lifting Equation, Pub. 94-110',
 		severity: over ? 'warning' : 'info'
