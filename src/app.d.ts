@@ -6,6 +6,7 @@ declare global {
 		interface Locals {
 			user: import('$lib/server/auth').SessionValidationResult['user'];
 			session: import('$lib/server/auth').SessionValidationResult['session'];
+			reader: import('$lib/reader').Reader;
 		}
 		interface Error {
 			message: string;

@@ -1,6 +1,8 @@
 import type { Handle, ServerInit } from '@sveltejs/kit';
 import { requestHandle, serverErrorHandler } from '$lib/server/requests';
 import { sequence } from '@sveltejs/kit/hooks';
+import { readerLocale } from '$lib/components/plan/format';
+import { TIME_ZONE_COOKIE, validTimeZone } from '$lib/reader';
 import { building } from '$app/environment';
 import { env } from '$env/dynamic/private';
 import * as auth from '$lib/server/auth';
@@ -19,6 +21,15 @@ export const init: ServerInit = async () => {
 	startSweeper(env.ORIGIN ?? `http://${env.HOST ?? '127.0.0.1'}:${env.PORT ?? '3000'}`);
 	// Let mail already being sent finish before the pool closes.
 	process.on('sveltekit:shutdown', () => void mailIdle().then(() => client.end({ timeout: 5 })));
+};
+
+/** The reader's locale (Accept-Language) and time zone (the browser's cookie, else UTC), for dates. */
+const handleReader: Handle = ({ event, resolve }) => {
+	event.locals.reader = {
+		locale: readerLocale(event.request.headers.get('accept-language')),
+		timeZone: validTimeZone(event.cookies.get(TIME_ZONE_COOKIE))
+	};
+	return resolve(event);
 };
 
 const handleAuth: Handle = async ({ event, resolve }) => {
@@ -48,5 +59,5 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 };
 
 // Request log and the database-down 503 come first, so they see every other hook's outcome.
-export const handle = sequence(requestHandle(), handleAuth, securityHeaders);
+export const handle = sequence(requestHandle(), handleReader, handleAuth, securityHeaders);
 export const handleError = serverErrorHandler();

@@ -102,6 +102,9 @@ const matrix: Record<string, Row[]> = {
 		// Plan B's page, plan A's bid.
 		r('/plans/{planB}/bids?/accept', x(303, 404, 404, 403, 403, 403, 403, 403), { form: { bid: '{bidA}' } })
 	],
+	// Plan A has an open request and no hired firm: closing it runs last (it ends the leads).
+	'POST /plans/[id]/bids?/close': [r('/plans/{planA}/bids?/close', x(303, 200, 404, 403, 403, 403, 403, 403), { form: {}, last: true })],
+	'POST /plans/[id]/bids?/done': [r('/plans/{planA}/bids?/done', x(303, 409, 404, 403, 403, 403, 403, 403), { form: {} })],
 	'POST /plans/[id]/bids?/reopen': [r('/plans/{planA}/bids?/reopen', x(303, 409, 404, 403, 403, 403, 403, 403), { form: {} })],
 	'GET /plans/[id]/bids/[leadId]': [
 		r('/plans/{planA}/bids/{leadA}', x(303, 200, 404, 403, 403, 403, 403, 403)),
@@ -152,6 +155,7 @@ const matrix: Record<string, Row[]> = {
 	'GET /admin': [r('/admin', x(303, 403, 403, 403, 403, 403, 403, 200))],
 	'GET /admin/audit': [r('/admin/audit', x(303, 403, 403, 403, 403, 403, 403, 200))],
 	'GET /admin/users': [r('/admin/users', x(303, 403, 403, 403, 403, 403, 403, 200))],
+	'GET /admin/expiring': [r('/admin/expiring', x(303, 403, 403, 403, 403, 403, 403, 200))],
 	'GET /admin/contractors/[id]': [r('/admin/contractors/{user.withLead}', x(303, 403, 403, 403, 403, 403, 403, 200))],
 	'POST /admin/contractors/[id]?/approve': [r('/admin/contractors/{user.withLead}?/approve', x(303, 403, 403, 403, 403, 403, 403, 409), { form: {} })],
 	'POST /admin/contractors/[id]?/sendBack': [r('/admin/contractors/{user.withLead}?/sendBack', x(303, 403, 403, 403, 403, 403, 403, 400), { form: {} })],

@@ -1,7 +1,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import { formatMoney } from '../src/lib/leads';
-import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
-import { approvedNewContractor, bumpPlanRevision, insertPlan, proMailLink } from './pro-helpers';
+import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { approvedNewContractor, bumpPlanRevision, insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
 test.describe.configure({ timeout: 300_000 });
@@ -51,7 +51,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	// The new contractor follows the e-mail to the lead: the plan, town and distance, no homeowner contact.
 	await signIn(page, pro.email, pro.password);
 	await expect(page).toHaveURL(/\/pro$/);
-	const leadLink = await proMailLink(page, pro.email, /New lead near Albany, OR/);
+	const leadLink = await mailLink(page, pro.email, /New lead near Albany, OR/, { timeout: 60_000 });
 	await page.goto(leadLink);
 	await expect(page.getByRole('heading', { name: 'Back patio' })).toBeVisible();
 	await expect(page.getByText(/Albany, OR · 0(\.\d)? mi from you/)).toBeVisible();
@@ -98,7 +98,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	// The homeowner compares and accepts.
 	await signIn(page, homeEmail, 'my-back-patio');
 	await expect(page).toHaveURL(/\/plans$/);
-	const bidMail = await proMailLink(page, homeEmail, new RegExp(`New bid from ${pro.business}`));
+	const bidMail = await mailLink(page, homeEmail, new RegExp(`New bid from ${pro.business}`), { timeout: 60_000 });
 	expect(bidMail).toContain(`/plans/${planId}/bids`);
 	await page.goto(`/plans/${planId}/bids`);
 	const rows = page.getByTestId('bid-row');
@@ -148,7 +148,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await page.getByLabel('Write to Nell Quarry').fill('Saturday works. I will bring the forms on Friday.');
 	await page.getByRole('button', { name: 'Send the message' }).click();
 	await expect(page.getByTestId('messages')).toContainText('Saturday works.');
-	expect(await proMailLink(page, pro.email, /bid near Albany, OR was accepted/)).toBe(leadUrl);
+	expect(await mailLink(page, pro.email, /bid near Albany, OR was accepted/, { timeout: 60_000 })).toBe(leadUrl);
 	await signOut(page);
 
 	await signIn(page, demoUser('contractor').email, demoPassword);
@@ -218,7 +218,7 @@ test('a contractor who has the plan learns of a newer revision and keeps seeing 
 
 	await signIn(page, demoUser('contractor').email, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
-	await page.goto(await proMailLink(page, 'dell@ridgebackflatwork.example', /newer plan revision/));
+	await page.goto(await mailLink(page, 'dell@ridgebackflatwork.example', /newer plan revision/, { timeout: 60_000 }));
 	await expect(page.getByRole('heading', { name: 'Shed pad', exact: true })).toBeVisible();
 	await expect(page.getByText('re-sent this plan as revision 2. This page shows revision 1')).toBeVisible();
 });

@@ -27,7 +27,7 @@ export async function signUp(page: Page, o: { name: string; email: string; passw
 	await page.getByLabel('Password', { exact: true }).fill(o.password);
 	await submitAndWait(page, 'Create account');
 	await expect(page.getByRole('heading', { name: 'Check your e-mail' })).toBeVisible();
-	await page.goto(await mailLink(page, o.email, /Confirm your e-mail/, 60_000), { waitUntil: 'networkidle' });
+	await page.goto(await mailLink(page, o.email, /Confirm your e-mail/, { timeout: 60_000 }), { waitUntil: 'networkidle' });
 	await submitAndWait(page, 'Confirm my e-mail');
 	await page.waitForURL((url) => url.pathname !== '/verify-email');
 }
@@ -52,13 +52,18 @@ export async function signOut(page: Page) {
 	await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
 }
 
-/** The newest link in a message to `email` whose subject matches, read from the fake mailbox. */
-export async function mailLink(page: Page, email: string, subject: RegExp, timeout = 15_000): Promise<string> {
+/**
+ * The first link of the newest message to `email` whose subject matches, read from the fake
+ * mailbox. `timeout` (default 15 s) is how long to keep looking; pro journeys pass a longer one,
+ * since on a loaded machine a page load alone can take seconds.
+ */
+export async function mailLink(page: Page, email: string, subject: RegExp, o: { timeout?: number } = {}): Promise<string> {
+	const timeout = o.timeout ?? 15_000;
 	let href: string | null = null;
 	await expect(async () => {
 		await page.goto(`/dev/mailbox?to=${encodeURIComponent(email)}`);
 		const mail = page.getByTestId('mail').filter({ has: page.getByRole('heading', { name: subject }) }).first();
-		href = await mail.getByTestId('mail-link').first().getAttribute('href', { timeout: 3000 });
+		href = await mail.getByTestId('mail-link').first().getAttribute('href', { timeout: Math.min(5_000, timeout / 3) });
 		expect(href).toBeTruthy();
 	}).toPass({ timeout });
 	return href!;

@@ -137,7 +137,7 @@ test('a signed-out visitor’s draft is kept through sign-up and lands in the ne
 	await page.getByRole('button', { name: 'Create account' }).click();
 	// Confirm-first: the e-mailed link signs the new account in and returns to the planner.
 	await expect(page.getByRole('heading', { name: 'Check your e-mail' })).toBeVisible();
-	await page.goto(await mailLink(page, email, /Confirm your e-mail/, 60_000), { waitUntil: 'networkidle' });
+	await page.goto(await mailLink(page, email, /Confirm your e-mail/, { timeout: 60_000 }), { waitUntil: 'networkidle' });
 	await page.getByRole('button', { name: 'Confirm my e-mail' }).click();
 	await expect(page.getByText('The plan you started before signing in is now saved to your account.')).toBeVisible();
 	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);

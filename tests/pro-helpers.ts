@@ -112,16 +112,23 @@ export async function bumpPlanRevision(planId: string) {
 }
 
 /**
- * The first link of the newest e-mail to `email` whose subject matches, read from the fake
- * mailbox; patient enough for a loaded machine, where a page load alone can take seconds.
+ * A bid from the contractor at `contractorEmail` on the lead of `planId`, stored straight in the
+ * database (the contractor's side is driven in contractor-bid.e2e.ts). Dates are days from today.
  */
-export async function proMailLink(page: Page, email: string, subject: RegExp): Promise<string> {
-	let href: string | null = null;
-	await expect(async () => {
-		await page.goto(`/dev/mailbox?to=${encodeURIComponent(email)}`);
-		const mail = page.getByTestId('mail').filter({ has: page.getByRole('heading', { name: subject }) }).first();
-		href = await mail.getByTestId('mail-link').first().getAttribute('href', { timeout: 5_000 });
-		expect(href).toBeTruthy();
-	}).toPass({ timeout: 60_000 });
-	return href!;
+export async function insertBid(planId: string, contractorEmail: string, o: { dollars: number; days: number; startIn?: number; validFor?: number; inclusions?: string }) {
+	const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+	const day = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
+	try {
+		const [l] = await sql`
+			SELECT lead.id, lead.contractor_id FROM lead JOIN "user" u ON u.id = lead.contractor_id
+			WHERE lead.plan_id = ${planId} AND u.email = ${contractorEmail}`;
+		if (!l) throw new Error(`no lead of ${contractorEmail} on plan ${planId}`);
+		await sql`
+			INSERT INTO bid (lead_id, plan_id, contractor_id, total_cents, earliest_start, duration_days, valid_until, inclusions)
+			VALUES (${l.id}, ${planId}, ${l.contractor_id}, ${o.dollars * 100}, ${day(o.startIn ?? 7)}, ${o.days}, ${day(o.validFor ?? 30)}, ${o.inclusions ?? ''})`;
+		await sql`UPDATE lead SET status = 'bid_sent' WHERE id = ${l.id}`;
+		return l.id as string;
+	} finally {
+		await sql.end();
+	}
 }

@@ -2,8 +2,8 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { formatDate } from '../src/lib/components/plan/format';
 import { respondBy } from '../src/lib/leads';
-import { demoPassword, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
-import { insertPlan, proMailLink } from './pro-helpers';
+import { demoPassword, mailLink, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
+import { insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
 test.describe.configure({ timeout: 300_000 });
@@ -62,7 +62,7 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 
 	await signIn(page, DELL, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
-	const leadUrl = await proMailLink(page, DELL, /New lead near Corvallis, OR/);
+	const leadUrl = await mailLink(page, DELL, /New lead near Corvallis, OR/, { timeout: 60_000 });
 	await page.goto(leadUrl);
 	await expect(page.getByTestId('firms-asked')).toHaveText('You are the only firm asked for this plan.');
 	await expect(page.getByTestId('respond-by')).toContainText(formatDate(due, 'en-GB'));
@@ -85,7 +85,7 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 
 	await signIn(page, DELL, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
-	expect(await proMailLink(page, DELL, /A request near Corvallis, OR was closed/)).toBe(leadUrl);
+	expect(await mailLink(page, DELL, /A request near Corvallis, OR was closed/, { timeout: 60_000 })).toBe(leadUrl);
 	await page.goto(leadUrl);
 	await expect(page.getByTestId('lead-status')).toHaveText('Request closed without hiring');
 	await expect(page.getByText('The homeowner closed this request without hiring anyone.').first()).toBeVisible();
@@ -112,7 +112,7 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 	]) {
 		await signIn(page, email, demoPassword);
 		await expect(page).toHaveURL(/\/pro$/);
-		leads[email] = await proMailLink(page, email, /New lead near Corvallis, OR/);
+		leads[email] = await mailLink(page, email, /New lead near Corvallis, OR/, { timeout: 60_000 });
 		await page.goto(leads[email]);
 		await expect(page.getByTestId('firms-asked')).toHaveText('2 firms were asked for this plan.');
 		await sendBid(page, total);
@@ -176,7 +176,7 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 
 	await signIn(page, DELL, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
-	expect(await proMailLink(page, DELL, /The job near Corvallis, OR is marked done/)).toBe(leads[DELL]);
+	expect(await mailLink(page, DELL, /The job near Corvallis, OR is marked done/, { timeout: 60_000 })).toBe(leads[DELL]);
 	await page.goto(leads[DELL]);
 	await expect(page.getByTestId('lead-status')).toHaveText('Job done');
 	await expect(page.getByTestId('site-address')).toHaveText('3 Alder Bend, Corvallis');
@@ -204,6 +204,6 @@ test('the admin sees credentials running out, and the firm sees its dates on the
 	await signIn(page, JUNE, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	await expect(page.getByTestId('credential-dates')).toContainText(/Insurance expires .* \(in \d+ days: renew it on your profile\)/);
-	await proMailLink(page, JUNE, /Your insurance on Stakeline expires in \d+ days/);
+	await mailLink(page, JUNE, /Your insurance on Stakeline expires in \d+ days/, { timeout: 60_000 });
 	expect(errors).toEqual([]);
 });

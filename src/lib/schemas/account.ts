@@ -34,3 +34,21 @@ export const changePasswordSchema = z.object({
 	current: plainText().min(1, 'Enter your current password.'),
 	password: newPassword
 });
+
+/** A new address for the account; the password proves the person at the keyboard owns it. */
+export const changeEmailSchema = z.object({
+	email: email.pipe(z.string().max(254, 'Use at most 254 characters.')),
+	current: plainText().min(1, 'Enter your current password.')
+});
+
+export const confirmEmailChangeSchema = z.object({ token: plainText().min(1) });
+
+/** Why an admin disables or enables an account: the owner and the audit log read it. */
+export const accountAccessSchema = z.object({
+	reason: plainText().trim().min(5, 'Say why (at least 5 characters); the account owner reads it.').max(1000, 'Use at most 1000 characters.')
+});
+
+/** Which distances the leads list shows; "auto" follows the reader's language. */
+export const distanceUnitSchema = z.object({
+	distanceUnit: z.enum(['auto', 'mi', 'km'], { error: 'Choose miles, kilometres or your language’s default.' })
+});

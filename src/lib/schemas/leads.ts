@@ -62,35 +62,42 @@ const optionalDollars = plainText()
 	.transform((s) => (s === '' ? null : toCents(s)));
 
 const isoDate = (missing: string) => plainText().trim().min(1, missing).regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter a date.');
-const today = () => new Date().toISOString().slice(0, 10);
+const utcToday = () => new Date().toISOString().slice(0, 10);
 
-export const bidSchema = z
-	.object({
-		total: dollars.pipe(z.number().min(100, 'Enter the total price.')),
-		...Object.fromEntries(lineItemKinds.map((k) => [`item_${k}`, optionalDollars])),
-		earliestStart: isoDate('Enter the earliest start date.').refine((d) => d >= today(), 'Pick today or a later date.'),
-		durationDays: wholeNumber('Enter how many days the job takes.', 1, 60, ' days'),
-		validUntil: isoDate('Enter how long the price holds.').refine((d) => d >= today(), 'Pick today or a later date.'),
-		inclusions: plainText().trim().max(2000, 'Use at most 2000 characters.').default(''),
-		exclusions: plainText().trim().max(2000, 'Use at most 2000 characters.').default(''),
-		notes: plainText().trim().max(2000, 'Use at most 2000 characters.').default('')
-	})
-	.transform((b, ctx) => {
-		const raw = b as unknown as Record<string, number | null>;
-		const lineItems = lineItemKinds.filter((k) => raw[`item_${k}`] !== null).map((kind) => ({ kind, cents: raw[`item_${kind}`]! }));
-		const sum = lineItems.reduce((s, i) => s + i.cents, 0);
-		if (sum > b.total) ctx.addIssue({ code: 'custom', path: ['total'], message: 'The line items add up to more than the total.' });
-		return {
-			totalCents: b.total,
-			lineItems,
-			earliestStart: b.earliestStart,
-			durationDays: b.durationDays,
-			validUntil: b.validUntil,
-			inclusions: b.inclusions,
-			exclusions: b.exclusions,
-			notes: b.notes
-		};
-	});
+/**
+ * A bid, checked against the bidder's own calendar day: `today` is built per request from the
+ * contractor's time zone, so late evening in Oregon is not already "tomorrow" as in UTC.
+ */
+export const bidSchemaFor = (today: () => string) =>
+	z
+		.object({
+			total: dollars.pipe(z.number().min(100, 'Enter the total price.')),
+			...Object.fromEntries(lineItemKinds.map((k) => [`item_${k}`, optionalDollars])),
+			earliestStart: isoDate('Enter the earliest start date.').refine((d) => d >= today(), 'Pick today or a later date.'),
+			durationDays: wholeNumber('Enter how many days the job takes.', 1, 60, ' days'),
+			validUntil: isoDate('Enter how long the price holds.').refine((d) => d >= today(), 'Pick today or a later date.'),
+			inclusions: plainText().trim().max(2000, 'Use at most 2000 characters.').default(''),
+			exclusions: plainText().trim().max(2000, 'Use at most 2000 characters.').default(''),
+			notes: plainText().trim().max(2000, 'Use at most 2000 characters.').default('')
+		})
+		.transform((b, ctx) => {
+			const raw = b as unknown as Record<string, number | null>;
+			const lineItems = lineItemKinds.filter((k) => raw[`item_${k}`] !== null).map((kind) => ({ kind, cents: raw[`item_${kind}`]! }));
+			const sum = lineItems.reduce((s, i) => s + i.cents, 0);
+			if (sum > b.total) ctx.addIssue({ code: 'custom', path: ['total'], message: 'The line items add up to more than the total.' });
+			return {
+				totalCents: b.total,
+				lineItems,
+				earliestStart: b.earliestStart,
+				durationDays: b.durationDays,
+				validUntil: b.validUntil,
+				inclusions: b.inclusions,
+				exclusions: b.exclusions,
+				notes: b.notes
+			};
+		});
+/** The same checks against UTC's day, for callers without a reader (tests, scripts). */
+export const bidSchema = bidSchemaFor(utcToday);
 export type BidInput = z.output<typeof bidSchema>;
 
 export const declineSchema = z.object({

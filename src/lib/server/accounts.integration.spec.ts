@@ -155,7 +155,7 @@ describe('mail outbox', () => {
 	it('delivers over SMTP to the local fake, which stores the message', async () => {
 		const to = unique('mail');
 		const id = await queueMail(to, { subject: 'Pour day is Saturday', text: 'Bring gloves.', html: '<p>Bring gloves.</p>' });
-		await expect.poll(async () => (await db.select().from(mailOutbox).where(eq(mailOutbox.id, id)))[0].status).toBe('sent');
+		await expect.poll(async () => (await db.select().from(mailOutbox).where(eq(mailOutbox.id, id!)))[0].status).toBe('sent');
 		await expect.poll(async () => (await db.select().from(devMail).where(eq(devMail.to, to))).map((m) => m.subject)).toEqual(['Pour day is Saturday']);
 	});
 

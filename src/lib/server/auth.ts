@@ -39,7 +39,8 @@ export async function validateSessionToken(token: string) {
 				name: table.user.name,
 				email: table.user.email,
 				role: table.user.role,
-				emailVerifiedAt: table.user.emailVerifiedAt
+				emailVerifiedAt: table.user.emailVerifiedAt,
+				disabledAt: table.user.disabledAt
 			},
 			session: table.session
 		})
@@ -48,7 +49,13 @@ export async function validateSessionToken(token: string) {
 		.where(eq(table.session.id, sessionId));
 
 	if (!result) return { session: null, user: null };
-	const { session, user } = result;
+	const { session, user: found } = result;
+	const { disabledAt, ...user } = found;
+	// Disabling deletes the sessions too; this also ends one created in a race with that.
+	if (disabledAt) {
+		await invalidateUserSessions(user.id);
+		return { session: null, user: null };
+	}
 
 	const now = Date.now();
 	if (now >= session.expiresAt.getTime() || now >= session.createdAt.getTime() + ABSOLUTE_LIFETIME_MS) {

@@ -1,7 +1,7 @@
 import { error } from '@sveltejs/kit';
 import { and, asc, desc, eq, getTableColumns, isNotNull, isNull } from 'drizzle-orm';
 import { statusAfterEdit, type ContractorStatus } from '$lib/contractor-status';
-import type { ContractorProfileInput, DocumentKind } from '$lib/schemas/contractor';
+import type { ContractorProfileInput, DistanceUnit, DocumentKind } from '$lib/schemas/contractor';
 import { db } from '$lib/server/db';
 import { contractor, contractorDocument, user, type Contractor } from '$lib/server/db/schema';
 import { requireRole } from './guards';
@@ -152,4 +152,14 @@ export async function requireApprovedContractor(event: Parameters<typeof require
 	const [c] = await db.select({ status: contractor.status }).from(contractor).where(eq(contractor.userId, user.id));
 	if (c?.status !== 'approved') error(403, 'Leads are open to approved contractors only.');
 	return user;
+}
+
+/** The unit the contractor chose for distances in their leads; null: follow their language. */
+export async function contractorDistanceUnit(userId: string): Promise<DistanceUnit | null> {
+	const [row] = await db.select({ unit: contractor.distanceUnit }).from(contractor).where(eq(contractor.userId, userId));
+	return row?.unit ?? null;
+}
+
+export async function setContractorDistanceUnit(userId: string, unit: DistanceUnit | null) {
+	await db.update(contractor).set({ distanceUnit: unit }).where(eq(contractor.userId, userId));
 }

@@ -9,11 +9,16 @@ const HOUR_MS = 60 * 60 * 1000;
 export const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
 	verify_email: 48 * HOUR_MS,
 	reset_password: HOUR_MS,
-	sign_in: HOUR_MS / 4
+	sign_in: HOUR_MS / 4,
+	change_email: 48 * HOUR_MS
 };
 
 /** A new one-time link token; earlier unused ones of the same purpose stop working. */
-export async function createEmailToken(userId: string, purpose: TokenPurpose, inTx?: Tx): Promise<string> {
+export async function createEmailToken(
+	userId: string,
+	purpose: TokenPurpose,
+	{ tx: inTx, newEmail }: { tx?: Tx; newEmail?: string } = {}
+): Promise<string> {
 	const token = generateToken();
 	const run = (fn: (tx: Tx) => Promise<void>) => (inTx ? fn(inTx) : db.transaction(fn));
 	await run(async (tx) => {
@@ -25,6 +30,7 @@ export async function createEmailToken(userId: string, purpose: TokenPurpose, in
 			id: hashToken(token),
 			userId,
 			purpose,
+			newEmail: newEmail ?? null,
 			expiresAt: new Date(Date.now() + TOKEN_LIFETIME_MS[purpose])
 		});
 	});
@@ -45,6 +51,24 @@ export async function peekEmailToken(token: string, purpose: TokenPurpose): Prom
 export async function consumeEmailToken(token: string, purpose: TokenPurpose): Promise<string | null> {
 	const [row] = await db.update(emailToken).set({ usedAt: new Date() }).where(usable(token, purpose)).returning({ userId: emailToken.userId });
 	return row?.userId ?? null;
+}
+
+/** Uses up a change-of-address token: the account and the address it moves to. */
+export async function consumeEmailChangeToken(token: string): Promise<{ userId: string; newEmail: string } | null> {
+	const [row] = await db
+		.update(emailToken)
+		.set({ usedAt: new Date() })
+		.where(usable(token, 'change_email'))
+		.returning({ userId: emailToken.userId, newEmail: emailToken.newEmail });
+	return row?.newEmail ? { userId: row.userId, newEmail: row.newEmail } : null;
+}
+
+/** Open links of one purpose stop working (a new password ends a pending change of address). */
+export async function expireEmailTokens(userId: string, purpose: TokenPurpose) {
+	await db
+		.update(emailToken)
+		.set({ usedAt: new Date() })
+		.where(and(eq(emailToken.userId, userId), eq(emailToken.purpose, purpose), isNull(emailToken.usedAt)));
 }
 
 /**

@@ -3,9 +3,10 @@ import sharp, { type OutputInfo } from 'sharp';
 import { db } from '$lib/server/db';
 import { plan, planPhoto, type PlanPhoto } from '$lib/server/db/schema';
 import { storage } from './storage';
-import { imageTypes, MB, sniffUpload } from './uploads';
+import { uploadRules } from '$lib/upload-rules';
+import { imageTypes, sniffUpload } from './uploads';
 
-export const MAX_PHOTO_BYTES = 12 * MB;
+export const MAX_PHOTO_BYTES = uploadRules.photo.maxBytes;
 export const MAX_PHOTOS_PER_PLAN = 20;
 /**
  * Largest image decoded: 40 megapixels (a 48 MP phone's default 24 MP photos pass). A PNG of

@@ -74,8 +74,6 @@ function bodyLimit(): number {
 }
 
 const mb = (n: number) => `${(n / 1024 ** 2).toFixed(1)} MB`;
-const tooLarge = (message: string, requestId: string) =>
-	json({ message, errors: [{ path: '', message }] }, { status: 413, headers: { 'x-request-id': requestId } });
 
 /**
  * A body sent without Content-Length (chunked) is read here, up to the limit: past it the answer is
@@ -86,7 +84,8 @@ async function limitUnsizedBody(event: RequestEvent, requestId: string): Promise
 	const request = event.request;
 	if (!request.body || request.headers.has('content-length')) return null;
 	const limit = bodyLimit();
-	const over = () => tooLarge(`The request is over ${mb(limit)}; the limit is ${mb(limit)}. Send smaller files, one at a time.`, requestId);
+	const over = () =>
+		tooLarge(event, `The request is over ${mb(limit)}; the limit is ${mb(limit)}. Send smaller files, one at a time.`, { 'x-request-id': requestId });
 	const reader = request.body.getReader();
 	const chunks: Uint8Array[] = [];
 	let size = 0;
@@ -126,13 +125,38 @@ function refuseEarly(event: RequestEvent, requestId: string): Response | null {
 	const headers = { 'x-request-id': requestId };
 	const length = Number(event.request.headers.get('content-length') ?? 0);
 	const limit = bodyLimit();
-	if (length > limit) return tooLarge(`The request is ${mb(length)}; the limit is ${mb(limit)}. Send smaller files, one at a time.`, requestId);
+	if (length > limit) return tooLarge(event, `The request is ${mb(length)}; the limit is ${mb(limit)}. Send smaller files, one at a time.`, headers);
 	// SvelteKit throws (a 500) when a client names the default action; it is simply not an action name.
 	if (event.request.method === 'POST' && event.url.searchParams.has('/default')) {
 		const message = 'No such form action.';
 		return json({ message, errors: [{ path: '', message }] }, { status: 400, headers });
 	}
 	return null;
+}
+
+/**
+ * A body over the limit, answered in the form the sender reads: an enhanced form gets a form
+ * failure (the page keeps what was typed and shows the message), a plain form post a page that
+ * says why and leads back, everything else JSON. Never a bare 413.
+ */
+function tooLarge(event: RequestEvent, message: string, headers: Record<string, string>): Response {
+	if (event.request.headers.get('x-sveltekit-action') === 'true') {
+		// SvelteKit's ActionResult; `data` is devalue's encoding of { message }.
+		return json({ type: 'failure', status: 413, data: JSON.stringify([{ message: 1 }, message]) }, { headers });
+	}
+	if (!wantsJson(event) && event.request.method === 'POST') {
+		const esc = message.replace(/[&<>"]/g, (c) => `&#${c.charCodeAt(0)};`);
+		const back = event.request.headers.get('referer');
+		const safeBack = back && new URL(back, event.url).origin === event.url.origin ? new URL(back, event.url).pathname : '/';
+		return new Response(
+			`<!doctype html><html lang="en"><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>Files too large · Stakeline</title>` +
+				`<main style="font-family:sans-serif;max-width:32rem;margin:2rem auto;padding:0 1rem"><h1>The files are too large</h1><p>${esc}</p>` +
+				`<p>Nothing was saved. Use your browser's Back button: what you typed is still in the form; choose smaller files there.</p>` +
+				`<p><a href="${safeBack}">Open the form again</a> (empty)</p></main></html>`,
+			{ status: 413, headers: { ...headers, 'content-type': 'text/html; charset=utf-8' } }
+		);
+	}
+	return json({ message, errors: [{ path: '', message }] }, { status: 413, headers });
 }
 
 /** Unexpected errors: logged without query parameters; the database being down is said plainly. */

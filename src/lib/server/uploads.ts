@@ -1,11 +1,12 @@
 import { fileTypeFromBuffer } from 'file-type';
 
-export const MB = 1024 * 1024;
+import { MB, formatMb, uploadRules } from '$lib/upload-rules';
+
+export { MB };
 
 export type SniffedUpload = { bytes: Uint8Array; mime: string; ext: string; name: string };
 export type UploadCheck = ({ ok: true } & SniffedUpload) | { ok: false; message: string };
 
-const formatMb = (n: number) => `${(n / MB).toFixed(n < 10 * MB ? 1 : 0)} MB`;
 
 /** A file input left empty arrives as a nameless, empty File. */
 export const isEmptyUpload = (v: FormDataEntryValue | null): boolean => !(v instanceof File) || (v.size === 0 && !v.name);
@@ -25,9 +26,11 @@ export async function sniffUpload(file: File, o: { maxBytes: number; accept: Rec
 	return { ok: true, bytes, mime: type.mime, ext: type.ext, name: file.name.slice(0, 200) || `upload.${type.ext}` };
 }
 
-/** Images every upload may be (sharp reads each of them). */
-export const imageTypes: Record<string, string> = { 'image/jpeg': 'a JPEG', 'image/png': 'a PNG', 'image/webp': 'a WebP image' };
+const names = (types: Record<string, readonly string[]>) => Object.fromEntries(Object.entries(types).map(([mime, [name]]) => [mime, name]));
+
+/** Images every upload may be (sharp reads each of them); the rules are shared with the browser. */
+export const imageTypes: Record<string, string> = names(uploadRules.photo.types);
 
 /** What a licence or insurance document may be. */
-export const documentTypes: Record<string, string> = { 'application/pdf': 'a PDF', ...imageTypes };
-export const DOCUMENT_MAX_BYTES = 5 * MB;
+export const documentTypes: Record<string, string> = names(uploadRules.document.types);
+export const DOCUMENT_MAX_BYTES = uploadRules.document.maxBytes;

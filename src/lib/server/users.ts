@@ -2,9 +2,16 @@ import { eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { contractor, user, type Role, type User } from '$lib/server/db/schema';
 import { hashPassword } from './password';
-import { createEmailToken } from './email-tokens';
+import { consumeEmailChangeToken, createEmailToken, expireEmailTokens } from './email-tokens';
 import { deliverSoon, queueMail } from './mail';
-import { resetPasswordMail, signInLinkMail, signUpAttemptMail, verifyEmailMail } from './mail/templates';
+import {
+	confirmNewEmailMail,
+	emailChangeNoticeMail,
+	resetPasswordMail,
+	signInLinkMail,
+	signUpAttemptMail,
+	verifyEmailMail
+} from './mail/templates';
 
 export class EmailTakenError extends Error {
 	constructor() {
@@ -15,6 +22,8 @@ export class EmailTakenError extends Error {
 const UNIQUE_VIOLATION = '23505';
 const isUniqueViolation = (err: unknown) =>
 	[err, (err as { cause?: unknown })?.cause].some((e) => (e as { code?: string })?.code === UNIQUE_VIOLATION);
+
+export const DISABLED_MESSAGE = 'This account is disabled. Write to Stakeline support if you think this is a mistake.';
 
 export const normalizeEmail = (email: string) => email.trim().toLowerCase();
 
@@ -54,6 +63,8 @@ export async function findUserById(id: string): Promise<User | undefined> {
 
 export async function setPassword(userId: string, password: string) {
 	await db.update(user).set({ passwordHash: await hashPassword(password) }).where(eq(user.id, userId));
+	// Someone who changed the address from a stolen session loses it with the password.
+	await expireEmailTokens(userId, 'change_email');
 }
 
 export async function markEmailVerified(userId: string) {
@@ -92,7 +103,7 @@ export async function signUpOrNotify(input: { name: string; email: string; passw
 		const owner = created ?? (await tx.select().from(user).where(eq(user.email, email)))[0];
 		if (!owner) return; // deleted in between: nothing to say to anyone
 		if (!owner.emailVerifiedAt) {
-			const token = await createEmailToken(owner.id, 'verify_email', tx);
+			const token = await createEmailToken(owner.id, 'verify_email', { tx });
 			await queueMail(owner.email, verifyEmailMail('', verifyLink(origin, token, next)), tx);
 		} else await queueMail(owner.email, signUpAttemptMail(greeting(owner), `${origin}/signin`), tx);
 	});
@@ -107,6 +118,43 @@ export async function sendPasswordResetMail(u: MailUser, origin: string) {
 export async function sendSignInLinkMail(u: MailUser, origin: string) {
 	const token = await createEmailToken(u.id, 'sign_in');
 	await queueMail(u.email, signInLinkMail(greeting(u), `${origin}/signin/link?token=${token}`));
+}
+
+/**
+ * Starts a change of address: the link goes to the new address, and the old one is told. The
+ * account keeps its address until the link is opened.
+ */
+export async function requestEmailChange(u: MailUser, newEmail: string, origin: string) {
+	const to = normalizeEmail(newEmail);
+	if (to === u.email) throw new EmailChangeRefused('That is already your address.');
+	if (await findUserByEmail(to)) throw new EmailTakenError();
+	const token = await createEmailToken(u.id, 'change_email', { newEmail: to });
+	await queueMail(to, confirmNewEmailMail(greeting(u), `${origin}/confirm-email?token=${token}`));
+	await queueMail(u.email, emailChangeNoticeMail(greeting(u), to, false, `${origin}/account`));
+}
+
+export class EmailChangeRefused extends Error {}
+
+/** Opens the link: the account moves to the new (now confirmed) address; the old one is told. */
+export async function confirmEmailChange(token: string, origin: string): Promise<User> {
+	const change = await consumeEmailChangeToken(token);
+	if (!change) throw new EmailChangeRefused('This link has expired or was used already. Ask for a new one on your account page.');
+	const before = await findUserById(change.userId);
+	if (!before) throw new EmailChangeRefused('This account no longer exists.');
+	let after: User;
+	try {
+		[after] = await db.update(user).set({ email: change.newEmail, emailVerifiedAt: new Date() }).where(eq(user.id, before.id)).returning();
+	} catch (err) {
+		if (isUniqueViolation(err)) throw new EmailChangeRefused('Another account took this address meanwhile. Choose another one.');
+		throw err;
+	}
+	await queueMail(before.email, emailChangeNoticeMail(greeting(before), change.newEmail, true, `${origin}/forgot-password`));
+	return after;
+}
+
+/** The kinds of e-mail this account turned off (see src/lib/mail-kinds.ts). */
+export async function setMailOptOut(userId: string, off: string[]) {
+	await db.update(user).set({ mailOptOut: off }).where(eq(user.id, userId));
 }
 
 /** The first admin, from ADMIN_EMAIL / ADMIN_PASSWORD; nothing happens when it exists already. */

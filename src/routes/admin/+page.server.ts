@@ -9,7 +9,7 @@ export const load = (async (event) => {
 	const byRole = await db.select({ role: user.role, n: count() }).from(user).groupBy(user.role);
 	// Only profiles sent for review are in the queue; sign-ups still filling theirs in are counted.
 	const waiting = await db
-		.select({ id: user.id, name: user.name, email: user.email, businessName: contractor.businessName, since: contractor.reviewRequestedAt })
+		.select({ id: user.id, name: user.name, email: user.email, businessName: contractor.businessName, since: contractor.reviewRequestedAt, emailVerifiedAt: user.emailVerifiedAt })
 		.from(contractor)
 		.innerJoin(user, eq(user.id, contractor.userId))
 		.where(eq(contractor.status, 'awaiting_review'))

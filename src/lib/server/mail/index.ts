@@ -2,7 +2,8 @@ import nodemailer, { type Transporter } from 'nodemailer';
 import { eq, sql } from 'drizzle-orm';
 import { env } from '$env/dynamic/private';
 import { db } from '$lib/server/db';
-import { mailOutbox, type OutboxMail } from '$lib/server/db/schema';
+import { mailOutbox, user, type OutboxMail } from '$lib/server/db/schema';
+import type { MailKind } from '$lib/mail-kinds';
 import type { Mail } from './templates';
 import { log } from '../log';
 
@@ -32,10 +33,21 @@ type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
  * message is written in that transaction (it exists exactly when the change it reports does);
  * the caller then calls deliverSoon() after the commit.
  */
-export async function queueMail(to: string, mail: Mail, tx?: Tx) {
-	const [row] = await (tx ?? db).insert(mailOutbox).values({ to, ...mail }).returning({ id: mailOutbox.id });
+export async function queueMail(to: string, mail: Mail, tx?: Tx): Promise<string | null> {
+	const { kind, subject, text, html } = mail;
+	if (kind && (await optedOut(to, kind, tx))) return null;
+	const [row] = await (tx ?? db).insert(mailOutbox).values({ to, subject, text, html }).returning({ id: mailOutbox.id });
 	if (!tx) deliverSoon();
 	return row.id;
+}
+
+/** Whether the account at `to` turned this kind of mail off on its account page. */
+async function optedOut(to: string, kind: MailKind, tx?: Tx): Promise<boolean> {
+	const [row] = await (tx ?? db)
+		.select({ off: user.mailOptOut })
+		.from(user)
+		.where(eq(user.email, to.trim().toLowerCase()));
+	return !!row?.off.includes(kind);
 }
 
 /** Starts sending what is due in the background: the request does not wait on the SMTP server. */

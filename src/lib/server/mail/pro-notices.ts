@@ -1,4 +1,5 @@
 import type { ContractorStatus, VettingDecision } from '$lib/contractor-status';
+import type { MailKind } from '$lib/mail-kinds';
 import { notice, type Mail } from './templates';
 
 const vettingText: Record<VettingDecision, { subject: string; line: string; action: string; path: string }> = {
@@ -51,14 +52,16 @@ export function vettingDecisionMail(name: string, decision: VettingDecision, to:
 	});
 }
 
-const footer = 'You receive this because you use Stakeline. Reply inside Stakeline, not to this e-mail.';
-const simple = (subject: string, name: string, lines: string[], action: string, url: string): Mail => notice({ subject, name, lines, action, url, footer });
+const footer = 'You receive this because you use Stakeline. Reply inside Stakeline, not to this e-mail. Choose which e-mails you get on your account page.';
+const simple = (kind: MailKind | undefined, subject: string, name: string, lines: string[], action: string, url: string): Mail =>
+	notice({ subject, name, lines, action, url, footer, kind });
 
 export const newLeadMail = (name: string, town: string, planName: string, respondBy: string, url: string) =>
-	simple(`New lead near ${town}`, name, [`A homeowner near ${town} sent you the plan “${planName}” and asks for a bid. Please bid or decline by ${respondBy}; after that date the lead closes.`], 'Open the lead', url);
+	simple('new_lead', `New lead near ${town}`, name, [`A homeowner near ${town} sent you the plan “${planName}” and asks for a bid. Please bid or decline by ${respondBy}; after that date the lead closes.`], 'Open the lead', url);
 
 export const newerRevisionMail = (name: string, town: string, revision: number, url: string) =>
 	simple(
+		'new_lead',
 		`A newer plan revision near ${town}`,
 		name,
 		[`The homeowner re-sent their plan as revision ${revision}. Your lead still shows the revision you received; check whether your bid needs a change.`],
@@ -68,6 +71,7 @@ export const newerRevisionMail = (name: string, town: string, revision: number, 
 
 export const newBidMail = (name: string, business: string, planName: string, updated: boolean, url: string) =>
 	simple(
+		'bid_update',
 		updated ? `${business} changed their bid` : `New bid from ${business}`,
 		name,
 		[updated ? `${business} changed their bid for “${planName}”.` : `${business} sent a bid for “${planName}”.`],
@@ -77,14 +81,14 @@ export const newBidMail = (name: string, business: string, planName: string, upd
 
 export const bidDecisionMail = (name: string, won: boolean, town: string, url: string) =>
 	won
-		? simple(`Your bid near ${town} was accepted`, name, ['The homeowner accepted your bid. Their contact details are now on the lead page.'], 'Open the lead', url)
-		: simple(`Your bid near ${town} was not selected`, name, ['The homeowner chose another bid for this plan. Thank you for bidding.'], 'Open the lead', url);
+		? simple('bid_result', `Your bid near ${town} was accepted`, name, ['The homeowner accepted your bid. Their contact details are now on the lead page.'], 'Open the lead', url)
+		: simple('bid_result', `Your bid near ${town} was not selected`, name, ['The homeowner chose another bid for this plan. Thank you for bidding.'], 'Open the lead', url);
 
 export const newMessageMail = (name: string, from: string, url: string) =>
-	simple(`New message from ${from}`, name, [`${from} wrote to you about a slab plan on Stakeline.`], 'Read the message', url);
+	simple('message', `New message from ${from}`, name, [`${from} wrote to you about a slab plan on Stakeline.`], 'Read the message', url);
 
 export const bidWithdrawnMail = (name: string, business: string, planName: string, url: string) =>
-	simple(`${business} withdrew their bid`, name, [`${business} withdrew their bid for “${planName}”. Their other bids and messages stay as they were.`], 'Compare the bids', url);
+	simple('bid_update', `${business} withdrew their bid`, name, [`${business} withdrew their bid for “${planName}”. Their other bids and messages stay as they were.`], 'Compare the bids', url);
 
 /**
  * To a homeowner whose contractor Stakeline suspended or sent back to review: it was our decision,
@@ -101,14 +105,15 @@ export function contractorPausedMail(name: string, business: string, planName: s
 		? `You accepted their bid for “${planName}”, so the job is on hold. You can wait for us, or reopen bidding on your bids page.`
 		: `Their bid or lead for “${planName}” stays on your page, but it cannot be accepted until the account is active again.`;
 	const subject = why === 'suspended' ? `${business} is suspended for now` : why === 'lapsed' ? `${business}: licence or insurance expired` : `${business} is under review for now`;
-	return simple(subject, name, [what, effect, 'We will e-mail you when this changes.'], 'Open your bids', url);
+	return simple(undefined, subject, name, [what, effect, 'We will e-mail you when this changes.'], 'Open your bids', url);
 }
 
 export const contractorActiveAgainMail = (name: string, business: string, planName: string, url: string) =>
-	simple(`${business} is active again`, name, [`The account of ${business} is active again. Their bid or lead for “${planName}” is open as before.`], 'Open your bids', url);
+	simple(undefined, `${business} is active again`, name, [`The account of ${business} is active again. Their bid or lead for “${planName}” is open as before.`], 'Open your bids', url);
 
 export const jobReleasedMail = (name: string, town: string, url: string) =>
 	simple(
+		'bid_result',
 		`A job near ${town} was released`,
 		name,
 		['While your account was suspended, the homeowner released the job they had accepted your bid for and reopened bidding. Your bid is closed.'],
@@ -117,7 +122,7 @@ export const jobReleasedMail = (name: string, town: string, url: string) =>
 	);
 
 export const biddingReopenedMail = (name: string, town: string, url: string) =>
-	simple(`Bidding reopened near ${town}`, name, ['The homeowner reopened bidding on a plan you bid for. Your bid is open again and can be accepted.'], 'Open the lead', url);
+	simple('bid_result', `Bidding reopened near ${town}`, name, ['The homeowner reopened bidding on a plan you bid for. Your bid is open again and can be accepted.'], 'Open the lead', url);
 
 export const profileSubmittedMail = (name: string, business: string, url: string) =>
 	notice({
@@ -126,75 +131,65 @@ export const profileSubmittedMail = (name: string, business: string, url: string
 		lines: [`${business} sent their profile for review.`],
 		action: 'Open the vetting queue',
 		url,
-		footer: 'You receive this because you are a Stakeline administrator.'
+		footer: 'You receive this because you are a Stakeline administrator.',
+		kind: 'review_queue'
 	});
 
 /**
- * Notices of the lead and credential life cycle. Each carries a `kind`, so an account can later
- * choose which kinds it receives; none of them is a security mail.
+ * Notices of the lead and credential life cycle. Lead notices carry the kind of the bid mail they
+ * belong with, so they can be turned off with it; credential notices always go (an account that
+ * lapses stops receiving leads, which its owner must not miss).
  */
-export type KindedMail = Mail & { kind: string };
-const kinded = (kind: string, mail: Mail): KindedMail => ({ ...mail, kind });
 const credentialName = { licence: 'licence', insurance: 'insurance' } as const;
 
 export const credentialReminderMail = (name: string, kind: 'licence' | 'insurance', expiresOn: string, daysLeft: number, url: string) =>
-	kinded(
-		'credential_reminder',
-		notice({
-			subject: `Your ${credentialName[kind]} on Stakeline expires in ${daysLeft} ${daysLeft === 1 ? 'day' : 'days'}`,
-			name,
-			lines: [
-				`The ${credentialName[kind]} on your Stakeline profile expires on ${expiresOn}.`,
-				'On that day your account stops receiving leads, and homeowners cannot accept your bids, until you upload the renewed document with its new date and an administrator checks it.'
-			],
-			action: 'Renew on my profile',
-			url,
-			footer: 'You receive this because you have a contractor account on Stakeline.'
-		})
-	);
+	notice({
+		subject: `Your ${credentialName[kind]} on Stakeline expires in ${daysLeft} ${daysLeft === 1 ? 'day' : 'days'}`,
+		name,
+		lines: [
+			`The ${credentialName[kind]} on your Stakeline profile expires on ${expiresOn}.`,
+			'On that day your account stops receiving leads, and homeowners cannot accept your bids, until you upload the renewed document with its new date and an administrator checks it.'
+		],
+		action: 'Renew on my profile',
+		url,
+		footer: 'You receive this because you have a contractor account on Stakeline.'
+	});
 
 export const credentialLapsedMail = (name: string, kinds: ('licence' | 'insurance')[], url: string) =>
-	kinded(
-		'credential_lapsed',
-		notice({
-			subject: `Your ${kinds.map((k) => credentialName[k]).join(' and ')} on Stakeline has expired`,
-			name,
-			lines: [
-				`The ${kinds.map((k) => credentialName[k]).join(' and ')} on your Stakeline profile has expired, so your account receives no new leads and homeowners cannot accept your bids for now.`,
-				'Upload the renewed document with its new expiry date: an administrator checks it, and your leads come back once it is approved. The homeowners with your open bids are told why.'
-			],
-			action: 'Renew on my profile',
-			url,
-			footer: 'You receive this because you have a contractor account on Stakeline.'
-		})
-	);
+	notice({
+		subject: `Your ${kinds.map((k) => credentialName[k]).join(' and ')} on Stakeline has expired`,
+		name,
+		lines: [
+			`The ${kinds.map((k) => credentialName[k]).join(' and ')} on your Stakeline profile has expired, so your account receives no new leads and homeowners cannot accept your bids for now.`,
+			'Upload the renewed document with its new expiry date: an administrator checks it, and your leads come back once it is approved. The homeowners with your open bids are told why.'
+		],
+		action: 'Renew on my profile',
+		url,
+		footer: 'You receive this because you have a contractor account on Stakeline.'
+	});
 
 export const leadExpiredMail = (name: string, town: string, respondBy: string, url: string) =>
-	kinded('lead_expired', simple(`A lead near ${town} expired`, name, [`You did not bid or decline by ${respondBy}, the respond-by date, so the lead is closed. The homeowner was told you did not reply in time.`], 'Open the lead', url));
+	simple('bid_result', `A lead near ${town} expired`, name, [`You did not bid or decline by ${respondBy}, the respond-by date, so the lead is closed. The homeowner was told you did not reply in time.`], 'Open the lead', url);
 
 export const leadsUnansweredMail = (name: string, planName: string, businesses: string[], respondBy: string, url: string) =>
-	kinded(
-		'lead_expired',
-		simple(
-			businesses.length === 1 ? `${businesses[0]} did not reply in time` : `${businesses.length} contractors did not reply in time`,
-			name,
-			[`${businesses.join(', ')} did not bid or decline on “${planName}” by ${respondBy}, so ${businesses.length === 1 ? 'that request is' : 'those requests are'} closed. Bids you already have are not affected.`],
-			'Open your bids',
-			url
-		)
+	simple(
+		'bid_update',
+		businesses.length === 1 ? `${businesses[0]} did not reply in time` : `${businesses.length} contractors did not reply in time`,
+		name,
+		[`${businesses.join(', ')} did not bid or decline on “${planName}” by ${respondBy}, so ${businesses.length === 1 ? 'that request is' : 'those requests are'} closed. Bids you already have are not affected.`],
+		'Open your bids',
+		url
 	);
 
 export const requestClosedMail = (name: string, town: string, hadBid: boolean, url: string) =>
-	kinded(
-		'request_closed',
-		simple(
-			`A request near ${town} was closed`,
-			name,
-			[`The homeowner closed their request without hiring anyone${hadBid ? '; your bid is closed and nobody else was chosen' : ''}. Thank you for your time.`],
-			'Open the lead',
-			url
-		)
+	simple(
+		'bid_result',
+		`A request near ${town} was closed`,
+		name,
+		[`The homeowner closed their request without hiring anyone${hadBid ? '; your bid is closed and nobody else was chosen' : ''}. Thank you for your time.`],
+		'Open the lead',
+		url
 	);
 
 export const jobDoneMail = (name: string, town: string, url: string) =>
-	kinded('job_done', simple(`The job near ${town} is marked done`, name, ['The homeowner marked the job done. Thank you for the work. The lead and its messages stay on your desk for your records.'], 'Open the lead', url));
+	simple('bid_result', `The job near ${town} is marked done`, name, ['The homeowner marked the job done. Thank you for the work. The lead and its messages stay on your desk for your records.'], 'Open the lead', url);

@@ -1,10 +1,13 @@
-export type Mail = { subject: string; text: string; html: string };
+import type { MailKind } from '$lib/mail-kinds';
+
+/** A message; `kind` names the switch on the account page that can turn it off (none: always sent). */
+export type Mail = { subject: string; text: string; html: string; kind?: MailKind };
 
 const escape = (s: string) =>
 	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** One plain layout for every notice: a greeting, a few lines, one button, the same link as text. */
-export function notice(o: { subject: string; name: string; lines: string[]; action: string; url: string; footer: string }): Mail {
+export function notice(o: { subject: string; name: string; lines: string[]; action: string; url: string; footer: string; kind?: MailKind }): Mail {
 	// No name: mail to an address nobody has confirmed carries no text the sign-up form chose.
 	const hello = o.name ? `Hello ${o.name},` : 'Hello,';
 	const text = [hello, '', ...o.lines, '', `${o.action}: ${o.url}`, '', o.footer, '', '— Stakeline'].join('\n');
@@ -16,7 +19,7 @@ ${o.lines.map((l) => `<p>${escape(l)}</p>`).join('\n')}
 <p style="font-size:13px;color:#5b6a62">Or open this address: ${escape(o.url)}</p>
 <p style="font-size:13px;color:#5b6a62">${escape(o.footer)}</p>
 </div></body></html>`;
-	return { subject: o.subject, text, html };
+	return { subject: o.subject, text, html, kind: o.kind };
 }
 
 export function verifyEmailMail(name: string, url: string): Mail {
@@ -64,5 +67,45 @@ export function signInLinkMail(name: string, url: string): Mail {
 		action: 'Sign me in',
 		url,
 		footer: 'The link works once and for 15 minutes. If you did not ask for it, ignore this message; your password stays as it is.'
+	});
+}
+
+/** To the owner of an account an admin disabled or enabled, with the admin's reason. */
+export function accountAccessMail(name: string, disabled: boolean, reason: string, origin: string): Mail {
+	return notice({
+		subject: disabled ? 'Your Stakeline account is disabled' : 'Your Stakeline account is enabled again',
+		name,
+		lines: disabled
+			? ['A Stakeline administrator disabled your account: you cannot sign in, and every browser signed in to it was signed out.', `Reason: ${reason}`]
+			: ['A Stakeline administrator enabled your account again. You can sign in as before.', `Note: ${reason}`],
+		action: disabled ? 'Open Stakeline' : 'Sign in',
+		url: disabled ? origin : `${origin}/signin`,
+		footer: 'You receive this because you have a Stakeline account. Reply to Stakeline support if you have questions.'
+	});
+}
+
+/** To the new address: confirm it before the account moves there. */
+export function confirmNewEmailMail(name: string, url: string): Mail {
+	return notice({
+		subject: 'Confirm your new e-mail for Stakeline',
+		name,
+		lines: ['You asked to use this address for your Stakeline account. Nothing changes until you confirm it.'],
+		action: 'Confirm the new address',
+		url,
+		footer: 'The link works once and for 48 hours. If you did not ask for this, ignore this message.'
+	});
+}
+
+/** To the old address: someone asked to move the account, and later that it moved. */
+export function emailChangeNoticeMail(name: string, newEmail: string, done: boolean, url: string): Mail {
+	return notice({
+		subject: done ? 'Your Stakeline e-mail was changed' : 'A change of your Stakeline e-mail was asked for',
+		name,
+		lines: done
+			? [`Your Stakeline account now uses ${newEmail}. Notices go there from now on.`, 'If you did not do this, reset your password at once and write to Stakeline support.']
+			: [`Someone signed in to your account asked to use ${newEmail} instead of this address. It changes only when the link sent there is opened.`, 'If this was not you, change your password now: the request then stops working.'],
+		action: done ? 'Reset my password' : 'Open my account',
+		url,
+		footer: 'This is a security notice; it is always sent.'
 	});
 }

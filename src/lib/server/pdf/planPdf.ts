@@ -238,15 +238,17 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 		doc.x = left;
 		doc.y = rowTop;
 	}
+	const legend = `Start at corner ${sheet.start.corner} (${sheet.start.why}, circled). ${sheet.highEdge ? `Green dashes: the high side, edge ${sheet.highEdge}; the top falls away from it. ` : ''}Brown: house wall; dashed black: control joints; blue: cold joints; grey dashes: diagonals; squares: stakes, numbered as in the stake marks; R ids: boards as in the cut list.`;
+	// Room below the drawing for its legend, measured, so the legend never spills onto a page of its own.
+	const legendHeight = doc.font('regular').fontSize(8).heightOfString(t(legend), { width, paragraphGap: 2 }) + 8;
+	room(60 + 160 + legendHeight); // heading, the smallest drawing and its legend together
 	heading('Layout drawing');
-	// Room below the drawing for its two-line legend, so the legend never spills onto a page of its own.
-	const drawing = layoutDrawing(r, sheet, { width, height: Math.max(160, bottom() - doc.y - 44) });
-	drawLayout(doc, drawing, { x: left + (width - drawing.width) / 2, y: doc.y, t });
-	doc.y += drawing.height + 4;
-	text(
-		`Start at corner ${sheet.start.corner} (${sheet.start.why}, circled). ${sheet.highEdge ? `Green dashes: the high side, edge ${sheet.highEdge}; the top falls away from it. ` : ''}Brown: house wall; dashed black: control joints; blue: cold joints; grey dashes: diagonals; squares: stakes, numbered as in the stake marks; R ids: boards as in the cut list.`,
-		{ size: 8, color: C.soft }
-	);
+	const drawing = layoutDrawing(r, sheet, { width, height: Math.max(160, bottom() - doc.y - legendHeight) });
+	const drawingTop = doc.y;
+	drawLayout(doc, drawing, { x: left + (width - drawing.width) / 2, y: drawingTop, t });
+	// Its labels are placed with doc.text, which moves doc.y: continue below the drawing's box.
+	doc.y = drawingTop + drawing.height + 4;
+	text(legend, { size: 8, color: C.soft });
 
 	doc.addPage();
 	heading('Layout sheet');

@@ -1,12 +1,26 @@
 import { fail } from '@sveltejs/kit';
-import { changePasswordSchema } from '$lib/schemas/account';
+import { isMailKind, mailKindsFor } from '$lib/mail-kinds';
+import { defaultDistanceUnit } from '$lib/reader';
+import { changeEmailSchema, changePasswordSchema, distanceUnitSchema } from '$lib/schemas/account';
 import { invalidateUserSessions, startSession } from '$lib/server/auth';
+import { contractorDistanceUnit, setContractorDistanceUnit } from '$lib/server/contractors';
 import { formError, parseForm } from '$lib/server/forms';
-import { requireUser } from '$lib/server/guards';
+import { requireRole, requireUser } from '$lib/server/guards';
 import { verifyPassword } from '$lib/server/password';
 import { countMailRequest, formatWait } from '$lib/server/throttle';
-import { findUserById, sendVerificationMail, setPassword } from '$lib/server/users';
-import type { Actions } from './$types';
+import { EmailChangeRefused, EmailTakenError, findUserById, requestEmailChange, sendVerificationMail, setMailOptOut, setPassword } from '$lib/server/users';
+import type { Actions, PageServerLoad } from './$types';
+
+export const load = (async (event) => {
+	const me = requireUser(event);
+	const user = await findUserById(me.id);
+	return {
+		mailKinds: mailKindsFor(me.role),
+		mailOptOut: user?.mailOptOut ?? [],
+		distanceUnit: me.role === 'contractor' ? ((await contractorDistanceUnit(me.id)) ?? ('auto' as const)) : null,
+		localeUnit: defaultDistanceUnit(event.locals.reader.locale)
+	};
+}) satisfies PageServerLoad;
 
 export const actions = {
 	password: async (event) => {
@@ -30,5 +44,40 @@ export const actions = {
 		if (!allowed.ok) return fail(429, { message: `Too many confirmation e-mails sent. Please wait ${formatWait(allowed.waitMs)}.` });
 		await sendVerificationMail(me, event.url.origin);
 		return { resent: true };
+	},
+	email: async (event) => {
+		const me = requireUser(event);
+		const { data, values, failure } = await parseForm(event.request, changeEmailSchema);
+		if (failure) return fail(failure.status, { ...failure.data, section: 'email' });
+		const fields = (message: string, errors: Record<string, string>) => fail(400, { errors, values, message, section: 'email' });
+		const user = await findUserById(me.id);
+		if (!user || !(await verifyPassword(user.passwordHash, data.current))) return fields('Please correct the fields marked below.', { current: 'That is not your current password.' });
+		const allowed = await countMailRequest(me.email, event.getClientAddress());
+		if (!allowed.ok) return fields(`Too many e-mails sent. Please wait ${formatWait(allowed.waitMs)}.`, {});
+		try {
+			await requestEmailChange(user, data.email, event.url.origin);
+		} catch (err) {
+			if (err instanceof EmailTakenError) return fields('Please correct the fields marked below.', { email: 'Another account uses this address.' });
+			if (err instanceof EmailChangeRefused) return fields('Please correct the fields marked below.', { email: err.message });
+			throw err;
+		}
+		return { emailChangeSent: data.email.trim().toLowerCase() };
+	},
+	notices: async (event) => {
+		const me = requireUser(event);
+		const form = await event.request.formData();
+		const on = new Set(form.getAll('on').filter((v): v is string => typeof v === 'string'));
+		// Only this role's switches count; an unknown name in the form changes nothing.
+		const off = mailKindsFor(me.role).filter((k) => !on.has(k));
+		if ([...on].some((k) => !isMailKind(k))) return fail(400, { message: 'Unknown kind of e-mail.', section: 'notices' });
+		await setMailOptOut(me.id, off);
+		return { noticesSaved: true };
+	},
+	distance: async (event) => {
+		const me = requireRole(event, 'contractor');
+		const { data, failure } = await parseForm(event.request, distanceUnitSchema);
+		if (failure) return fail(failure.status, { ...failure.data, section: 'distance' });
+		await setContractorDistanceUnit(me.id, data.distanceUnit === 'auto' ? null : data.distanceUnit);
+		return { distanceSaved: true };
 	}
 } satisfies Actions;

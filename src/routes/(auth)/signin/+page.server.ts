@@ -5,7 +5,7 @@ import { formError, parseForm } from '$lib/server/forms';
 import { homeFor, safeRedirect } from '$lib/server/guards';
 import { dummyHash, verifyPassword } from '$lib/server/password';
 import { countSignInAttempt, formatWait, signInSucceeded } from '$lib/server/throttle';
-import { findUserByEmail } from '$lib/server/users';
+import { DISABLED_MESSAGE, findUserByEmail } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (({ locals, url }) => {
@@ -34,6 +34,8 @@ export const actions = {
 			return formError(values, 'That e-mail and password do not match an account. Just signed up? Open the link we e-mailed you first.', {
 				password: 'Check your password, or reset it.'
 			});
+		// Told only to someone who knows the password, so it reveals nothing to a guesser.
+		if (user.disabledAt) return formError(values, DISABLED_MESSAGE, {}, 403);
 		await signInSucceeded(data.email, ip);
 		await startSession(event, user.id);
 		redirect(303, safeRedirect(values.redirectTo, homeFor(user.role)));

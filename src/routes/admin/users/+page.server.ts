@@ -1,4 +1,5 @@
-import { and, asc, count, eq, ilike, or, type SQL } from 'drizzle-orm';
+import { and, asc, count, eq, ilike, isNotNull, or, sql, type SQL } from 'drizzle-orm';
+import { contractorStatuses, type ContractorStatus } from '$lib/contractor-status';
 import { roles, type Role } from '$lib/roles';
 import { db } from '$lib/server/db';
 import { contractor, user } from '$lib/server/db/schema';
@@ -9,23 +10,53 @@ import { error } from '@sveltejs/kit';
 import type { PageServerLoad } from './$types';
 
 const likePattern = (s: string) => `%${s.replace(/[%_\\]/g, '\\$&')}%`;
+const sqlBare = () => sql`regexp_replace(coalesce(${contractor.licenceNumber}, ''), '[\\s-]', '', 'g')`;
+const oneOf = <T extends string>(list: readonly T[], v: string | null): T | null => ((list as readonly string[]).includes(v ?? '') ? (v as T) : null);
 
 export const load = (async (event) => {
 	requireRole(event, 'admin');
 	const search = searchSchema.safeParse({ q: event.url.searchParams.get('q') ?? undefined });
 	if (!search.success) error(400, search.error.issues[0].message);
 	const q = search.data.q;
-	const roleParam = event.url.searchParams.get('role') ?? '';
-	const role = (roles as readonly string[]).includes(roleParam) ? (roleParam as Role) : null;
+	const params = event.url.searchParams;
+	const role = oneOf<Role>(roles, params.get('role'));
+	const status = oneOf<ContractorStatus>(contractorStatuses, params.get('status'));
+	const disabledOnly = params.get('disabled') === '1';
 	const paging = pageFrom(event.url, 25);
 
 	const filters: SQL[] = [];
-	if (q) filters.push(or(ilike(user.name, likePattern(q)), ilike(user.email, likePattern(q)), ilike(contractor.businessName, likePattern(q)))!);
+	if (q) {
+		const like = likePattern(q);
+		// The licence number is matched without spaces or dashes too, as people type it either way.
+		const bare = likePattern(q.replace(/[\s-]/g, ''));
+		filters.push(
+			or(
+				ilike(user.name, like),
+				ilike(user.email, like),
+				ilike(contractor.businessName, like),
+				ilike(contractor.licenceNumber, like),
+				ilike(sqlBare(), bare)
+			)!
+		);
+	}
 	if (role) filters.push(eq(user.role, role));
+	if (status) filters.push(eq(contractor.status, status));
+	if (disabledOnly) filters.push(isNotNull(user.disabledAt));
 	const where = filters.length ? and(...filters) : undefined;
 
 	const rows = await db
-		.select({ id: user.id, name: user.name, email: user.email, role: user.role, createdAt: user.createdAt, businessName: contractor.businessName, status: contractor.status })
+		.select({
+			id: user.id,
+			name: user.name,
+			email: user.email,
+			role: user.role,
+			createdAt: user.createdAt,
+			emailVerifiedAt: user.emailVerifiedAt,
+			disabledAt: user.disabledAt,
+			businessName: contractor.businessName,
+			licenceNumber: contractor.licenceNumber,
+			status: contractor.status
+		})
 		.from(user)
 		.leftJoin(contractor, eq(contractor.userId, user.id))
 		.where(where)
@@ -33,5 +64,5 @@ export const load = (async (event) => {
 		.limit(paging.size)
 		.offset(paging.offset);
 	const [{ n }] = await db.select({ n: count() }).from(user).leftJoin(contractor, eq(contractor.userId, user.id)).where(where);
-	return { rows, total: n, q, role: role ?? '', ...paging };
+	return { rows, total: n, q, role: role ?? '', status: status ?? '', disabled: disabledOnly, ...paging };
 }) satisfies PageServerLoad;

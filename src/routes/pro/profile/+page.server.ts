@@ -11,7 +11,7 @@ export const load = (async (event) => {
 	const user = requireRole(event, 'contractor');
 	const profile = await findContractor(user.id);
 	if (!profile) error(404, 'No contractor record');
-	return { profile, maxMb: DOCUMENT_MAX_BYTES / 1024 / 1024 };
+	return { profile };
 }) satisfies PageServerLoad;
 
 export const actions = {

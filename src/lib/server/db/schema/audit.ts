@@ -1,10 +1,8 @@
 import { index, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { user } from './auth';
-import { vettingDecisions } from '../../../contractor-status';
+import { auditActions, type AuditAction } from '../../../audit';
 
-/** Admin actions so far are the vetting decisions; add new ones to this list as they appear. */
-export const auditActions = vettingDecisions;
-export type AuditAction = (typeof auditActions)[number];
+export { auditActions, type AuditAction };
 export const auditActionEnum = pgEnum('audit_action', auditActions);
 
 /**

@@ -1,3 +1,4 @@
+import { sql } from 'drizzle-orm';
 import { index, integer, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 import { roles, type Role } from '../../../roles';
@@ -13,6 +14,11 @@ export const user = pgTable('user', {
 	role: roleEnum('role').notNull(),
 	passwordHash: text('password_hash').notNull(),
 	emailVerifiedAt: timestamp('email_verified_at', { withTimezone: true }),
+	/** Set by an admin: the account cannot sign in and its sessions are gone. */
+	disabledAt: timestamp('disabled_at', { withTimezone: true }),
+	disabledReason: text('disabled_reason'),
+	/** Mail kinds (src/lib/mail-kinds.ts) this person turned off; kinds added later start on. */
+	mailOptOut: text('mail_opt_out').array().notNull().default(sql`'{}'`),
 	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 });
 
@@ -31,7 +37,7 @@ export const session = pgTable(
 	(t) => [index('session_user_idx').on(t.userId)]
 );
 
-export const tokenPurposes = ['verify_email', 'reset_password', 'sign_in'] as const;
+export const tokenPurposes = ['verify_email', 'reset_password', 'sign_in', 'change_email'] as const;
 export type TokenPurpose = (typeof tokenPurposes)[number];
 export const tokenPurposeEnum = pgEnum('token_purpose', tokenPurposes);
 
@@ -44,6 +50,8 @@ export const emailToken = pgTable(
 			.notNull()
 			.references(() => user.id, { onDelete: 'cascade' }),
 		purpose: tokenPurposeEnum('purpose').notNull(),
+		/** For change_email: the address the link was sent to, which becomes the account's on use. */
+		newEmail: text('new_email'),
 		expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
 		usedAt: timestamp('used_at', { withTimezone: true })
 	},

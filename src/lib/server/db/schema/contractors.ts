@@ -28,6 +28,8 @@ export const contractor = pgTable(
 		servicePostcode: text('service_postcode'),
 		serviceRadius: integer('service_radius'),
 		serviceRadiusUnit: distanceUnitEnum('service_radius_unit').notNull().default('mi'),
+		/** How the leads list shows distances; null: from the reader's locale (miles in the US, else km). */
+		distanceUnit: distanceUnitEnum('distance_unit'),
 		// The service postcode's centroid, stored so matching does not depend on where it came from.
 		serviceLat: doublePrecision('service_lat'),
 		serviceLon: doublePrecision('service_lon'),

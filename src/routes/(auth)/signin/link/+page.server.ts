@@ -7,7 +7,7 @@ import { consumeEmailToken, peekEmailToken } from '$lib/server/email-tokens';
 import { formError, parseForm } from '$lib/server/forms';
 import { homeFor } from '$lib/server/guards';
 import { countMailRequest, formatWait } from '$lib/server/throttle';
-import { findUserByEmail, findUserById, inBackground, markEmailVerified, sendSignInLinkMail } from '$lib/server/users';
+import { findUserByEmail, findUserById, inBackground, markEmailVerified, sendSignInLinkMail, DISABLED_MESSAGE } from '$lib/server/users';
 import type { Actions, PageServerLoad } from './$types';
 
 const tokenSchema = z.object({ token: plainText().min(1, 'This sign-in link is not complete.').max(100, 'This sign-in link is not complete.') });
@@ -36,6 +36,7 @@ export const actions = {
 		const userId = await consumeEmailToken(data.token, 'sign_in');
 		const user = userId ? await findUserById(userId) : undefined;
 		if (!user) return formError(values, 'This sign-in link has expired or was used already. Ask for a new one.');
+		if (user.disabledAt) return formError(values, DISABLED_MESSAGE, {}, 403);
 		// The link reached the address, which proves it is the owner's.
 		if (!user.emailVerifiedAt) await markEmailVerified(user.id);
 		await startSession(event, user.id);

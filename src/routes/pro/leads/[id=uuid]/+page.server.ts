@@ -1,7 +1,8 @@
 import { error } from '@sveltejs/kit';
 import { fullResult, planFigures } from '$lib/plan-figures';
-import { bidSchema, declineSchema, messageSchema } from '$lib/schemas/leads';
-import { requireApprovedContractor } from '$lib/server/contractors';
+import { defaultDistanceUnit, todayIn } from '$lib/reader';
+import { bidSchemaFor, declineSchema, messageSchema } from '$lib/schemas/leads';
+import { contractorDistanceUnit, requireApprovedContractor } from '$lib/server/contractors';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
 import { readerLocale } from '$lib/components/plan/format';
@@ -24,7 +25,8 @@ export const load = (async (event) => {
 		homeowner: found.homeowner,
 		asked: found.asked,
 		locale: readerLocale(event.request.headers.get('accept-language')),
-		unit: found.unitPref,
+		// As on the leads list: the unit the contractor chose, else their language's.
+		unit: (await contractorDistanceUnit(user.id)) ?? defaultDistanceUnit(event.locals.reader.locale),
 		messages: await threadOf(event.params.id),
 		viewerId: user.id
 	};
@@ -44,7 +46,7 @@ async function step(values: Record<string, string>, run: () => Promise<boolean>,
 export const actions = {
 	bid: async (event) => {
 		const user = await requireApprovedContractor(event);
-		const { data, values, failure } = await parseForm(event.request, bidSchema);
+		const { data, values, failure } = await parseForm(event.request, bidSchemaFor(() => todayIn(event.locals.reader.timeZone)));
 		if (failure) return failure;
 		return step(values, () => saveBid(user.id, event.params.id, data, event.url.origin), { bidSaved: true });
 	},

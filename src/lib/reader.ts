@@ -1,0 +1,48 @@
+import type { DistanceUnit } from './schemas/contractor';
+
+/** Who reads the page: their locale and time zone. Shared by server and browser. */
+export type Reader = { locale: string; timeZone: string };
+
+/** The browser writes its IANA time zone here (root layout); the server reads it for the next page. */
+export const TIME_ZONE_COOKIE = 'tz';
+
+/** A time zone this runtime knows, else UTC (an unknown or hostile cookie changes nothing). */
+export function validTimeZone(tz: string | null | undefined): string {
+	if (!tz || tz.length > 64) return 'UTC';
+	try {
+		return new Intl.DateTimeFormat('en-US', { timeZone: tz }).resolvedOptions().timeZone;
+	} catch {
+		return 'UTC';
+	}
+}
+
+/** The calendar day (YYYY-MM-DD) it is now in `timeZone`: a contractor's "today", not UTC's. */
+export function todayIn(timeZone: string, now = new Date()): string {
+	const parts = new Intl.DateTimeFormat('en-US', { timeZone, year: 'numeric', month: '2-digit', day: '2-digit' }).formatToParts(now);
+	const get = (t: string) => parts.find((p) => p.type === t)!.value;
+	return `${get('year')}-${get('month')}-${get('day')}`;
+}
+
+/** Regions that measure road distance in miles; everyone else reads kilometres. */
+const MILE_REGIONS = new Set(['US', 'GB', 'LR', 'MM']);
+export function defaultDistanceUnit(locale: string): DistanceUnit {
+	let region: string | undefined;
+	try {
+		region = new Intl.Locale(locale).maximize().region;
+	} catch {
+		region = undefined;
+	}
+	return region && MILE_REGIONS.has(region) ? 'mi' : 'km';
+}
+
+/** A moment (stored timestamp) in the reader's locale and zone. */
+export const formatMoment = (d: Date | string, r: Reader, style: 'date' | 'datetime' = 'datetime') =>
+	new Intl.DateTimeFormat(r.locale, { dateStyle: 'medium', ...(style === 'datetime' ? { timeStyle: 'short' } : {}), timeZone: r.timeZone }).format(
+		typeof d === 'string' ? new Date(d) : d
+	);
+
+/** A calendar day (YYYY-MM-DD, no zone: a start date, a validity date) in the reader's locale. */
+export const formatDay = (iso: string, r: Pick<Reader, 'locale'>) =>
+	new Intl.DateTimeFormat(r.locale, { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${iso}T00:00:00Z`));
+
+export const fallbackReader: Reader = { locale: 'en-US', timeZone: 'UTC' };

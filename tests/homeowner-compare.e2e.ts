@@ -1,0 +1,97 @@
+import { expect, test, type Page } from '@playwright/test';
+import { formatMoney } from '../src/lib/leads';
+import { signUp, uniqueEmail, watchErrors } from './helpers';
+import { insertBid, insertPlan } from './pro-helpers';
+
+test.describe.configure({ timeout: 240_000 });
+
+/** Sends the plan for one kind of work to one contractor, filling every field of the form. */
+async function sendFor(page: Page, planId: string, o: { scope: string; business: string; when: string; finish: string; surface: string; access: string; notes: string }) {
+	await page.goto(`/plans/${planId}/bids`, { waitUntil: 'networkidle' });
+	await page.getByLabel('What you want done').selectOption({ label: o.scope });
+	await page.getByRole('button', { name: 'Find contractors' }).click();
+	await expect(page.getByLabel('What you want done')).toHaveValue(new RegExp(o.scope === 'The whole job' ? 'whole_job' : 'pour_finish'));
+	for (const box of await page.getByRole('checkbox').all()) await box.uncheck();
+	await page.getByRole('checkbox', { name: new RegExp(o.business) }).check();
+	await page.getByLabel(o.when).check();
+	await page.getByLabel('Finish wanted').selectOption({ label: o.finish });
+	await page.getByLabel('There now').selectOption({ label: o.surface });
+	await page.getByLabel('Site access').fill(o.access);
+	await page.getByLabel('Notes for the contractors').fill(o.notes);
+	await page.getByRole('button', { name: 'Send the plan' }).click();
+	await expect(page.getByText('Sent to 1 contractor.')).toBeVisible();
+}
+
+test('a homeowner compares bids for two kinds of work, one kind at a time, and accepts one after confirming', async ({ page }) => {
+	const errors = watchErrors(page);
+	const email = uniqueEmail('compare');
+	await signUp(page, { name: 'Ilse Marrow', email, password: 'two-scopes-here', role: 'homeowner' });
+	await expect(page).toHaveURL(/\/plans$/);
+	// Corvallis: both demo firms serve it; Quarry Lane only pours and finishes.
+	const { id: planId, result } = await insertPlan(email, { name: 'Side walk', postcode: '97330' });
+
+	await sendFor(page, planId, {
+		scope: 'The whole job',
+		business: 'Ridgeback Flatwork',
+		when: 'Within a month',
+		finish: 'Broom finish (non-slip)',
+		surface: 'Grass or bare soil (strip sod and topsoil)',
+		access: 'Side gate 36 in wide',
+		notes: 'Whole job, please.'
+	});
+	await sendFor(page, planId, {
+		scope: 'Pour and finish',
+		business: 'Quarry Lane Slabs',
+		when: 'This season',
+		finish: 'Float finish',
+		surface: 'Gravel',
+		access: 'Truck can reach the drive',
+		notes: 'I prepare the base myself.'
+	});
+
+	await insertBid(planId, 'dell@ridgebackflatwork.example', { dollars: 3100, days: 2, inclusions: 'Dig, base, forms, pour, broom finish.' });
+	await insertBid(planId, 'june@quarrylaneslabs.example', { dollars: 1350, days: 1, inclusions: 'Pour and float finish.' });
+
+	await page.goto(`/plans/${planId}/bids`, { waitUntil: 'networkidle' });
+	const filter = page.getByTestId('scope-filter');
+	await expect(filter.getByRole('button')).toHaveText(['Pour and finish (1)', 'The whole job (1)']);
+	// Like with like: one kind of work at a time, starting with the first.
+	const rows = page.getByTestId('bid-row');
+	await expect(page.getByTestId('compared-scope')).toHaveText('Pour and finish');
+	await expect(rows).toHaveCount(1);
+	await expect(rows.first()).toContainText('Quarry Lane Slabs');
+	await expect(rows.first().getByTestId('bid-price')).toHaveText(formatMoney(135_000));
+	// Part of the work is not compared with DIY materials for the whole slab.
+	await expect(rows.first().getByTestId('bid-vs-diy')).toHaveText('—');
+
+	await filter.getByRole('button', { name: /The whole job/ }).click();
+	await expect(filter.getByRole('button', { name: /The whole job/ })).toHaveAttribute('aria-pressed', 'true');
+	await expect(page.getByTestId('compared-scope')).toHaveText('The whole job');
+	await expect(rows).toHaveCount(1);
+	await expect(rows.first()).toContainText('Ridgeback Flatwork');
+	await expect(rows.first().getByTestId('bid-price')).toHaveText(formatMoney(310_000));
+	const diy = Math.round(result.materials.diyTotal.amount * 100);
+	await expect(rows.first().getByTestId('bid-vs-diy')).toHaveText(`${310_000 >= diy ? '+' : '−'}${formatMoney(Math.abs(310_000 - diy))}`);
+	await filter.getByRole('button', { name: /Pour and finish/ }).click();
+	await expect(page.getByTestId('compared-scope')).toHaveText('Pour and finish');
+
+	// Accepting asks first, names the price and what follows; closing the question changes nothing.
+	const mine = rows.first();
+	await mine.getByText('Accept…').click();
+	const ask = mine.getByTestId('accept-bid');
+	await expect(ask).toContainText(`Hire Quarry Lane Slabs for ${formatMoney(135_000)}?`);
+	await expect(ask).toContainText('The other contractor is told they were not selected.');
+	await mine.getByText('Accept…').click();
+	await expect(mine.getByRole('button', { name: 'Yes, accept this bid' })).toBeHidden();
+	await page.reload({ waitUntil: 'networkidle' });
+	await expect(page.getByTestId('compared-scope')).toHaveText('Pour and finish');
+	await rows.first().getByText('Accept…').click();
+	await rows.first().getByRole('button', { name: 'Yes, accept this bid' }).click();
+	await expect(page.getByText('Bid accepted.')).toBeVisible();
+	await expect(page.getByTestId('compared-scope')).toHaveText('Pour and finish');
+	await expect(rows.first().getByTestId('bid-status')).toHaveText('Accepted');
+	await page.getByTestId('scope-filter').getByRole('button', { name: /The whole job/ }).click();
+	await expect(rows.first().getByTestId('bid-status')).toHaveText('Not selected');
+	await expect(page.getByText('Accept…')).toHaveCount(0);
+	expect(errors).toEqual([]);
+});
