@@ -69,7 +69,7 @@ test('a metric plan in two pours on a phone: corners carry the section number an
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 	await page.screenshot({ path: 'test-results/screens/plan-layout-sheet-390.png', fullPage: true });
 	const card = page.getByTestId('build-card');
-	// 100 mm slab + 100 mm thickened-edge trench + 100 mm base at the thickened edges.
-	await expect(card.locator('div', { hasText: /^Dig at thickened edges/ }).getByRole('definition').first()).toHaveText('300 mm');
+	// 100 mm slab + 100 mm thickened-edge trench; no base under the thickened edges (as the base volume lays it).
+	await expect(card.locator('div', { hasText: /^Dig at thickened edges/ }).getByRole('definition').first()).toHaveText('200 mm');
 	expect(errors).toEqual([]);
 });

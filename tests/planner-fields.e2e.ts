@@ -146,6 +146,19 @@ async function fillEveryStep(page: Page) {
 	await page.getByLabel('Length of edge A–B in ft').fill('15');
 	await page.getByLabel('Length of edge A–B in ft').blur();
 	await expect(page.getByLabel('Length of edge C–D in ft')).toHaveValue('15');
+	// A length the plan cannot take stays in its field, marked, with the reason; nothing else moves.
+	const ab = page.getByLabel('Length of edge A–B in ft');
+	for (const [bad, why] of [['5000', 'at most 1000 ft around'], ['-3', 'Enter a length above 0 ft.']]) {
+		await ab.fill(bad);
+		await ab.blur();
+		await expect(ab).toHaveValue(bad);
+		await expect(ab).toHaveAttribute('aria-invalid', 'true');
+		await expect(page.getByRole('alert').filter({ hasText: why })).toBeVisible();
+		await expect(page.getByLabel('Length of edge C–D in ft')).toHaveValue('15');
+	}
+	await ab.fill('15');
+	await ab.blur();
+	await expect(ab).not.toHaveAttribute('aria-invalid');
 	await page.getByLabel('Length of edge B–C in ft').fill('9');
 	await page.getByLabel('Length of edge B–C in ft').blur();
 	await page.getByLabel('Length of edge D–A in ft').fill('10');
@@ -155,7 +168,19 @@ async function fillEveryStep(page: Page) {
 	await expect(page.getByLabel('Edge A–B runs along a house wall')).toBeChecked(); // the wall stays where it was
 
 	await goTo(page, 'Pitch');
+	// A new unit keeps the slope: 2 % is 0.24 in per ft (2 % × 12 in), and back gives 2 again.
+	await expect(page.getByLabel('Fall', { exact: true })).toHaveValue('2');
+	await page.locator('#fall-unit').selectOption('inPerFt');
+	await expect(page.getByLabel('Fall', { exact: true })).toHaveValue('0.24');
+	await page.locator('#fall-unit').selectOption('totalDrop');
+	await expect(page.getByLabel('Fall', { exact: true })).toHaveValue('2.4'); // 2 % over the 10 ft run = 2.4 in
+	await page.locator('#fall-unit').selectOption('percent');
+	await expect(page.getByLabel('Fall', { exact: true })).toHaveValue('2');
 	await fillStep(page, typed);
+	// The fall was typed before its unit changed (which converted it); type it again in in per ft.
+	await page.getByLabel('Fall', { exact: true }).fill('0.25');
+	await page.getByLabel('Fall', { exact: true }).blur();
+	typed.fall = '0.25';
 	// The cross fall was typed and its unit changed; set it back to none so the fall alone shows.
 	await page.getByLabel('Cross fall').fill('0');
 	await page.getByLabel('Cross fall').blur();
@@ -191,6 +216,12 @@ test('a new visitor types into every field of every step: no page error, and the
 	await page.goto('/plans/new');
 	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
 	const before = await page.getByTestId('result-bags').textContent();
+	// A pour day already gone gets a note; a day ahead does not.
+	await page.locator('#pour-date').fill('2020-05-04');
+	await expect(page.getByTestId('pour-date-past')).toContainText('This day has passed');
+	await page.locator('#pour-date').fill(`${new Date().getFullYear() + 1}-05-04`);
+	await expect(page.getByTestId('pour-date-past')).toHaveCount(0);
+	await page.locator('#pour-date').fill('');
 	const typed = await fillEveryStep(page);
 	expect(Object.keys(typed).length).toBeGreaterThan(70);
 	// Thicker slab, larger area: more bags than the starter's 12 × 10 × 4 in.

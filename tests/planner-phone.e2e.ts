@@ -21,6 +21,10 @@ test('on a phone the key results stay in sight while editing, corners are big en
 	test.setTimeout(120_000);
 	const errors = watchErrors(page);
 	await page.goto('/plans/new');
+	// Touch targets of at least 44 px: the header link, the cautions summary.
+	for (const target of [page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Sign in' }), page.getByTestId('results').locator('summary')]) {
+		expect((await target.boundingBox())!.height).toBeGreaterThanOrEqual(44);
+	}
 	await everyStep(page, 'new plan');
 
 	await wizardStep(page, 'Build-up');
@@ -37,7 +41,13 @@ test('on a phone the key results stay in sight while editing, corners are big en
 	await expect(bar.getByText(/Mixing and placing/)).toBeVisible();
 	await page.screenshot({ path: 'test-results/screens/phone-results-bar.png' });
 
+	// The bar's figures stay on one line each ("1.63 yd³", not "1.63 / yd³").
+	const volume = (await bar.getByTestId('bar-volume').boundingBox())!;
+	const area = (await bar.getByTestId('bar-area').boundingBox())!;
+	expect(volume.height).toBeLessThanOrEqual(area.height + 1);
+
 	await wizardStep(page, 'Outline');
+	expect((await page.getByText('Freestanding: no house wall').boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	for (const hit of await page.getByTestId('corner-hit').all()) {
 		const box = (await hit.boundingBox())!;
 		expect(box.width).toBeGreaterThanOrEqual(44);

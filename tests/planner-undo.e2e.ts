@@ -29,6 +29,24 @@ test('undo brings back a deleted corner, redo removes it again, and Start over r
 	await page.keyboard.press('Control+Shift+z');
 	await expect(corners).toHaveCount(3);
 	await page.keyboard.press('Control+z');
+	await expect(corners).toHaveCount(4);
+
+	// A slow drag of corner C, paused halfway, is one undo step: Undo puts the outline back as it was.
+	const c = page.getByRole('button', { name: /^Section 1, corner C,/ });
+	const box = (await c.boundingBox())!;
+	await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+	await page.mouse.down();
+	await page.mouse.move(box.x + box.width / 2 + 30, box.y + box.height / 2 + 20, { steps: 5 });
+	await page.waitForTimeout(1000); // a pause mid-drag, longer than the typing merge window
+	await page.mouse.move(box.x + box.width / 2 + 60, box.y + box.height / 2 + 40, { steps: 5 });
+	await page.mouse.up();
+	await expect(page.getByTestId('result-area')).not.toHaveText('120 ft²');
+	await page.getByRole('button', { name: 'Undo' }).click();
+	await expect(page.getByTestId('result-area')).toHaveText('120 ft²');
+	await expect(c).toHaveAccessibleName('Section 1, corner C, at 12 by 10 ft');
+	await page.getByRole('button', { name: 'Redo' }).click();
+	await expect(page.getByTestId('result-area')).not.toHaveText('120 ft²');
+	await page.getByRole('button', { name: 'Undo' }).click();
 
 	await wizardStep(page, 'Build-up');
 	await page.getByLabel('Thickness').fill('6');

@@ -32,7 +32,17 @@ test('an L around a house corner keeps both walls through save, reload, a split 
 	await expect(housesDrawn(page)).toHaveCount(2);
 	// Revisiting the step shows the sizes that were applied, not the form's own defaults.
 	await goTo(page, 'Pitch');
+	// The preset starts with a cross fall, so water runs away from both walls (IRC R401.3).
+	await expect(page.getByLabel('Cross fall')).toHaveValue('2');
+	const pitch = page.getByLabel('Resulting pitch');
+	await expect(pitch.getByText('Away from wall C–D')).toBeVisible();
+	await expect(pitch.getByText('Away from wall D–E')).toBeVisible();
+	await expect(pitch).not.toContainText('toward the house');
+	await page.getByLabel('Cross fall').fill('-2');
+	await expect(pitch).toContainText('2 % toward the house');
+	await expect(pitch.getByRole('link', { name: 'Cross fall' })).toBeVisible();
 	await page.getByLabel('Cross fall').fill('2');
+	await expect(pitch).not.toContainText('toward the house');
 	await goTo(page, 'Outline');
 	await expect(page.getByLabel('Length (A–B)')).toHaveValue('24');
 	await expect(page.getByLabel('Notch width (D–E)')).toHaveValue('6');

@@ -26,6 +26,13 @@ describe('every plan', () => {
 		expect(sev(50)).toBe('info'); // 50 lb = 22.68 kg < 23 kg, NIOSH Pub. 94-110
 	});
 
+	it('names a metric bag once, in kg, and the load constant in the plan\'s unit first', () => {
+		const reason = (input: PlanInput) => computePlan(input).cautions.find((x) => x.id === 'bag-weight')!.reason;
+		const met = reason({ units: 'metric', sections: [{ outline: rect(0, 0, 3, 2) }], bags: { offered: [{ size: 40 }] } });
+		expect(met).toMatch(/^The 40 kg bags are over the NIOSH load constant of 23 kg \(51 lb\)/);
+		expect(reason({ ...base, bags: { offered: [{ size: 80 }] } })).toMatch(/^The 80 lb bags \(36\.3 kg\) are over the NIOSH load constant of 51 lb \(23 kg\)/);
+	});
+
 	it('calls the utility locate 3 working days ahead', () => {
 		expect(computePlan(base).cautions.find((x) => x.id === 'utility-locate')!.action).toMatch(/3 working days/); // state one-call laws, 2–3 days
 	});
@@ -93,6 +100,44 @@ describe('plan-specific cautions', () => {
 		expect(ids({ slope: { fall: { value: 2, unit: 'percent' } } })).not.toContain('drainage-2-percent'); // IRC R401.3
 		expect(ids({ slope: { fall: { value: 8, unit: 'percent' } } })).toContain('slope-steep');
 		expect(ids({ houseEdge: null, slope: { fall: { value: 0.5, unit: 'percent' } } })).toContain('slope-flat'); // ⅛ in/ft, common practice
+	});
+
+	it('names the house wall by its corner letters and the fix by the wizard step and field', () => {
+		const c = (input: Partial<PlanInput>) => computePlan({ ...base, ...input } as PlanInput).cautions.find((x) => x.id === 'water-toward-foundation')!;
+		const high = c({ houseEdge: { section: 0, edge: 0 }, slope: { highEdge: { section: 0, edge: 2 } } });
+		expect(high.reason).toMatch(/house wall edge A–B /);
+		expect(high.reason).toMatch(/falls \d[\d.]* % toward the house/);
+		expect(high.action).toMatch(/Pitch step.*High side.*Cross fall/);
+		const level = c({ houseEdge: { section: 0, edge: 0 }, slope: { fall: { value: 0, unit: 'percent' } } });
+		expect(level.reason).toMatch(/edge A–B the surface is level/);
+		expect(level.action).toMatch(/Pitch step, raise Fall/);
+		const two = c({ sections: [{ outline: rect(0, 0, 10, 8) }, { name: 'Walk', outline: rect(10, 0, 14, 8) }], houseEdge: { section: 1, edge: 1 }, slope: { highEdge: { section: 0, edge: 3 } } });
+		expect(two.reason).toMatch(/edge 2B–2C of Walk/);
+		for (const x of [high, level, two]) expect(`${x.reason} ${x.action}`).not.toMatch(/slope\.|highEdge|edge \d+[ ,.]/);
+	});
+
+	it('warns when the slab would finish above the door sill, and names an unnamed reference', () => {
+		expect(ids({ reference: { label: 'door sill', below: 1 } })).not.toContain('above-reference');
+		const c = computePlan({ ...base, reference: { label: 'door sill', below: -0.5 } }).cautions.find((x) => x.id === 'above-reference')!;
+		expect(c.severity).toBe('warning');
+		expect(c.reason).toMatch(/0\.5 in above the door sill/);
+		const unnamed = computePlan({ ...base, reference: { label: '  ', below: -1 } });
+		expect(unnamed.cautions.find((x) => x.id === 'above-reference')!.title).toBe('The slab would finish above the reference mark');
+		expect(unnamed.elevations.reference.label).toBe('reference mark');
+		expect(JSON.stringify(unnamed)).not.toMatch(/the \./);
+	});
+
+	it('the day plan coats the boards as the Build-up step chose, so it never contradicts the oil caution', () => {
+		const forms = (release: 'agent' | 'oil' | 'none') => {
+			const r = computePlan({ ...base, forms: { release } });
+			return { text: r.schedule.days.flatMap((d) => d.tasks).find((t) => t.id === 'forms')!.text, ids: r.cautions.map((c) => c.id) };
+		};
+		expect(forms('agent').text).toMatch(/release agent/);
+		const oil = forms('oil');
+		expect(oil.ids).toContain('form-release-oil');
+		expect(oil.text).not.toMatch(/release agent/);
+		expect(oil.text).toMatch(/never used motor oil/);
+		expect(forms('none').text).toMatch(/no release coat/);
 	});
 
 	it('flags cold, hot and fast-drying weather', () => {

@@ -46,6 +46,14 @@ export const IRC_R402_2 = {
 /** IRC R506.1 / ACI 332: slabs on ground at least 3½ in (89 mm). */
 export const MIN_THICKNESS_M = 3.5 * M_PER_IN;
 
+/** An edge by the corner letters the wizard and the layout sheet use: "edge D–E", or "edge 2A–2B" with several pours. */
+export function edgeLabel(m: Pick<Model, 'sections'>, s: number, e: number): string {
+	const many = m.sections.length > 1;
+	const n = m.sections[s].outline.length;
+	const at = (v: number) => `${many ? s + 1 : ''}${String.fromCharCode(65 + (v % 26)) + (v >= 26 ? Math.floor(v / 26) : '')}`;
+	return `edge ${at(e)}–${at((e + 1) % n)}`;
+}
+
 const one = (x: number, d = 1) => String(Math.round(x * 10 ** d) / 10 ** d);
 
 /** Modulus of rupture, ACI 318-19 §19.2.3: 7.5 √f'c psi, or 0.62 √f'c MPa. */
@@ -87,7 +95,7 @@ const bagWeight: Rule = ({ mixing }) => {
 	return {
 		id: 'bag-weight',
 		title: over ? 'Each bag weighs more than the NIOSH load constant' : 'Lifting bags from the ground',
-		reason: `The ${one(mixing.bag.size)} ${mixing.bag.unit} bags (${one(kg)} kg) are ${over ? 'over' : 'near'} the NIOSH load constant of 23 kg (51 lb), and lifting from the ground lowers the recommended limit well below it; the crew handles about ${mixing.bagsPerPerson} bags each.`,
+		reason: `The ${one(mixing.bag.size)} ${mixing.bag.unit} bags${mixing.bag.unit === 'kg' ? '' : ` (${one(kg)} kg)`} are ${over ? 'over' : 'near'} the NIOSH load constant of ${mixing.bag.unit === 'kg' ? '23 kg (51 lb)' : '51 lb (23 kg)'}, and lifting from the ground lowers the recommended limit well below it; the crew handles about ${mixing.bagsPerPerson} bags each.`,
 		action: 'Lift with two people or slide bags at waist height from the vehicle; choose a smaller bag size; take turns.',
 		source: 'NIOSH Revised Lifting Equation, Pub. 94-110',
 		severity: over ? 'warning' : 'info'
@@ -190,15 +198,35 @@ const oilRelease: Rule = ({ m }) =>
 				severity: 'warning'
 			};
 
+/** A slab top above the door sill or the slab it meets sends water in under the door. */
+const aboveReference: Rule = ({ m }) =>
+	m.reference.below >= 0
+		? null
+		: {
+				id: 'above-reference',
+				title: `The slab would finish above the ${m.reference.label}`,
+				reason: `The Site step puts the high point of the slab ${m.units === 'metric' ? `${Math.round(-m.reference.below * 1000)} mm` : `${one(-m.reference.below / M_PER_IN, 2)} in`} above the ${m.reference.label}, so water running off it can reach the ${m.reference.label} and get in under a door or against the wall.`,
+				action: 'In the Site step, enter a positive "High point of the slab below it by": most slabs finish a little below a door sill or the slab they meet.',
+				// IRC R311.3 (landing at most 1½ in below the threshold) and R401.3: section numbers from memory
+				source: 'IRC R311.3 and R401.3',
+				severity: 'warning'
+			};
+
 const drainage: Rule[] = [
 	({ m, elevations: e }) => {
 		const bad = e.houseEdges.filter((h) => h.fallAway.percent <= 0);
 		if (!bad.length) return null;
+		const walls = bad.map((h) => `${edgeLabel(m, h.section, h.edge)}${m.sections.length > 1 ? ` of ${m.sections[h.section].name}` : ''}`);
+		const worst = -Math.min(...bad.map((h) => h.fallAway.percent));
+		const high = m.highEdge;
+		const highIsBad = bad.some((h) => h.section === high.section && h.edge === high.edge);
 		return {
 			id: 'water-toward-foundation',
 			title: 'Water would run toward the foundation',
-			reason: `Along ${bad.map((h) => `${m.sections[h.section].name}, edge ${h.edge + 1},`).join(', ')} the surface falls ${one(-Math.min(...bad.map((h) => h.fallAway.percent)), 2)} % toward the house or not at all.`,
-			action: 'Make the house side the high side (set slope.highEdge to the house edge) or add a cross fall so every edge along the house falls away.',
+			reason: `Along the house wall ${walls.join(' and ')} the surface ${worst > 0.005 ? `falls ${one(worst, 2)} % toward the house` : 'is level, so water stands against the house'}.`,
+			action: highIsBad
+				? `In the Pitch step, raise Fall so the surface falls at least 2 % away from the house wall ${walls[0]}.`
+				: `In the Pitch step, choose the house wall ${walls[0]} as High side, or enter a Cross fall (under "Fall along the high side") so every house wall falls away from the house.`,
 			source: 'IRC R401.3',
 			severity: 'danger'
 		};
@@ -355,7 +383,7 @@ const build: Rule[] = [
 				}
 ];
 
-const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, loads, ...freezeThaw, fillNearSurface, oilRelease, ...drainage, ...weatherRules, ...crew, ...build];
+const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, loads, ...freezeThaw, fillNearSurface, oilRelease, aboveReference, ...drainage, ...weatherRules, ...crew, ...build];
 
 export function computeCautions(c: CautionContext): Caution[] {
 	return RULES.map((r) => r(c)).filter((x): x is Caution => x !== null);

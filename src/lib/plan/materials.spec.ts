@@ -31,6 +31,9 @@ describe('materials list', () => {
 		const expected = 955.5 + 194.0741 + 52 + 25.5 + 4.8 + 12 + 20 + 24 + 120 + 720;
 		expect(priced.materials.diyTotal.amount).toBeCloseTo(expected, 3);
 		expect(priced.materials.diyTotal.complete).toBe(true);
+		// Tap water has no price: shown "—" like any unpriced line, yet the total stays complete.
+		expect(item('water').cost).toBeUndefined();
+		expect(priced.materials.diyTotal.unpriced).not.toContain('water');
 		// The same basis for ready-mix: everything but the bags and the water.
 		expect(priced.cost.sharedCost).toBeCloseTo(expected - 955.5, 3);
 	});

@@ -115,7 +115,7 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 			unit: 'bags',
 			cost: x.planned.cost
 		},
-		{ id: 'water', name: 'Clean mixing water', quantity: imp ? x.planned.water.gallons : x.planned.water.liters, unit: imp ? 'gal' : 'L', cost: 0 }
+		{ id: 'water', name: 'Clean mixing water', quantity: imp ? x.planned.water.gallons : x.planned.water.liters, unit: imp ? 'gal' : 'L' }
 	];
 	if (m.base.depth > 0) {
 		const loose = x.volume.base.loose.cubicMeters;
@@ -218,7 +218,8 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 const round1 = (v: number, d = 1) => Math.round(v * 10 ** d) / 10 ** d;
 
 function total(items: MaterialItem[]): MaterialsResult['diyTotal'] {
-	const unpriced = items.filter((i) => i.cost === undefined).map((i) => i.id);
+	// Mixing water comes from the tap: it has no price, shown as "—", and never leaves the total incomplete.
+	const unpriced = items.filter((i) => i.cost === undefined && i.id !== 'water').map((i) => i.id);
 	const amount = items.reduce((a, i) => a + (i.cost ?? 0), 0);
 	return { amount, complete: unpriced.length === 0, unpriced };
 }

@@ -165,7 +165,7 @@ export function toModel(p: ParsedPlan): Model {
 		hasHouse: houseEdges.length > 0,
 		gapToHouse: S(p.gapToHouse),
 		houseEdgeFormed: p.houseEdgeFormed,
-		reference: { label: p.reference.label, below: S(p.reference.below) },
+		reference: { label: p.reference.label.trim() || 'reference mark', below: S(p.reference.below) },
 		fall: rate(p.slope.fall, u),
 		crossFall: rate(p.slope.crossFall, u),
 		thickness: S(p.thickness),

@@ -180,12 +180,14 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 	const byAge = (days: number) => first((te) => te >= days - 1e-9);
 	const byPercent = (p: number) => first((te) => strengthRatio(te, m.cement) * 100 >= p - 1e-9);
 	const curingMin = CURING[m.cement];
+	// Equivalent age at 20 °C (ASTM C1074) in the plan's own temperature unit, in plain words.
+	const asIfAt = `of curing as if at ${m.units === 'imperial' ? '68 °F' : '20 °C'}, cooler days counting for less`;
 	const to70 = byPercent(CURING.percent);
 	const byDays = byAge(curingMin);
 	const list: Omit<Milestone, 'planDay' | 'date'>[] = [
-		{ id: 'forms-off', title: 'Strip the forms', day: byAge(ms.formsOffDays), rule: `${dayCount(ms.formsOffDays)} at 20 °C equivalent age`, source: 'common practice (about 24 h)' },
-		{ id: 'walk', title: 'Walk on it', day: byAge(ms.walkDays), rule: `${dayCount(ms.walkDays)} at 20 °C equivalent age`, source: 'common practice (24–48 h)' },
-		{ id: 'furniture', title: 'Set furniture on it', day: byAge(ms.furnitureDays), rule: `${dayCount(ms.furnitureDays)} at 20 °C equivalent age`, source: 'common practice, no published source' }, // from memory
+		{ id: 'forms-off', title: 'Strip the forms', day: byAge(ms.formsOffDays), rule: `${dayCount(ms.formsOffDays)} ${asIfAt}`, source: 'common practice (about 24 h)' },
+		{ id: 'walk', title: 'Walk on it', day: byAge(ms.walkDays), rule: `${dayCount(ms.walkDays)} ${asIfAt}`, source: 'common practice (24–48 h)' },
+		{ id: 'furniture', title: 'Set furniture on it', day: byAge(ms.furnitureDays), rule: `${dayCount(ms.furnitureDays)} ${asIfAt}`, source: 'common practice, no published source' }, // from memory
 		...(m.loads.vehicles
 			? [{ id: 'vehicles' as const, title: 'Drive on it', day: byPercent(ms.vehiclePercent), rule: `${ms.vehiclePercent} % of design strength`, source: 'common practice (about 70 % of design strength)' }]
 			: []),
@@ -193,7 +195,7 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 			id: 'curing-done',
 			title: m.curing.method === 'compound' ? 'Curing compound has done its work' : 'Stop curing',
 			day: byDays === null ? to70 : to70 === null ? byDays : Math.min(byDays, to70),
-			rule: `${curingMin} days at 20 °C equivalent age, or sooner once ${CURING.percent} % of design strength, whichever comes first`,
+			rule: `${curingMin} days ${asIfAt}, or sooner once ${CURING.percent} % of design strength, whichever comes first`,
 			source: `ACI 318-19 §26.5.3.1 (${curingMin} days above 50 °F); 70 %: ACI 308.1` // the 70 % alternative from memory
 		}
 	];
@@ -249,7 +251,13 @@ export function buildSchedule(
 	add(1, 'locate', `Call 811 (or your one-call number) at least ${LOCATE_WORKING_DAYS} working days before digging, and wait until every utility has marked or cleared (state one-call law rules the notice).`);
 	add(digDay, 'layout', 'Check the utility marks are all in; lay out the outline with stakes and string; mark the high point from the reference.');
 	add(digDay, 'dig', 'Dig to slab thickness plus base depth, the base past the forms, and the trenches for any thickened edges; dig by hand near any marks.');
-	add(digDay + 1, 'forms', 'Set the form boards and stakes to the level-line table; coat the boards with release agent.');
+	// The coat follows the Build-up step's choice (oil: see the form-release-oil caution).
+	const coat = {
+		agent: 'coat the boards thinly with the form release agent.',
+		oil: 'you chose oil to keep concrete off the boards: use a thin film of clean form oil, never used motor oil (see the cautions).',
+		none: 'you chose no release coat: wet the boards before the pour and strip them with care.'
+	}[m.forms.release];
+	add(digDay + 1, 'forms', `Set the form boards and stakes to the level-line table; ${coat}`);
 	add(digDay + 1, 'base', 'Spread the base and compact it in lifts; fit the isolation strip against the house.');
 	if (m.reinforcement === 'mesh' || m.reinforcement === 'rebar')
 		add(digDay + 1, 'reinforcement', 'Lay the reinforcement on chairs so it ends up within the slab, not on the ground.');

@@ -27,7 +27,8 @@ describe('the slab block', () => {
 			thickenedEdge: { edges: 'free', width: 250, extraDepth: 120 }
 		});
 		expect(r.slab.digDepth.millimeters).toBeCloseTo(250, 9); // 100 + 150
-		expect(r.slab.thickenedDigDepth?.millimeters).toBeCloseTo(370, 9); // 100 + 120 + 150
+		expect(r.slab.thickenedDigDepth?.millimeters).toBeCloseTo(220, 9); // 100 + 120: no base under the trench, as volume.ts lays it
+		expect(r.volume.base.note).toMatch(/No base under the thickened edges/);
 		expect(r.slab.trench).toMatchObject({ width: { millimeters: 250 }, depth: { millimeters: 120 } });
 		expect(r.slab.houseGap).toBeNull(); // freestanding
 		const gap = computePlan({ units: 'metric', sections: [{ outline: rect(0, 0, 6, 4) }], gapToHouse: 20 }).slab.houseGap;

@@ -14,8 +14,9 @@ export interface SlabResult {
 	/** Below the finished top: slab plus base, the depth to dig over the field of the slab. */
 	digDepth: Small;
 	/**
-	 * Below the finished top at a thickened edge, or null without one: slab, the trench's extra
-	 * depth, and the same base under it (volume.ts lays the base under the whole footprint).
+	 * Below the finished top at a thickened edge, or null without one: slab and the trench's extra
+	 * depth, with no base under it (volume.ts leaves the trench off the base: the edge bears on firm
+	 * undisturbed soil, common practice, no published source).
 	 */
 	thickenedDigDepth: Small | null;
 	/** The thickened-edge trench under the slab, or null without one. */
@@ -34,7 +35,7 @@ export interface SlabResult {
 export function computeSlab(m: Model, plane: Plane, thickened: boolean[][]): SlabResult {
 	const dig = m.thickness + m.base.depth;
 	const thick = thickened.some((s) => s.includes(true));
-	const edgeDig = m.thickness + m.thickened.extraDepth + m.base.depth;
+	const edgeDig = m.thickness + m.thickened.extraDepth;
 	const { origin, t, n } = plane.frame;
 	// drop(p) = fall·w + cross·u − minDrop with u = t·(p − o), w = n·(p − o): the gradient is fall·n + cross·t.
 	const down: Pt = [plane.fall * n[0] + plane.cross * t[0], plane.fall * n[1] + plane.cross * t[1]];

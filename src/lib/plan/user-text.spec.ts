@@ -68,6 +68,15 @@ describe('text a person reads', () => {
 		expect(strings(r).filter((t) => /\w\(s\)|\bAbout 0 /.test(t))).toEqual([]);
 	});
 
+	it('milestone rules speak the plan\'s temperature unit, in plain words', () => {
+		const imp = computePlan(base).milestones.map((x) => x.rule).join('\n');
+		expect(imp).toMatch(/as if at 68 °F/);
+		expect(imp).not.toMatch(/°C|equivalent age/);
+		const met = computePlan({ units: 'metric', sections: [{ outline: rect(0, 0, 6, 4) }] }).milestones.map((x) => x.rule).join('\n');
+		expect(met).toMatch(/as if at 20 °C/);
+		expect(met).not.toMatch(/°F/);
+	});
+
 	it('the article check itself catches the slips it is for', () => {
 		expect(articleSlips('carry a 80 lb bag, an 4 in slab, an 18 in stake, a 60 lb bag, an 8 ft board, a 1.2 m level')).toEqual(['a 80', 'an 4']);
 	});

@@ -3,7 +3,7 @@ import { computePlan } from '$lib/plan';
 import { completeInput, PlanDraft, starterInput } from './draft.svelte';
 import { editableCopy, sameData } from './editable';
 import { EditHistory } from './history.svelte';
-import { detectPreset, presetHouse, presetOutline } from './presets';
+import { detectPreset, presetCrossFall, presetHouse, presetOutline, presetProblem } from './presets';
 import { lShape } from './shapes';
 
 /** Every object and array reachable from v, v included. */
@@ -77,6 +77,20 @@ describe('edit history', () => {
 		expect(h.undo()).toBe('start');
 		expect(h.redo()).toBe('two');
 	});
+
+	it('a drag is one step, however slow, and never merges into the edit before it', () => {
+		const h = new EditHistory('start', { quietMs: 500 });
+		h.record('typed', 10);
+		h.begin();
+		h.record('moved-1', 20); // right after the typing: still a step of its own
+		h.record('moved-2', 2000); // a pause mid-drag: the same step
+		h.record('moved-3', 5000);
+		h.end();
+		h.record('after', 5100);
+		expect(h.undo()).toBe('moved-3');
+		expect(h.undo()).toBe('typed'); // the outline exactly as before the drag
+		expect(h.undo()).toBe('start');
+	});
 });
 
 describe('shape presets', () => {
@@ -93,6 +107,34 @@ describe('shape presets', () => {
 		input.otherHouseEdges = [];
 		expect(detectPreset(input).house).toBe('none');
 		expect(detectPreset(starterInput())).toMatchObject({ shape: 'rectangle', length: 12, width: 10, house: 'side' });
+	});
+});
+
+describe('the preset form says which size to fix', () => {
+	it('names the field and the limit', () => {
+		const rect = { shape: 'rectangle' as const, length: 0, width: 10, notchLength: 6, notchWidth: 5, house: 'side' as const };
+		expect(presetProblem(rect, 'imperial')).toBe('Enter the length (A–B), above 0 ft.');
+		expect(presetProblem({ ...rect, length: 12, width: Number.NaN }, 'metric')).toBe('Enter the width (B–C side), above 0 m.');
+		expect(presetProblem({ ...rect, length: 12, notchLength: 40 }, 'imperial')).toBeNull(); // a rectangle has no notch
+		const l = { ...rect, shape: 'l' as const, length: 12 };
+		expect(presetProblem(l, 'imperial')).toBeNull();
+		expect(presetProblem({ ...l, notchLength: 12 }, 'imperial')).toBe('The notch length (C–D) must be less than the length (A–B), 12 ft.');
+		expect(presetProblem({ ...l, notchWidth: 0 }, 'imperial')).toBe('Enter the notch width (D–E), above 0 ft.');
+	});
+});
+
+describe('the house-corner preset', () => {
+	it.each([
+		{ value: 2, unit: 'percent' as const },
+		{ value: 0.25, unit: 'inPerFt' as const },
+		{ value: 3, unit: 'totalDrop' as const }
+	])('falls away from both walls (IRC R401.3) with the fall as %o', (fall) => {
+		const p = { shape: 'l' as const, length: 16, width: 12, notchLength: 6, notchWidth: 5, house: 'corner' as const };
+		const [houseEdge, ...otherHouseEdges] = presetHouse(p);
+		const r = computePlan(completeInput({ units: 'imperial', sections: [{ outline: presetOutline(p) }], houseEdge, otherHouseEdges, slope: { fall, crossFall: presetCrossFall(p, fall) } })!);
+		expect(r.elevations.houseEdges).toHaveLength(2);
+		for (const h of r.elevations.houseEdges) expect(h.fallAway.percent).toBeGreaterThan(0);
+		expect(r.cautions.map((c) => c.id)).not.toContain('water-toward-foundation');
 	});
 });
 

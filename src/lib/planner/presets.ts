@@ -6,6 +6,20 @@ import { lShape, rectangle, type Pt } from './shapes';
 export type HouseSide = 'side' | 'corner' | 'none';
 export type Preset = { shape: 'rectangle' | 'l'; length: number; width: number; notchLength: number; notchWidth: number; house: HouseSide };
 
+/** Why the preset form cannot make a shape, naming the field to fix; null when it can. */
+export function presetProblem(p: Preset, units: 'imperial' | 'metric'): string | null {
+	const u = units === 'imperial' ? 'ft' : 'm';
+	const ok = (v: number) => typeof v === 'number' && Number.isFinite(v) && v > 0;
+	if (!ok(p.length)) return `Enter the length (A–B), above 0 ${u}.`;
+	if (!ok(p.width)) return `Enter the width (B–C side), above 0 ${u}.`;
+	if (p.shape === 'rectangle') return null;
+	if (!ok(p.notchLength)) return `Enter the notch length (C–D), above 0 ${u}.`;
+	if (!ok(p.notchWidth)) return `Enter the notch width (D–E), above 0 ${u}.`;
+	if (p.notchLength >= p.length) return `The notch length (C–D) must be less than the length (A–B), ${p.length} ${u}.`;
+	if (p.notchWidth >= p.width) return `The notch width (D–E) must be less than the width (B–C side), ${p.width} ${u}.`;
+	return null;
+}
+
 export function presetOutline(p: Preset): Pt[] {
 	return p.shape === 'rectangle' ? rectangle(p.length, p.width) : lShape(p.length, p.width, p.notchLength, p.notchWidth);
 }
@@ -15,6 +29,19 @@ export function presetHouse(p: Preset): EdgeRef[] {
 	if (p.house === 'none') return [];
 	if (p.house === 'corner' && p.shape === 'l') return [{ section: 0, edge: 2 }, { section: 0, edge: 3 }];
 	return [{ section: 0, edge: 0 }];
+}
+
+type Rate = ParsedPlan['slope']['fall'];
+
+/**
+ * The cross fall a preset starts with. Around a house corner the high side is the first wall
+ * (C–D) and the fall runs away from it; a cross fall of the same rate toward D then also runs the
+ * water away from the second wall (D–E), so both walls shed water (IRC R401.3). A total drop is
+ * not a rate along the other wall, so that case starts from 2 %.
+ */
+export function presetCrossFall(p: Preset, fall: Rate): Rate {
+	if (p.house !== 'corner' || p.shape !== 'l') return { value: 0, unit: fall.unit === 'totalDrop' ? 'percent' : fall.unit };
+	return fall.unit !== 'totalDrop' && fall.value > 0 ? { ...fall } : { value: 2, unit: 'percent' };
 }
 
 const same = (a: Pt[], b: Pt[]) => a.length === b.length && a.every((p, i) => p[0] === b[i][0] && p[1] === b[i][1]);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { edgeLength, edgesAfter, lShape, rectangle, removeVertex, setEdgeLength, splitEdge, splitSection } from './shapes';
+import { edgeLength, edgeLengthProblem, edgesAfter, lShape, rectangle, removeVertex, setEdgeLength, splitEdge, splitSection } from './shapes';
 
 const shoelace = (o: [number, number][]) =>
 	Math.abs(o.reduce((s, p, i) => s + p[0] * o[(i + 1) % o.length][1] - o[(i + 1) % o.length][0] * p[1], 0)) / 2;
@@ -77,5 +77,16 @@ describe('outline shapes', () => {
 		expect(splitSection(u, 0.5)).not.toBeNull(); // cut at x = 15 crosses the base only: fine
 		const tall: [number, number][] = [[0, 0], [10, 0], [10, 30], [6, 30], [6, 12], [4, 12], [4, 30], [0, 30]];
 		expect(splitSection(tall, 0.5)).toBeNull(); // cut at y = 15 crosses both arms
+	});
+});
+
+describe('a length typed into the edge table', () => {
+	it('says why it cannot be used instead of dropping it', () => {
+		const o = rectangle(12, 10);
+		expect(edgeLengthProblem(o, 0, 14, 'imperial')).toBeNull();
+		expect(edgeLengthProblem(o, 0, -3, 'imperial')).toBe('Enter a length above 0 ft.');
+		expect(edgeLengthProblem(o, 0, 0, 'metric')).toBe('Enter a length above 0 m.');
+		expect(edgeLengthProblem(o, 0, 5000, 'imperial')).toMatch(/at most 1000 ft around/); // LIMITS.perimeter
+		expect(edgeLengthProblem(o, 0, 400, 'imperial')).toMatch(/at most 3000 ft²/); // 400 × 10 = 4000 ft² > LIMITS.area
 	});
 });

@@ -1,4 +1,7 @@
 // Outline editing for the planner: pure functions on [x, y] vertex lists in plan units.
+import { LIMITS } from '$lib/plan/schema';
+import { signedArea } from '$lib/plan/polygon';
+
 export type Pt = [number, number];
 
 export const rectangle = (length: number, width: number): Pt[] => [
@@ -52,6 +55,23 @@ export function setEdgeLength(o: Pt[], i: number, length: number): Pt[] {
 	const moving = new Set([j]);
 	for (let k = (j + 1) % o.length; k !== i && Math.abs(along(o[k]) - current) < eps; k = (k + 1) % o.length) moving.add(k);
 	return o.map((p, n) => (moving.has(n) ? [round(p[0] + dx), round(p[1] + dy)] : p));
+}
+
+/**
+ * Why a length typed into the edge table cannot be used, or null when it can: above zero, and the
+ * changed outline inside the engine's limits (LIMITS in the schema: perimeter and area).
+ */
+export function edgeLengthProblem(o: Pt[], i: number, length: number, units: 'imperial' | 'metric'): string | null {
+	const u = units === 'imperial' ? 'ft' : 'm';
+	if (!Number.isFinite(length) || length <= 0) return `Enter a length above 0 ${u}.`;
+	const next = setEdgeLength(o, i, length);
+	const around = next.reduce((sum, _, k) => sum + edgeLength(next, k), 0);
+	const maxAround = LIMITS.perimeter[units];
+	if (around > maxAround + 1e-9) return `Too long: the outline would be ${Math.round(around)} ${u} around, and a plan may be at most ${maxAround} ${u} around.`;
+	const area = Math.abs(signedArea(next));
+	const maxArea = LIMITS.area[units];
+	if (area > maxArea + 1e-9) return `Too large: the slab would cover ${Math.round(area)} ${u}², and a plan may cover at most ${maxArea} ${u}².`;
+	return null;
 }
 
 /** Inserts a vertex at the middle of edge i. */

@@ -31,7 +31,7 @@ export function buildCardItems(p: BuildCardPlan): SummaryItem[] {
 		items.push({
 			label: 'Dig at thickened edges',
 			value: S(s.thickenedDigDepth),
-			note: `a trench ${S(s.trench.width)} wide, ${S(s.trench.depth)} below the slab, with base under it`
+			note: `a trench ${S(s.trench.width)} wide, ${S(s.trench.depth)} below the slab, on firm undisturbed soil with no base under it`
 		});
 	items.push(
 		{

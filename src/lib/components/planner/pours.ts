@@ -1,0 +1,20 @@
+import type { PlanResult } from '$lib/plan';
+
+/**
+ * Mixing and placing as the results show it: once the slab is poured in several pours, the figure
+ * that matters on the day is the longest single pour, and whether each pour fits its working time.
+ */
+export function pourTimes(mixing: PlanResult['mixing']) {
+	// A pour the engine split into parts: each part takes its share of the section's time (time grows with bags).
+	const perPour = mixing.sections.flatMap((s) =>
+		s.pours.length > 1 && s.bags > 0 ? s.pours.map((p) => (s.totalMinutes * p.bags) / s.bags) : [s.totalMinutes]
+	);
+	const pours = perPour.length;
+	const longest = Math.max(0, ...perPour);
+	const total = perPour.reduce((a, b) => a + b, 0);
+	const late = mixing.sections.filter((s) => !s.fits).length;
+	const badge = pours === 1 ? (mixing.fits ? 'One pour fits' : 'Too much for one pour') : mixing.fits ? `${pours} pours fit` : late === 1 ? 'A pour runs too long' : `${late} pours run too long`;
+	return { pours, longest, total, badge };
+}
+
+export const hoursText = (min: number) => (min >= 60 ? `${Math.floor(min / 60)} h ${Math.round(min % 60)} min` : `${Math.round(min)} min`);
