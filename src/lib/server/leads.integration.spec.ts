@@ -13,6 +13,7 @@ import {
 	contractorLead,
 	declineLead,
 	LeadRefused,
+	leadsForPlan,
 	leadPhotoPlan,
 	markLeadSeen,
 	postMessage,
@@ -202,6 +203,8 @@ describe('leads', () => {
 		expect(await setAccountDisabled(admin, firm.id, true, 'Complaints under review.', origin)).toBe(true);
 		const told = (await db.select().from(mailOutbox).where(eq(mailOutbox.to, owner.email))).map((m) => m.subject);
 		expect(told.some((t) => /Juniper.* is suspended for now/.test(t))).toBe(true);
+		// The bids page says the same: the firm's account reads as suspended, not as a lead awaiting a reply.
+		expect((await leadsForPlan(p.id))[0].contractor.status).toBe('suspended');
 		expect((await matchContractors(placeOf(HOME_ZIP)!, 'whole_job')).map((c) => c.id)).not.toContain(firm.id);
 		const [b] = await db.select().from(bid).where(eq(bid.leadId, l.id));
 		await expect(acceptBid(owner.id, p.id, b.id, origin, site)).rejects.toBeInstanceOf(LeadRefused);

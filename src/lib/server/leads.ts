@@ -1,5 +1,6 @@
 import { and, asc, count, desc, eq, gt, inArray, ne, sql, type SQL } from 'drizzle-orm';
 import { isExpired, respondBy, type LeadStatus } from '$lib/leads';
+import type { ContractorStatus } from '$lib/contractor-status';
 import { isOpenLead, leadTarget, openLeadStatuses, statusesMovedBy, threadOpen } from '$lib/lead-status';
 import { formatDate } from '$lib/components/plan/format';
 import type { BidInput } from '$lib/schemas/leads';
@@ -184,7 +185,12 @@ export async function leadsForPlan(planId: string) {
 				respondBy: lead.respondBy,
 				declineReason: lead.declineReason
 			},
-			contractor: { businessName: contractor.businessName, yearsInTrade: contractor.yearsInTrade, status: contractor.status },
+			contractor: {
+				businessName: contractor.businessName,
+				yearsInTrade: contractor.yearsInTrade,
+				// An account an admin disabled reads as suspended, as its homeowners were told by e-mail.
+				status: sql<ContractorStatus>`case when exists (select 1 from ${user} where ${user.id} = ${contractor.userId} and ${user.disabledAt} is not null) then 'suspended' else ${contractor.status} end`
+			},
 			bid,
 			unread: unreadFor('homeowner')
 		})
