@@ -11,8 +11,15 @@ async function sendFor(page: Page, planId: string, o: { scope: string; business:
 	await page.getByLabel('What you want done').selectOption({ label: o.scope });
 	await page.getByRole('button', { name: 'Find contractors' }).click();
 	await expect(page.getByLabel('What you want done')).toHaveValue(new RegExp(o.scope === 'The whole job' ? 'whole_job' : 'pour_finish'));
-	for (const box of await page.getByRole('checkbox').all()) await box.uncheck();
+	// The list is redrawn for the chosen work with some firms ticked: untick until none is, then tick one.
+	await page.waitForLoadState('networkidle');
+	const ticked = page.getByRole('checkbox', { checked: true });
+	await expect(async () => {
+		while (await ticked.count()) await ticked.first().uncheck();
+		await expect(ticked).toHaveCount(0);
+	}).toPass();
 	await page.getByRole('checkbox', { name: new RegExp(o.business) }).check();
+	await expect(ticked).toHaveCount(1);
 	await page.getByLabel(o.when).check();
 	await page.getByLabel('Finish wanted').selectOption({ label: o.finish });
 	await page.getByLabel('There now').selectOption({ label: o.surface });
