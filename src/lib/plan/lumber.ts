@@ -111,9 +111,12 @@ export function lapLengths(
 	return { lengths, laps };
 }
 
+/** How many equal pieces, none longer than the longest stock board, a board run of `len` takes. */
+const pieceCount = (len: number, maxStock: number) => Math.max(1, countUp(len / maxStock));
+
 /** Equal pieces no longer than the longest stock board. */
 export function splitRun(len: number, maxStock: number): number[] {
-	const n = Math.max(1, countUp(len / maxStock));
+	const n = pieceCount(len, maxStock);
 	return times(n, () => len / n);
 }
 
@@ -240,9 +243,9 @@ export function computeForms(
 	for (const r of runs) {
 		if (!r.formed) continue;
 		formLength += r.length;
-		// As splitRun: equal pieces no longer than the longest stock board.
+		// splitRun's pieces, counted rather than listed (this runs on every keystroke).
 		const board = boardLength.get(r.id)!;
-		const n = Math.max(1, countUp(board / maxStock));
+		const n = pieceCount(board, maxStock);
 		const piece = board / n;
 		const splices: number[] = [];
 		for (let i = 0; i < n; i++) {
