@@ -1,11 +1,12 @@
 // Integration tests on the real PostgreSQL test database (npm test creates it fresh).
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { mailKinds, mailKindsFor } from '$lib/mail-kinds';
 import { client, db } from './db';
 import { auditLog, devMail, mailOutbox, session, user } from './db/schema';
 import { AccessRefused, setAccountDisabled } from './account-access';
 import { createSession, generateSessionToken, validateSessionToken } from './auth';
+import { startWorker } from './jobs';
 import { mailIdle, queueMail } from './mail';
 import { newMessageMail, newBidMail } from './mail/pro-notices';
 import { resetPasswordMail } from './mail/templates';
@@ -20,6 +21,11 @@ async function tokenSentTo(to: string) {
 	return /token=([A-Za-z0-9_=-]+)/.exec(text)![1];
 }
 const outboxTo = (to: string) => db.select({ subject: mailOutbox.subject, text: mailOutbox.text }).from(mailOutbox).where(eq(mailOutbox.to, to));
+
+beforeAll(async () => {
+	// The job worker an app server runs, here in the test process, so mailed links arrive.
+	await startWorker({ origin: 'http://stakeline.test', cron: false });
+});
 
 afterAll(async () => {
 	await mailIdle();
