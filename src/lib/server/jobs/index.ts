@@ -10,6 +10,7 @@ import { sweep } from '../credentials';
 import { purgeSentLinks } from '../email-tokens';
 import { log } from '../log';
 import { SEND_MAIL, sendOutboxMail } from '../mail';
+import { CURING_REMINDER, sendCuringReminder } from '../reminders';
 import { running } from './running';
 
 /**
@@ -37,6 +38,9 @@ export function taskList(o: Pick<JobOptions, 'origin' | 'transport'>): TaskList 
 	};
 	return {
 		[SEND_MAIL]: sendMail,
+		[CURING_REMINDER]: async (payload) => {
+			await sendCuringReminder(payload as { planId: string; pourDate: string; day: string }, o.origin);
+		},
 		credential_sweep: async () => {
 			await sweep(new Date(), o.origin);
 		},
@@ -72,5 +76,7 @@ export async function startWorker(o: JobOptions): Promise<Runner> {
 		crontab: o.cron === false ? '' : CRONTAB
 	});
 	running.add(runner);
+	// A worker that stops for good is logged; the app keeps serving (mail waits in the queue).
+	runner.promise.catch((err) => log.error({ err }, 'job worker stopped'));
 	return runner;
 }
