@@ -270,6 +270,12 @@ test('units imperial → metric → imperial leave every typed value unchanged',
 	await page.getByLabel('metres and millimetres').check();
 	await goTo(page, 'Build-up');
 	await expect(page.getByLabel('Thickness')).toHaveValue('127'); // 5 in × 25.4 = 127 mm (exact inch)
+	// In metric every field, the shape sizes included, reads to the millimetre: no float noise.
+	const metric = await readEveryStep(page, /^$/);
+	for (const [id, v] of Object.entries(metric)) expect(v.split('.')[1]?.length ?? 0, `${id} = ${v}`).toBeLessThanOrEqual(3);
+	await goTo(page, 'Outline');
+	await expect(page.locator('#shape-length')).toHaveValue('4.572'); // 15 ft × 0.3048 = 4.572 m
+	await expect(page.getByLabel('Length of edge A–B in m')).toHaveValue('4.572');
 	await goTo(page, 'Site');
 	await page.getByLabel('feet and inches').check();
 	expect(await readEveryStep(page, /^$/)).toEqual(shown);

@@ -16,11 +16,23 @@ const OZ_G = 28.349523125; // g per avoirdupois ounce
 
 const r = (v: number, digits = 3) => Math.round(v * 10 ** digits) / 10 ** digits;
 
+/**
+ * A site length (ft or m) as a person would type it: metres to the millimetre, feet to the
+ * sixteenth of an inch (kept to 4 decimals, finer than 1/16 in = 0.0052 ft). Clears float noise
+ * such as 3.0480000000000005.
+ */
+export function tidyLength(v: number, units: Units): number {
+	return units === 'metric' ? r(v, 3) : r(Math.round(v * 192) / 192, 4);
+}
+
 export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 	if (p.units === to) return p;
 	const metric = to === 'metric';
-	const len = (v: number) => r(metric ? v * FT : v / FT, metric ? 4 : 3); // 0.1 mm keeps round trips exact
-	const small = (v: number) => r(metric ? v * IN : v / IN, metric ? 0 : 2);
+	// Lengths land on what a tape reads in the new units: whole millimetres, or sixteenths of an
+	// inch. Half a millimetre is less than half a sixteenth (0.79 mm), so a value typed in
+	// sixteenths comes back exactly even without the switch's memory.
+	const len = (v: number) => (metric ? tidyLength(v * FT, 'metric') : tidyLength(v / FT, 'imperial'));
+	const small = (v: number) => (metric ? r(v * IN, 0) : Math.round((v / IN) * 16) / 16);
 	const mass = (v: number) => r(metric ? v * LB : v / LB, 1);
 	const temp = (v: number) => r(metric ? ((v - 32) * 5) / 9 : (v * 9) / 5 + 32, 1);
 	const opt = <T>(v: T | undefined, f: (x: T) => T) => (v === undefined ? undefined : f(v));
