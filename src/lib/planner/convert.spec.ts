@@ -102,7 +102,7 @@ describe('switching units in the wizard', () => {
 		expect(r.reason).not.toMatch(/sections\.|\.\d|outline\./);
 		const priced = { ...plan, bags: { ...plan.bags, offered: [plan.bags.offered[0], { ...plan.bags.offered[1], price: -1 }] } };
 		const p = switchUnits(priced, 'metric', null);
-		if (!p.ok) expect(p.reason).toMatch(/until the bag price \(bag size 2\) is fixed: Enter the bag price, 0–1,000,000\./);
+		if (!p.ok) expect(p.reason).toMatch(/until the bag price \(bag size 2\) is fixed: Enter the bag price, 0–1,000,000 USD\./);
 		else expect.unreachable('a negative price is refused');
 	});
 });
