@@ -3,7 +3,7 @@
 // the PDF with pdfkit, so both show one drawing. Plan y runs down the page, as in the editor.
 
 import type { PlanResult } from '$lib/plan';
-import { formatLength } from '$lib/plan/format';
+import { tapeLength } from '$lib/plan/format';
 import type { LayoutSheet } from '$lib/plan/layout-sheet';
 import type { Pt } from '$lib/plan/polygon';
 import { signedArea } from '$lib/plan/polygon';
@@ -95,7 +95,7 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 			const mid = P([(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
 			const nn = out(e.index);
 			// Edge lengths sit just inside the slab, clear of the stakes outside it.
-			labels.push({ kind: 'length', text: formatLength(e.length, r.units), at: [mid[0] - nn[0] * 10, mid[1] - nn[1] * 10] });
+			labels.push({ kind: 'length', text: tapeLength(e.length, r.units), at: [mid[0] - nn[0] * 10, mid[1] - nn[1] * 10] });
 		}
 	}
 	const runOut = new Map<string, Pt>();

@@ -286,7 +286,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	table(
 		['Stake', 'On', 'Position (x, y)', `Height vs. ${r.elevations.reference.label}`, 'Below level line'],
 		stakeRows(r).map((s) => [s.high ? `${s.id} (high)` : s.id, s.where, s.position, s.elevation, s.belowLine]),
-		[58, '*', 90, 96, 80]
+		[48, '*', 128, 84, 72]
 	);
 
 	heading('Mixing plan');
