@@ -425,7 +425,7 @@ function crossChecks(plan: Parsed): PlanIssue[] {
 	const te = plan.thickenedEdge.edges;
 	if (Array.isArray(te)) te.forEach((r, i) => checkEdge(r, `thickenedEdge.edges.${i}`));
 	if (plan.forms.lumber === 'custom' && !plan.forms.customDepth)
-		issues.push({ path: 'forms.customDepth', message: `Enter the board depth for custom lumber, in ${plan.units === 'imperial' ? 'in' : 'mm'}.` });
+		issues.push({ path: 'forms.customDepth', message: `Enter the board depth for custom lumber, 0–${plainNumber(DEFAULTS[plan.units].maxSmall)} ${plan.units === 'imperial' ? 'in' : 'mm'}.` });
 	if (plan.fill && (plan.fill.volume === undefined) === (plan.fill.shareOfTrench === undefined))
 		issues.push({ path: 'fill', message: 'Give the fill as either a volume or a share of the trench, not both.' });
 	if (plan.bags.planSize !== undefined && !plan.bags.offered.some((b) => b.size === plan.bags.planSize))

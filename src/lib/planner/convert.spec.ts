@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
-import { convertPlan, switchUnits } from './convert';
+import { convertPlan, convertPreset, switchUnits } from './convert';
 import { detectPreset } from './presets';
 import { completeInput, starterInput } from './draft.svelte';
 import { lShape } from './shapes';
@@ -104,5 +104,14 @@ describe('switching units in the wizard', () => {
 		const p = switchUnits(priced, 'metric', null);
 		if (!p.ok) expect(p.reason).toMatch(/until the bag price \(bag size 2\) is fixed: Enter the bag price, 0–1,000,000 USD\./);
 		else expect.unreachable('a negative price is refused');
+	});
+});
+
+describe('the shape form in other units', () => {
+	it('carries the typed sizes over, converted to the millimetre, when the outline is not the preset', () => {
+		const p = { shape: 'l' as const, length: 14, width: 10, notchLength: 6, notchWidth: 4.5, house: 'side' as const };
+		// 14 ft × 0.3048 = 4.2672 m, 10 ft = 3.048 m, 6 ft = 1.8288 m, 4.5 ft = 1.3716 m.
+		expect(convertPreset(p, 'metric')).toEqual({ ...p, length: 4.267, width: 3.048, notchLength: 1.829, notchWidth: 1.372 });
+		expect(convertPreset(convertPreset(p, 'metric'), 'imperial')).toEqual(p);
 	});
 });

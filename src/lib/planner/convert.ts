@@ -3,6 +3,7 @@
 // system's usual values instead of odd conversions.
 import { fieldLabel, parsePlanInput, type ParsedPlan, type Units } from '$lib/plan';
 import { sameData } from './editable';
+import type { Preset } from './presets';
 
 const FT = 0.3048;
 const IN = 25.4;
@@ -113,6 +114,12 @@ export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 	const out = parsePlanInput(converted);
 	if (!out.ok) throw new Error(`converted plan is invalid: ${out.errors[0].path} ${out.errors[0].message}`);
 	return out.plan;
+}
+
+/** The shape form's sizes in other units, as a tape reads them (4.267 m for 14 ft). */
+export function convertPreset(p: Preset, to: Units): Preset {
+	const len = (v: number) => (Number.isFinite(v) ? tidyLength(to === 'metric' ? v * FT : v / FT, to) : v);
+	return { ...p, length: len(p.length), width: len(p.width), notchLength: len(p.notchLength), notchWidth: len(p.notchWidth) };
 }
 
 /** The last switch: the plan as it was before, and what the switch made of it. */
