@@ -1,5 +1,5 @@
-// npm run cluster:fault — the kill drill on a fresh two-server cluster: a bounded autocannon run
-// through nginx (plan writes and reads, 30 s, 16 connections) with one app server killed 10 s in.
+// npm run cluster:fault — the kill drill on a fresh two-server cluster: a homeowner of its own, a
+// bounded autocannon run through nginx (plan writes and reads, 30 s, 16 connections) with one app server killed 10 s in.
 // Prints the figures (docs/deploy.md records them) and fails when an acknowledged write is missing
 // or anything but the killed server's in-flight writes failed.
 // Options: --short (10 s, kill at 4 s: what the cluster end-to-end test runs).
@@ -22,8 +22,6 @@ build({ devMailbox: s.useFakeMail });
 
 const { startCluster } = await import('./lib/cluster.mjs');
 const { killDrill } = await import('./lib/cluster-drill.mjs');
-const demo = JSON.parse(fs.readFileSync(path.join(root, 'fixtures', 'demo.json'), 'utf8'));
-const homeowner = demo.users.find((u) => u.role === 'homeowner');
 
 const env = { ...s.env, LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn' };
 if (s.useFakeMail) background(node, [path.join(root, 'scripts', 'mail-fake.mjs')], { env: { ...process.env, ...env }, stdio: ['ignore', 'ignore', 'inherit'] });
@@ -39,7 +37,7 @@ const killAfterS = short ? 4 : 10;
 log(`Load through nginx for ${durationS} s; app server ${cluster.apps.at(-1).name} is killed after ${killAfterS} s`);
 let outcome;
 try {
-	outcome = await killDrill({ cluster, databaseUrl: s.env.DATABASE_URL, email: homeowner.email, password: demo.password, durationS, killAfterS, connections: short ? 8 : 16 });
+	outcome = await killDrill({ cluster, databaseUrl: s.env.DATABASE_URL, durationS, killAfterS, connections: short ? 8 : 16 });
 } finally {
 	await cluster.stop();
 }

@@ -3,14 +3,16 @@
 //   - nginx sends the rest of the run to the survivor (requests succeed after the kill),
 //   - every acknowledged write (201 with the new plan's id) is a row in PostgreSQL,
 //   - the only failures are writes that were in flight on the killed server (502 naming it, answered
-//     within a moment of the kill, at most one per connection); reads are retried by nginx.
+//     within a moment of the kill, at most one per connection); reads are retried by nginx;
+//   - a client retrying those writes with their Idempotency-Key gets each stored exactly once.
+import { hash } from '@node-rs/argon2';
 import autocannon from 'autocannon';
 import postgres from 'postgres';
 
 /** A small square slab: a valid plan the engine computes quickly. */
 const input = { units: 'imperial', sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }] };
 
-/** Signs the demo homeowner in through nginx; returns the session cookie. */
+/** Signs a homeowner in through nginx; returns the session cookie. */
 async function signIn(base, email, password) {
 	const res = await fetch(`${base}/signin`, {
 		method: 'POST',
@@ -26,7 +28,7 @@ async function signIn(base, email, password) {
 /**
  * @param {{
  *   cluster: { url: string, apps: { port: number, name: string }[], kill: (i: number) => Promise<unknown> },
- *   databaseUrl: string, email: string, password: string,
+ *   databaseUrl: string,
  *   durationS: number, killAfterS: number, connections: number, victim?: number
  * }} o
  */
@@ -35,9 +37,19 @@ export async function killDrill(o) {
 	const base = cluster.url;
 	const victim = o.victim ?? cluster.apps.length - 1;
 	const victimAddress = `127.0.0.1:${cluster.apps[victim].port}`;
-	const cookie = await signIn(base, o.email, o.password);
-	const headers = { cookie, origin: base, 'content-type': 'application/json' };
 	const run = `${Date.now().toString(36)}-${process.pid}`;
+	// A homeowner of its own, so the drill's hundreds of plans never land in anyone else's list.
+	const email = `kill-drill-${run}@drill.stakeline.test`;
+	const password = `drill-${run}-password`;
+	const setup = postgres(o.databaseUrl, { max: 1, onnotice: () => {} });
+	try {
+		await setup`INSERT INTO "user" (email, name, role, password_hash, email_verified_at)
+			VALUES (${email}, 'Kill Drill', 'homeowner', ${await hash(password)}, now())`;
+	} finally {
+		await setup.end();
+	}
+	const cookie = await signIn(base, email, password);
+	const headers = { cookie, origin: base, 'content-type': 'application/json' };
 	const first = await fetch(`${base}/api/plans`, { method: 'POST', headers, body: JSON.stringify({ name: `Kill drill ${run} first`, input }) });
 	if (first.status !== 201) throw new Error(`Creating a plan through nginx answered ${first.status}: ${await first.text()}`);
 	const readPath = `/api/plans/${(await first.json()).plan.id}`;
@@ -50,7 +62,7 @@ export async function killDrill(o) {
 	const record = (kind) => (status, body, context, resHeaders) => {
 		// Header names arrive as sent (X-Stakeline-Upstream).
 		const upstreamHeader = Object.entries(resHeaders ?? {}).find(([k]) => k.toLowerCase() === 'x-stakeline-upstream')?.[1];
-		const entry = { kind, name: context.name, status, at: Date.now(), upstream: String(upstreamHeader ?? '') };
+		const entry = { kind, name: context.name, key: context.key, status, at: Date.now(), upstream: String(upstreamHeader ?? '') };
 		if (kind === 'write' && status === 201) {
 			try {
 				entry.id = JSON.parse(body).plan.id;
@@ -72,8 +84,10 @@ export async function killDrill(o) {
 				method: 'POST',
 				path: '/api/plans',
 				setupRequest: (req, context) => {
-					context.name = `Kill drill ${run} ${seq++}`;
-					return { ...req, body: JSON.stringify({ name: context.name, input }) };
+					const n = seq++;
+					context.name = `Kill drill ${run} ${n}`;
+					context.key = `kill-${run}-${n}`;
+					return { ...req, headers: { ...req.headers, 'idempotency-key': context.key }, body: JSON.stringify({ name: context.name, input }) };
 				},
 				onResponse: record('write')
 			},
@@ -90,12 +104,25 @@ export async function killDrill(o) {
 	await killer;
 
 	const sql = postgres(o.databaseUrl, { max: 1, onnotice: () => {} });
-	let rows;
+	const drillRows = () => sql`select id, name from plan where name like ${`Kill drill ${run} %`} and name <> ${`Kill drill ${run} first`}`;
+	let rows, retried, afterRetry;
 	try {
-		rows = await sql`select id, name from plan where name like ${`Kill drill ${run} %`} and name <> ${`Kill drill ${run} first`}`;
+		rows = await drillRows();
+		// As a client would: each failed write sent again with its key, now that only the survivor is up.
+		retried = [];
+		for (const w of answers.filter((a) => a.kind === 'write' && a.status !== 201)) {
+			const res = await fetch(`${base}/api/plans`, { method: 'POST', headers: { ...headers, 'idempotency-key': w.key }, body: JSON.stringify({ name: w.name, input }) });
+			retried.push({ ...w, retryStatus: res.status });
+		}
+		afterRetry = await drillRows();
 	} finally {
 		await sql.end();
 	}
+	const answeredNames = new Set(answers.map((a) => a.name));
+	const perName = new Map();
+	for (const r of afterRetry) perName.set(r.name, (perName.get(r.name) ?? 0) + 1);
+	const duplicates = [...perName.values()].filter((c) => c > 1).length;
+	const retriedMissing = retried.filter((w) => !perName.has(w.name));
 	const storedIds = new Set(rows.map((r) => r.id));
 	const writes = answers.filter((a) => a.kind === 'write');
 	const reads = answers.filter((a) => a.kind === 'read');
@@ -122,11 +149,18 @@ export async function killDrill(o) {
 		writesAcknowledged: acked.length,
 		acknowledgedStored: acked.length - lost.length,
 		rowsStored: rows.length,
-		storedButNotAcknowledged: rows.length - (acked.length - lost.length),
+		// Rows whose request autocannon was still waiting for when the run ended (it drops those answers).
+		storedStillInFlightAtEnd: rows.filter((r) => !answeredNames.has(r.name)).length,
+		// A write answered 502 whose row exists anyway: the server died after the commit.
+		failedButStored: writes.filter((a) => a.status !== 201 && rows.some((r) => r.name === a.name)).length,
 		readsAnswered: reads.length,
 		readsFailed: reads.filter((a) => a.status !== 200).length,
 		failedInFlightOnKilled: failed.length - otherFailures.length,
 		otherFailures: otherFailures.length,
+		retriedWithKey: retried.length,
+		retriedStoredOnce: retried.filter((w) => perName.get(w.name) === 1).length,
+		retryAnswers: [...new Set(retried.map((w) => w.retryStatus))].join(' ') || null,
+		duplicatesAfterRetry: duplicates,
 		socketErrors: result.errors,
 		timeouts: result.timeouts,
 		answeredBySurvivorAfterKill: survivorAnswers.length
@@ -141,5 +175,7 @@ export async function killDrill(o) {
 	if (!survivorAnswers.length) problems.push('nothing was answered after the kill: nginx did not move to the survivor');
 	if (servedByVictimAfter.length) problems.push(`${servedByVictimAfter.length} answers came from the killed server after the kill`);
 	if (!acked.length) problems.push('no write was acknowledged');
+	if (retriedMissing.length) problems.push(`${retriedMissing.length} failed writes were not stored after a retry with their key`);
+	if (duplicates) problems.push(`${duplicates} plans were stored twice after retrying with the same key`);
 	return { figures, problems };
 }
