@@ -12,7 +12,10 @@ import postgres from 'postgres';
 /** A small square slab: a valid plan the engine computes quickly. */
 const input = { units: 'imperial', sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }] };
 
-/** Signs a homeowner in through nginx; returns the session cookie. */
+/**
+ * Signs a homeowner in through nginx; returns the session cookie.
+ * @param {string} base @param {string} email @param {string} password
+ */
 async function signIn(base, email, password) {
 	const res = await fetch(`${base}/signin`, {
 		method: 'POST',
@@ -57,12 +60,18 @@ export async function killDrill(o) {
 	let seq = 0;
 	let killedAt = Infinity;
 	const t0 = Date.now();
-	/** One entry per answer: what was asked, when it was answered, what came back and from which server. */
+	/**
+	 * One entry per answer: what was asked, when it was answered, what came back and from which server.
+	 * @typedef {{ kind: 'write' | 'read', name: string, key: string, status: number, at: number, upstream: string, id?: string | null }} Answer
+	 * @type {Answer[]}
+	 */
 	const answers = [];
+	/** @param {'write' | 'read'} kind @returns {(status: number, body: string, context: Record<string, unknown>, resHeaders: Record<string, string | string[]>) => void} */
 	const record = (kind) => (status, body, context, resHeaders) => {
 		// Header names arrive as sent (X-Stakeline-Upstream).
 		const upstreamHeader = Object.entries(resHeaders ?? {}).find(([k]) => k.toLowerCase() === 'x-stakeline-upstream')?.[1];
-		const entry = { kind, name: context.name, key: context.key, status, at: Date.now(), upstream: String(upstreamHeader ?? '') };
+		/** @type {Answer} */
+		const entry = { kind, name: String(context.name), key: String(context.key), status, at: Date.now(), upstream: String(upstreamHeader ?? '') };
 		if (kind === 'write' && status === 201) {
 			try {
 				entry.id = JSON.parse(body).plan.id;
@@ -87,7 +96,7 @@ export async function killDrill(o) {
 					const n = seq++;
 					context.name = `Kill drill ${run} ${n}`;
 					context.key = `kill-${run}-${n}`;
-					return { ...req, headers: { ...req.headers, 'idempotency-key': context.key }, body: JSON.stringify({ name: context.name, input }) };
+					return { ...req, headers: { ...req.headers, 'idempotency-key': String(context.key) }, body: JSON.stringify({ name: context.name, input }) };
 				},
 				onResponse: record('write')
 			},
@@ -131,7 +140,7 @@ export async function killDrill(o) {
 	const failed = answers.filter((a) => a.status < 200 || a.status >= 300);
 	// In flight on the killed server: a write nginx had already passed to it, answered 502 naming it,
 	// within two seconds of the kill.
-	const inFlight = (a) => a.kind === 'write' && a.status === 502 && a.upstream.startsWith(victimAddress) && a.at >= killedAt && a.at - killedAt <= 2000;
+	const inFlight = (/** @type {Answer} */ a) => a.kind === 'write' && a.status === 502 && a.upstream.startsWith(victimAddress) && a.at >= killedAt && a.at - killedAt <= 2000;
 	const otherFailures = failed.filter((a) => !inFlight(a));
 	const afterKill = answers.filter((a) => a.at > killedAt + 2000);
 	const survivorAnswers = afterKill.filter((a) => a.status >= 200 && a.status < 300);
