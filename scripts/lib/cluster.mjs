@@ -252,10 +252,9 @@ export async function startCluster(o) {
 				// Links in e-mails and the form origin check name the address visitors use: nginx's.
 				ORIGIN: o.origin ?? url,
 				ADDRESS_HEADER: 'X-Forwarded-For',
-				// Longer than nginx's upstream keepalive_timeout (30 s), so nginx closes idle connections first.
-				KEEP_ALIVE_TIMEOUT: '35',
 				XFF_DEPTH: '1',
-				STAKELINE_INSTANCE: name
+				// Longer than nginx's upstream keepalive_timeout (30 s), so nginx closes idle connections first.
+				KEEP_ALIVE_TIMEOUT: '35'
 			};
 			const child = spawn(process.execPath, [path.join(root, 'build')], { cwd: root, env, stdio: ['ignore', 'pipe', 'pipe'] });
 			attachOutput(child, `app ${name}`, o.quiet ? path.join(logDir, `app-${name}.log`) : undefined);
