@@ -3,7 +3,8 @@ import zipcodes from 'zipcodes';
 import { EARTH_RADIUS_KM, KM_PER_MILE, type LatLon } from '$lib/geo';
 import type { ServiceKind } from '$lib/schemas/contractor';
 import { db } from '$lib/server/db';
-import { contractor, user } from '$lib/server/db/schema';
+import { contractor } from '$lib/server/db/schema';
+import { accountDisabledSql } from './lead-shared';
 
 export type Place = LatLon & { town: string };
 
@@ -41,7 +42,7 @@ export async function matchContractors(place: LatLon, scope: ServiceKind, execut
 			and(
 				eq(contractor.status, 'approved'),
 				// An account an admin disabled gets no leads.
-				sql`not exists (select 1 from ${user} where ${user.id} = ${contractor.userId} and ${user.disabledAt} is not null)`,
+				sql`not ${accountDisabledSql(contractor.userId)}`,
 				// An expired licence or insurance stops leads at once, even before the sweep lapses the account.
 				sql`coalesce(${contractor.licenceExpiresOn}, 'infinity'::date) >= ${day}::date`,
 				sql`coalesce(${contractor.insuranceExpiresOn}, 'infinity'::date) >= ${day}::date`,
