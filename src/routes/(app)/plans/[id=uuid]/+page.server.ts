@@ -1,17 +1,24 @@
-import { fail } from '@sveltejs/kit';
+import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { currentResult } from '$lib/components/plan/currentResult';
 import { readerLocale } from '$lib/components/plan/format';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';
+import type { PlanResult } from '$lib/plan';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load = (async ({ parent, request }) => {
-	// The layout found the plan among the user's own; only then are its photos listed.
-	const { plan } = await parent();
-	const photos = (await listPhotos(plan.id)).map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height }));
-	return { photos, maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024, result: currentResult(plan.input, plan.result), locale: readerLocale(request.headers.get('accept-language')) };
+export const load = (async (event) => {
+	const me = requireRole(event, 'homeowner');
+	// The plan and its photos at once; the photos are returned only when the plan is the user's own.
+	const [found, photos] = await Promise.all([findOwnPlan(event.params.id, me.id), listPhotos(event.params.id)]);
+	if (!found) error(404, 'No such plan.');
+	return {
+		photos: photos.map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height })),
+		maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024,
+		result: currentResult(found.input, found.result as PlanResult),
+		locale: readerLocale(event.request.headers.get('accept-language'))
+	};
 }) satisfies PageServerLoad;
 
 export const actions = {
