@@ -8,7 +8,10 @@
 // scripts/bare once, starts both on loopback, signs in the demo homeowner for a session cookie,
 // then drives each route with autocannon and prints req/s, latency, errors, non-2xx and the share
 // of the bare page measured in the same run (the bare page is measured again before each
-// connection count, so both figures see the same machine load).
+// connection count, so both figures see the same machine load). It also prints the server's CPU
+// time per request (from /proc) and the bare page's CPU per request divided by the route's: on a
+// machine busy with other work, req/s swings with the load while CPU per request stays put.
+// The database's own CPU is not in it (see docs/performance.md for pg_stat_statements).
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
@@ -108,10 +111,10 @@ console.log(`Each route: ${warmup} s warm-up, then ${duration} s measured; conne
 const rows = [];
 for (const c of connections) {
 	const base = await measure({ title: 'bare SvelteKit page', url: bareUrl }, c);
-	rows.push({ ...base, share: 1 });
+	rows.push({ ...base, share: 1, cpuShare: 1 });
 	for (const r of routes) {
 		const m = await measure(targets[r], c);
-		rows.push({ ...m, share: m.rps / base.rps });
+		rows.push({ ...m, share: m.rps / base.rps, cpuShare: base.cpuPerReq / m.cpuPerReq });
 	}
 }
 printTable(rows);
@@ -202,9 +205,22 @@ function cannon(target, c, seconds) {
 	});
 }
 
+/** CPU time (user + system) the process has used so far, in ms, from /proc (Linux). */
+function cpuMs(pid) {
+	try {
+		const f = fs.readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+		return ((Number(f[11]) + Number(f[12])) * 1000) / 100; // utime, stime in clock ticks (USER_HZ = 100)
+	} catch {
+		return NaN;
+	}
+}
+
 async function measure(target, c) {
 	if (warmup > 0) await cannon(target, c, warmup);
+	const pid = target.url.startsWith(bareUrl) ? bare.pid : app.pid;
+	const cpu0 = cpuMs(pid);
 	const r = await cannon(target, c, duration);
+	const cpu = cpuMs(pid) - cpu0;
 	const row = {
 		title: target.title,
 		connections: c,
@@ -212,15 +228,28 @@ async function measure(target, c) {
 		p50: r.latency.p50,
 		p99: r.latency.p99,
 		errors: r.errors + r.timeouts,
-		non2xx: r.non2xx
+		non2xx: r.non2xx,
+		// Server CPU per answered request: unlike req/s, barely moved by other work on the machine.
+		cpuPerReq: r.requests.total ? cpu / r.requests.total : NaN
 	};
 	process.stdout.write(`  measured ${row.title} @${c}: ${Math.round(row.rps)} req/s\n`);
 	return row;
 }
 
 function printTable(rows) {
-	const head = ['route', 'conns', 'req/s', 'p50 ms', 'p99 ms', 'errors', 'non-2xx', 'share of bare'];
-	const body = rows.map((r) => [r.title, String(r.connections), Math.round(r.rps).toLocaleString('en-US'), String(r.p50), String(r.p99), String(r.errors), String(r.non2xx), r.share.toFixed(2)]);
+	const head = ['route', 'conns', 'req/s', 'p50 ms', 'p99 ms', 'errors', 'non-2xx', 'share of bare', 'server CPU ms/req', 'CPU share'];
+	const body = rows.map((r) => [
+		r.title,
+		String(r.connections),
+		Math.round(r.rps).toLocaleString('en-US'),
+		String(r.p50),
+		String(r.p99),
+		String(r.errors),
+		String(r.non2xx),
+		r.share.toFixed(2),
+		r.cpuPerReq.toFixed(2),
+		r.cpuShare.toFixed(2)
+	]);
 	const widths = head.map((h, i) => Math.max(h.length, ...body.map((b) => b[i].length)));
 	const line = (cells) => `| ${cells.map((c, i) => (i === 0 ? c.padEnd(widths[i]) : c.padStart(widths[i]))).join(' | ')} |`;
 	console.log(`\n${line(head)}\n|${widths.map((w, i) => (i === 0 ? '-'.repeat(w + 2) : `${'-'.repeat(w + 1)}:`)).join('|')}|`);
