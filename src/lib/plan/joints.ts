@@ -162,6 +162,16 @@ export function closerGrid(poly: Pt[], maxSpacing: number, thickness: number, ep
 	return { poly, us: g.us, ws: g.ws, panels: g.panels, maxAspect: g.maxAspect };
 }
 
+/** Each section's joint grid (ACI 302.1R spacing for the slab), before any pour split re-lays one. */
+export function sectionGrids(m: Model, layout: Layout, framed: Pt[][]): Required<SectionGrid>[] {
+	const { min, max } = jointSpacing(m.thickness);
+	return layout.sections.map((s) => {
+		const poly = framed[s.index];
+		const g = panelGrid(poly, max, min, layout.eps);
+		return { poly, us: g.us, ws: g.ws, panels: g.panels, maxAspect: g.maxAspect };
+	});
+}
+
 export interface JointOptions {
 	/** Lines that are cold joints (bulkheads) instead of control joints, per section. */
 	coldCuts?: Map<number, { alongW: boolean; at: number[] }>;
