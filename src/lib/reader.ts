@@ -45,4 +45,36 @@ export const formatMoment = (d: Date | string, r: Reader, style: 'date' | 'datet
 export const formatDay = (iso: string, r: Pick<Reader, 'locale'>) =>
 	new Intl.DateTimeFormat(r.locale, { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${iso}T00:00:00Z`));
 
+/**
+ * The reader's locale from an Accept-Language header: the first tag this runtime can format dates
+ * in, else en-US. Read on the server, so the page renders and hydrates with the same dates.
+ */
+export function readerLocale(acceptLanguage: string | null | undefined): string {
+	for (const part of (acceptLanguage ?? '').split(',').slice(0, 10)) {
+		const tag = part.split(';')[0].trim();
+		if (!tag || tag === '*') continue;
+		try {
+			const [ok] = Intl.DateTimeFormat.supportedLocalesOf(tag);
+			if (ok) return ok;
+		} catch {
+			// not a well-formed language tag: try the next one
+		}
+	}
+	return 'en-US';
+}
+
+/**
+ * A calendar day with its weekday ("Thu, Dec 3, 2026"), for days someone plans around (a pour day,
+ * a reply or expiry date) and for e-mails, which have no reader's zone. Read in UTC so the server
+ * and the browser agree.
+ */
+export const formatDayLong = (iso: string, locale = 'en-US') =>
+	new Date(`${iso}T00:00:00Z`).toLocaleDateString(locale, {
+		weekday: 'short',
+		month: 'short',
+		day: 'numeric',
+		year: 'numeric',
+		timeZone: 'UTC'
+	});
+
 export const fallbackReader: Reader = { locale: 'en-US', timeZone: 'UTC' };
