@@ -74,6 +74,13 @@ export interface PlanResult {
 	cautions: Caution[];
 }
 
+/**
+ * The engine's version, stored beside every saved result (plan.engine_version). Raise it with any
+ * change that gives a different result for the same input (a rule, a wording, a new field), so
+ * recomputeOutdatedPlans (src/lib/server/plans.ts) brings the stored plans up to date.
+ */
+export const ENGINE_VERSION = 1;
+
 /** Days of strength timeline returned. */
 const TIMELINE_DAYS = 28;
 
