@@ -57,7 +57,7 @@ export function outlineProblem(poly: readonly Pt[], eps: number): string | null 
 interface Probe {
 	poly: readonly Pt[];
 	box: Box;
-	edges: number[];
+	edges: Float64Array;
 	/** One point strictly inside the outline. */
 	interior: Pt;
 }
@@ -169,14 +169,20 @@ export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number
 	return out;
 }
 
+/**
+ * A whole edge, free: one list for every edge that shares nothing. Never changed (readonly), and
+ * not frozen either: a frozen array would make the loops that read `free` polymorphic.
+ */
+const WHOLE_EDGE: readonly (readonly [number, number])[] = [[0, 1]];
+
 /** The pieces of one edge (as parameter intervals) not shared with another section. */
 export function freeIntervals(
 	a: Pt,
 	b: Pt,
 	shared: readonly ColdJointSeg[],
 	eps: number
-): [number, number][] {
-	if (!shared.length) return [[0, 1]];
+): readonly (readonly [number, number])[] {
+	if (!shared.length) return WHOLE_EDGE;
 	const cuts = shared
 		.map((j): [number, number] => {
 			const p = project(a, b, j.from);
@@ -203,7 +209,7 @@ export interface EdgeInfo {
 	/** Pieces of the edge shared with other sections. */
 	shared: ColdJointSeg[];
 	/** Pieces not shared, as [t0, t1] along the edge. */
-	free: [number, number][];
+	free: readonly (readonly [number, number])[];
 }
 
 export interface SectionShape {

@@ -91,8 +91,9 @@ export function segmentRelation(a: Pt, b: Pt, c: Pt, d: Pt, eps: number): Relati
 		if ((t1 - t0) * len > eps) return 'overlap';
 		return (t1 - t0) * len >= -eps ? 'touch' : 'none';
 	}
-	const near = (p: Pt, q: Pt, r: Pt) => distToSegment(p, q, r) <= eps;
-	if (near(c, a, b) || near(d, a, b) || near(a, c, d) || near(b, c, d)) return 'touch';
+	// Written out rather than through a helper closure, which would be allocated on every call.
+	if (distToSegment(c, a, b) <= eps || distToSegment(d, a, b) <= eps || distToSegment(a, c, d) <= eps || distToSegment(b, c, d) <= eps)
+		return 'touch';
 	return 'none';
 }
 
@@ -240,19 +241,22 @@ export function interiorPoint(poly: readonly Pt[], eps: number): Pt {
 }
 
 /** Bounding box of every edge, packed [minX, minY, maxX, maxY] per edge, for quick rejection. */
-export function edgeBoxes(poly: readonly Pt[]): number[] {
+export function edgeBoxes(poly: readonly Pt[]): Float64Array {
 	const n = poly.length;
-	const out: number[] = [];
+	const out = new Float64Array(4 * n); // one allocation, the numbers stored unboxed
 	for (let i = 0; i < n; i++) {
 		const a = poly[i];
 		const b = poly[i + 1 === n ? 0 : i + 1];
-		out.push(Math.min(a[0], b[0]), Math.min(a[1], b[1]), Math.max(a[0], b[0]), Math.max(a[1], b[1]));
+		out[4 * i] = Math.min(a[0], b[0]);
+		out[4 * i + 1] = Math.min(a[1], b[1]);
+		out[4 * i + 2] = Math.max(a[0], b[0]);
+		out[4 * i + 3] = Math.max(a[1], b[1]);
 	}
 	return out;
 }
 
 /** Whether edge i of one packed set and edge j of another have meeting boxes. */
-export const edgeBoxesMeet = (A: number[], i: number, B: number[], j: number, eps: number) =>
+export const edgeBoxesMeet = (A: Float64Array, i: number, B: Float64Array, j: number, eps: number) =>
 	A[i * 4] <= B[j * 4 + 2] + eps &&
 	B[j * 4] <= A[i * 4 + 2] + eps &&
 	A[i * 4 + 1] <= B[j * 4 + 3] + eps &&
