@@ -9,27 +9,14 @@
 
 import path from 'node:path';
 import { Session } from 'node:inspector/promises';
-import { pathToFileURL } from 'node:url';
-import { build } from 'vite';
+import { bundleEngine } from './lib/engine-bundle.mjs';
 
 const runs = Number(process.argv[2] ?? 1000);
 const top = Number(process.argv[3] ?? 25);
 const anon = process.argv.includes('--anonymous');
-const outDir = path.resolve('node_modules/.cache/engine-alloc');
-await build({
-	configFile: false,
-	logLevel: 'warn',
-	build: {
-		lib: { entry: { engine: 'src/lib/plan/index.ts', plans: 'src/lib/plan/test-plans.ts' }, formats: ['es'] },
-		outDir,
-		emptyOutDir: true,
-		target: 'node20',
-		minify: false
-	}
-});
-const load = (name) => import(pathToFileURL(path.join(outDir, `${name}.js`)).href);
-const { computePlan } = await load('engine');
-const { wavyPad, largestPlan } = await load('plans');
+const { engine, plans } = await bundleEngine(path.resolve('node_modules/.cache/engine-alloc'), { minify: false });
+const { computePlan } = engine;
+const { wavyPad, largestPlan } = plans;
 
 const session = new Session();
 session.connect();
