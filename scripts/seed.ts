@@ -4,7 +4,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import postgres from 'postgres';
 import zipcodes from 'zipcodes';
-import { computePlan } from '../src/lib/plan/index';
+import { computePlan, ENGINE_VERSION } from '../src/lib/plan/index';
 import { hashPassword } from '../src/lib/server/password';
 
 type DemoProfile = {
@@ -108,8 +108,8 @@ try {
 				if (exists) continue;
 				const result = JSON.parse(JSON.stringify(computePlan(p.input)));
 				await tx`
-					INSERT INTO plan (owner_id, name, postcode, input, result)
-					VALUES (${userId}, ${p.input.name}, ${p.postcode ?? null}, ${tx.json(p.input)}, ${tx.json(result)})`;
+					INSERT INTO plan (owner_id, name, postcode, input, result, engine_version)
+					VALUES (${userId}, ${p.input.name}, ${p.postcode ?? null}, ${tx.json(p.input)}, ${tx.json(result)}, ${ENGINE_VERSION})`;
 				added++;
 			}
 		}

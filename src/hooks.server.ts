@@ -1,8 +1,7 @@
 import type { Handle, ServerInit } from '@sveltejs/kit';
 import { requestHandle, serverErrorHandler } from '$lib/server/requests';
 import { sequence } from '@sveltejs/kit/hooks';
-import { readerLocale } from '$lib/components/plan/format';
-import { TIME_ZONE_COOKIE, validTimeZone } from '$lib/reader';
+import { readerLocale, TIME_ZONE_COOKIE, validTimeZone } from '$lib/reader';
 import { building } from '$app/environment';
 import { env } from '$env/dynamic/private';
 import * as auth from '$lib/server/auth';

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { formatMoney } from '../src/lib/leads';
+import { formatMoney } from '../src/lib/money';
 import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { approvedNewContractor, bumpPlanRevision, insertPlan } from './pro-helpers';
 

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { formatMoney } from '../src/lib/leads';
+import { formatMoney } from '../src/lib/money';
 import { signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertBid, insertPlan } from './pro-helpers';
 

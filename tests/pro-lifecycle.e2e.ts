@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { formatDate } from '../src/lib/components/plan/format';
+import { formatDay, formatDayLong } from '../src/lib/reader';
 import { respondBy } from '../src/lib/leads';
 import { demoPassword, mailLink, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertPlan } from './pro-helpers';
@@ -57,7 +57,7 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 	await expect(page.getByText('Sent to 1 contractor.')).toBeVisible();
 	await expect(page.getByTestId('request-state')).toHaveText('Open for bids');
 	const due = respondBy(new Date(), 'soon');
-	await expect(page.getByText(`reply due by ${formatDate(due, 'en-GB')}`)).toBeVisible();
+	await expect(page.getByText(`reply due by ${formatDay(due, { locale: 'en-GB' })}`)).toBeVisible();
 	await signOut(page);
 
 	await signIn(page, DELL, demoPassword);
@@ -65,7 +65,7 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 	const leadUrl = await mailLink(page, DELL, /New lead near Corvallis, OR/, { timeout: 60_000 });
 	await page.goto(leadUrl);
 	await expect(page.getByTestId('firms-asked')).toHaveText('You are the only firm asked for this plan.');
-	await expect(page.getByTestId('respond-by')).toContainText(formatDate(due, 'en-GB'));
+	await expect(page.getByTestId('respond-by')).toContainText(formatDayLong(due, 'en-GB'));
 	await expect(page.locator('main')).not.toContainText('Wren Hollow');
 	await sendBid(page, '3,100');
 	await signOut(page);

@@ -88,5 +88,3 @@ export const MAX_CONTRACTORS_PER_SEND = 5;
 /** A bid past its valid-until date can no longer be accepted or edited. */
 export const isExpired = (validUntil: string, today = new Date().toISOString().slice(0, 10)) => validUntil < today;
 
-export const formatMoney = (cents: number) =>
-	new Intl.NumberFormat('en-US', { style: 'currency', currency: 'USD', maximumFractionDigits: cents % 100 ? 2 : 0 }).format(cents / 100);

@@ -10,6 +10,8 @@ import type { PlanResult } from '$lib/plan';
 const num = z.number().finite();
 const volume = z.object({ cubicFeet: num, cubicYards: num, cubicMeters: num });
 const resultShape = z.object({
+	/** ISO 4217; a result without one was priced in US dollars. */
+	currency: z.string().regex(/^[A-Z]{3}$/).optional().catch(undefined),
 	area: z.object({ squareFeet: num, squareMeters: num }).optional().catch(undefined),
 	volume: z.object({ net: volume.optional().catch(undefined), order: volume.optional().catch(undefined) }).optional().catch(undefined),
 	bags: z.array(z.object({ size: num, unit: z.string(), count: num })).optional().catch(undefined),
@@ -35,7 +37,11 @@ const RESULT_PARTS = ['units', 'area', 'geometry', 'volume', 'forms', 'elevation
  * only the figures above.
  */
 export function fullResult(result: unknown): PlanResult | null {
-	if (!result || typeof result !== 'object') return null;
+	return hasEveryPart(result) ? result : null;
+}
+
+function hasEveryPart(result: unknown): result is PlanResult {
+	if (!result || typeof result !== 'object') return false;
 	const r = result as Record<string, unknown>;
-	return RESULT_PARTS.every((k) => r[k] !== undefined && r[k] !== null) ? (result as PlanResult) : null;
+	return RESULT_PARTS.every((k) => r[k] !== undefined && r[k] !== null);
 }

@@ -1,5 +1,5 @@
 import { page } from '$app/state';
-import { fallbackReader, formatDay, formatMoment } from './reader';
+import { fallbackReader, formatDay, formatDayLong, formatMoment } from './reader';
 
 /** Date formatting for components, in the locale and zone the root layout read for this visitor. */
 export const when = {
@@ -11,5 +11,9 @@ export const when = {
 	},
 	day(iso: string) {
 		return formatDay(iso, this.reader);
+	},
+	/** A calendar day with its weekday, for days someone plans around. */
+	dayLong(iso: string) {
+		return formatDayLong(iso, this.reader.locale);
 	}
 };

@@ -1,6 +1,6 @@
 // Section outlines: validity, areas, shared edges (cold joints) and the free edges that get forms.
 
-import { bbox, boxesMeet, cross, dist, edgeBoxes, edgeBoxesMeet, interiorPoint, lerp, next, perimeter, pointInPolygon, project, segmentRelation, signedArea } from './polygon';
+import { bbox, boxesMeet, cross, dist, edgeBoxes, edgeBoxesMeet, interiorPoint, lerp, next, perimeter, pointInPolygonXY, project, segmentRelation, signedArea } from './polygon';
 import type { Box, Pt } from './polygon';
 
 /** A problem with the input, addressed by its path in the request (e.g. "sections.0.outline"). */
@@ -57,19 +57,37 @@ export function outlineProblem(poly: readonly Pt[], eps: number): string | null 
 interface Probe {
 	poly: readonly Pt[];
 	box: Box;
-	edges: number[];
-	/** Vertices, edge midpoints and one interior point: if any lies inside the other, they overlap. */
-	points: Pt[];
+	edges: Float64Array;
+	/** One point strictly inside the outline. */
+	interior: Pt;
 }
 
 function probe(poly: readonly Pt[], eps: number): Probe {
-	const points: Pt[] = [...poly];
-	for (let i = 0; i < poly.length; i++) points.push(lerp(poly[i], next(poly, i), 0.5));
-	points.push(interiorPoint(poly, eps));
-	return { poly, box: bbox(poly), edges: edgeBoxes(poly), points };
+	return { poly, box: bbox(poly), edges: edgeBoxes(poly), interior: interiorPoint(poly, eps) };
 }
 
-const insideBox = (p: Pt, b: Box) => p[0] > b.minX && p[0] < b.maxX && p[1] > b.minY && p[1] < b.maxY;
+const insideBox = (x: number, y: number, b: Box) => x > b.minX && x < b.maxX && y > b.minY && y < b.maxY;
+
+/** Whether the point lies inside the other outline (its box first: most points are far off). */
+const inside = (x: number, y: number, into: Probe, eps: number) =>
+	insideBox(x, y, into.box) && pointInPolygonXY(x, y, into.poly, eps) === 'inside';
+
+/**
+ * Whether one of the outline's vertices, edge midpoints or its interior point lies inside the
+ * other: if any does, they overlap. The midpoints are worked out as tested, not kept in a list.
+ */
+function hits(from: Probe, into: Probe, eps: number): boolean {
+	const P = from.poly;
+	const n = P.length;
+	for (let i = 0; i < n; i++) if (inside(P[i][0], P[i][1], into, eps)) return true;
+	for (let i = 0; i < n; i++) {
+		// lerp(P[i], next, 0.5), written out
+		const a = P[i];
+		const b = P[i + 1 === n ? 0 : i + 1];
+		if (inside(a[0] + (b[0] - a[0]) * 0.5, a[1] + (b[1] - a[1]) * 0.5, into, eps)) return true;
+	}
+	return inside(from.interior[0], from.interior[1], into, eps);
+}
 
 function probesOverlap(a: Probe, b: Probe, eps: number): boolean {
 	if (!boxesMeet(a.box, b.box, eps)) return false;
@@ -82,9 +100,7 @@ function probesOverlap(a: Probe, b: Probe, eps: number): boolean {
 				segmentRelation(A[i], next(A, i), B[j], next(B, j), eps) === 'cross'
 			)
 				return true;
-	const hits = (from: Probe, into: Probe) =>
-		from.points.some((p) => insideBox(p, into.box) && pointInPolygon(p, into.poly, eps) === 'inside');
-	return hits(a, b) || hits(b, a);
+	return hits(a, b, eps) || hits(b, a, eps);
 }
 
 /** True when the interiors of two valid outlines overlap (touching along edges is fine). */
@@ -153,14 +169,20 @@ export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number
 	return out;
 }
 
+/**
+ * A whole edge, free: one list for every edge that shares nothing. Never changed (readonly), and
+ * not frozen either: a frozen array would make the loops that read `free` polymorphic.
+ */
+const WHOLE_EDGE: readonly (readonly [number, number])[] = [[0, 1]];
+
 /** The pieces of one edge (as parameter intervals) not shared with another section. */
 export function freeIntervals(
 	a: Pt,
 	b: Pt,
 	shared: readonly ColdJointSeg[],
 	eps: number
-): [number, number][] {
-	if (!shared.length) return [[0, 1]];
+): readonly (readonly [number, number])[] {
+	if (!shared.length) return WHOLE_EDGE;
 	const cuts = shared
 		.map((j): [number, number] => {
 			const p = project(a, b, j.from);
@@ -187,7 +209,7 @@ export interface EdgeInfo {
 	/** Pieces of the edge shared with other sections. */
 	shared: ColdJointSeg[];
 	/** Pieces not shared, as [t0, t1] along the edge. */
-	free: [number, number][];
+	free: readonly (readonly [number, number])[];
 }
 
 export interface SectionShape {

@@ -6,7 +6,7 @@ import { computeCautions, type Caution } from './cautions';
 import { formatSmall } from './format';
 import { computeElevations, slopePlane, type ElevationResult } from './elevations';
 import { layoutSections, PlanInputError, type Layout } from './geometry';
-import { closerGrid, computeJoints, type JointsResult, type SectionGrid } from './joints';
+import { closerGrid, computeJoints, sectionGrids, type JointsResult, type SectionGrid } from './joints';
 import { computeForms, type FormsResult } from './lumber';
 import { computeMaterials, type MaterialsResult } from './materials';
 import { computeMixing, type MixingResult } from './mixing';
@@ -74,6 +74,13 @@ export interface PlanResult {
 	cautions: Caution[];
 }
 
+/**
+ * The engine's version, stored beside every saved result (plan.engine_version). Raise it with any
+ * change that gives a different result for the same input (a rule, a wording, a new field), so
+ * recomputeOutdatedPlans (src/lib/server/plans.ts) brings the stored plans up to date.
+ */
+export const ENGINE_VERSION = 1;
+
 /** Days of strength timeline returned. */
 const TIMELINE_DAYS = 28;
 
@@ -121,7 +128,8 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 	const tempOn = (d: number) => airTempOn(m, d);
 	// Working time is judged on each section's day as if none were split; splits then add pour days.
 	const sectionDays = pourOffsets(m, layout.coldJoints, tempOn);
-	let { joints, grids } = computeJoints(m, layout, plane.frame, plane.framed);
+	// The joint lines are drawn once, after the pour splits are known: the split needs only the grids.
+	const grids = sectionGrids(m, layout, plane.framed);
 	const closer = new Map<number, Required<SectionGrid>>();
 	const relay = (i: number, max: number) => {
 		const g = closerGrid(plane.framed[i], max, m.thickness, layout.eps) as Required<SectionGrid>;
@@ -135,11 +143,9 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		if (!sp?.segments.length) return;
 		cuts.set(i, sp.cut);
 	});
-	if (cuts.size) {
-		// Only the re-laid sections change grid; the rest keep theirs.
-		const prior = grids.map((g, i) => (splits[i]?.relaid ? closer.get(i)! : (g as Required<SectionGrid>)));
-		({ joints, grids } = computeJoints(m, layout, plane.frame, plane.framed, { coldCuts: cuts, prior }));
-	}
+	// Only the re-laid sections change grid; the rest keep theirs.
+	const prior = cuts.size ? grids.map((g, i) => (splits[i]?.relaid ? closer.get(i)! : g)) : grids;
+	const { joints, grids: laid } = computeJoints(m, layout, plane.frame, plane.framed, cuts.size ? { coldCuts: cuts, prior } : { prior });
 	const pours: Pour[] = mixing.sections.flatMap((s) => s.pours.map((q, part) => ({ section: s.index, part, bags: q.bags })));
 	const offsets = pourOffsets(m, layout.coldJoints, tempOn, pours);
 	const bulkheads = splits.flatMap((sp, i) => (sp ? sp.segments.map((g) => ({ section: i, from: g.from, to: g.to })) : []));
@@ -170,12 +176,12 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		forms,
 		planned,
 		slabAreaM2: slabArea,
-		screedSpanM: screedSpan(grids),
+		screedSpanM: screedSpan(laid),
 		hasJoints: joints.totalLength.meters > 0,
 		framed: plane.framed,
 		eps: layout.eps,
 		unformedHouse: m.hasHouse && !m.houseEdgeFormed,
-		alongSpanM: Math.max(...grids.map((g) => g.us[g.us.length - 1] - g.us[0]))
+		alongSpanM: Math.max(...laid.map((g) => g.us[g.us.length - 1] - g.us[0]))
 	});
 	return {
 		units: m.units,

@@ -3,7 +3,7 @@
 
 import type { Layout } from './geometry';
 import type { Model } from './model';
-import { clipVertical, fromFrame, isReflex, pointInPolygon, signedArea, toFrame } from './polygon';
+import { clipVertical, isReflex, pointInPolygonXY, signedArea, sortNumbers, toFrame } from './polygon';
 import type { Frame, Pt } from './polygon';
 import { M_PER_FT, M_PER_IN, countUp, length, mToPlan, small } from './units';
 import type { Length, Small } from './units';
@@ -31,7 +31,7 @@ export const jointDepth = (thickness: number) =>
 /** Interval ends from lo to hi through the given cut values, dropping cuts that would leave slivers. */
 export function breakpoints(cuts: number[], lo: number, hi: number, minGap: number): number[] {
 	const out = [lo];
-	for (const c of [...cuts].sort((a, b) => a - b))
+	for (const c of sortNumbers([...cuts]))
 		if (c - out[out.length - 1] >= minGap && hi - c >= minGap) out.push(c);
 	out.push(hi);
 	return out;
@@ -100,14 +100,15 @@ export function panelGrid(poly: readonly Pt[], max: number, min: number, eps: nu
 			for (let j = 0; j + 1 < gw.length; j++) {
 				const a = gu[i + 1] - gu[i];
 				const b = gw[j + 1] - gw[j];
-				const mid: Pt = [(gu[i] + gu[i + 1]) / 2, (gw[j] + gw[j + 1]) / 2];
-				if (pointInPolygon(mid, poly, eps) !== 'inside') continue;
+				const midU = (gu[i] + gu[i + 1]) / 2;
+				const midW = (gw[j] + gw[j + 1]) / 2;
+				if (pointInPolygonXY(midU, midW, poly, eps) !== 'inside') continue;
 				grid.panels++;
 				const aspect = Math.max(a, b) / Math.min(a, b);
 				grid.maxAspect = Math.max(grid.maxAspect, aspect);
 				if (aspect <= ACI_302.maxAspect + 1e-9) continue;
-				if (a > b) bumpU.add(parentOf(bu, mid[0]));
-				else bumpW.add(parentOf(bw, mid[1]));
+				if (a > b) bumpU.add(parentOf(bu, midU));
+				else bumpW.add(parentOf(bw, midW));
 			}
 		if (!bumpU.size && !bumpW.size) break;
 		if ((gu.length - 1) * (gw.length - 1) > 4000) break; // a huge slab: keep the first answer
@@ -161,6 +162,16 @@ export function closerGrid(poly: Pt[], maxSpacing: number, thickness: number, ep
 	return { poly, us: g.us, ws: g.ws, panels: g.panels, maxAspect: g.maxAspect };
 }
 
+/** Each section's joint grid (ACI 302.1R spacing for the slab), before any pour split re-lays one. */
+export function sectionGrids(m: Model, layout: Layout, framed: Pt[][]): Required<SectionGrid>[] {
+	const { min, max } = jointSpacing(m.thickness);
+	return layout.sections.map((s) => {
+		const poly = framed[s.index];
+		const g = panelGrid(poly, max, min, layout.eps);
+		return { poly, us: g.us, ws: g.ws, panels: g.panels, maxAspect: g.maxAspect };
+	});
+}
+
 export interface JointOptions {
 	/** Lines that are cold joints (bulkheads) instead of control joints, per section. */
 	coldCuts?: Map<number, { alongW: boolean; at: number[] }>;
@@ -177,7 +188,6 @@ export function computeJoints(
 	opts: JointOptions = {}
 ): { joints: JointsResult; grids: SectionGrid[] } {
 	const { min, max } = jointSpacing(m.thickness);
-	const P = (p: Pt): Pt => [mToPlan(p[0], m.units), mToPlan(p[1], m.units)];
 	let total = 0;
 	const grids: SectionGrid[] = [];
 	const sections = layout.sections.map((s): SectionJoints => {
@@ -187,20 +197,25 @@ export function computeJoints(
 		const cold = opts.coldCuts?.get(s.index);
 		const isCold = (v: number, alongW: boolean) => !!cold && cold.alongW === alongW && cold.at.some((c) => Math.abs(c - v) <= layout.eps);
 		const lines: JointLine[] = [];
-		const push = (a: Pt, b: Pt, direction: JointLine['direction']) => {
-			const from = fromFrame(frame, a);
-			const to = fromFrame(frame, b);
-			const len = Math.hypot(b[0] - a[0], b[1] - a[1]);
+		// A joint from (u0, w0) to (u1, w1) in the frame; fromFrame written out, so the frame
+		// points need no arrays of their own.
+		const { origin: o, t, n } = frame;
+		const push = (u0: number, w0: number, u1: number, w1: number, direction: JointLine['direction']) => {
+			const from: Pt = [mToPlan(o[0] + t[0] * u0 + n[0] * w0, m.units), mToPlan(o[1] + t[1] * u0 + n[1] * w0, m.units)];
+			const to: Pt = [mToPlan(o[0] + t[0] * u1 + n[0] * w1, m.units), mToPlan(o[1] + t[1] * u1 + n[1] * w1, m.units)];
+			const len = Math.hypot(u1 - u0, w1 - w0);
 			total += len;
-			lines.push({ from: P(from), to: P(to), length: length(len), direction });
+			lines.push({ from, to, length: length(len), direction });
 		};
-		for (const u of g.us.slice(1, -1))
-			if (!isCold(u, false))
-				for (const [w0, w1] of clipVertical(poly, u, layout.eps)) push([u, w0], [u, w1], 'across');
+		for (let i = 1; i + 1 < g.us.length; i++) {
+			const u = g.us[i];
+			if (!isCold(u, false)) for (const [w0, w1] of clipVertical(poly, u, layout.eps)) push(u, w0, u, w1, 'across');
+		}
 		const swapped = poly.map((p): Pt => [p[1], p[0]]);
-		for (const w of g.ws.slice(1, -1))
-			if (!isCold(w, true))
-				for (const [u0, u1] of clipVertical(swapped, w, layout.eps)) push([u0, w], [u1, w], 'along');
+		for (let i = 1; i + 1 < g.ws.length; i++) {
+			const w = g.ws[i];
+			if (!isCold(w, true)) for (const [u0, u1] of clipVertical(swapped, w, layout.eps)) push(u0, w, u1, w, 'along');
+		}
 		return {
 			index: s.index,
 			panels: g.panels,

@@ -68,46 +68,51 @@ export function formRuns(m: Model, layout: Layout, splits: readonly SplitBulkhea
 }
 
 /**
- * Board length each formed run needs. At every corner one board runs past the other by its
- * thickness; a run takes the lap at its start unless that would cost it a splice a stock board
- * avoids, and then the run ending at that corner takes it instead (common practice).
+ * Board length each formed run needs, by the run's place in `runs`. At every corner one board runs
+ * past the other by its thickness; a run takes the lap at its start unless that would cost it a
+ * splice a stock board avoids, and then the run ending at that corner takes it instead (common
+ * practice).
  */
-export function lapLengths(
-	runs: readonly Run[],
-	t: number,
-	maxStock: number
-): { lengths: Map<string, number>; laps: number } {
-	const lengths = new Map<string, number>();
+export function lapLengths(runs: readonly Run[], t: number, maxStock: number): { lengths: Float64Array; laps: number } {
+	const n = runs.length;
+	const lengths = new Float64Array(n);
+	for (let i = 0; i < n; i++) lengths[i] = runs[i].length;
 	let laps = 0;
-	const formed = runs.filter((r) => r.formed && r.kind !== 'bulkhead');
+	const formed = (r: Run) => r.formed && r.kind !== 'bulkhead';
 	// Run ends share exact vertices; a 0.1 mm grid absorbs float noise. Keyed by a small-integer
-	// hash of the grid point (a collision is resolved by comparing the points).
+	// hash of the grid point (a collision is resolved by comparing the points). Runs ending in one
+	// hash bucket are chained, latest first: `latest` holds a bucket's last run, `before` the one
+	// listed ahead of each (−1: none), so no list is made per bucket.
 	const q = (v: number) => Math.round(v * 1e4);
 	const hash = (p: Pt) => (Math.imul(q(p[0]), 73856093) ^ Math.imul(q(p[1]), 19349663)) & 0x3fffffff;
-	const endingAt = new Map<number, Run[]>();
-	for (const r of formed) {
-		const h = hash(r.to);
-		const list = endingAt.get(h);
-		if (list) list.push(r);
-		else endingAt.set(h, [r]);
+	const latest = new Map<number, number>();
+	const before = new Int32Array(n);
+	for (let i = 0; i < n; i++) {
+		if (!formed(runs[i])) continue;
+		const h = hash(runs[i].to);
+		before[i] = latest.get(h) ?? -1;
+		latest.set(h, i);
 	}
+	/** The last run listed that ends at p, or −1. */
 	const runEndingAt = (p: Pt) => {
-		let found: Run | undefined; // the last run listed that ends here
-		for (const r of endingAt.get(hash(p)) ?? []) if (q(r.to[0]) === q(p[0]) && q(r.to[1]) === q(p[1])) found = r;
-		return found;
+		for (let i = latest.get(hash(p)) ?? -1; i >= 0; i = before[i]) {
+			const to = runs[i].to;
+			if (q(to[0]) === q(p[0]) && q(to[1]) === q(p[1])) return i;
+		}
+		return -1;
 	};
-	for (const r of formed) lengths.set(r.id, r.length);
-	for (const r of formed) {
+	for (let i = 0; i < n; i++) {
+		const r = runs[i];
+		if (!formed(r)) continue;
 		const prev = runEndingAt(r.from);
-		if (!prev) continue; // a free end (against the house): no corner to lap
+		if (prev < 0) continue; // a free end (against the house): no corner to lap
 		laps++;
-		const own = lengths.get(r.id)!;
-		const other = lengths.get(prev.id)!;
+		const own = lengths[i];
+		const other = lengths[prev];
 		const costs = (len: number) => countUp((len + t) / maxStock) > countUp(len / maxStock);
-		if (costs(own) && !costs(other)) lengths.set(prev.id, other + t);
-		else lengths.set(r.id, own + t);
+		if (costs(own) && !costs(other)) lengths[prev] = other + t;
+		else lengths[i] = own + t;
 	}
-	for (const r of runs) if (!lengths.has(r.id)) lengths.set(r.id, r.length);
 	return { lengths, laps };
 }
 
@@ -216,14 +221,16 @@ export function computeForms(
 	// A point shared by two runs gets one stake: points within 0.1 mm are the same. Points sit in
 	// 1 mm cells; a lookup visits only the cells its ±0.1 mm box touches (one, near a cell border
 	// two or four), so float noise at a border cannot make two stakes of one. Cell keys are hashed
-	// to small integers (collisions only cost a distance check).
-	const cells = new Map<number, Pt[]>();
+	// to small integers (collisions only cost a distance check). The stakes in one cell are
+	// chained: `lastIn` holds the cell's latest stake, `before[i]` the one ahead of stake i (−1: none).
+	const lastIn = new Map<number, number>();
+	const before: number[] = [];
 	const cellKey = (i: number, j: number) => (Math.imul(i, 73856093) ^ Math.imul(j, 19349663)) & 0x3fffffff;
 	const near = (p: Pt, i: number, j: number) => {
-		const list = cells.get(cellKey(i, j));
-		if (list) for (const q of list) if (dist(p, q) <= 1e-4) return true;
+		for (let s = lastIn.get(cellKey(i, j)) ?? -1; s >= 0; s = before[s]) if (dist(p, stakes[s].at) <= 1e-4) return true;
 		return false;
 	};
+	/** Whether a stake stands within 0.1 mm of p; if none does, the next stake (at p) is entered. */
 	const taken = (p: Pt) => {
 		const i0 = Math.floor((p[0] - 1e-4) * 1e3);
 		const i1 = Math.floor((p[0] + 1e-4) * 1e3);
@@ -232,19 +239,19 @@ export function computeForms(
 		if (near(p, i0, j0) || (i1 !== i0 && near(p, i1, j0)) || (j1 !== j0 && (near(p, i0, j1) || (i1 !== i0 && near(p, i1, j1)))))
 			return true;
 		const k = cellKey(Math.floor(p[0] * 1e3), Math.floor(p[1] * 1e3));
-		const list = cells.get(k);
-		if (list) list.push(p);
-		else cells.set(k, [p]);
+		before.push(lastIn.get(k) ?? -1);
+		lastIn.set(k, stakes.length);
 		return false;
 	};
 	let formLength = 0;
 	let cleats = 0;
 	const { lengths: boardLength, laps: corners } = lapLengths(runs, m.forms.boardThickness, maxStock);
-	for (const r of runs) {
+	for (let k = 0; k < runs.length; k++) {
+		const r = runs[k];
 		if (!r.formed) continue;
 		formLength += r.length;
 		// splitRun's pieces, counted rather than listed (this runs on every keystroke).
-		const board = boardLength.get(r.id)!;
+		const board = boardLength[k];
 		const n = pieceCount(board, maxStock);
 		const piece = board / n;
 		const splices: number[] = [];

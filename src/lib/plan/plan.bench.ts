@@ -9,26 +9,12 @@
 // what people feel.
 
 import path from 'node:path';
-import { pathToFileURL } from 'node:url';
 import { afterAll, bench, describe } from 'vitest';
-import { build } from 'vite';
-import type * as Engine from './index';
-import type * as Plans from './test-plans';
+import { bundleEngine } from '../../../scripts/lib/engine-bundle.mjs';
 
-const outDir = path.resolve('node_modules/.cache/engine-bench');
-await build({
-	configFile: false,
-	logLevel: 'warn',
-	build: {
-		lib: { entry: { engine: 'src/lib/plan/index.ts', plans: 'src/lib/plan/test-plans.ts' }, formats: ['es'] },
-		outDir,
-		emptyOutDir: true,
-		target: 'node20'
-	}
-});
-const load = async <T>(name: string): Promise<T> => import(pathToFileURL(path.join(outDir, `${name}.js`)).href);
-const { computePlan } = await load<typeof Engine>('engine');
-const { largestPlan, wavyPad } = await load<typeof Plans>('plans');
+const { engine, plans } = await bundleEngine(path.resolve('node_modules/.cache/engine-bench'));
+const { computePlan } = engine;
+const { largestPlan, wavyPad } = plans;
 
 const cases = [
 	{ name: '50-vertex outline, 4 sections', input: wavyPad(), target: 'median < 200 µs, p99 < 2 ms' },

@@ -55,12 +55,16 @@ export function project(a: Pt, b: Pt, p: Pt): number {
 }
 
 export function distToSegment(p: Pt, a: Pt, b: Pt): number {
+	return distToSegmentXY(p[0], p[1], a, b);
+}
+
+function distToSegmentXY(px: number, py: number, a: Pt, b: Pt): number {
 	const dx = b[0] - a[0];
 	const dy = b[1] - a[1];
 	const l2 = dx * dx + dy * dy;
-	const t = l2 ? Math.min(1, Math.max(0, ((p[0] - a[0]) * dx + (p[1] - a[1]) * dy) / l2)) : 0;
-	const ex = a[0] + dx * t - p[0];
-	const ey = a[1] + dy * t - p[1];
+	const t = l2 ? Math.min(1, Math.max(0, ((px - a[0]) * dx + (py - a[1]) * dy) / l2)) : 0;
+	const ex = a[0] + dx * t - px;
+	const ey = a[1] + dy * t - py;
 	return Math.sqrt(ex * ex + ey * ey);
 }
 
@@ -87,8 +91,9 @@ export function segmentRelation(a: Pt, b: Pt, c: Pt, d: Pt, eps: number): Relati
 		if ((t1 - t0) * len > eps) return 'overlap';
 		return (t1 - t0) * len >= -eps ? 'touch' : 'none';
 	}
-	const near = (p: Pt, q: Pt, r: Pt) => distToSegment(p, q, r) <= eps;
-	if (near(c, a, b) || near(d, a, b) || near(a, c, d) || near(b, c, d)) return 'touch';
+	// Written out rather than through a helper closure, which would be allocated on every call.
+	if (distToSegment(c, a, b) <= eps || distToSegment(d, a, b) <= eps || distToSegment(a, c, d) <= eps || distToSegment(b, c, d) <= eps)
+		return 'touch';
 	return 'none';
 }
 
@@ -116,26 +121,49 @@ export const boxesMeet = (a: Box, b: Box, eps: number) =>
 	a.minX <= b.maxX + eps && b.minX <= a.maxX + eps && a.minY <= b.maxY + eps && b.minY <= a.maxY + eps;
 
 export function pointInPolygon(p: Pt, poly: readonly Pt[], eps: number): Where {
+	return pointInPolygonXY(p[0], p[1], poly, eps);
+}
+
+/** pointInPolygon for the point (px, py), so a hot loop need not build a point to ask. */
+export function pointInPolygonXY(px: number, py: number, poly: readonly Pt[], eps: number): Where {
 	let inside = false;
-	const px = p[0];
-	const py = p[1];
 	const far = 2 * eps; // well clear of the edge's box: its distance is surely over eps
-	for (let i = 0; i < poly.length; i++) {
+	const n = poly.length;
+	for (let i = 0; i < n; i++) {
 		const a = poly[i];
-		const b = next(poly, i);
+		const b = poly[i + 1 === n ? 0 : i + 1];
 		// Skip the square root for edges nowhere near p; the answer is the same.
 		const clear =
 			(px < a[0] - far && px < b[0] - far) ||
 			(px > a[0] + far && px > b[0] + far) ||
 			(py < a[1] - far && py < b[1] - far) ||
 			(py > a[1] + far && py > b[1] + far);
-		if (!clear && distToSegment(p, a, b) <= eps) return 'boundary';
-		if (a[1] > p[1] !== b[1] > p[1]) {
-			const x = a[0] + ((p[1] - a[1]) / (b[1] - a[1])) * (b[0] - a[0]);
-			if (x > p[0]) inside = !inside;
+		if (!clear && distToSegmentXY(px, py, a, b) <= eps) return 'boundary';
+		if (a[1] > py !== b[1] > py) {
+			const x = a[0] + ((py - a[1]) / (b[1] - a[1])) * (b[0] - a[0]);
+			if (x > px) inside = !inside;
 		}
 	}
 	return inside ? 'inside' : 'outside';
+}
+
+/**
+ * Sorts numbers ascending in place. Array.prototype.sort copies the array (boxing each number)
+ * before it sorts; the short lists here are sorted by insertion instead, which is stable like
+ * it, so the order is the same.
+ */
+export function sortNumbers(v: number[]): number[] {
+	if (v.length > 32) return v.sort((p, q) => p - q);
+	for (let i = 1; i < v.length; i++) {
+		const x = v[i];
+		let j = i - 1;
+		while (j >= 0 && v[j] - x > 0) {
+			v[j + 1] = v[j];
+			j--;
+		}
+		v[j + 1] = x;
+	}
+	return v;
 }
 
 /**
@@ -155,11 +183,12 @@ export function clipVertical(poly: readonly Pt[], c: number, eps: number): [numb
 		else if ((da > eps && db < -eps) || (da < -eps && db > eps))
 			ys.push(a[1] + (-da / (b[0] - a[0])) * (b[1] - a[1]));
 	}
-	ys.sort((p, q) => p - q);
+	sortNumbers(ys);
 	const out: [number, number][] = [];
 	for (let k = 0; k + 1 < ys.length; k++) {
-		const [y0, y1] = [ys[k], ys[k + 1]];
-		if (y1 - y0 <= eps || pointInPolygon([c, (y0 + y1) / 2], poly, eps) !== 'inside') continue;
+		const y0 = ys[k];
+		const y1 = ys[k + 1];
+		if (y1 - y0 <= eps || pointInPolygonXY(c, (y0 + y1) / 2, poly, eps) !== 'inside') continue;
 		const last = out[out.length - 1];
 		if (last && y0 - last[1] <= eps) last[1] = y1;
 		else out.push([y0, y1]);
@@ -207,24 +236,27 @@ export function interiorPoint(poly: readonly Pt[], eps: number): Pt {
 		const b = poly[i + 1 === n ? 0 : i + 1];
 		if (a[1] < y !== b[1] < y) xs.push(a[0] + ((y - a[1]) / (b[1] - a[1])) * (b[0] - a[0]));
 	}
-	xs.sort((p, q) => p - q);
+	sortNumbers(xs);
 	return xs.length > 1 ? [(xs[0] + xs[1]) / 2, y] : poly[0];
 }
 
 /** Bounding box of every edge, packed [minX, minY, maxX, maxY] per edge, for quick rejection. */
-export function edgeBoxes(poly: readonly Pt[]): number[] {
+export function edgeBoxes(poly: readonly Pt[]): Float64Array {
 	const n = poly.length;
-	const out: number[] = [];
+	const out = new Float64Array(4 * n); // one allocation, the numbers stored unboxed
 	for (let i = 0; i < n; i++) {
 		const a = poly[i];
 		const b = poly[i + 1 === n ? 0 : i + 1];
-		out.push(Math.min(a[0], b[0]), Math.min(a[1], b[1]), Math.max(a[0], b[0]), Math.max(a[1], b[1]));
+		out[4 * i] = Math.min(a[0], b[0]);
+		out[4 * i + 1] = Math.min(a[1], b[1]);
+		out[4 * i + 2] = Math.max(a[0], b[0]);
+		out[4 * i + 3] = Math.max(a[1], b[1]);
 	}
 	return out;
 }
 
 /** Whether edge i of one packed set and edge j of another have meeting boxes. */
-export const edgeBoxesMeet = (A: number[], i: number, B: number[], j: number, eps: number) =>
+export const edgeBoxesMeet = (A: Float64Array, i: number, B: Float64Array, j: number, eps: number) =>
 	A[i * 4] <= B[j * 4 + 2] + eps &&
 	B[j * 4] <= A[i * 4 + 2] + eps &&
 	A[i * 4 + 1] <= B[j * 4 + 3] + eps &&

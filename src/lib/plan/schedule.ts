@@ -65,7 +65,8 @@ export function pourOffsets(
 	pours: readonly Pick<Pour, 'section' | 'part'>[] = m.sections.map((s) => ({ section: s.index, part: 0 }))
 ): number[] {
 	// cumulative[d]: equivalent age gained from day 0 up to the start of day d.
-	const cumulative = [0];
+	// A typed array: one allocation, numbers stored unboxed.
+	const cumulative = new Float64Array(HORIZON + 1);
 	let lastT = NaN;
 	let f = 0;
 	for (let d = 0; d < HORIZON; d++) {
@@ -74,7 +75,7 @@ export function pourOffsets(
 			f = ageFactor(t); // one exp per change of temperature, not per day
 			lastT = t;
 		}
-		cumulative.push(cumulative[d] + f);
+		cumulative[d + 1] = cumulative[d] + f;
 	}
 	const offsets: number[] = [];
 	for (let k = 0; k < pours.length; k++) {

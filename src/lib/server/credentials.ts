@@ -1,6 +1,6 @@
 import { and, asc, eq, isNotNull, lt, lte, or, sql } from 'drizzle-orm';
 import { daysUntil, reminderDue, statusAfterExpiry } from '$lib/contractor-status';
-import { formatDate } from '$lib/components/plan/format';
+import { formatDayLong } from '$lib/reader';
 import type { DocumentKind } from '$lib/schemas/contractor';
 import { db } from '$lib/server/db';
 import { contractor, credentialReminder, user } from '$lib/server/db/schema';
@@ -27,30 +27,36 @@ export const credentialsCurrent = (c: { licenceExpiresOn: string | null; insuran
 	credentialDates(c).every(([, d]) => d >= today);
 
 /**
- * Approved accounts with a licence or insurance date before `today` lapse (the expiry table in
- * contractor-status), in the caller's transaction, each row locked: the contractor is told, and
- * so is every homeowner with an open bid or an accepted job from them.
+ * Approved contractors (with their user's name and e-mail) whose licence or insurance date
+ * compares to `day` by `cmp` (`lt`: before it, `lte`: on or before it); one contractor when `only`.
  */
-async function lapseExpired(tx: Tx, today: string, origin: string, only?: string) {
-	const rows = await tx
+const approvedWithADate = (tx: Tx, cmp: typeof lt, day: string, only?: string) =>
+	tx
 		.select({ row: contractor, name: user.name, email: user.email })
 		.from(contractor)
 		.innerJoin(user, eq(user.id, contractor.userId))
 		.where(
 			and(
 				eq(contractor.status, 'approved'),
-				or(lt(contractor.licenceExpiresOn, today), lt(contractor.insuranceExpiresOn, today)),
+				or(cmp(contractor.licenceExpiresOn, day), cmp(contractor.insuranceExpiresOn, day)),
 				only ? eq(contractor.userId, only) : undefined
 			)
-		)
-		.for('update', { of: contractor, skipLocked: true });
+		);
+
+/**
+ * Approved accounts with a licence or insurance date before `today` lapse (the expiry table in
+ * contractor-status), in the caller's transaction, each row locked: the contractor is told, and
+ * so is every homeowner with an open bid or an accepted job from them.
+ */
+async function lapseExpired(tx: Tx, today: string, origin: string, only?: string) {
+	const rows = await approvedWithADate(tx, lt, today, only).for('update', { of: contractor, skipLocked: true });
 	for (const { row, name, email } of rows) {
 		const to = statusAfterExpiry(row.status);
 		if (to === row.status) continue;
 		const kinds = credentialDates(row)
 			.filter(([, d]) => d < today)
 			.map(([k]) => k);
-		const reason = kinds.map((k) => `Your ${k} expired on ${formatDate(k === 'licence' ? row.licenceExpiresOn! : row.insuranceExpiresOn!)}.`).join(' ') + ' Upload the renewed document with its new date.';
+		const reason = kinds.map((k) => `Your ${k} expired on ${formatDayLong(k === 'licence' ? row.licenceExpiresOn! : row.insuranceExpiresOn!)}.`).join(' ') + ' Upload the renewed document with its new date.';
 		await tx.update(contractor).set({ status: to, statusReason: reason, updatedAt: new Date() }).where(eq(contractor.userId, row.userId));
 		await queueMail(email, credentialLapsedMail(name, kinds, `${origin}/pro/profile`), tx);
 		await tellHomeownersOfContractorChange(tx, row.userId, row.businessName ?? name, 'lapsed', origin);
@@ -65,17 +71,7 @@ async function lapseExpired(tx: Tx, today: string, origin: string, only?: string
  */
 async function sendReminders(tx: Tx, today: string, origin: string, only?: string) {
 	const horizon = isoDay(new Date(Date.parse(`${today}T00:00:00Z`) + 30 * 86_400_000));
-	const rows = await tx
-		.select({ row: contractor, name: user.name, email: user.email })
-		.from(contractor)
-		.innerJoin(user, eq(user.id, contractor.userId))
-		.where(
-			and(
-				eq(contractor.status, 'approved'),
-				or(lte(contractor.licenceExpiresOn, horizon), lte(contractor.insuranceExpiresOn, horizon)),
-				only ? eq(contractor.userId, only) : undefined
-			)
-		);
+	const rows = await approvedWithADate(tx, lte, horizon, only);
 	let sent = 0;
 	for (const { row, name, email } of rows) {
 		for (const [kind, expiresOn] of credentialDates(row)) {
@@ -84,7 +80,7 @@ async function sendReminders(tx: Tx, today: string, origin: string, only?: strin
 			if (!due) continue;
 			const took = await tx.insert(credentialReminder).values({ contractorId: row.userId, kind, expiresOn, daysBefore: due }).onConflictDoNothing().returning();
 			if (!took.length) continue;
-			await queueMail(email, credentialReminderMail(name, kind, formatDate(expiresOn), left, `${origin}/pro/profile`), tx);
+			await queueMail(email, credentialReminderMail(name, kind, formatDayLong(expiresOn), left, `${origin}/pro/profile`), tx);
 			sent++;
 		}
 	}

@@ -184,10 +184,9 @@ export async function contractorLeads(contractorId: string, o: { status: LeadSta
  */
 export async function contractorLead(contractorId: string, leadId: string) {
 	const [row] = await db
-		.select({ lead, bid, homeownerName: user.name, homeownerEmail: user.email, unitPref: contractor.serviceRadiusUnit })
+		.select({ lead, bid, homeownerName: user.name, homeownerEmail: user.email })
 		.from(lead)
 		.innerJoin(user, eq(user.id, lead.homeownerId))
-		.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
 		.leftJoin(bid, eq(bid.leadId, lead.id))
 		.where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
 	if (!row) return null;

@@ -1,9 +1,11 @@
 // Saved plans on the real PostgreSQL test database.
 import { afterAll, describe, expect, it } from 'vitest';
-import { computePlan } from '$lib/plan';
-import { client } from './db';
+import { eq } from 'drizzle-orm';
+import { computePlan, ENGINE_VERSION } from '$lib/plan';
+import { client, db } from './db';
+import { plan } from './db/schema';
 import { mailIdle } from './mail';
-import { createPlan, deletePlan, duplicatePlan, findOwnPlan, listPlans, PlanInputInvalid, StaleRevision, updatePlan } from './plans';
+import { createPlan, deletePlan, duplicatePlan, findOwnPlan, listPlans, PlanInputInvalid, recomputeOutdatedPlans, StaleRevision, updatePlan } from './plans';
 import { createUser } from './users';
 
 afterAll(async () => {
@@ -15,6 +17,29 @@ const owner = () => createUser({ name: 'Plan Owner', email: `plans-${crypto.rand
 const input = (length = 12) => ({ units: 'imperial', sections: [{ outline: [[0, 0], [length, 0], [length, 10], [0, 10]] }] });
 
 describe('saved plans', () => {
+	it('record the engine version of their result; an older one is recomputed from the input', async () => {
+		const me = await owner();
+		const p = await createPlan(me.id, { name: 'Versioned', input: input() });
+		expect(p.engineVersion).toBe(ENGINE_VERSION);
+		// What an older engine left: another result (here a 12 × 10 ft slab's for a 16 × 10 ft input), version 0.
+		const refusedInput = { units: 'imperial', sections: [{ outline: [[0, 0], [10, 10], [10, 0], [0, 10]] }] }; // crosses itself
+		await db.update(plan).set({ input: input(16), engineVersion: 0 }).where(eq(plan.id, p.id));
+		const bad = await createPlan(me.id, { name: 'Now refused', input: input() });
+		await db.update(plan).set({ input: refusedInput, engineVersion: 0 }).where(eq(plan.id, bad.id));
+
+		const { updated, refused } = await recomputeOutdatedPlans(1);
+		expect(updated).toBeGreaterThanOrEqual(1);
+		expect(refused).toContain(bad.id);
+		const now = (await findOwnPlan(p.id, me.id))!;
+		expect(now.engineVersion).toBe(ENGINE_VERSION);
+		expect(now.result.area.squareFeet).toBeCloseTo(160, 6); // 16 × 10 ft
+		expect(now.revision).toBe(p.revision); // the owner changed nothing
+		const kept = (await findOwnPlan(bad.id, me.id))!;
+		expect(kept.engineVersion).toBe(0);
+		expect(kept.result).toEqual(bad.result);
+		expect((await recomputeOutdatedPlans()).updated).toBe(0);
+	});
+
 	it('store the input and the result the server computed from it', async () => {
 		const me = await owner();
 		const p = await createPlan(me.id, { name: 'Back patio', input: input() });
@@ -40,7 +65,7 @@ describe('saved plans', () => {
 		expect(stale).toBeInstanceOf(StaleRevision);
 		expect((stale as StaleRevision).current.revision).toBe(2);
 		const now = await findOwnPlan(p.id, me.id);
-		expect((now!.result as { area: { squareFeet: number } }).area.squareFeet).toBeCloseTo(140, 6); // 14 × 10 ft, not 20 × 10
+		expect(now!.result.area.squareFeet).toBeCloseTo(140, 6); // 14 × 10 ft, not 20 × 10
 	});
 
 	it('belong to their owner only', async () => {

@@ -1,5 +1,5 @@
-import { and, desc, eq, sql } from 'drizzle-orm';
-import { estimate, type PlanIssue, type PlanResult } from '$lib/plan';
+import { and, asc, desc, eq, lt, notInArray, sql } from 'drizzle-orm';
+import { ENGINE_VERSION, estimate, type PlanIssue, type PlanResult } from '$lib/plan';
 import { db, type Db } from '$lib/server/db';
 import { lead, plan, planPhoto, type Plan } from '$lib/server/db/schema';
 import { cancelCuringReminders, scheduleCuringReminders } from './reminders';
@@ -33,7 +33,7 @@ export type PlanSummary = Pick<Plan, 'id' | 'name' | 'postcode' | 'revision' | '
 };
 
 export function summarize(p: Plan): PlanSummary {
-	const r = p.result as PlanResult;
+	const r = p.result;
 	return {
 		id: p.id,
 		name: p.name,
@@ -72,7 +72,7 @@ export async function createPlan(ownerId: string, data: { name: string; postcode
 	const result = compute(data.input);
 	const [created] = await conn
 		.insert(plan)
-		.values({ ownerId, name: data.name, postcode: data.postcode || null, input: data.input, result })
+		.values({ ownerId, name: data.name, postcode: data.postcode || null, input: data.input, result, engineVersion: ENGINE_VERSION })
 		.returning();
 	return created;
 }
@@ -94,6 +94,7 @@ export async function updatePlan(
 	if (data.input !== undefined) {
 		changes.input = data.input;
 		changes.result = compute(data.input);
+		changes.engineVersion = ENGINE_VERSION;
 	}
 	// A new pour date (or anything that moves the curing days) moves the reminder jobs with the save.
 	const saved = await db.transaction(async (tx) => {
@@ -135,12 +136,50 @@ export async function duplicatePlan(id: string, ownerId: string): Promise<Plan |
 	if (!source) return undefined;
 	const [copy] = await db
 		.insert(plan)
-		.values({ ownerId, name: `${source.name} (copy)`.slice(0, 100), postcode: source.postcode, input: source.input, result: source.result })
+		.values({ ownerId, name: `${source.name} (copy)`.slice(0, 100), postcode: source.postcode, input: source.input, result: source.result, engineVersion: source.engineVersion })
 		.returning();
 	return copy;
 }
 
 /** What the API and pages send to the browser. */
 export function planView(p: Plan): PlanRecord {
-	return { id: p.id, name: p.name, postcode: p.postcode ?? '', revision: p.revision, input: p.input, result: p.result as PlanResult, createdAt: p.createdAt, updatedAt: p.updatedAt };
+	return { id: p.id, name: p.name, postcode: p.postcode ?? '', revision: p.revision, input: p.input, result: p.result, createdAt: p.createdAt, updatedAt: p.updatedAt };
+}
+
+/**
+ * Recomputes stored results that an older engine wrote (engine_version below ENGINE_VERSION), from
+ * their saved input, a batch of `batch` plans at a time until none is left. Run it after raising
+ * ENGINE_VERSION, e.g. `node -e` on the built server or from a one-off script; safe to run again
+ * or on several servers at once. The revision and updated-at stay: the homeowner changed nothing,
+ * and a tab open on the plan keeps saving on top of it. A result row is only written if the plan
+ * is still at the version it was read at, so an edit saved meanwhile is never overwritten.
+ *
+ * An input the current engine refuses (a limit tightened since) keeps its old result and version;
+ * those plans are counted in `refused` and the homeowner sees the error on their next save.
+ */
+export async function recomputeOutdatedPlans(batch = 100): Promise<{ updated: number; refused: string[] }> {
+	let updated = 0;
+	const refused: string[] = [];
+	for (;;) {
+		const rows = await db
+			.select({ id: plan.id, input: plan.input, revision: plan.revision, engineVersion: plan.engineVersion })
+			.from(plan)
+			.where(and(lt(plan.engineVersion, ENGINE_VERSION), refused.length ? notInArray(plan.id, refused) : undefined))
+			.orderBy(asc(plan.id))
+			.limit(batch);
+		if (!rows.length) return { updated, refused };
+		for (const r of rows) {
+			const outcome = estimate(r.input);
+			if (!outcome.ok) {
+				refused.push(r.id);
+				continue;
+			}
+			const done = await db
+				.update(plan)
+				.set({ result: outcome.plan, engineVersion: ENGINE_VERSION })
+				.where(and(eq(plan.id, r.id), eq(plan.revision, r.revision), eq(plan.engineVersion, r.engineVersion)))
+				.returning({ id: plan.id });
+			updated += done.length;
+		}
+	}
 }

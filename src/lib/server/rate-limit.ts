@@ -1,13 +1,13 @@
 import { json } from '@sveltejs/kit';
 import { RateLimiterDrizzle, RateLimiterRes } from 'rate-limiter-flexible';
 import { db } from './db';
-import { apiRateCounter } from './db/schema';
+import { throttleCounter } from './db/schema';
 
 /** The public estimate API: requests per client address per minute. */
 export const ESTIMATE_LIMIT = { points: 60, duration: 60 };
 
 // Counted in PostgreSQL with one atomic upsert, so parallel requests and several app processes share it.
-const estimateLimiter = new RateLimiterDrizzle({ storeClient: db, schema: apiRateCounter, keyPrefix: 'estimate', ...ESTIMATE_LIMIT });
+const estimateLimiter = new RateLimiterDrizzle({ storeClient: db, schema: throttleCounter, keyPrefix: 'estimate', ...ESTIMATE_LIMIT });
 
 /** Counts one request from `client`; the 429 to send when over the limit, else null. */
 export async function limitEstimate(client: string): Promise<Response | null> {

@@ -1,5 +1,4 @@
 import { eq } from 'drizzle-orm';
-import { readerLocale } from '$lib/components/plan/format';
 import { db } from '$lib/server/db';
 import { contractor } from '$lib/server/db/schema';
 import { sweepContractor } from '$lib/server/credentials';
@@ -19,7 +18,6 @@ export const load = (async (event) => {
 			submitted: !!profile?.submittedAt,
 			licenceExpiresOn: profile?.licenceExpiresOn ?? null,
 			insuranceExpiresOn: profile?.insuranceExpiresOn ?? null
-		},
-		locale: readerLocale(event.request.headers.get('accept-language'))
+		}
 	};
 }) satisfies LayoutServerLoad;

@@ -4,6 +4,7 @@
 import type { Area, Caution, Mass, PlanResult, Severity, Small, Temperature, Units } from '$lib/plan';
 import { formatLength, formatSmall, formatVolume, tapeLength } from '$lib/plan/format';
 import { length, planToM } from '$lib/plan/units';
+import { formatMoney, toCents } from '$lib/money';
 
 const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
 const num = (x: number, digits: number) => String(round(x, digits));
@@ -39,18 +40,6 @@ export function formatMinutes(minutes: number): string {
 	return `${Math.floor(m / 60)} h${rest ? ` ${rest} min` : ''}`;
 }
 
-const moneyFormats = new Map<string, Intl.NumberFormat>();
-
-/**
- * An amount in the plan's currency (ISO 4217), e.g. "$1,683.20", "CA$12.00", "€5.10". One fixed
- * locale, so the server-rendered page, the browser and the PDF print the same text.
- */
-export function formatMoney(amount: number, currency = 'USD'): string {
-	let f = moneyFormats.get(currency);
-	if (!f) moneyFormats.set(currency, (f = new Intl.NumberFormat('en-US', { style: 'currency', currency })));
-	return f.format(amount);
-}
-
 /** "1 board", "3 boards". */
 export const plural = (n: number, word: string) => `${n} ${n === 1 ? word : `${word}s`}`;
 
@@ -70,42 +59,11 @@ export function formatQuantity(quantity: number, unit: string): string {
 	return `${num(quantity, quantity >= 10 ? 1 : 2)} ${unit}`;
 }
 
-/**
- * The reader's locale from an Accept-Language header: the first tag this runtime can format dates
- * in, else en-US. Read on the server, so the page renders and hydrates with the same dates.
- */
-export function readerLocale(acceptLanguage: string | null | undefined): string {
-	for (const part of (acceptLanguage ?? '').split(',').slice(0, 10)) {
-		const tag = part.split(';')[0].trim();
-		if (!tag || tag === '*') continue;
-		try {
-			const [ok] = Intl.DateTimeFormat.supportedLocalesOf(tag);
-			if (ok) return ok;
-		} catch {
-			// not a well-formed language tag: try the next one
-		}
-	}
-	return 'en-US';
-}
-
-/**
- * One formatter per locale: building an Intl.DateTimeFormat costs far more than using one, and a
- * plan page formats dozens of dates (a profile of the plan page under load found 40 % of its
- * render time here). Formatters hold no user data; the map is capped so odd locales cannot grow it.
- */
-const dateFormats = new Map<string, Intl.DateTimeFormat>();
-function dateFormat(locale: string): Intl.DateTimeFormat {
-	let f = dateFormats.get(locale);
-	if (!f) {
-		f = new Intl.DateTimeFormat(locale, { weekday: 'short', month: 'short', day: 'numeric', year: 'numeric', timeZone: 'UTC' });
-		if (dateFormats.size >= 32) dateFormats.clear();
-		dateFormats.set(locale, f);
-	}
-	return f;
-}
-
-/** ISO day to text in the reader's locale, read in UTC so the server and the browser agree. */
-export const formatDate = (iso: string, locale = 'en-US') => dateFormat(locale).format(new Date(`${iso}T00:00:00Z`));
+// Dates live in $lib/reader (the reader's locale, today and every date format); re-exported for
+// the plan views and the PDF that import them from here.
+import { formatDayLong as formatDate } from '$lib/reader';
+export { readerLocale } from '$lib/reader';
+export { formatDate };
 
 export const formatBagSize = (b: { size: number; unit: string }) => `${b.size} ${b.unit}`;
 
@@ -121,7 +79,7 @@ export type SummaryPlan = Pick<PlanResult, 'units' | 'area' | 'volume' | 'bags' 
 
 export function summaryItems(p: SummaryPlan): SummaryItem[] {
 	const u = p.units;
-	const money = (x?: number) => (x === undefined ? '' : ` · ${formatMoney(x, p.currency)}`);
+	const money = (x?: number) => (x === undefined ? '' : ` · ${formatMoney(toCents(x), p.currency)}`);
 	const items: SummaryItem[] = [
 		{ label: 'Area', value: formatArea(p.area, u) },
 		{ label: 'Outside edge', value: formatLength(p.area.perimeter, u) },
@@ -142,7 +100,7 @@ export function summaryItems(p: SummaryPlan): SummaryItem[] {
 }
 
 function cheaperText({ cost, bags, currency }: SummaryPlan): string | undefined {
-	const formatMoneyIn = (x: number) => formatMoney(x, currency);
+	const formatMoneyIn = (x: number) => formatMoney(toCents(x), currency);
 	if (!cost.cheaper || cost.bagCost === undefined || cost.readyMixCost === undefined) return undefined;
 	const bag = bags.find((b) => b.size === cost.bagSize);
 	const bagLabel = bag ? `${formatBagSize(bag)} bags` : 'bags';
@@ -156,7 +114,7 @@ export function diyTotal({ materials, currency }: Pick<PlanResult, 'materials'> 
 	if (!materials.items.some((i) => i.cost !== undefined)) return undefined;
 	const { amount, complete, unpriced } = materials.diyTotal;
 	const names = unpriced.map((id) => materials.items.find((i) => i.id === id)?.name ?? id);
-	return { amount: formatMoney(amount, currency), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
+	return { amount: formatMoney(toCents(amount), currency), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
 }
 
 const RUN_KIND = { outer: 'Outer form', house: 'House side', bulkhead: 'Bulkhead' } as const;
@@ -330,7 +288,7 @@ export const materialRows = ({ materials, currency }: Pick<PlanResult, 'material
 		id: i.id,
 		name: i.name,
 		quantity: formatQuantity(i.quantity, i.unit),
-		cost: i.cost === undefined ? undefined : formatMoney(i.cost, currency),
+		cost: i.cost === undefined ? undefined : formatMoney(toCents(i.cost), currency),
 		note: i.note
 	}));
 

@@ -1,4 +1,3 @@
-import { readerLocale } from '$lib/components/plan/format';
 import { EXPIRING_WINDOW_DAYS, expiringCredentials } from '$lib/server/credentials';
 import { requireRole } from '$lib/server/guards';
 import type { PageServerLoad } from './$types';
@@ -7,7 +6,6 @@ export const load = (async (event) => {
 	requireRole(event, 'admin');
 	return {
 		rows: await expiringCredentials(),
-		windowDays: EXPIRING_WINDOW_DAYS,
-		locale: readerLocale(event.request.headers.get('accept-language'))
+		windowDays: EXPIRING_WINDOW_DAYS
 	};
 }) satisfies PageServerLoad;

@@ -1,6 +1,7 @@
 import { and, asc, count, eq, ilike, isNotNull, or, sql, type SQL } from 'drizzle-orm';
 import { contractorStatuses, type ContractorStatus } from '$lib/contractor-status';
 import { roles, type Role } from '$lib/roles';
+import { accountColumns, accountContractor } from '$lib/server/admin-accounts';
 import { db } from '$lib/server/db';
 import { contractor, user } from '$lib/server/db/schema';
 import { requireRole } from '$lib/server/guards';
@@ -45,24 +46,13 @@ export const load = (async (event) => {
 	const where = filters.length ? and(...filters) : undefined;
 
 	const rows = await db
-		.select({
-			id: user.id,
-			name: user.name,
-			email: user.email,
-			role: user.role,
-			createdAt: user.createdAt,
-			emailVerifiedAt: user.emailVerifiedAt,
-			disabledAt: user.disabledAt,
-			businessName: contractor.businessName,
-			licenceNumber: contractor.licenceNumber,
-			status: contractor.status
-		})
+		.select({ ...accountColumns, licenceNumber: contractor.licenceNumber, status: contractor.status })
 		.from(user)
-		.leftJoin(contractor, eq(contractor.userId, user.id))
+		.leftJoin(contractor, accountContractor)
 		.where(where)
 		.orderBy(asc(user.name), asc(user.email))
 		.limit(paging.size)
 		.offset(paging.offset);
-	const [{ n }] = await db.select({ n: count() }).from(user).leftJoin(contractor, eq(contractor.userId, user.id)).where(where);
+	const [{ n }] = await db.select({ n: count() }).from(user).leftJoin(contractor, accountContractor).where(where);
 	return { rows, total: n, q, role: role ?? '', status: status ?? '', disabled: disabledOnly, ...paging };
 }) satisfies PageServerLoad;

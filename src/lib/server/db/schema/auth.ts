@@ -63,15 +63,5 @@ export const emailToken = pgTable(
 	(t) => [index('email_token_user_idx').on(t.userId, t.purpose)]
 );
 
-/**
- * rate-limiter-flexible's counters (sign-in attempts, requested mail), in the shape its Drizzle
- * store reads: one row per key, reset when `expire` has passed.
- */
-export const throttleCounter = pgTable('throttle_counter', {
-	key: text('key').primaryKey(),
-	points: integer('points').notNull().default(0),
-	expire: timestamp('expire', { withTimezone: true })
-});
-
 export type User = typeof user.$inferSelect;
 export type Session = typeof session.$inferSelect;

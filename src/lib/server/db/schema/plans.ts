@@ -1,10 +1,13 @@
 import { boolean, date, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import type { PlanResult } from '../../../plan';
 import { user } from './auth';
 
 /**
  * A homeowner's slab plan. `input` is what they described (the engine's input schema); `result`
- * is what the server's engine computed from it — never numbers sent by the browser. `revision`
- * increases on every save, so a stale tab's write is refused rather than lost.
+ * is what the server's engine computed from it — never numbers sent by the browser — and
+ * `engineVersion` the engine's ENGINE_VERSION then (0: saved before versions were recorded), so
+ * results of an older engine can be recomputed (recomputeOutdatedPlans). `revision` increases on
+ * every save, so a stale tab's write is refused rather than lost.
  */
 export const plan = pgTable(
 	'plan',
@@ -16,7 +19,8 @@ export const plan = pgTable(
 		name: text('name').notNull(),
 		postcode: text('postcode'),
 		input: jsonb('input').notNull(),
-		result: jsonb('result').notNull(),
+		result: jsonb('result').$type<PlanResult>().notNull(),
+		engineVersion: integer('engine_version').notNull().default(0),
 		revision: integer('revision').notNull().default(1),
 		/** E-mail curing reminders on (the plan page's switch; a stop link in each e-mail turns it off). */
 		curingReminders: boolean('curing_reminders').notNull().default(false),

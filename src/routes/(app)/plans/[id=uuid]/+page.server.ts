@@ -1,7 +1,7 @@
 import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { currentResult } from '$lib/components/plan/currentResult';
-import { readerLocale } from '$lib/components/plan/format';
+import { readerLocale } from '$lib/reader';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';

@@ -1,4 +1,3 @@
-import { readerLocale } from '$lib/components/plan/format';
 import { error } from '@sveltejs/kit';
 import { desc, eq } from 'drizzle-orm';
 import { decisionMeta, type VettingDecision } from '$lib/contractor-status';
@@ -17,7 +16,7 @@ export const load = (async (event) => {
 	if (!profile) error(404, 'No such contractor');
 	const [account] = await db.select({ name: user.name, email: user.email, createdAt: user.createdAt, emailVerifiedAt: user.emailVerifiedAt }).from(user).where(eq(user.id, event.params.id));
 	const history = await db.select().from(auditLog).where(eq(auditLog.subjectId, event.params.id)).orderBy(desc(auditLog.createdAt)).limit(20);
-	return { profile, account, history, changes: changesSinceReview(profile), locale: readerLocale(event.request.headers.get('accept-language')) };
+	return { profile, account, history, changes: changesSinceReview(profile) };
 }) satisfies PageServerLoad;
 
 /** One action per decision; the reason is required where the decision says so. */

@@ -2,6 +2,7 @@ import { error } from '@sveltejs/kit';
 import { count, desc, eq } from 'drizzle-orm';
 import { accountAccessSchema } from '$lib/schemas/account';
 import { AccessRefused, setAccountDisabled } from '$lib/server/account-access';
+import { accountColumns, accountContractor } from '$lib/server/admin-accounts';
 import { db } from '$lib/server/db';
 import { auditLog, contractor, lead, plan, session, user } from '$lib/server/db/schema';
 import { formError, parseForm } from '$lib/server/forms';
@@ -12,19 +13,9 @@ export const load = (async (event) => {
 	const me = requireRole(event, 'admin');
 	const id = event.params.id;
 	const [account] = await db
-		.select({
-			id: user.id,
-			name: user.name,
-			email: user.email,
-			role: user.role,
-			createdAt: user.createdAt,
-			emailVerifiedAt: user.emailVerifiedAt,
-			disabledAt: user.disabledAt,
-			disabledReason: user.disabledReason,
-			businessName: contractor.businessName
-		})
+		.select({ ...accountColumns, disabledReason: user.disabledReason })
 		.from(user)
-		.leftJoin(contractor, eq(contractor.userId, user.id))
+		.leftJoin(contractor, accountContractor)
 		.where(eq(user.id, id));
 	if (!account) error(404, 'No such account');
 	const [[plans], [leads], [sessions]] = await Promise.all([

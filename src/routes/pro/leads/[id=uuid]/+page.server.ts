@@ -5,7 +5,6 @@ import { bidSchemaFor, declineSchema, messageSchema } from '$lib/schemas/leads';
 import { contractorDistanceUnit, requireApprovedContractor } from '$lib/server/contractors';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
-import { readerLocale } from '$lib/components/plan/format';
 import { contractorLead, declineLead, expireLeadsNow, LeadRefused, markLeadSeen } from '$lib/server/leads';
 import { saveBid, withdrawBid } from '$lib/server/bids';
 import { postMessage, threadOf } from '$lib/server/messages';
@@ -26,7 +25,6 @@ export const load = (async (event) => {
 		bid: found.bid,
 		homeowner: found.homeowner,
 		asked: found.asked,
-		locale: readerLocale(event.request.headers.get('accept-language')),
 		// As on the leads list: the unit the contractor chose, else their language's.
 		unit: (await contractorDistanceUnit(user.id)) ?? defaultDistanceUnit(event.locals.reader.locale),
 		messages: await threadOf(event.params.id),

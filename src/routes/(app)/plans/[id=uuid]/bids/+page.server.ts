@@ -5,7 +5,6 @@ import { serviceKinds, type ServiceKind } from '$lib/schemas/contractor';
 import { acceptSchema, getBidsSchema } from '$lib/schemas/leads';
 import { formError, parseForm, validateForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
-import { readerLocale } from '$lib/components/plan/format';
 import { announceRevision, closeRequest, completeJob, expireLeadsNow, jobContactOf, LeadRefused, leadsForPlan, sendLeads } from '$lib/server/leads';
 import { acceptBid, reopenBidding } from '$lib/server/bids';
 import { findOwnPlan } from '$lib/server/plans';
@@ -37,7 +36,6 @@ export const load = (async (event) => {
 		matches: matches.map((m) => ({ ...m, alreadySent: already.has(m.id) })),
 		leads,
 		contact: await jobContactOf(plan.id),
-		locale: readerLocale(event.request.headers.get('accept-language')),
 		max: MAX_CONTRACTORS_PER_SEND
 	};
 }) satisfies PageServerLoad;

@@ -1,7 +1,7 @@
 import { error, json } from '@sveltejs/kit';
 import { requireApiRole } from '$lib/server/api';
 import { currentResult } from '$lib/components/plan/currentResult';
-import { readerLocale } from '$lib/components/plan/format';
+import { readerLocale } from '$lib/reader';
 import { PdfRefused, renderPlanPdf } from '$lib/server/pdf/pool';
 import { findOwnPlan, planView } from '$lib/server/plans';
 import type { RequestHandler } from './$types';
