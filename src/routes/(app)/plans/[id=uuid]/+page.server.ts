@@ -5,13 +5,26 @@ import { readerLocale } from '$lib/components/plan/format';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';
+import { loggedForecastFor } from '$lib/plan/pour-log';
+import { listPourRecords } from '$lib/server/pour-records';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async ({ parent, request }) => {
 	// The layout found the plan among the user's own; only then are its photos listed.
 	const { plan } = await parent();
-	const photos = (await listPhotos(plan.id)).map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height }));
-	return { photos, maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024, result: currentResult(plan.input, plan.result), locale: readerLocale(request.headers.get('accept-language')) };
+	const [photos, records] = await Promise.all([
+		listPhotos(plan.id).then((list) => list.map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height }))),
+		listPourRecords(plan.id)
+	]);
+	const result = currentResult(plan.input, plan.result);
+	return {
+		photos,
+		maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024,
+		result,
+		// The strength timeline and milestones again from the pour log's dates and temperatures.
+		logged: loggedForecastFor(plan.input, result, records),
+		locale: readerLocale(request.headers.get('accept-language'))
+	};
 }) satisfies PageServerLoad;
 
 export const actions = {
