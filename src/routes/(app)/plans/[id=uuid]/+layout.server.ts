@@ -8,5 +8,6 @@ export const load = (async (event) => {
 	const me = requireRole(event, 'homeowner');
 	const found = await findOwnPlan(event.params.id, me.id);
 	if (!found) error(404, 'No such plan.');
-	return { plan: planView(found) };
+	// loadedAt: when this copy was made, for the "offline, as of" note when a kept copy is shown.
+	return { plan: planView(found), loadedAt: Date.now() };
 }) satisfies LayoutServerLoad;
