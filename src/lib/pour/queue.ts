@@ -64,45 +64,49 @@ let sending: Promise<SendResult> | null = null;
 
 /** Sends what is queued, in chunks the server accepts; one send at a time per page. */
 export function sendQueued(planId: string, fetcher: typeof fetch = fetch): Promise<SendResult> {
-	sending ??= (async (): Promise<SendResult> => {
+	if (sending) return sending;
+	const run = drain(planId, fetcher);
+	sending = run;
+	// Cleared only after the assignment above, even when the queue was empty and drain ended at once.
+	void run.finally(() => {
+		if (sending === run) sending = null;
+	});
+	return run;
+}
+
+async function drain(planId: string, fetcher: typeof fetch): Promise<SendResult> {
+	let result: SendResult = 'nothing';
+	for (;;) {
+		const s = readSaved(planId);
+		const batch = s.pending.flatMap((k) => s.records.filter((r) => r.key === k)).slice(0, POUR_LOG_LIMITS.perRequest);
+		if (!batch.length) return result;
+		let res: Response;
 		try {
-			let result: SendResult = 'nothing';
-			for (;;) {
-				const s = readSaved(planId);
-				const batch = s.pending.flatMap((k) => s.records.filter((r) => r.key === k)).slice(0, POUR_LOG_LIMITS.perRequest);
-				if (!batch.length) return result;
-				let res: Response;
-				try {
-					res = await fetcher(`/plans/${planId}/pour/records`, {
-						method: 'POST',
-						headers: { 'content-type': 'application/json' },
-						body: JSON.stringify({ records: batch })
-					});
-				} catch {
-					return 'offline';
-				}
-				if (res.status === 401 || res.status === 403) return 'signed-out';
-				if (res.status >= 500) return 'offline';
-				const body = (await res.json().catch(() => ({}))) as { keys?: string[]; errors?: { path: string; message: string }[] };
-				const now = readSaved(planId);
-				if (res.ok) {
-					const done = new Set(body.keys ?? batch.map((r) => r.key));
-					now.pending = now.pending.filter((k) => !done.has(k));
-					write(planId, now);
-					result = 'sent';
-					continue;
-				}
-				// A refusal (a limit, a plan no longer there) will not change on a retry: set the batch aside with the reason.
-				const message = body.errors?.[0]?.message ?? `The server refused these records (${res.status}).`;
-				const refused = new Set(batch.map((r) => r.key));
-				now.pending = now.pending.filter((k) => !refused.has(k));
-				now.refused.push(...batch.map((r) => ({ key: r.key, message })));
-				write(planId, now);
-				return 'refused';
-			}
-		} finally {
-			sending = null;
+			res = await fetcher(`/plans/${planId}/pour/records`, {
+				method: 'POST',
+				headers: { 'content-type': 'application/json' },
+				body: JSON.stringify({ records: batch })
+			});
+		} catch {
+			return 'offline';
 		}
-	})();
-	return sending;
+		if (res.status === 401 || res.status === 403) return 'signed-out';
+		if (res.status >= 500) return 'offline';
+		const body = (await res.json().catch(() => ({}))) as { keys?: string[]; errors?: { path: string; message: string }[] };
+		const now = readSaved(planId);
+		if (res.ok) {
+			const done = new Set(body.keys ?? batch.map((r) => r.key));
+			now.pending = now.pending.filter((k) => !done.has(k));
+			write(planId, now);
+			result = 'sent';
+			continue;
+		}
+		// A refusal (a limit, a plan no longer there) will not change on a retry: set the batch aside with the reason.
+		const message = body.errors?.[0]?.message ?? `The server refused these records (${res.status}).`;
+		const refused = new Set(batch.map((r) => r.key));
+		now.pending = now.pending.filter((k) => !refused.has(k));
+		now.refused.push(...batch.map((r) => ({ key: r.key, message })));
+		write(planId, now);
+		return 'refused';
+	}
 }
