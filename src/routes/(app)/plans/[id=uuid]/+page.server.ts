@@ -7,14 +7,16 @@ import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$li
 import { findOwnPlan } from '$lib/server/plans';
 import { loggedForecastFor } from '$lib/plan/pour-log';
 import { listPourRecords } from '$lib/server/pour-records';
+import { curingReminderStatus, setCuringReminders } from '$lib/server/reminders';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load = (async ({ parent, request }) => {
+export const load = (async ({ parent, request, locals }) => {
 	// The layout found the plan among the user's own; only then are its photos listed.
 	const { plan } = await parent();
-	const [photos, records] = await Promise.all([
+	const [photos, records, reminders] = await Promise.all([
 		listPhotos(plan.id).then((list) => list.map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height }))),
-		listPourRecords(plan.id)
+		listPourRecords(plan.id),
+		curingReminderStatus(plan.id, locals.user!.id)
 	]);
 	const result = currentResult(plan.input, plan.result);
 	return {
@@ -23,7 +25,9 @@ export const load = (async ({ parent, request }) => {
 		result,
 		// The strength timeline and milestones again from the pour log's dates and temperatures.
 		logged: loggedForecastFor(plan.input, result, records),
-		locale: readerLocale(request.headers.get('accept-language'))
+		locale: readerLocale(request.headers.get('accept-language')),
+		reminders,
+		readerTimeZone: locals.reader.timeZone
 	};
 }) satisfies PageServerLoad;
 
@@ -34,6 +38,14 @@ export const actions = {
 		if (!owned) return fail(404, { message: 'No such plan.' });
 		const up = await acceptPhotoUpload(owned.id, (await event.request.formData()).get('photo'));
 		return up.ok ? { uploaded: true } : fail(up.status, { message: up.message });
+	},
+	/** The "E-mail me curing reminders" switch: on schedules a job per curing day, off removes them. */
+	reminders: async (event) => {
+		const me = requireRole(event, 'homeowner');
+		const on = (await event.request.formData()).get('on') === 'on';
+		const saved = await setCuringReminders(event.params.id, me.id, on, event.locals.reader.timeZone);
+		if (!saved) return fail(404, { message: 'No such plan.' });
+		return { remindersSaved: on ? ('on' as const) : ('off' as const) };
 	},
 	deletePhoto: async (event) => {
 		const me = requireRole(event, 'homeowner');
