@@ -8,6 +8,8 @@ const config = {
 		adapter: adapter(),
 		// Forms post back to the same origin; adapter-node reads ORIGIN for the check.
 		csrf: { trustedOrigins: [] },
+		// The offline worker is registered by a plan's layout, scoped to /plans/, not on every page.
+		serviceWorker: { register: false },
 		// SvelteKit adds a nonce (server-rendered pages) or hash (prerendered) to its own scripts; no
 		// other inline script runs. Inline styles stay allowed: Svelte's style: directives use them.
 		csp: {

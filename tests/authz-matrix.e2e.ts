@@ -101,6 +101,14 @@ const matrix: Record<string, Row[]> = {
 		r('/plans/{planA}/photos/{photoA}/thumb', x(401, 200, 404, 403, 403, 403, 403, 403)),
 		r('/plans/{myPlan}/photos/{photoA}/thumb', x(401, 200, 404, 403, 403, 403, 403, 403))
 	],
+	'GET /plans/[id]/pour': [r('/plans/{planA}/pour', x(303, 200, 404, 403, 403, 403, 403, 403))],
+	'POST /plans/[id]/pour/records': [
+		r('/plans/{planA}/pour/records', x(401, 400, 404, 403, 403, 403, 403, 403), { json: {} }),
+		// A well-formed record for the other owner's plan: not found, nothing stored.
+		r('/plans/{otherPlan}/pour/records', x(401, 404, 404, 403, 403, 403, 403, 403), {
+			json: { records: [{ kind: 'note', key: 'matrix-note-1', at: 1800000000000, tz: 0, text: 'Matrix note' }] }
+		})
+	],
 	'GET /plans/[id]/plan.pdf': [r('/plans/{planA}/plan.pdf', x(401, 200, 404, 403, 403, 403, 403, 403))],
 	'GET /plans/[id]/plan.ics': [r('/plans/{planA}/plan.ics', x(401, 200, 404, 403, 403, 403, 403, 403))],
 	// An empty form is the switch unticked: reminders off for the owner's own plan.

@@ -10,5 +10,6 @@ export const load = (async (event) => {
 	const me = requireRole(event, 'homeowner');
 	const plan = await findOwnPlanHeader(event.params.id, me.id);
 	if (!plan) error(404, 'No such plan.');
-	return { plan };
+	// loadedAt: when this copy was made, for the "offline, as of" note when a kept copy is shown.
+	return { plan, loadedAt: Date.now() };
 }) satisfies LayoutServerLoad;

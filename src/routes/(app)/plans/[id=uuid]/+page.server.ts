@@ -5,19 +5,23 @@ import { readerLocale } from '$lib/reader';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';
+import { loggedForecastFor } from '$lib/plan/pour-log';
+import { listPourRecords } from '$lib/server/pour-records';
 import { curingReminderStatus, setCuringReminders } from '$lib/server/reminders';
-import type { PlanResult } from '$lib/plan';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const me = requireRole(event, 'homeowner');
-	// The plan and its photos at once; the photos are returned only when the plan is the user's own.
-	const [found, photos] = await Promise.all([findOwnPlan(event.params.id, me.id), listPhotos(event.params.id)]);
+	// The plan, its photos and pour log at once; photos and records are returned only when the plan is the user's own.
+	const [found, photos, records] = await Promise.all([findOwnPlan(event.params.id, me.id), listPhotos(event.params.id), listPourRecords(event.params.id)]);
 	if (!found) error(404, 'No such plan.');
+	const result = currentResult(found.input, found.result);
 	return {
 		photos: photos.map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height })),
 		maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024,
-		result: currentResult(found.input, found.result as PlanResult),
+		result,
+		// The strength timeline and milestones again from the pour log's dates and temperatures.
+		logged: loggedForecastFor(found.input, result, records),
 		locale: readerLocale(event.request.headers.get('accept-language')),
 		reminders: await curingReminderStatus(found.id, me.id),
 		readerTimeZone: event.locals.reader.timeZone

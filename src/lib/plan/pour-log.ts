@@ -1,0 +1,235 @@
+// The pour log: what the crew records on the day (start, each batch, end, bags used, air
+// temperatures, notes) as a list of records, each with its own idempotency key so a record sent
+// twice (a retry, a queue replayed after an outage) is stored once. One zod schema serves the pour
+// page, the records endpoint and the engine. From the logged temperatures the strength timeline and
+// milestones are worked out again by the engine's maturity code (ASTM C1074 equivalent age).
+
+import { z } from 'zod';
+import type { PlanResult } from './index';
+import type { Model } from './model';
+import { airTempOn, toModel } from './model';
+import { parsePlanInput } from './schema';
+import { addDays, ageSeries, milestones, type Milestone } from './schedule';
+import { strengthTimeline, type StrengthDay } from './strength';
+import { times } from './util';
+
+/** Limits, each one said in its error. */
+export const POUR_LOG_LIMITS = {
+	/** Records in one request. */
+	perRequest: 50,
+	/** Records a plan can hold in all (a 150-batch pour with temperatures and notes fits easily). */
+	perPlan: 2000,
+	noteChars: 1000,
+	pours: 50,
+	bags: 5000,
+	/** Air temperature range accepted, °C / °F. */
+	celsius: [-40, 60],
+	fahrenheit: [-40, 140]
+} as const;
+
+const L = POUR_LOG_LIMITS;
+export const RECORD_KEY = /^[A-Za-z0-9_.:-]{8,100}$/;
+
+const key = z.string().regex(RECORD_KEY, 'Each record needs a key of 8 to 100 letters, digits or _ . : - characters.');
+/** Epoch milliseconds, years 2000–2100. */
+const at = z
+	.number()
+	.int('The time must be whole milliseconds.')
+	.min(946684800000, 'The time must be after the year 2000.')
+	.max(4102444800000, 'The time must be before the year 2100.');
+/** The device's offset from UTC in minutes (Date#getTimezoneOffset), for the local date. */
+const tz = z.number().int().min(-840, 'The time-zone offset must be between −840 and 840 minutes.').max(840, 'The time-zone offset must be between −840 and 840 minutes.');
+const pour = z
+	.number()
+	.int('The pour must be a whole number.')
+	.min(0, 'The pour number must be 0 or more.')
+	.max(L.pours - 1, `A plan has at most ${L.pours} pours.`);
+const base = { key, at, tz };
+const isoDate = z.iso.date('The date must be YYYY-MM-DD.');
+const temp = z.number().finite('Temperatures must be numbers.');
+
+export const pourRecordSchema = z
+	.discriminatedUnion('kind', [
+		z.object({ kind: z.literal('start'), ...base, pour }),
+		z.object({ kind: z.literal('batch'), ...base, pour }),
+		/** Takes back one batch tapped by mistake. */
+		z.object({ kind: z.literal('undo'), ...base, pour, of: key }),
+		z.object({ kind: z.literal('end'), ...base, pour }),
+		z.object({
+			kind: z.literal('bags'),
+			...base,
+			pour,
+			bags: z.number().int('Bags used must be a whole number.').min(0, 'Bags used cannot be negative.').max(L.bags, `Bags used can be at most ${L.bags}.`)
+		}),
+		/** The day's low and high, or one reading at a time of day. */
+		z.object({
+			kind: z.literal('temp'),
+			...base,
+			date: isoDate,
+			unit: z.enum(['C', 'F'], 'The unit must be C or F.'),
+			low: temp.optional(),
+			high: temp.optional(),
+			reading: temp.optional(),
+			time: z
+				.string()
+				.regex(/^([01]\d|2[0-3]):[0-5]\d$/, 'The time must be HH:MM.')
+				.optional()
+		}),
+		z.object({
+			kind: z.literal('note'),
+			...base,
+			text: z.string().trim().min(1, 'A note cannot be empty.').max(L.noteChars, `A note can be at most ${L.noteChars} characters.`)
+		})
+	])
+	.superRefine((r, ctx) => {
+		if (r.kind !== 'temp') return;
+		const [lo, hi] = r.unit === 'C' ? L.celsius : L.fahrenheit;
+		const range = `Air temperatures must be between ${lo} and ${hi} °${r.unit}.`;
+		for (const k of ['low', 'high', 'reading'] as const) {
+			const v = r[k];
+			if (v !== undefined && (v < lo || v > hi)) ctx.addIssue({ code: 'custom', path: [k], message: range });
+		}
+		const pair = r.low !== undefined && r.high !== undefined;
+		if (pair === (r.reading !== undefined) || (!pair && (r.low !== undefined || r.high !== undefined)))
+			ctx.addIssue({ code: 'custom', path: ['reading'], message: 'Give either the day’s low and high, or one reading.' });
+		if (pair && r.low! > r.high!) ctx.addIssue({ code: 'custom', path: ['low'], message: 'The low cannot be above the high.' });
+	});
+
+export const pourRecordsBody = z.object({
+	records: z
+		.array(pourRecordSchema)
+		.min(1, 'Send at least one record.')
+		.max(L.perRequest, `Send at most ${L.perRequest} records at a time.`)
+});
+
+export type PourRecord = z.infer<typeof pourRecordSchema>;
+export type TempRecord = Extract<PourRecord, { kind: 'temp' }>;
+
+/** The device-local calendar date of a record. */
+export const localDate = (r: Pick<PourRecord, 'at' | 'tz'>) => new Date(r.at - r.tz * 60_000).toISOString().slice(0, 10);
+
+export const toCelsius = (v: number, unit: 'C' | 'F') => (unit === 'C' ? v : ((v - 32) * 5) / 9);
+
+export interface PourLogEntry {
+	pour: number;
+	startedAt?: number;
+	/** Times of the batches still counted (undone ones left out), in order. */
+	batches: number[];
+	batchKeys: string[];
+	endedAt?: number;
+	bagsUsed?: number;
+	/** Local date of the first batch, else of the start. */
+	date?: string;
+}
+
+export interface PourLog {
+	pours: Map<number, PourLogEntry>;
+	temps: TempRecord[];
+	notes: Extract<PourRecord, { kind: 'note' }>[];
+}
+
+/** Folds records (any order, duplicates by key dropped) into the log. */
+export function foldRecords(records: readonly PourRecord[]): PourLog {
+	const seen = new Set<string>();
+	const list = records.filter((r) => !seen.has(r.key) && seen.add(r.key)).sort((a, b) => a.at - b.at || (a.key < b.key ? -1 : 1));
+	const undone = new Set(list.flatMap((r) => (r.kind === 'undo' ? [r.of] : [])));
+	const pours = new Map<number, PourLogEntry>();
+	const entry = (p: number) => {
+		if (!pours.has(p)) pours.set(p, { pour: p, batches: [], batchKeys: [] });
+		return pours.get(p)!;
+	};
+	const log: PourLog = { pours, temps: [], notes: [] };
+	for (const r of list) {
+		switch (r.kind) {
+			case 'start': {
+				const e = entry(r.pour);
+				if (e.startedAt === undefined) e.startedAt = r.at;
+				e.date ??= localDate(r);
+				break;
+			}
+			case 'batch': {
+				if (undone.has(r.key)) break;
+				const e = entry(r.pour);
+				if (!e.batches.length) e.date = localDate(r);
+				e.batches.push(r.at);
+				e.batchKeys.push(r.key);
+				break;
+			}
+			case 'end':
+				entry(r.pour).endedAt = r.at;
+				break;
+			case 'bags':
+				entry(r.pour).bagsUsed = r.bags;
+				break;
+			case 'temp':
+				log.temps.push(r);
+				break;
+			case 'note':
+				log.notes.push(r);
+				break;
+		}
+	}
+	return log;
+}
+
+/**
+ * Daily mean air temperature, °C, by date: the mean of the latest low and high given for the day,
+ * else the mean of that day's readings (the daily mean the engine's timeline takes).
+ */
+export function dailyMeans(temps: readonly TempRecord[]): Map<string, number> {
+	const pairs = new Map<string, number>();
+	const readings = new Map<string, number[]>();
+	for (const t of temps) {
+		if (t.low !== undefined && t.high !== undefined) pairs.set(t.date, (toCelsius(t.low, t.unit) + toCelsius(t.high, t.unit)) / 2);
+		else if (t.reading !== undefined) readings.set(t.date, [...(readings.get(t.date) ?? []), toCelsius(t.reading, t.unit)]);
+	}
+	const out = new Map(pairs);
+	for (const [d, rs] of readings) if (!out.has(d)) out.set(d, rs.reduce((a, b) => a + b, 0) / rs.length);
+	return out;
+}
+
+export interface LoggedForecast {
+	/** Local date of the last pour logged, the day the timeline counts from. */
+	pourDate: string;
+	strength: StrengthDay[];
+	milestones: Milestone[];
+	/** Days of the timeline's first four weeks whose temperature was logged (the rest: the plan's forecast). */
+	loggedDays: number;
+	/** Daily mean used for each day from the pour day on, °C, and whether it was logged. */
+	temps: { date: string; celsius: number; logged: boolean }[];
+}
+
+/**
+ * The strength timeline and milestones again, from the last logged pour's date and the logged
+ * daily means; a day without a reading takes the plan's forecast for it (ASTM C1074 equivalent
+ * age through the engine's equivalentAges/ageSeries, ACI 209R-92 Eq. 2-1 for the strength).
+ * `plannedLast` is the plan's own offset of its last pour from the first, so an unlogged day reads
+ * the same forecast day the plan did.
+ */
+export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days = 28): LoggedForecast | null {
+	const dates = [...log.pours.values()].flatMap((p) => (p.date && (p.batches.length || p.startedAt !== undefined) ? [p.date] : []));
+	if (!dates.length) return null;
+	const pourDate = dates.sort().at(-1)!;
+	const means = dailyMeans(log.temps);
+	const date = (i: number) => addDays(pourDate, i);
+	const tempOn = (i: number) => means.get(date(i)) ?? airTempOn(m, plannedLast + i);
+	const temps = times(days, (i) => ({ date: date(i), celsius: tempOn(i), logged: means.has(date(i)) }));
+	const strength = strengthTimeline(
+		temps.map((t) => t.celsius),
+		m.cement,
+		m.designStrengthMpa
+	).map((d) => ({ ...d, date: date(d.day) }));
+	// Counted from the logged pour day: the same milestone rules on the logged equivalent ages.
+	const stones = milestones({ ...m, pourDate }, ageSeries(0, tempOn), 0);
+	return { pourDate, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps };
+}
+
+
+/** loggedForecast for a saved plan: its input, its computed result and its records. */
+export function loggedForecastFor(input: unknown, result: Pick<PlanResult, 'schedule'>, records: readonly PourRecord[]): LoggedForecast | null {
+	const parsed = parsePlanInput(input);
+	if (!parsed.ok || !records.length) return null;
+	const days = result.schedule.pourDays.map((p) => p.day);
+	const plannedLast = days.length ? Math.max(...days) - Math.min(...days) : 0;
+	return loggedForecast(toModel(parsed.plan), foldRecords(records), plannedLast);
+}

@@ -1,0 +1,66 @@
+import { beforeEach, describe, expect, it } from 'vitest';
+import type { PourRecord } from '$lib/plan/pour-log';
+import { addRecord, readSaved, sendQueued } from './queue';
+
+// localStorage as the browser has it, for node.
+const store = new Map<string, string>();
+Object.assign(globalThis, {
+	localStorage: { getItem: (k: string) => store.get(k) ?? null, setItem: (k: string, v: string) => void store.set(k, v) }
+});
+
+const plan = '00000000-0000-4000-8000-000000000001';
+const batch = (i: number): PourRecord => ({ kind: 'batch', key: `batch-key-${i}`, at: 1_800_000_000_000 + i, tz: 0, pour: 0 });
+
+/** A server that stores each key once and counts what it stored. */
+function server() {
+	const held = new Set<string>();
+	let down = false;
+	const fetcher = (async (_url: string, init?: RequestInit) => {
+		if (down) throw new TypeError('Failed to fetch');
+		const { records } = JSON.parse(String(init!.body)) as { records: PourRecord[] };
+		for (const r of records) held.add(r.key);
+		return new Response(JSON.stringify({ keys: records.map((r) => r.key) }), { status: 200 });
+	}) as typeof fetch;
+	return { held, fetcher, setDown: (d: boolean) => (down = d) };
+}
+
+beforeEach(() => store.clear());
+
+describe('the device queue', () => {
+	it('keeps records while offline and sends each once when back', async () => {
+		const s = server();
+		s.setDown(true);
+		addRecord(plan, batch(1));
+		addRecord(plan, batch(2));
+		addRecord(plan, batch(2)); // the same record twice (a double tap on a slow page) is one
+		expect(await sendQueued(plan, s.fetcher)).toBe('offline');
+		expect(readSaved(plan).pending).toEqual(['batch-key-1', 'batch-key-2']);
+		s.setDown(false);
+		expect(await sendQueued(plan, s.fetcher)).toBe('sent');
+		expect(readSaved(plan).pending).toEqual([]);
+		expect([...s.held]).toEqual(['batch-key-1', 'batch-key-2']);
+		expect(await sendQueued(plan, s.fetcher)).toBe('nothing');
+	});
+
+	it('sends in chunks of at most 50 records', async () => {
+		const sizes: number[] = [];
+		const fetcher = (async (_u: string, init?: RequestInit) => {
+			const { records } = JSON.parse(String(init!.body)) as { records: PourRecord[] };
+			sizes.push(records.length);
+			return new Response(JSON.stringify({ keys: records.map((r) => r.key) }), { status: 200 });
+		}) as typeof fetch;
+		for (let i = 0; i < 120; i++) addRecord(plan, batch(i));
+		expect(await sendQueued(plan, fetcher)).toBe('sent');
+		expect(sizes).toEqual([50, 50, 20]);
+	});
+
+	it('sets a refused batch aside with the server’s reason, and keeps it on a 5xx', async () => {
+		addRecord(plan, batch(1));
+		const answer = (status: number) => (async () => new Response(JSON.stringify({ errors: [{ path: 'records', message: 'A plan’s pour log can hold at most 2000 records.' }] }), { status })) as typeof fetch;
+		expect(await sendQueued(plan, answer(503))).toBe('offline');
+		expect(readSaved(plan).pending).toEqual(['batch-key-1']);
+		expect(await sendQueued(plan, answer(413))).toBe('refused');
+		expect(readSaved(plan).pending).toEqual([]);
+		expect(readSaved(plan).refused).toEqual([{ key: 'batch-key-1', message: 'A plan’s pour log can hold at most 2000 records.' }]);
+	});
+});
