@@ -6,3 +6,4 @@ export * from './mail';
 export * from './plans';
 export * from './idempotency';
 export * from './rate';
+export * from './billing';
