@@ -4,6 +4,7 @@ import { EARTH_RADIUS_KM, KM_PER_MILE, type LatLon } from '$lib/geo';
 import type { ServiceKind } from '$lib/schemas/contractor';
 import { db } from '$lib/server/db';
 import { contractor, user } from '$lib/server/db/schema';
+import { billingAllowsDelivery } from '$lib/server/billing/accounts'; // billing
 
 export type Place = LatLon & { town: string };
 
@@ -45,6 +46,8 @@ export async function matchContractors(place: LatLon, scope: ServiceKind, execut
 				// An expired licence or insurance stops leads at once, even before the sweep lapses the account.
 				sql`coalesce(${contractor.licenceExpiresOn}, 'infinity'::date) >= ${day}::date`,
 				sql`coalesce(${contractor.insuranceExpiresOn}, 'infinity'::date) >= ${day}::date`,
+				// billing: an account whose payment is overdue gets no new leads until it is paid.
+				billingAllowsDelivery(contractor.userId),
 				isNotNull(contractor.serviceLat),
 				sql`${d} <= ${radiusKm}`,
 				sql`(${scope}::service_kind = any(${contractor.services}) or 'whole_job' = any(${contractor.services}))`
