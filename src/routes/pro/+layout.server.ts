@@ -4,6 +4,7 @@ import { db } from '$lib/server/db';
 import { contractor } from '$lib/server/db/schema';
 import { sweepContractor } from '$lib/server/credentials';
 import { requireRole } from '$lib/server/guards';
+import { billingAccountOf, entitlement } from '$lib/server/billing/accounts'; // billing
 import type { LayoutServerLoad } from './$types';
 
 export const load = (async (event) => {
@@ -20,6 +21,8 @@ export const load = (async (event) => {
 			licenceExpiresOn: profile?.licenceExpiresOn ?? null,
 			insuranceExpiresOn: profile?.insuranceExpiresOn ?? null
 		},
-		locale: readerLocale(event.request.headers.get('accept-language'))
+		locale: readerLocale(event.request.headers.get('accept-language')),
+		// billing: what the contractor's plan allows now (shown on the pro desk).
+		billing: entitlement(await billingAccountOf(user.id))
 	};
 }) satisfies LayoutServerLoad;
