@@ -5,6 +5,7 @@ import postgres from 'postgres';
 import sharp from 'sharp';
 import demoPlans from '../fixtures/demo-plans.json' with { type: 'json' };
 import { computePlan, type PlanResult } from '../src/lib/plan/index';
+import { grantActivePlan } from './billing-helpers';
 import { demoPassword, demoUser, signIn, signOut, signUp } from './helpers';
 
 export const pdf = (label: string) => ({
@@ -60,6 +61,8 @@ export async function approvedNewContractor(page: Page, o: { name: string; email
 	await page.getByRole('button', { name: 'Approve' }).click();
 	await expect(page.getByTestId('contractor-status')).toHaveText('Approved');
 	await signOut(page);
+	// A running plan, so lead tests open lead details (tests/billing.e2e.ts covers paying for one).
+	await grantActivePlan({ email: o.email });
 }
 
 /**
