@@ -17,3 +17,20 @@ export async function grantActivePlan(who: { email?: string; userId?: string }) 
 		await sql.end();
 	}
 }
+
+/** A lead on `planId` for the contractor at `contractorEmail`, stored straight in the database as sending would. */
+export async function insertLead(planId: string, contractorEmail: string, o: { town: string; respondInDays: number }) {
+	const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+	try {
+		const [row] = await sql`
+			INSERT INTO lead (plan_id, homeowner_id, contractor_id, scope, timeframe, plan_revision, latest_revision, snapshot, town, distance_km, respond_by)
+			SELECT p.id, p.owner_id, u.id, 'whole_job', 'within_month', p.revision, p.revision,
+				jsonb_build_object('name', p.name, 'postcode', p.postcode, 'input', p.input, 'result', p.result, 'photoIds', '[]'::jsonb),
+				${o.town}, 3.2, (now() + make_interval(days => ${o.respondInDays}))::date
+			FROM plan p, "user" u WHERE p.id = ${planId} AND u.email = ${contractorEmail.toLowerCase()}
+			RETURNING id`;
+		return row.id as string;
+	} finally {
+		await sql.end();
+	}
+}

@@ -53,7 +53,7 @@ export function settings(profile) {
 			// The SDK reaches the provider at PAYMENTS_API_* (the fake on loopback unless a real key is set).
 			PAYMENTS_FAKE: useFakePayments ? '1' : '0',
 			PAYMENTS_SECRET_KEY: e.PAYMENTS_SECRET_KEY ?? 'sk_test_stakeline_fake',
-			PAYMENTS_WEBHOOK_SECRET: e.PAYMENTS_WEBHOOK_SECRET ?? 'whsec_stakeline_fake',
+			PAYMENTS_WEBHOOK_SECRET: e.PAYMENTS_WEBHOOK_SECRET ?? (useFakePayments ? 'whsec_stakeline_fake' : ''),
 			...(useFakePayments
 				? {
 						PAYMENTS_API_HOST: '127.0.0.1',

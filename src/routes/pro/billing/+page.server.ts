@@ -5,6 +5,7 @@ import { db } from '$lib/server/db';
 import { lead } from '$lib/server/db/schema';
 import { billingAccountOf, entitlement } from '$lib/server/billing/accounts';
 import { BillingRefused, invoicesOf, setCancelAtPeriodEnd, startCardUpdate, startPackCheckout, startPlanCheckout } from '$lib/server/billing/checkout';
+import { BillingUnavailable } from '$lib/server/billing/client';
 import { requireApprovedContractor } from '$lib/server/contractors';
 import { requireRole } from '$lib/server/guards';
 import { errorSummary, log } from '$lib/server/log';
@@ -65,6 +66,7 @@ async function step<T>(run: () => Promise<T>) {
 		return { ok: true as const, value: await run() };
 	} catch (err) {
 		if (err instanceof BillingRefused) return { ok: false as const, failure: fail(409, { message: err.message }) };
+		if (err instanceof BillingUnavailable) return { ok: false as const, failure: fail(503, { message: 'Payments are not set up on this server yet; nothing was charged.' }) };
 		log.error({ err: errorSummary(err) }, 'billing: the payment provider refused or did not answer');
 		return { ok: false as const, failure: fail(503, { message: 'The payment provider did not answer. Nothing was charged; please try again in a minute.' }) };
 	}
