@@ -87,12 +87,6 @@ export async function openedLeadIds(contractorId: string, leadIds: string[]) {
 	return new Set(rows.map((r) => r.id));
 }
 
-/** Whether the contractor may see the lead's details now, without using anything (for actions after the page load). */
-export async function leadIsOpenTo(contractorId: string, leadId: string) {
-	const [c] = await db.select({ leadId: leadCharge.leadId }).from(leadCharge).where(and(eq(leadCharge.leadId, leadId), eq(leadCharge.contractorId, contractorId)));
-	return !!c;
-}
-
 /**
  * Gives back what these leads used (the lead expired unanswered, or the homeowner closed the
  * request before any bid), once each, in the caller's transaction: an included lead of the current
