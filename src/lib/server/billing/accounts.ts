@@ -3,6 +3,7 @@ import type { AnyPgColumn } from 'drizzle-orm/pg-core';
 import { canOpenLead, type BillingStatus } from '$lib/billing-status';
 import { monthlyPlan } from '$lib/billing-plans';
 import { isOpenLead } from '$lib/lead-status';
+import { planFigures } from '$lib/plan-figures';
 import { db } from '$lib/server/db';
 import { billingAccount, lead, leadCharge } from '$lib/server/db/schema';
 
@@ -29,6 +30,16 @@ export async function billingAccountOf(contractorId: string, exec: Exec = db): P
 	const [a] = await exec.select().from(billingAccount).where(eq(billingAccount.contractorId, contractorId));
 	return a ?? blank(contractorId);
 }
+
+/** The account as pages show it (dates as ISO strings). */
+export const accountView = (a: BillingAccount) => ({
+	status: a.status,
+	cancelAtPeriodEnd: a.cancelAtPeriodEnd,
+	periodStart: a.periodStart?.toISOString() ?? null,
+	periodEnd: a.periodEnd?.toISOString() ?? null,
+	leadsUsed: a.leadsUsed,
+	credits: a.credits
+});
 
 /** The account row, created when missing and locked for the rest of the transaction. */
 export async function lockAccount(tx: Tx, contractorId: string): Promise<BillingAccount> {
@@ -120,4 +131,15 @@ export async function chargeSummary(contractorId: string) {
 		.from(leadCharge)
 		.where(eq(leadCharge.contractorId, contractorId));
 	return r ?? { total: 0, refunded: 0 };
+}
+
+/** What a contractor without a plan may see of their lead: town, scope, timing and the slab's size. Null when not theirs. */
+export async function leadTeaser(contractorId: string, leadId: string) {
+	const [l] = await db
+		.select({ id: lead.id, town: lead.town, scope: lead.scope, timeframe: lead.timeframe, respondBy: lead.respondBy, input: sql<unknown>`${lead.snapshot}->'input'`, result: sql<unknown>`${lead.snapshot}->'result'` })
+		.from(lead)
+		.where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
+	if (!l) return null;
+	const f = planFigures(l.input, l.result);
+	return { id: l.id, town: l.town, scope: l.scope, timeframe: l.timeframe, respondBy: l.respondBy, squareFeet: f.area?.squareFeet ?? null, squareMeters: f.area?.squareMeters ?? null, units: f.units };
 }

@@ -2,7 +2,7 @@ import { desc, eq } from 'drizzle-orm';
 import { monthlyPlan } from '$lib/billing-plans';
 import { db } from '$lib/server/db';
 import { billingEvent, leadCharge } from '$lib/server/db/schema';
-import { billingAccountOf, chargeSummary } from './accounts';
+import { accountView, billingAccountOf, chargeSummary } from './accounts';
 
 /** A contractor's billing state as an admin sees it: account, lead charges and the latest provider events. */
 export async function adminBillingView(contractorId: string) {
@@ -21,15 +21,10 @@ export async function adminBillingView(contractorId: string) {
 		.orderBy(desc(billingEvent.receivedAt))
 		.limit(10);
 	return {
-		status: a.status,
-		cancelAtPeriodEnd: a.cancelAtPeriodEnd,
+		...accountView(a),
 		customerId: a.customerId,
 		subscriptionId: a.subscriptionId,
-		periodStart: a.periodStart?.toISOString() ?? null,
-		periodEnd: a.periodEnd?.toISOString() ?? null,
-		leadsUsed: a.leadsUsed,
 		leadsIncluded: monthlyPlan.leadsIncluded,
-		credits: a.credits,
 		charges,
 		recentCharges: recentCharges.map((c) => ({ ...c, chargedAt: c.chargedAt.toISOString(), refundedAt: c.refundedAt?.toISOString() ?? null })),
 		events: events.map((e) => ({ ...e, receivedAt: e.receivedAt.toISOString() }))

@@ -1,15 +1,11 @@
 import { fail } from '@sveltejs/kit';
-import { and, eq, sql } from 'drizzle-orm';
-import { planFigures } from '$lib/plan-figures';
-import { db } from '$lib/server/db';
-import { lead } from '$lib/server/db/schema';
-import { billingAccountOf, entitlement } from '$lib/server/billing/accounts';
+import { accountView, billingAccountOf, entitlement, leadTeaser } from '$lib/server/billing/accounts';
 import { BillingRefused, invoicesOf, setCancelAtPeriodEnd, startCardUpdate, startPackCheckout, startPlanCheckout } from '$lib/server/billing/checkout';
 import { BillingUnavailable } from '$lib/server/billing/client';
 import { requireApprovedContractor } from '$lib/server/contractors';
 import { requireRole } from '$lib/server/guards';
 import { errorSummary, log } from '$lib/server/log';
-import type { Actions, PageServerLoad } from './$types';
+import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 const returns = {
 	done: 'Payment received. Thank you.',
@@ -25,28 +21,10 @@ export const load = (async (event) => {
 	const back = event.url.searchParams.get('checkout') ?? '';
 	// The lead the contractor tried to open, when they came here from it: what they may see of it without a plan.
 	const leadId = event.url.searchParams.get('lead') ?? '';
-	let teaser = null;
-	if (/^[0-9a-f-]{36}$/i.test(leadId)) {
-		const [l] = await db
-			.select({ id: lead.id, town: lead.town, scope: lead.scope, timeframe: lead.timeframe, respondBy: lead.respondBy, input: sql<unknown>`${lead.snapshot}->'input'`, result: sql<unknown>`${lead.snapshot}->'result'` })
-			.from(lead)
-			.where(and(eq(lead.id, leadId), eq(lead.contractorId, user.id)));
-		if (l) {
-			const f = planFigures(l.input, l.result);
-			teaser = { id: l.id, town: l.town, scope: l.scope, timeframe: l.timeframe, respondBy: l.respondBy, squareFeet: f.area?.squareFeet ?? null, squareMeters: f.area?.squareMeters ?? null, units: f.units };
-		}
-	}
+	const teaser = contractor.status === 'approved' && /^[0-9a-f-]{36}$/i.test(leadId) ? await leadTeaser(user.id, leadId) : null;
 	return {
 		approved: contractor.status === 'approved',
-		account: {
-			status: account.status,
-			cancelAtPeriodEnd: account.cancelAtPeriodEnd,
-			periodStart: account.periodStart?.toISOString() ?? null,
-			periodEnd: account.periodEnd?.toISOString() ?? null,
-			leadsUsed: account.leadsUsed,
-			credits: account.credits,
-			hasSubscription: !!account.subscriptionId
-		},
+		account: { ...accountView(account), hasSubscription: !!account.subscriptionId },
 		entitlement: entitlement(account),
 		returned: back in returns ? { kind: back as keyof typeof returns, message: returns[back as keyof typeof returns] } : null,
 		teaser,
@@ -72,32 +50,24 @@ async function step<T>(run: () => Promise<T>) {
 	}
 }
 
-const who = (u: { id: string; email: string; name: string }) => ({ id: u.id, email: u.email, name: u.name });
+/** An action that opens a checkout on the provider's page and answers with its address. */
+const toCheckout = (start: (who: { id: string; email: string; name: string }, origin: string) => Promise<string>) => async (event: RequestEvent) => {
+	const user = await requireApprovedContractor(event);
+	const r = await step(() => start({ id: user.id, email: user.email, name: user.name }, event.url.origin));
+	return r.ok ? { checkoutUrl: r.value } : r.failure;
+};
+
+/** Cancel at period end, or take that back. */
+const cancelAtEnd = (cancel: boolean) => async (event: RequestEvent) => {
+	const user = await requireApprovedContractor(event);
+	const r = await step(() => setCancelAtPeriodEnd(user.id, cancel));
+	return r.ok ? { changed: cancel ? ('cancel' as const) : ('resume' as const) } : r.failure;
+};
 
 export const actions = {
-	subscribe: async (event) => {
-		const user = await requireApprovedContractor(event);
-		const r = await step(() => startPlanCheckout(who(user), event.url.origin));
-		return r.ok ? { checkoutUrl: r.value } : r.failure;
-	},
-	buyPack: async (event) => {
-		const user = await requireApprovedContractor(event);
-		const r = await step(() => startPackCheckout(who(user), event.url.origin));
-		return r.ok ? { checkoutUrl: r.value } : r.failure;
-	},
-	updateCard: async (event) => {
-		const user = await requireApprovedContractor(event);
-		const r = await step(() => startCardUpdate(who(user), event.url.origin));
-		return r.ok ? { checkoutUrl: r.value } : r.failure;
-	},
-	cancel: async (event) => {
-		const user = await requireApprovedContractor(event);
-		const r = await step(() => setCancelAtPeriodEnd(user.id, true));
-		return r.ok ? { changed: 'cancel' as const } : r.failure;
-	},
-	resume: async (event) => {
-		const user = await requireApprovedContractor(event);
-		const r = await step(() => setCancelAtPeriodEnd(user.id, false));
-		return r.ok ? { changed: 'resume' as const } : r.failure;
-	}
+	subscribe: toCheckout(startPlanCheckout),
+	buyPack: toCheckout(startPackCheckout),
+	updateCard: toCheckout(startCardUpdate),
+	cancel: cancelAtEnd(true),
+	resume: cancelAtEnd(false)
 } satisfies Actions;
