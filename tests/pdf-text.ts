@@ -36,3 +36,24 @@ export async function pdfPagePixels(bytes: Uint8Array, page: number, scale = 1):
 	await doc.destroy();
 	return { width, height, data };
 }
+
+/** Number of pages of a PDF. */
+export async function pdfPageCount(bytes: Uint8Array): Promise<number> {
+	const doc = await getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, isEvalSupported: false }).promise;
+	const n = doc.numPages;
+	await doc.destroy();
+	return n;
+}
+
+/** One page rendered by pdf.js as PNG bytes, to look at (saved under test-results/screens/). */
+export async function pdfPagePng(bytes: Uint8Array, page: number, scale = 1.5): Promise<Buffer> {
+	const doc = await getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, isEvalSupported: false }).promise;
+	const p = await doc.getPage(page);
+	const viewport = p.getViewport({ scale });
+	const factory = doc.canvasFactory as unknown as { create: (w: number, h: number) => { canvas: { toBuffer: (mime: 'image/png') => Buffer }; context: unknown } };
+	const { canvas, context } = factory.create(Math.ceil(viewport.width), Math.ceil(viewport.height));
+	await p.render({ canvas: canvas as unknown as HTMLCanvasElement, canvasContext: context as CanvasRenderingContext2D, viewport }).promise;
+	const png = canvas.toBuffer('image/png');
+	await doc.destroy();
+	return png;
+}

@@ -1,8 +1,13 @@
 import { expect, test, type Page } from '@playwright/test';
 import demo from '../fixtures/demo.json' with { type: 'json' };
+import { writeFile, mkdir } from 'node:fs/promises';
 import { demoPassword, signIn } from './helpers';
+import { pdfPageCount, pdfPagePng, pdfPageText } from './pdf-text';
 
 test.describe.configure({ timeout: 90_000 });
+
+/** The demo patio's printed plan on Letter paper; it printed on 17 pages before the print styles. */
+const PRINT_PAGES_AT_MOST = 9;
 
 /** A fresh visitor signs in as the demo homeowner who owns `planId` and opens that plan. */
 async function openDemoPlan(page: Page, planId: string) {
@@ -53,6 +58,23 @@ test('the plan page opens with the build card and carries a layout sheet with sq
 	await expect(page.getByTestId('layout-drawing')).toBeVisible();
 	await expect(page.getByRole('link', { name: 'Edit the plan' })).toBeHidden();
 	await page.screenshot({ path: 'test-results/screens/plan-print.png', fullPage: true });
+	// Printed on Letter paper: the build card and the layout sheet start on page 1, the screen-only
+	// parts (3D, the outline editor's copy, photos, buttons, navigation) are left out, and no table
+	// row is cut in two.
+	const printed = await page.pdf({ format: 'Letter', printBackground: true });
+	const pages = await pdfPageCount(printed);
+	const first = await pdfPageText(printed, 1);
+	expect(first).toContain('Build card');
+	expect(first).toContain('Layout sheet');
+	for (const hidden of ['Edit the plan', 'Download PDF', 'Site photos', 'Sign out', '3D']) expect(first).not.toContain(hidden);
+	console.log(`printed plan: ${pages} pages`);
+	expect(pages).toBeLessThanOrEqual(PRINT_PAGES_AT_MOST);
+	await mkdir('test-results/screens', { recursive: true });
+	for (const n of [1, 2]) await writeFile(`test-results/screens/plan-print-page-${n}.png`, await pdfPagePng(printed, n));
+	const rowsCut = await page.evaluate(() =>
+		[...document.querySelectorAll('tbody tr')].filter((tr) => getComputedStyle(tr).breakInside !== 'avoid' && getComputedStyle(tr).pageBreakInside !== 'avoid').length
+	);
+	expect(rowsCut).toBe(0);
 	expect(errors).toEqual([]);
 });
 

@@ -165,7 +165,7 @@ async function fillEveryStep(page: Page) {
 	await page.getByLabel('Length of edge D–A in ft').blur();
 	await expect(page.getByLabel('Length of edge B–C in ft')).toHaveValue('10');
 	await expect(page.getByTestId('result-area')).toHaveText('150 ft²'); // 15 × 10 ft, still a rectangle
-	await expect(page.getByLabel('Edge A–B runs along a house wall')).toBeChecked(); // the wall stays where it was
+	await expect(page.getByLabel('House wall along edge A–B')).toBeChecked(); // the wall stays where it was
 
 	await goTo(page, 'Pitch');
 	// A new unit keeps the slope: 2 % is 0.24 in per ft (2 % × 12 in), and back gives 2 again.
@@ -211,7 +211,7 @@ async function readEveryStep(page: Page, skip = /^shape-/) {
 }
 
 test('a new visitor types into every field of every step: no page error, and the results follow', async ({ page }) => {
-	test.setTimeout(120_000);
+	test.setTimeout(300_000);
 	const errors = watchErrors(page);
 	await page.goto('/plans/new');
 	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
@@ -239,7 +239,7 @@ test('a new visitor types into every field of every step: no page error, and the
 });
 
 test('signed in, every typed value is saved and comes back after a reload', async ({ page }) => {
-	test.setTimeout(150_000);
+	test.setTimeout(300_000);
 	const errors = watchErrors(page);
 	await signUp(page, { name: 'Wes Fielding', email: uniqueEmail('fields'), password: 'every-field-typed' });
 	await page.goto('/plans/new');
@@ -260,7 +260,7 @@ test('signed in, every typed value is saved and comes back after a reload', asyn
 });
 
 test('units imperial → metric → imperial leave every typed value unchanged', async ({ page }) => {
-	test.setTimeout(120_000);
+	test.setTimeout(300_000);
 	const errors = watchErrors(page);
 	await page.goto('/plans/new');
 	await fillEveryStep(page);
@@ -270,6 +270,14 @@ test('units imperial → metric → imperial leave every typed value unchanged',
 	await page.getByLabel('metres and millimetres').check();
 	await goTo(page, 'Build-up');
 	await expect(page.getByLabel('Thickness')).toHaveValue('127'); // 5 in × 25.4 = 127 mm (exact inch)
+	// In metric every field, the shape sizes included, reads to the millimetre: no float noise.
+	const metric = await readEveryStep(page, /^$/);
+	for (const [id, v] of Object.entries(metric)) expect(v.split('.')[1]?.length ?? 0, `${id} = ${v}`).toBeLessThanOrEqual(3);
+	await goTo(page, 'Outline');
+	// The outline was moved off the rectangle's origin, so the shape form keeps what was typed
+	// there, converted: 14 ft × 0.3048 = 4.2672 → 4.267 m; the edge A–B is 15 ft = 4.572 m.
+	await expect(page.locator('#shape-length')).toHaveValue('4.267');
+	await expect(page.getByLabel('Length of edge A–B in m')).toHaveValue('4.572');
 	await goTo(page, 'Site');
 	await page.getByLabel('feet and inches').check();
 	expect(await readEveryStep(page, /^$/)).toEqual(shown);

@@ -48,6 +48,37 @@ test('on a phone the key results stay in sight while editing, corners are big en
 
 	await wizardStep(page, 'Outline');
 	expect((await page.getByText('Freestanding: no house wall').boundingBox())!.height).toBeGreaterThanOrEqual(44);
+	// Every step is on screen at once (the list wraps; nothing hides past the edge), the current one too.
+	const steps = page.getByTestId('step-list');
+	expect(await steps.evaluate((el) => el.scrollWidth <= el.clientWidth)).toBe(true);
+	for (const title of STEPS) {
+		const box = (await steps.getByRole('button', { name: title }).boundingBox())!;
+		expect(box.x, title).toBeGreaterThanOrEqual(0);
+		expect(box.x + box.width, title).toBeLessThanOrEqual(390);
+	}
+	await expect(steps.locator('[aria-current="step"]')).toBeInViewport();
+	// The edge table's controls: named for what they do, and 44 px or more each way.
+	const edgeControls = [
+		page.getByLabel('House wall along edge A–B'),
+		page.getByRole('button', { name: 'Add a corner after A' }),
+		page.getByRole('button', { name: 'Delete corner A' })
+	];
+	for (const c of edgeControls) await expect(c).toBeVisible();
+	const targets = [page.getByTestId('house-wall-target').first(), edgeControls[1], edgeControls[2]];
+	for (const t of targets) {
+		const box = (await t.boundingBox())!;
+		expect(box.width).toBeGreaterThanOrEqual(44);
+		expect(box.height).toBeGreaterThanOrEqual(44);
+	}
+	// A tap on the target's edge, away from the box itself, still ticks the wall.
+	const wall = page.getByLabel('House wall along edge B–C');
+	await expect(wall).not.toBeChecked();
+	const target = page.getByTestId('house-wall-target').nth(1);
+	await target.scrollIntoViewIfNeeded();
+	const cell = (await target.boundingBox())!;
+	await page.touchscreen.tap(cell.x + cell.width - 3, cell.y + 3);
+	await expect(wall).toBeChecked();
+	await page.screenshot({ path: 'test-results/screens/phone-edge-table.png' });
 	for (const hit of await page.getByTestId('corner-hit').all()) {
 		const box = (await hit.boundingBox())!;
 		expect(box.width).toBeGreaterThanOrEqual(44);

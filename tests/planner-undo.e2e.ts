@@ -10,7 +10,7 @@ test('undo brings back a deleted corner, redo removes it again, and Start over r
 	await expect(corners).toHaveCount(4);
 	await expect(page.getByTestId('result-area')).toHaveText('120 ft²'); // the starter: 12 × 10 ft
 
-	await page.getByRole('button', { name: 'Remove corner B' }).click();
+	await page.getByRole('button', { name: 'Delete corner B' }).click();
 	await expect(corners).toHaveCount(3);
 	await expect(page.getByTestId('result-area')).toHaveText('60 ft²'); // the triangle A, C, D: ½ × 12 × 10
 	await page.getByRole('button', { name: 'Undo' }).click();

@@ -1,7 +1,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import { signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
 
-const wallBox = (page: Page, edge: string) => page.getByLabel(`Edge ${edge} runs along a house wall`);
+const wallBox = (page: Page, edge: string) => page.getByLabel(`House wall along edge ${edge}`);
 const housesDrawn = (page: Page) => page.locator('svg line[data-house]');
 
 async function saved(page: Page) {

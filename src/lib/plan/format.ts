@@ -13,6 +13,27 @@ export function formatInches(inches: number): string {
 	return `${sign}${whole || !frac ? whole : ''}${frac} in`;
 }
 
+/**
+ * A tape reading, the one formatter for positions and distances on site: feet and inches to the
+ * nearest 1/16 in ("7 ft 3 5/16 in"), or metres to the millimetre ("2.215 m").
+ */
+export function tapeLength(l: Length, u: Units): string {
+	const sign = (u === 'metric' ? l.meters : l.feet) < 0 ? '−' : '';
+	if (u === 'metric') {
+		const mm = Math.round(Math.abs(l.meters) * 1000);
+		return `${mm ? sign : ''}${(mm / 1000).toFixed(3)} m`;
+	}
+	const sixteenths = Math.round(Math.abs(l.feet) * 12 * 16);
+	const feet = Math.floor(sixteenths / 192);
+	const rest = sixteenths - feet * 192;
+	const inches = Math.floor(rest / 16);
+	let num = rest % 16;
+	let den = 16;
+	while (num && num % 2 === 0) [num, den] = [num / 2, den / 2];
+	const inchText = `${inches || !num ? inches : ''}${inches && num ? ' ' : ''}${num ? `${num}/${den}` : ''} in`;
+	return `${sixteenths ? sign : ''}${feet ? `${feet} ft ${inchText}` : inchText}`;
+}
+
 export const formatSmall = (s: Small, u: Units) =>
 	u === 'imperial' ? formatInches(s.inches) : `${Math.round(s.millimeters)} mm`;
 

@@ -6,23 +6,13 @@ import type { PlanResult } from './index';
 import { dist as d, type Pt } from './polygon';
 import { M_PER_FT, length } from './units';
 import type { Length, Units } from './units';
+import { tapeLength } from './format';
 
 /** Corner letter as the edge table writes it: A…Z, then A1, B1… */
 export const cornerLetter = (i: number) => String.fromCharCode(65 + (i % 26)) + (i >= 26 ? Math.floor(i / 26) : '');
 
-/** A tape reading: feet and inches to the nearest 1/16 in, or metres to the millimetre. */
-export function tapeLength(l: Length, u: Units): string {
-	if (u === 'metric') return `${(Math.round(l.meters * 1000) / 1000).toFixed(3)} m`;
-	const sixteenths = Math.round(l.feet * 12 * 16);
-	const feet = Math.floor(sixteenths / 192);
-	const rest = sixteenths - feet * 192;
-	const inches = Math.floor(rest / 16);
-	let num = rest % 16;
-	let den = 16;
-	while (num && num % 2 === 0) [num, den] = [num / 2, den / 2];
-	const inchText = `${inches || !num ? inches : ''}${inches && num ? ' ' : ''}${num ? `${num}/${den}` : ''} in`;
-	return feet ? `${feet} ft ${inchText}` : inchText;
-}
+/** The tape reading every plan view uses (the layout sheet, the stake marks, the print view, the PDF). */
+export { tapeLength };
 
 export interface SheetCorner {
 	section: number;

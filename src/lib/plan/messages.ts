@@ -5,11 +5,31 @@
 import type { z } from 'zod';
 import type { Units } from './units';
 
+/** How a fall or cross fall is given, the largest of each a plan may take (a 25 % slope), and its words. */
+export const RATE_UNITS = ['percent', 'inPerFt', 'mmPerM', 'totalDrop'] as const;
+export type RateUnit = (typeof RATE_UNITS)[number];
+export const RATE_MAX: Record<RateUnit, number> = { percent: 25, inPerFt: 3, mmPerM: 250, totalDrop: Infinity };
+const RATE_WORDS: Record<Units, Record<RateUnit, string>> = {
+	imperial: { percent: '%', inPerFt: 'in per ft', mmPerM: 'mm per m', totalDrop: 'in' },
+	metric: { percent: '%', inPerFt: 'in per ft', mmPerM: 'mm per m', totalDrop: 'mm' }
+};
+
+/**
+ * "Enter the fall, 0–3 in per ft." A fall's range and unit follow the unit it is given in; a total
+ * drop is bounded by the largest small dimension (`maxDrop`, 48 in or 1,200 mm).
+ */
+export function rateMessage(label: string, rate: RateUnit | undefined, units: Units, signed: boolean, maxDrop: number): string {
+	if (!rate || !(rate in RATE_MAX))
+		return `Enter ${label} as a number with its unit: %, in per ft, mm per m, or a total drop in ${UNIT[units].S}.`;
+	const max = rate === 'totalDrop' ? maxDrop : RATE_MAX[rate];
+	return `Enter ${label}${range(signed ? -max : 0, max, RATE_WORDS[units][rate])}.`;
+}
+
 type UnitKind = 'L' | 'S' | 'T' | 'M' | 'V' | 'PV' | 'psi' | 'wind' | '%' | 'min' | 'days' | 'money' | 'x' | 'dens' | 'cover' | 'dose';
 
 const UNIT: Record<Units, Record<UnitKind, string>> = {
-	imperial: { L: 'ft', S: 'in', T: '°F', M: 'lb', V: 'yd³', PV: 'ft³', psi: 'psi', wind: 'mph', '%': '%', min: 'min', days: 'days', money: '', x: '', dens: 'short tons per yd³', cover: 'ft² per US gal', dose: 'oz' },
-	metric: { L: 'm', S: 'mm', T: '°C', M: 'kg', V: 'm³', PV: 'm³', psi: 'MPa', wind: 'km/h', '%': '%', min: 'min', days: 'days', money: '', x: '', dens: 't per m³', cover: 'm² per L', dose: 'g' }
+	imperial: { L: 'ft', S: 'in', T: '°F', M: 'lb', V: 'yd³', PV: 'ft³', psi: 'psi', wind: 'mph', '%': '%', min: 'min', days: 'days', money: 'USD', x: '', dens: 'short tons per yd³', cover: 'ft² per US gal', dose: 'oz' },
+	metric: { L: 'm', S: 'mm', T: '°C', M: 'kg', V: 'm³', PV: 'm³', psi: 'MPa', wind: 'km/h', '%': '%', min: 'min', days: 'days', money: 'USD', x: '', dens: 't per m³', cover: 'm² per L', dose: 'g' }
 };
 
 /**
@@ -212,13 +232,35 @@ interface NumberInfo {
 	isInt?: boolean;
 }
 
-/** The message for one issue of a plan in the given units. */
-export function planMessage(iss: Issue, units: Units): string {
+type Tree = Record<PropertyKey, unknown>;
+/** The value at a path of the input, if the input has it. */
+function at(input: unknown, path: readonly PropertyKey[]): unknown {
+	let v = input;
+	for (const k of path) v = v !== null && typeof v === 'object' ? (v as Tree)[k] : undefined;
+	return v;
+}
+
+/** The currency the plan's prices are in, as its code ("USD"); the default when it is not one. */
+function currencyOf(input: unknown): string {
+	const c = at(input, ['currency']);
+	return typeof c === 'string' && /^[A-Za-z]{3}$/.test(c.trim()) ? c.trim().toUpperCase() : 'USD';
+}
+
+/**
+ * The message for one issue of a plan in the given units. `input` is the plan being checked: a
+ * fall's unit and the prices' currency are read from it, so every range names its unit.
+ */
+export function planMessage(iss: Issue, units: Units, input?: unknown): string {
 	const path = (iss.path ?? []) as PropertyKey[];
 	const keys = path.filter((p): p is string => typeof p === 'string');
 	const key = keys.join('.');
 	const [label, kind] = FIELDS[key] ?? [keys.length ? fromKey(keys[keys.length - 1]) : 'the plan'];
-	const unit = kind ? UNIT[units][kind] : '';
+	const unit = kind === 'money' ? currencyOf(input) : kind ? UNIT[units][kind] : '';
+	// A fall's number: its range and unit follow the unit it is given in (%, in per ft, a drop in in).
+	if ((key === 'slope.fall.value' || key === 'slope.crossFall.value') && (iss.code === 'invalid_type' || iss.code === 'too_small' || iss.code === 'too_big')) {
+		const rate = at(input, [...path.slice(0, -1), 'unit']) as RateUnit | undefined;
+		return rateMessage(label, rate, units, key === 'slope.crossFall.value', units === 'imperial' ? 48 : 1200);
+	}
 	const Label = label[0].toUpperCase() + label.slice(1);
 	// A corner of an outline: [x, y] in the plan's length unit.
 	if (key === 'sections.outline' && typeof path[path.length - 1] === 'number')
@@ -281,8 +323,8 @@ export function planMessage(iss: Issue, units: Units): string {
 	}
 }
 
-/** zod error maps for plans in each unit system (zod's per-parse error customisation). */
-export const planErrorMaps: Record<Units, z.core.$ZodErrorMap> = {
-	imperial: (iss) => planMessage(iss, 'imperial'),
-	metric: (iss) => planMessage(iss, 'metric')
-};
+/** The zod error map for checking one plan (zod's per-parse error customisation). */
+export function planErrorMap(input: unknown): z.core.$ZodErrorMap {
+	const units: Units = at(input, ['units']) === 'metric' ? 'metric' : 'imperial';
+	return (iss) => planMessage(iss, units, input);
+}

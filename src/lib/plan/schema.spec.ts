@@ -147,7 +147,15 @@ describe('messages in plain words', () => {
 		expect(messageAt({ reference: { below: 50 } }, 'reference.below')).toBe('Enter how far the slab sits below the reference mark, −48 to 48 in.');
 		expect(messageAt({ loads: { vehicles: 1 } }, 'loads.vehicles')).toBe('Choose yes or no (true or false) for whether vehicles drive on the slab.');
 		expect(messageAt({ name: 'x'.repeat(101) }, 'name')).toBe('Shorten the plan name to 100 characters or fewer.');
-		expect(messageAt({ slope: { fall: { value: 4, unit: 'inPerFt' } } }, 'slope.fall.value')).toBe('Enter the fall, at most 3 in per ft (a 25 % slope).');
+		expect(messageAt({ slope: { fall: { value: 4, unit: 'inPerFt' } } }, 'slope.fall.value')).toBe('Enter the fall, 0–3 in per ft.');
+		// A fall's range and unit follow the unit it is given in, whatever is wrong with the number.
+		expect(messageAt({ slope: { fall: { value: null, unit: 'totalDrop' } } }, 'slope.fall.value')).toBe('Enter the fall, 0–48 in.');
+		expect(messageAt({ slope: { fall: { value: 60, unit: 'totalDrop' } } }, 'slope.fall.value')).toBe('Enter the fall, 0–48 in.');
+		expect(messageAt({ slope: { fall: { value: null, unit: 'percent' } } }, 'slope.fall.value')).toBe('Enter the fall, 0–25 %.');
+		expect(messageAt({ units: 'metric', slope: { fall: { value: 300, unit: 'mmPerM' } } }, 'slope.fall.value')).toBe('Enter the fall, 0–250 mm per m.');
+		expect(messageAt({ units: 'metric', slope: { crossFall: { value: null, unit: 'totalDrop' } } }, 'slope.crossFall.value')).toBe('Enter the cross fall, −1,200 to 1,200 mm.');
+		expect(messageAt({ prices: { stake: -1 } }, 'prices.stake')).toBe('Enter the stake price, 0–1,000,000 USD.');
+		expect(messageAt({ currency: 'CAD', prices: { stake: -1 } }, 'prices.stake')).toBe('Enter the stake price, 0–1,000,000 CAD.');
 	});
 
 	it('give every number field a message with its range, never the validator’s text', () => {
@@ -167,4 +175,66 @@ describe('messages in plain words', () => {
 		}
 		expect(checked).toBeGreaterThan(30);
 	});
+
+	// Every number a plan holds, at any depth (lists, items of lists, optional groups), with its unit
+	// word; the few numbers without a unit are listed here, by path, so a new field must say which.
+	const UNITLESS = [
+		/\.(section|edge)$/, // edge references: indices
+		/^crew\.people$/,
+		/^base\.bulking$/, // a ratio
+		/^fill\.shareOfTrench$/,
+		/^bags\.waterRatio$/,
+		/^reinforcing\.lapDiameters$/ // counted in bar diameters, which the label says
+	];
+	const UNIT_WORD = /\d (ft|in|m|mm|°F|°C|lb|kg|yd³|ft³|m³|psi|MPa|mph|km\/h|%|min|days|in per ft|mm per m|short tons per yd³|t per m³|ft² per US gal|m² per L|oz|g|USD)[.,]/;
+	type Node = { type?: string | string[]; properties?: Record<string, Node>; items?: Node; prefixItems?: Node[]; anyOf?: Node[]; oneOf?: Node[] };
+	function numberPaths(n: Node, path: (string | number)[], out: (string | number)[][]) {
+		const types = [n.type ?? []].flat();
+		if (types.includes('number') || types.includes('integer')) out.push(path);
+		for (const [k, c] of Object.entries(n.properties ?? {})) numberPaths(c, [...path, k], out);
+		if (n.items) numberPaths(n.items, [...path, 0], out);
+		n.prefixItems?.forEach((c, i) => numberPaths(c, [...path, i], out));
+		for (const c of [...(n.anyOf ?? []), ...(n.oneOf ?? [])]) numberPaths(c, path, out);
+		return out;
+	}
+	const unique = (paths: (string | number)[][]) => [...new Map(paths.map((p) => [p.join('.'), p])).values()];
+	/** The plan with the value at `path` set, making the groups and lists on the way. */
+	function withValue(plan: Record<string, unknown>, path: (string | number)[], value: unknown) {
+		const copy = structuredClone(plan);
+		let o: Record<string | number, unknown> = copy;
+		path.slice(0, -1).forEach((k, i) => {
+			if (o[k] === null || typeof o[k] !== 'object') o[k] = typeof path[i + 1] === 'number' ? [] : {};
+			o = o[k] as Record<string | number, unknown>;
+		});
+		o[path[path.length - 1]] = value;
+		return copy;
+	}
+
+	for (const units of ['imperial', 'metric'] as const) {
+		it(`every number field’s message names its unit (${units})`, () => {
+			const js = planInputJsonSchema() as Node & { oneOf: Node[] };
+			const branch = js.oneOf.find((b) => (b.properties?.units as { const?: string }).const === units)!;
+			const parsed = parsePlanInput({ units, sections: [{ outline: units === 'imperial' ? square : square.map((p) => p.map((v) => v / 3)) }] });
+			if (!parsed.ok) throw new Error('the base plan is valid');
+			const plan = structuredClone(parsed.plan) as Record<string, unknown>;
+			const paths = unique(numberPaths(branch, [], [])).filter((p) => p[0] !== 'sections' || p.length < 4);
+			let withUnit = 0;
+			for (const path of paths) {
+				const key = path.join('.');
+				for (const bad of [null, 1e12]) {
+					const r = parsePlanInput(withValue(plan, path, bad));
+					if (r.ok) throw new Error(`${key} took ${bad}`);
+					const e = r.errors.find((x) => x.path === key) ?? r.errors.find((x) => key.startsWith(x.path));
+					expect(e, `${key} = ${bad}: ${JSON.stringify(r.errors)}`).toBeDefined();
+					const m = e!.message;
+					expect(m, key).not.toMatch(/expected|received|Invalid|Too (small|big)/);
+					if (UNITLESS.some((u) => u.test(key))) continue;
+					expect(m, key).toMatch(/^Enter /);
+					expect(m, `${key} = ${bad}`).toMatch(key.startsWith('sections.') ? / (ft|m)\./ : UNIT_WORD);
+					withUnit++;
+				}
+			}
+			expect(withUnit).toBeGreaterThan(120); // about 70 fields, two messages each
+		});
+	}
 });

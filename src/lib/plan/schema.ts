@@ -4,22 +4,13 @@
 import { z } from 'zod';
 import { COMMON, DEFAULTS } from './defaults';
 import { geometryIssues, type PlanIssue } from './geometry';
-import { planErrorMaps, plainNumber } from './messages';
+import { planErrorMap, plainNumber, RATE_MAX, RATE_UNITS, rateMessage } from './messages';
 import { perimeter, signedArea } from './polygon';
 import { KG_PER_LB, M2_PER_FT2, M3_PER_FT3, M_PER_FT, M_PER_IN, type Units } from './units';
 
 export const LUMBER_SIZES = ['2x4', '2x6', '2x8', '2x10', '2x12'] as const;
-export const RATE_UNITS = ['percent', 'inPerFt', 'mmPerM', 'totalDrop'] as const;
+export { RATE_UNITS };
 export const REINFORCEMENT = ['none', 'fiber', 'mesh', 'rebar'] as const;
-
-/** Largest ratio each rate unit may express (25 % fall), so typos are caught. */
-const RATE_MAX: Record<(typeof RATE_UNITS)[number], number> = {
-	percent: 25,
-	inPerFt: 3,
-	mmPerM: 250,
-	totalDrop: Infinity
-};
-const RATE_WORDS: Record<(typeof RATE_UNITS)[number], string> = { percent: '%', inPerFt: 'in per ft', mmPerM: 'mm per m', totalDrop: '' };
 
 const MAX_SECTIONS = 12;
 const MAX_VERTICES = 100;
@@ -113,11 +104,7 @@ function planSchemaFor<U extends Units>(units: U) {
 			})
 			.superRefine(({ value, unit }, ctx) => {
 				if (Math.abs(value) > RATE_MAX[unit])
-					ctx.addIssue({
-						code: 'custom',
-						path: ['value'],
-						message: `Enter ${label}, at most ${RATE_MAX[unit]} ${RATE_WORDS[unit]} (a 25 % slope).`
-					});
+					ctx.addIssue({ code: 'custom', path: ['value'], message: rateMessage(label, unit, units, signed, d.maxSmall) });
 			});
 
 	const section = z.strictObject({
@@ -438,7 +425,7 @@ function crossChecks(plan: Parsed): PlanIssue[] {
 	const te = plan.thickenedEdge.edges;
 	if (Array.isArray(te)) te.forEach((r, i) => checkEdge(r, `thickenedEdge.edges.${i}`));
 	if (plan.forms.lumber === 'custom' && !plan.forms.customDepth)
-		issues.push({ path: 'forms.customDepth', message: 'Enter the board depth for custom lumber.' });
+		issues.push({ path: 'forms.customDepth', message: `Enter the board depth for custom lumber, 0–${plainNumber(DEFAULTS[plan.units].maxSmall)} ${plan.units === 'imperial' ? 'in' : 'mm'}.` });
 	if (plan.fill && (plan.fill.volume === undefined) === (plan.fill.shareOfTrench === undefined))
 		issues.push({ path: 'fill', message: 'Give the fill as either a volume or a share of the trench, not both.' });
 	if (plan.bags.planSize !== undefined && !plan.bags.offered.some((b) => b.size === plan.bags.planSize))
@@ -555,14 +542,13 @@ export type EdgeRef = EdgeRefOut;
 
 export type ParseResult = { ok: true; plan: ParsedPlan } | { ok: false; errors: PlanIssue[] };
 
-const isMetric = (input: unknown) => !!input && typeof input === 'object' && (input as { units?: unknown }).units === 'metric';
 
 /**
  * Validate anything against the schema; errors carry dotted paths like "sections.0.outline" and
  * plain-words messages (messages.ts), each (path, message) once.
  */
 export function parsePlanInput(input: unknown): ParseResult {
-	const r = planInputSchema.safeParse(input, { error: planErrorMaps[isMetric(input) ? 'metric' : 'imperial'] });
+	const r = planInputSchema.safeParse(input, { error: planErrorMap(input) });
 	if (r.success) return { ok: true, plan: r.data };
 	const seen = new Set<string>();
 	const errors: PlanIssue[] = [];

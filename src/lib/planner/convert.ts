@@ -3,6 +3,7 @@
 // system's usual values instead of odd conversions.
 import { fieldLabel, parsePlanInput, type ParsedPlan, type Units } from '$lib/plan';
 import { sameData } from './editable';
+import type { Preset } from './presets';
 
 const FT = 0.3048;
 const IN = 25.4;
@@ -16,11 +17,23 @@ const OZ_G = 28.349523125; // g per avoirdupois ounce
 
 const r = (v: number, digits = 3) => Math.round(v * 10 ** digits) / 10 ** digits;
 
+/**
+ * A site length (ft or m) as a person would type it: metres to the millimetre, feet to the
+ * sixteenth of an inch (kept to 4 decimals, finer than 1/16 in = 0.0052 ft). Clears float noise
+ * such as 3.0480000000000005.
+ */
+export function tidyLength(v: number, units: Units): number {
+	return units === 'metric' ? r(v, 3) : r(Math.round(v * 192) / 192, 4);
+}
+
 export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 	if (p.units === to) return p;
 	const metric = to === 'metric';
-	const len = (v: number) => r(metric ? v * FT : v / FT, metric ? 4 : 3); // 0.1 mm keeps round trips exact
-	const small = (v: number) => r(metric ? v * IN : v / IN, metric ? 0 : 2);
+	// Lengths land on what a tape reads in the new units: whole millimetres, or sixteenths of an
+	// inch. Half a millimetre is less than half a sixteenth (0.79 mm), so a value typed in
+	// sixteenths comes back exactly even without the switch's memory.
+	const len = (v: number) => (metric ? tidyLength(v * FT, 'metric') : tidyLength(v / FT, 'imperial'));
+	const small = (v: number) => (metric ? r(v * IN, 0) : Math.round((v / IN) * 16) / 16);
 	const mass = (v: number) => r(metric ? v * LB : v / LB, 1);
 	const temp = (v: number) => r(metric ? ((v - 32) * 5) / 9 : (v * 9) / 5 + 32, 1);
 	const opt = <T>(v: T | undefined, f: (x: T) => T) => (v === undefined ? undefined : f(v));
@@ -101,6 +114,12 @@ export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 	const out = parsePlanInput(converted);
 	if (!out.ok) throw new Error(`converted plan is invalid: ${out.errors[0].path} ${out.errors[0].message}`);
 	return out.plan;
+}
+
+/** The shape form's sizes in other units, as a tape reads them (4.267 m for 14 ft). */
+export function convertPreset(p: Preset, to: Units): Preset {
+	const len = (v: number) => (Number.isFinite(v) ? tidyLength(to === 'metric' ? v * FT : v / FT, to) : v);
+	return { ...p, length: len(p.length), width: len(p.width), notchLength: len(p.notchLength), notchWidth: len(p.notchWidth) };
 }
 
 /** The last switch: the plan as it was before, and what the switch made of it. */

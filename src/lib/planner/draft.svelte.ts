@@ -1,5 +1,5 @@
 import { estimate, parsePlanInput, type EdgeRef, type ParsedPlan, type PlanInput, type Units } from '$lib/plan';
-import { switchUnits, type UnitMemory } from './convert';
+import { convertPreset, switchUnits, type UnitMemory } from './convert';
 import { editableCopy } from './editable';
 import { detectPreset, type Preset } from './presets';
 import { edgesAfter, lShape, rectangle, removeVertex, splitEdge, type Pt } from './shapes';
@@ -88,9 +88,13 @@ export class PlanDraft {
 		}
 		this.unitsMessage = '';
 		this.#unitMemory = r.memory;
-		this.#presets[this.#input.units] = editableCopy(this.preset);
+		const from = this.#input.units;
+		this.#presets[from] = editableCopy(this.preset);
 		this.input = r.plan;
-		this.preset = editableCopy(this.#presets[to]) ?? detectPreset(this.#input);
+		// The form as last typed in these units, else the shape of the outline, else the sizes typed
+		// in the other units, converted.
+		const remembered = this.#presets[to];
+		this.preset = remembered ? editableCopy(remembered) : detectPreset(this.#input, from === to ? undefined : convertPreset(this.#presets[from]!, to));
 		return true;
 	}
 

@@ -44,7 +44,10 @@ export function presetCrossFall(p: Preset, fall: Rate): Rate {
 	return fall.unit !== 'totalDrop' && fall.value > 0 ? { ...fall } : { value: 2, unit: 'percent' };
 }
 
-const same = (a: Pt[], b: Pt[]) => a.length === b.length && a.every((p, i) => p[0] === b[i][0] && p[1] === b[i][1]);
+const close = (a: number, b: number) => Math.abs(a - b) < 1e-9 * Math.max(1, Math.abs(a));
+const same = (a: Pt[], b: Pt[]) => a.length === b.length && a.every((p, i) => close(p[0], b[i][0]) && close(p[1], b[i][1]));
+/** A size read off the outline without float noise (4.877 − 3.048 = 1.8290000000000002 → 1.829). */
+const clean = (v: number) => Math.round(v * 1e6) / 1e6;
 
 /**
  * The preset form as the plan stands: its own sizes when the outline is one of the presets,
@@ -59,8 +62,8 @@ export function detectPreset(input: ParsedPlan, previous?: Preset): Preset {
 		return { ...(previous ?? typical(input.units)), shape: 'rectangle', length: o[2][0], width: o[2][1], house: house === 'corner' ? 'side' : house };
 	if (o.length === 6) {
 		const [L, W] = [o[1][0], o[5][1]];
-		const nl = L - o[3][0];
-		const nw = W - o[2][1];
+		const nl = clean(L - o[3][0]);
+		const nw = clean(W - o[2][1]);
 		if (nl > 0 && nw > 0 && same(o, lShape(L, W, nl, nw))) return { shape: 'l', length: L, width: W, notchLength: nl, notchWidth: nw, house };
 	}
 	return previous ?? { ...typical(input.units), house };

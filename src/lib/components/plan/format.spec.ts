@@ -103,7 +103,13 @@ describe('rows from a computed plan', () => {
 		expect(high.map((r) => r.id)).toEqual([patio.elevations.highStake]);
 		expect(high[0].belowLine).toBe('0 in');
 		// ¼ in/ft fall over 12 ft = 3 in (ACI 302.1R ¼ in/ft): the far stakes sit 3 in below the line
-		expect(rows.find((r) => r.position === '14 ft, 12 ft')?.belowLine).toBe('3 in');
+		expect(rows.find((r) => r.position === '14 ft 0 in, 12 ft 0 in')?.belowLine).toBe('3 in');
+		// Positions read as a tape does, never decimal feet: 7.2760 ft = 7 ft 3.3125 in = 7 ft 3 5/16 in.
+		for (const r of rows) expect(r.position).toMatch(/^(\d+ ft )?\d+( \d+\/\d+)? in, (\d+ ft )?\d+( \d+\/\d+)? in$/);
+		const odd = stakeRows({ ...patio, elevations: { ...patio.elevations, stakes: [{ ...patio.elevations.stakes[0], x: 7 + 3.3125 / 12, y: -0.5 }] } });
+		expect(odd[0].position).toBe('7 ft 3 5/16 in, −6 in');
+		const metric = stakeRows({ ...patio, units: 'metric', elevations: { ...patio.elevations, stakes: [{ ...patio.elevations.stakes[0], x: 2.2154, y: 0 }] } });
+		expect(metric[0].position).toBe('2.215 m, 0.000 m');
 		expect(stakeIntro(patio)).toContain('mark it 1½ in below the kitchen door sill');
 	});
 

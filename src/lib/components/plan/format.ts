@@ -2,7 +2,8 @@
 // download show the same numbers, in the plan's own units, straight from the engine result.
 
 import type { Area, Caution, Mass, PlanResult, Severity, Small, Temperature, Units } from '$lib/plan';
-import { formatLength, formatSmall, formatVolume } from '$lib/plan/format';
+import { formatLength, formatSmall, formatVolume, tapeLength } from '$lib/plan/format';
+import { length, planToM } from '$lib/plan/units';
 
 const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
 const num = (x: number, digits: number) => String(round(x, digits));
@@ -166,8 +167,8 @@ export function stakeRows(p: StakePlan): StakeRow[] {
 	const u = p.units;
 	const runs = new Map(p.forms.runs.map((r) => [r.id, r]));
 	const names = new Map(p.geometry.sections.map((s) => [s.index, s.name]));
-	// Stake coordinates are already in the plan's length unit.
-	const len = (v: number) => `${num(v, 2)} ${u === 'imperial' ? 'ft' : 'm'}`;
+	// Stake coordinates are in the plan's length unit; read them as a tape does.
+	const len = (v: number) => tapeLength(length(planToM(v, u)), u);
 	return p.elevations.stakes.map((s) => {
 		const run = runs.get(s.run);
 		return {

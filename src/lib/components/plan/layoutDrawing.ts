@@ -3,7 +3,7 @@
 // the PDF with pdfkit, so both show one drawing. Plan y runs down the page, as in the editor.
 
 import type { PlanResult } from '$lib/plan';
-import { formatLength } from '$lib/plan/format';
+import { tapeLength } from '$lib/plan/format';
 import type { LayoutSheet } from '$lib/plan/layout-sheet';
 import type { Pt } from '$lib/plan/polygon';
 import { signedArea } from '$lib/plan/polygon';
@@ -39,6 +39,12 @@ export type DrawingPlan = Pick<PlanResult, 'units' | 'geometry' | 'joints' | 'fo
 /** Room around the slab for letters, board ids and stake numbers, in drawing units. */
 const MARGIN = 34;
 
+/** The unit vector from a to b (plan or drawing units alike). */
+function unit(a: readonly [number, number], b: readonly [number, number]): Pt {
+	const len = Math.hypot(b[0] - a[0], b[1] - a[1]) || 1;
+	return [(b[0] - a[0]) / len, (b[1] - a[1]) / len];
+}
+
 export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: number; height: number }): LayoutDrawing {
 	const pts = r.geometry.sections.flatMap((s) => s.outline);
 	const [x0, x1] = [Math.min(...pts.map((p) => p[0])), Math.max(...pts.map((p) => p[0]))];
@@ -49,11 +55,11 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 	const P = (p: readonly [number, number]): Pt => [MARGIN + (p[0] - x0) * scale, MARGIN + (p[1] - y0) * scale];
 	const line = (a: readonly [number, number], b: readonly [number, number]): DrawnLine => ({ from: P(a), to: P(b) });
 
-	const labels: DrawnLabel[] = [];
+	const labels: Wanted[] = [];
 	const house: DrawnLine[] = [];
 	let high: DrawnLine | null = null;
 	const freestanding = r.geometry.houseEdges.length === 0;
-	const cornerAt = new Map<string, DrawnLabel>();
+	const cornerAt = new Map<string, Wanted>();
 	for (const s of r.geometry.sections) {
 		const o = s.outline;
 		const n = o.length;
@@ -76,7 +82,8 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 			const shared = cornerAt.get(key);
 			if (shared) shared.text = `${shared.text}/${text}`;
 			else {
-				const label: DrawnLabel = { kind: 'corner', text, at: [at[0] + (bis[0] / k) * 14, at[1] + (bis[1] / k) * 14] };
+				const dir: Pt = [bis[0] / k, bis[1] / k];
+				const label: Wanted = { kind: 'corner', text, at: [at[0] + dir[0] * 14, at[1] + dir[1] * 14], normal: dir, tangent: [-dir[1], dir[0]] };
 				cornerAt.set(key, label);
 				labels.push(label);
 			}
@@ -89,13 +96,13 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 				// Outside the slab, two thirds along: clear of the board id (a third along) and the stakes.
 				const at = P([a[0] + (b[0] - a[0]) * 0.65, a[1] + (b[1] - a[1]) * 0.65]);
 				const nn = out(e.index);
-				labels.push({ kind: 'high', text: 'HIGH SIDE', at: [at[0] + nn[0] * 22, at[1] + nn[1] * 22] });
+				labels.push({ kind: 'high', text: 'HIGH SIDE', at: [at[0] + nn[0] * 22, at[1] + nn[1] * 22], normal: nn, tangent: unit(a, b) });
 			}
 			if (e.kind === 'coldJoint') continue;
 			const mid = P([(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
 			const nn = out(e.index);
 			// Edge lengths sit just inside the slab, clear of the stakes outside it.
-			labels.push({ kind: 'length', text: formatLength(e.length, r.units), at: [mid[0] - nn[0] * 10, mid[1] - nn[1] * 10] });
+			labels.push({ kind: 'length', text: tapeLength(e.length, r.units), at: [mid[0] - nn[0] * 10, mid[1] - nn[1] * 10], normal: [-nn[0], -nn[1]], tangent: unit(a, b) });
 		}
 	}
 	const runOut = new Map<string, Pt>();
@@ -110,30 +117,124 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 		if (!run.formed || run.kind === 'bulkhead') continue;
 		// A third of the way along, so the id does not sit on the length label's line of sight.
 		const at = P([run.from[0] + (run.to[0] - run.from[0]) * 0.35, run.from[1] + (run.to[1] - run.from[1]) * 0.35]);
-		labels.push({ kind: 'board', text: run.id, at: [at[0] + out[0] * 22, at[1] + out[1] * 22] });
+		labels.push({ kind: 'board', text: run.id, at: [at[0] + out[0] * 22, at[1] + out[1] * 22], normal: out, tangent: [t[0], t[1]] });
 	}
-	const stakes = r.elevations.stakes.map((s) => ({ id: s.id, at: P([s.x, s.y]) }));
+	const stakes = r.elevations.stakes.map((s) => ({ id: s.id, at: P([s.x, s.y]), run: s.run }));
 	for (const s of stakes) {
-		const out = runOut.get(r.elevations.stakes.find((x) => x.id === s.id)!.run) ?? [0, 0];
-		labels.push({ kind: 'stake', text: s.id, at: [s.at[0] + out[0] * 9, s.at[1] + out[1] * 9] });
+		const out = runOut.get(s.run) ?? [0, 1];
+		labels.push({ kind: 'stake', text: s.id, at: [s.at[0] + out[0] * 9, s.at[1] + out[1] * 9], normal: out, tangent: [-out[1], out[0]] });
 	}
 	const diagonals = sheet.diagonals.flatMap((d) => {
 		const o = r.geometry.sections[d.section].outline;
 		return [line(o[0], o[2]), line(o[1], o[3])];
 	});
 	const startCorner = sheet.corners.find((c) => c.label === sheet.start.corner);
+	const start = startCorner ? P(startCorner.at) : null;
+	const slabs = r.geometry.sections.map((s) => s.outline.map(P));
+	const joints = r.joints.sections.flatMap((s) => s.lines.map((l) => line(l.from, l.to)));
+	const coldJoints = r.geometry.coldJoints.map((j) => line(j.from, j.to));
+	// Everything drawn that a label must keep off: outlines, walls, joints, diagonals, stakes, the start circle.
+	const drawn = [...slabs.flatMap((o) => o.map((p, i) => ({ from: p, to: o[(i + 1) % o.length] }))), ...house, ...(high ? [high] : []), ...joints, ...coldJoints, ...diagonals];
+	const dots: Box[] = stakes.map((s) => ({ x0: s.at[0] - 3, y0: s.at[1] - 3, x1: s.at[0] + 3, y1: s.at[1] + 3 }));
+	if (start) dots.push({ x0: start[0] - 9, y0: start[1] - 9, x1: start[0] + 9, y1: start[1] + 9 });
+	const order: DrawnLabel['kind'][] = ['corner', 'high', 'length', 'board', 'stake'];
+	const wanted = order.flatMap((k) => labels.filter((l) => l.kind === k));
 	return {
 		width,
 		height,
 		scale,
-		slabs: r.geometry.sections.map((s) => s.outline.map(P)),
+		slabs,
 		house,
 		high,
-		joints: r.joints.sections.flatMap((s) => s.lines.map((l) => line(l.from, l.to))),
-		coldJoints: r.geometry.coldJoints.map((j) => line(j.from, j.to)),
+		joints,
+		coldJoints,
 		diagonals,
-		stakes,
-		start: startCorner ? P(startCorner.at) : null,
-		labels
+		stakes: stakes.map((s) => ({ id: s.id, at: s.at })),
+		start,
+		labels: placeLabels(wanted, drawn, dots, { width, height })
 	};
+}
+
+// ---- Label placement: each label tries spots near where it belongs, nearest first, and takes the
+// first whose box is clear of every drawn line, stake, the start circle and the labels placed
+// before it (and inside the drawing). Both renderers draw the labels at these sizes.
+
+/** Font size of each label kind, in drawing units (SVG px, PDF pt). */
+export const LABEL_SIZE: Record<DrawnLabel['kind'], number> = { corner: 11, high: 9, length: 8, board: 9, stake: 7 };
+
+/** The box a label's text takes, centred on its point (a generous 0.62 em per character). */
+export function labelBox(l: Pick<DrawnLabel, 'at' | 'text' | 'kind'>): Box {
+	const size = LABEL_SIZE[l.kind];
+	const w = l.text.length * size * 0.62;
+	return { x0: l.at[0] - w / 2, y0: l.at[1] - size * 0.6, x1: l.at[0] + w / 2, y1: l.at[1] + size * 0.6 };
+}
+
+export interface Box {
+	x0: number;
+	y0: number;
+	x1: number;
+	y1: number;
+}
+
+const overlaps = (a: Box, b: Box) => a.x0 < b.x1 && b.x0 < a.x1 && a.y0 < b.y1 && b.y0 < a.y1;
+
+/** Whether segment a–b passes through box r (Liang–Barsky clipping). */
+export function segmentHitsBox(a: Pt, b: Pt, r: Box): boolean {
+	let t0 = 0;
+	let t1 = 1;
+	const dx = b[0] - a[0];
+	const dy = b[1] - a[1];
+	const edges: [number, number][] = [
+		[-dx, a[0] - r.x0],
+		[dx, r.x1 - a[0]],
+		[-dy, a[1] - r.y0],
+		[dy, r.y1 - a[1]]
+	];
+	for (const [p, q] of edges) {
+		if (p === 0) {
+			if (q < 0) return false;
+		} else {
+			const t = q / p;
+			if (p < 0) t0 = Math.max(t0, t);
+			else t1 = Math.min(t1, t);
+			if (t0 > t1) return false;
+		}
+	}
+	return true;
+}
+
+type Wanted = DrawnLabel & { normal: Pt; tangent: Pt };
+
+/** Offsets to try, nearest first: out along the label's normal, then sideways along its line. */
+const TRIES: [number, number][] = (() => {
+	const out: [number, number][] = [];
+	for (const n of [0, 4, 8, 12, 16, 22, 28, 36, -6, -12, -20, -30, -42, -56]) for (const t of [0, 8, -8, 16, -16, 26, -26, 38, -38, 52, -52]) out.push([n, t]);
+	return out.sort((p, q) => Math.abs(p[0]) + Math.abs(p[1]) * 0.8 - (Math.abs(q[0]) + Math.abs(q[1]) * 0.8));
+})();
+
+function placeLabels(wanted: Wanted[], lines: DrawnLine[], dots: Box[], size: { width: number; height: number }): DrawnLabel[] {
+	const placed: Box[] = [];
+	const out: DrawnLabel[] = [];
+	const pad = 1.5;
+	const grow = (b: Box): Box => ({ x0: b.x0 - pad, y0: b.y0 - pad, x1: b.x1 + pad, y1: b.y1 + pad });
+	const hits = (b: Box) =>
+		(b.x0 < 0 || b.y0 < 0 || b.x1 > size.width || b.y1 > size.height ? 1 : 0) +
+		lines.filter((l) => segmentHitsBox(l.from, l.to, b)).length +
+		dots.filter((d) => overlaps(d, b)).length +
+		placed.filter((p) => overlaps(p, b)).length;
+	// Many stakes: only the nearest spots, to keep the drawing cheap on a large plan.
+	const tries = wanted.length > 250 ? TRIES.slice(0, 12) : TRIES;
+	for (const w of wanted) {
+		let best: { at: Pt; box: Box; n: number } | null = null;
+		for (const [n, t] of tries) {
+			const at: Pt = [w.at[0] + w.normal[0] * n + w.tangent[0] * t, w.at[1] + w.normal[1] * n + w.tangent[1] * t];
+			const box = grow(labelBox({ ...w, at }));
+			const count = hits(box);
+			if (!best || count < best.n) best = { at, box, n: count };
+			if (count === 0) break;
+		}
+		placed.push(best!.box);
+		out.push({ kind: w.kind, text: w.text, at: best!.at });
+	}
+	return out;
 }

@@ -4,7 +4,7 @@ import { billingTarget, type BillingEvent } from '$lib/billing-status';
 import { leadPack } from '$lib/billing-plans';
 import { db } from '$lib/server/db';
 import { billingAccount, billingEvent, user } from '$lib/server/db/schema';
-import { deliverSoon, queueMail } from '../mail';
+import { queueMail } from '../mail';
 import type { Mail } from '../mail/templates';
 import { lockAccount, type Tx } from './accounts';
 import { payments, webhookSecret } from './client';
@@ -116,6 +116,5 @@ export async function applyEvent(event: Stripe.Event, origin: string): Promise<W
 		if (mail && who) await queueMail(who.email, mail, tx);
 		return { result: 'applied', contractorId, status };
 	});
-	if (out.result === 'applied') deliverSoon();
 	return out;
 }

@@ -4,7 +4,8 @@ import { describe, expect, it } from 'vitest';
 import { computePlan, type PlanResult } from '$lib/plan';
 import { formatSmall, formatVolume } from '$lib/plan/format';
 import demo from '../../../../fixtures/demo-plans.json';
-import { pdfPagePixels, pdfPageText, pdfText as extractText } from '../../../../tests/pdf-text';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { pdfPagePixels, pdfPagePng, pdfPageText, pdfText as extractText } from '../../../../tests/pdf-text';
 import { buildCardItems } from '$lib/components/plan/buildCard';
 import { layoutDrawing } from '$lib/components/plan/layoutDrawing';
 import { layoutSheet } from '$lib/plan/layout-sheet';
@@ -85,6 +86,14 @@ describe('planPdf', () => {
 		expect(slab).toBeGreaterThan(5000);
 		expect(ink).toBeGreaterThan(5000);
 		expect(lowest).toBeGreaterThan(px.height / 2); // below the build card, in the lower half
+	});
+
+	it.each(plans)('$id: page 1 rendered to a PNG to look at (test-results/screens/)', { timeout: 30_000 }, async ({ id, name, result }) => {
+		const pdf = await planPdf({ name, result, createdAt: new Date('2027-04-01T12:00:00Z') });
+		const png = await pdfPagePng(pdf, 1, 2);
+		expect(png.subarray(1, 4).toString()).toBe('PNG');
+		mkdirSync('test-results/screens', { recursive: true });
+		writeFileSync(`test-results/screens/pdf-${id}-page-1.png`, png);
 	});
 
 	it.each([

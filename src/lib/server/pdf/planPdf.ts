@@ -9,7 +9,7 @@ import type { PlanResult } from '$lib/plan';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
 import { buildCardItems } from '$lib/components/plan/buildCard';
 import { GLOSSARY } from '$lib/components/plan/glossary';
-import { layoutDrawing, type LayoutDrawing } from '$lib/components/plan/layoutDrawing';
+import { LABEL_SIZE, layoutDrawing, type LayoutDrawing } from '$lib/components/plan/layoutDrawing';
 import {
 	DEFERRAL_FALLBACK,
 	READY_MIX_HINT,
@@ -286,7 +286,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	table(
 		['Stake', 'On', 'Position (x, y)', `Height vs. ${r.elevations.reference.label}`, 'Below level line'],
 		stakeRows(r).map((s) => [s.high ? `${s.id} (high)` : s.id, s.where, s.position, s.elevation, s.belowLine]),
-		[58, '*', 90, 96, 80]
+		[48, '*', 128, 84, 72]
 	);
 
 	heading('Mixing plan');
@@ -445,9 +445,11 @@ function drawLayout(doc: InstanceType<typeof PDFDocument>, d: LayoutDrawing, o: 
 	if (d.start) doc.lineWidth(2).strokeColor(C.moss).circle(...P(d.start), 7).stroke();
 	doc.fillColor(C.sky);
 	for (const s of d.stakes) doc.rect(P(s.at)[0] - 2, P(s.at)[1] - 2, 4, 4).fill();
-	const FONT = { corner: ['bold', 10, C.ink], board: ['bold', 8, C.clay], length: ['regular', 7, C.soft], stake: ['regular', 6, C.sky], high: ['bold', 8, C.moss] } as const;
+	// Sizes from the drawing (LABEL_SIZE), which placed each label clear of the lines at that size.
+	const FONT = { corner: ['bold', C.ink], board: ['bold', C.clay], length: ['regular', C.soft], stake: ['regular', C.sky], high: ['bold', C.moss] } as const;
 	for (const l of d.labels) {
-		const [font, size, color] = FONT[l.kind];
+		const [font, color] = FONT[l.kind];
+		const size = LABEL_SIZE[l.kind];
 		doc.font(font).fontSize(size).fillColor(color);
 		const txt = o.t(l.text);
 		const w = doc.widthOfString(txt);
