@@ -19,12 +19,14 @@ export const formatMb = (n: number) => `${(n / MB).toFixed(n < 10 * MB ? 1 : 0)}
 /** The `accept` attribute of the file input. */
 export const acceptAttr = (rule: UploadRule) => Object.keys(rule.types).join(',');
 
+const orList = new Intl.ListFormat('en', { type: 'disjunction' });
+
 /** "a PDF, a JPEG, a PNG, or a WebP image" */
-export const typeList = (rule: UploadRule) => new Intl.ListFormat('en', { type: 'disjunction' }).format(Object.values(rule.types).map((t) => t[0]));
+export const typeList = (rule: UploadRule) => orList.format(Object.values(rule.types).map((t) => t[0]));
 
 /** "PDF, JPEG, PNG, or WebP", for a hint. */
 export const shortTypeList = (rule: UploadRule) =>
-	new Intl.ListFormat('en', { type: 'disjunction' }).format(Object.values(rule.types).map((t) => t[0].replace(/^an? /, '').replace(/ image$/, '')));
+	orList.format(Object.values(rule.types).map((t) => t[0].replace(/^an? /, '').replace(/ image$/, '')));
 
 /**
  * Why the browser should not send this file, or null. Reads the claimed type and, when the browser

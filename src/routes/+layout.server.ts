@@ -1,4 +1,4 @@
-import { unreadMessageCount } from '$lib/server/leads';
+import { unreadMessageCount } from '$lib/server/messages';
 import type { LayoutServerLoad } from './$types';
 
 export const load = (async ({ locals, depends }) => {

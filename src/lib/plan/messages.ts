@@ -205,7 +205,8 @@ const ITEMS: Record<string, string> = {
 const fromKey = (key: string) => `the ${key.replace(/([a-z])([A-Z])/g, '$1 $2').toLowerCase()}`;
 
 /** A number as a person writes it: 10000 → "10,000", −48 → "−48". */
-export const plainNumber = (x: number) => x.toLocaleString('en-US', { maximumFractionDigits: 3 }).replace('-', '−');
+const plainFormat = new Intl.NumberFormat('en-US', { maximumFractionDigits: 3 });
+export const plainNumber = (x: number) => plainFormat.format(x).replace('-', '−');
 
 /** ", 2–12 in", ", a whole number 1–20", ", at least 4 ft" or " in ft". */
 function range(min: number | null | undefined, max: number | null | undefined, unit: string, whole = false): string {

@@ -4,6 +4,8 @@ import { plainText } from '$lib/plan/text';
 /** The parts of a slab job a contractor can take on; "whole" means all of them. */
 export const serviceKinds = ['layout_forms', 'base_prep', 'pour_finish', 'whole_job'] as const;
 export type ServiceKind = (typeof serviceKinds)[number];
+/** The farthest a contractor may say they travel, in their unit (mi or km); matching relies on it. */
+export const MAX_SERVICE_RADIUS = 250;
 export const serviceLabels: Record<ServiceKind, string> = {
 	layout_forms: 'Layout and forms',
 	base_prep: 'Base preparation',
@@ -65,7 +67,7 @@ export const contractorProfileSchema = z.object({
 	licenceExpiresOn: expiryDate('licence'),
 	insuranceExpiresOn: expiryDate('insurance'),
 	servicePostcode: zipCode,
-	serviceRadius: wholeNumber('Enter how far you travel.', 1, 250),
+	serviceRadius: wholeNumber('Enter how far you travel.', 1, MAX_SERVICE_RADIUS),
 	serviceRadiusUnit: z.enum(distanceUnits, { error: 'Choose miles or kilometres.' })
 });
 export type ContractorProfileInput = z.output<typeof contractorProfileSchema>;

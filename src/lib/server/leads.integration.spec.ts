@@ -5,23 +5,9 @@ import { haversineKm } from '$lib/geo';
 import { client, db } from './db';
 import { mailIdle } from './mail';
 import { bid, contractor, lead, mailOutbox, plan, planPhoto } from './db/schema';
-import {
-	acceptBid,
-	announceRevision,
-	reopenBidding,
-	tellHomeownersOfContractorChange,
-	contractorLead,
-	declineLead,
-	LeadRefused,
-	leadsForPlan,
-	leadPhotoPlan,
-	markLeadSeen,
-	postMessage,
-	saveBid,
-	sendLeads,
-	unreadMessageCount,
-	withdrawBid
-} from './leads';
+import { announceRevision, tellHomeownersOfContractorChange, contractorLead, declineLead, LeadRefused, leadsForPlan, leadPhotoPlan, markLeadSeen, sendLeads } from './leads';
+import { acceptBid, reopenBidding, saveBid, withdrawBid } from './bids';
+import { postMessage, unreadMessageCount } from './messages';
 import { matchContractors, placeOf } from './matching';
 import { deletePlan, PlanHasLeads } from './plans';
 import { createUser } from './users';

@@ -1,76 +1,46 @@
-import { and, asc, count, desc, eq, gt, inArray, ne, sql, type SQL } from 'drizzle-orm';
-import { isExpired, respondBy, type LeadStatus } from '$lib/leads';
+import { and, asc, count, desc, eq, inArray, sql } from 'drizzle-orm';
+import { respondBy, type LeadStatus } from '$lib/leads';
 import type { ContractorStatus } from '$lib/contractor-status';
-import { isOpenLead, leadTarget, openLeadStatuses, statusesMovedBy, threadOpen } from '$lib/lead-status';
+import { isOpenLead, leadTarget, openLeadStatuses, statusesMovedBy } from '$lib/lead-status';
 import { formatDate } from '$lib/components/plan/format';
-import type { BidInput } from '$lib/schemas/leads';
 import type { ServiceKind } from '$lib/schemas/contractor';
 import type { ExistingSurface, Finish, Timeframe } from '$lib/leads';
 import { db } from '$lib/server/db';
-import { bid, contractor, jobContact, lead, leadMessage, plan, planPhoto, user } from '$lib/server/db/schema';
+import { bid, contractor, lead, plan, planPhoto, user } from '$lib/server/db/schema';
 import { queueMail } from './mail';
 import {
-	bidDecisionMail,
-	biddingReopenedMail,
-	bidWithdrawnMail,
 	contractorActiveAgainMail,
 	contractorPausedMail,
 	jobDoneMail,
-	jobReleasedMail,
 	leadExpiredMail,
 	leadsUnansweredMail,
-	newBidMail,
 	requestClosedMail,
 	newerRevisionMail,
-	newLeadMail,
-	newMessageMail
+	newLeadMail
 } from './mail/pro-notices';
 import { matchContractors, placeOf } from './matching';
+import {
+	accountDisabledSql,
+	bidsUrl,
+	homeownerOf,
+	jobContactOf,
+	leadContractors,
+	LeadRefused,
+	leadUrl,
+	lockOpenPlan,
+	lockOwnLead,
+	saveJobContact,
+	step,
+	type Actor,
+	type JobContactInput,
+	type Tx
+} from './lead-shared';
+import { unreadFor } from './messages';
 import { refundLeadCharges } from './billing/accounts'; // billing
 
-/** A step that does not fit the lead's or bid's state; the message says why. */
-export class LeadRefused extends Error {}
-
-type Actor = { id: string; name: string };
-type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
-
-const leadUrl = (origin: string, leadId: string) => `${origin}/pro/leads/${leadId}`;
-const bidsUrl = (origin: string, planId: string) => `${origin}/plans/${planId}/bids`;
-
-/** The job's site address and phone, as the homeowner gave them. */
-export type JobContactInput = { siteAddress: string; phone: string };
-
-async function saveJobContact(tx: Tx, planId: string, c: JobContactInput) {
-	const now = new Date();
-	await tx
-		.insert(jobContact)
-		.values({ planId, ...c, updatedAt: now })
-		.onConflictDoUpdate({ target: jobContact.planId, set: { ...c, updatedAt: now } });
-}
-
-/** The address and phone stored for the plan, for its owner's forms; null when none yet. */
-export async function jobContactOf(planId: string) {
-	const [c] = await db.select({ siteAddress: jobContact.siteAddress, phone: jobContact.phone }).from(jobContact).where(eq(jobContact.planId, planId));
-	return c ?? null;
-}
-
-/** Refuses `action` on a lead the table does not allow it for, with the reason in words. */
-function step(status: LeadStatus, action: Parameters<typeof leadTarget>[1], refusal: string): LeadStatus {
-	const to = leadTarget(status, action);
-	if (!to) throw new LeadRefused(refusal);
-	return to;
-}
-
-const today = () => new Date().toISOString().slice(0, 10);
-/** SQL: the contractor's licence and insurance dates have not passed (a missing date is not an expired one). */
-const credentialsCurrentSql = (day: string) =>
-	sql`(coalesce(${contractor.licenceExpiresOn}, 'infinity'::date) >= ${day}::date and coalesce(${contractor.insuranceExpiresOn}, 'infinity'::date) >= ${day}::date)`;
-
-/** Name and e-mail of each lead's contractor, with the lead's town, in one query. */
-const leadContractors = (tx: Tx, leadIds: string[]) =>
-	leadIds.length
-		? tx.select({ leadId: lead.id, town: lead.town, name: user.name, email: user.email }).from(lead).innerJoin(user, eq(user.id, lead.contractorId)).where(inArray(lead.id, leadIds))
-		: Promise.resolve([]);
+// Leads: sending a plan to contractors, the inbox, closing and expiring. Bids are in bids.ts,
+// threads and unread counts in messages.ts.
+export { jobContactOf, LeadRefused, type JobContactInput };
 
 /**
  * Sends the plan to the chosen contractors. Each lead freezes the plan's current revision and a
@@ -152,23 +122,6 @@ export async function announceRevision(owner: Actor, planId: string, origin: str
 	return out;
 }
 
-/** The owner's plan, locked against a concurrent accept; refused once a bid is accepted. */
-async function lockOpenPlan(tx: Tx, ownerId: string, planId: string) {
-	const [p] = await tx.select().from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
-	if (!p) return null;
-	const [accepted] = await tx.select({ id: bid.id }).from(bid).where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
-	if (accepted) throw new LeadRefused('You accepted a bid for this plan already.');
-	const [done] = await tx.select({ id: lead.id }).from(lead).where(and(eq(lead.planId, planId), eq(lead.status, 'done')));
-	if (done) throw new LeadRefused('You marked the job for this plan done.');
-	return p;
-}
-
-/** Messages in `leadId`'s thread the viewer has not read: sent by the other side after the viewer last looked. */
-const unreadFor = (side: 'homeowner' | 'contractor') =>
-	sql<number>`(select count(*)::int from ${leadMessage} m where m.lead_id = ${lead.id}
-		and m.sender_id <> ${side === 'homeowner' ? lead.homeownerId : lead.contractorId}
-		and m.created_at > coalesce(${side === 'homeowner' ? lead.homeownerReadAt : lead.contractorReadAt}, 'epoch'))`;
-
 /** The homeowner's view of a plan's leads: each contractor's public profile, bid and unread count. */
 export async function leadsForPlan(planId: string) {
 	return db
@@ -188,7 +141,7 @@ export async function leadsForPlan(planId: string) {
 				businessName: contractor.businessName,
 				yearsInTrade: contractor.yearsInTrade,
 				// An account an admin disabled reads as suspended, as its homeowners were told by e-mail.
-				status: sql<ContractorStatus>`case when exists (select 1 from ${user} where ${user.id} = ${contractor.userId} and ${user.disabledAt} is not null) then 'suspended' else ${contractor.status} end`
+				status: sql<ContractorStatus>`case when ${accountDisabledSql(contractor.userId)} then 'suspended' else ${contractor.status} end`
 			},
 			bid,
 			unread: unreadFor('homeowner')
@@ -198,53 +151,6 @@ export async function leadsForPlan(planId: string) {
 		.leftJoin(bid, eq(bid.leadId, lead.id))
 		.where(eq(lead.planId, planId))
 		.orderBy(asc(lead.distanceKm));
-}
-
-/**
- * Accepts one bid in one transaction. The plan row is locked first, so two accepts for the same
- * plan run one after the other and the second finds the first's accepted bid and is refused.
- * Every other open bid becomes not selected and the leads follow.
- */
-export async function acceptBid(ownerId: string, planId: string, bidId: string, origin: string, contact: JobContactInput) {
-	const out = await db.transaction(async (tx) => {
-		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
-		if (!p) return null;
-		const [b] = await tx.select().from(bid).where(and(eq(bid.id, bidId), eq(bid.planId, planId)));
-		if (!b) return null;
-		const [already] = await tx.select({ id: bid.id }).from(bid).where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
-		if (already) throw new LeadRefused('You accepted a bid for this plan already.');
-		if (b.status !== 'open') throw new LeadRefused('This bid is no longer open.');
-		if (isExpired(b.validUntil)) throw new LeadRefused(`This bid was valid until ${b.validUntil}; ask the contractor to renew it.`);
-		const [won] = await tx.select({ status: lead.status }).from(lead).where(eq(lead.id, b.leadId)).for('update');
-		const wonTo = step(won.status, 'accept', 'This request is no longer open.');
-		// A contractor sent back to review, suspended or with an expired licence or insurance since bidding cannot be hired through Stakeline.
-		const [c] = await tx
-			.select({ status: contractor.status, current: credentialsCurrentSql(today()), disabledAt: user.disabledAt })
-			.from(contractor)
-			.innerJoin(user, eq(user.id, contractor.userId))
-			.where(eq(contractor.userId, b.contractorId));
-		if (c?.status !== 'approved' || c.disabledAt) throw new LeadRefused('This contractor is not approved at the moment, so the bid cannot be accepted.');
-		if (!c.current) throw new LeadRefused('This contractor’s licence or insurance has expired, so the bid cannot be accepted until they renew it.');
-		await saveJobContact(tx, planId, contact);
-		const now = new Date();
-		await tx.update(bid).set({ status: 'accepted', updatedAt: now }).where(eq(bid.id, b.id));
-		await tx.update(bid).set({ status: 'not_selected', updatedAt: now }).where(and(eq(bid.planId, planId), eq(bid.status, 'open'), ne(bid.id, b.id)));
-		await tx.update(lead).set({ status: wonTo, updatedAt: now }).where(eq(lead.id, b.leadId));
-		// Only the leads the table moves (the open ones); declined, withdrawn and expired ones stay as they are.
-		const others = await tx
-			.update(lead)
-			.set({ status: 'not_selected', updatedAt: now })
-			.where(and(eq(lead.planId, planId), ne(lead.id, b.leadId), inArray(lead.status, statusesMovedBy('accept_other', openLeadStatuses))))
-			.returning({ id: lead.id });
-		// A firm that never bid is told another firm was hired, not that a bid of theirs lost.
-		const bidOn = new Set((await tx.select({ leadId: bid.leadId }).from(bid).where(eq(bid.planId, planId))).map((r) => r.leadId));
-		for (const to of await leadContractors(tx, [b.leadId, ...others.map((o) => o.id)])) {
-			const outcome = to.leadId === b.leadId ? 'won' : bidOn.has(to.leadId) ? 'not_selected' : 'hired_other';
-			await queueMail(to.email, bidDecisionMail(to.name, outcome, to.town ?? 'you', leadUrl(origin, to.leadId)), tx);
-		}
-		return true;
-	});
-	return !!out;
 }
 
 /** The contractor's inbox: their leads only, optionally of one status, newest first. */
@@ -306,70 +212,6 @@ export async function markLeadReadByHomeowner(homeownerId: string, leadId: strin
 	await db.update(lead).set({ homeownerReadAt: new Date() }).where(and(eq(lead.id, leadId), eq(lead.homeownerId, homeownerId)));
 }
 
-/**
- * Locks the contractor's lead for a change. The plan is taken FOR KEY SHARE, which waits for an
- * accept in progress (FOR UPDATE) but not for the homeowner's ordinary plan saves.
- */
-async function lockOwnLead(tx: Tx, contractorId: string, leadId: string) {
-	const [l] = await tx.select().from(lead).where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
-	if (!l) return null;
-	await tx.select({ id: plan.id }).from(plan).where(eq(plan.id, l.planId)).for('key share');
-	const [fresh] = await tx.select().from(lead).where(eq(lead.id, leadId)).for('update');
-	const [b] = await tx.select().from(bid).where(eq(bid.leadId, leadId));
-	return { lead: fresh, bid: b ?? null };
-}
-
-async function requireApproved(tx: Tx, contractorId: string) {
-	const [c] = await tx
-		.select({ status: contractor.status, businessName: contractor.businessName, current: credentialsCurrentSql(today()) })
-		.from(contractor)
-		.where(eq(contractor.userId, contractorId));
-	if (c?.status !== 'approved') throw new LeadRefused('Only approved contractors can bid.');
-	if (!c.current) throw new LeadRefused('Your licence or insurance has expired: renew it on your profile before you bid.');
-	return c;
-}
-
-/** Creates or edits the contractor's bid; refused once the lead is closed or the bid expired. */
-export async function saveBid(contractorId: string, leadId: string, input: BidInput, origin: string) {
-	const out = await db.transaction(async (tx) => {
-		const c = await requireApproved(tx, contractorId);
-		const locked = await lockOwnLead(tx, contractorId, leadId);
-		if (!locked) return false;
-		const to = step(locked.lead.status, 'bid', 'This lead is closed; the bid cannot change.');
-		if (locked.lead.status !== 'bid_sent' && locked.lead.respondBy && locked.lead.respondBy < today())
-			throw new LeadRefused(`The respond-by date, ${formatDate(locked.lead.respondBy)}, has passed: this lead is closed.`);
-		if (locked.bid && locked.bid.status !== 'open') throw new LeadRefused('This bid is no longer open.');
-		if (locked.bid && isExpired(locked.bid.validUntil)) throw new LeadRefused('This bid has expired; it can no longer be changed.');
-		const now = new Date();
-		if (locked.bid) await tx.update(bid).set({ ...input, updatedAt: now }).where(eq(bid.id, locked.bid.id));
-		else await tx.insert(bid).values({ ...input, leadId, planId: locked.lead.planId, contractorId });
-		await tx.update(lead).set({ status: to, updatedAt: now }).where(eq(lead.id, leadId));
-		const home = await homeownerOf(tx, locked.lead.homeownerId);
-		await queueMail(home.email, newBidMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, !!locked.bid, bidsUrl(origin, locked.lead.planId)), tx);
-		return true;
-	});
-	return out;
-}
-
-const homeownerOf = async (tx: Tx, id: string) => (await tx.select({ name: user.name, email: user.email }).from(user).where(eq(user.id, id)))[0];
-
-/** Withdraws the open bid for good (it cannot be sent again) and tells the homeowner. */
-export async function withdrawBid(contractorId: string, leadId: string, origin = '') {
-	const out = await db.transaction(async (tx) => {
-		const c = await requireApproved(tx, contractorId);
-		const locked = await lockOwnLead(tx, contractorId, leadId);
-		if (!locked) return false;
-		if (locked.bid?.status !== 'open') throw new LeadRefused('There is no open bid to withdraw.');
-		const to = step(locked.lead.status, 'withdraw', 'There is no open bid to withdraw.');
-		await tx.update(bid).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(bid.id, locked.bid.id));
-		await tx.update(lead).set({ status: to, updatedAt: new Date() }).where(eq(lead.id, leadId));
-		const home = await homeownerOf(tx, locked.lead.homeownerId);
-		await queueMail(home.email, bidWithdrawnMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, bidsUrl(origin, locked.lead.planId)), tx);
-		return true;
-	});
-	return out;
-}
-
 /** Declining also withdraws an open bid; the homeowner sees the reason. */
 export async function declineLead(contractorId: string, leadId: string, reason: string) {
 	return db.transaction(async (tx) => {
@@ -400,127 +242,6 @@ export async function tellHomeownersOfContractorChange(tx: Tx, contractorId: str
 		await queueMail(r.email, mail, tx);
 	}
 	return rows.length;
-}
-
-/**
- * The homeowner's way out of an accepted job whose contractor Stakeline suspended or sent back:
- * the accepted bid is released (not "withdrawn": the contractor did not withdraw), the bids that
- * were not selected and are still valid are open again, and every contractor concerned is told.
- */
-export async function reopenBidding(ownerId: string, planId: string, origin: string) {
-	const out = await db.transaction(async (tx) => {
-		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
-		if (!p) return null;
-		const [won] = await tx
-			.select({ bidId: bid.id, leadId: bid.leadId, status: contractor.status })
-			.from(bid)
-			.innerJoin(contractor, eq(contractor.userId, bid.contractorId))
-			.where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
-		if (!won) throw new LeadRefused('There is no accepted bid to release.');
-		if (won.status === 'approved') throw new LeadRefused('The contractor you hired is in good standing; talk to them in the messages first.');
-		const now = new Date();
-		await tx.update(bid).set({ status: 'released', updatedAt: now }).where(eq(bid.id, won.bidId));
-		await tx.update(lead).set({ status: step('won', 'release', 'There is no accepted bid to release.'), updatedAt: now }).where(eq(lead.id, won.leadId));
-		const today = new Date().toISOString().slice(0, 10);
-		const reopened = await tx
-			.update(bid)
-			.set({ status: 'open', updatedAt: now })
-			.where(and(eq(bid.planId, planId), eq(bid.status, 'not_selected'), sql`${bid.validUntil} >= ${today}`))
-			.returning({ leadId: bid.leadId });
-		// The table's reopen step: a not-selected lead with a still-valid bid is bid_sent again.
-		if (reopened.length) await tx.update(lead).set({ status: leadTarget('not_selected', 'reopen')!, updatedAt: now }).where(inArray(lead.id, reopened.map((r) => r.leadId)));
-		for (const to of await leadContractors(tx, [won.leadId, ...reopened.map((r) => r.leadId)])) {
-			const url = leadUrl(origin, to.leadId);
-			await queueMail(to.email, to.leadId === won.leadId ? jobReleasedMail(to.name, to.town ?? 'you', url) : biddingReopenedMail(to.name, to.town ?? 'you', url), tx);
-		}
-		return { reopened: reopened.length };
-	});
-	return out;
-}
-
-export async function threadOf(leadId: string) {
-	return db.select().from(leadMessage).where(eq(leadMessage.leadId, leadId)).orderBy(asc(leadMessage.createdAt), asc(leadMessage.id));
-}
-
-/** Who can still write in a lead's thread: open leads, and the hired contractor's. */
-export const canWriteThread = threadOpen;
-
-/** Posts to a lead's thread when `sender` is one of its two sides, and tells the other side by e-mail. */
-export async function postMessage(sender: Actor & { role: string }, leadId: string, body: string, origin: string) {
-	const side: SQL | undefined =
-		sender.role === 'homeowner' ? eq(lead.homeownerId, sender.id) : sender.role === 'contractor' ? eq(lead.contractorId, sender.id) : undefined;
-	if (!side) return false;
-	const homeowner = sender.role === 'homeowner';
-	const out = await db.transaction(async (tx) => {
-		// The lead, the other side's address and the contractor's business name in one query.
-		const [l] = await tx
-			.select({ lead, business: contractor.businessName, toName: user.name, toEmail: user.email })
-			.from(lead)
-			.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
-			.innerJoin(user, eq(user.id, homeowner ? lead.contractorId : lead.homeownerId))
-			.where(and(eq(lead.id, leadId), side));
-		if (!l) return false;
-		// Threads of a closed lead stay readable; only the open ones (and the hired contractor's) take new messages.
-		if (!canWriteThread(l.lead.status)) throw new LeadRefused('This thread is closed: the lead is no longer open.');
-		const now = new Date();
-		await tx.insert(leadMessage).values({ leadId, senderId: sender.id, body, createdAt: now });
-		// Writing in a thread means having read it.
-		await tx
-			.update(lead)
-			.set(homeowner ? { homeownerReadAt: now } : { contractorReadAt: now })
-			.where(eq(lead.id, leadId));
-		const mail = homeowner
-			? newMessageMail(l.toName, `the homeowner near ${l.lead.town ?? 'you'}`, leadUrl(origin, leadId))
-			: newMessageMail(l.toName, l.business ?? sender.name, `${bidsUrl(origin, l.lead.planId)}/${leadId}`);
-		await queueMail(l.toEmail, mail, tx);
-		return true;
-	});
-	return out;
-}
-
-/** Unread messages across all of a user's threads, for the navigation. */
-export async function unreadMessageCount(u: { id: string; role: string }) {
-	if (u.role !== 'homeowner' && u.role !== 'contractor') return 0;
-	if (u.role === 'contractor') {
-		// Contractors who are not approved cannot open their threads, so nothing counts as waiting.
-		const [c] = await db.select({ status: contractor.status }).from(contractor).where(eq(contractor.userId, u.id));
-		if (c?.status !== 'approved') return 0;
-	}
-	const mine = u.role === 'homeowner' ? eq(lead.homeownerId, u.id) : eq(lead.contractorId, u.id);
-	const readAt = u.role === 'homeowner' ? lead.homeownerReadAt : sql`coalesce(${lead.contractorReadAt}, 'epoch')`;
-	const [{ n }] = await db
-		.select({ n: count() })
-		.from(leadMessage)
-		.innerJoin(lead, eq(lead.id, leadMessage.leadId))
-		.where(and(mine, ne(leadMessage.senderId, u.id), gt(leadMessage.createdAt, readAt)));
-	return n;
-}
-
-
-/**
- * Every thread of a homeowner or an approved contractor, with unread counts, newest activity first.
- * Contractors see the town only, as on their leads.
- */
-export async function threadsOf(u: { id: string; role: string }) {
-	const side = u.role === 'homeowner' ? 'homeowner' : 'contractor';
-	if (side === 'contractor') {
-		const [c] = await db.select({ status: contractor.status }).from(contractor).where(eq(contractor.userId, u.id));
-		if (c?.status !== 'approved') return [];
-	}
-	const last = sql<Date | null>`(select max(m.created_at) from ${leadMessage} m where m.lead_id = ${lead.id})`;
-	return db
-		.select({
-			leadId: lead.id,
-			planId: lead.planId,
-			planName: sql<string>`${lead.snapshot}->>'name'`,
-			with: side === 'homeowner' ? sql<string>`coalesce(${contractor.businessName}, 'Contractor')` : sql<string>`coalesce(${lead.town}, 'Homeowner')`,
-			unread: unreadFor(side),
-			last
-		})
-		.from(lead)
-		.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
-		.where(and(side === 'homeowner' ? eq(lead.homeownerId, u.id) : eq(lead.contractorId, u.id), sql`${last} is not null`))
-		.orderBy(desc(last));
 }
 
 /** The plan of `leadId` when `photoId` was among its photos as sent to `contractorId`; else null. */

@@ -58,6 +58,15 @@ export async function findOwnPlan(id: string, ownerId: string): Promise<Plan | u
 	return found;
 }
 
+/** The plan's name and revision without its input and result, only when it belongs to ownerId. */
+export async function findOwnPlanHeader(id: string, ownerId: string) {
+	const [found] = await db
+		.select({ id: plan.id, name: plan.name, postcode: plan.postcode, revision: plan.revision, createdAt: plan.createdAt, updatedAt: plan.updatedAt })
+		.from(plan)
+		.where(and(eq(plan.id, id), eq(plan.ownerId, ownerId)));
+	return found ? { ...found, postcode: found.postcode ?? '' } : undefined;
+}
+
 /** `conn` lets a caller create the plan inside its own transaction (the idempotent API create). */
 export async function createPlan(ownerId: string, data: { name: string; postcode?: string; input: unknown }, conn: Pick<Db, 'insert'> = db): Promise<Plan> {
 	const result = compute(data.input);

@@ -8,7 +8,8 @@ import { client, db } from './db';
 import { mailIdle } from './mail';
 import { bid, contractor, credentialReminder, lead, mailOutbox, plan, user } from './db/schema';
 import { sweep, sweepContractor } from './credentials';
-import { acceptBid, closeRequest, completeJob, contractorLead, expireLeadsNow, LeadRefused, saveBid, sendLeads } from './leads';
+import { closeRequest, completeJob, contractorLead, expireLeadsNow, LeadRefused, sendLeads } from './leads';
+import { acceptBid, saveBid } from './bids';
 import { matchContractors, placeOf } from './matching';
 import { createUser } from './users';
 

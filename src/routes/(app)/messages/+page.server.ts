@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { requireUser } from '$lib/server/guards';
-import { threadsOf } from '$lib/server/leads';
+import { threadsOf } from '$lib/server/messages';
 import type { PageServerLoad } from './$types';
 
 export const load = (async (event) => {

@@ -6,21 +6,26 @@ import { roles, type Role } from '../../../roles';
 export { roles, type Role };
 export const roleEnum = pgEnum('role', roles);
 
-export const user = pgTable('user', {
-	id: uuid('id').primaryKey().defaultRandom(),
-	// Stored lower-cased; the unique index is what stops a second sign-up with the same address.
-	email: text('email').notNull().unique(),
-	name: text('name').notNull(),
-	role: roleEnum('role').notNull(),
-	passwordHash: text('password_hash').notNull(),
-	emailVerifiedAt: timestamp('email_verified_at', { withTimezone: true }),
-	/** Set by an admin: the account cannot sign in and its sessions are gone. */
-	disabledAt: timestamp('disabled_at', { withTimezone: true }),
-	disabledReason: text('disabled_reason'),
-	/** Mail kinds (src/lib/mail-kinds.ts) this person turned off; kinds added later start on. */
-	mailOptOut: text('mail_opt_out').array().notNull().default(sql`'{}'`),
-	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
-});
+export const user = pgTable(
+	'user',
+	{
+		id: uuid('id').primaryKey().defaultRandom(),
+		// Stored lower-cased; the unique index is what stops a second sign-up with the same address.
+		email: text('email').notNull().unique(),
+		name: text('name').notNull(),
+		role: roleEnum('role').notNull(),
+		passwordHash: text('password_hash').notNull(),
+		emailVerifiedAt: timestamp('email_verified_at', { withTimezone: true }),
+		/** Set by an admin: the account cannot sign in and its sessions are gone. */
+		disabledAt: timestamp('disabled_at', { withTimezone: true }),
+		disabledReason: text('disabled_reason'),
+		/** Mail kinds (src/lib/mail-kinds.ts) this person turned off; kinds added later start on. */
+		mailOptOut: text('mail_opt_out').array().notNull().default(sql`'{}'`),
+		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	// Few accounts are disabled: "is this account disabled" (matching, bids) reads this small index.
+	(t) => [index('user_disabled_idx').on(t.id).where(sql`${t.disabledAt} is not null`)]
+);
 
 export const session = pgTable(
 	'session',

@@ -49,7 +49,11 @@ export const contractor = pgTable(
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
 	},
-	(t) => [index('contractor_status_idx').on(t.status, t.reviewRequestedAt)]
+	(t) => [
+		index('contractor_status_idx').on(t.status, t.reviewRequestedAt),
+		// Matching reads approved contractors within a band of latitude (matching.ts).
+		index('contractor_approved_lat_idx').on(t.serviceLat).where(sql`${t.status} = 'approved'`)
+	]
 );
 
 /**

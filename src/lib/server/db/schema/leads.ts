@@ -53,7 +53,12 @@ export const lead = pgTable(
 		sentAt: timestamp('sent_at', { withTimezone: true }).notNull().defaultNow(),
 		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
 	},
-	(t) => [unique('lead_plan_contractor_uq').on(t.planId, t.contractorId), index('lead_contractor_idx').on(t.contractorId, t.sentAt)]
+	(t) => [
+		unique('lead_plan_contractor_uq').on(t.planId, t.contractorId),
+		index('lead_contractor_idx').on(t.contractorId, t.sentAt),
+		// The homeowner's unread count on every signed-in page, and their threads.
+		index('lead_homeowner_idx').on(t.homeownerId)
+	]
 );
 
 /**

@@ -1,4 +1,4 @@
-import { fail } from '@sveltejs/kit';
+import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { currentResult } from '$lib/components/plan/currentResult';
 import { readerLocale } from '$lib/components/plan/format';
@@ -6,20 +6,21 @@ import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';
 import { curingReminderStatus, setCuringReminders } from '$lib/server/reminders';
+import type { PlanResult } from '$lib/plan';
 import type { Actions, PageServerLoad } from './$types';
 
-export const load = (async ({ parent, request, locals }) => {
-	// The layout found the plan among the user's own; only then are its photos listed.
-	const { plan } = await parent();
-	const photos = (await listPhotos(plan.id)).map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height }));
-	const reminders = await curingReminderStatus(plan.id, locals.user!.id);
+export const load = (async (event) => {
+	const me = requireRole(event, 'homeowner');
+	// The plan and its photos at once; the photos are returned only when the plan is the user's own.
+	const [found, photos] = await Promise.all([findOwnPlan(event.params.id, me.id), listPhotos(event.params.id)]);
+	if (!found) error(404, 'No such plan.');
 	return {
-		photos,
+		photos: photos.map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height })),
 		maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024,
-		result: currentResult(plan.input, plan.result),
-		locale: readerLocale(request.headers.get('accept-language')),
-		reminders,
-		readerTimeZone: locals.reader.timeZone
+		result: currentResult(found.input, found.result as PlanResult),
+		locale: readerLocale(event.request.headers.get('accept-language')),
+		reminders: await curingReminderStatus(found.id, me.id),
+		readerTimeZone: event.locals.reader.timeZone
 	};
 }) satisfies PageServerLoad;
 

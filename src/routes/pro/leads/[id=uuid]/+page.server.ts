@@ -7,7 +7,9 @@ import { contractorDistanceUnit, requireApprovedContractor } from '$lib/server/c
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
 import { readerLocale } from '$lib/components/plan/format';
-import { contractorLead, declineLead, expireLeadsNow, LeadRefused, markLeadSeen, postMessage, saveBid, threadOf, withdrawBid } from '$lib/server/leads';
+import { contractorLead, declineLead, expireLeadsNow, LeadRefused, markLeadSeen } from '$lib/server/leads';
+import { saveBid, withdrawBid } from '$lib/server/bids';
+import { postMessage, threadOf } from '$lib/server/messages';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {

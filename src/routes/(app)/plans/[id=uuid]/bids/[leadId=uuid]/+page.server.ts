@@ -5,7 +5,8 @@ import { db } from '$lib/server/db';
 import { bid, contractor, lead } from '$lib/server/db/schema';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
-import { canWriteThread, LeadRefused, markLeadReadByHomeowner, postMessage, threadOf } from '$lib/server/leads';
+import { LeadRefused, markLeadReadByHomeowner } from '$lib/server/leads';
+import { canWriteThread, postMessage, threadOf } from '$lib/server/messages';
 import { isUuid } from '$lib/uuid';
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
