@@ -101,6 +101,15 @@ try {
 			const [{ id: userId }] = rows.length ? rows : await tx`SELECT id FROM "user" WHERE email = ${u.email.toLowerCase()}`;
 			if (rows.length) added++;
 			if (rows.length && u.contractor) await seedContractor(tx, userId, u.contractor);
+			// The approved demo firms have a running plan and 50 lead credits (granted in the demo, no payment
+			// provider record), so the demo and the test journeys that use them open their leads; a contractor
+			// who cancels it in the demo keeps that choice on later runs.
+			if (u.contractor?.status === 'approved')
+				await tx`
+					INSERT INTO billing_account (contractor_id, status, period_start, period_end, credits)
+					SELECT ${userId}, 'active', now(), now() + interval '30 days', 50
+					WHERE EXISTS (SELECT 1 FROM contractor WHERE user_id = ${userId})
+					ON CONFLICT (contractor_id) DO NOTHING`;
 			for (const planId of u.plans ?? []) {
 				const p = demoPlans.find((d) => d.id === planId);
 				if (!p) throw new Error(`fixtures/demo.json names an unknown demo plan ${planId}`);

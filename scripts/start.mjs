@@ -25,6 +25,10 @@ if (!(await portFree(s.host, s.port))) fail(`Port ${s.port} on ${s.host} is in u
 const env = { ...process.env, ...s.env };
 const children = [];
 if (s.useFakeMail) children.push(background(node, [path.join(root, 'scripts', 'mail-fake.mjs')], { env }));
+if (s.useFakePayments) {
+	if (!(await portFree('127.0.0.1', s.paymentsPort))) fail(`Port ${s.paymentsPort} (the fake payment provider) is in use; stop what uses it or set PAYMENTS_FAKE_PORT.`);
+	children.push(background(node, [path.join(root, 'scripts', 'payments-fake.mjs')], { env }));
+}
 const app = dev
 	? background(bin('vite'), ['dev', '--host', s.host, '--port', String(s.port), '--strictPort'], { env, cwd: root })
 	: background(node, [path.join(root, 'build')], { env, cwd: root });
@@ -51,6 +55,7 @@ log(`Stakeline is ready after ${((Date.now() - started) / 1000).toFixed(1)} s: $
 console.log(`\n  Demo sign-ins (password for all: ${demo.password})`);
 for (const u of demo.users) console.log(`    ${u.role.padEnd(10)} ${u.email.padEnd(34)} ${u.note ?? ''}`);
 if (s.useFakeMail) console.log(`\n  Mail sent by the app: ${s.env.ORIGIN}/dev/mailbox`);
+if (s.useFakePayments) console.log(`  Fake payment provider (nothing is charged): http://127.0.0.1:${s.paymentsPort}/_fake`);
 console.log('  Stop with Ctrl-C; the database keeps running (npm run db:stop stops it).\n');
 
 async function waitForHealth(url) {

@@ -3,6 +3,7 @@
 // Debian's Chromium. Exits non-zero on the first failure.
 // `npm test -- FILE...` runs the same set-up and type check, then only the named files: *.e2e.ts with
 // Playwright (after a build), the rest with Vitest.
+import fs from 'node:fs';
 import path from 'node:path';
 import { root, settings } from './lib/settings.mjs';
 import { background, log, run } from './lib/run.mjs';
@@ -29,6 +30,11 @@ try {
 	seed(s.env);
 	const env = { ...process.env, ...s.env, CHROMIUM_PATH: chromiumPath() };
 	if (s.useFakeMail) background(node, [path.join(root, 'scripts', 'mail-fake.mjs')], { env });
+	if (s.useFakePayments) {
+		// A fresh test database: the fake starts empty too.
+		fs.rmSync(s.env.PAYMENTS_FAKE_STATE, { force: true });
+		background(node, [path.join(root, 'scripts', 'payments-fake.mjs')], { env });
+	}
 	const opts = { cwd: root, env };
 	step('Type check (svelte-check)', () => {
 		run(bin('svelte-kit'), ['sync'], opts);

@@ -64,6 +64,7 @@ export async function setUpMatrix(newContext: () => Promise<APIRequestContext>, 
 				INSERT INTO contractor_document (contractor_id, kind, storage_key, content_type, bytes, original_name)
 				VALUES (${u.id}, 'licence', ${key}, 'application/pdf', ${bytes.length}, 'licence.pdf') RETURNING id`;
 			doc[c] = d.id;
+			if (status[c] === 'approved' || c === 'suspended') await db`INSERT INTO billing_account (contractor_id, status, period_start, period_end) VALUES (${u.id}, 'active', now(), now() + interval '30 days')`;
 		}
 		const [admin] = await db`SELECT id FROM "user" WHERE email = ${demoUser('admin').email}`;
 		userId.admin = admin.id;

@@ -168,6 +168,17 @@ const matrix: Record<string, Row[]> = {
 		r('/pro/leads/{leadA}/photos/{photoA}', x(303, 403, 403, 403, 200, 404, 403, 403)),
 		r('/pro/leads/{leadA}/photos/{photoB}', x(303, 403, 403, 403, 404, 404, 403, 403))
 	],
+	// Billing: any contractor sees the page; paying is for approved ones. withLead and noLead have a running
+	// plan with no provider record, so a second plan, a card update or a cancel is refused (409); a lead pack
+	// opens a checkout on the fake payment provider (200 with its page).
+	'GET /pro/billing': [r('/pro/billing', x(303, 403, 403, 200, 200, 200, 200, 403))],
+	'POST /pro/billing?/subscribe': [r('/pro/billing?/subscribe', x(303, 403, 403, 403, 409, 409, 403, 403), { form: {} })],
+	'POST /pro/billing?/buyPack': [r('/pro/billing?/buyPack', x(303, 403, 403, 403, 200, 200, 403, 403), { form: {} })],
+	'POST /pro/billing?/updateCard': [r('/pro/billing?/updateCard', x(303, 403, 403, 403, 409, 409, 403, 403), { form: {} })],
+	'POST /pro/billing?/cancel': [r('/pro/billing?/cancel', x(303, 403, 403, 403, 409, 409, 403, 403), { form: {} })],
+	'POST /pro/billing?/resume': [r('/pro/billing?/resume', x(303, 403, 403, 403, 409, 409, 403, 403), { form: {} })],
+	// The payment provider's events: no session counts, only the signature; an unsigned body is refused.
+	'POST /api/webhooks/payments': [r('/api/webhooks/payments', x(400, 400, 400, 400, 400, 400, 400, 400), { json: {} })],
 	'GET /contractor-documents/[id]': [
 		r('/contractor-documents/{doc.withLead}', x(303, 403, 403, 404, 200, 404, 404, 200)),
 		r('/contractor-documents/{doc.pending}', x(303, 403, 403, 200, 404, 404, 404, 200)),

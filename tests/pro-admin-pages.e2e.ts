@@ -37,13 +37,13 @@ test('every pro and admin page, and the bids pages, are axe-clean and fit a 390 
 
 	await signIn(page, demoUser('contractor').email, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
-	for (const path of ['/pro', '/pro/profile', '/pro/leads', `/pro/leads/${leadId}`, '/messages', '/account']) await checkPage(page, path, found);
+	for (const path of ['/pro', '/pro/profile', '/pro/leads', `/pro/leads/${leadId}`, '/pro/billing', '/messages', '/account']) await checkPage(page, path, found);
 	await signOut(page);
 
 	// A contractor still awaiting review sees other states of the same pages.
 	await signIn(page, 'sam@mossgateforms.example', demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
-	for (const path of ['/pro', '/pro/profile']) await checkPage(page, path, found);
+	for (const path of ['/pro', '/pro/profile', '/pro/billing']) await checkPage(page, path, found);
 	await signOut(page);
 
 	await signIn(page, demoUser('admin').email, demoPassword);

@@ -5,6 +5,7 @@ import postgres from 'postgres';
 import sharp from 'sharp';
 import demoPlans from '../fixtures/demo-plans.json' with { type: 'json' };
 import { computePlan, type PlanResult } from '../src/lib/plan/index';
+import { grantActivePlan } from './billing-helpers';
 import { demoPassword, demoUser, signIn, signOut, signUp } from './helpers';
 
 export const pdf = (label: string) => ({
@@ -44,7 +45,7 @@ export async function fillProfile(
 }
 
 /** A new contractor, onboarded with both documents and approved by the demo admin; ends signed out. */
-export async function approvedNewContractor(page: Page, o: { name: string; email: string; password: string; business: string; zip: string }) {
+export async function approvedNewContractor(page: Page, o: { name: string; email: string; password: string; business: string; zip: string; plan?: boolean }) {
 	await signUp(page, { name: o.name, email: o.email, password: o.password, role: 'contractor' });
 	await expect(page).toHaveURL(/\/pro$/);
 	await page.goto('/pro/profile');
@@ -60,6 +61,8 @@ export async function approvedNewContractor(page: Page, o: { name: string; email
 	await page.getByRole('button', { name: 'Approve' }).click();
 	await expect(page.getByTestId('contractor-status')).toHaveText('Approved');
 	await signOut(page);
+	// A running plan, so lead tests open lead details (tests/billing.e2e.ts starts without one and pays for it).
+	if (o.plan !== false) await grantActivePlan({ email: o.email });
 }
 
 /**

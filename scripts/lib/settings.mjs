@@ -19,6 +19,9 @@ export function settings(profile) {
 	const host = e.HOST ?? '127.0.0.1';
 	const mailPort = Number(e.MAIL_FAKE_PORT ?? (test ? 2527 : 2526));
 	const useFakeMail = !e.SMTP_URL;
+	// The payment provider: the local fake unless a real secret key is set.
+	const paymentsPort = Number(e.PAYMENTS_FAKE_PORT ?? (test ? 2627 : 2626));
+	const useFakePayments = !e.PAYMENTS_SECRET_KEY;
 	return {
 		profile,
 		pgPort,
@@ -30,6 +33,8 @@ export function settings(profile) {
 		host,
 		mailPort,
 		useFakeMail,
+		paymentsPort,
+		useFakePayments,
 		env: {
 			DATABASE_URL:
 				e.DATABASE_URL ??
@@ -44,7 +49,21 @@ export function settings(profile) {
 			// adapter-node refuses bodies over 512 kB by default; site photos and the two licence and
 			// insurance documents are larger. Each upload checks its own limit with a clear message.
 			BODY_SIZE_LIMIT: e.BODY_SIZE_LIMIT ?? '16M',
-			UPLOAD_DIR: e.UPLOAD_DIR ?? path.join(root, '.data', test ? 'uploads-test' : 'uploads')
+			UPLOAD_DIR: e.UPLOAD_DIR ?? path.join(root, '.data', test ? 'uploads-test' : 'uploads'),
+			// The SDK reaches the provider at PAYMENTS_API_* (the fake on loopback unless a real key is set).
+			PAYMENTS_FAKE: useFakePayments ? '1' : '0',
+			PAYMENTS_SECRET_KEY: e.PAYMENTS_SECRET_KEY ?? 'sk_test_stakeline_fake',
+			PAYMENTS_WEBHOOK_SECRET: e.PAYMENTS_WEBHOOK_SECRET ?? (useFakePayments ? 'whsec_stakeline_fake' : ''),
+			...(useFakePayments
+				? {
+						PAYMENTS_API_HOST: '127.0.0.1',
+						PAYMENTS_API_PORT: String(paymentsPort),
+						PAYMENTS_API_PROTOCOL: 'http',
+						PAYMENTS_FAKE_PORT: String(paymentsPort),
+						PAYMENTS_WEBHOOK_URL: e.PAYMENTS_WEBHOOK_URL ?? `http://127.0.0.1:${port}/api/webhooks/payments`,
+						PAYMENTS_FAKE_STATE: e.PAYMENTS_FAKE_STATE ?? path.join(root, '.data', test ? 'payments-fake-test.json' : 'payments-fake.json')
+					}
+				: {})
 		}
 	};
 }

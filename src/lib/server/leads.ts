@@ -36,6 +36,7 @@ import {
 	type Tx
 } from './lead-shared';
 import { unreadFor } from './messages';
+import { refundLeadCharges } from './billing/accounts'; // billing
 
 // Leads: sending a plan to contractors, the inbox, closing and expiring. Bids are in bids.ts,
 // threads and unread counts in messages.ts.
@@ -270,6 +271,8 @@ export async function closeRequest(ownerId: string, planId: string, origin: stri
 			.where(and(inArray(bid.leadId, ids), eq(bid.status, 'open')))
 			.returning({ leadId: bid.leadId });
 		const withBid = new Set(closedBids.map((b) => b.leadId));
+		// billing: a lead closed before any bid gives back what opening it used.
+		await refundLeadCharges(tx, ids.filter((id) => !withBid.has(id) && moving.find((l) => l.id === id)?.status !== 'bid_sent'), 'closed');
 		for (const to of await leadContractors(tx, ids)) await queueMail(to.email, requestClosedMail(to.name, to.town ?? 'you', withBid.has(to.leadId), leadUrl(origin, to.leadId)), tx);
 		return { closed: ids.length };
 	});
@@ -314,6 +317,8 @@ export async function expireLeads(tx: Tx, day: string, origin: string, only: { c
 		)
 		.returning({ id: lead.id, planId: lead.planId, homeownerId: lead.homeownerId, respondBy: lead.respondBy, planName: sql<string>`${lead.snapshot}->>'name'` });
 	if (!rows.length) return 0;
+	// billing: a lead that expired unanswered gives back what opening it used.
+	await refundLeadCharges(tx, rows.map((r) => r.id), 'expired');
 	for (const to of await leadContractors(tx, rows.map((r) => r.id))) {
 		const r = rows.find((x) => x.id === to.leadId)!;
 		await queueMail(to.email, leadExpiredMail(to.name, to.town ?? 'you', formatDate(r.respondBy!), leadUrl(origin, to.leadId)), tx);

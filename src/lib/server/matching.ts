@@ -5,6 +5,7 @@ import { MAX_SERVICE_RADIUS, type ServiceKind } from '$lib/schemas/contractor';
 import { db } from '$lib/server/db';
 import { contractor } from '$lib/server/db/schema';
 import { accountDisabledSql } from './lead-shared';
+import { billingAllowsDelivery } from '$lib/server/billing/accounts'; // billing
 
 export type Place = LatLon & { town: string };
 
@@ -52,6 +53,8 @@ export async function matchContractors(place: LatLon, scope: ServiceKind, execut
 				// An expired licence or insurance stops leads at once, even before the sweep lapses the account.
 				sql`coalesce(${contractor.licenceExpiresOn}, 'infinity'::date) >= ${day}::date`,
 				sql`coalesce(${contractor.insuranceExpiresOn}, 'infinity'::date) >= ${day}::date`,
+				// billing: an account whose payment is overdue gets no new leads until it is paid.
+				billingAllowsDelivery(contractor.userId),
 				isNotNull(contractor.serviceLat),
 				sql`${contractor.serviceLat} between ${place.lat - LAT_BAND_DEG}::float8 and ${place.lat + LAT_BAND_DEG}::float8`,
 				sql`${d} <= ${radiusKm}`,

@@ -3,6 +3,7 @@ import { db } from '$lib/server/db';
 import { contractor } from '$lib/server/db/schema';
 import { sweepContractor } from '$lib/server/credentials';
 import { requireRole } from '$lib/server/guards';
+import { billingAccountOf, entitlement } from '$lib/server/billing/accounts'; // billing
 import type { LayoutServerLoad } from './$types';
 
 export const load = (async (event) => {
@@ -18,6 +19,8 @@ export const load = (async (event) => {
 			submitted: !!profile?.submittedAt,
 			licenceExpiresOn: profile?.licenceExpiresOn ?? null,
 			insuranceExpiresOn: profile?.insuranceExpiresOn ?? null
-		}
+		},
+		// billing: what the contractor's plan allows now (shown on the pro desk).
+		billing: entitlement(await billingAccountOf(user.id))
 	};
 }) satisfies LayoutServerLoad;

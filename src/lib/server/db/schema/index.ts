@@ -7,3 +7,4 @@ export * from './plans';
 export * from './idempotency';
 export * from './rate';
 export * from './pour';
+export * from './billing';

@@ -8,6 +8,7 @@ import { changesSinceReview, findContractor } from '$lib/server/contractors';
 import { formError, parseForm } from '$lib/server/forms';
 import { requireRole } from '$lib/server/guards';
 import { decide, VettingRefused } from '$lib/server/vetting';
+import { adminBillingView } from '$lib/server/billing/admin'; // billing
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 export const load = (async (event) => {
@@ -16,7 +17,7 @@ export const load = (async (event) => {
 	if (!profile) error(404, 'No such contractor');
 	const [account] = await db.select({ name: user.name, email: user.email, createdAt: user.createdAt, emailVerifiedAt: user.emailVerifiedAt }).from(user).where(eq(user.id, event.params.id));
 	const history = await db.select().from(auditLog).where(eq(auditLog.subjectId, event.params.id)).orderBy(desc(auditLog.createdAt)).limit(20);
-	return { profile, account, history, changes: changesSinceReview(profile) };
+	return { profile, account, history, billing: await adminBillingView(event.params.id), changes: changesSinceReview(profile) };
 }) satisfies PageServerLoad;
 
 /** One action per decision; the reason is required where the decision says so. */

@@ -1,4 +1,5 @@
-import { error } from '@sveltejs/kit';
+import { error, redirect } from '@sveltejs/kit';
+import { openLeadFor } from '$lib/server/billing/accounts'; // billing
 import { fullResult, planFigures } from '$lib/plan-figures';
 import { defaultDistanceUnit, todayIn } from '$lib/reader';
 import { bidSchemaFor, declineSchema, messageSchema } from '$lib/schemas/leads';
@@ -16,6 +17,8 @@ export const load = (async (event) => {
 	await expireLeadsNow({ contractorId: user.id }, event.url.origin);
 	const found = await contractorLead(user.id, event.params.id);
 	if (!found) error(404, 'No such lead');
+	// billing: opening the details uses an included lead or a credit; without either the billing page shows what the lead is.
+	if ((await openLeadFor(user.id, event.params.id)) === 'locked') redirect(303, `/pro/billing?lead=${event.params.id}`);
 	await markLeadSeen(user.id, event.params.id);
 	// Ids of the homeowner stay on the server, like their name.
 	const { snapshot, homeownerId: _h, contractorId: _c, ...lead } = found.lead;
@@ -43,11 +46,21 @@ async function step(values: Record<string, string>, run: () => Promise<boolean>,
 	return done;
 }
 
+/** billing: bidding or writing needs the lead's details open (using an included lead or a credit when not yet). */
+async function billingGate(contractorId: string, leadId: string, values: Record<string, string>) {
+	const access = await openLeadFor(contractorId, leadId);
+	if (access === null) error(404, 'No such lead');
+	if (access === 'locked') return formError(values, 'Opening this lead needs a plan with leads left or a lead credit, and a paid-up account: see Billing.', {}, 402);
+	return null;
+}
+
 export const actions = {
 	bid: async (event) => {
 		const user = await requireApprovedContractor(event);
 		const { data, values, failure } = await parseForm(event.request, bidSchemaFor(() => todayIn(event.locals.reader.timeZone)));
 		if (failure) return failure;
+		const locked = await billingGate(user.id, event.params.id, values); // billing
+		if (locked) return locked;
 		return step(values, () => saveBid(user.id, event.params.id, data, event.url.origin), { bidSaved: true });
 	},
 	withdraw: async (event) => {
@@ -64,6 +77,8 @@ export const actions = {
 		const user = await requireApprovedContractor(event);
 		const { data, values, failure } = await parseForm(event.request, messageSchema);
 		if (failure) return failure;
+		const locked = await billingGate(user.id, event.params.id, values); // billing
+		if (locked) return locked;
 		return step(values, () => postMessage(user, event.params.id, data.body, event.url.origin), { messageSent: true });
 	}
 } satisfies Actions;
