@@ -18,6 +18,10 @@ import { billingAccountOf, openLeadFor } from './accounts';
 import { invoicesOf, setCancelAtPeriodEnd, startCardUpdate, startPackCheckout, startPlanCheckout } from './checkout';
 import { payments } from './client';
 import { applyEvent, BadSignature, verifyEvent } from './webhooks';
+import type { PlanResult } from '$lib/plan';
+
+/** The few figures a lead reads, stored as a plan result (the engine's whole result is not needed here). */
+const storedFigures = (figures: object) => figures as PlanResult;
 
 const origin = 'http://127.0.0.1:3000';
 const fake = `http://127.0.0.1:${env.PAYMENTS_FAKE_PORT}`;
@@ -80,7 +84,7 @@ async function approvedContractor(name: string) {
 /** A homeowner's plan sent to the contractor; returns the lead and the plan. */
 async function leadFor(contractorId: string) {
 	const owner = await createUser({ name: 'Ines Owner', email: unique('home'), password: 'homeowner-pass', role: 'homeowner' });
-	const [p] = await db.insert(plan).values({ ownerId: owner.id, name: 'Back walk', postcode: ZIP, input: { units: 'imperial' }, result: { area: { squareFeet: 80, squareMeters: 7.43 } } }).returning();
+	const [p] = await db.insert(plan).values({ ownerId: owner.id, name: 'Back walk', postcode: ZIP, input: { units: 'imperial' }, result: storedFigures({ area: { squareFeet: 80, squareMeters: 7.43 } }) }).returning();
 	await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'flexible', notes: '', contractors: [contractorId] }, origin);
 	const [l] = await db.select().from(lead).where(and(eq(lead.planId, p.id), eq(lead.contractorId, contractorId)));
 	return { lead: l, owner, planId: p.id };
