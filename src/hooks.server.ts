@@ -6,21 +6,19 @@ import { TIME_ZONE_COOKIE, validTimeZone } from '$lib/reader';
 import { building } from '$app/environment';
 import { env } from '$env/dynamic/private';
 import * as auth from '$lib/server/auth';
-import { mailIdle, startMailWorker } from '$lib/server/mail';
-import { startLinkPurge } from '$lib/server/email-tokens';
-import { startSweeper } from '$lib/server/credentials';
+import { startWorker, SWEEP_ON_START } from '$lib/server/jobs';
 import { ensureAdmin } from '$lib/server/users';
-import { client } from '$lib/server/db';
+import { client, db } from '$lib/server/db';
 
 export const init: ServerInit = async () => {
 	if (building) return;
 	await ensureAdmin(env.ADMIN_EMAIL, env.ADMIN_PASSWORD);
-	startMailWorker();
-	startLinkPurge();
-	// Credential expiry, reminders and lead respond-by dates, hourly; the sweep locks so one server does it.
-	startSweeper(env.ORIGIN ?? `http://${env.HOST ?? '127.0.0.1'}:${env.PORT ?? '3000'}`);
-	// Let mail already being sent finish before the pool closes.
-	process.on('sveltekit:shutdown', () => void mailIdle().then(() => client.end({ timeout: 5 })));
+	// The job worker (mail, curing reminders, the hourly credential and respond-by sweep, link purge)
+	// runs in every app server; each job is taken by one of them (src/lib/server/jobs).
+	const worker = await startWorker({ origin: env.ORIGIN ?? `http://${env.HOST ?? '127.0.0.1'}:${env.PORT ?? '3000'}` });
+	await db.execute(SWEEP_ON_START);
+	// Let jobs already running finish before the pool closes.
+	process.on('sveltekit:shutdown', () => void worker.stop().finally(() => client.end({ timeout: 5 })));
 };
 
 /** The reader's locale (Accept-Language) and time zone (the browser's cookie, else UTC), for dates. */

@@ -102,6 +102,12 @@ const matrix: Record<string, Row[]> = {
 		r('/plans/{myPlan}/photos/{photoA}/thumb', x(401, 200, 404, 403, 403, 403, 403, 403))
 	],
 	'GET /plans/[id]/plan.pdf': [r('/plans/{planA}/plan.pdf', x(401, 200, 404, 403, 403, 403, 403, 403))],
+	'GET /plans/[id]/plan.ics': [r('/plans/{planA}/plan.ics', x(401, 200, 404, 403, 403, 403, 403, 403))],
+	// An empty form is the switch unticked: reminders off for the owner's own plan.
+	'POST /plans/[id]?/reminders': [r('/plans/{planA}?/reminders', x(303, 200, 404, 403, 403, 403, 403, 403), { form: {} })],
+	// The stop link in a reminder e-mail: no sign-in, the signed token is the only key.
+	'GET /reminders/stop': [r('/reminders/stop?token=not-a-token', x(200, 200, 200, 200, 200, 200, 200, 200))],
+	'POST /reminders/stop': [r('/reminders/stop', x(400, 400, 400, 400, 400, 400, 400, 400), { form: { token: 'not-a-token' } })],
 	'GET /plans/[id]/bids': [r('/plans/{planA}/bids', x(303, 200, 404, 403, 403, 403, 403, 403))],
 	'POST /plans/[id]/bids?/send': [r('/plans/{planA}/bids?/send', x(303, 400, 404, 403, 403, 403, 403, 403), { form: {} })],
 	'POST /plans/[id]/bids?/announce': [r('/plans/{planA}/bids?/announce', x(303, 200, 404, 403, 403, 403, 403, 403), { form: {} })],

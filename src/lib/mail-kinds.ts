@@ -10,6 +10,7 @@ export const mailKinds = {
 	bid_result: { label: 'Decisions on my bids (accepted, not selected, reopened)', roles: ['contractor'] },
 	bid_update: { label: 'Bids on my plans (new, changed, withdrawn)', roles: ['homeowner'] },
 	message: { label: 'New messages', roles: ['homeowner', 'contractor'] },
+	curing: { label: 'Curing reminders for plans I turned them on for', roles: ['homeowner'] },
 	review_queue: { label: 'Contractor profiles waiting for review', roles: ['admin'] }
 } as const satisfies Record<string, { label: string; roles: readonly Role[] }>;
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { defaultDistanceUnit, formatDay, formatMoment, todayIn, validTimeZone } from './reader';
+import { defaultDistanceUnit, formatDay, formatMoment, todayIn, validTimeZone, zonedTime } from './reader';
 
 describe('reader', () => {
 	it('takes a known time zone and refuses anything else', () => {
@@ -25,5 +25,17 @@ describe('reader', () => {
 		expect(formatMoment(m, { locale: 'en-US', timeZone: 'America/Los_Angeles' }, 'date')).toBe('Mar 1, 2027');
 		expect(formatMoment(m, { locale: 'de-DE', timeZone: 'Europe/Berlin' }, 'date')).toBe('02.03.2027');
 		expect(formatDay('2027-03-01', { locale: 'en-US' })).toBe('Mar 1, 2027');
+	});
+
+	it('finds the instant of a local hour on a day, on both sides of a daylight-saving change', () => {
+		// Denver: UTC−7 in winter, UTC−6 in summer (clocks went forward on 2027-03-14).
+		expect(zonedTime('2027-01-10', 7, 'America/Denver').toISOString()).toBe('2027-01-10T14:00:00.000Z');
+		expect(zonedTime('2027-03-14', 7, 'America/Denver').toISOString()).toBe('2027-03-14T13:00:00.000Z');
+		expect(zonedTime('2027-06-01', 7, 'Europe/Berlin').toISOString()).toBe('2027-06-01T05:00:00.000Z');
+		expect(zonedTime('2027-06-01', 7, 'UTC').toISOString()).toBe('2027-06-01T07:00:00.000Z');
+		// Read back in the zone, it is that day at 07:00.
+		const t = zonedTime('2027-11-07', 7, 'America/Denver');
+		expect(todayIn('America/Denver', t)).toBe('2027-11-07');
+		expect(new Intl.DateTimeFormat('en-US', { timeZone: 'America/Denver', hour: 'numeric', hourCycle: 'h23' }).format(t)).toBe('07');
 	});
 });

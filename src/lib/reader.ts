@@ -23,6 +23,20 @@ export function todayIn(timeZone: string, now = new Date()): string {
 	return `${get('year')}-${get('month')}-${get('day')}`;
 }
 
+/** The instant it is `hour`:00 on the calendar day `iso` (YYYY-MM-DD) in `timeZone`. */
+export function zonedTime(iso: string, hour: number, timeZone: string): Date {
+	const wall = Date.UTC(+iso.slice(0, 4), +iso.slice(5, 7) - 1, +iso.slice(8, 10), hour);
+	// The zone's offset at an instant: its wall clock read as if UTC, less the instant.
+	const offset = (t: number) => {
+		const p = new Intl.DateTimeFormat('en-US', { timeZone, hourCycle: 'h23', year: 'numeric', month: 'numeric', day: 'numeric', hour: 'numeric', minute: 'numeric', second: 'numeric' }).formatToParts(t);
+		const n = (type: string) => +p.find((x) => x.type === type)!.value;
+		return Date.UTC(n('year'), n('month') - 1, n('day'), n('hour'), n('minute'), n('second')) - t;
+	};
+	// Twice, so an hour next to a daylight-saving change lands on the zone's own offset for it.
+	const first = wall - offset(wall);
+	return new Date(wall - offset(first));
+}
+
 /** Regions that measure road distance in miles; everyone else reads kilometres. */
 const MILE_REGIONS = new Set(['US', 'GB', 'LR', 'MM']);
 export function defaultDistanceUnit(locale: string): DistanceUnit {

@@ -2,7 +2,7 @@ import { eq } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import { auditLog, contractor, session, user } from '$lib/server/db/schema';
 import { tellHomeownersOfContractorChange } from './leads';
-import { deliverSoon, queueMail } from './mail';
+import { queueMail } from './mail';
 import { accountAccessMail } from './mail/templates';
 
 /** A disable or enable that does not fit the account now; the message says why. */
@@ -43,6 +43,5 @@ export async function setAccountDisabled(admin: Admin, userId: string, disable: 
 		}
 		return true;
 	});
-	deliverSoon();
 	return found;
 }

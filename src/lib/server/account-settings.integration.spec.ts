@@ -1,11 +1,12 @@
 // Integration tests on the real PostgreSQL test database (npm test creates it fresh).
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { mailKinds, mailKindsFor } from '$lib/mail-kinds';
 import { client, db } from './db';
 import { auditLog, devMail, mailOutbox, session, user } from './db/schema';
 import { AccessRefused, setAccountDisabled } from './account-access';
 import { createSession, generateSessionToken, validateSessionToken } from './auth';
+import { startWorker } from './jobs';
 import { mailIdle, queueMail } from './mail';
 import { newMessageMail, newBidMail } from './mail/pro-notices';
 import { resetPasswordMail } from './mail/templates';
@@ -21,6 +22,11 @@ async function tokenSentTo(to: string) {
 }
 const outboxTo = (to: string) => db.select({ subject: mailOutbox.subject, text: mailOutbox.text }).from(mailOutbox).where(eq(mailOutbox.to, to));
 
+beforeAll(async () => {
+	// The job worker an app server runs, here in the test process, so mailed links arrive.
+	await startWorker({ origin: 'http://stakeline.test', cron: false });
+});
+
 afterAll(async () => {
 	await mailIdle();
 	await client.end();
@@ -28,7 +34,7 @@ afterAll(async () => {
 
 describe('mail kinds', () => {
 	it('each role sees only its own switches', () => {
-		expect(mailKindsFor('homeowner')).toEqual(['bid_update', 'message']);
+		expect(mailKindsFor('homeowner')).toEqual(['bid_update', 'message', 'curing']);
 		expect(mailKindsFor('contractor')).toEqual(['new_lead', 'bid_result', 'message']);
 		expect(mailKindsFor('admin')).toEqual(['review_queue']);
 		for (const k of Object.keys(mailKinds)) expect(mailKinds[k as keyof typeof mailKinds].label.length).toBeGreaterThan(3);

@@ -1,18 +1,24 @@
 // Integration tests on the real PostgreSQL test database (npm test creates it fresh).
 import nodemailer from 'nodemailer';
-import { afterAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { client, db } from './db';
 import { contractor, devMail, emailToken, mailOutbox, session, user } from './db/schema';
 import { createSession, generateSessionToken, invalidateUserSessions, validateSessionToken } from './auth';
 import { consumeEmailToken, createEmailToken, peekEmailToken } from './email-tokens';
-import { deliverDue, mailIdle, queueMail } from './mail';
+import { startWorker } from './jobs';
+import { MAX_ATTEMPTS, mailIdle, queueMail } from './mail';
 import { verifyPassword } from './password';
 import { hashToken } from './tokens';
 import { createUser, EmailTakenError, markEmailVerified, signUpOrNotify } from './users';
 
 const DAY = 86_400_000;
 const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
+
+beforeAll(async () => {
+	// The job worker an app server runs, here in the test process, so queued mail is really sent.
+	await startWorker({ origin: 'http://stakeline.test', cron: false });
+});
 
 afterAll(async () => {
 	await mailIdle();
@@ -160,18 +166,46 @@ describe('mail outbox', () => {
 	});
 
 	it('keeps a message that cannot be sent and schedules a retry', async () => {
-		const [row] = await db.insert(mailOutbox).values({ to: unique('down'), subject: 'Later', text: 't', html: 'h' }).returning();
+		// A second worker whose SMTP server is down takes the next message: the main worker stops first.
+		await mailIdle();
 		const down = nodemailer.createTransport({ host: '127.0.0.1', port: 9, connectionTimeout: 2000 }); // discard port, nothing listens
-		await deliverDue(50, down);
-		const [after] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, row.id));
+		const failing = await startWorker({ origin: 'http://stakeline.test', transport: down, cron: false });
+		const to = unique('down');
+		const id = (await queueMail(to, { subject: 'Later', text: 't', html: 'h' }))!;
+		await expect.poll(async () => (await db.select().from(mailOutbox).where(eq(mailOutbox.id, id)))[0].lastError).toBeTruthy();
+		await failing.stop();
+		const [after] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, id));
 		expect(after.status).toBe('pending');
 		expect(after.attempts).toBe(1);
-		expect(after.lastError).toBeTruthy();
 		expect(after.nextAttemptAt.getTime()).toBeGreaterThan(Date.now());
-		// Once SMTP answers again, the retry goes through.
-		await db.update(mailOutbox).set({ nextAttemptAt: sql`now()` }).where(eq(mailOutbox.id, row.id));
-		await deliverDue();
-		const [sent] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, row.id));
-		expect(sent.status).toBe('sent');
+		// The queue holds the job for its retry, at the time the outbox row says.
+		const [job] = await db.execute<{ attempts: number; max_attempts: number; run_at: string; last_error: string }>(
+			sql`SELECT attempts, max_attempts, run_at, last_error FROM graphile_worker.jobs WHERE key = ${`mail:${id}`}`
+		);
+		expect(job).toMatchObject({ attempts: 1, max_attempts: MAX_ATTEMPTS });
+		expect(job.last_error).toBeTruthy();
+		expect(Math.abs(new Date(job.run_at).getTime() - after.nextAttemptAt.getTime())).toBeLessThan(3000);
+		// Once SMTP answers again, the retry goes through and the job is done.
+		await db.execute(sql`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key = ${`mail:${id}`}`);
+		await startWorker({ origin: 'http://stakeline.test', cron: false });
+		await expect.poll(async () => (await db.select().from(mailOutbox).where(eq(mailOutbox.id, id)))[0].status).toBe('sent');
+		await expect.poll(async () => (await db.select().from(devMail).where(eq(devMail.to, to))).length).toBe(1);
+		await expect.poll(async () => (await db.execute(sql`SELECT 1 FROM graphile_worker.jobs WHERE key = ${`mail:${id}`}`)).length).toBe(0);
+		const [sent] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, id));
+		expect(sent).toMatchObject({ attempts: 2, lastError: null });
 	});
+
+	it('adds the message and its job with the change it reports: a rolled-back change leaves neither', async () => {
+		const to = unique('rolled');
+		await expect(
+			db.transaction(async (tx) => {
+				await queueMail(to, { subject: 'Never', text: 't', html: 'h' }, tx);
+				throw new Error('the change failed');
+			})
+		).rejects.toThrow('the change failed');
+		expect(await db.select().from(mailOutbox).where(eq(mailOutbox.to, to))).toEqual([]);
+		const jobs = await db.execute(sql`SELECT 1 FROM graphile_worker.jobs j JOIN mail_outbox m ON j.key = 'mail:' || m.id WHERE m.to = ${to}`);
+		expect(jobs.length).toBe(0);
+	});
+
 });

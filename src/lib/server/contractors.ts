@@ -5,7 +5,7 @@ import type { ContractorProfileInput, DistanceUnit, DocumentKind } from '$lib/sc
 import { db } from '$lib/server/db';
 import { contractor, contractorDocument, user, type Contractor } from '$lib/server/db/schema';
 import { requireRole } from './guards';
-import { deliverSoon, queueMail } from './mail';
+import { queueMail } from './mail';
 import { profileSubmittedMail } from './mail/pro-notices';
 import { storage } from './storage';
 import type { SniffedUpload } from './uploads';
@@ -138,7 +138,6 @@ export async function saveContractorProfile(
 			}
 			return status;
 		});
-		deliverSoon();
 		return status;
 	} catch (err) {
 		await Promise.all(written.map((w) => storage().delete(w.key)));

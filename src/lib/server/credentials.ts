@@ -5,8 +5,7 @@ import type { DocumentKind } from '$lib/schemas/contractor';
 import { db } from '$lib/server/db';
 import { contractor, credentialReminder, user } from '$lib/server/db/schema';
 import { expireLeads, tellHomeownersOfContractorChange } from './leads';
-import { log } from './log';
-import { deliverSoon, queueMail } from './mail';
+import { queueMail } from './mail';
 import { credentialLapsedMail, credentialReminderMail } from './mail/pro-notices';
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
@@ -108,7 +107,6 @@ export async function sweep(now = new Date(), origin = '') {
 			leadsExpired: await expireLeads(tx, today, origin)
 		};
 	});
-	deliverSoon();
 	return out;
 }
 
@@ -123,21 +121,7 @@ export async function sweepContractor(contractorId: string, now = new Date(), or
 		reminders: await sendReminders(tx, today, origin, contractorId),
 		leadsExpired: await expireLeads(tx, today, origin, { contractorId })
 	}));
-	if (out.lapsed || out.reminders || out.leadsExpired) deliverSoon();
 	return out;
-}
-
-/** Runs the sweep now and then every `everyMs` (an hour) in each app server. */
-export function startSweeper(origin: string, everyMs = 60 * 60_000) {
-	const run = () => sweep(new Date(), origin).catch((err) => log.warn({ err }, 'sweep failed'));
-	const first = setTimeout(run, 5_000);
-	const timer = setInterval(run, everyMs);
-	first.unref();
-	timer.unref();
-	return () => {
-		clearTimeout(first);
-		clearInterval(timer);
-	};
 }
 
 /** For the admin: credentials that expire within the window or have expired, soonest first. */

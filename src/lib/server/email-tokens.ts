@@ -84,10 +84,3 @@ export async function purgeSentLinks(): Promise<number> {
 		RETURNING id`);
 	return rows.length;
 }
-
-/** Runs the purge on a timer in every app server (the UPDATE is idempotent). */
-export function startLinkPurge(everyMs = 60_000) {
-	const timer = setInterval(() => purgeSentLinks().catch((err) => console.error('link purge:', err)), everyMs);
-	timer.unref();
-	return () => clearInterval(timer);
-}

@@ -8,7 +8,7 @@ import type { ServiceKind } from '$lib/schemas/contractor';
 import type { ExistingSurface, Finish, Timeframe } from '$lib/leads';
 import { db } from '$lib/server/db';
 import { bid, contractor, jobContact, lead, leadMessage, plan, planPhoto, user } from '$lib/server/db/schema';
-import { deliverSoon, queueMail } from './mail';
+import { queueMail } from './mail';
 import {
 	bidDecisionMail,
 	biddingReopenedMail,
@@ -128,7 +128,6 @@ export async function sendLeads(
 			await queueMail(to.email, newLeadMail(to.name, place.town, p.name, formatDate(due), leadUrl(origin, to.leadId)), tx);
 		return { created: rows.length };
 	});
-	deliverSoon();
 	return out;
 }
 
@@ -149,7 +148,6 @@ export async function announceRevision(owner: Actor, planId: string, origin: str
 			await queueMail(to.email, newerRevisionMail(to.name, to.town ?? 'you', p.revision, leadUrl(origin, to.leadId)), tx);
 		return rows.length;
 	});
-	deliverSoon();
 	return out;
 }
 
@@ -245,7 +243,6 @@ export async function acceptBid(ownerId: string, planId: string, bidId: string, 
 		}
 		return true;
 	});
-	deliverSoon();
 	return !!out;
 }
 
@@ -350,7 +347,6 @@ export async function saveBid(contractorId: string, leadId: string, input: BidIn
 		await queueMail(home.email, newBidMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, !!locked.bid, bidsUrl(origin, locked.lead.planId)), tx);
 		return true;
 	});
-	deliverSoon();
 	return out;
 }
 
@@ -370,7 +366,6 @@ export async function withdrawBid(contractorId: string, leadId: string, origin =
 		await queueMail(home.email, bidWithdrawnMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, bidsUrl(origin, locked.lead.planId)), tx);
 		return true;
 	});
-	deliverSoon();
 	return out;
 }
 
@@ -439,7 +434,6 @@ export async function reopenBidding(ownerId: string, planId: string, origin: str
 		}
 		return { reopened: reopened.length };
 	});
-	deliverSoon();
 	return out;
 }
 
@@ -480,7 +474,6 @@ export async function postMessage(sender: Actor & { role: string }, leadId: stri
 		await queueMail(l.toEmail, mail, tx);
 		return true;
 	});
-	deliverSoon();
 	return out;
 }
 
@@ -560,7 +553,6 @@ export async function closeRequest(ownerId: string, planId: string, origin: stri
 		for (const to of await leadContractors(tx, ids)) await queueMail(to.email, requestClosedMail(to.name, to.town ?? 'you', withBid.has(to.leadId), leadUrl(origin, to.leadId)), tx);
 		return { closed: ids.length };
 	});
-	deliverSoon();
 	return out;
 }
 
@@ -580,7 +572,6 @@ export async function completeJob(ownerId: string, planId: string, origin: strin
 		for (const c of await leadContractors(tx, [won.id])) await queueMail(c.email, jobDoneMail(c.name, c.town ?? 'you', leadUrl(origin, c.leadId)), tx);
 		return true;
 	});
-	deliverSoon();
 	return out;
 }
 
@@ -624,6 +615,5 @@ export async function expireLeads(tx: Tx, day: string, origin: string, only: { c
 /** Expires what is due for one plan or one contractor when their page loads (between sweeps). */
 export async function expireLeadsNow(only: { contractorId?: string; planId?: string }, origin: string, now = new Date()) {
 	const n = await db.transaction((tx) => expireLeads(tx, now.toISOString().slice(0, 10), origin, only));
-	if (n) deliverSoon();
 	return n;
 }

@@ -2,6 +2,7 @@ import { and, desc, eq, sql } from 'drizzle-orm';
 import { estimate, type PlanIssue, type PlanResult } from '$lib/plan';
 import { db, type Db } from '$lib/server/db';
 import { lead, plan, planPhoto, type Plan } from '$lib/server/db/schema';
+import { cancelCuringReminders, scheduleCuringReminders } from './reminders';
 import { storage } from './storage';
 import type { PlanRecord } from '$lib/planner/types';
 
@@ -85,11 +86,16 @@ export async function updatePlan(
 		changes.input = data.input;
 		changes.result = compute(data.input);
 	}
-	const [saved] = await db
-		.update(plan)
-		.set({ ...changes, revision: sql`${plan.revision} + 1`, updatedAt: new Date() })
-		.where(and(eq(plan.id, id), eq(plan.ownerId, ownerId), eq(plan.revision, data.revision)))
-		.returning();
+	// A new pour date (or anything that moves the curing days) moves the reminder jobs with the save.
+	const saved = await db.transaction(async (tx) => {
+		const [row] = await tx
+			.update(plan)
+			.set({ ...changes, revision: sql`${plan.revision} + 1`, updatedAt: new Date() })
+			.where(and(eq(plan.id, id), eq(plan.ownerId, ownerId), eq(plan.revision, data.revision)))
+			.returning();
+		if (row && data.input !== undefined && row.curingReminders) await scheduleCuringReminders(tx, row);
+		return row;
+	});
 	if (!saved) throw new StaleRevision((await findOwnPlan(id, ownerId)) ?? current);
 	return saved;
 }
@@ -107,7 +113,10 @@ export async function deletePlan(id: string, ownerId: string): Promise<boolean> 
 	const [sent] = await db.select({ id: lead.id }).from(lead).where(eq(lead.planId, id)).limit(1);
 	if (sent) throw new PlanHasLeads();
 	const photos = await db.select().from(planPhoto).where(eq(planPhoto.planId, id));
-	await db.delete(plan).where(and(eq(plan.id, id), eq(plan.ownerId, ownerId)));
+	await db.transaction(async (tx) => {
+		await cancelCuringReminders(tx, id);
+		await tx.delete(plan).where(and(eq(plan.id, id), eq(plan.ownerId, ownerId)));
+	});
 	await Promise.all(photos.flatMap((p) => [storage().delete(p.storageKey), storage().delete(p.thumbKey)]));
 	return true;
 }

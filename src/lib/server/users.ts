@@ -3,7 +3,7 @@ import { db } from '$lib/server/db';
 import { contractor, user, type Role, type User } from '$lib/server/db/schema';
 import { hashPassword } from './password';
 import { consumeEmailChangeToken, createEmailToken, expireEmailTokens } from './email-tokens';
-import { deliverSoon, queueMail } from './mail';
+import { queueMail } from './mail';
 import {
 	confirmNewEmailMail,
 	emailChangeNoticeMail,
@@ -107,7 +107,6 @@ export async function signUpOrNotify(input: { name: string; email: string; passw
 			await queueMail(owner.email, verifyEmailMail('', verifyLink(origin, token, next)), tx);
 		} else await queueMail(owner.email, signUpAttemptMail(greeting(owner), `${origin}/signin`), tx);
 	});
-	deliverSoon();
 }
 
 export async function sendPasswordResetMail(u: MailUser, origin: string) {

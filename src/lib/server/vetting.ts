@@ -4,7 +4,7 @@ import { db } from '$lib/server/db';
 import { auditLog, contractor, contractorDocument, user } from '$lib/server/db/schema';
 import { reviewedFields } from './contractors';
 import { tellHomeownersOfContractorChange } from './leads';
-import { deliverSoon, queueMail } from './mail';
+import { queueMail } from './mail';
 import { vettingDecisionMail } from './mail/pro-notices';
 
 /** A decision that does not fit the account's current state; the message says why. */
@@ -70,7 +70,6 @@ export async function decide(admin: Admin, contractorId: string, decision: Vetti
 		if (change) await tellHomeownersOfContractorChange(tx, contractorId, c.row.businessName ?? c.name, change, origin);
 		return true;
 	});
-	deliverSoon();
 	return found;
 }
 

@@ -1,13 +1,25 @@
 import nodemailer, { type Transporter } from 'nodemailer';
-import { eq, sql } from 'drizzle-orm';
+import { and, eq, sql } from 'drizzle-orm';
 import { env } from '$env/dynamic/private';
 import { db } from '$lib/server/db';
-import { mailOutbox, user, type OutboxMail } from '$lib/server/db/schema';
+import { mailOutbox, user } from '$lib/server/db/schema';
 import type { MailKind } from '$lib/mail-kinds';
 import type { Mail } from './templates';
-import { log } from '../log';
+import { stopLocalWorkers } from '../jobs/running';
 
-export const MAX_ATTEMPTS = 8;
+/**
+ * Tries per message before it is marked failed. The job queue (graphile-worker) waits
+ * e^min(attempt, 10) seconds after each failure, so twelve tries span about 16 hours of SMTP outage.
+ */
+export const MAX_ATTEMPTS = 12;
+
+/** The queue's wait after the `attempts`-th failure, in seconds (graphile-worker's own back-off). */
+export function retryDelaySeconds(attempts: number): number {
+	return Math.exp(Math.min(Math.max(attempts, 1), 10));
+}
+
+/** The job that sends one outbox row; its job key is the row's, so it exists once. */
+export const SEND_MAIL = 'send_mail';
 
 let transport: Transporter | undefined;
 function getTransport(): Transporter {
@@ -16,94 +28,73 @@ function getTransport(): Transporter {
 	return transport;
 }
 
-/** Minutes to wait before the next try after `attempts` failures: 1, 2, 4 … capped at an hour. */
-export function retryDelayMinutes(attempts: number): number {
-	return Math.min(60, 2 ** Math.max(0, attempts - 1));
-}
-
-const inFlight = new Set<Promise<unknown>>();
-/** Resolves once background sends started by queueMail have finished (tests close the pool after). */
-export const mailIdle = () => Promise.allSettled([...inFlight]);
+/**
+ * Stops the job workers this process started, once the mail they are sending has gone (tests call
+ * it before closing the pool; an app server stops its worker on shutdown).
+ */
+export const mailIdle = () => stopLocalWorkers();
 
 type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 /**
- * Writes the message to the outbox and tries to send it at once. The action that sends mail
- * never fails because SMTP does: what cannot go now is retried by the worker. Given `tx`, the
- * message is written in that transaction (it exists exactly when the change it reports does);
- * the caller then calls deliverSoon() after the commit.
+ * Writes the message to the outbox and adds the job that sends it, in one transaction: given `tx`,
+ * in the caller's, so the message exists exactly when the change it reports does. The job runs as
+ * soon as that transaction commits (the queue is told by NOTIFY), in whichever app server takes it;
+ * the action that sends mail never fails because SMTP does.
  */
 export async function queueMail(to: string, mail: Mail, tx?: Tx): Promise<string | null> {
-	const { kind, subject, text, html } = mail;
-	if (kind && (await optedOut(to, kind, tx))) return null;
-	const [row] = await (tx ?? db).insert(mailOutbox).values({ to, subject, text, html }).returning({ id: mailOutbox.id });
-	if (!tx) deliverSoon();
-	return row.id;
+	const write = async (t: Tx) => {
+		const { kind, subject, text, html } = mail;
+		if (kind && (await optedOut(to, kind, t))) return null;
+		const [row] = await t.insert(mailOutbox).values({ to, subject, text, html }).returning({ id: mailOutbox.id });
+		await t.execute(sql`SELECT graphile_worker.add_job(${SEND_MAIL}, json_build_object('id', ${row.id}::text),
+			max_attempts := ${MAX_ATTEMPTS}, job_key := ${`mail:${row.id}`})`);
+		return row.id;
+	};
+	return tx ? write(tx) : db.transaction(write);
 }
 
 /** Whether the account at `to` turned this kind of mail off on its account page. */
-async function optedOut(to: string, kind: MailKind, tx?: Tx): Promise<boolean> {
-	const [row] = await (tx ?? db)
+async function optedOut(to: string, kind: MailKind, tx: Tx): Promise<boolean> {
+	const [row] = await tx
 		.select({ off: user.mailOptOut })
 		.from(user)
 		.where(eq(user.email, to.trim().toLowerCase()));
 	return !!row?.off.includes(kind);
 }
 
-/** Starts sending what is due in the background: the request does not wait on the SMTP server. */
-export function deliverSoon() {
-	const sending = deliverDue().catch((err) => log.warn({ err }, 'mail delivery failed'));
-	inFlight.add(sending);
-	void sending.finally(() => inFlight.delete(sending));
-}
-
 /**
- * Sends what is due. Rows are claimed with SKIP LOCKED and pushed forward before sending, so
- * several app servers can run this at once without sending a message twice.
+ * The send_mail job: sends one outbox row. Only a row still pending is sent, so a job that runs
+ * again after its message went out sends nothing. A failure is written on the row (with when the
+ * queue tries next) and thrown, so the queue retries it; after the last try the row is failed.
  */
-export async function deliverDue(limit = 20, transport?: Transporter): Promise<number> {
-	const claimed = await db.execute<{ id: string }>(sql`
-		UPDATE mail_outbox SET attempts = attempts + 1, next_attempt_at = now() + interval '5 minutes'
-		WHERE id IN (
-			SELECT id FROM mail_outbox WHERE status = 'pending' AND next_attempt_at <= now()
-			ORDER BY created_at LIMIT ${limit} FOR UPDATE SKIP LOCKED)
-		RETURNING id`);
-	let sent = 0;
-	for (const { id } of claimed) {
-		const [mail] = await db.select().from(mailOutbox).where(eq(mailOutbox.id, id));
-		if (await send(mail, transport)) sent++;
-	}
-	return sent;
-}
-
-async function send(mail: OutboxMail, transport?: Transporter): Promise<boolean> {
+export async function sendOutboxMail(id: string, attempt: number, maxAttempts = MAX_ATTEMPTS, via?: Transporter): Promise<'sent' | 'gone'> {
+	const [mail] = await db
+		.update(mailOutbox)
+		.set({ attempts: attempt })
+		.where(and(eq(mailOutbox.id, id), eq(mailOutbox.status, 'pending')))
+		.returning();
+	if (!mail) return 'gone';
 	try {
-		await (transport ?? getTransport()).sendMail({
+		await (via ?? getTransport()).sendMail({
 			from: env.MAIL_FROM || 'Stakeline <no-reply@localhost>',
 			to: mail.to,
 			subject: mail.subject,
 			text: mail.text,
 			html: mail.html
 		});
-		await db.update(mailOutbox).set({ status: 'sent', sentAt: new Date(), lastError: null }).where(eq(mailOutbox.id, mail.id));
-		return true;
 	} catch (err) {
-		const giveUp = mail.attempts >= MAX_ATTEMPTS;
+		const giveUp = attempt >= maxAttempts;
 		await db
 			.update(mailOutbox)
 			.set({
 				status: giveUp ? 'failed' : 'pending',
 				lastError: String((err as Error).message ?? err).slice(0, 500),
-				nextAttemptAt: new Date(Date.now() + retryDelayMinutes(mail.attempts) * 60_000)
+				nextAttemptAt: new Date(Date.now() + retryDelaySeconds(attempt) * 1000)
 			})
-			.where(eq(mailOutbox.id, mail.id));
-		return false;
+			.where(eq(mailOutbox.id, id));
+		throw err;
 	}
-}
-
-/** Retries on a timer in every app server; the claim above keeps them from colliding. */
-export function startMailWorker(everyMs = 15_000) {
-	const timer = setInterval(() => deliverDue().catch((err) => log.warn({ err }, 'mail worker failed')), everyMs);
-	timer.unref();
-	return () => clearInterval(timer);
+	await db.update(mailOutbox).set({ status: 'sent', sentAt: new Date(), lastError: null }).where(eq(mailOutbox.id, id));
+	return 'sent';
 }

@@ -7,10 +7,21 @@ const escape = (s: string) =>
 	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** One plain layout for every notice: a greeting, a few lines, one button, the same link as text. */
-export function notice(o: { subject: string; name: string; lines: string[]; action: string; url: string; footer: string; kind?: MailKind }): Mail {
+export function notice(o: {
+	subject: string;
+	name: string;
+	lines: string[];
+	action: string;
+	url: string;
+	footer: string;
+	kind?: MailKind;
+	/** A one-click stop link under the footer (reminders). */
+	stop?: { label: string; url: string };
+}): Mail {
 	// No name: mail to an address nobody has confirmed carries no text the sign-up form chose.
 	const hello = o.name ? `Hello ${o.name},` : 'Hello,';
-	const text = [hello, '', ...o.lines, '', `${o.action}: ${o.url}`, '', o.footer, '', '— Stakeline'].join('\n');
+	const stop = o.stop ? ['', `${o.stop.label}: ${o.stop.url}`] : [];
+	const text = [hello, '', ...o.lines, '', `${o.action}: ${o.url}`, '', o.footer, ...stop, '', '— Stakeline'].join('\n');
 	const html = `<!doctype html><html><body style="font-family:Nunito,Arial,sans-serif;color:#1f2d27;background:#f6f3ea;padding:24px">
 <div style="max-width:520px;margin:auto;background:#fff;border-radius:12px;padding:24px">
 <p>${escape(hello)}</p>
@@ -18,7 +29,7 @@ ${o.lines.map((l) => `<p>${escape(l)}</p>`).join('\n')}
 <p><a href="${escape(o.url)}" style="display:inline-block;background:#2f6b4f;color:#fff;padding:10px 18px;border-radius:8px;text-decoration:none">${escape(o.action)}</a></p>
 <p style="font-size:13px;color:#5b6a62">Or open this address: ${escape(o.url)}</p>
 <p style="font-size:13px;color:#5b6a62">${escape(o.footer)}</p>
-</div></body></html>`;
+${o.stop ? `<p style="font-size:13px"><a href="${escape(o.stop.url)}" style="color:#2f6b4f">${escape(o.stop.label)}</a></p>\n` : ''}</div></body></html>`;
 	return { subject: o.subject, text, html, kind: o.kind };
 }
 

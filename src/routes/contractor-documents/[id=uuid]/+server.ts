@@ -11,12 +11,13 @@ export const GET: RequestHandler = async (event) => {
 	// Another contractor's document answers as missing, so ids reveal nothing.
 	const doc = await findDocumentFor(event.params.id, user);
 	if (!doc) error(404, 'Not found');
-	const bytes = await storage().get(doc.storageKey);
-	if (!bytes) error(404, 'Not found');
-	return new Response(bytes as Uint8Array<ArrayBuffer>, {
+	// Streamed from storage (disk or S3) rather than read whole into memory first.
+	const file = await storage().stream(doc.storageKey);
+	if (!file) error(404, 'Not found');
+	return new Response(file.body, {
 		headers: {
 			'Content-Type': doc.contentType,
-			'Content-Length': String(bytes.byteLength),
+			'Content-Length': String(file.size),
 			// Named by the server from the sniffed type the key was stored under, never the uploader's name.
 			'Content-Disposition': `inline; filename="${doc.kind}.${doc.storageKey.split('.').pop()}"`,
 			'Cache-Control': 'private, no-store',

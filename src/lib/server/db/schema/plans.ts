@@ -1,4 +1,4 @@
-import { index, integer, jsonb, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, date, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 import { user } from './auth';
 
 /**
@@ -18,6 +18,10 @@ export const plan = pgTable(
 		input: jsonb('input').notNull(),
 		result: jsonb('result').notNull(),
 		revision: integer('revision').notNull().default(1),
+		/** E-mail curing reminders on (the plan page's switch; a stop link in each e-mail turns it off). */
+		curingReminders: boolean('curing_reminders').notNull().default(false),
+		/** The homeowner's IANA zone when they turned reminders on: they go out at 07:00 there. */
+		reminderTimeZone: text('reminder_time_zone').notNull().default('UTC'),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 		updatedAt: timestamp('updated_at', { withTimezone: true }).notNull().defaultNow()
 	},
@@ -46,3 +50,24 @@ export const planPhoto = pgTable(
 
 export type Plan = typeof plan.$inferSelect;
 export type PlanPhoto = typeof planPhoto.$inferSelect;
+
+/** A curing reminder e-mail written to the outbox: at most one per plan, pour date and day. */
+export const curingReminderSent = pgTable(
+	'curing_reminder_sent',
+	{
+		planId: uuid('plan_id')
+			.notNull()
+			.references(() => plan.id, { onDelete: 'cascade' }),
+		pourDate: date('pour_date').notNull(),
+		day: date('day').notNull(),
+		sentAt: timestamp('sent_at', { withTimezone: true }).notNull().defaultNow()
+	},
+	(t) => [primaryKey({ columns: [t.planId, t.pourDate, t.day] })]
+);
+
+/** Keys the app makes once and every server shares (the signing key of reminder stop links). */
+export const appSecret = pgTable('app_secret', {
+	name: text('name').primaryKey(),
+	value: text('value').notNull(),
+	createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
+});

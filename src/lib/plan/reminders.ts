@@ -1,0 +1,117 @@
+// Curing reminders: the days after a pour on which the homeowner has something to do (keep the slab
+// moist, strip the forms) or may start doing something (walk on it, set furniture, drive on it),
+// read from the plan computed for one first-pour date: the planned one, or a logged one later.
+
+import type { ParsedPlan } from './schema';
+import { parsePlanInput } from './schema';
+import { PlanInputError } from './geometry';
+import { computeParsedPlan, type PlanResult } from './index';
+import { addDays, dayNumber } from './schedule';
+
+export interface CuringItem {
+	id: 'moist' | 'forms-off' | 'walk' | 'furniture' | 'vehicles' | 'curing-done' | 'freeze-safe';
+	title: string;
+	text: string;
+	source: string;
+}
+
+/** One reminder e-mail: a calendar day and what it is for. */
+export interface CuringDay {
+	date: string;
+	/** Days after the first pour (1 = the day after). */
+	day: number;
+	items: CuringItem[];
+}
+
+/**
+ * At most this many daily keep-it-moist reminders: in cold weather the curing period (counted in
+ * equivalent age) can run for weeks, and a reminder a day for longer is noise (common practice, no
+ * published source).
+ */
+export const MAX_MOIST_DAYS = 14;
+
+const days = (a: string, b: string) =>
+	dayNumber(+b.slice(0, 4), +b.slice(5, 7), +b.slice(8, 10)) - dayNumber(+a.slice(0, 4), +a.slice(5, 7), +a.slice(8, 10));
+
+/** What to do on a curing day, by method (ACI 308R lists water, sheet and membrane curing). */
+function moistItem(method: ParsedPlan['curing']['method']): CuringItem | null {
+	switch (method) {
+		case 'wet':
+			return {
+				id: 'moist',
+				title: 'Keep it wet',
+				text: 'Keep the slab continuously wet today by sprinkling or ponding; do not let it dry between wettings.',
+				source: 'ACI 308R'
+			};
+		case 'cover':
+			return {
+				id: 'moist',
+				title: 'Keep it covered and moist',
+				text: 'Check the plastic sheet or wet burlap: lapped, weighted at the edges, and moist underneath; wet the slab again where it has dried.',
+				source: 'ACI 308R'
+			};
+		default:
+			return null; // a curing compound needs no daily wetting
+	}
+}
+
+/**
+ * The reminder days for a plan whose first pour is on `pourDate` (YYYY-MM-DD). Each day holds what
+ * falls on it: a keep-moist reminder from the day after the first pour until curing ends (at most
+ * MAX_MOIST_DAYS of them; none with a curing compound), and the milestones on the days the engine
+ * reaches them (strip the forms, walk, furniture, vehicles when the slab takes them, end of curing)
+ * and, when the plan's weather is cold, the day the last pour can survive a freeze.
+ */
+export function curingReminders(input: unknown, pourDate: string): CuringDay[] {
+	const parsed = parsePlanInput(input);
+	if (!parsed.ok) throw new PlanInputError(parsed.errors);
+	const plan: ParsedPlan = { ...parsed.plan, conditions: { ...parsed.plan.conditions, pourDate } };
+	return curingDaysOf(computeParsedPlan(plan), plan.curing.method);
+}
+
+/** The reminders planned from the plan's own pour date; none without one. */
+export function plannedCuringReminders(input: unknown): { pourDate: string | null; days: CuringDay[] } {
+	const parsed = parsePlanInput(input);
+	const pourDate = parsed.ok ? (parsed.plan.conditions.pourDate ?? null) : null;
+	return { pourDate, days: pourDate ? curingReminders(input, pourDate) : [] };
+}
+
+/** The reminder days of a plan already computed with a pour date. */
+export function curingDaysOf(r: PlanResult, method: ParsedPlan['curing']['method']): CuringDay[] {
+	const first = r.schedule.pourDays[0]?.date;
+	if (!first) return [];
+	const byDate = new Map<string, CuringItem[]>();
+	const add = (date: string, item: CuringItem) => {
+		if (days(first, date) < 1) return; // pour-day work is in the day plan, not a reminder
+		if (!byDate.has(date)) byDate.set(date, []);
+		byDate.get(date)!.push(item);
+	};
+	const done = r.milestones.find((m) => m.id === 'curing-done');
+	const moist = moistItem(method);
+	if (moist) {
+		// From the day after the first pour to the day before curing ends after the last pour.
+		const end = done?.date ?? addDays(r.schedule.pourDays.at(-1)!.date!, r.schedule.curingDays);
+		const n = Math.min(days(first, end) - 1, MAX_MOIST_DAYS);
+		for (let d = 1; d <= n; d++) add(addDays(first, d), moist);
+	}
+	for (const m of r.milestones)
+		if (m.date)
+			add(m.date, {
+				id: m.id,
+				title: m.title,
+				text: m.id === 'curing-done' ? `${m.title}: ${m.rule}.` : `${m.title} from today: ${m.rule}.`,
+				source: m.source
+			});
+	// The cold-weather caution's own figure: the day the slowest pour reaches 500 psi.
+	const safe = r.weather.pours.flatMap((p) => (p.date && p.freezeSafeDay !== null ? [addDays(p.date, p.freezeSafeDay)] : [])).sort();
+	if (r.weather.cold && safe.length)
+		add(safe.at(-1)!, {
+			id: 'freeze-safe',
+			title: 'Safe from a single freeze',
+			text: 'The slab has reached about 500 psi (3.5 MPa), enough to survive a single freeze; keep it covered through any frost until curing ends, and keep de-icing salts off it this first winter.',
+			source: 'ACI 306R (500 psi after Powers); strength from ACI 209R-92 on ASTM C1074 equivalent age'
+		});
+	return [...byDate.entries()]
+		.sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))
+		.map(([date, items]) => ({ date, day: days(first, date), items }));
+}

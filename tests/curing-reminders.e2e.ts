@@ -1,0 +1,79 @@
+// The plan page's curing reminders and calendar file, from a fresh visitor's sign-up to the stop
+// link in a reminder e-mail, against the built app, its job worker and the fake SMTP server.
+import fs from 'node:fs/promises';
+import AxeBuilder from '@axe-core/playwright';
+import { expect, test } from '@playwright/test';
+import ical from 'node-ical';
+import postgres from 'postgres';
+import { curingReminders } from '../src/lib/plan/reminders';
+import demoPlans from '../fixtures/demo-plans.json' with { type: 'json' };
+import { signUp, uniqueEmail, watchErrors } from './helpers';
+import { insertPlan } from './pro-helpers';
+
+test.use({ timezoneId: 'America/Denver' });
+
+test('a homeowner turns on curing reminders, adds the plan to a calendar, and stops them from the e-mail', async ({ page, browser }) => {
+	test.setTimeout(180_000);
+	const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+	try {
+		const email = uniqueEmail('curing');
+		await signUp(page, { name: 'Ines Ardal', email, password: 'keep-it-moist-1' });
+		const errors = watchErrors(page);
+		const { id } = await insertPlan(email, { name: 'Curing patio', postcode: '97321' });
+		const input = demoPlans.plans[0].input as { conditions: { pourDate: string } };
+		const pourDate = input.conditions.pourDate;
+		const days = curingReminders(input, pourDate);
+
+		await page.goto(`/plans/${id}`);
+		const section = page.getByRole('region', { name: 'Curing days' });
+		const status = section.getByTestId('reminder-status');
+		await expect(status).toContainText(`Off. When on, you get an e-mail at 07:00 (America/Denver) on each of the ${days.length} curing days`);
+		await section.getByLabel('E-mail me curing reminders').check();
+		await expect(section.getByText('Curing reminders are on.')).toBeVisible();
+		await expect(status).toContainText(`On: ${days.length} e-mails scheduled at 07:00 (America/Denver)`);
+		expect((await new AxeBuilder({ page }).include('section[aria-labelledby="yard-title"]').analyze()).violations).toEqual([]);
+
+		// The calendar file: every pour day and milestone of the plan, as all-day events.
+		const [download] = await Promise.all([page.waitForEvent('download'), section.getByRole('link', { name: 'Add to calendar' }).click()]);
+		expect(download.suggestedFilename()).toBe('Curing-patio.ics');
+		const events = Object.values(ical.sync.parseICS(await fs.readFile((await download.path())!, 'utf8'))).filter((c): c is ical.VEvent => c.type === 'VEVENT');
+		const pour = events.find((e) => /: pour /.test(e.summary))!;
+		expect(pour.datetype).toBe('date');
+		expect(`${pour.start.getFullYear()}-${String(pour.start.getMonth() + 1).padStart(2, '0')}-${String(pour.start.getDate()).padStart(2, '0')}`).toBe(pourDate);
+		for (const title of ['Strip the forms', 'Walk on it', 'Set furniture on it']) expect(events.some((e) => e.summary === `Curing patio: ${title}`)).toBe(true);
+
+		// The first reminder day comes: its job runs in the app's worker and the mail reaches the fake mailbox.
+		await sql`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key = ${`curing:${id}:${days[0].date}`}`;
+		let text = '';
+		await expect(async () => {
+			const [m] = await sql`SELECT text FROM dev_mail WHERE "to" = ${email} AND text LIKE '%Curing reminder for Curing patio%'`;
+			text = m?.text ?? '';
+			expect(text).toContain('/reminders/stop?token=');
+		}).toPass({ timeout: 60_000 });
+		expect(text).toContain(days[0].items[0].title);
+		const stopUrl = /(http\S+\/reminders\/stop\?token=\S+)/.exec(text)![1];
+
+		// A stranger's browser (not signed in): one click stops them.
+		const other = await browser.newContext();
+		const stranger = await other.newPage();
+		const strangerErrors = watchErrors(stranger);
+		await stranger.goto(stopUrl);
+		await expect(stranger.getByRole('heading', { name: 'Stop curing reminders' })).toBeVisible();
+		await expect(stranger.getByText('“Curing patio”')).toBeVisible();
+		await stranger.getByRole('button', { name: 'Stop these reminders' }).click();
+		await expect(stranger.getByRole('heading', { name: 'Curing reminders stopped' })).toBeVisible();
+		expect((await new AxeBuilder({ page: stranger }).analyze()).violations).toEqual([]);
+		// An altered link is refused.
+		await stranger.goto(stopUrl.replace(/.(?=$)/, (c) => (c === 'A' ? 'B' : 'A')));
+		await expect(stranger.getByRole('heading', { name: 'This link does not work' })).toBeVisible();
+		await other.close();
+
+		await page.reload();
+		await expect(section.getByLabel('E-mail me curing reminders')).not.toBeChecked();
+		await expect(status).toContainText('Off.');
+		expect(await sql`SELECT 1 FROM graphile_worker.jobs WHERE key LIKE ${`curing:${id}:%`}`).toHaveLength(0);
+		expect([...errors, ...strangerErrors]).toEqual([]);
+	} finally {
+		await sql.end();
+	}
+});
