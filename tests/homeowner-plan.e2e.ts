@@ -146,6 +146,28 @@ test('a signed-out visitor’s draft is kept through sign-up and lands in the ne
 	await expect(page.getByTestId('plan-item')).toContainText('Shed pad draft');
 });
 
+test('a draft started signed out is offered on My plans after a sign-up from the header', async ({ page }) => {
+	test.setTimeout(120_000);
+	const errors: string[] = [];
+	page.on('pageerror', (e) => errors.push(e.message));
+	await page.goto('/plans/new');
+	await page.getByLabel('Plan name').fill('Side path draft');
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');
+	// The header's "Create account" carries no way back to the planner: the account opens on My plans.
+	await signUp(page, { name: 'Otto Header', email: uniqueEmail('header'), password: 'header-sign-up' });
+	await page.goto('/plans');
+	const offer = page.getByTestId('browser-draft');
+	await expect(offer).toContainText('Side path draft');
+	await offer.getByRole('link', { name: 'Save it to my plans' }).click();
+	await expect(page.getByText('The plan you started before signing in is now saved to your account.')).toBeVisible();
+	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
+	await page.goto('/plans');
+	await expect(page.getByTestId('plan-item')).toContainText('Side path draft');
+	// Saved, it is no longer offered.
+	await expect(page.getByTestId('browser-draft')).toHaveCount(0);
+	expect(errors).toEqual([]);
+});
+
 test('two tabs editing one plan: the stale one is refused and offered the newer version', async ({ page, context }) => {
 	await signUp(page, { name: 'Ivo Tabb', email: uniqueEmail('tabs'), password: 'two-tabs-open' });
 	await expect(page).toHaveURL(/\/plans$/);

@@ -6,8 +6,9 @@ import { pdfPageCount, pdfPagePng, pdfPageText } from './pdf-text';
 
 test.describe.configure({ timeout: 90_000 });
 
-/** The demo patio's printed plan on Letter paper; it printed on 17 pages before the print styles. */
-const PRINT_PAGES_AT_MOST = 9;
+/** The demo patio's printed plan on Letter paper; 17 pages before the print styles, 9 while the
+ *  sections were grid items (not split across pages), 8 in block flow. */
+const PRINT_PAGES_AT_MOST = 8;
 
 /** A fresh visitor signs in as the demo homeowner who owns `planId` and opens that plan. */
 async function openDemoPlan(page: Page, planId: string) {
@@ -55,8 +56,12 @@ test('the plan page opens with the build card and carries a layout sheet with sq
 	await page.emulateMedia({ media: 'print' });
 	await expect(page.getByTestId('build-card')).toBeVisible();
 	await expect(page.getByTestId('layout-sheet')).toBeVisible();
-	await expect(page.getByTestId('layout-drawing')).toBeVisible();
+	await expect(page.getByTestId('layout-drawing-print')).toBeVisible();
+	await expect(page.getByTestId('layout-drawing')).toBeHidden();
 	await expect(page.getByRole('link', { name: 'Edit the plan' })).toBeHidden();
+	// Stake ids on paper at least 7 CSS px tall (they were about 6 px: the drawing is shrunk to 4.2 in).
+	const stakeLabel = page.getByTestId('layout-drawing-print').locator('text', { hasText: /^S1$/ });
+	expect((await stakeLabel.boundingBox())!.height).toBeGreaterThanOrEqual(7);
 	await page.screenshot({ path: 'test-results/screens/plan-print.png', fullPage: true });
 	// Printed on Letter paper: the build card and the layout sheet start on page 1, the screen-only
 	// parts (3D, the outline editor's copy, photos, buttons, navigation) are left out, and no table
@@ -69,6 +74,10 @@ test('the plan page opens with the build card and carries a layout sheet with sq
 	for (const hidden of ['Edit the plan', 'Download PDF', 'Site photos', 'Sign out', '3D']) expect(first).not.toContain(hidden);
 	console.log(`printed plan: ${pages} pages`);
 	expect(pages).toBeLessThanOrEqual(PRINT_PAGES_AT_MOST);
+	// The sections flow on: the summary follows the layout sheet on page 2 instead of jumping to page 3.
+	const second = await pdfPageText(printed, 2);
+	expect(second).toContain('Summary');
+	expect(second).toContain('Concrete to order');
 	await mkdir('test-results/screens', { recursive: true });
 	for (const n of [1, 2]) await writeFile(`test-results/screens/plan-print-page-${n}.png`, await pdfPagePng(printed, n));
 	const rowsCut = await page.evaluate(() =>

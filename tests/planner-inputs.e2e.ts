@@ -243,7 +243,7 @@ test("a freestanding pad's chosen high edge is marked on the plan page: 2D view,
 	await expect(card.locator('div', { hasText: /^High side/ }).getByRole('definition').first()).toHaveText('edge C–D');
 	const sheet = page.getByTestId('layout-sheet');
 	await expect(sheet.getByTestId('sheet-high-edge')).toHaveText('high side, edge C–D');
-	await expect(sheet.locator('svg line[data-high]')).toHaveCount(1);
+	await expect(sheet.getByTestId('layout-drawing').locator('line[data-high]')).toHaveCount(1);
 	await expect(sheet.getByTestId('layout-drawing').getByText('HIGH SIDE', { exact: true })).toBeVisible();
 	const pdf = await page.request.get(`/plans/${id}/plan.pdf`);
 	expect(pdf.status()).toBe(200);
