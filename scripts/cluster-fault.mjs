@@ -8,17 +8,12 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { root, settings } from './lib/settings.mjs';
 import { background, fail, log } from './lib/run.mjs';
-import { ensurePostgres } from './lib/pg.mjs';
-import { build, ensureDependencies, migrate, node, seed } from './lib/steps.mjs';
+import { node, prepare } from './lib/steps.mjs';
 
 const short = process.argv.includes('--short');
 process.env.PGDATABASE_TEST ??= 'stakeline_cluster_fault';
 const s = settings('test');
-ensureDependencies();
-ensurePostgres(s, { freshDatabase: true });
-migrate(s.env);
-seed(s.env);
-build({ devMailbox: s.useFakeMail });
+prepare(s, { freshDatabase: true });
 
 const { startCluster } = await import('./lib/cluster.mjs');
 const { killDrill } = await import('./lib/cluster-drill.mjs');

@@ -9,17 +9,12 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { root, settings } from './lib/settings.mjs';
 import { background, fail, log } from './lib/run.mjs';
-import { ensurePostgres } from './lib/pg.mjs';
-import { build, ensureDependencies, migrate, node, seed } from './lib/steps.mjs';
+import { node, prepare } from './lib/steps.mjs';
 
 const s = settings('dev');
 const started = Date.now();
 
-ensureDependencies();
-ensurePostgres(s);
-migrate(s.env);
-seed(s.env);
-build({ devMailbox: s.useFakeMail });
+prepare(s);
 
 // Imported after ensureDependencies: the S3 fake comes from node_modules.
 const { startCluster, ensureNginx } = await import('./lib/cluster.mjs');

@@ -18,9 +18,8 @@ import path from 'node:path';
 import { parseArgs } from 'node:util';
 import autocannon from 'autocannon';
 import { root, settings } from './lib/settings.mjs';
-import { background, fail, log, run } from './lib/run.mjs';
-import { ensurePostgres } from './lib/pg.mjs';
-import { bin, build, ensureDependencies, migrate, node, seed } from './lib/steps.mjs';
+import { background, fail, log, run, waitForOk } from './lib/run.mjs';
+import { bin, node, prepare } from './lib/steps.mjs';
 
 const ROUTES = ['healthz', 'home', 'wizard', 'account', 'estimate', 'plan'];
 const { values: opt } = parseArgs({
@@ -43,11 +42,7 @@ const connections = opt.connections.split(',').map(Number);
 if (connections.some((c) => !(c >= 1 && c <= 256))) fail('--connections takes counts of 1–256, comma-separated.');
 
 const s = settings('dev');
-ensureDependencies();
-ensurePostgres(s);
-migrate(s.env);
-seed(s.env);
-build({ devMailbox: s.useFakeMail });
+prepare(s);
 buildBare();
 
 const appUrl = `http://127.0.0.1:${s.port}`;
@@ -79,7 +74,7 @@ const bare = background(node, [path.join(root, 'scripts', 'bare', 'build')], {
 });
 children.push(app, bare);
 
-if (!(await up(`${appUrl}/healthz`)) || !(await up(bareUrl))) fail('The app or the bare page did not start within a minute.');
+if (!(await waitForOk(`${appUrl}/healthz`)) || !(await waitForOk(bareUrl))) fail('The app or the bare page did not start within a minute.');
 
 const cookie = await signIn();
 const planId = await firstPlan(cookie);
@@ -141,18 +136,6 @@ function buildBare() {
 	if (fs.existsSync(path.join(dir, 'build', 'index.js'))) return;
 	log('Building the bare page (scripts/bare)…');
 	run(bin('vite'), ['build', '--logLevel', 'warn'], { cwd: dir });
-}
-
-async function up(url) {
-	for (let i = 0; i < 300; i++) {
-		try {
-			if ((await fetch(url)).ok) return true;
-		} catch {
-			/* not yet */
-		}
-		await new Promise((r) => setTimeout(r, 200));
-	}
-	return false;
 }
 
 /** Signs in the first demo homeowner through the sign-in form; the session cookie. */

@@ -5,19 +5,14 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { root, settings } from './lib/settings.mjs';
 import net from 'node:net';
-import { background, fail, log } from './lib/run.mjs';
-import { ensurePostgres } from './lib/pg.mjs';
-import { bin, build, ensureDependencies, migrate, node, seed } from './lib/steps.mjs';
+import { background, fail, log, waitForOk } from './lib/run.mjs';
+import { bin, node, prepare } from './lib/steps.mjs';
 
 const dev = process.argv.includes('--dev');
 const s = settings('dev');
 const started = Date.now();
 
-ensureDependencies();
-ensurePostgres(s);
-migrate(s.env);
-seed(s.env);
-if (!dev) build({ devMailbox: s.useFakeMail });
+prepare(s, { build: !dev });
 
 // A server already on the port would answer the health check below in this one's place.
 if (!(await portFree(s.host, s.port))) fail(`Port ${s.port} on ${s.host} is in use (another Stakeline running?); stop it or set PORT.`);
@@ -45,7 +40,7 @@ app.on('exit', (code) => {
 });
 
 // Asked on loopback: ORIGIN may name a proxy or an HTTPS address this process does not serve.
-if (!(await waitForHealth(`http://127.0.0.1:${s.port}/healthz`))) {
+if (!(await waitForOk(`http://127.0.0.1:${s.port}/healthz`))) {
 	for (const c of children) c.kill('SIGTERM');
 	console.error('The app did not answer within a minute; see the messages above.');
 	process.exit(1);
@@ -57,18 +52,6 @@ for (const u of demo.users) console.log(`    ${u.role.padEnd(10)} ${u.email.padE
 if (s.useFakeMail) console.log(`\n  Mail sent by the app: ${s.env.ORIGIN}/dev/mailbox`);
 if (s.useFakePayments) console.log(`  Fake payment provider (nothing is charged): http://127.0.0.1:${s.paymentsPort}/_fake`);
 console.log('  Stop with Ctrl-C; the database keeps running (npm run db:stop stops it).\n');
-
-async function waitForHealth(url) {
-	for (let i = 0; i < 300; i++) {
-		try {
-			if ((await fetch(url)).ok) return true;
-		} catch {
-			/* not up yet */
-		}
-		await new Promise((r) => setTimeout(r, 200));
-	}
-	return false;
-}
 
 function portFree(host, port) {
 	return new Promise((resolve) => {

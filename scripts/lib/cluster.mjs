@@ -6,7 +6,7 @@ import net from 'node:net';
 import path from 'node:path';
 import { spawn } from 'node:child_process';
 import { root } from './settings.mjs';
-import { aptInstall, capture, isRoot } from './run.mjs';
+import { aptInstall, capture, isRoot, waitForOk } from './run.mjs';
 import { startS3Fake } from './s3-fake.mjs';
 
 /** nginx from Debian's packages, installed when missing; returns its path. */
@@ -183,24 +183,6 @@ export async function copyUploadsToBucket(uploadDir, s3env) {
 		client.destroy();
 	}
 	return copied;
-}
-
-/**
- * Polls url until it answers 2xx (true) or `ms` pass (false).
- * @param {string} url @param {{ ms?: number, headers?: Record<string, string> }} [o]
- */
-export async function waitForOk(url, { ms = 60_000, headers = {} } = {}) {
-	const until = Date.now() + ms;
-	while (Date.now() < until) {
-		try {
-			const res = await fetch(url, { headers, signal: AbortSignal.timeout(3000) });
-			if (res.ok) return true;
-		} catch {
-			/* not up yet */
-		}
-		await new Promise((r) => setTimeout(r, 200));
-	}
-	return false;
 }
 
 /**

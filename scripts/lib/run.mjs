@@ -52,3 +52,21 @@ export function aptInstall(packages) {
 	run('apt-get', ['update', '-q'], { env });
 	run('apt-get', ['install', '-y', '-q', '--no-install-recommends', ...packages], { env });
 }
+
+/**
+ * Polls url until it answers 2xx (true) or `ms` pass (false).
+ * @param {string} url @param {{ ms?: number, headers?: Record<string, string> }} [o]
+ */
+export async function waitForOk(url, { ms = 60_000, headers = {} } = {}) {
+	const until = Date.now() + ms;
+	while (Date.now() < until) {
+		try {
+			const res = await fetch(url, { headers, signal: AbortSignal.timeout(3000) });
+			if (res.ok) return true;
+		} catch {
+			/* not up yet */
+		}
+		await new Promise((r) => setTimeout(r, 200));
+	}
+	return false;
+}

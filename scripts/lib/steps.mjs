@@ -4,6 +4,7 @@ import path from 'node:path';
 import { createHash } from 'node:crypto';
 import { root } from './settings.mjs';
 import { aptInstall, log, run } from './run.mjs';
+import { ensurePostgres } from './pg.mjs';
 
 const node = process.execPath;
 const bin = (name) => path.join(root, 'node_modules', '.bin', name);
@@ -60,3 +61,17 @@ export function chromiumPath() {
 }
 
 export { bin, node };
+
+/**
+ * What the commands that serve the app do first: the npm dependencies, the local PostgreSQL (with a
+ * fresh database when asked), the migrations, the demo data and a build with the fake mailbox when
+ * the fake mail server runs.
+ * @param {{ env: Record<string, string>, useFakeMail: boolean }} s @param {{ freshDatabase?: boolean, build?: boolean }} [o]
+ */
+export function prepare(s, { freshDatabase = false, build: withBuild = true } = {}) {
+	ensureDependencies();
+	ensurePostgres(s, { freshDatabase });
+	migrate(s.env);
+	seed(s.env);
+	if (withBuild) build({ devMailbox: s.useFakeMail });
+}
