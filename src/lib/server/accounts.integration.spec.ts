@@ -7,6 +7,7 @@ import { contractor, devMail, emailToken, mailOutbox, session, user } from './db
 import { createSession, generateSessionToken, invalidateUserSessions, validateSessionToken } from './auth';
 import { consumeEmailToken, createEmailToken, peekEmailToken } from './email-tokens';
 import { startWorker } from './jobs';
+import { emptyJobQueue } from './jobs/testing';
 import { MAX_ATTEMPTS, mailIdle, queueMail } from './mail';
 import { verifyPassword } from './password';
 import { hashToken } from './tokens';
@@ -16,6 +17,7 @@ const DAY = 86_400_000;
 const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
 
 beforeAll(async () => {
+	await emptyJobQueue();
 	// The job worker an app server runs, here in the test process, so queued mail is really sent.
 	await startWorker({ origin: 'http://stakeline.test', cron: false });
 });

@@ -48,8 +48,10 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 
 	it('LayoutSheet draws the top view and places every stake along its board', () => {
 		const html = render(LayoutSheet, { props: { plan: result } }).body;
-		expect(html).toContain('<svg');
-		expect((html.match(/<polygon/g) ?? []).length).toBe(result.geometry.sections.length);
+		// Two copies of the drawing, each with one outline per section: the screen's, and the print copy
+		// laid out on a smaller canvas so its labels print larger.
+		expect((html.match(/<svg/g) ?? []).length).toBe(2);
+		expect((html.match(/<polygon/g) ?? []).length).toBe(2 * result.geometry.sections.length);
 		const out = text(html);
 		for (const s of layoutSheet(result).stakes) expect(out).toContain(`${s.id} ${s.board} ${s.from}, along ${s.along} ${tapeLength(s.distance, u)}`);
 	});
