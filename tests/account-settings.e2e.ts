@@ -36,9 +36,10 @@ test('a homeowner turns message e-mails off (bids stay on) and moves the account
 	await page.goto('/account', { waitUntil: 'networkidle' });
 	const notices = page.getByRole('region', { name: 'E-mail notices' });
 	// A homeowner sees the homeowner's switches only, all on at first.
-	await expect(notices.getByRole('checkbox')).toHaveCount(2);
+	await expect(notices.getByRole('checkbox')).toHaveCount(3);
 	await expect(notices.getByLabel('Bids on my plans (new, changed, withdrawn)')).toBeChecked();
 	await expect(notices.getByLabel('New messages')).toBeChecked();
+	await expect(notices.getByLabel('Curing reminders for plans I turned them on for')).toBeChecked();
 	await expect(notices).not.toContainText('New leads');
 	await notices.getByLabel('New messages').uncheck();
 	await notices.getByRole('button', { name: 'Save e-mail choices' }).click();

@@ -7,7 +7,6 @@ import { auditLog, devMail, mailOutbox, session, user } from './db/schema';
 import { AccessRefused, setAccountDisabled } from './account-access';
 import { createSession, generateSessionToken, validateSessionToken } from './auth';
 import { startWorker } from './jobs';
-import { emptyJobQueue } from './jobs/testing';
 import { mailIdle, queueMail } from './mail';
 import { newMessageMail, newBidMail } from './mail/pro-notices';
 import { resetPasswordMail } from './mail/templates';
@@ -24,7 +23,6 @@ async function tokenSentTo(to: string) {
 const outboxTo = (to: string) => db.select({ subject: mailOutbox.subject, text: mailOutbox.text }).from(mailOutbox).where(eq(mailOutbox.to, to));
 
 beforeAll(async () => {
-	await emptyJobQueue();
 	// The job worker an app server runs, here in the test process, so mailed links arrive.
 	await startWorker({ origin: 'http://stakeline.test', cron: false });
 });

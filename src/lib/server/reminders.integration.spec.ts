@@ -1,5 +1,5 @@
 // Curing reminders end to end on the real PostgreSQL, the job queue and the fake SMTP server.
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { curingReminders } from '$lib/plan/reminders';
 import { addDays } from '$lib/plan/schedule';
@@ -7,14 +7,10 @@ import { todayIn, zonedTime } from '$lib/reader';
 import { client, db } from './db';
 import { curingReminderSent, devMail, mailOutbox, user } from './db/schema';
 import { startWorker } from './jobs';
-import { emptyJobQueue } from './jobs/testing';
 import { mailIdle } from './mail';
 import { createPlan, deletePlan, updatePlan } from './plans';
 import { curingReminderStatus, sendCuringReminder, setCuringReminders, stopCuringReminders, unsubscribeToken, verifyUnsubscribeToken } from './reminders';
 import { createUser } from './users';
-
-// Its workers start from an empty queue, not behind mail other spec files queued without one.
-beforeAll(emptyJobQueue);
 
 afterAll(async () => {
 	await mailIdle();
