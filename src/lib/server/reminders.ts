@@ -110,10 +110,10 @@ export async function curingReminderStatus(planId: string, ownerId: string) {
 		.innerJoin(user, eq(user.id, plan.ownerId))
 		.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)));
 	if (!row) return null;
-	const jobs = await db.execute<{ key: string }>(
-		sql`SELECT key FROM graphile_worker.jobs WHERE key LIKE ${`${keyPrefix(planId)}%`} AND attempts < max_attempts ORDER BY run_at`
-	);
-	const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(curingReminderSent).where(eq(curingReminderSent.planId, planId));
+	const [jobs, [{ n }]] = await Promise.all([
+		db.execute<{ key: string }>(sql`SELECT key FROM graphile_worker.jobs WHERE key LIKE ${`${keyPrefix(planId)}%`} AND attempts < max_attempts ORDER BY run_at`),
+		db.select({ n: sql<number>`count(*)::int` }).from(curingReminderSent).where(eq(curingReminderSent.planId, planId))
+	]);
 	const { pourDate, days } = reminderDays(row);
 	return {
 		on: row.on,

@@ -12,8 +12,14 @@ import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const me = requireRole(event, 'homeowner');
-	// The plan, its photos and pour log at once; photos and records are returned only when the plan is the user's own.
-	const [found, photos, records] = await Promise.all([findOwnPlan(event.params.id, me.id), listPhotos(event.params.id), listPourRecords(event.params.id)]);
+	// The plan, its photos, pour log and reminder status at once; the rest is returned only when the plan is the user's own
+	// (the reminder status reads the plan by its owner itself).
+	const [found, photos, records, reminders] = await Promise.all([
+		findOwnPlan(event.params.id, me.id),
+		listPhotos(event.params.id),
+		listPourRecords(event.params.id),
+		curingReminderStatus(event.params.id, me.id)
+	]);
 	if (!found) error(404, 'No such plan.');
 	const result = currentResult(found.input, found.result);
 	return {
@@ -23,7 +29,7 @@ export const load = (async (event) => {
 		// The strength timeline and milestones again from the pour log's dates and temperatures.
 		logged: loggedForecastFor(found.input, result, records),
 		locale: readerLocale(event.request.headers.get('accept-language')),
-		reminders: await curingReminderStatus(found.id, me.id),
+		reminders,
 		readerTimeZone: event.locals.reader.timeZone
 	};
 }) satisfies PageServerLoad;
