@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { planInside } from './bounds.arbitraries';
 import { toRoundedJson } from './format';
 import { computePlan, estimate, type PlanInput, type PlanResult } from './index';
+import { MAX_PRACTICAL_PARTS } from './mixing';
 import { answerBytesBound, LIMITS } from './schema';
 import { ELL, largestPlan, rect } from './test-plans';
 
@@ -136,7 +137,11 @@ describe('the answer stays within its stated bound for any plan inside the limit
 				const bytes = Buffer.byteLength(toRoundedJson(r.plan));
 				const corners = r.plan.geometry.sections.reduce((s, x) => s + x.outline.length, 0);
 				const stakes = r.plan.elevations.stakes.length;
-				expect(stakes).toBeLessThanOrEqual(LIMITS.stakes + corners); // one per spacing plus corners
+				// The schema counts stakes along the outline (one per spacing plus corners). A section too
+				// big to pour at once is cut into at most MAX_PRACTICAL_PARTS pours, and a straight cut
+				// through a polygon is at most half its perimeter, so the bulkheads add at most one more
+				// outline's worth. // common practice, no published source (stake spacing); geometry
+				expect(stakes).toBeLessThanOrEqual(LIMITS.stakes + corners + (MAX_PRACTICAL_PARTS - 1) * (LIMITS.stakes / 2 + corners));
 				expect(bytes).toBeLessThanOrEqual(answerBytesBound(stakes, corners, r.plan.geometry.sections.length));
 				expect(bytes).toBeLessThan(1_000_000);
 			}),
@@ -144,6 +149,29 @@ describe('the answer stays within its stated bound for any plan inside the limit
 		);
 		// Large plans take a while on a loaded machine; time itself is the bench's concern.
 	}, 60_000);
+
+	it('counts the bulkheads of split pours within the bound', () => {
+		// Eight 15 × 14 ft sections, 2 in thick, stakes every foot, 10 lb bags for one person: each
+		// section is poured in three parts, and the bulkhead stakes come on top of the outline's.
+		const sections = Array.from({ length: 8 }, (_, i) => ({ outline: rect(15.034 * i, 0, 15.034, 14.001) }));
+		const r = estimate({
+			units: 'imperial',
+			sections,
+			houseEdge: null,
+			thickness: 2,
+			forms: { stakeSpacing: 1 },
+			thickenedEdge: { edges: 'none' },
+			bags: { offered: [{ size: 10 }] },
+			crew: { method: 'hand', people: 1, workingMinutes: 123 },
+			conditions: { airTemp: [32] }
+		} as PlanInput);
+		if (!r.ok) throw new Error(JSON.stringify(r.errors));
+		expect(r.plan.mixing.sections.map((s) => s.split?.parts)).toEqual(Array(8).fill(3));
+		const stakes = r.plan.elevations.stakes.length;
+		expect(stakes).toBeGreaterThan(LIMITS.stakes); // the outline alone is 465 ft: the bulkheads add the rest
+		expect(stakes).toBeLessThanOrEqual(LIMITS.stakes + 32 + (MAX_PRACTICAL_PARTS - 1) * (LIMITS.stakes / 2 + 32));
+		expect(Buffer.byteLength(toRoundedJson(r.plan))).toBeLessThanOrEqual(answerBytesBound(stakes, 32, 8));
+	});
 
 	it('meets the bound at every limit at once', () => {
 		// The largest plan: 3 sections of 100 corners, 600 stakes' worth of outline, the smallest bag.

@@ -20,7 +20,7 @@ async function tokenSentTo(to: string) {
 	await expect.poll(async () => (text = (await db.select().from(devMail).where(eq(devMail.to, to)))[0]?.text ?? '')).toMatch(/token=/);
 	return /token=([A-Za-z0-9_=-]+)/.exec(text)![1];
 }
-const outboxTo = (to: string) => db.select({ subject: mailOutbox.subject, text: mailOutbox.text }).from(mailOutbox).where(eq(mailOutbox.to, to));
+const outboxTo = (to: string) => db.select({ subject: mailOutbox.subject, text: mailOutbox.text }).from(mailOutbox).where(eq(mailOutbox.to, to)).orderBy(mailOutbox.createdAt);
 
 beforeAll(async () => {
 	// The job worker an app server runs, here in the test process, so mailed links arrive.

@@ -120,7 +120,7 @@ describe('leads', () => {
 		expect(seen?.lead.snapshot.input).toEqual({ units: 'imperial', note: 'first' });
 		expect([seen?.lead.planRevision, seen?.lead.latestRevision]).toEqual([1, 2]);
 		expect(seen?.lead.notes).toBe('Gate is on the left.');
-		const mails = await db.select().from(mailOutbox).where(eq(mailOutbox.to, c.email));
+		const mails = await db.select().from(mailOutbox).where(eq(mailOutbox.to, c.email)).orderBy(mailOutbox.createdAt);
 		expect(mails.map((m) => m.subject).filter((s) => !s.startsWith('Confirm'))).toEqual([
 			expect.stringMatching(/^New lead near Keokuk, IA$/),
 			expect.stringMatching(/newer plan revision/)
