@@ -32,6 +32,15 @@ test('an L around a house corner keeps both walls through save, reload, a split 
 	await expect(housesDrawn(page)).toHaveCount(2);
 	// Revisiting the step shows the sizes that were applied, not the form's own defaults.
 	await goTo(page, 'Pitch');
+	// The High side list names each edge once: the default (the first wall) leads, and is not listed again.
+	await expect(page.getByLabel('High side').locator('option')).toHaveText([
+		'Along the first house wall (edge C–D)',
+		'edge A–B',
+		'edge B–C',
+		'edge D–E (house wall)',
+		'edge E–F',
+		'edge F–A'
+	]);
 	// The preset starts with a cross fall, so water runs away from both walls (IRC R401.3).
 	await expect(page.getByLabel('Cross fall')).toHaveValue('2');
 	const pitch = page.getByLabel('Resulting pitch');
@@ -91,6 +100,8 @@ test('a freestanding shed pad with a chosen high edge, in two pours, saved and r
 	await expect(housesDrawn(page)).toHaveCount(0);
 
 	await goTo(page, 'Pitch');
+	// Freestanding, the default is the first edge, listed once.
+	await expect(page.getByLabel('High side').locator('option')).toHaveText(['edge A–B (first edge)', 'edge B–C', 'edge C–D', 'edge D–A']);
 	await page.getByLabel('High side').selectOption({ label: 'edge C–D' });
 	await page.getByLabel('Fall', { exact: true }).fill('1');
 	// 1 % over the 12 ft from C–D to A–B: 12 × 12 in × 1 % = 1.44 in.
