@@ -116,7 +116,14 @@ test('a freestanding shed pad with a chosen high edge, in two pours, saved and r
 	// The cut runs across the 12 ft side: the old C–D is now the second pour's edge B–C.
 	await expect(page.getByLabel('High side').locator('option:checked')).toHaveText('pour 2, edge B–C');
 	await expect(page.getByLabel('Resulting pitch')).toContainText('1.44 in');
-	const stored = (await (await page.request.get(`/api/plans/${id}`)).json()).plan.input;
+	const record = (await (await page.request.get(`/api/plans/${id}`)).json()).plan;
+	const stored = record.input;
+	// The edges the two pours share lie inside the slab: the list does not offer them as a high side.
+	const inside = (record.result.geometry.sections as { edges: { kind: string }[] }[]).flatMap((sec, s) => sec.edges.flatMap((e, i) => (e.kind === 'coldJoint' ? [`${s}:${i}`] : [])));
+	expect(inside).toHaveLength(2);
+	const offered = await page.getByLabel('High side').locator('option').evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value));
+	expect(offered).toHaveLength(1 + 8 - 1 - 2); // the default, then the eight edges less the default and the two inside
+	for (const v of inside) expect(offered).not.toContain(v);
 	expect(stored.houseEdge).toBeNull();
 	expect(stored.sections).toHaveLength(2);
 	expect(stored.slope.highEdge).toEqual({ section: 1, edge: 1 });
