@@ -481,8 +481,8 @@ function page(title, inner) {
 	return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${esc(title)}</title>
 <style>body{font-family:system-ui,sans-serif;margin:0;background:#eef2ee;color:#1d2a22}main{max-width:28rem;margin:2rem auto;padding:1.5rem;background:#fff;border:1px solid #c9d3cb;border-radius:.75rem}
 h1{font-size:1.3rem;margin:0 0 .25rem}.note{font-size:.85rem;color:#4a5a4f;background:#f6f1df;border-radius:.4rem;padding:.5rem .75rem}
-.amount{font-size:1.6rem;font-weight:700;margin:.75rem 0}button{font:inherit;padding:.7rem 1rem;border-radius:.5rem;border:1px solid #2f5d45;cursor:pointer;width:100%;margin-top:.5rem}
-.pay{background:#2f5d45;color:#fff}.back{background:#fff;color:#2f5d45}label{display:block;margin-top:1rem;font-weight:600}select{font:inherit;width:100%;padding:.5rem;margin-top:.25rem}
+.amount{font-size:1.6rem;font-weight:700;margin:.75rem 0}button{font:inherit;min-height:44px;padding:.7rem 1rem;border-radius:.5rem;border:1px solid #2f5d45;cursor:pointer;width:100%;margin-top:.5rem}
+.pay{background:#2f5d45;color:#fff}.back{background:#fff;color:#2f5d45}label{display:block;margin-top:1rem;font-weight:600}select{font:inherit;min-height:44px;width:100%;padding:.5rem;margin-top:.25rem}
 table{width:100%;border-collapse:collapse;font-size:.9rem}td,th{text-align:left;padding:.3rem;border-bottom:1px solid #dde4de}</style></head>
 <body><main>${inner}</main></body></html>`;
 }
