@@ -126,7 +126,7 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await notices.getByRole('button', { name: 'Save e-mail choices' }).click();
 	await expect(notices.getByText('Saved.')).toBeVisible();
 	await page.reload({ waitUntil: 'networkidle' });
-	await expect(page.getByRole('region', { name: 'E-mail notices' }).getByLabel(/^Billing receipts/)).not.toBeChecked();
+	await expect(page.getByRole('region', { name: 'E-mail notices' }).getByLabel('Billing receipts (plan started, monthly payment received, lead credits added)')).not.toBeChecked();
 	await signOut(page);
 
 	// The admin sees the same state on the contractor's page.

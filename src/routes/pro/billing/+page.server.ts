@@ -66,7 +66,7 @@ const cancelAtEnd = (cancel: boolean) => async (event: RequestEvent) => {
 };
 
 /** Opens a lead as an extra lead on the next invoice: the contractor pressed the button that names the price. */
-const openExtra = async (event: RequestEvent) => {
+const openAsExtra = async (event: RequestEvent) => {
 	const user = await requireApprovedContractor(event);
 	const leadId = String((await event.request.formData()).get('lead') ?? '');
 	if (!/^[0-9a-f-]{36}$/i.test(leadId)) error(400, 'No lead was named.');
@@ -77,7 +77,7 @@ const openExtra = async (event: RequestEvent) => {
 };
 
 export const actions = {
-	openExtra,
+	openExtra: openAsExtra,
 	subscribe: toCheckout(startPlanCheckout),
 	buyPack: toCheckout(startPackCheckout),
 	updateCard: toCheckout(startCardUpdate),
