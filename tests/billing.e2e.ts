@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { leadPack, monthlyPlan, money } from '../src/lib/billing-plans';
+import { leadPack, monthlyPlan, price } from '../src/lib/billing-plans';
 import { insertLead } from './billing-helpers';
 import { demoPassword, demoUser, signIn, signOut, uniqueEmail, watchErrors } from './helpers';
 import { approvedNewContractor, insertPlan } from './pro-helpers';
@@ -49,7 +49,7 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	expect(data).not.toContain('Garden path');
 
 	// To the payment page and back without paying: nothing changes.
-	await page.getByRole('button', { name: `Start ${monthlyPlan.name} (${money(monthlyPlan.monthlyCents)} a month)` }).click();
+	await page.getByRole('button', { name: `Start ${monthlyPlan.name} (${price(monthlyPlan.monthlyCents)} a month)` }).click();
 	await expect(page).toHaveURL(fakePage);
 	await expect(page.getByText('nothing is charged')).toBeVisible();
 	await page.getByRole('button', { name: 'Cancel and go back' }).click();
@@ -70,7 +70,7 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await expect(page.getByTestId('leads-used')).toHaveText(`0 of ${monthlyPlan.leadsIncluded}`);
 	await expect(page.getByTestId('invoices').getByRole('listitem')).toHaveCount(1);
 	await expect(page.getByTestId('invoices')).toContainText(`${monthlyPlan.name}`);
-	await expect(page.getByTestId('invoices')).toContainText(`${money(monthlyPlan.monthlyCents)} · paid`);
+	await expect(page.getByTestId('invoices')).toContainText(`${price(monthlyPlan.monthlyCents)} · paid`);
 	await fitsAndAxeClean(page);
 
 	// The lead opens now, and uses one of the plan's leads.
