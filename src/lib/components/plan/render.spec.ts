@@ -1,7 +1,7 @@
 import { render } from 'svelte/server';
 import { describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
-import { formatSmall, formatVolume } from '$lib/plan/format';
+import { formatSmall, formatVolume } from '$lib/plan-view';
 import demo from '../../../../fixtures/demo-plans.json';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
 import BuildCard from './BuildCard.svelte';
@@ -13,7 +13,7 @@ import MixingPlan from './MixingPlan.svelte';
 import PlanSummary from './PlanSummary.svelte';
 import StakeMarkTable from './StakeMarkTable.svelte';
 import StrengthChart from './StrengthChart.svelte';
-import { formatDate, formatPercent, materialRows } from './format';
+import { formatDate, formatPercent, materialRows } from '$lib/plan-view';
 
 const plans = demo.plans.map((p) => ({ id: p.id, result: computePlan(p.input) }));
 

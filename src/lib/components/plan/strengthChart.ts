@@ -2,7 +2,7 @@
 // imported here on demand, in the browser only, with just the parts a line chart needs.
 
 import type { Plugin } from 'chart.js';
-import { formatPercent } from './format';
+import { formatPercent } from '$lib/plan-view';
 
 export interface Pin {
 	day: number;

@@ -7,9 +7,9 @@ import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import type { PlanResult } from '$lib/plan';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
-import { buildCardItems } from '$lib/components/plan/buildCard';
-import { GLOSSARY } from '$lib/components/plan/glossary';
-import { LABEL_SIZE, layoutDrawing, type LayoutDrawing } from '$lib/components/plan/layoutDrawing';
+import { buildCardItems } from '$lib/plan-view/buildCard';
+import { GLOSSARY } from '$lib/plan-view/glossary';
+import { LABEL_SIZE, layoutDrawing, type LayoutDrawing } from '$lib/plan-view/layoutDrawing';
 import {
 	DEFERRAL_FALLBACK,
 	READY_MIX_HINT,
@@ -29,7 +29,7 @@ import {
 	strengthNote,
 	summaryItems,
 	type MilestoneRow
-} from '$lib/components/plan/format';
+} from '$lib/plan-view';
 
 const require = createRequire(import.meta.url);
 
