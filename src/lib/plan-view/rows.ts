@@ -4,6 +4,7 @@
 
 import type { Caution, PlanResult, Severity } from '$lib/plan';
 import { length, planToM } from '$lib/plan/units';
+import { signal } from '$lib/palette';
 import type { PlanFigures } from '$lib/plan-figures';
 import {
 	formatArea,
@@ -258,7 +259,7 @@ export const DEFERRAL_FALLBACK = 'Local codes, permits and licensed professional
  */
 export const SEVERITY_LABEL: Record<Severity, string> = { danger: 'Danger', warning: 'Warning', info: 'Good to know' };
 /** ANSI Z535.1 safety red and safety orange (approximate sRGB), and our own information blue. */
-export const SEVERITY_COLOR: Record<Severity, string> = { danger: '#c8102e', warning: '#e8730c', info: '#1f4e66' };
+export const SEVERITY_COLOR: Record<Severity, string> = signal;
 const SEVERITY_RANK: Record<Severity, number> = { danger: 0, warning: 1, info: 2 };
 
 /** The deferral to local codes apart, the rest most severe first (stable within a level). */

@@ -5,6 +5,7 @@ import { readFile } from 'node:fs/promises';
 import { inflateSync } from 'node:zlib';
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
+import { print } from '$lib/palette';
 import type { PlanResult } from '$lib/plan';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
 import { buildCardItems } from '$lib/plan-view/buildCard';
@@ -109,17 +110,8 @@ export function pdfText(s: string, covers: (cp: number) => boolean): string {
 		.join('');
 }
 
-/** Stakeline tokens (src/app.css) for print. */
-const C = {
-	ink: '#1d2b25',
-	soft: '#4a5a52',
-	line: '#d9d3c4',
-	moss: '#2f6b4f',
-	mossLight: '#eef5ef',
-	clay: '#b4562a',
-	danger: '#a32626',
-	sky: '#1f4e66'
-} as const;
+/** Stakeline tokens for print (lib/palette.ts). */
+const C = print;
 
 /**
  * The plan as PDF bytes. `createdAt`: when the plan was last saved; `madeAt`: when this PDF is
