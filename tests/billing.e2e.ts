@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { extraLead, leadPack, monthlyPlan, money } from '../src/lib/billing-plans';
+import { extraLead, leadPack, monthlyPlan, price } from '../src/lib/billing-plans';
 import { insertLead, setUsage } from './billing-helpers';
 import { demoPassword, demoUser, signIn, signOut, uniqueEmail, watchErrors } from './helpers';
 import { approvedNewContractor, insertPlan } from './pro-helpers';
@@ -49,7 +49,7 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	expect(data).not.toContain('Garden path');
 
 	// To the payment page and back without paying: nothing changes.
-	await page.getByRole('button', { name: `Start ${monthlyPlan.name} (${money(monthlyPlan.monthlyCents)} a month)` }).click();
+	await page.getByRole('button', { name: `Start ${monthlyPlan.name} (${price(monthlyPlan.monthlyCents)} a month)` }).click();
 	await expect(page).toHaveURL(fakePage);
 	await expect(page.getByText('nothing is charged')).toBeVisible();
 	await page.getByRole('button', { name: 'Cancel and go back' }).click();
@@ -70,7 +70,7 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await expect(page.getByTestId('leads-used')).toHaveText(`0 of ${monthlyPlan.leadsIncluded}`);
 	await expect(page.getByTestId('invoices').getByRole('listitem')).toHaveCount(1);
 	await expect(page.getByTestId('invoices')).toContainText(`${monthlyPlan.name}`);
-	await expect(page.getByTestId('invoices')).toContainText(`${money(monthlyPlan.monthlyCents)} · paid`);
+	await expect(page.getByTestId('invoices')).toContainText(`${price(monthlyPlan.monthlyCents)} · paid`);
 	await fitsAndAxeClean(page);
 
 	// The lead opens now, and uses one of the plan's leads.
@@ -105,17 +105,17 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	const { id: secondPlanId } = await insertPlan(demoUser('homeowner').email, { name: `Side walk ${stamp}`, postcode: '97321' });
 	const extraId = await insertLead(secondPlanId, pro.email, { town: 'Tangent, OR', respondInDays: 5 });
 	await page.goto('/pro/leads');
-	await expect(page.getByTestId('leads-extra')).toContainText(`opens as an extra lead for ${money(extraLead.cents)} on your next invoice`);
+	await expect(page.getByTestId('leads-extra')).toContainText(`opens as an extra lead for ${price(extraLead.cents)} on your next invoice`);
 	await page.goto(`/pro/leads/${extraId}`);
 	await expect(page).toHaveURL(new RegExp(`/pro/billing\\?lead=${extraId}$`));
-	await expect(page.getByTestId('lead-teaser')).toContainText(`Opening this one adds ${money(extraLead.cents)} to your next invoice`);
+	await expect(page.getByTestId('lead-teaser')).toContainText(`Opening this one adds ${price(extraLead.cents)} to your next invoice`);
 	await expect(page.getByTestId('extra-leads')).toContainText('None this period');
 	await fitsAndAxeClean(page);
-	await page.getByRole('button', { name: `Open this lead for ${money(extraLead.cents)}` }).click();
+	await page.getByRole('button', { name: `Open this lead for ${price(extraLead.cents)}` }).click();
 	await expect(page).toHaveURL(new RegExp(`/pro/leads/${extraId}$`));
 	await expect(page.getByRole('heading', { name: `Side walk ${stamp}` })).toBeVisible();
 	await page.goto('/pro/billing');
-	await expect(page.getByTestId('extra-leads')).toHaveText(`1 this period: ${money(extraLead.cents)} on your next invoice`);
+	await expect(page.getByTestId('extra-leads')).toHaveText(`1 this period: ${price(extraLead.cents)} on your next invoice`);
 
 	// Billing receipts are a switch of their own on the account page.
 	await page.goto('/account', { waitUntil: 'networkidle' });
@@ -136,7 +136,7 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await expect(page.getByTestId('admin-billing-status')).toHaveText('Active');
 	await expect(page.getByTestId('admin-billing')).toContainText(`${monthlyPlan.leadsIncluded} of ${monthlyPlan.leadsIncluded} this period · 0 credits`);
 	await expect(page.getByTestId('admin-billing')).toContainText('checkout.session.completed');
-	await expect(page.getByTestId('admin-extra-leads')).toHaveText(`1 this period · ${money(extraLead.cents)} on the next invoice`);
+	await expect(page.getByTestId('admin-extra-leads')).toHaveText(`1 this period · ${price(extraLead.cents)} on the next invoice`);
 	await expect(page.getByTestId('admin-billing')).toContainText('extra lead');
 	expect(errors).toEqual([]);
 });

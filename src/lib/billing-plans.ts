@@ -1,3 +1,5 @@
+import { formatMoney } from './money';
+
 /**
  * Stakeline's own contractor plans and prices, in one place. Homeowners never pay Stakeline;
  * approved contractors pay for the leads they open. Amounts are in cents (US dollars).
@@ -32,7 +34,8 @@ export const leadPack = {
 
 export const leadPackCents = leadPack.leads * leadPack.perLeadCents;
 
-export const money = (cents: number) => `$${(cents / 100).toFixed(cents % 100 ? 2 : 0)}`;
+/** A price as the plan pages quote it: "$39", "$6.50" (the one money formatter, whole dollars bare). */
+export const price = (cents: number) => formatMoney(cents, currency.toUpperCase(), { wholeWhenEven: true });
 
 /** One sentence with the prices, for the sign-up page and the billing page. */
-export const priceLine = `${monthlyPlan.name}: ${money(monthlyPlan.monthlyCents)} a month with ${monthlyPlan.leadsIncluded} leads included; beyond that, ${money(extraLead.cents)} a lead on your next invoice, or prepaid in packs of ${leadPack.leads}.`;
+export const priceLine = `${monthlyPlan.name}: ${price(monthlyPlan.monthlyCents)} a month with ${monthlyPlan.leadsIncluded} leads included; beyond that, ${price(extraLead.cents)} a lead on your next invoice, or prepaid in packs of ${leadPack.leads}.`;

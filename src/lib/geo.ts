@@ -1,8 +1,10 @@
 /** Great-circle distances between postal-code centroids; good to a fraction of a percent here. */
+import { KM_PER_MILE } from '$lib/plan/units';
+
 export type LatLon = { lat: number; lon: number };
 
 export const EARTH_RADIUS_KM = 6371.0088; // IUGG mean radius
-export const KM_PER_MILE = 1.609344;
+export { KM_PER_MILE };
 
 const rad = (deg: number) => (deg * Math.PI) / 180;
 

@@ -10,4 +10,11 @@ describe('formatMoney', () => {
 		expect(formatMoney(310_000)).toBe('$3,100.00');
 		expect(formatMoney(toCents(1500), 'JPY')).toBe('¥1,500'); // the yen has no minor unit
 	});
+
+	it('leaves off zero cents only when asked, for prices quoted in a sentence', () => {
+		expect(formatMoney(3900, 'USD', { wholeWhenEven: true })).toBe('$39');
+		expect(formatMoney(650, 'USD', { wholeWhenEven: true })).toBe('$6.50');
+		expect(formatMoney(123_400, 'USD', { wholeWhenEven: true })).toBe('$1,234');
+		expect(formatMoney(3900)).toBe('$39.00'); // the same currency without the option keeps its cents
+	});
 });

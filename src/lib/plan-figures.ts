@@ -1,31 +1,70 @@
-import { z } from 'zod';
-import type { PlanResult } from '$lib/plan';
+import type { PlanResult, Units } from '$lib/plan';
 
 /**
  * The few plan numbers the handoff shows, read from a stored plan result as docs/api.md documents
  * them (area, net and order volume, bags, joint spacing, the DIY total, cautions). The lead keeps a
  * frozen copy of whatever the engine wrote then, so anything missing or shaped differently is left
- * out rather than guessed.
+ * out rather than guessed. The shapes are the engine's own types, picked, not described again.
  */
-const num = z.number().finite();
-const volume = z.object({ cubicFeet: num, cubicYards: num, cubicMeters: num });
-const resultShape = z.object({
+type R = PlanResult;
+export interface PlanFigures {
+	units: Units;
 	/** ISO 4217; a result without one was priced in US dollars. */
-	currency: z.string().regex(/^[A-Z]{3}$/).optional().catch(undefined),
-	area: z.object({ squareFeet: num, squareMeters: num }).optional().catch(undefined),
-	volume: z.object({ net: volume.optional().catch(undefined), order: volume.optional().catch(undefined) }).optional().catch(undefined),
-	bags: z.array(z.object({ size: num, unit: z.string(), count: num })).optional().catch(undefined),
-	joints: z.object({ maxSpacing: z.object({ feet: num, meters: num }) }).optional().catch(undefined),
-	materials: z.object({ diyTotal: z.object({ amount: num, complete: z.boolean() }) }).optional().catch(undefined),
-	cautions: z.array(z.object({ id: z.string(), title: z.string(), source: z.string() })).optional().catch(undefined)
-});
-const inputShape = z.object({ units: z.enum(['imperial', 'metric']).catch('imperial') }).catch({ units: 'imperial' });
+	currency?: R['currency'];
+	area?: Pick<R['area'], 'squareFeet' | 'squareMeters'>;
+	volume?: { net?: R['volume']['net']; order?: R['volume']['order'] };
+	bags?: Pick<R['bags'][number], 'size' | 'unit' | 'count'>[];
+	joints?: { maxSpacing: R['joints']['maxSpacing'] };
+	materials?: { diyTotal: Pick<R['materials']['diyTotal'], 'amount' | 'complete'> };
+	cautions?: Pick<R['cautions'][number], 'id' | 'title' | 'source'>[];
+}
 
-export type PlanFigures = z.output<typeof resultShape> & { units: 'imperial' | 'metric' };
+/** For each field of T, the JavaScript type its stored value must have; the compiler checks it against T. */
+type Kinds<T> = { [K in keyof T]-?: T[K] extends number ? 'number' : T[K] extends string ? 'string' : T[K] extends boolean ? 'boolean' : never };
+
+/** The fields of a stored part, when each one has its kind (numbers finite); undefined otherwise. */
+function part<T>(v: unknown, kinds: Kinds<T>): T | undefined {
+	if (!v || typeof v !== 'object') return undefined;
+	const out: Record<string, unknown> = {};
+	for (const [k, kind] of Object.entries(kinds) as [string, string][]) {
+		const x = (v as Record<string, unknown>)[k];
+		if (typeof x !== kind || (kind === 'number' && !Number.isFinite(x))) return undefined;
+		out[k] = x;
+	}
+	return out as T;
+}
+
+/** A stored list whose every item is a whole part; undefined when any is not. */
+function parts<T>(v: unknown, kinds: Kinds<T>): T[] | undefined {
+	if (!Array.isArray(v)) return undefined;
+	const items = v.map((x) => part(x, kinds));
+	return items.every((x) => x !== undefined) ? (items as T[]) : undefined;
+}
+
+type Figure<K extends keyof PlanFigures> = NonNullable<PlanFigures[K]>;
+
+const volume: Kinds<R['volume']['net']> = { cubicFeet: 'number', cubicYards: 'number', cubicMeters: 'number' };
+const get = (v: unknown, key: string): unknown => (v && typeof v === 'object' ? (v as Record<string, unknown>)[key] : undefined);
 
 export function planFigures(input: unknown, result: unknown): PlanFigures {
-	const r = resultShape.safeParse(result ?? {});
-	return { ...(r.success ? r.data : {}), units: inputShape.parse(input ?? {}).units };
+	const r = result ?? {};
+	const units = get(input, 'units');
+	const currency = get(r, 'currency');
+	const net = part(get(get(r, 'volume'), 'net'), volume);
+	const order = part(get(get(r, 'volume'), 'order'), volume);
+	const maxSpacing = part<R['joints']['maxSpacing']>(get(get(r, 'joints'), 'maxSpacing'), { feet: 'number', meters: 'number' });
+	const diyTotal = part<Figure<'materials'>['diyTotal']>(get(get(r, 'materials'), 'diyTotal'), { amount: 'number', complete: 'boolean' });
+	const figures: PlanFigures = {
+		currency: typeof currency === 'string' && /^[A-Z]{3}$/.test(currency) ? currency : undefined,
+		area: part<Figure<'area'>>(get(r, 'area'), { squareFeet: 'number', squareMeters: 'number' }),
+		volume: get(r, 'volume') && typeof get(r, 'volume') === 'object' ? { net, order } : undefined,
+		bags: parts<Figure<'bags'>[number]>(get(r, 'bags'), { size: 'number', unit: 'string', count: 'number' }),
+		joints: maxSpacing && { maxSpacing },
+		materials: diyTotal && { diyTotal },
+		cautions: parts<Figure<'cautions'>[number]>(get(r, 'cautions'), { id: 'string', title: 'string', source: 'string' }),
+		units: units === 'metric' ? 'metric' : 'imperial'
+	};
+	return Object.fromEntries(Object.entries(figures).filter(([, v]) => v !== undefined)) as PlanFigures;
 }
 
 /** Every top-level part of the engine's result, as src/lib/plan/index.ts defines PlanResult. */

@@ -7,7 +7,7 @@ import type { JointsResult } from './joints';
 import type { MixingResult } from './mixing';
 import { NIOSH_LOAD_CONSTANT_KG } from './mixing';
 import type { Model } from './model';
-import { M_PER_IN } from './units';
+import { MPA_PER_PSI, M_PER_IN } from './units';
 import type { VolumeResult } from './volume';
 import { addDays as addDaysIso, type ScheduleResult } from './schedule';
 import { toLbPerFt2h, type WeatherResult } from './weather';
@@ -126,7 +126,7 @@ const loads: Rule = ({ m }) => {
 	const steel = m.reinforcement === 'mesh' || m.reinforcement === 'rebar';
 	const loaded = m.loads.vehicles || m.loads.pointLoads;
 	if (steel && !loaded) return null;
-	const psi = m.designStrengthMpa / 0.00689475729;
+	const psi = m.designStrengthMpa / MPA_PER_PSI;
 	const fr = m.units === 'imperial' ? `${Math.round(modulusOfRupture.psi(psi))} psi` : `${one(modulusOfRupture.mpa(m.designStrengthMpa), 2)} MPa`;
 	const what = steel ? `reinforced with ${m.reinforcement === 'mesh' ? 'welded wire mesh' : 'rebar'}` : m.reinforcement === 'fiber' ? 'fiber-reinforced only' : 'unreinforced';
 	return {
@@ -144,11 +144,11 @@ const loads: Rule = ({ m }) => {
 const freezeThaw: Rule[] = [
 	({ m }) => {
 		const need = IRC_R402_2.psi[m.exposure];
-		const psi = m.designStrengthMpa / 0.00689475729;
+		const psi = m.designStrengthMpa / MPA_PER_PSI;
 		const low = psi < need - 0.5;
 		const air = IRC_R402_2.air[m.exposure];
 		if (!air && !low) return null;
-		const strength = m.units === 'imperial' ? `${need} psi` : `${one(need * 0.00689475729)} MPa`;
+		const strength = m.units === 'imperial' ? `${need} psi` : `${one(need * MPA_PER_PSI)} MPa`;
 		return {
 			id: 'freeze-thaw',
 			title: 'Winters that freeze: air-entrained concrete and enough strength',

@@ -3,7 +3,7 @@
 import { COMMON } from './defaults';
 import type { Pt } from './polygon';
 import type { EdgeRef, ParsedPlan } from './schema';
-import { KG_PER_LB, L_PER_US_GAL, M2_PER_FT2, M3_PER_FT3, M3_PER_YD3, M_PER_IN, massToKg, orderVolumeToM3, planToM, planVolumeToM3, smallToM, tempToC, windToKmh } from './units';
+import { KG_PER_LB, L_PER_US_GAL, M2_PER_FT2, MPA_PER_PSI, M3_PER_FT3, M3_PER_YD3, M_PER_IN, massToKg, orderVolumeToM3, planToM, planVolumeToM3, smallToM, tempToC, windToKmh } from './units';
 import type { Units } from './units';
 
 /** PS 20 dressed (dry) depth of each nominal board, inches (DOC PS 20). */
@@ -201,7 +201,7 @@ export function toModel(p: ParsedPlan): Model {
 		reinforcement: p.reinforcement,
 		loads: p.loads,
 		cement: p.mix.cement,
-		designStrengthMpa: u === 'imperial' ? p.mix.designStrength * 0.00689475729 : p.mix.designStrength,
+		designStrengthMpa: u === 'imperial' ? p.mix.designStrength * MPA_PER_PSI : p.mix.designStrength,
 		wastePercent: p.wastePercent,
 		bags: {
 			offered,

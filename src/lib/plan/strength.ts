@@ -1,6 +1,8 @@
 // Strength gain: ACI 209R-92 Eq. 2-1 on the equivalent age at 20 °C (ASTM C1074), so the timeline
 // follows the expected temperatures.
 
+import { MPA_PER_PSI } from './units';
+
 /** ACI 209R-92 Eq. 2-1 constants, moist-cured concrete. */
 export const ACI_209 = {
 	typeI: { a: 4.0, b: 0.85 },
@@ -73,7 +75,7 @@ export function strengthTimeline(
 			percent: r * 100,
 			equivalentAgeDays: age,
 			maturityDegreeHours: mt[i],
-			psi: (r * designMpa) / 0.00689475729,
+			psi: (r * designMpa) / MPA_PER_PSI,
 			megapascals: r * designMpa
 		};
 	});

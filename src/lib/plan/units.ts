@@ -13,6 +13,14 @@ export const M3_PER_YD3 = M3_PER_FT3 * FT3_PER_YD3;
 export const M2_PER_FT2 = M_PER_FT ** 2;
 export const KM_PER_MILE = 1.609344;
 export const L_PER_US_GAL = 3.785411784;
+export const MM_PER_IN = 25.4;
+/** The avoirdupois ounce, 1/16 lb (same agreement). */
+export const G_PER_OZ = 28.349523125;
+/** The short ton, 2,000 lb. */
+export const KG_PER_SHORT_TON = 2000 * KG_PER_LB;
+// 1 lbf/in² = 4.4482216152605 N (exact) / 0.00064516 m² = 6,894.757 Pa (NIST SP 811 App. B.8),
+// kept to 9 significant digits.
+export const MPA_PER_PSI = 0.00689475729;
 
 export interface Volume {
 	cubicFeet: number;

@@ -1,14 +1,14 @@
 // Cold and hot weather per ACI 306R / 305R, and the evaporation rate of bleed water (Uno 1998).
 
 import { ACI_209, ageFactor } from './strength';
-import { KG_PER_LB, M_PER_FT, temperature } from './units';
+import { KG_PER_LB, MPA_PER_PSI, M_PER_FT, temperature } from './units';
 import type { Temperature } from './units';
 
 export const ACI_306 = {
 	/** Cold weather: air that falls to 40 °F (4.4 °C) during the protection period. */
 	coldAir: ((40 - 32) * 5) / 9,
 	/** Strength that survives a single freeze, 500 psi (3.45 MPa) (after Powers). */
-	freezeSafeMpa: 500 * 0.00689475729,
+	freezeSafeMpa: 500 * MPA_PER_PSI,
 	/** Thin sections kept at least 13 °C (55 °F) as placed (Table 3.1). */
 	minPlaced: 13,
 	/** Days after each pour checked for cold air; from memory. */

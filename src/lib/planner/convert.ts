@@ -2,18 +2,15 @@
 // depend on the market (bag sizes, lumber stock lengths, ready-mix increments) take the new
 // system's usual values instead of odd conversions.
 import { fieldLabel, parsePlanInput, type ParsedPlan, type Units } from '$lib/plan';
+import { G_PER_OZ, KG_PER_LB, KG_PER_SHORT_TON, KM_PER_MILE, L_PER_US_GAL, M3_PER_FT3, M3_PER_YD3, MM_PER_IN, MPA_PER_PSI, M_PER_FT } from '$lib/plan/units';
 import { sameData } from './editable';
 import type { Preset } from './presets';
 
-const FT = 0.3048;
-const IN = 25.4;
-const LB = 0.45359237;
-const PSI_PER_MPA = 145.0377;
-const KMH_PER_MPH = 1.609344;
-const M3_PER_YD3 = 0.764554857984;
-const M3_PER_FT3 = 0.028316846592;
-const GAL = 3.785411784; // L per US gallon
-const OZ_G = 28.349523125; // g per avoirdupois ounce
+// The engine's unit constants, with their sources (lib/plan/units.ts).
+const FT = M_PER_FT;
+const IN = MM_PER_IN;
+const LB = KG_PER_LB;
+const GAL = L_PER_US_GAL;
 
 const r = (v: number, digits = 3) => Math.round(v * 10 ** digits) / 10 ** digits;
 
@@ -42,7 +39,7 @@ export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 	const perArea = (v: number) => r(metric ? v / FT ** 2 : v * FT ** 2, 2);
 	const perVol = (v: number) => r(metric ? v / M3_PER_YD3 : v * M3_PER_YD3, 2);
 	// Short tons per yd³ ↔ tonnes per m³ (2000 lb = 907.18474 kg).
-	const dens = (v: number) => r(metric ? (v * 0.90718474) / M3_PER_YD3 : (v * M3_PER_YD3) / 0.90718474, 2);
+	const dens = (v: number) => r(metric ? (v * KG_PER_SHORT_TON) / 1000 / M3_PER_YD3 : (v * M3_PER_YD3 * 1000) / KG_PER_SHORT_TON, 2);
 	const rate = (x: { value: number; unit: 'percent' | 'inPerFt' | 'mmPerM' | 'totalDrop' }) => {
 		if (x.unit === 'percent') return x;
 		if (x.unit === 'totalDrop') return { ...x, value: small(x.value) };
@@ -81,14 +78,14 @@ export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 			wireSpacing: small(p.reinforcing.wireSpacing),
 			barSpacing: small(p.reinforcing.barSpacing),
 			barDiameter: r(metric ? p.reinforcing.barDiameter * IN : p.reinforcing.barDiameter / IN, 3),
-			fiberPerBag: opt(p.reinforcing.fiberPerBag, (v) => r(metric ? v * OZ_G : v / OZ_G, 2))
+			fiberPerBag: opt(p.reinforcing.fiberPerBag, (v) => r(metric ? v * G_PER_OZ : v / G_PER_OZ, 2))
 		},
 		fill: p.fill && {
 			...p.fill,
 			volume: opt(p.fill.volume, (v) => r(metric ? v * M3_PER_FT3 : v / M3_PER_FT3, 3)),
 			largestPiece: small(p.fill.largestPiece)
 		},
-		mix: { ...p.mix, designStrength: r(metric ? p.mix.designStrength / PSI_PER_MPA : p.mix.designStrength * PSI_PER_MPA, 0) },
+		mix: { ...p.mix, designStrength: r(metric ? p.mix.designStrength * MPA_PER_PSI : p.mix.designStrength / MPA_PER_PSI, 0) },
 		bags: { ...p.bags, offered: d.bags.offered, planSize: undefined },
 		readyMix: { ...p.readyMix, price: opt(p.readyMix.price, perVol), increment: d.readyMix.increment, minimum: d.readyMix.minimum },
 		prices: {
@@ -108,7 +105,7 @@ export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 			airTemp: Array.isArray(p.conditions.airTemp) ? p.conditions.airTemp.map(temp) : temp(p.conditions.airTemp),
 			concreteTemp: opt(p.conditions.concreteTemp, temp),
 			airLow: p.conditions.airLow === undefined ? undefined : Array.isArray(p.conditions.airLow) ? p.conditions.airLow.map(temp) : temp(p.conditions.airLow),
-			wind: r(metric ? p.conditions.wind * KMH_PER_MPH : p.conditions.wind / KMH_PER_MPH, 1)
+			wind: r(metric ? p.conditions.wind * KM_PER_MILE : p.conditions.wind / KM_PER_MILE, 1)
 		}
 	};
 	const out = parsePlanInput(converted);

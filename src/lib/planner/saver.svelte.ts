@@ -1,5 +1,6 @@
+import { untrack } from 'svelte';
 import type { PlanRecord } from './types';
-import type { DraftData } from './draft.svelte';
+import { completeInput, type DraftData, type PlanDraft } from './draft.svelte';
 
 export type SaveStatus = 'idle' | 'pending' | 'saving' | 'saved' | 'invalid' | 'offline' | 'conflict' | 'local';
 
@@ -30,6 +31,38 @@ export const localDraft = {
 };
 
 /**
+ * Watches a draft (create it during component set-up): after every change, not the first read nor
+ * a change announced with `skip()`, it calls `onedit` with the draft as text and whether it is
+ * valid. The wizard keeps its undo history by it, with or without a saver.
+ */
+export class DraftWatch {
+	#draft: PlanDraft;
+	#skip = false;
+	/** The draft as text, as it is saved and compared with what was stored. */
+	serialised = $derived.by(() => JSON.stringify(this.#draft.snapshot()));
+
+	constructor(draft: PlanDraft, onedit: (now: string, ok: boolean) => void) {
+		this.#draft = draft;
+		let first = true;
+		$effect(() => {
+			const now = this.serialised;
+			const ok = this.#draft.outcome.ok;
+			if (first || this.#skip) {
+				first = this.#skip = false;
+				return;
+			}
+			// What onedit changes (the saver's status) is untracked, so it cannot re-trigger it.
+			untrack(() => onedit(now, ok));
+		});
+	}
+
+	/** The next change is not an edit (the draft was replaced by a stored version). */
+	skip() {
+		this.#skip = true;
+	}
+}
+
+/**
  * Autosave for a signed-in homeowner's plan through the JSON API. Saves are debounced and
  * serialised; each carries the revision it was based on, and a 409 stops saving until the user
  * chooses to reload, so a second tab never silently overwrites the first.
@@ -54,6 +87,37 @@ export class PlanSaver {
 		this.revision = o.revision;
 		this.#read = o.read;
 		this.#onCreated = o.onCreated;
+	}
+
+	#watch: DraftWatch | null = null;
+
+	/**
+	 * Save the draft as it is edited (call during component set-up): every valid edit schedules a
+	 * save, an invalid one shows as such; `onedit` also hears of each edit.
+	 */
+	watch(draft: PlanDraft, onedit?: (now: string) => void): DraftWatch {
+		this.#watch = new DraftWatch(draft, (now, ok) => {
+			onedit?.(now);
+			if (ok) this.schedule();
+			else this.status = 'invalid';
+		});
+		return this.#watch;
+	}
+
+	/**
+	 * Take a stored version into the draft (the newer one after a conflict, or the plan as a page
+	 * loaded it): the draft shows it, the next save builds on its revision, and it counts as saved.
+	 */
+	adopt(remote: Pick<PlanRecord, 'name' | 'postcode' | 'revision' | 'input'>, draft: PlanDraft) {
+		const input = completeInput(remote.input);
+		if (input) draft.input = input;
+		draft.name = remote.name;
+		draft.postcode = remote.postcode;
+		this.revision = remote.revision;
+		this.conflict = null;
+		this.stored = JSON.stringify(draft.snapshot());
+		this.status = 'saved';
+		this.#watch?.skip();
 	}
 
 	/** Call on every edit; the save goes out once typing pauses. */

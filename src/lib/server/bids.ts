@@ -1,7 +1,7 @@
 import { and, eq, inArray, ne, sql } from 'drizzle-orm';
 import { isExpired } from '$lib/leads';
 import { leadTarget, openLeadStatuses, statusesMovedBy } from '$lib/lead-status';
-import { formatDate } from '$lib/components/plan/format';
+import { formatDate } from '$lib/plan-view';
 import type { BidInput } from '$lib/schemas/leads';
 import { db } from '$lib/server/db';
 import { bid, contractor, lead, plan } from '$lib/server/db/schema';

@@ -2,7 +2,7 @@ import { and, asc, count, desc, eq, inArray, sql } from 'drizzle-orm';
 import { respondBy, type LeadStatus } from '$lib/leads';
 import type { ContractorStatus } from '$lib/contractor-status';
 import { isOpenLead, leadTarget, openLeadStatuses, statusesMovedBy } from '$lib/lead-status';
-import { formatDate } from '$lib/components/plan/format';
+import { formatDate } from '$lib/plan-view';
 import type { ServiceKind } from '$lib/schemas/contractor';
 import type { ExistingSurface, Finish, Timeframe } from '$lib/leads';
 import { db } from '$lib/server/db';

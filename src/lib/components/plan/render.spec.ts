@@ -1,7 +1,7 @@
 import { render } from 'svelte/server';
 import { describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
-import { formatSmall, formatVolume } from '$lib/plan/format';
+import { formatSmall, formatVolume } from '$lib/plan-view';
 import demo from '../../../../fixtures/demo-plans.json';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
 import { cornerEll, rect } from '$lib/plan/test-plans';
@@ -15,7 +15,7 @@ import PlanOutline2D from './PlanOutline2D.svelte';
 import PlanSummary from './PlanSummary.svelte';
 import StakeMarkTable from './StakeMarkTable.svelte';
 import StrengthChart from './StrengthChart.svelte';
-import { formatDate, formatPercent, materialRows } from './format';
+import { formatDate, formatPercent, materialRows } from '$lib/plan-view';
 
 const plans = demo.plans.map((p) => ({ id: p.id, result: computePlan(p.input) }));
 

@@ -2,7 +2,8 @@
 // imported here on demand, in the browser only, with just the parts a line chart needs.
 
 import type { Plugin } from 'chart.js';
-import { formatPercent } from './format';
+import { formatPercent } from '$lib/plan-view';
+import { tokens } from '$lib/palette';
 
 export interface Pin {
 	day: number;
@@ -48,10 +49,10 @@ export async function drawStrengthChart(
 	const { Chart, LineController, LineElement, PointElement, LinearScale, Tooltip } = await import('chart.js');
 	Chart.register(LineController, LineElement, PointElement, LinearScale, Tooltip);
 	Chart.defaults.font.family = 'Nunito, sans-serif';
-	const moss = token(canvas, '--color-moss-600', '#2f6b4f');
-	const clay = token(canvas, '--color-clay-500', '#b4562a');
-	const ink = token(canvas, '--color-ink-soft', '#4a5a52');
-	const grid = { color: token(canvas, '--color-line', '#d9d3c4') };
+	const moss = token(canvas, '--color-moss-600', tokens['moss-600']);
+	const clay = token(canvas, '--color-clay-500', tokens['clay-500']);
+	const ink = token(canvas, '--color-ink-soft', tokens['ink-soft']);
+	const grid = { color: token(canvas, '--color-line', tokens.line) };
 	const axis = (text: string) => ({ display: true, text, color: ink });
 	// An effect that re-ran while chart.js was loading may have drawn here first: one chart per canvas.
 	Chart.getChart(canvas)?.destroy();

@@ -7,10 +7,5 @@ export function unitLabels(u: Units) {
 		: { length: 'm', small: 'mm', temp: '°C', mass: 'kg', volume: 'm³', smallVolume: 'm³', wind: 'km/h', strength: 'MPa', area: 'm²' };
 }
 
-// One formatter per digit count: toLocaleString with options builds a new one on every call.
-const numberFormats: Intl.NumberFormat[] = [];
-export const fmt = (v: number, digits = 1) =>
-	(numberFormats[digits] ??= new Intl.NumberFormat('en', { maximumFractionDigits: digits })).format(v);
-
 /** Corner letters as the edge table and the drawing use them: A, B, … Z, A1, B1, … */
 export const cornerName = (i: number) => String.fromCharCode(65 + (i % 26)) + (i >= 26 ? Math.floor(i / 26) : '');

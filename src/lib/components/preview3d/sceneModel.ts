@@ -4,7 +4,7 @@
 // slab's high point so a 2 % fall can be seen; thickness, boards and stakes keep their real size.
 
 import type { PlanResult } from '$lib/plan';
-import { formatLength, formatSmall } from '$lib/plan/format';
+import { formatLength, formatSmall } from '$lib/plan-view';
 import { DRESSED_THICKNESS_IN } from '$lib/plan/model';
 import { dist, pointInPolygon, signedArea, sub, unit } from '$lib/plan/polygon';
 import { M_PER_IN, planToM } from '$lib/plan/units';

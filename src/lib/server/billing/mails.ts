@@ -1,4 +1,4 @@
-import { extraLead, money, monthlyPlan } from '$lib/billing-plans';
+import { extraLead, monthlyPlan, price } from '$lib/billing-plans';
 import { notice } from '../mail/templates';
 
 // Billing notices. Receipts (plan started, payment received, credits added) carry the 'billing'
@@ -13,7 +13,7 @@ const leads = (n: number) => `${n} extra ${n === 1 ? 'lead' : 'leads'}`;
 /** What an invoice was for, in a few words: "$51 for Slab Desk monthly and 2 extra leads". */
 export function invoiceWords(o: { totalCents: number; plan: boolean; extraLeads: number }) {
 	const parts = [...(o.plan ? [monthlyPlan.name] : []), ...(o.extraLeads ? [leads(o.extraLeads)] : [])];
-	return `${money(o.totalCents)}${parts.length ? ` for ${parts.join(' and ')}` : ''}`;
+	return `${price(o.totalCents)}${parts.length ? ` for ${parts.join(' and ')}` : ''}`;
 }
 
 export const planActiveMail = (name: string, origin: string) =>
@@ -21,7 +21,7 @@ export const planActiveMail = (name: string, origin: string) =>
 		subject: `Your ${monthlyPlan.name} plan is active`,
 		name,
 		lines: [
-			`Thank you. Your plan includes ${monthlyPlan.leadsIncluded} leads each month: opening a lead’s details uses one. Beyond those, a lead costs ${money(extraLead.cents)} on your next invoice, and you are asked before each one. A lead that expires unanswered, or that the homeowner closes before any bid, gives its lead back.`
+			`Thank you. Your plan includes ${monthlyPlan.leadsIncluded} leads each month: opening a lead’s details uses one. Beyond those, a lead costs ${price(extraLead.cents)} on your next invoice, and you are asked before each one. A lead that expires unanswered, or that the homeowner closes before any bid, gives its lead back.`
 		],
 		action: 'See your billing',
 		url: billingUrl(origin),

@@ -1,4 +1,5 @@
 import type { MailKind } from '$lib/mail-kinds';
+import { tokens } from '$lib/palette';
 
 /** A message; `kind` names the switch on the account page that can turn it off (none: always sent). */
 export type Mail = { subject: string; text: string; html: string; kind?: MailKind };
@@ -22,14 +23,14 @@ export function notice(o: {
 	const hello = o.name ? `Hello ${o.name},` : 'Hello,';
 	const stop = o.stop ? ['', `${o.stop.label}: ${o.stop.url}`] : [];
 	const text = [hello, '', ...o.lines, '', `${o.action}: ${o.url}`, '', o.footer, ...stop, '', '— Stakeline'].join('\n');
-	const html = `<!doctype html><html><body style="font-family:Nunito,Arial,sans-serif;color:#1f2d27;background:#f6f3ea;padding:24px">
-<div style="max-width:520px;margin:auto;background:#fff;border-radius:12px;padding:24px">
+	const html = `<!doctype html><html><body style="font-family:Nunito,Arial,sans-serif;color:${tokens.ink};background:${tokens.paper};padding:24px">
+<div style="max-width:520px;margin:auto;background:${tokens.card};border-radius:12px;padding:24px">
 <p>${escape(hello)}</p>
 ${o.lines.map((l) => `<p>${escape(l)}</p>`).join('\n')}
-<p><a href="${escape(o.url)}" style="display:inline-block;background:#2f6b4f;color:#fff;padding:10px 18px;border-radius:8px;text-decoration:none">${escape(o.action)}</a></p>
-<p style="font-size:13px;color:#5b6a62">Or open this address: ${escape(o.url)}</p>
-<p style="font-size:13px;color:#5b6a62">${escape(o.footer)}</p>
-${o.stop ? `<p style="font-size:13px"><a href="${escape(o.stop.url)}" style="color:#2f6b4f">${escape(o.stop.label)}</a></p>\n` : ''}</div></body></html>`;
+<p><a href="${escape(o.url)}" style="display:inline-block;background:${tokens['moss-600']};color:${tokens.card};padding:10px 18px;border-radius:8px;text-decoration:none">${escape(o.action)}</a></p>
+<p style="font-size:13px;color:${tokens['ink-soft']}">Or open this address: ${escape(o.url)}</p>
+<p style="font-size:13px;color:${tokens['ink-soft']}">${escape(o.footer)}</p>
+${o.stop ? `<p style="font-size:13px"><a href="${escape(o.stop.url)}" style="color:${tokens['moss-600']}">${escape(o.stop.label)}</a></p>\n` : ''}</div></body></html>`;
 	return { subject: o.subject, text, html, kind: o.kind };
 }
 

@@ -2,12 +2,12 @@ import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import { describe, expect, it } from 'vitest';
 import { computePlan, type PlanResult } from '$lib/plan';
-import { formatSmall, formatVolume } from '$lib/plan/format';
+import { formatSmall, formatVolume } from '$lib/plan-view';
 import demo from '../../../../fixtures/demo-plans.json';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { pdfPagePixels, pdfPagePng, pdfPageText, pdfText as extractText } from '../../../../tests/pdf-text';
-import { buildCardItems } from '$lib/components/plan/buildCard';
-import { layoutDrawing } from '$lib/components/plan/layoutDrawing';
+import { buildCardItems } from '$lib/plan-view/buildCard';
+import { layoutDrawing } from '$lib/plan-view/layoutDrawing';
 import { layoutSheet } from '$lib/plan/layout-sheet';
 import { pdfText, planPdf, woffToSfnt } from './planPdf';
 

@@ -1,15 +1,14 @@
-// The plan as a PDF, built on the server with pdfkit and Nunito embedded. Every line comes from the
-// same row helpers as the plan page, so the download carries the page's numbers.
+// The plan as a PDF document, built on the server with pdfkit and Nunito embedded (fonts.ts), its
+// pages written by layout.ts. Every line comes from the same rows as the plan page (lib/plan-view),
+// so the download carries the page's numbers.
 
-import { readFile } from 'node:fs/promises';
-import { inflateSync } from 'node:zlib';
-import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
+import { print } from '$lib/palette';
 import type { PlanResult } from '$lib/plan';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
-import { buildCardItems } from '$lib/components/plan/buildCard';
-import { GLOSSARY } from '$lib/components/plan/glossary';
-import { LABEL_SIZE, layoutDrawing, type LayoutDrawing } from '$lib/components/plan/layoutDrawing';
+import { buildCardItems } from '$lib/plan-view/buildCard';
+import { GLOSSARY } from '$lib/plan-view/glossary';
+import { layoutDrawing } from '$lib/plan-view/layoutDrawing';
 import {
 	DEFERRAL_FALLBACK,
 	READY_MIX_HINT,
@@ -27,99 +26,13 @@ import {
 	stakeIntro,
 	stakeRows,
 	strengthNote,
-	summaryItems,
-	type MilestoneRow
-} from '$lib/components/plan/format';
+	summaryItems
+} from '$lib/plan-view';
+import { loadFonts, pdfText } from './fonts';
+import { drawLayout, pageWriter, strengthChart } from './layout';
 
-const require = createRequire(import.meta.url);
-
-// WOFF, not WOFF2: fontkit (pdfkit's font reader) throws while subsetting these WOFF2 files, and
-// the WOFF2 ones hold the variable font rather than the static weights.
-const FONT_FILES = { regular: 'nunito-latin-400-normal.woff', bold: 'nunito-latin-800-normal.woff' } as const;
-
-interface Fonts {
-	regular: Buffer;
-	bold: Buffer;
-	/** Code points the latin subset covers, from fontsource's own range list. */
-	covers: (cp: number) => boolean;
-}
-
-/**
- * WOFF 1.0 to the plain TrueType it wraps. fontkit reads WOFF but inflates a table again on every
- * glyph lookup, which made each PDF take about half a second; unwrapped once, it reads in place.
- */
-export function woffToSfnt(woff: Buffer): Buffer {
-	if (woff.toString('latin1', 0, 4) !== 'wOFF') throw new Error('Not a WOFF 1.0 font');
-	const count = woff.readUInt16BE(12);
-	const tables = Array.from({ length: count }, (_, i) => {
-		const at = 44 + i * 20;
-		const [offset, compLength, origLength] = [4, 8, 12].map((k) => woff.readUInt32BE(at + k));
-		const raw = woff.subarray(offset, offset + compLength);
-		return { tag: woff.readUInt32BE(at), checksum: woff.readUInt32BE(at + 16), data: compLength < origLength ? inflateSync(raw) : raw };
-	});
-	const pad = (n: number) => (n + 3) & ~3;
-	const dirLength = 12 + 16 * count;
-	const out = Buffer.alloc(dirLength + tables.reduce((a, x) => a + pad(x.data.length), 0));
-	const power = 2 ** Math.floor(Math.log2(count));
-	out.writeUInt32BE(woff.readUInt32BE(4), 0); // flavor: the sfnt version
-	out.writeUInt16BE(count, 4);
-	out.writeUInt16BE(power * 16, 6);
-	out.writeUInt16BE(Math.log2(power), 8);
-	out.writeUInt16BE(count * 16 - power * 16, 10);
-	let offset = dirLength;
-	tables.forEach((x, i) => {
-		const at = 12 + i * 16;
-		out.writeUInt32BE(x.tag, at);
-		out.writeUInt32BE(x.checksum, at + 4);
-		out.writeUInt32BE(offset, at + 8);
-		out.writeUInt32BE(x.data.length, at + 12);
-		x.data.copy(out, offset);
-		offset += pad(x.data.length);
-	});
-	return out;
-}
-
-let fonts: Promise<Fonts> | undefined;
-
-function loadFonts(): Promise<Fonts> {
-	fonts ??= (async () => {
-		const file = (name: string) => readFile(require.resolve(`@fontsource/nunito/files/${name}`));
-		const [regular, bold, unicode] = await Promise.all([
-			file(FONT_FILES.regular),
-			file(FONT_FILES.bold),
-			readFile(require.resolve('@fontsource/nunito/unicode.json'), 'utf8')
-		]);
-		const ranges: Record<string, string> = JSON.parse(unicode);
-		const spans = ranges.latin.split(',').map((r) => r.replace('U+', '').split('-').map((h) => parseInt(h, 16)));
-		const covers = (cp: number) => spans.some(([lo, hi = lo]) => cp >= lo && cp <= hi);
-		return { regular: woffToSfnt(regular), bold: woffToSfnt(bold), covers };
-	})().catch((e) => {
-		fonts = undefined;
-		throw e;
-	});
-	return fonts;
-}
-
-// The latin subset has ¼ ½ ¾ but not eighths or math signs; spell those out rather than print boxes.
-const SPELLED: Record<string, string> = { '⅛': '1/8', '⅜': '3/8', '⅝': '5/8', '⅞': '7/8', '≥': '>=', '≤': '<=', '→': '->' };
-
-export function pdfText(s: string, covers: (cp: number) => boolean): string {
-	return [...s.replace(/(\d)([⅛⅜⅝⅞])/g, '$1 $2')]
-		.map((c) => (covers(c.codePointAt(0)!) ? c : (SPELLED[c] ?? '?')))
-		.join('');
-}
-
-/** Stakeline tokens (src/app.css) for print. */
-const C = {
-	ink: '#1d2b25',
-	soft: '#4a5a52',
-	line: '#d9d3c4',
-	moss: '#2f6b4f',
-	mossLight: '#eef5ef',
-	clay: '#b4562a',
-	danger: '#a32626',
-	sky: '#1f4e66'
-} as const;
+/** Stakeline tokens for print (lib/palette.ts). */
+const C = print;
 
 /**
  * The plan as PDF bytes. `createdAt`: when the plan was last saved; `madeAt`: when this PDF is
@@ -147,57 +60,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 		doc.on('error', reject);
 	});
 
-	const left = doc.page.margins.left;
-	const width = doc.page.width - left - doc.page.margins.right;
-	const bottom = () => doc.page.height - doc.page.margins.bottom;
-	const room = (h: number) => {
-		if (doc.y + h > bottom()) doc.addPage();
-	};
-	const text = (s: string, o: { size?: number; bold?: boolean; color?: string; gap?: number } = {}) =>
-		doc
-			.font(o.bold ? 'bold' : 'regular')
-			.fontSize(o.size ?? 10)
-			.fillColor(o.color ?? C.ink)
-			.text(t(s), left, doc.y, { width, paragraphGap: o.gap ?? 2 });
-	const heading = (s: string) => {
-		room(80);
-		doc.moveDown(0.8);
-		text(s, { size: 15, bold: true, color: C.moss, gap: 0 });
-		doc.moveTo(left, doc.y + 1).lineTo(left + width, doc.y + 1).lineWidth(1).strokeColor(C.moss).stroke();
-		doc.moveDown(0.5);
-	};
-	// Tables drawn by hand: pdfkit's own table re-opens the font from its buffer for every cell.
-	const table = (head: string[] | null, rows: string[][], columns: (number | '*')[]) => {
-		const fixed = columns.reduce<number>((a, c) => a + (c === '*' ? 0 : c), 0);
-		const share = (width - fixed) / Math.max(1, columns.filter((c) => c === '*').length);
-		const widths = columns.map((c) => (c === '*' ? share : c));
-		const pad = 4;
-		const row = (cells: string[], isHead: boolean) => {
-			const texts = cells.map(t);
-			doc.font(isHead ? 'bold' : 'regular').fontSize(9);
-			const h = 2 * pad + Math.max(...texts.map((c, i) => doc.heightOfString(c, { width: widths[i] - 2 * pad })));
-			if (doc.y + h > bottom()) {
-				doc.addPage();
-				if (head && !isHead) row(head, true); // repeat the header on the new page
-				doc.font('regular').fontSize(9);
-			}
-			const y = doc.y;
-			if (isHead) doc.rect(left, y, width, h).fill(C.mossLight);
-			let x = left;
-			texts.forEach((c, i) => {
-				doc.fillColor(C.ink).text(c, x + pad, y + pad, { width: widths[i] - 2 * pad });
-				x += widths[i];
-			});
-			doc.moveTo(left, y + h).lineTo(left + width, y + h).lineWidth(isHead ? 1 : 0.5).strokeColor(isHead ? C.moss : C.line).stroke();
-			doc.x = left;
-			doc.y = y + h;
-		};
-		room(40);
-		if (head) row(head, true);
-		for (const cells of rows) row(cells, false);
-		doc.moveDown(0.5);
-	};
-
+	const { left, width, bottom, room, text, heading, table } = pageWriter(doc, t);
 	// Title and the deferral to local codes, first thing on the page.
 	const { deferral, rest } = sortCautions(r.cautions);
 	text(plan.name, { size: 24, bold: true, gap: 0 });
@@ -394,76 +257,4 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	return new Uint8Array(Buffer.concat(chunks));
 }
 
-/** A small vector line chart of percent strength by day, milestones as numbered dashed lines. */
-function strengthChart(
-	doc: InstanceType<typeof PDFDocument>,
-	days: PlanResult['strength'],
-	stones: MilestoneRow[],
-	o: { x: number; width: number; t: (s: string) => string }
-) {
-	const h = 130;
-	if (doc.y + h + 40 > doc.page.height - doc.page.margins.bottom) doc.addPage();
-	const top = doc.y + 8;
-	const x0 = o.x + 30;
-	const w = o.width - 40;
-	// Warm weather can pass 100 % before day 28: grow the axis in steps of 25 %.
-	const yMax = Math.max(100, Math.ceil(Math.max(...days.map((d) => d.percent)) / 25) * 25);
-	const px = (day: number) => x0 + (day / days.length) * w;
-	const py = (pct: number) => top + h - (pct / yMax) * h;
-	doc.save().lineWidth(0.5).strokeColor(C.line);
-	for (let pct = 0; pct <= yMax; pct += 25) {
-		doc.moveTo(x0, py(pct)).lineTo(x0 + w, py(pct)).stroke();
-		doc.font('regular').fontSize(7).fillColor(C.soft).text(`${pct} %`, o.x, py(pct) - 3, { width: 26, align: 'right', lineBreak: false });
-	}
-	for (let d = 0; d <= days.length; d += 7)
-		doc.text(String(d), px(d) - 10, top + h + 4, { width: 20, align: 'center', lineBreak: false });
-	doc.text(o.t('Days after the last pour'), x0, top + h + 14, { width: w, align: 'center', lineBreak: false });
-	stones.forEach((m, i) => {
-		if (m.day === null || m.percent === undefined) return;
-		doc.save().dash(3, { space: 3 }).strokeColor(C.clay).moveTo(px(m.day), top).lineTo(px(m.day), top + h).stroke().restore();
-		doc.font('bold').fontSize(8).fillColor(C.clay).text(String(i + 1), px(m.day) + 2, top + 2 + (i % 3) * 9, { lineBreak: false });
-	});
-	doc.lineWidth(1.5).strokeColor(C.moss);
-	days.forEach((d, i) => (i ? doc.lineTo(px(d.day), py(d.percent)) : doc.moveTo(px(d.day), py(d.percent))));
-	doc.stroke().restore();
-	doc.x = o.x;
-	doc.y = top + h + 32;
-}
-
-/** The layout drawing in vector: the same shapes the plan page draws as SVG. */
-function drawLayout(doc: InstanceType<typeof PDFDocument>, d: LayoutDrawing, o: { x: number; y: number; t: (s: string) => string }) {
-	const P = (p: readonly [number, number]): [number, number] => [o.x + p[0], o.y + p[1]];
-	const seg = (l: { from: readonly [number, number]; to: readonly [number, number] }) => doc.moveTo(...P(l.from)).lineTo(...P(l.to));
-	doc.save();
-	for (const s of d.slabs) {
-		doc.polygon(...s.map(P)).lineWidth(1.2).fillAndStroke(C.mossLight, C.ink);
-	}
-	doc.lineWidth(0.6).strokeColor(C.soft).dash(2, { space: 3 });
-	for (const l of d.diagonals) seg(l).stroke();
-	doc.lineWidth(0.9).strokeColor(C.ink).dash(5, { space: 3 });
-	for (const l of d.joints) seg(l).stroke();
-	doc.undash().lineWidth(2.5).strokeColor(C.sky);
-	for (const l of d.coldJoints) seg(l).stroke();
-	doc.lineWidth(5).strokeColor(C.clay);
-	for (const l of d.house) seg(l).stroke();
-	if (d.high) {
-		doc.lineWidth(4).strokeColor(C.moss).dash(8, { space: 3 });
-		seg(d.high).stroke();
-		doc.undash();
-	}
-	if (d.start) doc.lineWidth(2).strokeColor(C.moss).circle(...P(d.start), 7).stroke();
-	doc.fillColor(C.sky);
-	for (const s of d.stakes) doc.rect(P(s.at)[0] - 2, P(s.at)[1] - 2, 4, 4).fill();
-	// Sizes from the drawing (LABEL_SIZE), which placed each label clear of the lines at that size.
-	const FONT = { corner: ['bold', C.ink], board: ['bold', C.clay], length: ['regular', C.soft], stake: ['regular', C.sky], high: ['bold', C.moss] } as const;
-	for (const l of d.labels) {
-		const [font, color] = FONT[l.kind];
-		const size = LABEL_SIZE[l.kind];
-		doc.font(font).fontSize(size).fillColor(color);
-		const txt = o.t(l.text);
-		const w = doc.widthOfString(txt);
-		const [x, y] = P(l.at);
-		doc.text(txt, x - w / 2, y - size / 2, { lineBreak: false });
-	}
-	doc.restore();
-}
+export { pdfText, woffToSfnt } from './fonts';

@@ -1,6 +1,6 @@
 import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
-import { currentResult } from '$lib/components/plan/currentResult';
+import { currentResult } from '$lib/plan-view/currentResult';
 import { readerLocale } from '$lib/reader';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';

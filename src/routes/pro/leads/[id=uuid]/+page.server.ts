@@ -1,6 +1,6 @@
 import { error, redirect } from '@sveltejs/kit';
 import { openLeadFor } from '$lib/server/billing/accounts'; // billing
-import { extraLead, money } from '$lib/billing-plans';
+import { extraLead, price } from '$lib/billing-plans';
 import { fullResult, planFigures } from '$lib/plan-figures';
 import { defaultDistanceUnit, todayIn } from '$lib/reader';
 import { bidSchemaFor, declineSchema, messageSchema } from '$lib/schemas/leads';
@@ -54,7 +54,7 @@ async function billingGate(contractorId: string, leadId: string, values: Record<
 	const access = await openLeadFor(contractorId, leadId);
 	if (access === null) error(404, 'No such lead');
 	if (access === 'locked') return formError(values, 'Opening this lead needs a plan with leads left or a lead credit, and a paid-up account: see Billing.', {}, 402);
-	if (access === 'extra') return formError(values, `You have used this period’s included leads: open this lead as an extra lead (${money(extraLead.cents)} on your next invoice) on the Billing page first.`, {}, 402);
+	if (access === 'extra') return formError(values, `You have used this period’s included leads: open this lead as an extra lead (${price(extraLead.cents)} on your next invoice) on the Billing page first.`, {}, 402);
 	return null;
 }
 

@@ -1,6 +1,6 @@
 import { error } from '@sveltejs/kit';
 import { requireApiRole } from '$lib/server/api';
-import { currentResult } from '$lib/components/plan/currentResult';
+import { currentResult } from '$lib/plan-view/currentResult';
 import { planCalendar } from '$lib/server/calendar';
 import { findOwnPlan, planView } from '$lib/server/plans';
 import type { RequestHandler } from './$types';

@@ -1,6 +1,6 @@
 import { error, json } from '@sveltejs/kit';
 import { requireApiRole } from '$lib/server/api';
-import { currentResult } from '$lib/components/plan/currentResult';
+import { currentResult } from '$lib/plan-view/currentResult';
 import { readerLocale } from '$lib/reader';
 import { PdfRefused, renderPlanPdf } from '$lib/server/pdf/pool';
 import { findOwnPlan, planView } from '$lib/server/plans';

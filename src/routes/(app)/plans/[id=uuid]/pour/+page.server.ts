@@ -1,5 +1,5 @@
 import { error } from '@sveltejs/kit';
-import { currentResult } from '$lib/components/plan/currentResult';
+import { currentResult } from '$lib/plan-view/currentResult';
 import { pacerPours } from '$lib/plan/pacer';
 import { requireRole } from '$lib/server/guards';
 import { findOwnPlan } from '$lib/server/plans';

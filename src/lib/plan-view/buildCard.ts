@@ -2,21 +2,11 @@
 // from the engine's slab block. The plan page and the PDF's first page both render these rows.
 
 import type { PlanResult } from '$lib/plan';
-import { formatInches, formatLength, formatSmall, formatVolume } from '$lib/plan/format';
+import { formatBagSize, formatFall, formatLength, formatOrder, formatSmall, formatVolume, num } from './text';
 import { sheetEdgeName } from '$lib/plan/layout-sheet';
-import type { SummaryItem } from './format';
+import type { SummaryItem } from './rows';
 
 export type BuildCardPlan = Pick<PlanResult, 'units' | 'slab' | 'volume' | 'forms' | 'elevations' | 'joints' | 'bags' | 'readyMix' | 'mixing' | 'geometry'>;
-
-const trim = (x: number, digits: number) => String(Math.round(x * 10 ** digits) / 10 ** digits);
-
-/** Fall per foot as a tape fraction when it is one (¼ in reads better than 0.25), or per metre in mm. */
-function fallText(rate: PlanResult['elevations']['fall'], u: PlanResult['units']): string {
-	if (u === 'metric') return `${trim(rate.millimetersPerMeter, 1)} mm per m (${trim(rate.percent, 2)} %)`;
-	const eighths = rate.inchesPerFoot * 8;
-	const inch = Math.abs(eighths - Math.round(eighths)) < 1e-6 ? formatInches(rate.inchesPerFoot) : `${trim(rate.inchesPerFoot, 3)} in`;
-	return `${inch} per ft (${trim(rate.percent, 2)} %)`;
-}
 
 export function buildCardItems(p: BuildCardPlan): SummaryItem[] {
 	const u = p.units;
@@ -37,7 +27,7 @@ export function buildCardItems(p: BuildCardPlan): SummaryItem[] {
 		{
 			label: 'Base',
 			value: `${S(s.base)} compacted`,
-			note: `buy ${formatVolume(p.volume.base.loose, u)} loose (${trim(p.volume.base.bulking, 2)} × the compacted volume)`
+			note: `buy ${formatVolume(p.volume.base.loose, u)} loose (${num(p.volume.base.bulking, 2)} × the compacted volume)`
 		},
 		{
 			label: 'Form boards',
@@ -46,8 +36,8 @@ export function buildCardItems(p: BuildCardPlan): SummaryItem[] {
 		},
 		{
 			label: 'Fall',
-			value: fallText(p.elevations.fall, u),
-			note: `total drop ${S(p.elevations.totalDrop)}${p.elevations.crossFall.percent ? `; cross fall ${fallText(p.elevations.crossFall, u)}` : ''}`
+			value: formatFall(p.elevations.fall, u),
+			note: `total drop ${S(p.elevations.totalDrop)}${p.elevations.crossFall.percent ? `; cross fall ${formatFall(p.elevations.crossFall, u)}` : ''}`
 		},
 		...(p.geometry.houseEdges.length
 			? []
@@ -68,8 +58,8 @@ export function buildCardItems(p: BuildCardPlan): SummaryItem[] {
 					: `the slab is small enough to need none (the limit is ${formatLength(p.joints.maxSpacing, u)} between joints)`
 		},
 		p.mixing.readyMixSuggested
-			? { label: 'Concrete', value: `ready-mix, ${trim(p.readyMix.order, 2)} ${p.readyMix.unit}`, note: `or ${planned.count} × ${planned.size} ${planned.unit} bags in smaller pours` }
-			: { label: 'Concrete', value: `${planned.count} × ${planned.size} ${planned.unit} bags`, note: `or ready-mix, ${trim(p.readyMix.order, 2)} ${p.readyMix.unit}` }
+			? { label: 'Concrete', value: `ready-mix, ${formatOrder(p.readyMix)}`, note: `or ${planned.count} × ${formatBagSize(planned)} bags in smaller pours` }
+			: { label: 'Concrete', value: `${planned.count} × ${formatBagSize(planned)} bags`, note: `or ready-mix, ${formatOrder(p.readyMix)}` }
 	);
 	if (s.houseGap) {
 		const formed = p.forms.runs.some((r) => r.kind === 'house' && r.formed);

@@ -3,7 +3,7 @@
 // the PDF with pdfkit, so both show one drawing. Plan y runs down the page, as in the editor.
 
 import type { PlanResult } from '$lib/plan';
-import { tapeLength } from '$lib/plan/format';
+import { tapeLength } from './text';
 import type { LayoutSheet } from '$lib/plan/layout-sheet';
 import type { Pt } from '$lib/plan/polygon';
 import { signedArea } from '$lib/plan/polygon';

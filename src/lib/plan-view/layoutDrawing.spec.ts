@@ -3,7 +3,7 @@ import { computePlan } from '$lib/plan';
 import { layoutSheet } from '$lib/plan/layout-sheet';
 import { buildCardItems } from './buildCard';
 import { labelBox, layoutDrawing, type LayoutDrawing } from './layoutDrawing';
-import demoPlans from '../../../../fixtures/demo-plans.json' with { type: 'json' };
+import demoPlans from '../../../fixtures/demo-plans.json' with { type: 'json' };
 import { cornerEll } from '$lib/plan/test-plans';
 
 const twoPours = computePlan({ units: 'metric', sections: [{ outline: [[0, 0], [2, 0], [2, 3], [0, 3]] }, { outline: [[2, 0], [4, 0], [4, 3], [2, 3]] }] });

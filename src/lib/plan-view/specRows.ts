@@ -1,5 +1,5 @@
 import { parsePlanInput, type PlanResult } from '$lib/plan';
-import { formatLength, formatSmall, formatVolume } from '$lib/plan/format';
+import { formatArea, formatFall, formatLength, formatSmall, formatVolume } from './text';
 
 export type SpecRow = { label: string; value: string };
 
@@ -21,7 +21,7 @@ export function specRows(input: unknown, result: PlanResult | null): SpecRow[] {
 		const edges = s.edges.map((e) => `${formatLength(e.length, u)}${e.kind === 'house' ? ' (house)' : e.kind === 'coldJoint' ? ' (cold joint)' : ''}`);
 		rows.push({ label: result.geometry.sections.length > 1 ? `Outline, ${s.name}` : 'Outline', value: `${s.edges.length} sides: ${edges.join(', ')}` });
 	}
-	rows.push({ label: 'Area', value: u === 'imperial' ? `${Math.round(result.area.squareFeet)} ft²` : `${result.area.squareMeters.toFixed(1)} m²` });
+	rows.push({ label: 'Area', value: formatArea(result.area, u) });
 	rows.push({ label: 'Perimeter', value: formatLength(result.area.perimeter, u) });
 	if (plan) rows.push({ label: 'Thickness', value: u === 'imperial' ? `${plan.thickness} in` : `${plan.thickness} mm` });
 	rows.push({ label: 'Concrete to order', value: formatVolume(result.volume.order, u) });
@@ -36,7 +36,7 @@ export function specRows(input: unknown, result: PlanResult | null): SpecRow[] {
 	const fromHouse = result.geometry.houseEdges.some((h) => h.section === result.geometry.highEdge.section && h.edge === result.geometry.highEdge.edge);
 	rows.push({
 		label: 'Fall',
-		value: `${u === 'imperial' ? `${fall.inchesPerFoot.toFixed(2)} in/ft` : `${fall.millimetersPerMeter.toFixed(0)} mm/m`} (${fall.percent.toFixed(1)} %) away from ${fromHouse ? 'the house' : `side ${result.geometry.highEdge.edge + 1}`}; ${formatSmall(result.elevations.totalDrop, u)} high to low`
+		value: `${formatFall(fall, u)} away from ${fromHouse ? 'the house' : `side ${result.geometry.highEdge.edge + 1}`}; ${formatSmall(result.elevations.totalDrop, u)} high to low`
 	});
 	const j = result.joints;
 	rows.push({

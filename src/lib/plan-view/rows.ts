@@ -1,73 +1,31 @@
-// Display text for the plan page and the plan PDF. Both render these rows, so the page and the
-// download show the same numbers, in the plan's own units, straight from the engine result.
+// Plan figures as people read them, step two: the rows each view lists (summary, stake marks,
+// mixing, day plan, milestones, materials, cautions), built from the text in text.ts. The plan
+// page and the PDF render these same rows, so the page and the download show the same numbers.
 
-import type { Area, Caution, Mass, PlanResult, Severity, Small, Temperature, Units } from '$lib/plan';
-import { formatLength, formatSmall, formatVolume, tapeLength } from '$lib/plan/format';
+import type { Caution, PlanResult, Severity } from '$lib/plan';
 import { length, planToM } from '$lib/plan/units';
-import { formatMoney, toCents } from '$lib/money';
-
-const round = (x: number, digits: number) => Math.round(x * 10 ** digits) / 10 ** digits;
-const num = (x: number, digits: number) => String(round(x, digits));
-
-export const formatArea = (a: Area, u: Units) =>
-	u === 'imperial' ? `${num(a.squareFeet, 1)} ft²` : `${num(a.squareMeters, 2)} m²`;
-
-export const formatMass = (m: Mass, u: Units) =>
-	u === 'imperial' ? `${num(m.pounds, 0)} lb` : `${num(m.kilograms, 1)} kg`;
-
-export const formatTemperature = (t: Temperature, u: Units) =>
-	u === 'imperial' ? `${num(t.fahrenheit, 0)} °F` : `${num(t.celsius, 0)} °C`;
-
-export const formatPercent = (p: number) => `${num(p, 0)} %`;
-
-/** A height without its sign, and whether it rounds to nothing in the plan's unit. */
-function magnitude(s: Small, u: Units): { text: string; zero: boolean } {
-	const text = formatSmall({ inches: Math.abs(s.inches), millimeters: Math.abs(s.millimeters) }, u);
-	return { text, zero: text.startsWith('0 ') };
-}
-
-/** Signed height: "+⅜ in", "−1½ in", "0 mm"; no sign when it rounds to nothing. */
-export function formatElevation(s: Small, u: Units): string {
-	const { text, zero } = magnitude(s, u);
-	return zero ? text : `${s.millimeters < 0 ? '−' : '+'}${text}`;
-}
-
-/** Minutes as a crew reads a clock: "45 min", "2 h", "5 h 6 min". */
-export function formatMinutes(minutes: number): string {
-	const m = Math.round(Math.abs(minutes));
-	if (m < 60) return `${m} min`;
-	const rest = m % 60;
-	return `${Math.floor(m / 60)} h${rest ? ` ${rest} min` : ''}`;
-}
-
-/** "1 board", "3 boards". */
-export const plural = (n: number, word: string) => `${n} ${n === 1 ? word : `${word}s`}`;
-
-/**
- * Why the strength curve may pass 100 %, or nothing when it stays below. 100 % is the 28-day
- * strength at the standard temperature; ACI 209R-92 Eq. 2-1 (moist-cured Type I, a = 4.0, b = 0.85)
- * gives 28 / (4 + 0.85 × 28) = 100.7 % at day 28, and warm days age concrete faster (ASTM C1074).
- */
-export function strengthNote(strength: { percent: number }[]): string | undefined {
-	if (!strength.some((d) => d.percent > 100)) return undefined;
-	return 'The curve passes 100 %: 100 % is the design (28-day) strength, and concrete keeps gaining after day 28. The strength-gain formula (ACI 209R-92 Eq. 2-1) gives about 100.7 % at day 28 for ordinary cement, and warm weather makes concrete age faster than the calendar (ASTM C1074).';
-}
-
-/** A material quantity; a zero quantity means the unit text says it all ("per your layout"). */
-export function formatQuantity(quantity: number, unit: string): string {
-	if (quantity <= 0) return unit;
-	return `${num(quantity, quantity >= 10 ? 1 : 2)} ${unit}`;
-}
-
-// Dates live in $lib/reader (the reader's locale, today and every date format); re-exported for
-// the plan views and the PDF that import them from here.
-import { formatDayLong as formatDate } from '$lib/reader';
-export { readerLocale } from '$lib/reader';
-export { formatDate };
-
-export const formatBagSize = (b: { size: number; unit: string }) => `${b.size} ${b.unit}`;
-
-export const formatOrder = (r: PlanResult['readyMix']) => `${num(r.order, 2)} ${r.unit}`;
+import { signal } from '$lib/palette';
+import type { PlanFigures } from '$lib/plan-figures';
+import {
+	formatArea,
+	formatBagSize,
+	formatCost,
+	formatDate,
+	formatElevation,
+	formatLength,
+	formatMass,
+	formatMinutes,
+	formatOrder,
+	formatOrderVolume,
+	formatPercent,
+	formatQuantity,
+	formatSmall,
+	formatTemperature,
+	formatVolume,
+	magnitude,
+	num,
+	tapeLength
+} from './text';
 
 export interface SummaryItem {
 	label: string;
@@ -79,7 +37,7 @@ export type SummaryPlan = Pick<PlanResult, 'units' | 'area' | 'volume' | 'bags' 
 
 export function summaryItems(p: SummaryPlan): SummaryItem[] {
 	const u = p.units;
-	const money = (x?: number) => (x === undefined ? '' : ` · ${formatMoney(toCents(x), p.currency)}`);
+	const money = (x?: number) => (x === undefined ? '' : ` · ${formatCost(x, p.currency)}`);
 	const items: SummaryItem[] = [
 		{ label: 'Area', value: formatArea(p.area, u) },
 		{ label: 'Outside edge', value: formatLength(p.area.perimeter, u) },
@@ -100,7 +58,7 @@ export function summaryItems(p: SummaryPlan): SummaryItem[] {
 }
 
 function cheaperText({ cost, bags, currency }: SummaryPlan): string | undefined {
-	const formatMoneyIn = (x: number) => formatMoney(toCents(x), currency);
+	const formatMoneyIn = (x: number) => formatCost(x, currency);
 	if (!cost.cheaper || cost.bagCost === undefined || cost.readyMixCost === undefined) return undefined;
 	const bag = bags.find((b) => b.size === cost.bagSize);
 	const bagLabel = bag ? `${formatBagSize(bag)} bags` : 'bags';
@@ -114,7 +72,7 @@ export function diyTotal({ materials, currency }: Pick<PlanResult, 'materials'> 
 	if (!materials.items.some((i) => i.cost !== undefined)) return undefined;
 	const { amount, complete, unpriced } = materials.diyTotal;
 	const names = unpriced.map((id) => materials.items.find((i) => i.id === id)?.name ?? id);
-	return { amount: formatMoney(toCents(amount), currency), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
+	return { amount: formatCost(amount, currency), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
 }
 
 const RUN_KIND = { outer: 'Outer form', house: 'House side', bulkhead: 'Bulkhead' } as const;
@@ -288,7 +246,7 @@ export const materialRows = ({ materials, currency }: Pick<PlanResult, 'material
 		id: i.id,
 		name: i.name,
 		quantity: formatQuantity(i.quantity, i.unit),
-		cost: i.cost === undefined ? undefined : formatMoney(toCents(i.cost), currency),
+		cost: i.cost === undefined ? undefined : formatCost(i.cost, currency),
 		note: i.note
 	}));
 
@@ -301,7 +259,7 @@ export const DEFERRAL_FALLBACK = 'Local codes, permits and licensed professional
  */
 export const SEVERITY_LABEL: Record<Severity, string> = { danger: 'Danger', warning: 'Warning', info: 'Good to know' };
 /** ANSI Z535.1 safety red and safety orange (approximate sRGB), and our own information blue. */
-export const SEVERITY_COLOR: Record<Severity, string> = { danger: '#c8102e', warning: '#e8730c', info: '#1f4e66' };
+export const SEVERITY_COLOR: Record<Severity, string> = signal;
 const SEVERITY_RANK: Record<Severity, number> = { danger: 0, warning: 1, info: 2 };
 
 /** The deferral to local codes apart, the rest most severe first (stable within a level). */
@@ -314,4 +272,23 @@ export function sortCautions(cautions: Caution[]): { deferral?: Caution; rest: C
 			.sort((a, b) => SEVERITY_RANK[a.c.severity] - SEVERITY_RANK[b.c.severity] || a.i - b.i)
 			.map((x) => x.c)
 	};
+}
+
+/**
+ * The few figures a lead and the bid comparison show, from the frozen copy the lead keeps (any part
+ * may be missing in an older copy, and is then left out).
+ */
+export function figureRows(f: PlanFigures): [label: string, value: string][] {
+	const u = f.units;
+	const rows: [string, string][] = [];
+	if (f.area) rows.push(['Area', formatArea(f.area, u)]);
+	if (f.volume?.net) rows.push(['Concrete, net', formatOrderVolume(f.volume.net, u)]);
+	if (f.volume?.order) rows.push(['Concrete to order', formatOrderVolume(f.volume.order, u)]);
+	if (f.bags?.length) rows.push(['Bags', f.bags.map((b) => `${b.count} × ${formatBagSize(b)}`).join(', ')]);
+	if (f.joints) rows.push(['Control joints at most', `${formatLength(f.joints.maxSpacing, u)} apart`]);
+	if (f.materials) {
+		const { amount, complete } = f.materials.diyTotal;
+		rows.push(['Materials if done yourself', `${formatCost(amount, f.currency)}${complete ? '' : ' (not every item priced)'}`]);
+	}
+	return rows;
 }
