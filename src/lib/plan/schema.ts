@@ -42,10 +42,13 @@ function deepFreeze<T>(v: T): T {
 
 /**
  * An optional object whose absence means "all its own defaults". The default is worked out once
- * and frozen; zod hands it back without parsing, which keeps a parse cheap.
+ * and frozen; zod hands it back without parsing, which keeps a parse cheap. It is given as a
+ * function: zod shallow-copies a default given as a value on every parse that uses it (a dozen
+ * objects a plan), while a function's answer is handed back as it is.
  */
 function withDefaults<T extends z.ZodObject>(schema: T) {
-	return schema.default(deepFreeze(schema.parse({})) as z.util.NoUndefined<z.output<T>>);
+	const frozen = deepFreeze(schema.parse({})) as z.util.NoUndefined<z.output<T>>;
+	return schema.default(() => frozen);
 }
 function planSchemaFor<U extends Units>(units: U) {
 	const d = DEFAULTS[units];
