@@ -24,14 +24,13 @@ export const tolerance = (outlines: readonly (readonly Pt[])[]) => {
 };
 
 /** Why an outline is not a usable simple polygon, or null when it is. */
-export function outlineProblem(poly: readonly Pt[], eps: number): string | null {
+export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64Array = edgeBoxes(poly)): string | null {
 	const n = poly.length;
 	for (let i = 0; i < n; i++) {
 		if (dist(poly[i], next(poly, i)) <= eps)
 			return `vertices ${i} and ${(i + 1) % n} are the same point`;
 	}
 	if (Math.abs(signedArea(poly)) <= eps * perimeter(poly)) return 'the outline has no area';
-	const boxes = edgeBoxes(poly);
 	for (let i = 0; i < n; i++) {
 		// Neighbouring edges share a vertex; they only fail by folding back onto each other.
 		const a = poly[i];
@@ -62,8 +61,8 @@ interface Probe {
 	interior: Pt;
 }
 
-function probe(poly: readonly Pt[], eps: number): Probe {
-	return { poly, box: bbox(poly), edges: edgeBoxes(poly), interior: interiorPoint(poly, eps) };
+function probe(poly: readonly Pt[], eps: number, edges: Float64Array = edgeBoxes(poly)): Probe {
+	return { poly, box: bbox(poly), edges, interior: interiorPoint(poly, eps) };
 }
 
 const insideBox = (x: number, y: number, b: Box) => x > b.minX && x < b.maxX && y > b.minY && y < b.maxY;
@@ -113,9 +112,11 @@ export function geometryIssues(outlines: readonly (readonly Pt[])[]): PlanIssue[
 	const eps = tolerance(outlines);
 	const issues: PlanIssue[] = [];
 	const probes = outlines.map((o, i) => {
-		const problem = outlineProblem(o, eps);
+		// One set of edge boxes per outline serves both the self-crossing test and the overlap probe.
+		const boxes = edgeBoxes(o);
+		const problem = outlineProblem(o, eps, boxes);
 		if (problem) issues.push({ path: `sections.${i}.outline`, message: `Section ${i + 1}: ${problem}.` });
-		return problem ? null : probe(o, eps);
+		return problem ? null : probe(o, eps, boxes);
 	});
 	for (let i = 0; i < outlines.length; i++)
 		for (let j = i + 1; j < outlines.length; j++) {

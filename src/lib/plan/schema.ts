@@ -7,42 +7,16 @@ import { geometryIssues, type PlanIssue } from './geometry';
 import { planErrorMap, plainNumber, RATE_MAX, RATE_UNITS, rateMessage } from './messages';
 import { perimeter, signedArea } from './polygon';
 import { KG_PER_LB, M2_PER_FT2, M3_PER_FT3, M_PER_FT, M_PER_IN, type Units } from './units';
+import { LIMITS } from './limits';
+
+export { answerBytesBound, LIMITS } from './limits';
 
 export const LUMBER_SIZES = ['2x4', '2x6', '2x8', '2x10', '2x12'] as const;
 export { RATE_UNITS };
 export const REINFORCEMENT = ['none', 'fiber', 'mesh', 'rebar'] as const;
 
-const MAX_SECTIONS = 12;
-const MAX_VERTICES = 100;
-
-/**
- * The product's scope: a homeowner's slab, not a parking lot. Each limit keeps one output (and its
- * computation) small; the engine's outputs grow at most linearly with corners, stakes and sections.
- * Documented in docs/api.md; each refusal names its limit.
- */
-export const LIMITS = {
-	/** Pour sections (each its own pour day at least). */
-	sections: MAX_SECTIONS,
-	/** Corners of one section's outline. */
-	verticesPerSection: MAX_VERTICES,
-	/** Corners of all outlines together. */
-	vertices: 300,
-	/** Slab area of all sections, ft² / m². */
-	area: { imperial: 3000, metric: 280 },
-	/** Outline length of all sections (forms, bulkheads, stake marks), ft / m. */
-	perimeter: { imperial: 1000, metric: 300 },
-	/** Stakes: outline length ÷ stake spacing. */
-	stakes: 600,
-	/** Bags of each offered size for the whole order. */
-	bags: 10000
-} as const;
-
-/**
- * Largest answer (rounded JSON, bytes) a plan inside LIMITS may get: it grows linearly with stakes,
- * corners and sections. At the limits this is 20 + 180 + 240 + 96 kB, under 1 MB.
- */
-export const answerBytesBound = (stakes: number, corners: number, sections: number) =>
-	20_000 + 300 * stakes + 800 * corners + 8_000 * sections;
+const MAX_SECTIONS = LIMITS.sections;
+const MAX_VERTICES = LIMITS.verticesPerSection;
 
 /** NUL and other control characters, and UTF-16 halves without their other half. */
 const BAD_TEXT = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
@@ -68,10 +42,13 @@ function deepFreeze<T>(v: T): T {
 
 /**
  * An optional object whose absence means "all its own defaults". The default is worked out once
- * and frozen; zod hands it back without parsing, which keeps a parse cheap.
+ * and frozen; zod hands it back without parsing, which keeps a parse cheap. It is given as a
+ * function: zod shallow-copies a default given as a value on every parse that uses it (a dozen
+ * objects a plan), while a function's answer is handed back as it is.
  */
 function withDefaults<T extends z.ZodObject>(schema: T) {
-	return schema.default(deepFreeze(schema.parse({})) as z.util.NoUndefined<z.output<T>>);
+	const frozen = deepFreeze(schema.parse({})) as z.util.NoUndefined<z.output<T>>;
+	return schema.default(() => frozen);
 }
 function planSchemaFor<U extends Units>(units: U) {
 	const d = DEFAULTS[units];

@@ -1,9 +1,13 @@
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
 import { convertPlan, convertPreset, switchUnits } from './convert';
 import { detectPreset } from './presets';
 import { completeInput, starterInput } from './draft.svelte';
 import { lShape } from './shapes';
+import { loadEngine } from './engine.svelte';
+
+// The wizard loads the engine after its first paint; these specs use it loaded.
+beforeAll(() => loadEngine());
 
 describe('unit switch', () => {
 	it('keeps the same physical slab: area and volume agree within rounding', () => {

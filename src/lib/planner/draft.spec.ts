@@ -1,10 +1,14 @@
-import { describe, expect, it } from 'vitest';
+import { beforeAll, describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
 import { completeInput, PlanDraft, starterInput } from './draft.svelte';
 import { editableCopy, sameData } from './editable';
 import { EditHistory } from './history.svelte';
 import { detectPreset, presetCrossFall, presetHouse, presetOutline, presetProblem } from './presets';
 import { lShape } from './shapes';
+import { loadEngine } from './engine.svelte';
+
+// The wizard loads the engine after its first paint; these specs use it loaded.
+beforeAll(() => loadEngine());
 
 /** Every object and array reachable from v, v included. */
 function objects(v: unknown, out: object[] = []): object[] {

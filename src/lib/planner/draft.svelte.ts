@@ -1,22 +1,39 @@
-import { estimate, parsePlanInput, type EdgeRef, type ParsedPlan, type PlanInput, type Units } from '$lib/plan';
-import { convertPreset, switchUnits, type UnitMemory } from './convert';
+import type { EdgeRef, EstimateOutcome, ParsedPlan, PlanInput, Units } from '$lib/plan';
+import type { UnitMemory } from './convert';
 import { editableCopy } from './editable';
+import { converter, engine, loadEngine, withEngine } from './engine.svelte';
 import { detectPreset, type Preset } from './presets';
 import { edgesAfter, lShape, rectangle, removeVertex, splitEdge, type Pt } from './shapes';
 
-/** A new plan: a rectangle along the house with every engine default filled in, so every field binds. */
-export function starterInput(units: Units = 'imperial', name = 'My slab'): ParsedPlan {
+type Parse = typeof import('$lib/plan').parsePlanInput;
+
+/**
+ * A new plan: a rectangle along the house with every engine default filled in, so every field
+ * binds. Parsed by the loaded engine (`loadEngine()`), or by the parse given (the server's own).
+ */
+export function starterInput(units: Units = 'imperial', name = 'My slab', parse: Parse | undefined = engine()?.parsePlanInput): ParsedPlan {
+	if (!parse) throw new Error('starterInput needs the engine: await loadEngine() first');
 	const outline = units === 'imperial' ? rectangle(12, 10) : rectangle(3.6, 3);
-	const parsed = parsePlanInput({ units, name, sections: [{ outline }], reference: { label: 'door sill', below: units === 'imperial' ? 1 : 25 } });
+	const parsed = parse({ units, name, sections: [{ outline }], reference: { label: 'door sill', below: units === 'imperial' ? 1 : 25 } });
 	if (!parsed.ok) throw new Error(`starter plan is invalid: ${parsed.errors[0].message}`);
 	return editableCopy(parsed.plan);
 }
 
-/** Fills in defaults for an input saved earlier (older inputs may lack newer fields). */
+/**
+ * Fills in defaults for an input saved earlier (older inputs may lack newer fields); null when the
+ * engine refuses it. Needs the engine loaded (`loadEngine()`); before that the input is taken as it
+ * is, which is right for what the server stored (the server completed it).
+ */
 export function completeInput(input: unknown): ParsedPlan | null {
-	const parsed = parsePlanInput(input);
+	const e = engine();
+	if (!e) return editableCopy(input) as ParsedPlan;
+	const parsed = e.parsePlanInput(input);
 	return parsed.ok ? editableCopy(parsed.plan) : null;
 }
+
+/** What the draft shows while the engine is still loading: no result and no errors yet. */
+export type DraftOutcome = EstimateOutcome | { ok: false; pending: true; errors: [] };
+const PENDING: DraftOutcome = { ok: false, pending: true, errors: [] };
 
 export { lShape, rectangle };
 
@@ -45,7 +62,11 @@ export class PlanDraft {
 		this.postcode = data.postcode ?? '';
 		this.input = data.input;
 		this.preset = detectPreset(this.#input);
+		if (typeof window !== 'undefined') void loadEngine().catch(() => (this.engineFailed = true));
 	}
+
+	/** The engine could not be fetched (offline on first visit): the results say so. */
+	engineFailed = $state(false);
 
 	/** Every plan put here is copied first: edited state never shares or holds a frozen object. */
 	get input(): ParsedPlan {
@@ -55,7 +76,9 @@ export class PlanDraft {
 		this.#input = editableCopy(v);
 	}
 
-	outcome = $derived(estimate(this.#input));
+	outcome = $derived.by((): DraftOutcome => engine()?.estimate(this.#input) ?? PENDING);
+	/** True until the engine has loaded and given its first answer. */
+	pending = $derived('pending' in this.outcome);
 	result = $derived(this.outcome.ok ? this.outcome.plan : null);
 	/** Engine messages by dotted path ("sections.0.outline"), for the field that caused them. */
 	errors = $derived(this.outcome.ok ? {} : (Object.fromEntries(this.outcome.errors.map((e) => [e.path, e.message])) as Record<string, string>));
@@ -81,7 +104,12 @@ export class PlanDraft {
 
 	/** Switch units, or leave them and say why; returns whether the switch happened. */
 	switchUnits(to: Units): boolean {
-		const r = switchUnits(this.snapshot().input, to, this.#unitMemory);
+		const c = converter();
+		if (!c) {
+			this.unitsMessage = 'The planner is still loading; try again in a moment.';
+			return false;
+		}
+		const r = c.switchUnits(this.snapshot().input, to, this.#unitMemory);
 		if (!r.ok) {
 			this.unitsMessage = r.reason;
 			return false;
@@ -94,15 +122,17 @@ export class PlanDraft {
 		// The form as last typed in these units, else the shape of the outline, else the sizes typed
 		// in the other units, converted.
 		const remembered = this.#presets[to];
-		this.preset = remembered ? editableCopy(remembered) : detectPreset(this.#input, from === to ? undefined : convertPreset(this.#presets[from]!, to));
+		this.preset = remembered ? editableCopy(remembered) : detectPreset(this.#input, from === to ? undefined : c.convertPreset(this.#presets[from]!, to));
 		return true;
 	}
 
 	/** A new starter plan in the same units; the name and postcode stay. */
 	startOver() {
-		this.input = starterInput(this.#input.units);
-		this.preset = detectPreset(this.#input);
-		this.unitsMessage = '';
+		withEngine((e) => {
+			this.input = starterInput(this.#input.units, undefined, e.parsePlanInput);
+			this.preset = detectPreset(this.#input);
+			this.unitsMessage = '';
+		});
 	}
 
 	// ---- House edges: houseEdge is the first wall, otherHouseEdges the rest; none is freestanding.

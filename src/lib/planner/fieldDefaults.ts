@@ -1,13 +1,17 @@
 // The engine's default for each field, as the wizard shows it beside the field ("Default: 18 in").
 // Read from the schema itself (a minimal plan parsed once per unit system), never written twice.
-import { parsePlanInput, type ParsedPlan, type Units } from '$lib/plan';
+// The engine loads after the wizard's first paint: until then no default is shown.
+import type { ParsedPlan, Units } from '$lib/plan';
+import { engine } from './engine.svelte';
 
 const cache: Partial<Record<Units, ParsedPlan>> = {};
 
-function defaultsFor(units: Units): ParsedPlan {
+function defaultsFor(units: Units): ParsedPlan | undefined {
 	const found = cache[units];
 	if (found) return found;
-	const parsed = parsePlanInput({ units, sections: [{ outline: [[0, 0], [1, 0], [1, 1]] }] });
+	const e = engine();
+	if (!e) return undefined;
+	const parsed = e.parsePlanInput({ units, sections: [{ outline: [[0, 0], [1, 0], [1, 1]] }] });
 	if (!parsed.ok) throw new Error('the minimal plan is invalid');
 	return (cache[units] = parsed.plan);
 }

@@ -32,8 +32,9 @@ export const localDraft = {
 
 /**
  * Watches a draft (create it during component set-up): after every change, not the first read nor
- * a change announced with `skip()`, it calls `onedit` with the draft as text and whether it is
- * valid. The wizard keeps its undo history by it, with or without a saver.
+ * a change announced with `skip()`, it calls `onedit` with the draft as text and its verdict. Until
+ * the engine has loaded an edit cannot be judged ('pending'); it is judged once the engine arrives.
+ * The wizard keeps its undo history by it, with or without a saver.
  */
 export class DraftWatch {
 	#draft: PlanDraft;
@@ -41,18 +42,27 @@ export class DraftWatch {
 	/** The draft as text, as it is saved and compared with what was stored. */
 	serialised = $derived.by(() => JSON.stringify(this.#draft.snapshot()));
 
-	constructor(draft: PlanDraft, onedit: (now: string, ok: boolean) => void) {
+	constructor(draft: PlanDraft, onedit: (now: string, verdict: 'valid' | 'invalid' | 'pending') => void) {
 		this.#draft = draft;
 		let first = true;
+		let last = '';
+		// An edit made before the engine loaded, still to be judged.
+		let held = false;
 		$effect(() => {
 			const now = this.serialised;
+			const pending = this.#draft.pending;
 			const ok = this.#draft.outcome.ok;
 			if (first || this.#skip) {
 				first = this.#skip = false;
+				last = now;
 				return;
 			}
+			// The engine arriving is not an edit, unless one waits for it.
+			if (now === last && !(held && !pending)) return;
+			last = now;
+			held = pending;
 			// What onedit changes (the saver's status) is untracked, so it cannot re-trigger it.
-			untrack(() => onedit(now, ok));
+			untrack(() => onedit(now, pending ? 'pending' : ok ? 'valid' : 'invalid'));
 		});
 	}
 
@@ -96,10 +106,10 @@ export class PlanSaver {
 	 * save, an invalid one shows as such; `onedit` also hears of each edit.
 	 */
 	watch(draft: PlanDraft, onedit?: (now: string) => void): DraftWatch {
-		this.#watch = new DraftWatch(draft, (now, ok) => {
+		this.#watch = new DraftWatch(draft, (now, verdict) => {
 			onedit?.(now);
-			if (ok) this.schedule();
-			else this.status = 'invalid';
+			if (verdict === 'valid') this.schedule();
+			else if (verdict === 'invalid') this.status = 'invalid';
 		});
 		return this.#watch;
 	}

@@ -1,5 +1,5 @@
 // Outline editing for the planner: pure functions on [x, y] vertex lists in plan units.
-import { LIMITS } from '$lib/plan/schema';
+import { LIMITS } from '$lib/plan/limits';
 import { signedArea } from '$lib/plan/polygon';
 
 export type Pt = [number, number];

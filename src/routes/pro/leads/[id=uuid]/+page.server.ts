@@ -2,6 +2,7 @@ import { error, redirect } from '@sveltejs/kit';
 import { openLeadFor } from '$lib/server/billing/accounts'; // billing
 import { extraLead, price } from '$lib/billing-plans';
 import { fullResult, planFigures } from '$lib/plan-figures';
+import { specRows } from '$lib/plan-view/specRows';
 import { defaultDistanceUnit, todayIn } from '$lib/reader';
 import { bidSchemaFor, declineSchema, messageSchema } from '$lib/schemas/leads';
 import { contractorDistanceUnit, requireApprovedContractor } from '$lib/server/contractors';
@@ -27,7 +28,8 @@ export const load = (async (event) => {
 	const { snapshot, homeownerId: _h, contractorId: _c, ...lead } = found.lead;
 	return {
 		lead: { ...lead, status: lead.status === 'new' ? ('viewed' as const) : lead.status },
-		plan: { name: snapshot.name, input: snapshot.input, figures: planFigures(snapshot.input, snapshot.result), result: fullResult(snapshot.result), photoIds: snapshot.photoIds ?? [] },
+		// The spec sheet's rows are worked out here: the browser then needs no engine on this page.
+		plan: { name: snapshot.name, specRows: specRows(snapshot.input, fullResult(snapshot.result)), figures: planFigures(snapshot.input, snapshot.result), result: fullResult(snapshot.result), photoIds: snapshot.photoIds ?? [] },
 		bid: found.bid,
 		homeowner: found.homeowner,
 		asked: found.asked,

@@ -12,5 +12,6 @@ export const load = (async (event) => {
 	if (!found) error(404, 'No such plan.');
 	const parsed = parsePlanInput(found.input);
 	if (!parsed.ok) error(422, `This plan cannot be edited in the planner: ${parsed.errors[0].path} ${parsed.errors[0].message}`);
-	return { plan: planView(found) };
+	// Sent completed (every default filled in), so the wizard shows before the engine has loaded.
+	return { plan: { ...planView(found), input: parsed.plan } };
 }) satisfies PageServerLoad;
