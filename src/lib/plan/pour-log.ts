@@ -46,7 +46,7 @@ const pour = z
 	.max(L.pours - 1, `A plan has at most ${L.pours} pours.`);
 const base = { key, at, tz };
 const isoDate = z.iso.date('The date must be YYYY-MM-DD.');
-const temp = z.number().finite('Temperatures must be numbers.');
+const temp = z.number('Type each temperature as a number, such as 48 or 48.5.').finite('Type each temperature as a number, such as 48 or 48.5.');
 
 export const pourRecordSchema = z
 	.discriminatedUnion('kind', [
