@@ -118,7 +118,8 @@ test('a mail program stops the reminders with one click (RFC 8058); other cross-
 		const form = { 'content-type': 'application/x-www-form-urlencoded' };
 		const res = await mailer.post(url, { headers: form, data: 'List-Unsubscribe=One-Click', maxRedirects: 0 });
 		expect(res.status()).toBe(200);
-		expect(await res.text()).toContain('Curing reminders stopped');
+		// A client that accepts anything gets the action's answer, which names the plan stopped.
+		expect(await res.text()).toContain('One-click pad');
 		expect(await sql`SELECT 1 FROM graphile_worker.jobs WHERE key LIKE ${`curing:${id}:%`}`).toHaveLength(0);
 		await page.reload();
 		await expect(box).not.toBeChecked();
