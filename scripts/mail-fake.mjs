@@ -16,10 +16,17 @@ const server = new SMTPServer({
 		simpleParser(stream)
 			.then(async (mail) => {
 				const to = session.envelope.rcptTo.map((r) => r.address.toLowerCase()).join(', ');
+				// The List-* headers as sent (unfolded), so tests can read a message's unsubscribe headers.
+				const list = Object.fromEntries(
+					mail.headerLines
+						.filter((h) => h.key.startsWith('list-'))
+						.map((h) => [h.key, h.line.slice(h.line.indexOf(':') + 1).replace(/\r?\n[ \t]+/g, ' ').trim()])
+				);
 				await sql`
-					INSERT INTO dev_mail ("from", "to", subject, text, html)
+					INSERT INTO dev_mail ("from", "to", subject, text, html, headers)
 					VALUES (${session.envelope.mailFrom ? session.envelope.mailFrom.address : ''}, ${to},
-						${mail.subject ?? ''}, ${mail.text ?? ''}, ${typeof mail.html === 'string' ? mail.html : null})`;
+						${mail.subject ?? ''}, ${mail.text ?? ''}, ${typeof mail.html === 'string' ? mail.html : null},
+						${Object.keys(list).length ? sql.json(list) : null})`;
 				callback();
 			})
 			.catch((err) => callback(err));

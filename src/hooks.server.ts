@@ -8,6 +8,7 @@ import * as auth from '$lib/server/auth';
 import { startWorker, SWEEP_ON_START } from '$lib/server/jobs';
 import { ensureAdmin } from '$lib/server/users';
 import { client, db } from '$lib/server/db';
+import { csrfHandle } from '$lib/server/csrf';
 
 export const init: ServerInit = async () => {
 	if (building) return;
@@ -56,5 +57,5 @@ const securityHeaders: Handle = async ({ event, resolve }) => {
 };
 
 // Request log and the database-down 503 come first, so they see every other hook's outcome.
-export const handle = sequence(requestHandle(), handleReader, handleAuth, securityHeaders);
+export const handle = sequence(requestHandle(), csrfHandle, handleReader, handleAuth, securityHeaders);
 export const handleError = serverErrorHandler();

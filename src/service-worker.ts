@@ -5,8 +5,9 @@
 
 // Keeps the plans a homeowner opened readable without a connection: the app shell (the build and
 // the static files) cached at install, and each plan's page and pour-day page (with their
-// __data.json) cached as they load, network first. Registered from a plan's layout with the scope
-// /plans/, so nothing else in the app goes through it. Records made offline are not this worker's
+// __data.json) and the plan list (the installed app's start page) cached as they load, network
+// first. Registered from a plan's layout with the scope / so the list at /plans (outside /plans/) is
+// covered too; every other request passes by untouched (no respondWith). Records made offline are not this worker's
 // business: the pour page queues them on the device and sends them itself.
 
 import { build, files, version } from '$service-worker';
@@ -16,8 +17,8 @@ const SHELL = `shell-${version}`;
 const PAGES = 'plan-pages';
 const SHELL_FILES = new Set([...build, ...files]);
 
-/** A plan page kept for offline use: the plan itself or its pour-day page, HTML or data. */
-const PLAN_PAGE = /^\/plans\/[0-9a-f-]{36}(\/pour)?(\/__data\.json)?$/;
+/** A page kept for offline use: the plan list, a plan itself or its pour-day page, HTML or data. */
+const PLAN_PAGE = /^\/plans(\/[0-9a-f-]{36}(\/pour)?)?(\/__data\.json)?$/;
 
 sw.addEventListener('install', (event) => {
 	event.waitUntil(

@@ -77,3 +77,63 @@ test('a homeowner turns on curing reminders, adds the plan to a calendar, and st
 		await sql.end();
 	}
 });
+
+test('a mail program stops the reminders with one click (RFC 8058); other cross-site form posts are still refused', async ({ page, playwright }) => {
+	test.setTimeout(180_000);
+	const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+	try {
+		const email = uniqueEmail('one-click');
+		await signUp(page, { name: 'Oda Klinck', email, password: 'keep-it-moist-2' });
+		const errors = watchErrors(page);
+		const { id } = await insertPlan(email, { name: 'One-click pad', postcode: '97321' });
+		const input = demoPlans.plans[0].input as { conditions: { pourDate: string } };
+		const days = curingReminders(input, input.conditions.pourDate);
+
+		// By keyboard: the switch is a 44 px row, and Space turns it on and off again.
+		await page.goto(`/plans/${id}`);
+		const section = page.getByRole('region', { name: 'Curing days' });
+		const box = section.getByLabel('E-mail me curing reminders');
+		expect((await section.locator('label').filter({ hasText: 'E-mail me curing reminders' }).boundingBox())!.height).toBeGreaterThanOrEqual(44);
+		await box.focus();
+		await page.keyboard.press('Space');
+		await expect(section.getByText('Curing reminders are on.')).toBeVisible();
+		await expect(box).toBeFocused();
+		await page.keyboard.press('Space');
+		await expect(section.getByText('Curing reminders are off; none will be sent.')).toBeVisible();
+		await page.keyboard.press('Space');
+		await expect(section.getByText('Curing reminders are on.')).toBeVisible();
+
+		await sql`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key = ${`curing:${id}:${days[0].date}`}`;
+		let headers: Record<string, string> = {};
+		await expect(async () => {
+			const [m] = await sql<{ headers: Record<string, string> | null }[]>`SELECT headers FROM dev_mail WHERE "to" = ${email} AND text LIKE '%Curing reminder for One-click pad%'`;
+			headers = m?.headers ?? {};
+			expect(headers['list-unsubscribe']).toBeTruthy();
+		}).toPass({ timeout: 60_000 });
+		expect(headers['list-unsubscribe-post']).toBe('List-Unsubscribe=One-Click');
+		const url = /^<(https?:\/\/\S+\/reminders\/stop\?token=[\w.-]+)>$/.exec(headers['list-unsubscribe'])![1];
+
+		// The mail program's post: no cookie, no Origin header, the body RFC 8058 prescribes.
+		const mailer = await playwright.request.newContext();
+		const form = { 'content-type': 'application/x-www-form-urlencoded' };
+		const res = await mailer.post(url, { headers: form, data: 'List-Unsubscribe=One-Click', maxRedirects: 0 });
+		expect(res.status()).toBe(200);
+		// A client that accepts anything gets the action's answer, which names the plan stopped.
+		expect(await res.text()).toContain('One-click pad');
+		expect(await sql`SELECT 1 FROM graphile_worker.jobs WHERE key LIKE ${`curing:${id}:%`}`).toHaveLength(0);
+		await page.reload();
+		await expect(box).not.toBeChecked();
+
+		// Anywhere else a form post without our origin is refused as before, with or without an Origin header.
+		const signin = new URL('/signin', url).href;
+		for (const origin of [undefined, 'https://elsewhere.example']) {
+			const refused = await mailer.post(signin, { headers: { ...form, ...(origin ? { origin } : {}) }, data: 'email=a%40b.test&password=x', maxRedirects: 0 });
+			expect(refused.status()).toBe(403);
+			expect(await refused.text()).toBe('Cross-site POST form submissions are forbidden');
+		}
+		await mailer.dispose();
+		expect(errors).toEqual([]);
+	} finally {
+		await sql.end();
+	}
+});

@@ -46,7 +46,32 @@ const hostileValue: fc.Arbitrary<unknown> = fc.oneof(
 
 /** Raw JSON request bodies, some not JSON at all. */
 const jsonBody = fc.oneof(
-	fc.dictionary(fc.constantFrom('name', 'postcode', 'input', 'revision', 'units', 'sections', 'x'), hostileValue).map((o) => JSON.stringify(o)),
+	fc.dictionary(fc.constantFrom('name', 'postcode', 'input', 'revision', 'units', 'sections', 'records', 'x'), hostileValue).map((o) => JSON.stringify(o)),
+	// Pour-log records: the right shape with hostile fields, and more of them than one request takes.
+	fc
+		.array(
+			fc.record(
+				{
+					kind: fc.oneof(fc.constantFrom('start', 'batch', 'undo', 'end', 'bags', 'temp', 'note'), hostileString),
+					key: fc.oneof(hostileString, fc.constant('fuzz-key-0001')),
+					at: hostileValue,
+					tz: hostileValue,
+					pour: hostileValue,
+					bags: hostileValue,
+					date: hostileValue,
+					unit: fc.oneof(fc.constantFrom('C', 'F'), hostileValue),
+					low: hostileValue,
+					high: hostileValue,
+					reading: hostileValue,
+					time: hostileValue,
+					text: hostileValue,
+					of: hostileValue
+				},
+				{ requiredKeys: ['kind'] }
+			),
+			{ maxLength: 60 }
+		)
+		.map((records) => JSON.stringify({ records })),
 	fc.record({ name: hostileString, input: fc.record({ units: hostileValue, sections: hostileValue }) }).map((o) => JSON.stringify(o)),
 	fc.integer({ min: 100, max: 5000 }).map((n) => '['.repeat(n) + ']'.repeat(n)),
 	fc.integer({ min: 100, max: 5000 }).map((n) => '{"a":'.repeat(n) + '1' + '}'.repeat(n)),
@@ -101,7 +126,8 @@ test('hostile bodies never give a 5xx and every 4xx says why', async ({ playwrig
 		...[
 			{ name: 'POST /api/estimate', method: 'POST', url: '/api/estimate', who: 'anon' as Actor },
 			{ name: 'POST /api/plans', method: 'POST', url: '/api/plans', who: 'homeowner' as Actor },
-			{ name: 'PATCH /api/plans/[id]', method: 'PATCH', url: `/api/plans/${planId}`, who: 'homeowner' as Actor }
+			{ name: 'PATCH /api/plans/[id]', method: 'PATCH', url: `/api/plans/${planId}`, who: 'homeowner' as Actor },
+			{ name: 'POST /plans/[id]/pour/records', method: 'POST', url: `/plans/${planId}/pour/records`, who: 'homeowner' as Actor }
 		].map((t) => ({ ...t, kind: 'json' as const })),
 		...formActions().map(({ route, action }) => ({
 			name: `${route}?/${action}`,

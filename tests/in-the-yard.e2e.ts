@@ -4,6 +4,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import postgres from 'postgres';
+import sharp from 'sharp';
 import { signUp, uniqueEmail, watchErrors } from './helpers';
 
 test.describe.configure({ timeout: 240_000 });
@@ -58,6 +59,9 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	const pour = page.getByTestId('pour-0');
 	await expect(pour.getByRole('heading', { level: 2 })).toBeVisible();
 	await expect(pour).toContainText('working time 1 h 30 min'); // 90 min at 70 °F: the engine's default (common practice)
+	await expect(page.getByTestId('sync-state')).toHaveText('Nothing logged yet.');
+	// The way back is a thumb-sized target too.
+	expect((await page.getByRole('link', { name: '← Yard patio' }).boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	await axeClean(page);
 
 	// Network cut: the plan, its layout sheet and the pour page still show, with the offline note.
@@ -69,6 +73,10 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await expect(page.getByTestId('offline-note')).toContainText('Offline — as of');
 	await page.reload();
 	await expect(page.getByTestId('layout-sheet')).toBeVisible();
+	// The plan list, where the app installed on the home screen opens, reads offline too.
+	await page.goto('/plans');
+	await expect(page.getByTestId('offline-note')).toContainText('Offline — this is the list as this phone last saw it');
+	await expect(page.getByRole('link', { name: 'Yard patio' }).first()).toBeVisible();
 	await page.goto(`/plans/${planId}/pour`);
 	await page.reload();
 	await expect(page.getByTestId('offline-note')).toBeVisible();
@@ -81,6 +89,7 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 
 	// Offline: start, two batches and the day's low and high.
 	await pour.getByRole('button', { name: /^Start/ }).click();
+	await expect(pour.getByTestId('started-at')).toContainText('The clock runs from the first batch.');
 	const add = pour.getByTestId('add-batch');
 	const box = (await add.boundingBox())!;
 	expect(box.height).toBeGreaterThanOrEqual(48); // a thumb-sized target
@@ -95,10 +104,14 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await page.getByRole('button', { name: 'Log temperature' }).click();
 	await expect(page.getByText('Temperature logged.')).toBeVisible();
 	await expect(page.getByTestId('sync-state')).toContainText('4 records waiting to send');
+	// Photos are not queued on the phone, and the page says so while there is no connection.
+	await expect(page.getByTestId('photos-offline')).toContainText('No connection: take the photos with the phone’s camera now');
+	await expect(page.getByTestId('photo-input')).toHaveCount(0);
 	// The count survives a reload with the network still cut (kept on the phone).
 	await page.reload();
 	await expect(pour.getByTestId('batch-count')).toHaveText('2');
-	await expect(page.getByTestId('temp-list')).toContainText(`${today}: low 38 °F, high 52 °F`);
+	const day = (iso: string) => new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${iso}T00:00:00Z`));
+	await expect(page.getByTestId('temp-list')).toContainText(`${day(today)}: low 38 °F, high 52 °F`);
 	expect(await stored(planId)).toEqual({});
 
 	// Back online: the queue is sent, once.
@@ -118,6 +131,9 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	// Online: a reading at a time, a note (its limit said), bags used.
 	await page.getByLabel('One reading').check();
 	await page.getByLabel('Date', { exact: true }).fill(tomorrow);
+	await page.getByLabel(/Reading, °F/).fill('warm');
+	await page.getByRole('button', { name: 'Log temperature' }).click();
+	await expect(page.getByRole('alert').filter({ hasText: 'Type each temperature as a number, such as 48 or 48.5.' })).toBeVisible();
 	await page.getByLabel(/Reading, °F/).fill('200');
 	await page.getByLabel('Time', { exact: true }).fill('07:30');
 	await page.getByRole('button', { name: 'Log temperature' }).click();
@@ -134,8 +150,19 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await pour.getByLabel(/Bags used/).fill('3');
 	await pour.getByRole('button', { name: 'Log bags used' }).click();
 	await expect(pour.getByTestId('bags-used')).toHaveText('Logged: 3 bags.');
+	// Placing done: the pace line goes (nothing is being placed), the finishing windows count from now.
+	await expect(pour.getByTestId('pace')).toBeVisible();
+	await pour.getByRole('button', { name: 'Placing done' }).click();
+	await expect(pour.getByText(/^Placing done at \d{1,2}:\d{2}/)).toBeVisible();
+	await expect(pour.getByTestId('pace')).toBeHidden();
+	// A photo from the pour page joins the plan's site photos, through the photo store.
+	const photo = await sharp({ create: { width: 320, height: 240, channels: 3, background: '#9bb88a' } }).jpeg().toBuffer();
+	await page.getByTestId('photo-input').setInputFiles([{ name: 'screeded.jpg', mimeType: 'image/jpeg', buffer: photo }]);
+	await expect(page.getByTestId('upload')).toHaveAttribute('data-state', 'done', { timeout: 30_000 });
+	await expect(page.getByText(/They join the plan’s site photos \(1 so far/)).toBeVisible();
 	await expect(page.getByTestId('sync-state')).toHaveText('All records sent.', { timeout: 30_000 });
-	expect(await stored(planId)).toEqual({ start: 1, batch: 2, temp: 2, note: 1, bags: 1 });
+	expect(await stored(planId)).toEqual({ start: 1, batch: 2, temp: 2, note: 1, bags: 1, end: 1 });
+	expect((await sql`select 1 from plan_photo where plan_id = ${planId}`).length).toBe(1);
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
 	await page.screenshot({ path: 'test-results/screens/pour-day.png', fullPage: true });
 
@@ -147,5 +174,11 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await expect(table).toContainText('Counted from the logged pour on');
 	// Both logged days fall in the timeline: the pour day (38–52 °F) and the next (one reading, 41 °F).
 	await expect(table).toContainText('with 2 of the first 28 days');
+	// The curing reminders count from the logged pour day (the plan has no planned date).
+	await expect(page.getByTestId('reminder-status')).toContainText(
+		`after the pour on ${new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${today}T00:00:00Z`))} (the day logged on the pour page)`
+	);
+	await expect(page.getByTestId('planned-vs-logged').getByText('Daily temperatures used')).toBeVisible();
+	expect((await page.getByText('Daily temperatures used').boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	expect(errors).toEqual([]);
 });

@@ -46,7 +46,7 @@ const pour = z
 	.max(L.pours - 1, `A plan has at most ${L.pours} pours.`);
 const base = { key, at, tz };
 const isoDate = z.iso.date('The date must be YYYY-MM-DD.');
-const temp = z.number().finite('Temperatures must be numbers.');
+const temp = z.number('Type each temperature as a number, such as 48 or 48.5.').finite('Type each temperature as a number, such as 48 or 48.5.');
 
 export const pourRecordSchema = z
 	.discriminatedUnion('kind', [
@@ -224,6 +224,20 @@ export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days
 	return { pourDate, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps };
 }
 
+/**
+ * The first pour's date as the log has it, for counting the curing days: the date of the
+ * lowest-numbered pour the crew started (or mixed a batch of), moved back by that pour's planned
+ * offset from the first pour (`plannedDays`: the day plan's day number of each pour). Null when
+ * nothing was started. The plan's spacing between pours is kept: a pour logged alone on its own
+ * day moves the whole set.
+ */
+export function loggedFirstPourDate(log: PourLog, plannedDays: readonly number[]): string | null {
+	const started = [...log.pours.values()]
+		.filter((p) => p.date && (p.batches.length || p.startedAt !== undefined) && p.pour < plannedDays.length)
+		.sort((a, b) => a.pour - b.pour)[0];
+	if (!started?.date) return null;
+	return addDays(started.date, -(plannedDays[started.pour] - plannedDays[0]));
+}
 
 /** loggedForecast for a saved plan: its input, its computed result and its records. */
 export function loggedForecastFor(input: unknown, result: Pick<PlanResult, 'schedule'>, records: readonly PourRecord[]): LoggedForecast | null {

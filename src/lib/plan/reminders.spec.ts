@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan } from './index';
-import { curingReminders, MAX_MOIST_DAYS, plannedCuringReminders } from './reminders';
+import { curingReminders, curingRemindersFor, MAX_MOIST_DAYS, plannedCuringReminders } from './reminders';
+import type { PourRecord } from './pour-log';
 import { strengthRatio } from './strength';
 import { addDays } from './schedule';
 import { cornerEll } from './test-plans';
@@ -74,5 +75,59 @@ describe('curing reminders', () => {
 	it('never show a user "from memory"', () => {
 		const text = JSON.stringify(curingReminders(at(41, { loads: { vehicles: true } } as Partial<PlanInput>), '2027-11-01'));
 		expect(text).not.toMatch(/from memory/i);
+	});
+});
+
+describe('curing reminders from the pour log', () => {
+	// Two halves poured a day apart (the day plan's spacing), planned for 2027-10-09.
+	const twoPours: PlanInput = {
+		units: 'metric',
+		sections: [
+			{ name: 'West half', outline: [[0, 0], [1.8, 0], [1.8, 2.4], [0, 2.4]] },
+			{ name: 'East half', outline: [[1.8, 0], [3.6, 0], [3.6, 2.4], [1.8, 2.4]] }
+		],
+		houseEdge: null,
+		conditions: { airTemp: 20, pourDate: '2027-10-09' }
+	} as PlanInput;
+	const planned = computePlan(twoPours);
+	const offset = planned.schedule.pourDays[1].day - planned.schedule.pourDays[0].day;
+	// Records as the pour page makes them: the device's local date of 08:00 UTC with offset 0.
+	const rec = (r: Record<string, unknown>, date: string, i: number) =>
+		({ key: `key-${String(i).padStart(4, '0')}`, at: Date.parse(`${date}T08:00:00Z`) + i * 60_000, tz: 0, ...r }) as PourRecord;
+
+	it('count from the planned date while nothing is started, and not from notes or temperatures', () => {
+		const r = curingRemindersFor(twoPours, [rec({ kind: 'note', text: 'rain' }, '2027-10-12', 0), rec({ kind: 'temp', date: '2027-10-12', unit: 'C', low: 2, high: 9 }, '2027-10-12', 1)]);
+		expect(r).toEqual({ ...plannedCuringReminders(twoPours), logged: false });
+		expect(r.pourDate).toBe('2027-10-09');
+	});
+
+	it('move to the day the first pour was logged as started', () => {
+		const r = curingRemindersFor(twoPours, [rec({ kind: 'start', pour: 0 }, '2027-10-12', 0), rec({ kind: 'batch', pour: 0 }, '2027-10-12', 1)]);
+		expect(r.logged).toBe(true);
+		expect(r.pourDate).toBe('2027-10-12');
+		// Three days later than planned, day for day.
+		expect(r.days.map((d) => d.date)).toEqual(plannedCuringReminders(twoPours).days.map((d) => addDays(d.date, 3)));
+		expect(r.days).toEqual(curingReminders(twoPours, '2027-10-12'));
+	});
+
+	it('take a later pour logged alone back by its planned offset from the first', () => {
+		expect(offset).toBeGreaterThan(0);
+		const r = curingRemindersFor(twoPours, [rec({ kind: 'start', pour: 1 }, '2027-10-20', 0)]);
+		expect(r.pourDate).toBe(addDays('2027-10-20', -offset));
+	});
+
+	it('follow the first batch over the start tap, and go back to the plan when the only batch is taken back and nothing was started', () => {
+		const started = curingRemindersFor(twoPours, [rec({ kind: 'start', pour: 0 }, '2027-10-11', 0), rec({ kind: 'batch', pour: 0 }, '2027-10-12', 1)]);
+		expect(started.pourDate).toBe('2027-10-12');
+		const undone = curingRemindersFor(twoPours, [rec({ kind: 'batch', pour: 0 }, '2027-10-12', 0), rec({ kind: 'undo', pour: 0, of: 'key-0000' }, '2027-10-12', 1)]);
+		expect(undone).toEqual({ ...plannedCuringReminders(twoPours), logged: false });
+	});
+
+	it('work for a plan with no planned pour date once a pour is logged', () => {
+		const undated = { ...twoPours, conditions: { airTemp: 20 } } as PlanInput;
+		expect(curingRemindersFor(undated, []).pourDate).toBeNull();
+		const r = curingRemindersFor(undated, [rec({ kind: 'start', pour: 0 }, '2027-10-12', 0)]);
+		expect(r.pourDate).toBe('2027-10-12');
+		expect(r.days.length).toBeGreaterThan(0);
 	});
 });

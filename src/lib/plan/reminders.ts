@@ -7,6 +7,7 @@ import { parsePlanInput } from './schema';
 import { PlanInputError } from './geometry';
 import { computeParsedPlan, type PlanResult } from './index';
 import { addDays, dayNumber } from './schedule';
+import { foldRecords, loggedFirstPourDate, type PourRecord } from './pour-log';
 
 export interface CuringItem {
 	id: 'moist' | 'forms-off' | 'walk' | 'furniture' | 'vehicles' | 'curing-done' | 'freeze-safe';
@@ -74,6 +75,28 @@ export function plannedCuringReminders(input: unknown): { pourDate: string | nul
 	const parsed = parsePlanInput(input);
 	const pourDate = parsed.ok ? (parsed.plan.conditions.pourDate ?? null) : null;
 	return { pourDate, days: pourDate ? curingReminders(input, pourDate) : [] };
+}
+
+/**
+ * The reminders counted from the pour date the pour log records when the crew has started a pour
+ * (`logged: true`), else from the plan's own pour date. A start logged on another day than planned
+ * moves every reminder with it.
+ */
+export function curingRemindersFor(
+	input: unknown,
+	records: readonly PourRecord[]
+): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
+	if (records.length) {
+		const parsed = parsePlanInput(input);
+		if (parsed.ok) {
+			const loggedDate = loggedFirstPourDate(
+				foldRecords(records),
+				computeParsedPlan(parsed.plan).schedule.pourDays.map((p) => p.day)
+			);
+			if (loggedDate) return { pourDate: loggedDate, days: curingReminders(input, loggedDate), logged: true };
+		}
+	}
+	return { ...plannedCuringReminders(input), logged: false };
 }
 
 /** The reminder days of a plan already computed with a pour date. */

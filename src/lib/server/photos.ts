@@ -67,6 +67,12 @@ export async function addPhoto(planId: string, bytes: Uint8Array, originalName: 
 	return row;
 }
 
+/** How many site photos a plan holds. */
+export async function countPhotos(planId: string): Promise<number> {
+	const [{ n }] = await db.select({ n: count() }).from(planPhoto).where(eq(planPhoto.planId, planId));
+	return n;
+}
+
 export function listPhotos(planId: string) {
 	return db.select().from(planPhoto).where(eq(planPhoto.planId, planId)).orderBy(asc(planPhoto.createdAt));
 }

@@ -1,11 +1,17 @@
 import { and, asc, eq, inArray, sql } from 'drizzle-orm';
 import { POUR_LOG_LIMITS, type PourRecord } from '$lib/plan/pour-log';
 import { db } from './db';
-import { pourRecord } from './db/schema';
+import { plan, pourRecord } from './db/schema';
+import { scheduleCuringReminders } from './reminders';
+
+type Conn = Parameters<Parameters<typeof db.transaction>[0]>[0] | typeof db;
+
+/** Records that can change the logged pour date, and with it the curing reminder days. */
+const DATING = new Set<PourRecord['kind']>(['start', 'batch', 'undo']);
 
 /** Every record of a plan, oldest first. */
-export async function listPourRecords(planId: string): Promise<PourRecord[]> {
-	const rows = await db.select({ record: pourRecord.record }).from(pourRecord).where(eq(pourRecord.planId, planId)).orderBy(asc(pourRecord.at), asc(pourRecord.key));
+export async function listPourRecords(planId: string, conn: Conn = db): Promise<PourRecord[]> {
+	const rows = await conn.select({ record: pourRecord.record }).from(pourRecord).where(eq(pourRecord.planId, planId)).orderBy(asc(pourRecord.at), asc(pourRecord.key));
 	return rows.map((r) => r.record as PourRecord);
 }
 
@@ -34,6 +40,11 @@ export async function savePourRecords(planId: string, records: PourRecord[]): Pr
 				.insert(pourRecord)
 				.values(fresh.map((r) => ({ planId, key: r.key, kind: r.kind, pour: 'pour' in r ? r.pour : null, at: new Date(r.at), record: r })))
 				.onConflictDoNothing({ target: [pourRecord.planId, pourRecord.key] });
+		// A logged start moves the curing reminders to the real pour date, in this same transaction.
+		if (fresh.some((r) => DATING.has(r.kind))) {
+			const [row] = await tx.select().from(plan).where(eq(plan.id, planId));
+			if (row?.curingReminders) await scheduleCuringReminders(tx, row);
+		}
 		return { ok: true as const, stored: fresh.length, keys };
 	});
 }

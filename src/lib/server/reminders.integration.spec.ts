@@ -11,6 +11,8 @@ import { mailIdle } from './mail';
 import { createPlan, deletePlan, updatePlan } from './plans';
 import { curingReminderStatus, sendCuringReminder, setCuringReminders, stopCuringReminders, unsubscribeToken, verifyUnsubscribeToken } from './reminders';
 import { createUser } from './users';
+import { savePourRecords } from './pour-records';
+import type { PourRecord } from '$lib/plan/pour-log';
 
 afterAll(async () => {
 	await mailIdle();
@@ -85,6 +87,11 @@ describe('curing reminders', () => {
 		expect(await db.select().from(curingReminderSent).where(eq(curingReminderSent.planId, p.id))).toHaveLength(days.length);
 		// Each carries its stop link; running a day's job again sends nothing more.
 		expect(texts[0]).toMatch(new RegExp(`${origin}/reminders/stop\\?token=${p.id}\\.[\\w-]{43}`));
+		// … and the headers that let the mail program stop them with one click (RFC 2369, RFC 8058), as received over SMTP.
+		for (const m of await db.select().from(devMail).where(eq(devMail.to, u.email))) {
+			expect(m.headers?.['list-unsubscribe']).toMatch(new RegExp(`^<${origin}/reminders/stop\\?token=${p.id}\\.[\\w-]{43}>$`));
+			expect(m.headers?.['list-unsubscribe-post']).toBe('List-Unsubscribe=One-Click');
+		}
 		expect(await sendCuringReminder({ planId: p.id, pourDate: soon, day: days[0].date }, origin)).toBe('skipped');
 		await mailIdle();
 	});
@@ -120,6 +127,27 @@ describe('curing reminders', () => {
 		const [day] = curingReminders(input(soon), soon);
 		expect(await sendCuringReminder({ planId: q.id, pourDate: soon, day: day.date }, origin)).toBe('skipped');
 		expect(await db.select().from(mailOutbox).where(eq(mailOutbox.to, quiet.email))).toEqual([]);
+	});
+
+	it('move to the pour day the pour log records, and skip a job left from the planned day', async () => {
+		const u = await owner();
+		const p = await createPlan(u.id, { name: 'Logged late', input: input(soon) });
+		await setCuringReminders(p.id, u.id, true, TZ);
+		expect(await jobsOf(p.id)).toEqual(expected(soon));
+		// A note and a temperature do not date the pour; the start tapped two days late does.
+		const rec = (r: Record<string, unknown>, date: string, key: string) => ({ key, at: Date.parse(`${date}T18:00:00Z`), tz: 0, ...r }) as PourRecord;
+		await savePourRecords(p.id, [rec({ kind: 'note', text: 'Rain, pour put off' }, soon, 'note-0001')]);
+		expect(await jobsOf(p.id)).toEqual(expected(soon));
+		const logged = addDays(soon, 2);
+		await savePourRecords(p.id, [rec({ kind: 'start', pour: 0 }, logged, 'start-0001'), rec({ kind: 'batch', pour: 0 }, logged, 'batch-0001')]);
+		expect(await jobsOf(p.id)).toEqual(expected(logged));
+		expect(await curingReminderStatus(p.id, u.id)).toMatchObject({ on: true, pourDate: logged, logged: true, scheduled: Object.keys(expected(logged)) });
+		const [planned] = curingReminders(input(soon), soon);
+		expect(await sendCuringReminder({ planId: p.id, pourDate: soon, day: planned.date }, origin)).toBe('skipped');
+		// Turned off and on again, they are scheduled from the logged day, not the planned one.
+		await setCuringReminders(p.id, u.id, false, TZ);
+		await setCuringReminders(p.id, u.id, true, TZ);
+		expect(await jobsOf(p.id)).toEqual(expected(logged));
 	});
 
 	it('skip a job left from an earlier pour date', async () => {

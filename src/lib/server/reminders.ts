@@ -2,10 +2,12 @@
 // the homeowner's time zone), written in the same transaction as the change that moves them.
 import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import { and, eq, sql } from 'drizzle-orm';
-import { plannedCuringReminders, type CuringDay } from '$lib/plan/reminders';
+import { curingRemindersFor, type CuringDay } from '$lib/plan/reminders';
+import type { PourRecord } from '$lib/plan/pour-log';
 import { todayIn, validTimeZone, zonedTime } from '$lib/reader';
 import { db } from '$lib/server/db';
 import { appSecret, curingReminderSent, plan, user, type Plan } from '$lib/server/db/schema';
+import { listPourRecords } from './pour-records';
 import { queueMail } from './mail';
 import { curingReminderMail } from './mail/reminder-mail';
 
@@ -31,7 +33,7 @@ export async function cancelCuringReminders(conn: Conn, planId: string): Promise
 export async function scheduleCuringReminders(conn: Conn, p: Pick<Plan, 'id' | 'input' | 'curingReminders' | 'reminderTimeZone'>, now = new Date()): Promise<number> {
 	await cancelCuringReminders(conn, p.id);
 	if (!p.curingReminders) return 0;
-	const { pourDate, days } = reminderDays(p);
+	const { pourDate, days } = reminderDays(p, await listPourRecords(p.id, conn));
 	if (!pourDate) return 0;
 	const tz = validTimeZone(p.reminderTimeZone);
 	const today = todayIn(tz, now);
@@ -48,15 +50,16 @@ export async function scheduleCuringReminders(conn: Conn, p: Pick<Plan, 'id' | '
 }
 
 /**
- * The plan's reminder days and the pour date they count from: today the planned date. When a pour
- * log records the real date, return curingReminders(p.input, loggedDate) here; scheduling, the job
- * and the status line all read this one function.
+ * The plan's reminder days and the pour date they count from: the date the pour log records once
+ * the crew has started a pour, else the planned date. Scheduling, the job and the status line all
+ * read this one function, so a logged start moves the reminders, and a job queued for the planned
+ * date is skipped once the log says otherwise.
  */
-export function reminderDays(p: Pick<Plan, 'input'>): { pourDate: string | null; days: CuringDay[] } {
+export function reminderDays(p: Pick<Plan, 'input'>, records: readonly PourRecord[]): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
 	try {
-		return plannedCuringReminders(p.input);
+		return curingRemindersFor(p.input, records);
 	} catch {
-		return { pourDate: null, days: [] };
+		return { pourDate: null, days: [], logged: false };
 	}
 }
 
@@ -87,7 +90,7 @@ export async function sendCuringReminder(job: { planId: string; pourDate: string
 			.where(eq(plan.id, job.planId));
 		// The account page's switch for curing reminders wins over the plan's.
 		if (!row || !row.p.curingReminders || row.off.includes('curing')) return 'skipped';
-		const { pourDate, days } = reminderDays(row.p);
+		const { pourDate, days } = reminderDays(row.p, await listPourRecords(row.p.id, tx));
 		const day = pourDate === job.pourDate ? days.find((d) => d.date === job.day) : undefined;
 		if (!day || !pourDate) return 'skipped';
 		const [fresh] = await tx.insert(curingReminderSent).values({ planId: row.p.id, pourDate, day: day.date }).onConflictDoNothing().returning();
@@ -110,11 +113,12 @@ export async function curingReminderStatus(planId: string, ownerId: string) {
 		.innerJoin(user, eq(user.id, plan.ownerId))
 		.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)));
 	if (!row) return null;
-	const [jobs, [{ n }]] = await Promise.all([
+	const [jobs, [{ n }], records] = await Promise.all([
 		db.execute<{ key: string }>(sql`SELECT key FROM graphile_worker.jobs WHERE key LIKE ${`${keyPrefix(planId)}%`} AND attempts < max_attempts ORDER BY run_at`),
-		db.select({ n: sql<number>`count(*)::int` }).from(curingReminderSent).where(eq(curingReminderSent.planId, planId))
+		db.select({ n: sql<number>`count(*)::int` }).from(curingReminderSent).where(eq(curingReminderSent.planId, planId)),
+		listPourRecords(planId)
 	]);
-	const { pourDate, days } = reminderDays(row);
+	const { pourDate, days, logged } = reminderDays(row, records);
 	return {
 		on: row.on,
 		/** The account page's switch for this kind of mail is off. */
@@ -122,6 +126,8 @@ export async function curingReminderStatus(planId: string, ownerId: string) {
 		timeZone: validTimeZone(row.timeZone),
 		sendHour: SEND_HOUR,
 		pourDate,
+		/** The pour date is the one the pour log records, not the planned one. */
+		logged,
 		days: days.length,
 		/** Days with a reminder job waiting, soonest first. */
 		scheduled: jobs.map((j) => j.key.slice(keyPrefix(planId).length)),

@@ -44,9 +44,9 @@ type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
  */
 export async function queueMail(to: string, mail: Mail, tx?: Tx): Promise<string | null> {
 	const write = async (t: Tx) => {
-		const { kind, subject, text, html } = mail;
+		const { kind, subject, text, html, headers } = mail;
 		if (kind && (await optedOut(to, kind, t))) return null;
-		const [row] = await t.insert(mailOutbox).values({ to, subject, text, html }).returning({ id: mailOutbox.id });
+		const [row] = await t.insert(mailOutbox).values({ to, subject, text, html, headers: headers ?? null }).returning({ id: mailOutbox.id });
 		await t.execute(sql`SELECT graphile_worker.add_job(${SEND_MAIL}, json_build_object('id', ${row.id}::text),
 			max_attempts := ${MAX_ATTEMPTS}, job_key := ${`mail:${row.id}`})`);
 		return row.id;
@@ -81,7 +81,8 @@ export async function sendOutboxMail(id: string, attempt: number, maxAttempts = 
 			to: mail.to,
 			subject: mail.subject,
 			text: mail.text,
-			html: mail.html
+			html: mail.html,
+			headers: mail.headers ?? undefined
 		});
 	} catch (err) {
 		const giveUp = attempt >= maxAttempts;

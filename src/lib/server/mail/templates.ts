@@ -1,8 +1,21 @@
 import type { MailKind } from '$lib/mail-kinds';
 import { tokens } from '$lib/palette';
 
-/** A message; `kind` names the switch on the account page that can turn it off (none: always sent). */
-export type Mail = { subject: string; text: string; html: string; kind?: MailKind };
+/**
+ * A message; `kind` names the switch on the account page that can turn it off (none: always sent);
+ * `headers` are extra message headers (List-Unsubscribe for mail with a stop link).
+ */
+export type Mail = { subject: string; text: string; html: string; kind?: MailKind; headers?: Record<string, string> };
+
+/**
+ * The headers that let a mail program offer "unsubscribe" itself and stop the mail with one POST to
+ * the signed stop link (RFC 2369 List-Unsubscribe; RFC 8058 one-click: the program POSTs
+ * "List-Unsubscribe=One-Click" to that address, which the stop page accepts without a sign-in).
+ */
+export const unsubscribeHeaders = (url: string): Record<string, string> => ({
+	'List-Unsubscribe': `<${url}>`,
+	'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click'
+});
 
 const escape = (s: string) =>
 	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
@@ -31,7 +44,7 @@ ${o.lines.map((l) => `<p>${escape(l)}</p>`).join('\n')}
 <p style="font-size:13px;color:${tokens['ink-soft']}">Or open this address: ${escape(o.url)}</p>
 <p style="font-size:13px;color:${tokens['ink-soft']}">${escape(o.footer)}</p>
 ${o.stop ? `<p style="font-size:13px"><a href="${escape(o.stop.url)}" style="color:${tokens['moss-600']}">${escape(o.stop.label)}</a></p>\n` : ''}</div></body></html>`;
-	return { subject: o.subject, text, html, kind: o.kind };
+	return { subject: o.subject, text, html, kind: o.kind, ...(o.stop ? { headers: unsubscribeHeaders(o.stop.url) } : {}) };
 }
 
 export function verifyEmailMail(name: string, url: string): Mail {

@@ -14,8 +14,10 @@ export const load = (async ({ url }) => {
 }) satisfies PageServerLoad;
 
 export const actions = {
-	default: async ({ request }) => {
-		const token = (await request.formData()).get('token');
+	// The button's form sends the token; a mail program's one-click post (RFC 8058, body
+	// "List-Unsubscribe=One-Click") sends it in the address of the List-Unsubscribe header.
+	default: async ({ request, url }) => {
+		const token = (await request.formData().catch(() => null))?.get('token') ?? url.searchParams.get('token');
 		const planId = await verifyUnsubscribeToken(typeof token === 'string' ? token.slice(0, 200) : '');
 		if (!planId) return fail(400, { message: INVALID });
 		const found = await reminderPlan(planId);

@@ -1,4 +1,4 @@
-import { index, integer, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { index, integer, jsonb, pgEnum, pgTable, text, timestamp, uuid } from 'drizzle-orm/pg-core';
 
 export const mailStatuses = ['pending', 'sent', 'failed'] as const;
 export const mailStatusEnum = pgEnum('mail_status', mailStatuses);
@@ -12,6 +12,8 @@ export const mailOutbox = pgTable(
 		subject: text('subject').notNull(),
 		text: text('text').notNull(),
 		html: text('html').notNull(),
+		/** Extra message headers (a reminder's List-Unsubscribe and List-Unsubscribe-Post). */
+		headers: jsonb('headers').$type<Record<string, string>>(),
 		status: mailStatusEnum('status').notNull().default('pending'),
 		attempts: integer('attempts').notNull().default(0),
 		nextAttemptAt: timestamp('next_attempt_at', { withTimezone: true }).notNull().defaultNow(),
@@ -30,7 +32,9 @@ export const devMail = pgTable('dev_mail', {
 	to: text('to').notNull(),
 	subject: text('subject').notNull(),
 	text: text('text').notNull(),
-	html: text('html')
+	html: text('html'),
+	/** The message's List-* headers as received, lower-case names (List-Unsubscribe and its one-click partner). */
+	headers: jsonb('headers').$type<Record<string, string>>()
 });
 
 export type OutboxMail = typeof mailOutbox.$inferSelect;
