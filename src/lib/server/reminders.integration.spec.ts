@@ -1,21 +1,19 @@
 // Curing reminders end to end on the real PostgreSQL, the job queue and the fake SMTP server.
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { curingReminders } from '$lib/plan/reminders';
 import { addDays } from '$lib/plan/schedule';
 import { todayIn, zonedTime } from '$lib/reader';
-import { client, db } from './db';
+import { db } from './db';
 import { curingReminderSent, devMail, mailOutbox, user } from './db/schema';
 import { startWorker } from './jobs';
 import { mailIdle } from './mail';
 import { createPlan, deletePlan, updatePlan } from './plans';
 import { curingReminderStatus, sendCuringReminder, setCuringReminders, stopCuringReminders, unsubscribeToken, verifyUnsubscribeToken } from './reminders';
 import { createUser } from './users';
+import { useTestDatabase } from './integration-setup';
 
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase();
 
 const TZ = 'America/Denver';
 const origin = 'http://stakeline.test';
