@@ -40,8 +40,11 @@ export default defineConfig({
 		url: `${baseURL}/healthz`,
 		reuseExistingServer: false,
 		timeout: 60_000,
+		// Warnings and errors from the app reach the test output (a failing run shows why it failed).
+		stdout: 'pipe',
 		env: {
 			...(process.env as Record<string, string>),
+			LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
 			PORT: String(port),
 			ORIGIN: baseURL,
 			ADMIN_EMAIL: process.env.ADMIN_EMAIL ?? 'first-admin@stakeline.test',
