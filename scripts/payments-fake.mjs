@@ -1,6 +1,6 @@
 // The local fake of the payment provider, for development and tests: a loopback HTTP server that
 // answers the part of the provider's REST API Stakeline's SDK calls (customers, checkout sessions,
-// subscriptions, invoices), form-encoded in and JSON out in the provider's shapes. It serves its own
+// subscriptions, invoices, invoice items), form-encoded in and JSON out in the provider's shapes. It serves its own
 // payment page, where a person or a test pays or cancels, and posts signed events to Stakeline's
 // webhook the way the provider signs them (HMAC-SHA256 over "timestamp.body", header t=…,v1=…).
 // Nothing is charged and no card is asked for. Never used when real keys are set.
@@ -8,6 +8,10 @@
 // Settings: PAYMENTS_FAKE_PORT, PAYMENTS_SECRET_KEY (the key the app must send),
 // PAYMENTS_WEBHOOK_SECRET, PAYMENTS_WEBHOOK_URL, PAYMENTS_FAKE_STATE (a JSON file that keeps
 // customers, subscriptions and invoices across restarts; memory only when unset).
+//
+// Invoice items (extra leads) wait on the customer until the subscription's next invoice (a renewal,
+// or a final invoice when the subscription ends), which carries them as lines. A POST with an
+// Idempotency-Key header answers a repeat with the first answer.
 //
 // Test and demo controls (not part of the provider's API): POST /_fake/renew {subscription, outcome:
 // paid|failed} bills the next period now; POST /_fake/end {subscription} ends a subscription now;
@@ -27,8 +31,8 @@ const API_VERSION = '2026-10-28.endive';
 const DAY = 86_400;
 const MAX_BODY = 64 * 1024;
 
-/** @type {{customers: Record<string, any>, sessions: Record<string, any>, subscriptions: Record<string, any>, invoices: Record<string, any>, invoiceCount: number}} */
-let state = { customers: {}, sessions: {}, subscriptions: {}, invoices: {}, invoiceCount: 0 };
+/** @type {{customers: Record<string, any>, sessions: Record<string, any>, subscriptions: Record<string, any>, invoices: Record<string, any>, invoiceItems: Record<string, any>, idempotent: Record<string, any>, invoiceCount: number}} */
+let state = { customers: {}, sessions: {}, subscriptions: {}, invoices: {}, invoiceItems: {}, idempotent: {}, invoiceCount: 0 };
 if (stateFile && fs.existsSync(stateFile)) {
 	try {
 		state = { ...state, ...JSON.parse(fs.readFileSync(stateFile, 'utf8')) };
@@ -130,6 +134,7 @@ function subscriptionObject(s) {
 }
 
 function invoiceObject(i) {
+	const lines = i.lines ?? [{ id: `il_${i.id.slice(3)}`, amount: i.amount, description: i.description, period_start: i.period_start, period_end: i.period_end }];
 	return {
 		id: i.id,
 		object: 'invoice',
@@ -151,10 +156,55 @@ function invoiceObject(i) {
 			object: 'list',
 			has_more: false,
 			url: `/v1/invoices/${i.id}/lines`,
-			data: [{ id: `il_${i.id.slice(3)}`, object: 'line_item', amount: i.amount, currency: i.currency, description: i.description, period: { start: i.period_start, end: i.period_end }, quantity: 1 }]
+			data: lines.map((l) => ({ id: l.id, object: 'line_item', amount: l.amount, currency: i.currency, description: l.description, metadata: l.metadata ?? {}, period: { start: l.period_start, end: l.period_end }, quantity: 1 }))
 		},
 		livemode: false
 	};
+}
+
+function invoiceItemObject(ii) {
+	return {
+		id: ii.id,
+		object: 'invoiceitem',
+		customer: ii.customer,
+		amount: ii.amount,
+		currency: ii.currency,
+		description: ii.description ?? null,
+		date: ii.date,
+		invoice: ii.invoice ?? null,
+		metadata: ii.metadata ?? {},
+		parent: ii.subscription ? { type: 'subscription_details', subscription_details: { subscription: ii.subscription } } : null,
+		period: { start: ii.date, end: ii.date },
+		quantity: 1,
+		livemode: false
+	};
+}
+
+/** The customer's invoice items not yet on an invoice (for this subscription, or for none), oldest first. */
+const pendingItems = (customer, subscription) =>
+	Object.values(state.invoiceItems)
+		.filter((ii) => ii.customer === customer && !ii.invoice && (!ii.subscription || ii.subscription === subscription))
+		.sort((a, b) => a.date - b.date);
+
+/** An invoice for the subscription's period with the pending invoice items as further lines (they are then on it). */
+function subscriptionInvoice(sub, { status, withPlan = true }) {
+	const items = pendingItems(sub.customer, sub.id);
+	const lines = [
+		...(withPlan ? [{ id: newId('il'), amount: sub.amount, description: sub.description, period_start: sub.period_start, period_end: sub.period_end }] : []),
+		...items.map((ii) => ({ id: newId('il'), amount: ii.amount, description: ii.description, metadata: ii.metadata, period_start: ii.date, period_end: ii.date }))
+	];
+	const inv = makeInvoice(sub.customer, {
+		amount: lines.reduce((sum, l) => sum + l.amount, 0),
+		currency: sub.currency,
+		description: withPlan ? sub.description : (items[0]?.description ?? 'Invoice'),
+		subscription: sub.id,
+		periodStart: sub.period_start,
+		periodEnd: sub.period_end,
+		status
+	});
+	inv.lines = lines;
+	for (const ii of items) ii.invoice = inv.id;
+	return inv;
 }
 
 function makeInvoice(customer, { amount, currency, description, subscription = null, periodStart, periodEnd, status }) {
@@ -276,7 +326,8 @@ async function renew(sub, outcome) {
 	sub.period_start = sub.period_end;
 	sub.period_end = sub.period_start + 30 * DAY;
 	sub.status = paid ? 'active' : 'past_due';
-	const inv = makeInvoice(sub.customer, { amount: sub.amount, currency: sub.currency, description: sub.description, subscription: sub.id, periodStart: sub.period_start, periodEnd: sub.period_end, status: paid ? 'paid' : 'open' });
+	// The period just ended is billed ahead for the next one, with the invoice items (extra leads) that wait for it.
+	const inv = subscriptionInvoice(sub, { status: paid ? 'paid' : 'open' });
 	sub.latest_invoice = inv.id;
 	save();
 	await emit(paid ? 'invoice.paid' : 'invoice.payment_failed', invoiceObject(inv));
@@ -285,8 +336,11 @@ async function renew(sub, outcome) {
 
 async function end(sub) {
 	Object.assign(sub, { status: 'canceled', canceled_at: now(), ended_at: now() });
+	// Invoice items still waiting for this subscription are billed on a final invoice.
+	const final = pendingItems(sub.customer, sub.id).length ? subscriptionInvoice(sub, { status: state.customers[sub.customer]?.failRenewals ? 'open' : 'paid', withPlan: false }) : null;
 	save();
 	await emit('customer.subscription.deleted', subscriptionObject(sub));
+	if (final) await emit(final.status === 'paid' ? 'invoice.paid' : 'invoice.payment_failed', invoiceObject(final));
 	return subscriptionObject(sub);
 }
 
@@ -376,6 +430,39 @@ async function api(method, path, query, body) {
 		}
 		if (method === 'DELETE') return end(sub);
 	}
+	if (method === 'POST' && path === '/v1/invoiceitems') {
+		found(state.customers, body.customer, 'customer');
+		const amount = Number(body.amount);
+		if (!Number.isInteger(amount)) throw new ApiError(400, 'This fake needs an integer amount on an invoice item.', 'amount');
+		if (!body.currency) throw new ApiError(400, 'Missing required param: currency.', 'currency');
+		if (body.subscription) {
+			const sub = found(state.subscriptions, body.subscription, 'subscription');
+			if (sub.customer !== body.customer) throw new ApiError(400, 'The subscription belongs to another customer.', 'subscription');
+			if (sub.status === 'canceled') throw new ApiError(400, `Subscription ${sub.id} has ended.`, 'subscription');
+		}
+		const ii = { id: newId('ii'), customer: body.customer, subscription: body.subscription ?? null, amount, currency: body.currency, description: body.description ?? null, metadata: body.metadata ?? {}, date: now(), invoice: null };
+		state.invoiceItems[ii.id] = ii;
+		save();
+		return invoiceItemObject(ii);
+	}
+	if ((m = path.match(/^\/v1\/invoiceitems\/([\w]+)$/))) {
+		const ii = found(state.invoiceItems, m[1], 'invoiceitem');
+		if (method === 'GET') return invoiceItemObject(ii);
+		if (method === 'DELETE') {
+			if (ii.invoice) throw new ApiError(400, 'This invoice item is on an invoice already and cannot be deleted.', 'id');
+			delete state.invoiceItems[ii.id];
+			save();
+			return { id: ii.id, object: 'invoiceitem', deleted: true };
+		}
+	}
+	if (method === 'GET' && path === '/v1/invoiceitems') {
+		const customer = query.get('customer');
+		const pending = query.get('pending');
+		const all = Object.values(state.invoiceItems)
+			.filter((ii) => (!customer || ii.customer === customer) && (pending !== 'true' || !ii.invoice))
+			.sort((a, b) => b.date - a.date);
+		return { object: 'list', url: '/v1/invoiceitems', has_more: false, data: all.slice(0, 100).map(invoiceItemObject) };
+	}
 	if (method === 'GET' && path === '/v1/invoices') {
 		const limit = Math.min(Math.max(Number(query.get('limit') ?? 10), 1), 100);
 		const customer = query.get('customer');
@@ -394,8 +481,8 @@ function page(title, inner) {
 	return `<!doctype html><html lang="en"><head><meta charset="utf-8"><meta name="viewport" content="width=device-width, initial-scale=1"><title>${esc(title)}</title>
 <style>body{font-family:system-ui,sans-serif;margin:0;background:#eef2ee;color:#1d2a22}main{max-width:28rem;margin:2rem auto;padding:1.5rem;background:#fff;border:1px solid #c9d3cb;border-radius:.75rem}
 h1{font-size:1.3rem;margin:0 0 .25rem}.note{font-size:.85rem;color:#4a5a4f;background:#f6f1df;border-radius:.4rem;padding:.5rem .75rem}
-.amount{font-size:1.6rem;font-weight:700;margin:.75rem 0}button{font:inherit;padding:.7rem 1rem;border-radius:.5rem;border:1px solid #2f5d45;cursor:pointer;width:100%;margin-top:.5rem}
-.pay{background:#2f5d45;color:#fff}.back{background:#fff;color:#2f5d45}label{display:block;margin-top:1rem;font-weight:600}select{font:inherit;width:100%;padding:.5rem;margin-top:.25rem}
+.amount{font-size:1.6rem;font-weight:700;margin:.75rem 0}button{font:inherit;min-height:44px;padding:.7rem 1rem;border-radius:.5rem;border:1px solid #2f5d45;cursor:pointer;width:100%;margin-top:.5rem}
+.pay{background:#2f5d45;color:#fff}.back{background:#fff;color:#2f5d45}label{display:block;margin-top:1rem;font-weight:600}select{font:inherit;min-height:44px;width:100%;padding:.5rem;margin-top:.25rem}
 table{width:100%;border-collapse:collapse;font-size:.9rem}td,th{text-align:left;padding:.3rem;border-bottom:1px solid #dde4de}</style></head>
 <body><main>${inner}</main></body></html>`;
 }
@@ -438,7 +525,19 @@ const server = http.createServer(async (req, res) => {
 		if (path.startsWith('/v1/')) {
 			if (req.headers.authorization !== `Bearer ${apiKey}`)
 				return json(res, 401, { error: { type: 'invalid_request_error', message: 'Invalid API Key provided.' } });
-			return json(res, 200, await api(req.method, path, url.searchParams, body));
+			// As the provider does: a POST repeated with the same Idempotency-Key gets the first answer back, and makes nothing new.
+			const key = req.method === 'POST' ? req.headers['idempotency-key'] : undefined;
+			const remembered = typeof key === 'string' ? state.idempotent[`${path} ${key}`] : undefined;
+			if (remembered) return json(res, 200, remembered);
+			const out = await api(req.method, path, url.searchParams, body);
+			if (typeof key === 'string') {
+				state.idempotent[`${path} ${key}`] = out;
+				// The SDK sends a key with every POST; the newest 500 are kept (the provider keeps them a day).
+				const keys = Object.keys(state.idempotent);
+				for (const old of keys.slice(0, Math.max(0, keys.length - 500))) delete state.idempotent[old];
+				save();
+			}
+			return json(res, 200, out);
 		}
 		if (req.method === 'GET' && (m = path.match(/^\/pay\/([\w]+)$/))) {
 			const s = state.sessions[m[1]];

@@ -176,6 +176,7 @@ const matrix: Record<string, Row[]> = {
 	'POST /pro/billing?/buyPack': [r('/pro/billing?/buyPack', x(303, 403, 403, 403, 200, 200, 403, 403), { form: {} })],
 	'POST /pro/billing?/updateCard': [r('/pro/billing?/updateCard', x(303, 403, 403, 403, 409, 409, 403, 403), { form: {} })],
 	'POST /pro/billing?/cancel': [r('/pro/billing?/cancel', x(303, 403, 403, 403, 409, 409, 403, 403), { form: {} })],
+	'POST /pro/billing?/openExtra': [r('/pro/billing?/openExtra', x(303, 403, 403, 403, 400, 400, 403, 403), { form: {} })],
 	'POST /pro/billing?/resume': [r('/pro/billing?/resume', x(303, 403, 403, 403, 409, 409, 403, 403), { form: {} })],
 	// The payment provider's events: no session counts, only the signature; an unsigned body is refused.
 	'POST /api/webhooks/payments': [r('/api/webhooks/payments', x(400, 400, 400, 400, 400, 400, 400, 400), { json: {} })],

@@ -34,3 +34,14 @@ export async function insertLead(planId: string, contractorEmail: string, o: { t
 		await sql.end();
 	}
 }
+
+/** Sets how many included leads the contractor used this period and how many credits they hold (to reach the end of the included leads). */
+export async function setUsage(email: string, o: { leadsUsed: number; credits: number }) {
+	const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+	try {
+		await sql`UPDATE billing_account SET leads_used = ${o.leadsUsed}, credits = ${o.credits}
+			WHERE contractor_id = (SELECT id FROM "user" WHERE email = ${email.toLowerCase()})`;
+	} finally {
+		await sql.end();
+	}
+}

@@ -1,7 +1,7 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { leadPack, monthlyPlan, money } from '../src/lib/billing-plans';
-import { insertLead } from './billing-helpers';
+import { extraLead, leadPack, monthlyPlan, money } from '../src/lib/billing-plans';
+import { insertLead, setUsage } from './billing-helpers';
 import { demoPassword, demoUser, signIn, signOut, uniqueEmail, watchErrors } from './helpers';
 import { approvedNewContractor, insertPlan } from './pro-helpers';
 
@@ -54,7 +54,7 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await expect(page.getByText('nothing is charged')).toBeVisible();
 	await page.getByRole('button', { name: 'Cancel and go back' }).click();
 	await expect(page).toHaveURL(/\/pro\/billing\?checkout=cancelled$/);
-	await expect(page.getByText('You left the payment page without paying; nothing was charged and nothing changed.')).toBeVisible();
+	await expect(page.getByRole('status').filter({ hasText: 'You left the payment page without paying; nothing was charged and nothing changed.' })).toBeVisible();
 	await expect(page.getByTestId('billing-status')).toHaveText('No plan');
 
 	// Again, and pay this time.
@@ -99,6 +99,34 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await expect(page.getByText('Payment received: your lead credits are added.')).toBeVisible();
 	await expect(page.getByTestId('lead-credits')).toHaveText(String(leadPack.leads));
 	await expect(page.getByTestId('invoices').getByRole('listitem')).toHaveCount(2);
+
+	// Past the plan's included leads with no credit left: a new lead opens only after the contractor agrees to its price.
+	await setUsage(pro.email, { leadsUsed: monthlyPlan.leadsIncluded, credits: 0 });
+	const { id: secondPlanId } = await insertPlan(demoUser('homeowner').email, { name: `Side walk ${stamp}`, postcode: '97321' });
+	const extraId = await insertLead(secondPlanId, pro.email, { town: 'Tangent, OR', respondInDays: 5 });
+	await page.goto('/pro/leads');
+	await expect(page.getByTestId('leads-extra')).toContainText(`opens as an extra lead for ${money(extraLead.cents)} on your next invoice`);
+	await page.goto(`/pro/leads/${extraId}`);
+	await expect(page).toHaveURL(new RegExp(`/pro/billing\\?lead=${extraId}$`));
+	await expect(page.getByTestId('lead-teaser')).toContainText(`Opening this one adds ${money(extraLead.cents)} to your next invoice`);
+	await expect(page.getByTestId('extra-leads')).toContainText('None this period');
+	await fitsAndAxeClean(page);
+	await page.getByRole('button', { name: `Open this lead for ${money(extraLead.cents)}` }).click();
+	await expect(page).toHaveURL(new RegExp(`/pro/leads/${extraId}$`));
+	await expect(page.getByRole('heading', { name: `Side walk ${stamp}` })).toBeVisible();
+	await page.goto('/pro/billing');
+	await expect(page.getByTestId('extra-leads')).toHaveText(`1 this period: ${money(extraLead.cents)} on your next invoice`);
+
+	// Billing receipts are a switch of their own on the account page.
+	await page.goto('/account', { waitUntil: 'networkidle' });
+	const notices = page.getByRole('region', { name: 'E-mail notices' });
+	const receipts = notices.getByLabel('Billing receipts (plan started, monthly payment received, lead credits added)');
+	await expect(receipts).toBeChecked();
+	await receipts.uncheck();
+	await notices.getByRole('button', { name: 'Save e-mail choices' }).click();
+	await expect(notices.getByText('Saved.')).toBeVisible();
+	await page.reload({ waitUntil: 'networkidle' });
+	await expect(page.getByRole('region', { name: 'E-mail notices' }).getByLabel('Billing receipts (plan started, monthly payment received, lead credits added)')).not.toBeChecked();
 	await signOut(page);
 
 	// The admin sees the same state on the contractor's page.
@@ -106,7 +134,9 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await page.goto(`/admin/users?q=${encodeURIComponent(pro.email)}`);
 	await page.getByTestId('users-table').getByRole('link', { name: pro.business }).click();
 	await expect(page.getByTestId('admin-billing-status')).toHaveText('Active');
-	await expect(page.getByTestId('admin-billing')).toContainText(`1 of ${monthlyPlan.leadsIncluded} this period · ${leadPack.leads} credits`);
+	await expect(page.getByTestId('admin-billing')).toContainText(`${monthlyPlan.leadsIncluded} of ${monthlyPlan.leadsIncluded} this period · 0 credits`);
 	await expect(page.getByTestId('admin-billing')).toContainText('checkout.session.completed');
+	await expect(page.getByTestId('admin-extra-leads')).toHaveText(`1 this period · ${money(extraLead.cents)} on the next invoice`);
+	await expect(page.getByTestId('admin-billing')).toContainText('extra lead');
 	expect(errors).toEqual([]);
 });

@@ -2,7 +2,7 @@ import { expect, test, type Page } from '@playwright/test';
 import demo from '../fixtures/demo.json' with { type: 'json' };
 import { writeFile, mkdir } from 'node:fs/promises';
 import { demoPassword, signIn } from './helpers';
-import { pdfPageCount, pdfPagePng, pdfPageText } from './pdf-text';
+import { pdfPageCount, pdfPagePixels, pdfPagePng, pdfPageText } from './pdf-text';
 
 test.describe.configure({ timeout: 90_000 });
 
@@ -80,6 +80,11 @@ test('the plan page opens with the build card and carries a layout sheet with sq
 	expect(second).toContain('Concrete to order');
 	await mkdir('test-results/screens', { recursive: true });
 	for (const n of [1, 2]) await writeFile(`test-results/screens/plan-print-page-${n}.png`, await pdfPagePng(printed, n));
+	// White paper, even with background graphics on: not one pixel of page 1 in the screen's tint (#f7f4ec).
+	const paper = await pdfPagePixels(printed, 1);
+	let tinted = 0;
+	for (let i = 0; i < paper.data.length; i += 4) if (Math.abs(paper.data[i] - 0xf7) <= 2 && Math.abs(paper.data[i + 1] - 0xf4) <= 2 && Math.abs(paper.data[i + 2] - 0xec) <= 2) tinted++;
+	expect(tinted).toBe(0);
 	const rowsCut = await page.evaluate(() =>
 		[...document.querySelectorAll('tbody tr')].filter((tr) => getComputedStyle(tr).breakInside !== 'avoid' && getComputedStyle(tr).pageBreakInside !== 'avoid').length
 	);

@@ -70,7 +70,7 @@ const VALUES: Record<string, string> = {
 };
 // Selects: the choice to make; the edge table's lengths are typed by label below.
 const CHOICES: Record<string, string> = {
-	'high-edge': '0:0',
+	'high-edge': '0:2', // edge C–D; A–B, the house wall, is the first option (its default)
 	'fall-unit': 'inPerFt',
 	'cross-unit': 'totalDrop',
 	reinforcement: 'mesh',

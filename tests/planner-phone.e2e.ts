@@ -10,10 +10,29 @@ async function noSidewaysScroll(page: Page, where: string) {
 	expect(scroll, `${where} is wider than the screen`).toBeLessThanOrEqual(client);
 }
 
+/**
+ * Every field and every tick box (its whole label takes the tap) on screen is at least 44 px tall:
+ * the radio and check-box rows were 26 px, one line of text.
+ */
+async function tallEnough(page: Page, where: string) {
+	const short = await page.evaluate(() =>
+		[...document.querySelectorAll('main input, main select, main textarea')]
+			.map((el) => {
+				const box = el as HTMLInputElement;
+				const target = box.type === 'checkbox' || box.type === 'radio' ? box.closest('label') : box;
+				const r = target?.getBoundingClientRect();
+				return r && r.width > 0 ? { name: box.id || box.getAttribute('aria-label') || target!.textContent!.trim().slice(0, 40), height: r.height } : null;
+			})
+			.filter((t) => t && t.height < 44)
+	);
+	expect(short, `${where}: targets under 44 px tall`).toEqual([]);
+}
+
 async function everyStep(page: Page, where: string) {
 	for (const title of STEPS) {
 		await wizardStep(page, title);
 		await noSidewaysScroll(page, `${where}, step ${title}`);
+		await tallEnough(page, `${where}, step ${title}`);
 	}
 }
 
@@ -21,8 +40,9 @@ test('on a phone the key results stay in sight while editing, corners are big en
 	test.setTimeout(120_000);
 	const errors = watchErrors(page);
 	await page.goto('/plans/new');
-	// Touch targets of at least 44 px: the header link, the cautions summary.
-	for (const target of [page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Sign in' }), page.getByTestId('results').locator('summary')]) {
+	// Touch targets of at least 44 px: the header links (the home link was 31 px), the cautions summary.
+	const nav = page.getByRole('navigation', { name: 'Main' });
+	for (const target of [nav.getByRole('link', { name: 'Stakeline' }), nav.getByRole('link', { name: 'Sign in' }), page.getByTestId('results').locator('summary')]) {
 		expect((await target.boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	}
 	await everyStep(page, 'new plan');
@@ -57,6 +77,10 @@ test('on a phone the key results stay in sight while editing, corners are big en
 		expect(box.x + box.width, title).toBeLessThanOrEqual(390);
 	}
 	await expect(steps.locator('[aria-current="step"]')).toBeInViewport();
+	// The L-shape's fields and house-wall choices are tall enough too (shown only once L is chosen).
+	await page.getByLabel('L-shape (notched corner)').check();
+	await tallEnough(page, 'outline, L-shape chosen');
+	await page.getByLabel('Rectangle').check();
 	// The edge table's controls: named for what they do, and 44 px or more each way.
 	const edgeControls = [
 		page.getByLabel('House wall along edge A–B'),
@@ -80,6 +104,9 @@ test('on a phone the key results stay in sight while editing, corners are big en
 	// 44 px targets (this row's and the one above) and the tap toggles neither.
 	await page.touchscreen.tap(cell.x + cell.width - 3, cell.y + cell.height / 2);
 	await expect(wall).toBeChecked();
+	// Neighbouring rows' wall targets stand apart (they touched, so a tap on the seam found two).
+	const rows = await page.getByTestId('house-wall-target').evaluateAll((els) => els.map((e) => e.getBoundingClientRect()).map((r) => ({ top: r.top, bottom: r.bottom })));
+	for (let i = 1; i < rows.length; i++) expect(rows[i].top - rows[i - 1].bottom, `gap above wall target ${i + 1}`).toBeGreaterThanOrEqual(8);
 	await page.screenshot({ path: 'test-results/screens/phone-edge-table.png' });
 	for (const hit of await page.getByTestId('corner-hit').all()) {
 		const box = (await hit.boundingBox())!;
@@ -100,4 +127,6 @@ test('on a phone the edit page and the plan page of a saved plan do not scroll s
 	await everyStep(page, 'edit page');
 	await page.goto(`/plans/${plan.id}`);
 	await noSidewaysScroll(page, 'plan page');
+	// The curing-reminder switch's label was one 26 px line.
+	expect((await page.getByText('E-mail me curing reminders').boundingBox())!.height).toBeGreaterThanOrEqual(44);
 });

@@ -32,6 +32,15 @@ test('an L around a house corner keeps both walls through save, reload, a split 
 	await expect(housesDrawn(page)).toHaveCount(2);
 	// Revisiting the step shows the sizes that were applied, not the form's own defaults.
 	await goTo(page, 'Pitch');
+	// The High side list names each edge once: the default (the first wall) leads, and is not listed again.
+	await expect(page.getByLabel('High side').locator('option')).toHaveText([
+		'Along the first house wall (edge C–D)',
+		'edge A–B',
+		'edge B–C',
+		'edge D–E (house wall)',
+		'edge E–F',
+		'edge F–A'
+	]);
 	// The preset starts with a cross fall, so water runs away from both walls (IRC R401.3).
 	await expect(page.getByLabel('Cross fall')).toHaveValue('2');
 	const pitch = page.getByLabel('Resulting pitch');
@@ -91,6 +100,8 @@ test('a freestanding shed pad with a chosen high edge, in two pours, saved and r
 	await expect(housesDrawn(page)).toHaveCount(0);
 
 	await goTo(page, 'Pitch');
+	// Freestanding, the default is the first edge, listed once.
+	await expect(page.getByLabel('High side').locator('option')).toHaveText(['edge A–B (first edge)', 'edge B–C', 'edge C–D', 'edge D–A']);
 	await page.getByLabel('High side').selectOption({ label: 'edge C–D' });
 	await page.getByLabel('Fall', { exact: true }).fill('1');
 	// 1 % over the 12 ft from C–D to A–B: 12 × 12 in × 1 % = 1.44 in.
@@ -105,7 +116,14 @@ test('a freestanding shed pad with a chosen high edge, in two pours, saved and r
 	// The cut runs across the 12 ft side: the old C–D is now the second pour's edge B–C.
 	await expect(page.getByLabel('High side').locator('option:checked')).toHaveText('pour 2, edge B–C');
 	await expect(page.getByLabel('Resulting pitch')).toContainText('1.44 in');
-	const stored = (await (await page.request.get(`/api/plans/${id}`)).json()).plan.input;
+	const record = (await (await page.request.get(`/api/plans/${id}`)).json()).plan;
+	const stored = record.input;
+	// The edges the two pours share lie inside the slab: the list does not offer them as a high side.
+	const inside = (record.result.geometry.sections as { edges: { kind: string }[] }[]).flatMap((sec, s) => sec.edges.flatMap((e, i) => (e.kind === 'coldJoint' ? [`${s}:${i}`] : [])));
+	expect(inside).toHaveLength(2);
+	const offered = await page.getByLabel('High side').locator('option').evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value));
+	expect(offered).toHaveLength(1 + 8 - 1 - 2); // the default, then the eight edges less the default and the two inside
+	for (const v of inside) expect(offered).not.toContain(v);
 	expect(stored.houseEdge).toBeNull();
 	expect(stored.sections).toHaveLength(2);
 	expect(stored.slope.highEdge).toEqual({ section: 1, edge: 1 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { billingEvents, billingStatuses, billingTarget, canOpenLead, deliveryPaused, type BillingEvent, type BillingStatus } from './billing-status';
+import { billingEvents, billingStatuses, billingTarget, canOpenLead, deliveryPaused, leadAllowance, type BillingEvent, type BillingStatus, type LeadAllowance } from './billing-status';
 
 // The expected result of every (state, event) pair, written out by hand: the table must match it.
 const expected: Record<BillingStatus, Record<BillingEvent, BillingStatus>> = {
@@ -27,5 +27,33 @@ describe('billing state table', () => {
 		expect(canOpenLead({ status: 'none', leadsUsed: 0, credits: 0 }, 8)).toBe(false);
 		expect(canOpenLead({ status: 'cancelled', leadsUsed: 0, credits: 2 }, 8)).toBe(true);
 		expect(canOpenLead({ status: 'past_due', leadsUsed: 0, credits: 5 }, 8)).toBe(false);
+	});
+
+	// What one more lead would use, for every state × (included leads left or not) × (credit or not) × (billable or not), written out by hand.
+	const uses: [BillingStatus, boolean, boolean, boolean, LeadAllowance][] = [
+		// status, included left, credit, billable → use
+		['none', false, false, false, 'none'],
+		['none', false, false, true, 'none'],
+		['none', false, true, false, 'credit'],
+		['none', false, true, true, 'credit'],
+		['active', true, false, false, 'included'],
+		['active', true, true, true, 'included'],
+		['active', false, true, true, 'credit'],
+		['active', false, true, false, 'credit'],
+		['active', false, false, true, 'extra'],
+		['active', false, false, false, 'none'],
+		['past_due', true, true, true, 'none'],
+		['past_due', false, false, true, 'none'],
+		['cancelled', false, false, true, 'none'],
+		['cancelled', false, true, true, 'credit']
+	];
+	for (const [status, left, credit, billable, use] of uses)
+		it(`${status}, ${left ? 'included leads left' : 'none included left'}, ${credit ? 'a credit' : 'no credit'}, ${billable ? 'billable' : 'not billable'} → ${use}`, () => {
+			expect(leadAllowance({ status, leadsUsed: left ? 3 : 8, credits: credit ? 1 : 0, billable }, 8)).toBe(use);
+		});
+
+	it('never counts an extra lead as one the account may open without asking', () => {
+		expect(canOpenLead({ status: 'active', leadsUsed: 8, credits: 0 }, 8)).toBe(false);
+		expect(leadAllowance({ status: 'active', leadsUsed: 8, credits: 0 }, 8)).toBe('none');
 	});
 });

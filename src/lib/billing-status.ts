@@ -42,6 +42,21 @@ export const deliveryPaused = (s: BillingStatus) => s === 'past_due';
  * active plan with included leads left, or a credit.
  */
 export function canOpenLead(a: { status: BillingStatus; leadsUsed: number; credits: number }, leadsIncluded: number) {
-	if (a.status === 'past_due') return false;
-	return (a.status === 'active' && a.leadsUsed < leadsIncluded) || a.credits > 0;
+	const use = leadAllowance(a, leadsIncluded);
+	return use === 'included' || use === 'credit';
+}
+
+/**
+ * What opening one more lead's details would use, in this order: one of the period's included
+ * leads, else a prepaid credit, else (a running plan only, with a subscription at the provider to bill it) an
+ * extra lead at the per-lead price on the next invoice, which the contractor must agree to first;
+ * 'none' when nothing allows it (no plan and no credit, or a payment overdue).
+ */
+export type LeadAllowance = 'included' | 'credit' | 'extra' | 'none';
+export function leadAllowance(a: { status: BillingStatus; leadsUsed: number; credits: number; billable?: boolean }, leadsIncluded: number): LeadAllowance {
+	if (a.status === 'past_due') return 'none';
+	if (a.status === 'active' && a.leadsUsed < leadsIncluded) return 'included';
+	if (a.credits > 0) return 'credit';
+	if (a.status === 'active' && a.billable === true) return 'extra';
+	return 'none';
 }

@@ -3,10 +3,12 @@ import type { Role } from './roles';
 /**
  * The e-mails a person may turn off, one line each: the key a template tags its message with, the
  * label on the account page, and who sees the switch. Messages without a kind (sign-in links,
- * password resets, e-mail changes, account decisions) always go. A new kind starts on for everyone.
+ * password resets, e-mail changes, account decisions, and billing changes that limit what an
+ * account can do: a failed payment, a plan ended, leads resumed after an overdue payment) always go. A new kind starts on for everyone.
  */
 export const mailKinds = {
 	new_lead: { label: 'New leads and newer plan revisions', roles: ['contractor'] },
+	billing: { label: 'Billing receipts (plan started, monthly payment received, lead credits added)', roles: ['contractor'] },
 	bid_result: { label: 'Decisions on my bids (accepted, not selected, reopened)', roles: ['contractor'] },
 	bid_update: { label: 'Bids on my plans (new, changed, withdrawn)', roles: ['homeowner'] },
 	message: { label: 'New messages', roles: ['homeowner', 'contractor'] },

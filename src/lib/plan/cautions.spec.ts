@@ -46,6 +46,18 @@ describe('plan-specific cautions', () => {
 		expect(ids({ thickness: 3.5 })).not.toContain('thin-slab'); // IRC R506.1
 	});
 
+	it('flags a thickened-edge trench that stops above the bottom of the base dig', () => {
+		// common practice, no published source: the edge has no base under it, so its trench must reach the base's bottom.
+		const edge = (extraDepth: number, edges: 'none' | 'free' = 'free') => ({ thickness: 5, base: { depth: 5 }, thickenedEdge: { edges, extraDepth } });
+		expect(ids(edge(4))).toContain('trench-above-base'); // 5 in slab + 4 in trench = 9 in, above the 10 in dug grade
+		expect(ids(edge(5))).not.toContain('trench-above-base'); // 10 in at the edge = the dug grade
+		expect(ids(edge(6))).not.toContain('trench-above-base');
+		expect(ids(edge(4, 'none'))).not.toContain('trench-above-base'); // no thickened edge at all
+		const c = computePlan({ ...base, ...edge(4) } as PlanInput).cautions.find((x) => x.id === 'trench-above-base')!;
+		expect(c.reason).toContain('4 in (102 mm) below the slab');
+		expect(c.action).toContain('at least 5 in (127 mm) below the slab');
+	});
+
 	it('explains the modulus of rupture for unreinforced slabs', () => {
 		expect(modulusOfRupture.psi(3000)).toBeCloseTo(410.79, 2); // 7.5 √3000, ACI 318-19 §19.2.3
 		expect(modulusOfRupture.mpa(20)).toBeCloseTo(2.7727, 4); // 0.62 √20, ACI 318-19 §19.2.3

@@ -383,7 +383,27 @@ const build: Rule[] = [
 				}
 ];
 
-const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, loads, ...freezeThaw, fillNearSurface, oilRelease, aboveReference, ...drainage, ...weatherRules, ...crew, ...build];
+/**
+ * A thickened-edge trench that stops above the bottom of the base dig: the plan puts no base under
+ * the edge (volume.ts), so its bottom would sit on a ledge of soil left above the dug grade, and the
+ * build card's two dig depths contradict each other (10 in overall, 9 in at the edges).
+ */
+const trenchAboveBase: Rule = ({ m }) => {
+	const e = m.thickened.edges;
+	if (e === 'none' || (Array.isArray(e) && !e.length) || m.thickened.extraDepth >= m.base.depth - 1e-6) return null;
+	const [trench, base] = [m.thickened.extraDepth, m.base.depth];
+	return {
+		id: 'trench-above-base',
+		title: 'Thickened edge shallower than the base',
+		reason: `The trench goes ${one(trench / M_PER_IN, 2)} in (${Math.round(trench * 1000)} mm) below the slab, but the base under the rest of the slab is ${one(base / M_PER_IN, 2)} in (${Math.round(base * 1000)} mm) deep, so the edge would stand on a ledge of soil above the dug grade.`,
+		action: `Dig the trench at least ${one(base / M_PER_IN, 2)} in (${Math.round(base * 1000)} mm) below the slab, so the thickened edge bears on firm undisturbed soil at or below the bottom of the base.`,
+		// common practice, no published source
+		source: 'common practice, no published source',
+		severity: 'warning'
+	};
+};
+
+const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, loads, ...freezeThaw, fillNearSurface, oilRelease, aboveReference, ...drainage, ...weatherRules, ...crew, ...build, trenchAboveBase];
 
 export function computeCautions(c: CautionContext): Caution[] {
 	return RULES.map((r) => r(c)).filter((x): x is Caution => x !== null);

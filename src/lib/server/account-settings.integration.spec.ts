@@ -26,7 +26,7 @@ useTestDatabase({ worker: true });
 describe('mail kinds', () => {
 	it('each role sees only its own switches', () => {
 		expect(mailKindsFor('homeowner')).toEqual(['bid_update', 'message', 'curing']);
-		expect(mailKindsFor('contractor')).toEqual(['new_lead', 'bid_result', 'message']);
+		expect(mailKindsFor('contractor')).toEqual(['new_lead', 'billing', 'bid_result', 'message']);
 		expect(mailKindsFor('admin')).toEqual(['review_queue']);
 		for (const k of Object.keys(mailKinds)) expect(mailKinds[k as keyof typeof mailKinds].label.length).toBeGreaterThan(3);
 	});

@@ -12,4 +12,14 @@ describe('the build card', () => {
 		expect(row.note).not.toMatch(/with base under it/);
 		expect(r.volume.base.note).toMatch(/No base under the thickened edges/);
 	});
+
+	it('gives a joint depth only when joints are cut: a pad small enough for none says so without one', () => {
+		const small = buildCardItems(computePlan({ units: 'imperial', sections: [{ outline: rect(0, 0, 12, 8) }], thickness: 4 })).find((x) => x.label === 'Control joints')!;
+		expect(small.value).toBe('none needed');
+		expect(small.note).not.toMatch(/deep|sawn|tooled/);
+		expect(small.note).toContain('small enough to need none');
+		const large = buildCardItems(computePlan({ units: 'imperial', sections: [{ outline: rect(0, 0, 30, 20) }], thickness: 4 })).find((x) => x.label === 'Control joints')!;
+		expect(large.value).toMatch(/^at most .* apart$/);
+		expect(large.note).toMatch(/deep, (sawn|tooled)$/);
+	});
 });

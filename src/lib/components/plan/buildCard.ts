@@ -61,7 +61,11 @@ export function buildCardItems(p: BuildCardPlan): SummaryItem[] {
 		{
 			label: 'Control joints',
 			value: p.joints.totalLength.meters > 0 ? `at most ${formatLength(p.joints.maxSpacing, u)} apart` : 'none needed',
-			note: `${S(p.joints.depth)} deep, ${p.joints.method === 'saw' ? 'sawn' : 'tooled'}`
+			// A depth for joints that are not cut read as a contradiction ("none needed", "1¼ in deep, sawn").
+			note:
+				p.joints.totalLength.meters > 0
+					? `${S(p.joints.depth)} deep, ${p.joints.method === 'saw' ? 'sawn' : 'tooled'}`
+					: `the slab is small enough to need none (the limit is ${formatLength(p.joints.maxSpacing, u)} between joints)`
 		},
 		p.mixing.readyMixSuggested
 			? { label: 'Concrete', value: `ready-mix, ${trim(p.readyMix.order, 2)} ${p.readyMix.unit}`, note: `or ${planned.count} × ${planned.size} ${planned.unit} bags in smaller pours` }

@@ -24,7 +24,7 @@ describe('layout drawing', () => {
 		const d = layoutDrawing(twoPours, sheet, { width: 500, height: 400 });
 		const texts = (kind: string) => d.labels.filter((l) => l.kind === kind).map((l) => l.text);
 		expect(texts('stake').sort()).toEqual(twoPours.elevations.stakes.map((s) => s.id).sort());
-		expect(texts('board')).toEqual(twoPours.forms.runs.filter((r) => r.formed && r.kind !== 'bulkhead').map((r) => r.id));
+		expect(texts('board')).toEqual(twoPours.forms.runs.filter((r) => r.formed).map((r) => r.id)); // the bulkhead too, as the cut list names it
 		expect(texts('corner')).toEqual(expect.arrayContaining(['1A', '1B/2A', '1C/2D', '2B', '2C', '1D']));
 		expect(d.coldJoints).toHaveLength(1);
 		expect(d.diagonals).toHaveLength(4); // two per four-cornered pour
@@ -72,6 +72,11 @@ describe('a pour split inside one section', () => {
 		const stakes = d.labels.filter((l) => l.kind === 'stake');
 		expect(stakes.map((l) => l.text).sort()).toEqual(split.elevations.stakes.map((s) => s.id).sort());
 		expect(stakes.every((l) => l.at.every(Number.isFinite))).toBe(true);
+		// Each bulkhead inside the pour is drawn (as a cold joint) and carries its board id, so its stakes stand on a line.
+		const inside = split.forms.runs.filter((r) => r.kind === 'bulkhead' && r.edge === -1);
+		expect(d.coldJoints).toHaveLength(inside.length + split.geometry.coldJoints.length);
+		const boards = d.labels.filter((l) => l.kind === 'board').map((l) => l.text);
+		for (const run of inside) expect(boards).toContain(run.id);
 	});
 });
 

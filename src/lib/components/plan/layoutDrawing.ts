@@ -114,7 +114,8 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 		const t = [(b[0] - a[0]) / len, (b[1] - a[1]) / len];
 		const out: Pt = signedArea(o) > 0 ? [t[1], -t[0]] : [-t[1], t[0]];
 		runOut.set(run.id, out);
-		if (!run.formed || run.kind === 'bulkhead') continue;
+		// Bulkheads too: the cut list and the stake table name them, so the drawing must show where they stand.
+		if (!run.formed) continue;
 		// A third of the way along, so the id does not sit on the length label's line of sight.
 		const at = P([run.from[0] + (run.to[0] - run.from[0]) * 0.35, run.from[1] + (run.to[1] - run.from[1]) * 0.35]);
 		labels.push({ kind: 'board', text: run.id, at: [at[0] + out[0] * 22, at[1] + out[1] * 22], normal: out, tangent: [t[0], t[1]] });
@@ -132,7 +133,11 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 	const start = startCorner ? P(startCorner.at) : null;
 	const slabs = r.geometry.sections.map((s) => s.outline.map(P));
 	const joints = r.joints.sections.flatMap((s) => s.lines.map((l) => line(l.from, l.to)));
-	const coldJoints = r.geometry.coldJoints.map((j) => line(j.from, j.to));
+	// Cold joints between sections, and the bulkheads that split a pour inside a section (on no edge, -1).
+	const coldJoints = [
+		...r.geometry.coldJoints.map((j) => line(j.from, j.to)),
+		...r.forms.runs.filter((run) => run.kind === 'bulkhead' && run.edge < 0).map((run) => line(run.from, run.to))
+	];
 	// Everything drawn that a label must keep off: outlines, walls, joints, diagonals, stakes, the start circle.
 	const drawn = [...slabs.flatMap((o) => o.map((p, i) => ({ from: p, to: o[(i + 1) % o.length] }))), ...house, ...(high ? [high] : []), ...joints, ...coldJoints, ...diagonals];
 	const dots: Box[] = stakes.map((s) => ({ x0: s.at[0] - 3, y0: s.at[1] - 3, x1: s.at[0] + 3, y1: s.at[1] + 3 }));

@@ -4,12 +4,14 @@ import { computePlan } from '$lib/plan';
 import { formatSmall, formatVolume } from '$lib/plan/format';
 import demo from '../../../../fixtures/demo-plans.json';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
+import { cornerEll, rect } from '$lib/plan/test-plans';
 import BuildCard from './BuildCard.svelte';
 import CautionList from './CautionList.svelte';
 import LayoutSheet from './LayoutSheet.svelte';
 import DayPlan from './DayPlan.svelte';
 import MaterialsList from './MaterialsList.svelte';
 import MixingPlan from './MixingPlan.svelte';
+import PlanOutline2D from './PlanOutline2D.svelte';
 import PlanSummary from './PlanSummary.svelte';
 import StakeMarkTable from './StakeMarkTable.svelte';
 import StrengthChart from './StrengthChart.svelte';
@@ -116,4 +118,30 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 it('CautionList keeps a deferral to local codes even without the engine caution', () => {
 	const out = text(render(CautionList, { props: { cautions: [] } }).body);
 	expect(out).toMatch(/local codes/i);
+});
+
+describe('the drawings\' keys name only what is drawn, in whole sentences', () => {
+	/** Text as a reader sees it: tags dropped without adding spaces, so a missing space shows. */
+	const seen = (html: string) => html.replace(/<!--[\s\S]*?-->/g, '').replace(/<[^>]+>/g, '').replace(/&nbsp;/g, ' ').replace(/\s+/g, ' ');
+	const pad = computePlan({ units: 'imperial', sections: [{ outline: rect(0, 0, 12, 10) }], houseEdge: null, slope: { highEdge: { section: 0, edge: 2 } } });
+	const ell = computePlan(cornerEll);
+
+	it('a freestanding pad: no house wall in either key, and a space between the sentences', () => {
+		const sheet = seen(render(LayoutSheet, { props: { plan: pad } }).body);
+		expect(sheet).toContain('named as in the cut list; the thick green dashes mark the high side, edge C–D');
+		expect(sheet).not.toContain('house wall,');
+		expect(sheet).toContain('grey dashes the diagonals');
+		const outline = seen(render(PlanOutline2D, { props: { result: pad } }).body);
+		expect(outline).toContain('Top view. Dashed lines are control joints');
+		expect(outline).toContain('between pours. The green dashed edge is the high side');
+		expect(outline).not.toContain('house walls');
+	});
+
+	it('an L around a house corner: the walls, and no diagonals (it has six corners)', () => {
+		const sheet = seen(render(LayoutSheet, { props: { plan: ell } }).body);
+		expect(sheet).toContain('the thick brown line is the house wall');
+		expect(sheet).not.toContain('grey dashes');
+		expect(sheet).toContain('control joints and blue lines cold joints.');
+		expect(seen(render(PlanOutline2D, { props: { result: ell } }).body)).toContain('Top view. Brown edges are house walls; dashed lines');
+	});
 });

@@ -6,14 +6,15 @@ import type { AddressInfo } from 'node:net';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { env } from '$env/dynamic/private';
-import { monthlyPlan, leadPack } from '$lib/billing-plans';
+import { extraLead, monthlyPlan, leadPack } from '$lib/billing-plans';
 import { db } from '../db';
-import { billingAccount, billingEvent, contractor, lead, leadCharge, mailOutbox, plan } from '../db/schema';
+import { billingAccount, billingEvent, contractor, lead, leadCharge, mailOutbox, plan, user } from '../db/schema';
 import { saveBid } from '../bids';
 import { closeRequest, expireLeadsNow, sendLeads } from '../leads';
 import { matchContractors, placeOf } from '../matching';
 import { createUser } from '../users';
-import { billingAccountOf, openLeadFor } from './accounts';
+import { billingAccountOf, extraLeadsThisPeriod, openLeadFor } from './accounts';
+import { syncExtraLead } from './extra-leads';
 import { invoicesOf, setCancelAtPeriodEnd, startCardUpdate, startPackCheckout, startPlanCheckout } from './checkout';
 import { payments } from './client';
 import { applyEvent, BadSignature, verifyEvent } from './webhooks';
@@ -275,5 +276,123 @@ describe('credits given back', () => {
 		await db.update(lead).set({ respondBy: future(-1) }).where(eq(lead.id, l.id));
 		await expireLeadsNow({ contractorId: c.id }, origin);
 		expect(await account(c.id)).toMatchObject({ leadsUsed: 0, credits: 1 });
+	});
+});
+
+describe('extra leads beyond the plan', () => {
+	/** The customer's invoice items at the fake that wait for the next invoice. */
+	async function pendingItems(customerId: string) {
+		const res = await fetch(`${fake}/v1/invoiceitems?customer=${customerId}&pending=true`, { headers: { authorization: `Bearer ${env.PAYMENTS_SECRET_KEY}` } });
+		expect(res.ok).toBe(true);
+		return ((await res.json()) as { data: { id: string; amount: number; metadata: Record<string, string> }[] }).data;
+	}
+	const chargeOf = async (leadId: string) => (await db.select().from(leadCharge).where(eq(leadCharge.leadId, leadId)))[0];
+	const mailsTo = (email: string) => db.select().from(mailOutbox).where(eq(mailOutbox.to, email));
+
+	it('asks first, bills an extra lead on the next invoice once, takes a given-back one off, and credits one given back after invoicing', async () => {
+		const c = await approvedContractor('Extra');
+		await onFakePage(await startPlanCheckout(c, origin), 'complete');
+		await db.update(billingAccount).set({ leadsUsed: monthlyPlan.leadsIncluded }).where(eq(billingAccount.contractorId, c.id));
+		const a = await account(c.id);
+
+		// All included leads used, no credit: following the lead's link charges nothing, it asks.
+		const first = await leadFor(c.id);
+		expect(await openLeadFor(c.id, first.lead.id)).toBe('extra');
+		expect(await chargeOf(first.lead.id)).toBeUndefined();
+		// Agreed: the lead opens now and its charge waits for the job that bills it.
+		expect(await openLeadFor(c.id, first.lead.id, { agreeExtra: true })).toBe('open');
+		expect(await chargeOf(first.lead.id)).toMatchObject({ kind: 'extra', extraState: 'pending', invoiceItemId: null });
+		expect(await syncExtraLead(first.lead.id)).toBe('billed');
+		expect(await syncExtraLead(first.lead.id)).toBe('billed');
+		let items = await pendingItems(a.customerId!);
+		expect(items).toHaveLength(1);
+		expect(items[0]).toMatchObject({ amount: extraLead.cents, metadata: { leadId: first.lead.id } });
+		expect(await extraLeadsThisPeriod(await account(c.id))).toEqual({ count: 1, cents: extraLead.cents });
+		// Opened once, charged once: opening again costs nothing.
+		expect(await openLeadFor(c.id, first.lead.id, { agreeExtra: true })).toBe('open');
+		expect(await extraLeadsThisPeriod(await account(c.id))).toEqual({ count: 1, cents: extraLead.cents });
+
+		// A second extra lead the homeowner closes before any bid: its item comes off the next invoice.
+		const second = await leadFor(c.id);
+		expect(await openLeadFor(c.id, second.lead.id, { agreeExtra: true })).toBe('open');
+		expect(await syncExtraLead(second.lead.id)).toBe('billed');
+		expect(await pendingItems(a.customerId!)).toHaveLength(2);
+		await closeRequest(second.owner.id, second.planId, origin);
+		expect(await syncExtraLead(second.lead.id)).toBe('removed');
+		items = await pendingItems(a.customerId!);
+		expect(items.map((i) => i.metadata.leadId)).toEqual([first.lead.id]);
+		expect(await extraLeadsThisPeriod(await account(c.id))).toEqual({ count: 1, cents: extraLead.cents });
+
+		// The next month's invoice carries the plan and the one extra lead; the receipt says so.
+		await fakeControl('/_fake/renew', { subscription: a.subscriptionId!, outcome: 'paid' });
+		const [latest] = await invoicesOf(c.id);
+		expect(latest).toMatchObject({ status: 'paid', amountCents: monthlyPlan.monthlyCents + extraLead.cents });
+		expect(latest.lines.map((l) => l.amountCents)).toEqual([monthlyPlan.monthlyCents, extraLead.cents]);
+		expect(await pendingItems(a.customerId!)).toHaveLength(0);
+		const receipt = (await mailsTo(c.email)).find((m) => m.subject === 'Your Stakeline payment was received');
+		expect(receipt?.text).toContain(`We received $${(monthlyPlan.monthlyCents + extraLead.cents) / 100} for ${monthlyPlan.name} and 1 extra lead.`);
+		expect(await account(c.id)).toMatchObject({ leadsUsed: 0, credits: 0 });
+
+		// Given back after it was invoiced (it expired unanswered): a credit, once.
+		await db.update(lead).set({ respondBy: future(-1) }).where(eq(lead.id, first.lead.id));
+		await expireLeadsNow({ contractorId: c.id }, origin);
+		expect(await syncExtraLead(first.lead.id)).toBe('credited');
+		expect(await syncExtraLead(first.lead.id)).toBe('credited');
+		expect((await account(c.id)).credits).toBe(1);
+	});
+
+	it('opens no extra lead without a subscription to bill, or while a payment is overdue', async () => {
+		const c = await approvedContractor('NoSub');
+		await db.insert(billingAccount).values({ contractorId: c.id, status: 'active', periodStart: new Date(), leadsUsed: monthlyPlan.leadsIncluded });
+		const { lead: l } = await leadFor(c.id);
+		expect(await openLeadFor(c.id, l.id, { agreeExtra: true })).toBe('locked');
+		await db.update(billingAccount).set({ status: 'past_due', customerId: `cus_x_${c.id}`, subscriptionId: 'sub_x' }).where(eq(billingAccount.contractorId, c.id));
+		expect(await openLeadFor(c.id, l.id, { agreeExtra: true })).toBe('locked');
+		expect(await chargeOf(l.id)).toBeUndefined();
+	});
+
+	it('bills extra leads still owed on a final invoice when the plan ends', async () => {
+		const c = await approvedContractor('Final');
+		await onFakePage(await startPlanCheckout(c, origin), 'complete');
+		await db.update(billingAccount).set({ leadsUsed: monthlyPlan.leadsIncluded }).where(eq(billingAccount.contractorId, c.id));
+		const { lead: l } = await leadFor(c.id);
+		expect(await openLeadFor(c.id, l.id, { agreeExtra: true })).toBe('open');
+		await syncExtraLead(l.id);
+		await setCancelAtPeriodEnd(c.id, true);
+		await fakeControl('/_fake/renew', { subscription: (await account(c.id)).subscriptionId! });
+		expect((await account(c.id)).status).toBe('cancelled');
+		const [final] = await invoicesOf(c.id);
+		expect(final).toMatchObject({ status: 'paid', amountCents: extraLead.cents });
+		const subjects = (await mailsTo(c.email)).map((m) => m.subject);
+		expect(subjects).toContain('Your Stakeline plan has ended');
+		expect(subjects).toContain('Your final Stakeline invoice was paid');
+	});
+});
+
+describe('money notices and the mail settings', () => {
+	it('leaves out the receipts a contractor turned off, never the notices that limit the account', async () => {
+		const c = await approvedContractor('Quiet');
+		await db.update(user).set({ mailOptOut: ['billing'] }).where(eq(user.id, c.id));
+		await onFakePage(await startPlanCheckout(c, origin), 'complete', 'declines');
+		await onFakePage(await startPackCheckout(c, origin), 'complete', 'declines');
+		const a = await account(c.id);
+		expect(a).toMatchObject({ status: 'active', credits: leadPack.leads });
+		await fakeControl('/_fake/renew', { subscription: a.subscriptionId! });
+		expect((await account(c.id)).status).toBe('past_due');
+		await onFakePage(await startCardUpdate(c, origin), 'complete', 'good');
+		expect((await account(c.id)).status).toBe('active');
+		await fakeControl('/_fake/renew', { subscription: a.subscriptionId!, outcome: 'paid' });
+		const subjects = (await db.select().from(mailOutbox).where(eq(mailOutbox.to, c.email))).map((m) => m.subject).sort();
+		// No plan-active, credits-added or payment-received receipts; the failure and the recovery do go.
+		expect(subjects).toEqual(['Your Stakeline payment did not go through', 'Your Stakeline payment went through: leads resume']);
+		const [failed] = await db.select().from(mailOutbox).where(and(eq(mailOutbox.to, c.email), eq(mailOutbox.subject, 'Your Stakeline payment did not go through')));
+		expect(failed.text).toContain(`The payment of $${monthlyPlan.monthlyCents / 100} for ${monthlyPlan.name} failed.`);
+
+		// Someone who keeps receipts gets them.
+		const d = await approvedContractor('Receipts');
+		await onFakePage(await startPlanCheckout(d, origin), 'complete');
+		await onFakePage(await startPackCheckout(d, origin), 'complete');
+		const got = (await db.select().from(mailOutbox).where(eq(mailOutbox.to, d.email))).map((m) => m.subject);
+		expect(got).toEqual(expect.arrayContaining([`Your ${monthlyPlan.name} plan is active`, `${leadPack.leads} lead credits added`]));
 	});
 });

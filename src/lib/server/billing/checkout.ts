@@ -91,7 +91,18 @@ export async function setCancelAtPeriodEnd(contractorId: string, cancel: boolean
 	return sub.cancel_at_period_end;
 }
 
-export type InvoiceRow = { id: string; number: string | null; status: string | null; amountCents: number; currency: string; created: Date; description: string | null; url: string | null };
+export type InvoiceRow = {
+	id: string;
+	number: string | null;
+	status: string | null;
+	amountCents: number;
+	currency: string;
+	created: Date;
+	description: string | null;
+	/** Each line when there is more than one (the plan and extra leads). */
+	lines: { description: string | null; amountCents: number }[];
+	url: string | null;
+};
 
 /** The contractor's invoices, newest first, as the provider has them (at most 24). */
 export async function invoicesOf(contractorId: string): Promise<InvoiceRow[]> {
@@ -106,6 +117,7 @@ export async function invoicesOf(contractorId: string): Promise<InvoiceRow[]> {
 		currency: i.currency,
 		created: new Date(i.created * 1000),
 		description: i.lines?.data?.[0]?.description ?? null,
+		lines: (i.lines?.data ?? []).length > 1 ? i.lines.data.map((l) => ({ description: l.description, amountCents: l.amount })) : [],
 		url: i.hosted_invoice_url ?? null
 	}));
 }

@@ -8,7 +8,7 @@ import { queueMail } from '../mail';
 import type { Mail } from '../mail/templates';
 import { lockAccount, type Tx } from './accounts';
 import { payments, webhookSecret } from './client';
-import { leadPackPaidMail, paymentFailedMail, planActiveMail, planEndedMail } from './mails';
+import { finalInvoiceMail, invoicePaidMail, invoiceWords, leadPackPaidMail, paymentFailedMail, paymentRecoveredMail, planActiveMail, planEndedMail } from './mails';
 
 /** Largest webhook body accepted; the provider's events are a few kilobytes. */
 export const WEBHOOK_MAX_BYTES = 256 * 1024;
@@ -49,6 +49,13 @@ function invoicePeriod(inv: Stripe.Invoice) {
 	return { subscriptionId: idOf(sub), start: new Date(start * 1000), end: new Date(end * 1000) };
 }
 
+/** What an invoice bills: the total, whether the plan is on it, and how many extra leads (lines made from an extra lead's item carry its lead id). */
+function invoiceContents(inv: Stripe.Invoice) {
+	const lines = inv.lines?.data ?? [];
+	const extraLeads = lines.filter((l) => !!l.metadata?.leadId).length;
+	return { totalCents: inv.total, plan: lines.length > extraLeads, extraLeads };
+}
+
 /**
  * Applies one verified event in one transaction: its id is stored first, so a replay finds it and
  * changes nothing; the account row is locked; the state moves only as the billing table says; the
@@ -86,17 +93,26 @@ export async function applyEvent(event: Stripe.Event, origin: string): Promise<W
 				mail = leadPackPaidMail(who.name, leads, origin);
 			}
 		} else if (event.type === 'invoice.paid' || event.type === 'invoice.payment_failed') {
-			const p = invoicePeriod(event.data.object);
+			const inv = event.data.object;
+			const p = invoicePeriod(inv);
+			const what = invoiceWords(invoiceContents(inv));
+			const paid = event.type === 'invoice.paid';
 			// Only the plan's invoices move the plan; a lead pack's invoice has no subscription.
 			if (p.subscriptionId && (!a.subscriptionId || a.subscriptionId === p.subscriptionId)) {
-				if (event.type === 'invoice.paid') {
+				if (a.status === 'cancelled') {
+					// The final invoice of a plan that ended (extra leads it still owed): the plan stays ended; the contractor is told.
+					mail = finalInvoiceMail(who.name, what, paid, origin);
+				} else if (paid) {
 					step = 'invoice_paid';
 					Object.assign(set, { subscriptionId: p.subscriptionId, periodStart: p.start, periodEnd: p.end });
-					// A new period starts the lead count again; the first invoice after checkout (no period yet) keeps it.
-					if (a.periodEnd !== null && a.periodEnd.getTime() !== p.end.getTime()) set.leadsUsed = 0;
+					// A new period starts the lead count again; the first invoice after checkout (no period yet) keeps it, and its receipt is the plan-active notice.
+					const renewal = a.periodEnd !== null && a.periodEnd.getTime() !== p.end.getTime();
+					if (renewal) set.leadsUsed = 0;
+					if (a.status === 'past_due') mail = paymentRecoveredMail(who.name, what, origin);
+					else if (a.periodEnd !== null) mail = invoicePaidMail(who.name, what, origin);
 				} else {
 					step = 'payment_failed';
-					if (a.status === 'active') mail = paymentFailedMail(who.name, origin);
+					if (a.status === 'active') mail = paymentFailedMail(who.name, what, origin);
 				}
 			}
 		} else if (event.type === 'customer.subscription.deleted') {
@@ -107,7 +123,10 @@ export async function applyEvent(event: Stripe.Event, origin: string): Promise<W
 				if (a.status !== 'cancelled') mail = planEndedMail(who.name, origin);
 			}
 		}
-		if (!step) return { result: 'ignored', contractorId };
+		if (!step) {
+			if (mail && who) await queueMail(who.email, mail, tx);
+			return { result: mail ? 'applied' : 'ignored', contractorId };
+		}
 		const status = billingTarget(a.status, step);
 		await tx
 			.update(billingAccount)

@@ -6,6 +6,8 @@ import { Logger, run, type Runner, type Task, type TaskList } from 'graphile-wor
 import type { Transporter } from 'nodemailer';
 import { sql } from 'drizzle-orm';
 import { env } from '$env/dynamic/private';
+import { SYNC_EXTRA_LEAD } from '../billing/accounts';
+import { syncExtraLead } from '../billing/extra-leads';
 import { sweep } from '../credentials';
 import { purgeSentLinks } from '../email-tokens';
 import { log } from '../log';
@@ -40,6 +42,9 @@ export function taskList(o: Pick<JobOptions, 'origin' | 'transport'>): TaskList 
 		[SEND_MAIL]: sendMail,
 		[CURING_REMINDER]: async (payload) => {
 			await sendCuringReminder(payload as { planId: string; pourDate: string; day: string }, o.origin);
+		},
+		[SYNC_EXTRA_LEAD]: async (payload) => {
+			await syncExtraLead((payload as { leadId: string }).leadId);
 		},
 		credential_sweep: async () => {
 			await sweep(new Date(), o.origin);

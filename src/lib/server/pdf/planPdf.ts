@@ -238,7 +238,16 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 		doc.x = left;
 		doc.y = rowTop;
 	}
-	const legend = `Start at corner ${sheet.start.corner} (${sheet.start.why}, circled). ${sheet.highEdge ? `Green dashes: the high side, edge ${sheet.highEdge}; the top falls away from it. ` : ''}Brown: house wall; dashed black: control joints; blue: cold joints; grey dashes: diagonals; squares: stakes, numbered as in the stake marks; R ids: boards as in the cut list.`;
+	// The key names only what the drawing holds: no house wall on a freestanding pad, no diagonals on an L.
+	const key = [
+		r.geometry.houseEdges.length ? 'brown: house wall' : '',
+		'dashed black: control joints',
+		'blue: cold joints',
+		sheet.diagonals.length ? 'grey dashes: diagonals' : '',
+		'squares: stakes, numbered as in the stake marks',
+		'R ids: boards as in the cut list'
+	].filter(Boolean).join('; ');
+	const legend = `Start at corner ${sheet.start.corner} (${sheet.start.why}, circled). ${sheet.highEdge ? `Green dashes: the high side, edge ${sheet.highEdge}; the top falls away from it. ` : ''}${key[0].toUpperCase()}${key.slice(1)}.`;
 	// Room below the drawing for its legend, measured, so the legend never spills onto a page of its own.
 	const legendHeight = doc.font('regular').fontSize(8).heightOfString(t(legend), { width, paragraphGap: 2 }) + 8;
 	room(60 + 160 + legendHeight); // heading, the smallest drawing and its legend together

@@ -1,5 +1,5 @@
-import { fail } from '@sveltejs/kit';
-import { accountView, billingAccountOf, entitlement, leadTeaser } from '$lib/server/billing/accounts';
+import { error, fail, redirect } from '@sveltejs/kit';
+import { accountView, billingAccountOf, entitlement, extraLeadsThisPeriod, leadTeaser, openLeadFor } from '$lib/server/billing/accounts';
 import { BillingRefused, invoicesOf, setCancelAtPeriodEnd, startCardUpdate, startPackCheckout, startPlanCheckout } from '$lib/server/billing/checkout';
 import { BillingUnavailable } from '$lib/server/billing/client';
 import { requireApprovedContractor } from '$lib/server/contractors';
@@ -26,6 +26,7 @@ export const load = (async (event) => {
 		approved: contractor.status === 'approved',
 		account: { ...accountView(account), hasSubscription: !!account.subscriptionId },
 		entitlement: entitlement(account),
+		extraLeads: await extraLeadsThisPeriod(account),
 		returned: back in returns ? { kind: back as keyof typeof returns, message: returns[back as keyof typeof returns] } : null,
 		teaser,
 		// Streamed: the page shows at once and the invoices arrive from the provider after.
@@ -64,7 +65,19 @@ const cancelAtEnd = (cancel: boolean) => async (event: RequestEvent) => {
 	return r.ok ? { changed: cancel ? ('cancel' as const) : ('resume' as const) } : r.failure;
 };
 
+/** Opens a lead as an extra lead on the next invoice: the contractor pressed the button that names the price. */
+const openAsExtra = async (event: RequestEvent) => {
+	const user = await requireApprovedContractor(event);
+	const leadId = String((await event.request.formData()).get('lead') ?? '');
+	if (!/^[0-9a-f-]{36}$/i.test(leadId)) error(400, 'No lead was named.');
+	const access = await openLeadFor(user.id, leadId, { agreeExtra: true });
+	if (access === null) error(404, 'No such lead');
+	if (access !== 'open') return fail(409, { message: 'This lead cannot be opened as an extra lead now: your plan is not running or its payment is overdue. Nothing was charged.' });
+	redirect(303, `/pro/leads/${leadId}`);
+};
+
 export const actions = {
+	openExtra: openAsExtra,
 	subscribe: toCheckout(startPlanCheckout),
 	buyPack: toCheckout(startPackCheckout),
 	updateCard: toCheckout(startCardUpdate),

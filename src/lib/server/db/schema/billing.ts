@@ -34,7 +34,7 @@ export const billingEvent = pgTable('billing_event', {
 
 /**
  * Which lead used which allowance: an included lead of the period that started at `periodStart`,
- * or a credit. One charge per lead; a refunded one (the lead expired unanswered or was closed
+ * a credit, or an extra lead billed on the period's next invoice. One charge per lead; a refunded one (the lead expired unanswered or was closed
  * before any bid) gives its lead or credit back once.
  */
 export const leadCharge = pgTable(
@@ -46,11 +46,18 @@ export const leadCharge = pgTable(
 		contractorId: uuid('contractor_id')
 			.notNull()
 			.references(() => contractor.userId, { onDelete: 'cascade' }),
-		kind: text('kind').$type<'included' | 'credit'>().notNull(),
+		kind: text('kind').$type<'included' | 'credit' | 'extra'>().notNull(),
 		periodStart: timestamp('period_start', { withTimezone: true }),
 		chargedAt: timestamp('charged_at', { withTimezone: true }).notNull().defaultNow(),
 		refundedAt: timestamp('refunded_at', { withTimezone: true }),
-		refundReason: text('refund_reason')
+		refundReason: text('refund_reason'),
+		/**
+		 * An extra lead's invoice item at the provider, and where it stands: 'pending' until the
+		 * item is made, 'billed' once it waits for (or is on) an invoice, 'removed' when taken off
+		 * before invoicing, 'credited' when given back as a credit after it was invoiced.
+		 */
+		invoiceItemId: text('invoice_item_id'),
+		extraState: text('extra_state').$type<'pending' | 'billed' | 'removed' | 'credited'>()
 	},
 	(t) => [index('lead_charge_contractor_idx').on(t.contractorId, t.chargedAt)]
 );

@@ -1,5 +1,6 @@
 import { error, redirect } from '@sveltejs/kit';
 import { openLeadFor } from '$lib/server/billing/accounts'; // billing
+import { extraLead, money } from '$lib/billing-plans';
 import { fullResult, planFigures } from '$lib/plan-figures';
 import { defaultDistanceUnit, todayIn } from '$lib/reader';
 import { bidSchemaFor, declineSchema, messageSchema } from '$lib/schemas/leads';
@@ -17,8 +18,10 @@ export const load = (async (event) => {
 	await expireLeadsNow({ contractorId: user.id }, event.url.origin);
 	const found = await contractorLead(user.id, event.params.id);
 	if (!found) error(404, 'No such lead');
-	// billing: opening the details uses an included lead or a credit; without either the billing page shows what the lead is.
-	if ((await openLeadFor(user.id, event.params.id)) === 'locked') redirect(303, `/pro/billing?lead=${event.params.id}`);
+	// billing: opening the details uses an included lead or a credit; without either the billing page shows what the lead is
+	// (and, on a running plan, offers to open it as an extra lead at its price: never charged by just following a link).
+	const access = await openLeadFor(user.id, event.params.id);
+	if (access === 'locked' || access === 'extra') redirect(303, `/pro/billing?lead=${event.params.id}`);
 	await markLeadSeen(user.id, event.params.id);
 	// Ids of the homeowner stay on the server, like their name.
 	const { snapshot, homeownerId: _h, contractorId: _c, ...lead } = found.lead;
@@ -51,6 +54,7 @@ async function billingGate(contractorId: string, leadId: string, values: Record<
 	const access = await openLeadFor(contractorId, leadId);
 	if (access === null) error(404, 'No such lead');
 	if (access === 'locked') return formError(values, 'Opening this lead needs a plan with leads left or a lead credit, and a paid-up account: see Billing.', {}, 402);
+	if (access === 'extra') return formError(values, `You have used this period’s included leads: open this lead as an extra lead (${money(extraLead.cents)} on your next invoice) on the Billing page first.`, {}, 402);
 	return null;
 }
 
