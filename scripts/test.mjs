@@ -1,8 +1,8 @@
 // npm test: the same set-up as npm start against a fresh test database, then every check:
-// svelte-check, Vitest (unit + integration on the real PostgreSQL), the build, and Playwright in
-// Debian's Chromium. Exits non-zero on the first failure.
-// `npm test -- FILE...` runs the same set-up and type check, then only the named files: *.e2e.ts with
-// Playwright (after a build), the rest with Vitest.
+// svelte-check, the linters (`npm run lint`), Vitest (unit + integration on the real PostgreSQL),
+// the build, and Playwright in Debian's Chromium. Exits non-zero on the first failure.
+// `npm test -- FILE...` runs the same set-up, the type check and ESLint on the named files, then
+// only those files: *.e2e.ts with Playwright (after a build), the rest with Vitest.
 import fs from 'node:fs';
 import path from 'node:path';
 import { root, settings } from './lib/settings.mjs';
@@ -40,6 +40,9 @@ try {
 		run(bin('svelte-kit'), ['sync'], opts);
 		run(bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings'], opts);
 	});
+	// ESLint (and Prettier's check, once `npm run lint` runs it): everything, or only the named files.
+	if (all) step('Lint (npm run lint)', () => run('npm', ['run', '--silent', 'lint'], opts));
+	else step('Lint (eslint, the named files)', () => run(bin('eslint'), ['--cache', '--cache-location', 'node_modules/.cache/eslint/', ...files], opts));
 	if (all || unitFiles.length)
 		step('Unit and integration tests (vitest)', () => run(bin('vitest'), ['run', ...unitFiles], opts));
 	if (all || e2eFiles.length) {

@@ -1,9 +1,9 @@
 import { expect, test } from '@playwright/test';
-import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { demoPassword, demoUser, mailLink, openHydrated, signIn, signOut, signUp, uniqueEmail } from './helpers';
 
 test('a homeowner signs up, gets no session until the e-mailed link is followed, then signs out and back in', async ({ page }) => {
 	const email = uniqueEmail('home');
-	await page.goto('/signup', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/signup');
 	await page.getByLabel('Your name').fill('Rowan Teale');
 	await page.getByLabel('E-mail').fill(email);
 	await page.getByLabel('Password', { exact: true }).fill('garden-path-42');
@@ -18,7 +18,7 @@ test('a homeowner signs up, gets no session until the e-mailed link is followed,
 	await expect(page.getByText('Just signed up? Open the link we e-mailed you first.')).toBeVisible();
 
 	const link = await mailLink(page, email, /Confirm your e-mail/);
-	await page.goto(link, { waitUntil: 'networkidle' });
+	await openHydrated(page, link);
 	await page.getByRole('button', { name: 'Confirm my e-mail' }).click();
 	await expect(page).toHaveURL(/\/plans$/);
 	await expect(page.getByRole('heading', { name: 'My plans' })).toBeVisible();

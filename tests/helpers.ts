@@ -9,10 +9,18 @@ export function uniqueEmail(label: string) {
 }
 
 /**
- * Opens a form page and waits until the network is quiet: hydration re-applies the inputs' values,
- * so typing before it ends can be wiped (seen on the sign-in page once the app grew).
+ * Opens a page and waits until it has hydrated (the root layout marks <html data-hydrated>):
+ * hydration re-applies the inputs' values, so typing before it ends can be wiped (seen on the
+ * sign-in page once the app grew).
  */
-const openForm = (page: Page, path: string) => page.goto(path, { waitUntil: 'networkidle' });
+export async function openHydrated(page: Page, url: string) {
+	await page.goto(url);
+	// A test may turn JavaScript off: then SvelteKit's inline start script (which sets a
+	// __sveltekit_… global) never ran and the page is complete as served.
+	const scripted = await page.evaluate(() => Object.keys(globalThis).some((k) => k.startsWith('__sveltekit_')));
+	if (scripted) await expect(page.locator('html[data-hydrated]')).toBeAttached();
+}
+const openForm = openHydrated;
 
 /**
  * Signs up through the form and follows the confirmation link from the fake mailbox, which signs the
@@ -27,7 +35,7 @@ export async function signUp(page: Page, o: { name: string; email: string; passw
 	await page.getByLabel('Password', { exact: true }).fill(o.password);
 	await submitAndWait(page, 'Create account');
 	await expect(page.getByRole('heading', { name: 'Check your e-mail' })).toBeVisible();
-	await page.goto(await mailLink(page, o.email, /Confirm your e-mail/, { timeout: 60_000 }), { waitUntil: 'networkidle' });
+	await openHydrated(page, await mailLink(page, o.email, /Confirm your e-mail/, { timeout: 60_000 }));
 	await submitAndWait(page, 'Confirm my e-mail');
 	await page.waitForURL((url) => url.pathname !== '/verify-email');
 }

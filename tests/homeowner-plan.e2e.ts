@@ -4,7 +4,7 @@ import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { computePlan } from '../src/lib/plan/index';
 import { formatVolume } from '../src/lib/plan/format';
-import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { demoPassword, demoUser, mailLink, openHydrated, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { pdfText } from './pdf-text';
 
 const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });
@@ -80,7 +80,7 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	await page.getByRole('button', { name: 'Show 3D preview' }).click();
 	const canvas = page.getByTestId('preview-canvas');
 	await expect(canvas).toBeVisible({ timeout: 20_000 });
-	await page.waitForTimeout(1500);
+	await expect(canvas).toHaveAttribute('data-ready', '');
 	const shot = await canvas.screenshot({ path: 'test-results/screens/plan-3d.png' });
 	const { channels } = await sharp(shot).stats();
 	expect(Math.max(...channels.map((c) => c.stdev))).toBeGreaterThan(10);
@@ -137,7 +137,7 @@ test('a signed-out visitor’s draft is kept through sign-up and lands in the ne
 	await page.getByRole('button', { name: 'Create account' }).click();
 	// Confirm-first: the e-mailed link signs the new account in and returns to the planner.
 	await expect(page.getByRole('heading', { name: 'Check your e-mail' })).toBeVisible();
-	await page.goto(await mailLink(page, email, /Confirm your e-mail/, { timeout: 60_000 }), { waitUntil: 'networkidle' });
+	await openHydrated(page, await mailLink(page, email, /Confirm your e-mail/, { timeout: 60_000 }));
 	await page.getByRole('button', { name: 'Confirm my e-mail' }).click();
 	await expect(page.getByText('The plan you started before signing in is now saved to your account.')).toBeVisible();
 	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);

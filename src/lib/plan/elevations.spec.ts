@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { computeElevations, elevationAt, fallAwayFrom, slopePlane } from './elevations';
 import { computeForms } from './lumber';
-import { cornerEll, ELL, modelOf, rect } from './test-plans';
+import { cornerEll, modelOf, rect } from './test-plans';
 import type { PlanInput } from './schema';
 
 const FT = 0.3048;

@@ -3,7 +3,7 @@
 
 import { describe, expect, it } from 'vitest';
 import { PlanInputError, computePlan, estimate, type PlanInput } from './index';
-import { cornerEll, ELL, rect } from './test-plans';
+import { cornerEll, rect } from './test-plans';
 
 describe('a 20 × 12 ft rectangle, 4 in thick', () => {
 	const r = computePlan({ units: 'imperial', sections: [{ outline: rect(0, 0, 20, 12) }] });

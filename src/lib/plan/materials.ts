@@ -86,7 +86,10 @@ export function rebarQuantities(m: Model, framed: Pt[][], eps: number) {
 		for (const p of [poly, poly.map((q): Pt => [q[1], q[0]])]) {
 			let lo = Infinity;
 			let hi = -Infinity;
-			for (const q of p) (lo = Math.min(lo, q[0])), (hi = Math.max(hi, q[0]));
+			for (const q of p) {
+				lo = Math.min(lo, q[0]);
+				hi = Math.max(hi, q[0]);
+			}
 			for (let x = lo + BAR_EDGE_M; x <= hi - BAR_EDGE_M + 1e-9; x += r.barSpacing)
 				for (const [a, b] of clipVertical(p, x, eps)) {
 					const len = b - a - 2 * BAR_EDGE_M;

@@ -19,6 +19,7 @@ const MAX_SECTIONS = LIMITS.sections;
 const MAX_VERTICES = LIMITS.verticesPerSection;
 
 /** NUL and other control characters, and UTF-16 halves without their other half. */
+// eslint-disable-next-line no-control-regex -- finding control characters is this pattern's job
 const BAD_TEXT = /[\u0000-\u0008\u000b\u000c\u000e-\u001f\u007f]|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/;
 
 /** One line of text a person typed: trimmed, bounded, and free of characters that break storage. */
@@ -531,7 +532,9 @@ export function parsePlanInput(input: unknown): ParseResult {
 	const errors: PlanIssue[] = [];
 	for (const i of r.error.issues.map(toPlanIssue)) {
 		const k = `${i.path}\n${i.message}`;
-		if (!seen.has(k)) errors.push(i), seen.add(k);
+		if (seen.has(k)) continue;
+		errors.push(i);
+		seen.add(k);
 	}
 	return { ok: false, errors };
 }

@@ -3,6 +3,7 @@
 import { z } from 'zod';
 
 /** Control characters other than tab, line feed and carriage return (NUL among them). */
+// eslint-disable-next-line no-control-regex -- finding control characters is this pattern's job
 const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
 /** A high surrogate not followed by a low one, or a low one not preceded by a high one. */
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;

@@ -1,18 +1,17 @@
 // Integration tests on the real PostgreSQL test database (npm test creates it fresh).
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { mailKinds, mailKindsFor } from '$lib/mail-kinds';
-import { client, db } from './db';
+import { db } from './db';
 import { auditLog, devMail, mailOutbox, session, user } from './db/schema';
 import { AccessRefused, setAccountDisabled } from './account-access';
 import { createSession, generateSessionToken, validateSessionToken } from './auth';
-import { startWorker } from './jobs';
-import { mailIdle, queueMail } from './mail';
+import { queueMail } from './mail';
 import { newMessageMail, newBidMail } from './mail/pro-notices';
 import { resetPasswordMail } from './mail/templates';
 import { confirmEmailChange, createUser, EmailChangeRefused, requestEmailChange, setMailOptOut, setPassword } from './users';
+import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
 
-const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
 const origin = 'http://stakeline.test';
 /** The link's token as the fake mailbox received it (the outbox copy is blanked once sent). */
 async function tokenSentTo(to: string) {
@@ -22,15 +21,7 @@ async function tokenSentTo(to: string) {
 }
 const outboxTo = (to: string) => db.select({ subject: mailOutbox.subject, text: mailOutbox.text }).from(mailOutbox).where(eq(mailOutbox.to, to)).orderBy(mailOutbox.createdAt);
 
-beforeAll(async () => {
-	// The job worker an app server runs, here in the test process, so mailed links arrive.
-	await startWorker({ origin: 'http://stakeline.test', cron: false });
-});
-
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase({ worker: true });
 
 describe('mail kinds', () => {
 	it('each role sees only its own switches', () => {

@@ -1,8 +1,8 @@
 // Integration tests on the real PostgreSQL test database (npm test creates it fresh).
 import nodemailer from 'nodemailer';
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
-import { client, db } from './db';
+import { db } from './db';
 import { contractor, devMail, emailToken, mailOutbox, session, user } from './db/schema';
 import { createSession, generateSessionToken, invalidateUserSessions, validateSessionToken } from './auth';
 import { consumeEmailToken, createEmailToken, peekEmailToken } from './email-tokens';
@@ -11,19 +11,11 @@ import { MAX_ATTEMPTS, mailIdle, queueMail } from './mail';
 import { verifyPassword } from './password';
 import { hashToken } from './tokens';
 import { createUser, EmailTakenError, markEmailVerified, signUpOrNotify } from './users';
+import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
 
 const DAY = 86_400_000;
-const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
 
-beforeAll(async () => {
-	// The job worker an app server runs, here in the test process, so queued mail is really sent.
-	await startWorker({ origin: 'http://stakeline.test', cron: false });
-});
-
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase({ worker: true });
 
 describe('confirm-first sign-up', () => {
 	const origin = 'http://stakeline.test';

@@ -1,9 +1,8 @@
 // Integration tests on the real PostgreSQL test database: matching, the revision freeze, bids, accept.
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { haversineKm } from '$lib/geo';
-import { client, db } from './db';
-import { mailIdle } from './mail';
+import { db } from './db';
 import { bid, contractor, lead, mailOutbox, plan, planPhoto } from './db/schema';
 import { announceRevision, tellHomeownersOfContractorChange, contractorLead, declineLead, LeadRefused, leadsForPlan, leadPhotoPlan, markLeadSeen, sendLeads } from './leads';
 import { acceptBid, reopenBidding, saveBid, withdrawBid } from './bids';
@@ -14,17 +13,14 @@ import { createUser } from './users';
 import { setAccountDisabled } from './account-access';
 import { decide } from './vetting';
 import type { PlanResult } from '$lib/plan';
+import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
 
 /** A stored result with only the figures these tests need, as an old engine version left rows (engine_version 0). */
 const storedFigures = (figures: object) => figures as PlanResult;
 
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase();
 
 const origin = 'http://127.0.0.1:3000';
-const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
 const future = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 // A real ZIP code (Keokuk, Iowa) far from the demo firms, used here only for its centroid.
 const HOME_ZIP = '52632';

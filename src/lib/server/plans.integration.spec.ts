@@ -1,17 +1,14 @@
 // Saved plans on the real PostgreSQL test database.
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { computePlan, ENGINE_VERSION } from '$lib/plan';
-import { client, db } from './db';
+import { db } from './db';
 import { plan } from './db/schema';
-import { mailIdle } from './mail';
 import { createPlan, deletePlan, duplicatePlan, findOwnPlan, listPlans, PlanInputInvalid, recomputeOutdatedPlans, StaleRevision, updatePlan } from './plans';
 import { createUser } from './users';
+import { useTestDatabase } from './integration-setup';
 
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase();
 
 const owner = () => createUser({ name: 'Plan Owner', email: `plans-${crypto.randomUUID()}@it.stakeline.test`, password: 'plans-password', role: 'homeowner' });
 const input = (length = 12) => ({ units: 'imperial', sections: [{ outline: [[0, 0], [length, 0], [length, 10], [0, 10]] }] });

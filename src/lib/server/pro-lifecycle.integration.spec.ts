@@ -2,10 +2,9 @@
 // respond-by dates, closing a request, marking a job done, and who sees the site address.
 // The clock is set per test; sweeps are scoped to this file's own rows except where the lock is
 // tested, which runs at the real time (nothing anyone else made lapses then).
-import { afterAll, afterEach, describe, expect, it, vi } from 'vitest';
+import { afterEach, describe, expect, it, vi } from 'vitest';
 import { and, eq, like } from 'drizzle-orm';
-import { client, db } from './db';
-import { mailIdle } from './mail';
+import { db } from './db';
 import { bid, contractor, credentialReminder, lead, mailOutbox, plan, user } from './db/schema';
 import { sweep, sweepContractor } from './credentials';
 import { closeRequest, completeJob, contractorLead, expireLeadsNow, LeadRefused, sendLeads } from './leads';
@@ -13,21 +12,18 @@ import { acceptBid, saveBid } from './bids';
 import { matchContractors, placeOf } from './matching';
 import { createUser } from './users';
 import type { PlanResult } from '$lib/plan';
+import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
 
 /** A stored result with only the figures these tests need, as an old engine version left rows (engine_version 0). */
 const storedFigures = (figures: object) => figures as PlanResult;
 
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase();
 afterEach(() => {
 	vi.useRealTimers();
 });
 
 const origin = 'http://127.0.0.1:3000';
 const DAY = 86_400_000;
-const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
 const iso = (d: Date) => d.toISOString().slice(0, 10);
 const at = (isoDay: string) => new Date(`${isoDay}T12:00:00Z`);
 const plus = (isoDay: string, days: number) => iso(new Date(at(isoDay).getTime() + days * DAY));

@@ -1,20 +1,17 @@
 // Faults and retries on the real PostgreSQL test database: fast 503s, idempotent creates, the log.
 import { Writable } from 'node:stream';
 import postgres from 'postgres';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq } from 'drizzle-orm';
 import { client, databaseUnavailable, db } from './db';
 import { plan } from './db/schema';
 import { createPlanOnce } from './idempotency';
 import { createLogger, safePath } from './log';
-import { mailIdle } from './mail';
 import { requestHandle, serverErrorHandler, UNAVAILABLE } from './requests';
 import { createUser } from './users';
+import { useTestDatabase } from './integration-setup';
 
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase();
 
 const input = { units: 'imperial', sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }] };
 const owner = () => createUser({ name: 'Retry Owner', email: `retry-${crypto.randomUUID()}@it.stakeline.test`, password: 'retry-password', role: 'homeowner' });

@@ -1,10 +1,10 @@
 // Curing reminders end to end on the real PostgreSQL, the job queue and the fake SMTP server.
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { eq, sql } from 'drizzle-orm';
 import { curingReminders } from '$lib/plan/reminders';
 import { addDays } from '$lib/plan/schedule';
 import { todayIn, zonedTime } from '$lib/reader';
-import { client, db } from './db';
+import { db } from './db';
 import { curingReminderSent, devMail, mailOutbox, user } from './db/schema';
 import { startWorker } from './jobs';
 import { mailIdle } from './mail';
@@ -13,11 +13,9 @@ import { curingReminderStatus, sendCuringReminder, setCuringReminders, stopCurin
 import { createUser } from './users';
 import { savePourRecords } from './pour-records';
 import type { PourRecord } from '$lib/plan/pour-log';
+import { useTestDatabase } from './integration-setup';
 
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase();
 
 const TZ = 'America/Denver';
 const origin = 'http://stakeline.test';

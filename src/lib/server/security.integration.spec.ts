@@ -3,28 +3,24 @@ import { deflateSync } from 'node:zlib';
 import { isRedirect, type RequestEvent } from '@sveltejs/kit';
 import { and, eq, like, sql } from 'drizzle-orm';
 import sharp from 'sharp';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { actions as signInActions } from '../../routes/(auth)/signin/+page.server';
 import { actions as linkActions, load as linkLoad } from '../../routes/(auth)/signin/link/+page.server';
 import { actions as forgotActions } from '../../routes/(auth)/forgot-password/+page.server';
 import { actions as plansActions } from '../../routes/(app)/plans/+page.server';
 import { createSession, generateSessionToken, validateSessionToken } from './auth';
-import { client, db } from './db';
+import { db } from './db';
 import { mailOutbox, planPhoto, session, throttleCounter } from './db/schema';
 import { purgeSentLinks } from './email-tokens';
-import { mailIdle } from './mail';
 import { addPhoto, MAX_PHOTOS_PER_PLAN, PhotoRejected } from './photos';
 import { createPlan, findOwnPlan } from './plans';
 import { hashToken } from './tokens';
 import { createUser, sendPasswordResetMail, sendVerificationMail } from './users';
+import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
 
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase();
 
 const DAY = 86_400_000;
-const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
 // Addresses from the RFC 5737 documentation ranges, fresh per test so counters do not mix.
 const address = () => `198.51.100.${Math.floor(Math.random() * 250)}-${crypto.randomUUID().slice(0, 8)}`;
 const PASSWORD = 'right-password-42';

@@ -1,22 +1,18 @@
 // Integration tests on the real PostgreSQL test database: profile saves, vetting decisions, audit rows.
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { desc, eq } from 'drizzle-orm';
-import { client, db } from './db';
-import { mailIdle } from './mail';
+import { db } from './db';
 import { auditLog, contractor, contractorDocument, mailOutbox } from './db/schema';
 import { changesSinceReview, findContractor, saveContractorProfile } from './contractors';
 import { storage } from './storage';
 import type { SniffedUpload } from './uploads';
 import { createUser } from './users';
 import { decide, VettingRefused } from './vetting';
+import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
 
-afterAll(async () => {
-	await mailIdle();
-	await client.end();
-});
+useTestDatabase();
 
 const origin = 'http://127.0.0.1:3000';
-const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
 const pdf = (label: string): SniffedUpload => ({ bytes: new TextEncoder().encode(`%PDF-1.4 ${label}`), mime: 'application/pdf', ext: 'pdf', name: `${label}.pdf` });
 const profile = {
 	businessName: 'Cinderbank Pours',

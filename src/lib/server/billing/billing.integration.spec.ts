@@ -7,11 +7,10 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { and, eq } from 'drizzle-orm';
 import { env } from '$env/dynamic/private';
 import { extraLead, monthlyPlan, leadPack } from '$lib/billing-plans';
-import { client, db } from '../db';
+import { db } from '../db';
 import { billingAccount, billingEvent, contractor, lead, leadCharge, mailOutbox, plan, user } from '../db/schema';
 import { saveBid } from '../bids';
 import { closeRequest, expireLeadsNow, sendLeads } from '../leads';
-import { mailIdle } from '../mail';
 import { matchContractors, placeOf } from '../matching';
 import { createUser } from '../users';
 import { billingAccountOf, extraLeadsThisPeriod, openLeadFor } from './accounts';
@@ -20,13 +19,13 @@ import { invoicesOf, setCancelAtPeriodEnd, startCardUpdate, startPackCheckout, s
 import { payments } from './client';
 import { applyEvent, BadSignature, verifyEvent } from './webhooks';
 import type { PlanResult } from '$lib/plan';
+import { uniqueEmail as unique, useTestDatabase } from '../integration-setup';
 
 /** The few figures a lead reads, stored as a plan result (the engine's whole result is not needed here). */
 const storedFigures = (figures: object) => figures as PlanResult;
 
 const origin = 'http://127.0.0.1:3000';
 const fake = `http://127.0.0.1:${env.PAYMENTS_FAKE_PORT}`;
-const unique = (label: string) => `${label}-${crypto.randomUUID()}@it.stakeline.test`;
 const future = (days: number) => new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10);
 // A real ZIP code (Oskaloosa, Iowa) used only for its centroid.
 const ZIP = '52577';
@@ -43,6 +42,7 @@ async function fakeControl(path: string, body: Record<string, string>) {
 	return res.json();
 }
 
+useTestDatabase();
 beforeAll(async () => {
 	receiver = http.createServer((req, res) => {
 		const chunks: Buffer[] = [];
@@ -68,8 +68,6 @@ beforeAll(async () => {
 afterAll(async () => {
 	await fakeControl('/_fake/config', { webhookUrl: previousWebhookUrl });
 	await new Promise((r) => receiver.close(r));
-	await mailIdle();
-	await client.end();
 });
 
 async function approvedContractor(name: string) {

@@ -8,7 +8,7 @@ import { ESTIMATE_LIMIT } from '$lib/server/rate-limit';
 
 // Each call from its own address, so the per-client rate limit (tested below) stays out of the way.
 const post = (body: string, address = `test-${crypto.randomUUID()}`) =>
-	POST({ request: new Request('http://localhost/api/estimate', { method: 'POST', body }), getClientAddress: () => address } as any) as Promise<Response>;
+	POST({ request: new Request('http://localhost/api/estimate', { method: 'POST', body }), getClientAddress: () => address } as unknown as Parameters<typeof POST>[0]) as Promise<Response>;
 const postJson = (value: unknown) => post(JSON.stringify(value));
 
 const valid = {
@@ -167,7 +167,7 @@ describe('POST /api/estimate: messages in plain words', () => {
 
 describe('GET /api/estimate/schema', () => {
 	it('publishes the JSON Schema of the request', async () => {
-		const res = (await GET({} as any)) as Response;
+		const res = (await GET({} as Parameters<typeof GET>[0])) as Response;
 		expect(res.status).toBe(200);
 		const s = await res.json();
 		expect(s.$schema).toMatch(/json-schema\.org/);

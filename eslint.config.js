@@ -1,0 +1,57 @@
+// ESLint as `sv create` sets it up for a TypeScript SvelteKit app (eslint-plugin-svelte,
+// typescript-eslint, eslint-config-prettier so formatting is left to Prettier), ignoring what
+// .gitignore and .prettierignore name.
+import { fileURLToPath } from 'node:url';
+import { includeIgnoreFile } from '@eslint/compat';
+import js from '@eslint/js';
+import prettier from 'eslint-config-prettier';
+import svelte from 'eslint-plugin-svelte';
+import { defineConfig } from 'eslint/config';
+import globals from 'globals';
+import ts from 'typescript-eslint';
+import svelteConfig from './svelte.config.js';
+
+const gitignorePath = fileURLToPath(new URL('./.gitignore', import.meta.url));
+const prettierignorePath = fileURLToPath(new URL('./.prettierignore', import.meta.url));
+
+export default defineConfig(
+	includeIgnoreFile(gitignorePath),
+	includeIgnoreFile(prettierignorePath),
+	js.configs.recommended,
+	...ts.configs.recommended,
+	...svelte.configs.recommended,
+	prettier,
+	...svelte.configs.prettier,
+	{
+		languageOptions: {
+			globals: { ...globals.browser, ...globals.node }
+		},
+		rules: {
+			// typescript-eslint strongly recommend that you do not use the no-undef lint rule on TypeScript projects.
+			// see: https://typescript-eslint.io/troubleshooting/faqs/eslint/#i-get-errors-from-the-no-undef-rule-about-global-variables-not-being-defined-even-though-there-are-no-typescript-errors
+			'no-undef': 'off',
+			// A leading underscore marks a binding kept on purpose: a field left out of a rest copy, an
+			// unused parameter before a used one.
+			'@typescript-eslint/no-unused-vars': [
+				'error',
+				{ argsIgnorePattern: '^_', varsIgnorePattern: '^_', destructuredArrayIgnorePattern: '^_' }
+			],
+			// The app is served from the root (no `paths.base`), so a plain href is already the right
+			// URL; calls to goto() and history changes are still checked.
+			'svelte/no-navigation-without-resolve': ['error', { ignoreLinks: true }],
+			// `{' '}` is how the markup keeps a space Svelte would trim at the start of a block or line.
+			'svelte/no-useless-mustaches': 'off'
+		}
+	},
+	{
+		files: ['**/*.svelte', '**/*.svelte.ts', '**/*.svelte.js'],
+		languageOptions: {
+			parserOptions: {
+				projectService: true,
+				extraFileExtensions: ['.svelte'],
+				parser: ts.parser,
+				svelteConfig
+			}
+		}
+	}
+);
