@@ -17,6 +17,8 @@ const prettierignorePath = fileURLToPath(new URL('./.prettierignore', import.met
 export default defineConfig(
 	includeIgnoreFile(gitignorePath),
 	includeIgnoreFile(prettierignorePath),
+	// The bare one-page app the load script compares against: not part of this project's code.
+	{ ignores: ['scripts/bare/**'] },
 	js.configs.recommended,
 	...ts.configs.recommended,
 	...svelte.configs.recommended,
