@@ -10,7 +10,7 @@ const config = {
 		// src/lib/server/csrf.ts (a hook), which does what SvelteKit's does but also takes a mail
 		// program's one-click unsubscribe post (RFC 8058) at the stop link; '*' hands the check over.
 		csrf: { trustedOrigins: ['*'] },
-		// The offline worker is registered by a plan's layout, scoped to /plans/, not on every page.
+		// The offline worker is registered by a plan's layout (scope /, answering only for plan pages), not on every page.
 		serviceWorker: { register: false },
 		// SvelteKit adds a nonce (server-rendered pages) or hash (prerendered) to its own scripts; no
 		// other inline script runs. Inline styles stay allowed: Svelte's style: directives use them.

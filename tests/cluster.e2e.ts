@@ -1,11 +1,13 @@
 // Two app servers behind nginx on one PostgreSQL and one S3-compatible store (scripts/lib/cluster.mjs,
 // what `npm run cluster` starts): whatever one server does, the other sees. nginx tells which server
 // answered in X-Stakeline-Upstream, so each check makes sure both took part.
-// (Migrations started by two servers at once: src/lib/server/migrate.integration.spec.ts.)
+// (Migrations started by two servers at once: src/lib/server/migrate.integration.spec.ts; curing
+// reminders with two workers: src/lib/server/reminders.integration.spec.ts.)
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { expect, request as playwrightRequest, test, type APIRequestContext, type APIResponse } from '@playwright/test';
+import postgres from 'postgres';
 import sharp from 'sharp';
 import { startCluster } from '../scripts/lib/cluster.mjs';
 import { killDrill } from '../scripts/lib/cluster-drill.mjs';
@@ -125,6 +127,35 @@ test('the sign-in throttle counts attempts on both servers together, whatever ad
 		expect(body.status, `attempt ${n} on ${upstream(r)}`).toBe(429);
 		expect(JSON.stringify(body.data)).toContain('Too many sign-in attempts');
 	}
+	await api.dispose();
+});
+
+test('mail queued through both servers is sent once each, whichever worker takes it', async () => {
+	const api = await playwrightRequest.newContext({ baseURL: cluster.url });
+	const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+	const emails = Array.from({ length: 8 }, (_, i) => uniqueEmail(`cluster-mail-${i}`));
+	const servedBy = new Set<string>();
+	// Each sign-up queues a confirmation mail in the transaction that makes the account; every app
+	// server runs a job worker on the shared queue, so both compete for each mail.
+	for (const [i, email] of emails.entries()) {
+		const r = await api.post('/signup', {
+			form: { role: 'homeowner', name: `Queue Test ${i}`, email, password: 'two-workers-one-mail', redirectTo: '' },
+			headers: { origin: cluster.url, 'x-sveltekit-action': 'true', 'x-forwarded-for': `198.51.100.${100 + i}` },
+			maxRedirects: 0
+		});
+		expect(r.status(), `sign-up ${i}`).toBe(200);
+		servedBy.add(upstream(r));
+	}
+	expect([...servedBy].sort()).toEqual(appAddresses().sort());
+	const counts = async () => {
+		const rows = await sql<{ to: string; n: number }[]>`SELECT "to", count(*)::int AS n FROM dev_mail WHERE "to" IN ${sql(emails)} AND subject LIKE 'Confirm%' GROUP BY "to"`;
+		return emails.map((e) => rows.find((r) => r.to === e)?.n ?? 0);
+	};
+	await expect.poll(counts, { timeout: 60_000 }).toEqual(emails.map(() => 1));
+	// A second sender would come late, after the first: still one each a few seconds on.
+	await new Promise((r) => setTimeout(r, 3_000));
+	expect(await counts()).toEqual(emails.map(() => 1));
+	await sql.end();
 	await api.dispose();
 });
 
