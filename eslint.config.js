@@ -34,10 +34,7 @@ export default defineConfig(
 			'no-undef': 'off',
 			// A leading underscore marks a binding kept on purpose: a field left out of a rest copy, an
 			// unused parameter before a used one.
-			'@typescript-eslint/no-unused-vars': [
-				'error',
-				{ argsIgnorePattern: '^_', varsIgnorePattern: '^_', destructuredArrayIgnorePattern: '^_' }
-			],
+			'@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', destructuredArrayIgnorePattern: '^_' }],
 			// The app is served from the root (no `paths.base`), so a plain href is already the right
 			// URL; calls to goto() and history changes are still checked.
 			'svelte/no-navigation-without-resolve': ['error', { ignoreLinks: true }],

@@ -111,7 +111,9 @@ const runs = Number(opt.runs);
 const [{ c: contractors }] = await sql`select count(*)::int c from contractor`;
 const [{ p: plans }] = await sql`select count(*)::int p from plan`;
 const [{ l: leads }] = await sql`select count(*)::int l from lead`;
-console.log(`\n${contractors.toLocaleString('en-US')} contractors, ${plans.toLocaleString('en-US')} plans, ${leads.toLocaleString('en-US')} leads; ${runs} runs of each query\n`);
+console.log(
+	`\n${contractors.toLocaleString('en-US')} contractors, ${plans.toLocaleString('en-US')} plans, ${leads.toLocaleString('en-US')} leads; ${runs} runs of each query\n`
+);
 const large = ['contractor', 'plan', 'lead', 'user', 'lead_message', 'bid'];
 for (const [name, [text, args]] of Object.entries(queries)) {
 	const times = [];
@@ -128,7 +130,9 @@ for (const [name, [text, args]] of Object.entries(queries)) {
 	walk(plan.Plan, (node) => {
 		if (node['Node Type'] === 'Seq Scan' && large.includes(node['Relation Name'])) seq.push(node['Relation Name']);
 	});
-	console.log(`${name}\n  median ${times[times.length >> 1].toFixed(2)} ms, p95 ${p95.toFixed(2)} ms${seq.length ? `, SEQUENTIAL SCAN on ${seq.join(', ')}` : ', index scans only'}`);
+	console.log(
+		`${name}\n  median ${times[times.length >> 1].toFixed(2)} ms, p95 ${p95.toFixed(2)} ms${seq.length ? `, SEQUENTIAL SCAN on ${seq.join(', ')}` : ', index scans only'}`
+	);
 	const lines = await sql.unsafe(`explain (analyze, costs off, timing off, summary off) ${text}`, args);
 	for (const r of lines) console.log(`    ${r['QUERY PLAN']}`);
 	console.log('');

@@ -40,7 +40,8 @@ for (const [name, input, n] of [
 	let total = 0;
 	const walk = (node, owner) => {
 		const f = node.callFrame;
-		const mine = f.url.includes('engine-alloc') && (f.functionName || anon) ? `${f.functionName || '(anonymous)'} (${path.basename(f.url)}:${f.lineNumber + 1})` : owner;
+		const mine =
+			f.url.includes('engine-alloc') && (f.functionName || anon) ? `${f.functionName || '(anonymous)'} (${path.basename(f.url)}:${f.lineNumber + 1})` : owner;
 		if (node.selfSize) {
 			total += node.selfSize;
 			byFn.set(mine, (byFn.get(mine) ?? 0) + node.selfSize);

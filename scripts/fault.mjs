@@ -40,7 +40,13 @@ if (!base) {
 	if (s.useFakeMail) background(node, [path.join(root, 'scripts', 'mail-fake.mjs')], { env, stdio: ['ignore', 'ignore', 'inherit'] });
 	background(node, [path.join(root, 'build')], { env, stdio: ['ignore', 'ignore', 'inherit'] });
 	for (let i = 0; ; i++) {
-		if (await fetch(`${base}/healthz`).then((r) => r.ok, () => false)) break;
+		if (
+			await fetch(`${base}/healthz`).then(
+				(r) => r.ok,
+				() => false
+			)
+		)
+			break;
 		if (i > 100) throw new Error('The app did not start');
 		await sleep(200);
 	}
@@ -69,12 +75,29 @@ for (let i = 0; !token; i++) {
 	token = m?.text.match(/verify-email\?token=([\w=-]+)/)?.[1] ?? null;
 }
 await mailDb.end();
-const confirm = await fetch(`${base}/verify-email`, { method: 'POST', body: new URLSearchParams({ token, next: '' }), redirect: 'manual', headers: formHeaders });
+const confirm = await fetch(`${base}/verify-email`, {
+	method: 'POST',
+	body: new URLSearchParams({ token, next: '' }),
+	redirect: 'manual',
+	headers: formHeaders
+});
 const cookie = (confirm.headers.getSetCookie?.() ?? []).map((c) => c.split(';')[0]).join('; ');
 if (!cookie) throw new Error(`Following the confirmation link gave no session (status ${confirm.status})`);
 const headers = { cookie, origin: base, 'content-type': 'application/json' };
 
-const input = { units: 'imperial', sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }] };
+const input = {
+	units: 'imperial',
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[12, 0],
+				[12, 10],
+				[0, 10]
+			]
+		}
+	]
+};
 let phase = 'steady';
 let stopping = false;
 const writes = [];
@@ -116,7 +139,10 @@ log(`Stopping PostgreSQL for ${OUTAGE_MS / 1000} s`);
 phase = 'stopping';
 await ctl('stop');
 phase = 'down';
-const health = await fetch(`${base}/healthz`).then(async (r) => ({ status: r.status, body: await r.json() }), (e) => ({ status: 0, body: String(e) }));
+const health = await fetch(`${base}/healthz`).then(
+	async (r) => ({ status: r.status, body: await r.json() }),
+	(e) => ({ status: 0, body: String(e) })
+);
 await sleep(OUTAGE_MS);
 phase = 'starting';
 await ctl('start');
@@ -181,7 +207,8 @@ console.log(JSON.stringify(tally, null, 2));
 const problems = [];
 if (lost.length) problems.push(`${lost.length} acknowledged writes are not stored`);
 if (!downWrites.length) problems.push('no write was attempted while the database was down');
-if (wrongDown.length) problems.push(`${wrongDown.length} writes during the outage did not get 503 with Retry-After (${[...new Set(wrongDown.map((w) => w.status))]})`);
+if (wrongDown.length)
+	problems.push(`${wrongDown.length} writes during the outage did not get 503 with Retry-After (${[...new Set(wrongDown.map((w) => w.status))]})`);
 if (slowFailures.length) problems.push(`${slowFailures.length} failed writes took over ${FAST_MS} ms`);
 if (serverErrors.length) problems.push(`${serverErrors.length} answers were 5xx other than 503`);
 if (recoveryMs > RECOVERY_MS) problems.push(`writes succeeded again only after ${recoveryMs} ms`);

@@ -20,7 +20,11 @@ const svg = (round, pad = 0) => {
 };
 
 fs.writeFileSync(path.join(out, 'icon.svg'), svg(true));
-const png = (s, size, name) => sharp(Buffer.from(s), { density: (72 * size) / 32 }).resize(size, size).png().toFile(path.join(out, name));
+const png = (s, size, name) =>
+	sharp(Buffer.from(s), { density: (72 * size) / 32 })
+		.resize(size, size)
+		.png()
+		.toFile(path.join(out, name));
 await png(svg(true), 192, 'icon-192.png');
 await png(svg(true), 512, 'icon-512.png');
 await png(svg(false, 4), 512, 'icon-maskable-512.png');

@@ -32,7 +32,10 @@ const { values: opt } = parseArgs({
 		'bare-port': { type: 'string', default: '' }
 	}
 });
-const routes = opt.routes.split(',').map((r) => r.trim()).filter(Boolean);
+const routes = opt.routes
+	.split(',')
+	.map((r) => r.trim())
+	.filter(Boolean);
 for (const r of routes) if (!ROUTES.includes(r)) fail(`Unknown route "${r}"; choose from ${ROUTES.join(', ')}.`);
 const duration = Number(opt.duration);
 const warmup = Number(opt.warmup);
@@ -121,7 +124,11 @@ if (bad.length) console.log(`Errors or non-2xx answers on: ${bad.map((r) => `${r
 stopAll();
 if (opt.profile) {
 	await new Promise((r) => app.once('exit', r));
-	const newest = fs.readdirSync(profDir).filter((f) => f.endsWith('.cpuprofile')).map((f) => path.join(profDir, f)).sort((a, b) => fs.statSync(b).mtimeMs - fs.statSync(a).mtimeMs)[0];
+	const newest = fs
+		.readdirSync(profDir)
+		.filter((f) => f.endsWith('.cpuprofile'))
+		.map((f) => path.join(profDir, f))
+		.sort((a, b) => fs.statSync(b).mtimeMs - fs.statSync(a).mtimeMs)[0];
 	if (newest) {
 		console.log(`\nCPU profile: ${path.relative(root, newest)} (open in Chrome DevTools → Performance)`);
 		printProfile(newest);
@@ -165,12 +172,27 @@ function exampleEstimate() {
 	return {
 		units: 'imperial',
 		name: 'Back patio',
-		sections: [{ name: 'Patio', outline: [[0, 0], [16, 0], [16, 12], [0, 12]] }],
+		sections: [
+			{
+				name: 'Patio',
+				outline: [
+					[0, 0],
+					[16, 0],
+					[16, 12],
+					[0, 12]
+				]
+			}
+		],
 		houseEdge: { section: 0, edge: 0 },
 		reference: { label: 'kitchen door sill', below: 1.5 },
 		slope: { fall: { value: 0.25, unit: 'inPerFt' } },
 		thickness: 4,
-		bags: { offered: [{ size: 80, price: 6.4 }, { size: 60, price: 5.1 }] },
+		bags: {
+			offered: [
+				{ size: 80, price: 6.4 },
+				{ size: 60, price: 5.1 }
+			]
+		},
 		readyMix: { price: 185, minimum: 3, shortLoadFee: 75 },
 		crew: { people: 3, method: 'drum' },
 		conditions: { airTemp: [75, 72, 70], humidity: 45, wind: 6, pourDate: '2027-05-15' }
@@ -251,7 +273,12 @@ function printProfile(file) {
 	const files = new Map();
 	for (const [id, us] of self) {
 		const f = byId.get(id).callFrame;
-		const where = f.url ? f.url.replace(/^file:\/\//, '').replace(root + '/', '').replace(/node_modules\/((@[^/]+\/)?[^/]+).*/, '$1') : `(${f.functionName || 'native'})`;
+		const where = f.url
+			? f.url
+					.replace(/^file:\/\//, '')
+					.replace(root + '/', '')
+					.replace(/node_modules\/((@[^/]+\/)?[^/]+).*/, '$1')
+			: `(${f.functionName || 'native'})`;
 		const key = `${f.functionName || '(anonymous)'}  ${where}${f.url ? `:${f.lineNumber + 1}` : ''}`;
 		fns.set(key, (fns.get(key) ?? 0) + us);
 		files.set(where, (files.get(where) ?? 0) + us);

@@ -20,7 +20,13 @@ const server = new SMTPServer({
 				const list = Object.fromEntries(
 					mail.headerLines
 						.filter((h) => h.key.startsWith('list-'))
-						.map((h) => [h.key, h.line.slice(h.line.indexOf(':') + 1).replace(/\r?\n[ \t]+/g, ' ').trim()])
+						.map((h) => [
+							h.key,
+							h.line
+								.slice(h.line.indexOf(':') + 1)
+								.replace(/\r?\n[ \t]+/g, ' ')
+								.trim()
+						])
 				);
 				await sql`
 					INSERT INTO dev_mail ("from", "to", subject, text, html, headers)

@@ -22,7 +22,12 @@ async function post(path, fields) {
 }
 
 const median = (xs) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
-const row = (label, samples) => console.log(`${label.padEnd(40)} median ${median(samples.map((s) => s.ms)).toFixed(1).padStart(6)} ms  statuses ${[...new Set(samples.map((s) => s.status))].join(',')}`);
+const row = (label, samples) =>
+	console.log(
+		`${label.padEnd(40)} median ${median(samples.map((s) => s.ms))
+			.toFixed(1)
+			.padStart(6)} ms  statuses ${[...new Set(samples.map((s) => s.status))].join(',')}`
+	);
 
 const emails = Array.from({ length: rounds }, (_, i) => `timing-${run}-${i}@measure.stakeline.test`);
 const signUp = (email) => post('/signup', { name: 'Timing Check', email, password: 'timing-password-1', role: 'homeowner' });

@@ -74,7 +74,16 @@ function arrays(v) {
 // ---- provider-shaped objects ----
 
 function customerObject(c) {
-	return { id: c.id, object: 'customer', created: c.created, email: c.email ?? null, name: c.name ?? null, metadata: c.metadata ?? {}, livemode: false, deleted: undefined };
+	return {
+		id: c.id,
+		object: 'customer',
+		created: c.created,
+		email: c.email ?? null,
+		name: c.name ?? null,
+		metadata: c.metadata ?? {},
+		livemode: false,
+		deleted: undefined
+	};
 }
 
 function sessionObject(s) {
@@ -125,7 +134,14 @@ function subscriptionObject(s) {
 					current_period_start: s.period_start,
 					current_period_end: s.period_end,
 					quantity: 1,
-					price: { id: s.price_id, object: 'price', currency: s.currency, unit_amount: s.amount, recurring: { interval: 'month', interval_count: 1 }, product: s.product_id }
+					price: {
+						id: s.price_id,
+						object: 'price',
+						currency: s.currency,
+						unit_amount: s.amount,
+						recurring: { interval: 'month', interval_count: 1 },
+						product: s.product_id
+					}
 				}
 			]
 		},
@@ -134,7 +150,9 @@ function subscriptionObject(s) {
 }
 
 function invoiceObject(i) {
-	const lines = i.lines ?? [{ id: `il_${i.id.slice(3)}`, amount: i.amount, description: i.description, period_start: i.period_start, period_end: i.period_end }];
+	const lines = i.lines ?? [
+		{ id: `il_${i.id.slice(3)}`, amount: i.amount, description: i.description, period_start: i.period_start, period_end: i.period_end }
+	];
 	return {
 		id: i.id,
 		object: 'invoice',
@@ -156,7 +174,16 @@ function invoiceObject(i) {
 			object: 'list',
 			has_more: false,
 			url: `/v1/invoices/${i.id}/lines`,
-			data: lines.map((l) => ({ id: l.id, object: 'line_item', amount: l.amount, currency: i.currency, description: l.description, metadata: l.metadata ?? {}, period: { start: l.period_start, end: l.period_end }, quantity: 1 }))
+			data: lines.map((l) => ({
+				id: l.id,
+				object: 'line_item',
+				amount: l.amount,
+				currency: i.currency,
+				description: l.description,
+				metadata: l.metadata ?? {},
+				period: { start: l.period_start, end: l.period_end },
+				quantity: 1
+			}))
 		},
 		livemode: false
 	};
@@ -191,7 +218,14 @@ function subscriptionInvoice(sub, { status, withPlan = true }) {
 	const items = pendingItems(sub.customer, sub.id);
 	const lines = [
 		...(withPlan ? [{ id: newId('il'), amount: sub.amount, description: sub.description, period_start: sub.period_start, period_end: sub.period_end }] : []),
-		...items.map((ii) => ({ id: newId('il'), amount: ii.amount, description: ii.description, metadata: ii.metadata, period_start: ii.date, period_end: ii.date }))
+		...items.map((ii) => ({
+			id: newId('il'),
+			amount: ii.amount,
+			description: ii.description,
+			metadata: ii.metadata,
+			period_start: ii.date,
+			period_end: ii.date
+		}))
 	];
 	const inv = makeInvoice(sub.customer, {
 		amount: lines.reduce((sum, l) => sum + l.amount, 0),
@@ -237,7 +271,17 @@ function sign(payload, t = now()) {
 
 /** Posts one event, signed; failed deliveries are retried a few times in the background. */
 async function emit(type, object) {
-	const event = { id: newId('evt'), object: 'event', api_version: API_VERSION, created: now(), type, data: { object }, livemode: false, pending_webhooks: 1, request: { id: null, idempotency_key: null } };
+	const event = {
+		id: newId('evt'),
+		object: 'event',
+		api_version: API_VERSION,
+		created: now(),
+		type,
+		data: { object },
+		livemode: false,
+		pending_webhooks: 1,
+		request: { id: null, idempotency_key: null }
+	};
 	const payload = JSON.stringify(event);
 	if (!(await deliver(payload))) outbox.push({ payload, tries: 1 });
 	return event;
@@ -290,7 +334,15 @@ async function completeSession(s, { failRenewals }) {
 			metadata: s.subscription_data?.metadata ?? {}
 		};
 		state.subscriptions[sub.id] = sub;
-		const inv = makeInvoice(s.customer, { amount: sub.amount, currency: sub.currency, description: sub.description, subscription: sub.id, periodStart: sub.period_start, periodEnd: sub.period_end, status: 'paid' });
+		const inv = makeInvoice(s.customer, {
+			amount: sub.amount,
+			currency: sub.currency,
+			description: sub.description,
+			subscription: sub.id,
+			periodStart: sub.period_start,
+			periodEnd: sub.period_end,
+			status: 'paid'
+		});
 		sub.latest_invoice = inv.id;
 		Object.assign(s, { status: 'complete', payment_status: 'paid', subscription: sub.id, invoice: inv.id });
 		save();
@@ -298,7 +350,14 @@ async function completeSession(s, { failRenewals }) {
 		await emit('invoice.paid', invoiceObject(inv));
 	} else if (s.mode === 'payment') {
 		const li = s.line_items?.[0] ?? {};
-		const inv = makeInvoice(s.customer, { amount: s.amount_total, currency: s.currency ?? li.price_data?.currency ?? 'usd', description: li.price_data?.product_data?.name ?? 'Payment', periodStart: t, periodEnd: t, status: 'paid' });
+		const inv = makeInvoice(s.customer, {
+			amount: s.amount_total,
+			currency: s.currency ?? li.price_data?.currency ?? 'usd',
+			description: li.price_data?.product_data?.name ?? 'Payment',
+			periodStart: t,
+			periodEnd: t,
+			status: 'paid'
+		});
 		Object.assign(s, { status: 'complete', payment_status: 'paid', invoice: inv.id });
 		save();
 		await emit('checkout.session.completed', sessionObject(s));
@@ -337,7 +396,9 @@ async function renew(sub, outcome) {
 async function end(sub) {
 	Object.assign(sub, { status: 'canceled', canceled_at: now(), ended_at: now() });
 	// Invoice items still waiting for this subscription are billed on a final invoice.
-	const final = pendingItems(sub.customer, sub.id).length ? subscriptionInvoice(sub, { status: state.customers[sub.customer]?.failRenewals ? 'open' : 'paid', withPlan: false }) : null;
+	const final = pendingItems(sub.customer, sub.id).length
+		? subscriptionInvoice(sub, { status: state.customers[sub.customer]?.failRenewals ? 'open' : 'paid', withPlan: false })
+		: null;
 	save();
 	await emit('customer.subscription.deleted', subscriptionObject(sub));
 	if (final) await emit(final.status === 'paid' ? 'invoice.paid' : 'invoice.payment_failed', invoiceObject(final));
@@ -440,7 +501,17 @@ async function api(method, path, query, body) {
 			if (sub.customer !== body.customer) throw new ApiError(400, 'The subscription belongs to another customer.', 'subscription');
 			if (sub.status === 'canceled') throw new ApiError(400, `Subscription ${sub.id} has ended.`, 'subscription');
 		}
-		const ii = { id: newId('ii'), customer: body.customer, subscription: body.subscription ?? null, amount, currency: body.currency, description: body.description ?? null, metadata: body.metadata ?? {}, date: now(), invoice: null };
+		const ii = {
+			id: newId('ii'),
+			customer: body.customer,
+			subscription: body.subscription ?? null,
+			amount,
+			currency: body.currency,
+			description: body.description ?? null,
+			metadata: body.metadata ?? {},
+			date: now(),
+			invoice: null
+		};
 		state.invoiceItems[ii.id] = ii;
 		save();
 		return invoiceItemObject(ii);
@@ -488,7 +559,11 @@ table{width:100%;border-collapse:collapse;font-size:.9rem}td,th{text-align:left;
 }
 
 function payPage(s) {
-	if (s.status !== 'open') return page('Payment closed', `<h1>This payment is closed</h1><p>It was ${s.status === 'complete' ? 'completed' : 'cancelled'} already.</p><p><a href="${esc(s.success_url.replace('{CHECKOUT_SESSION_ID}', s.id))}">Back to Stakeline</a></p>`);
+	if (s.status !== 'open')
+		return page(
+			'Payment closed',
+			`<h1>This payment is closed</h1><p>It was ${s.status === 'complete' ? 'completed' : 'cancelled'} already.</p><p><a href="${esc(s.success_url.replace('{CHECKOUT_SESSION_ID}', s.id))}">Back to Stakeline</a></p>`
+		);
 	const what = s.mode === 'setup' ? 'Save a new card for your Stakeline plan' : esc(s.line_items?.[0]?.price_data?.product_data?.name ?? 'Payment');
 	const sum = s.mode === 'setup' ? '' : `<p class="amount">${esc(dollars(s.amount_total, s.currency))}${s.mode === 'subscription' ? ' a month' : ''}</p>`;
 	return page(
@@ -507,11 +582,15 @@ function controlPage() {
 	const rows = Object.values(state.subscriptions)
 		.map((s) => {
 			const c = state.customers[s.customer];
-			const btn = (url, label, extra = '') => `<form method="post" action="${url}" style="display:inline"><input type="hidden" name="subscription" value="${esc(s.id)}">${extra}<button type="submit">${label}</button></form>`;
+			const btn = (url, label, extra = '') =>
+				`<form method="post" action="${url}" style="display:inline"><input type="hidden" name="subscription" value="${esc(s.id)}">${extra}<button type="submit">${label}</button></form>`;
 			return `<tr><td>${esc(c?.email ?? s.customer)}</td><td>${esc(s.status)}${s.cancel_at_period_end ? ' (ends at period end)' : ''}</td><td>${s.status === 'canceled' ? '' : btn('/_fake/renew', 'Next month: pays', '<input type="hidden" name="outcome" value="paid">') + btn('/_fake/renew', 'Next month: declined', '<input type="hidden" name="outcome" value="failed">') + btn('/_fake/end', 'End now')}</td></tr>`;
 		})
 		.join('');
-	return page('Fake payments', `<h1>Subscriptions in the fake</h1><table><tr><th>Customer</th><th>Status</th><th></th></tr>${rows || '<tr><td colspan="3">None yet.</td></tr>'}</table>`);
+	return page(
+		'Fake payments',
+		`<h1>Subscriptions in the fake</h1><table><tr><th>Customer</th><th>Status</th><th></th></tr>${rows || '<tr><td colspan="3">None yet.</td></tr>'}</table>`
+	);
 }
 
 const server = http.createServer(async (req, res) => {
@@ -576,7 +655,10 @@ const server = http.createServer(async (req, res) => {
 		}
 		json(res, 404, { error: { type: 'invalid_request_error', message: `Unrecognized request URL (${req.method}: ${path}).` } });
 	} catch (err) {
-		if (err instanceof ApiError) return json(res, err.status, { error: { type: 'invalid_request_error', message: err.message, param: err.param, code: err.status === 404 ? 'resource_missing' : undefined } });
+		if (err instanceof ApiError)
+			return json(res, err.status, {
+				error: { type: 'invalid_request_error', message: err.message, param: err.param, code: err.status === 404 ? 'resource_missing' : undefined }
+			});
 		console.error('payments fake:', err);
 		json(res, 500, { error: { type: 'api_error', message: 'The fake failed; see its log.' } });
 	}

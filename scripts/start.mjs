@@ -21,7 +21,8 @@ const env = { ...process.env, ...s.env };
 const children = [];
 if (s.useFakeMail) children.push(background(node, [path.join(root, 'scripts', 'mail-fake.mjs')], { env }));
 if (s.useFakePayments) {
-	if (!(await portFree('127.0.0.1', s.paymentsPort))) fail(`Port ${s.paymentsPort} (the fake payment provider) is in use; stop what uses it or set PAYMENTS_FAKE_PORT.`);
+	if (!(await portFree('127.0.0.1', s.paymentsPort)))
+		fail(`Port ${s.paymentsPort} (the fake payment provider) is in use; stop what uses it or set PAYMENTS_FAKE_PORT.`);
 	children.push(background(node, [path.join(root, 'scripts', 'payments-fake.mjs')], { env }));
 }
 const app = dev

@@ -40,11 +40,10 @@ try {
 		run(bin('svelte-kit'), ['sync'], opts);
 		run(bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings'], opts);
 	});
-	// ESLint (and Prettier's check, once `npm run lint` runs it): everything, or only the named files.
+	// Prettier's check and ESLint: everything, or (ESLint only) the named files.
 	if (all) step('Lint (npm run lint)', () => run('npm', ['run', '--silent', 'lint'], opts));
 	else step('Lint (eslint, the named files)', () => run(bin('eslint'), ['--cache', '--cache-location', 'node_modules/.cache/eslint/', ...files], opts));
-	if (all || unitFiles.length)
-		step('Unit and integration tests (vitest)', () => run(bin('vitest'), ['run', ...unitFiles], opts));
+	if (all || unitFiles.length) step('Unit and integration tests (vitest)', () => run(bin('vitest'), ['run', ...unitFiles], opts));
 	if (all || e2eFiles.length) {
 		step('Build', () => build({ force: true, devMailbox: s.useFakeMail }));
 		step('End-to-end tests (playwright)', () => run(bin('playwright'), ['test', ...e2eFiles], opts));

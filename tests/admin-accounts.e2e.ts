@@ -89,7 +89,10 @@ test('an admin disables a homeowner with a reason: sessions end, sign-in refused
 	await page.getByRole('button', { name: 'Show' }).click();
 	await expect(page.getByText('The “From” day is after the “To” day')).toBeVisible();
 	await page.getByRole('link', { name: 'Clear filters' }).click();
-	await audit.getByRole('link', { name: new RegExp(owner.name) }).first().click();
+	await audit
+		.getByRole('link', { name: new RegExp(owner.name) })
+		.first()
+		.click();
 
 	// Enabling: a reason again, then they can sign in.
 	await expect(page.getByRole('heading', { name: 'Enable the account' })).toBeVisible();

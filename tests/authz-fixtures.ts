@@ -64,7 +64,8 @@ export async function setUpMatrix(newContext: () => Promise<APIRequestContext>, 
 				INSERT INTO contractor_document (contractor_id, kind, storage_key, content_type, bytes, original_name)
 				VALUES (${u.id}, 'licence', ${key}, 'application/pdf', ${bytes.length}, 'licence.pdf') RETURNING id`;
 			doc[c] = d.id;
-			if (status[c] === 'approved' || c === 'suspended') await db`INSERT INTO billing_account (contractor_id, status, period_start, period_end) VALUES (${u.id}, 'active', now(), now() + interval '30 days')`;
+			if (status[c] === 'approved' || c === 'suspended')
+				await db`INSERT INTO billing_account (contractor_id, status, period_start, period_end) VALUES (${u.id}, 'active', now(), now() + interval '30 days')`;
 		}
 		const [admin] = await db`SELECT id FROM "user" WHERE email = ${demoUser('admin').email}`;
 		userId.admin = admin.id;
@@ -81,7 +82,11 @@ export async function setUpMatrix(newContext: () => Promise<APIRequestContext>, 
 			ctx[a] = await newContext();
 			if (a === 'anon') return;
 			const who = a === 'admin' ? demoUser('admin').email : email(a);
-			const res = await ctx[a].post('/signin', { form: { email: who, password: a === 'admin' ? demoPassword : PASSWORD }, headers: { origin: base, accept: 'text/html' }, maxRedirects: 0 });
+			const res = await ctx[a].post('/signin', {
+				form: { email: who, password: a === 'admin' ? demoPassword : PASSWORD },
+				headers: { origin: base, accept: 'text/html' },
+				maxRedirects: 0
+			});
 			expect(res.status(), `sign-in of ${a}: ${(await res.text()).slice(0, 300)}`).toBe(303);
 		})
 	);

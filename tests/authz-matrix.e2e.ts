@@ -122,7 +122,9 @@ const matrix: Record<string, Row[]> = {
 	'POST /plans/[id]/bids?/accept': [
 		r('/plans/{planA}/bids?/accept', x(303, 400, 404, 403, 403, 403, 403, 403), { form: {} }),
 		// Plan B's page, plan A's bid.
-		r('/plans/{planB}/bids?/accept', x(303, 404, 404, 403, 403, 403, 403, 403), { form: { bid: '{bidA}', siteAddress: '12 Alder Street, Albany', phone: '(541) 555-0100' } })
+		r('/plans/{planB}/bids?/accept', x(303, 404, 404, 403, 403, 403, 403, 403), {
+			form: { bid: '{bidA}', siteAddress: '12 Alder Street, Albany', phone: '(541) 555-0100' }
+		})
 	],
 	'POST /plans/[id]/bids?/done': [r('/plans/{planA}/bids?/done', x(303, 409, 404, 403, 403, 403, 403, 403), { form: {} })],
 	'POST /plans/[id]/bids?/reopen': [r('/plans/{planA}/bids?/reopen', x(303, 409, 404, 403, 403, 403, 403, 403), { form: {} })],
@@ -160,7 +162,9 @@ const matrix: Record<string, Row[]> = {
 	'POST /pro/leads/[id]?/message': [r('/pro/leads/{leadA}?/message', x(303, 403, 403, 403, 200, 404, 403, 403), { form: { body: 'Matrix reply' } })],
 	'POST /pro/leads/[id]?/withdraw': [r('/pro/leads/{leadA}?/withdraw', x(303, 403, 403, 403, 200, 404, 403, 403), { form: {}, last: true })],
 	// Runs after the withdraw above, so the lead's own contractor finds it closed (409).
-	'POST /pro/leads/[id]?/decline': [r('/pro/leads/{leadA}?/decline', x(303, 403, 403, 403, 409, 404, 403, 403), { form: { reason: 'Booked all season.' }, last: true })],
+	'POST /pro/leads/[id]?/decline': [
+		r('/pro/leads/{leadA}?/decline', x(303, 403, 403, 403, 409, 404, 403, 403), { form: { reason: 'Booked all season.' }, last: true })
+	],
 	// After the withdraw and decline above (last rows run in this order) plan A has no open lead left, so
 	// its owner is told there is nothing to close (409); closing an open request is in pro-lifecycle.e2e.ts.
 	'POST /plans/[id]/bids?/close': [r('/plans/{planA}/bids?/close', x(303, 409, 404, 403, 403, 403, 403, 403), { form: {}, last: true })],
@@ -231,7 +235,8 @@ function routesInFolder(): Map<string, 'page' | 'action' | 'server'> {
 				if (!names.length) throw new Error(`${p}: write its actions one per line, so this test can list them`);
 				for (const n of names) out.set(n === 'default' ? `POST ${route}` : `POST ${route}?/${n}`, 'action');
 			} else if (e.name === '+server.ts') {
-				for (const m of text().matchAll(/export\s+(?:const|async function|function)\s+(GET|POST|PUT|PATCH|DELETE|HEAD|OPTIONS|fallback)\b/g)) out.set(`${m[1]} ${route}`, 'server');
+				for (const m of text().matchAll(/export\s+(?:const|async function|function)\s+(GET|POST|PUT|PATCH|DELETE|HEAD|OPTIONS|fallback)\b/g))
+					out.set(`${m[1]} ${route}`, 'server');
 			}
 		}
 	};
@@ -245,7 +250,12 @@ function fill(s: string, a: Actor, fx: Fixtures): string {
 		if (k === 'myPlan') return a === 'ownerB' ? fx.planB : fx.planA;
 		if (k === 'otherPlan') return a === 'ownerA' ? fx.planB : fx.planA;
 		const [group, key] = k.split('.');
-		const v = group === 'doc' ? fx.doc[key as keyof Fixtures['doc']] : group === 'user' ? fx.userId[key as keyof Fixtures['userId']] : (fx as unknown as Record<string, string>)[k];
+		const v =
+			group === 'doc'
+				? fx.doc[key as keyof Fixtures['doc']]
+				: group === 'user'
+					? fx.userId[key as keyof Fixtures['userId']]
+					: (fx as unknown as Record<string, string>)[k];
 		if (!v) throw new Error(`Unknown placeholder {${k}}`);
 		return v;
 	});

@@ -19,7 +19,14 @@ async function fitsAndAxeClean(page: Page) {
 test('a contractor without a plan sees only what a lead is, pays for a plan on the payment page, and opens the lead', async ({ page }) => {
 	const errors = watchErrors(page);
 	const stamp = Date.now();
-	const pro = { name: 'Rhea Tamsin', email: uniqueEmail('billing'), password: 'pay-for-leads-7', business: `Tamsin Flatwork ${stamp}`, zip: '97321', plan: false };
+	const pro = {
+		name: 'Rhea Tamsin',
+		email: uniqueEmail('billing'),
+		password: 'pay-for-leads-7',
+		business: `Tamsin Flatwork ${stamp}`,
+		zip: '97321',
+		plan: false
+	};
 	await approvedNewContractor(page, pro);
 	// A homeowner's plan reaches the contractor as a lead (sending is covered in contractor-bid.e2e.ts).
 	const { id: planId, result } = await insertPlan(demoUser('homeowner').email, { name: `Garden path ${stamp}`, postcode: '97321' });
@@ -33,7 +40,10 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	// The lead is listed (town, scope, timing), its details are not.
 	await page.goto('/pro/leads');
 	await expect(page.getByTestId('leads-locked')).toBeVisible();
-	const row = page.getByTestId('lead-list').getByRole('listitem').filter({ hasText: `Garden path ${stamp}` });
+	const row = page
+		.getByTestId('lead-list')
+		.getByRole('listitem')
+		.filter({ hasText: `Garden path ${stamp}` });
 	await expect(row).toContainText('details need a plan');
 	await expect(row).toContainText('Albany, OR');
 	await row.getByRole('link').click();
@@ -54,7 +64,9 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await expect(page.getByText('nothing is charged')).toBeVisible();
 	await page.getByRole('button', { name: 'Cancel and go back' }).click();
 	await expect(page).toHaveURL(/\/pro\/billing\?checkout=cancelled$/);
-	await expect(page.getByRole('status').filter({ hasText: 'You left the payment page without paying; nothing was charged and nothing changed.' })).toBeVisible();
+	await expect(
+		page.getByRole('status').filter({ hasText: 'You left the payment page without paying; nothing was charged and nothing changed.' })
+	).toBeVisible();
 	await expect(page.getByTestId('billing-status')).toHaveText('No plan');
 
 	// Again, and pay this time.
@@ -126,7 +138,9 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await notices.getByRole('button', { name: 'Save e-mail choices' }).click();
 	await expect(notices.getByText('Saved.')).toBeVisible();
 	await page.reload({ waitUntil: 'networkidle' });
-	await expect(page.getByRole('region', { name: 'E-mail notices' }).getByLabel('Billing receipts (plan started, monthly payment received, lead credits added)')).not.toBeChecked();
+	await expect(
+		page.getByRole('region', { name: 'E-mail notices' }).getByLabel('Billing receipts (plan started, monthly payment received, lead credits added)')
+	).not.toBeChecked();
 	await signOut(page);
 
 	// The admin sees the same state on the contractor's page.

@@ -14,7 +14,7 @@ test('the home page ships neither the engine nor its schema, and stays under 80 
 	expect(home - signin).toBeLessThan(10 * KB);
 });
 
-test('the wizard\'s first step stays under 80 kB of JavaScript: the engine and its schema load after it', async () => {
+test("the wizard's first step stays under 80 kB of JavaScript: the engine and its schema load after it", async () => {
 	const pages: Map<string, { bytes: number }> = await pageBundles();
 	// The engine and its zod schema load once the wizard is on screen (src/lib/planner/engine.svelte.ts);
 	// the first step needs neither. Both wizard pages get the same budget.

@@ -148,7 +148,9 @@ test('mail queued through both servers is sent once each, whichever worker takes
 	}
 	expect([...servedBy].sort()).toEqual(appAddresses().sort());
 	const counts = async () => {
-		const rows = await sql<{ to: string; n: number }[]>`SELECT "to", count(*)::int AS n FROM dev_mail WHERE "to" IN ${sql(emails)} AND subject LIKE 'Confirm%' GROUP BY "to"`;
+		const rows = await sql<
+			{ to: string; n: number }[]
+		>`SELECT "to", count(*)::int AS n FROM dev_mail WHERE "to" IN ${sql(emails)} AND subject LIKE 'Confirm%' GROUP BY "to"`;
 		return emails.map((e) => rows.find((r) => r.to === e)?.n ?? 0);
 	};
 	await expect.poll(counts, { timeout: 60_000 }).toEqual(emails.map(() => 1));
@@ -171,7 +173,9 @@ test('a photo uploaded through one server is read through the other, from the sh
 	});
 	expect(signIn.status()).toBe(303);
 
-	const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#a3b899' } }).jpeg().toBuffer();
+	const photo = await sharp({ create: { width: 640, height: 480, channels: 3, background: '#a3b899' } })
+		.jpeg()
+		.toBuffer();
 	const upload = await api.post(`/plans/${planId}/photos`, {
 		multipart: { photo: { name: 'walk.jpg', mimeType: 'image/jpeg', buffer: photo } },
 		headers: { origin: cluster.url }

@@ -17,7 +17,9 @@ test('a contractor onboards with documents, an admin approves, and only they two
 	// An insurance date already past is refused: an expired certificate cannot be sent for review.
 	await page.getByLabel('Insurance expires on').fill('2020-05-31');
 	// Text with a .pdf name and type is refused by its content; the other values stay.
-	await page.getByLabel('Licence document').setInputFiles({ name: 'licence.pdf', mimeType: 'application/pdf', buffer: Buffer.from('only words, no PDF here\n') });
+	await page
+		.getByLabel('Licence document')
+		.setInputFiles({ name: 'licence.pdf', mimeType: 'application/pdf', buffer: Buffer.from('only words, no PDF here\n') });
 	await page.getByLabel('Insurance certificate').setInputFiles(await pngCertificate());
 	await page.getByRole('button', { name: 'Send for review' }).click();
 	await expect(page.locator('#field-licence-error')).toHaveText(/must be a PDF, a JPEG, a PNG, or a WebP image; this file is not one of them/);

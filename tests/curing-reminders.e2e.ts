@@ -106,7 +106,9 @@ test('a mail program stops the reminders with one click (RFC 8058); other cross-
 		await sql`UPDATE graphile_worker._private_jobs SET run_at = now() WHERE key = ${`curing:${id}:${days[0].date}`}`;
 		let headers: Record<string, string> = {};
 		await expect(async () => {
-			const [m] = await sql<{ headers: Record<string, string> | null }[]>`SELECT headers FROM dev_mail WHERE "to" = ${email} AND text LIKE '%Curing reminder for One-click pad%'`;
+			const [m] = await sql<
+				{ headers: Record<string, string> | null }[]
+			>`SELECT headers FROM dev_mail WHERE "to" = ${email} AND text LIKE '%Curing reminder for One-click pad%'`;
 			headers = m?.headers ?? {};
 			expect(headers['list-unsubscribe']).toBeTruthy();
 		}).toPass({ timeout: 60_000 });

@@ -22,7 +22,10 @@ function formActions(): { route: string; action: string }[] {
 				const block = text.split('export const actions')[1];
 				if (!block) continue;
 				const body = block.slice(0, block.search(/\n\}/));
-				const route = path.dirname(path.relative('src/routes', p)).replace(/\([^)]*\)\/?/g, '').replace(/\/$/, '');
+				const route = path
+					.dirname(path.relative('src/routes', p))
+					.replace(/\([^)]*\)\/?/g, '')
+					.replace(/\/$/, '');
 				for (const m of body.matchAll(/^\t(\w+)\s*[:(]/gm)) out.push({ route: `/${route}`.replace(/\/$/, '') || '/', action: m[1] });
 			}
 		}
@@ -75,7 +78,18 @@ const jsonBody = fc.oneof(
 	fc.record({ name: hostileString, input: fc.record({ units: hostileValue, sections: hostileValue }) }).map((o) => JSON.stringify(o)),
 	fc.integer({ min: 100, max: 5000 }).map((n) => '['.repeat(n) + ']'.repeat(n)),
 	fc.integer({ min: 100, max: 5000 }).map((n) => '{"a":'.repeat(n) + '1' + '}'.repeat(n)),
-	fc.constantFrom('NaN', '{"name":Infinity}', '{"revision":-Infinity}', '{"name":NaN}', '', '{', 'null', '"\\ud800"', '{"name":"\\u0000"}', '{"name":"a\\udc00"}'),
+	fc.constantFrom(
+		'NaN',
+		'{"name":Infinity}',
+		'{"revision":-Infinity}',
+		'{"name":NaN}',
+		'',
+		'{',
+		'null',
+		'"\\ud800"',
+		'{"name":"\\u0000"}',
+		'{"name":"a\\udc00"}'
+	),
 	fc.anything().map((v) => {
 		try {
 			return JSON.stringify(v) ?? 'undefined';
@@ -86,7 +100,31 @@ const jsonBody = fc.oneof(
 );
 
 /** Raw urlencoded form bodies: hostile values, unknown keys, invalid percent-escapes and UTF-8. */
-const formField = fc.constantFrom('name', 'email', 'password', 'newPassword', 'current', 'token', 'message', 'body', 'note', 'amount', 'price', 'days', 'id', 'planId', 'leadId', 'photoId', 'postcode', 'zips', 'services', 'redirectTo', 'role', 'reason', 'x');
+const formField = fc.constantFrom(
+	'name',
+	'email',
+	'password',
+	'newPassword',
+	'current',
+	'token',
+	'message',
+	'body',
+	'note',
+	'amount',
+	'price',
+	'days',
+	'id',
+	'planId',
+	'leadId',
+	'photoId',
+	'postcode',
+	'zips',
+	'services',
+	'redirectTo',
+	'role',
+	'reason',
+	'x'
+);
 const formValue = fc.oneof(
 	hostileString.map((s) => encodeURIComponent(s.replace(/[\ud800-\udfff]/g, '\u0000'))),
 	fc.constantFrom('%ED%A0%80', '%FF%FE', '%', '%zz', '%00', '%C0%80', 'NaN', 'Infinity', '-1e309', '1e309', '0x10', ''),
@@ -120,7 +158,8 @@ test('hostile bodies never give a 5xx and every 4xx says why', async ({ playwrig
 	const home = await as('homeowner');
 	const { plans } = await (await home.get('/api/plans')).json();
 	const planId: string = plans[0].id;
-	const fill = (route: string) => route.replace('[id=uuid]', route.startsWith('/plans') ? planId : crypto.randomUUID()).replace(/\[\w+=uuid\]/g, () => crypto.randomUUID());
+	const fill = (route: string) =>
+		route.replace('[id=uuid]', route.startsWith('/plans') ? planId : crypto.randomUUID()).replace(/\[\w+=uuid\]/g, () => crypto.randomUUID());
 
 	const targets = [
 		...[

@@ -70,8 +70,14 @@ export async function mailLink(page: Page, email: string, subject: RegExp, o: { 
 	let href: string | null = null;
 	await expect(async () => {
 		await page.goto(`/dev/mailbox?to=${encodeURIComponent(email)}`);
-		const mail = page.getByTestId('mail').filter({ has: page.getByRole('heading', { name: subject }) }).first();
-		href = await mail.getByTestId('mail-link').first().getAttribute('href', { timeout: Math.min(5_000, timeout / 3) });
+		const mail = page
+			.getByTestId('mail')
+			.filter({ has: page.getByRole('heading', { name: subject }) })
+			.first();
+		href = await mail
+			.getByTestId('mail-link')
+			.first()
+			.getAttribute('href', { timeout: Math.min(5_000, timeout / 3) });
 		expect(href).toBeTruthy();
 	}).toPass({ timeout });
 	return href!;
@@ -86,6 +92,9 @@ export function watchErrors(page: Page) {
 
 /** Opens a planner step from the step list and waits for its heading. */
 export async function wizardStep(page: Page, title: string) {
-	await page.getByRole('navigation', { name: 'Plan steps' }).getByRole('button', { name: new RegExp(title) }).click();
+	await page
+		.getByRole('navigation', { name: 'Plan steps' })
+		.getByRole('button', { name: new RegExp(title) })
+		.click();
 	await expect(page.getByRole('heading', { name: new RegExp(`\\d\\. ${title}`) })).toBeVisible();
 }

@@ -6,7 +6,11 @@ import { insertBid, insertPlan } from './pro-helpers';
 test.describe.configure({ timeout: 240_000 });
 
 /** Sends the plan for one kind of work to one contractor, filling every field of the form. */
-async function sendFor(page: Page, planId: string, o: { scope: string; business: string; when: string; finish: string; surface: string; access: string; notes: string }) {
+async function sendFor(
+	page: Page,
+	planId: string,
+	o: { scope: string; business: string; when: string; finish: string; surface: string; access: string; notes: string }
+) {
 	await page.goto(`/plans/${planId}/bids`, { waitUntil: 'networkidle' });
 	await page.getByLabel('What you want done').selectOption({ label: o.scope });
 	await page.getByRole('button', { name: 'Find contractors' }).click();
@@ -100,7 +104,10 @@ test('a homeowner compares bids for two kinds of work, one kind at a time, and a
 	await expect(page.getByText('Bid accepted.')).toBeVisible();
 	await expect(page.getByTestId('compared-scope')).toHaveText('Pour and finish');
 	await expect(rows.first().getByTestId('bid-status')).toHaveText('Accepted');
-	await page.getByTestId('scope-filter').getByRole('button', { name: /The whole job/ }).click();
+	await page
+		.getByTestId('scope-filter')
+		.getByRole('button', { name: /The whole job/ })
+		.click();
 	await expect(rows.first().getByTestId('bid-status')).toHaveText('Not selected');
 	await expect(page.getByText('Accept…')).toHaveCount(0);
 	expect(errors).toEqual([]);

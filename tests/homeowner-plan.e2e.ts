@@ -9,7 +9,14 @@ import { pdfText } from './pdf-text';
 
 const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });
 // The L the test draws: 16 × 12 ft with a 6 × 5 ft notch (the wizard's own L preset).
-const L: [number, number][] = [[0, 0], [16, 0], [16, 7], [10, 7], [10, 12], [0, 12]];
+const L: [number, number][] = [
+	[0, 0],
+	[16, 0],
+	[16, 7],
+	[10, 7],
+	[10, 12],
+	[0, 12]
+];
 const expected = computePlan({ units: 'imperial', name: 'My slab', sections: [{ outline: L }], reference: { label: 'door sill', below: 1 } });
 
 async function seriousViolations(page: Page) {
@@ -22,7 +29,10 @@ async function nextStep(page: Page, shot: string) {
 	await page.getByRole('button', { name: /^Next:/ }).click();
 }
 
-test('a homeowner builds an L-shaped plan; results match the engine, survive a reload, and the plan page, 3D, photos and PDF work', async ({ page, request }) => {
+test('a homeowner builds an L-shaped plan; results match the engine, survive a reload, and the plan page, 3D, photos and PDF work', async ({
+	page,
+	request
+}) => {
 	test.setTimeout(150_000); // sign-up waits on the confirmation mail
 	await signUp(page, { name: 'Hazel Brook', email: uniqueEmail('planner'), password: 'l-shaped-patio' });
 	await page.getByRole('link', { name: 'Start a new plan' }).click();
@@ -86,7 +96,9 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	expect(Math.max(...channels.map((c) => c.stdev))).toBeGreaterThan(10);
 
 	// Photos: a real image goes in with progress; a text file named .jpg is refused.
-	const png = await sharp({ create: { width: 80, height: 60, channels: 3, background: '#7a9a5a' } }).png().toBuffer();
+	const png = await sharp({ create: { width: 80, height: 60, channels: 3, background: '#7a9a5a' } })
+		.png()
+		.toBuffer();
 	await page.getByTestId('photo-input').setInputFiles([
 		{ name: 'lawn.png', mimeType: 'image/png', buffer: png },
 		{ name: 'not-a-photo.jpg', mimeType: 'image/jpeg', buffer: Buffer.from('just some text, not an image') }
@@ -172,7 +184,22 @@ test('two tabs editing one plan: the stale one is refused and offered the newer 
 	await signUp(page, { name: 'Ivo Tabb', email: uniqueEmail('tabs'), password: 'two-tabs-open' });
 	await expect(page).toHaveURL(/\/plans$/);
 	const created = await page.request.post('/api/plans', {
-		data: { name: 'Walkway', input: { units: 'imperial', sections: [{ outline: [[0, 0], [20, 0], [20, 4], [0, 4]] }] } }
+		data: {
+			name: 'Walkway',
+			input: {
+				units: 'imperial',
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[20, 0],
+							[20, 4],
+							[0, 4]
+						]
+					}
+				]
+			}
+		}
 	});
 	expect(created.status()).toBe(201);
 	const { plan } = await created.json();
@@ -195,7 +222,24 @@ test('my plans: rename, duplicate and delete with confirmation', async ({ page }
 	await signUp(page, { name: 'Rhea List', email: uniqueEmail('list'), password: 'list-of-plans' });
 	await expect(page).toHaveURL(/\/plans$/);
 	await expect(page.getByRole('heading', { name: 'No plans yet' })).toBeVisible();
-	await page.request.post('/api/plans', { data: { name: 'Patio A', input: { units: 'metric', sections: [{ outline: [[0, 0], [3, 0], [3, 3], [0, 3]] }] } } });
+	await page.request.post('/api/plans', {
+		data: {
+			name: 'Patio A',
+			input: {
+				units: 'metric',
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[3, 0],
+							[3, 3],
+							[0, 3]
+						]
+					}
+				]
+			}
+		}
+	});
 	await page.goto('/plans');
 	await expect(page.getByTestId('plan-item')).toContainText('9 m²'); // 3 × 3 m
 	await page.getByRole('link', { name: 'Rename' }).click();

@@ -21,7 +21,16 @@ async function stored(planId: string): Promise<Record<string, number>> {
 /** A 12 × 10 ft patio, two people mixing by hand, 70 °F: one pour. */
 const input = {
 	units: 'imperial',
-	sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }],
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[12, 0],
+				[12, 10],
+				[0, 10]
+			]
+		}
+	],
 	houseEdge: { section: 0, edge: 0 },
 	crew: { people: 2, method: 'hand' },
 	conditions: { airTemp: 70, humidity: 50, wind: 5 }
@@ -45,9 +54,13 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await axeClean(page);
 	await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
 	await expect
-		.poll(() => page.evaluate((id) => caches.open('plan-pages').then(async (c) => !!(await c.match(`/plans/${id}/pour`)) && !!(await c.match(`/plans/${id}`))), planId), {
-			timeout: 30_000
-		})
+		.poll(
+			() =>
+				page.evaluate((id) => caches.open('plan-pages').then(async (c) => !!(await c.match(`/plans/${id}/pour`)) && !!(await c.match(`/plans/${id}`))), planId),
+			{
+				timeout: 30_000
+			}
+		)
 		.toBe(true);
 	// Reload once so the page itself is controlled by the worker (the first visit came before it).
 	await page.reload();
@@ -110,7 +123,10 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	// The count survives a reload with the network still cut (kept on the phone).
 	await page.reload();
 	await expect(pour.getByTestId('batch-count')).toHaveText('2');
-	const day = (iso: string) => new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric', year: 'numeric', timeZone: 'UTC' }).format(new Date(`${iso}T00:00:00Z`));
+	const day = (iso: string) =>
+		new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric', year: 'numeric', timeZone: 'UTC' }).format(
+			new Date(`${iso}T00:00:00Z`)
+		);
 	await expect(page.getByTestId('temp-list')).toContainText(`${day(today)}: low 38 °F, high 52 °F`);
 	expect(await stored(planId)).toEqual({});
 
@@ -156,7 +172,9 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await expect(pour.getByText(/^Placing done at \d{1,2}:\d{2}/)).toBeVisible();
 	await expect(pour.getByTestId('pace')).toBeHidden();
 	// A photo from the pour page joins the plan's site photos, through the photo store.
-	const photo = await sharp({ create: { width: 320, height: 240, channels: 3, background: '#9bb88a' } }).jpeg().toBuffer();
+	const photo = await sharp({ create: { width: 320, height: 240, channels: 3, background: '#9bb88a' } })
+		.jpeg()
+		.toBuffer();
 	await page.getByTestId('photo-input').setInputFiles([{ name: 'screeded.jpg', mimeType: 'image/jpeg', buffer: photo }]);
 	await expect(page.getByTestId('upload')).toHaveAttribute('data-state', 'done', { timeout: 30_000 });
 	await expect(page.getByText(/They join the plan’s site photos \(1 so far/)).toBeVisible();

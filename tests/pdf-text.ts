@@ -26,7 +26,10 @@ export async function pdfPagePixels(bytes: Uint8Array, page: number, scale = 1):
 	const p = await doc.getPage(page);
 	const viewport = p.getViewport({ scale });
 	const factory = doc.canvasFactory as unknown as {
-		create: (w: number, h: number) => { canvas: unknown; context: { getImageData: (x: number, y: number, w: number, h: number) => { data: Uint8ClampedArray } } };
+		create: (
+			w: number,
+			h: number
+		) => { canvas: unknown; context: { getImageData: (x: number, y: number, w: number, h: number) => { data: Uint8ClampedArray } } };
 	};
 	const { canvas, context } = factory.create(Math.ceil(viewport.width), Math.ceil(viewport.height));
 	await p.render({ canvas: canvas as HTMLCanvasElement, canvasContext: context as unknown as CanvasRenderingContext2D, viewport }).promise;
@@ -50,7 +53,9 @@ export async function pdfPagePng(bytes: Uint8Array, page: number, scale = 1.5): 
 	const doc = await getDocument({ data: new Uint8Array(bytes), useSystemFonts: false, isEvalSupported: false }).promise;
 	const p = await doc.getPage(page);
 	const viewport = p.getViewport({ scale });
-	const factory = doc.canvasFactory as unknown as { create: (w: number, h: number) => { canvas: { toBuffer: (mime: 'image/png') => Buffer }; context: unknown } };
+	const factory = doc.canvasFactory as unknown as {
+		create: (w: number, h: number) => { canvas: { toBuffer: (mime: 'image/png') => Buffer }; context: unknown };
+	};
 	const { canvas, context } = factory.create(Math.ceil(viewport.width), Math.ceil(viewport.height));
 	await p.render({ canvas: canvas as unknown as HTMLCanvasElement, canvasContext: context as CanvasRenderingContext2D, viewport }).promise;
 	const png = canvas.toBuffer('image/png');

@@ -17,7 +17,10 @@ async function openDemoPlan(page: Page, planId: string) {
 	const owner = demo.users.find((u) => (u as { plans?: string[] }).plans?.includes(planId))!;
 	await signIn(page, owner.email, demoPassword);
 	await page.goto('/plans');
-	await page.getByRole('link', { name: /Back patio|Shed pad|Corner patio/ }).first().click();
+	await page
+		.getByRole('link', { name: /Back patio|Shed pad|Corner patio/ })
+		.first()
+		.click();
 	await page.waitForURL(/\/plans\/[0-9a-f-]{36}$/);
 	await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
 	return errors;
@@ -31,7 +34,12 @@ test('the plan page opens with the build card and carries a layout sheet with sq
 	await expect(card.getByText('Slab thickness')).toBeVisible();
 	await expect(card.locator('div', { hasText: 'Slab thickness' }).getByRole('definition').first()).toHaveText('4 in');
 	// 4 in of slab + 4 in of base.
-	await expect(card.locator('div', { hasText: /^Dig depth/ }).getByRole('definition').first()).toHaveText('8 in');
+	await expect(
+		card
+			.locator('div', { hasText: /^Dig depth/ })
+			.getByRole('definition')
+			.first()
+	).toHaveText('8 in');
 	// The build card comes before everything else in the plan.
 	const cardTop = (await card.boundingBox())!.y;
 	const summaryTop = (await page.getByRole('heading', { name: 'Summary' }).boundingBox())!.y;
@@ -83,10 +91,14 @@ test('the plan page opens with the build card and carries a layout sheet with sq
 	// White paper, even with background graphics on: not one pixel of page 1 in the screen's tint (#f7f4ec).
 	const paper = await pdfPagePixels(printed, 1);
 	let tinted = 0;
-	for (let i = 0; i < paper.data.length; i += 4) if (Math.abs(paper.data[i] - 0xf7) <= 2 && Math.abs(paper.data[i + 1] - 0xf4) <= 2 && Math.abs(paper.data[i + 2] - 0xec) <= 2) tinted++;
+	for (let i = 0; i < paper.data.length; i += 4)
+		if (Math.abs(paper.data[i] - 0xf7) <= 2 && Math.abs(paper.data[i + 1] - 0xf4) <= 2 && Math.abs(paper.data[i + 2] - 0xec) <= 2) tinted++;
 	expect(tinted).toBe(0);
-	const rowsCut = await page.evaluate(() =>
-		[...document.querySelectorAll('tbody tr')].filter((tr) => getComputedStyle(tr).breakInside !== 'avoid' && getComputedStyle(tr).pageBreakInside !== 'avoid').length
+	const rowsCut = await page.evaluate(
+		() =>
+			[...document.querySelectorAll('tbody tr')].filter(
+				(tr) => getComputedStyle(tr).breakInside !== 'avoid' && getComputedStyle(tr).pageBreakInside !== 'avoid'
+			).length
 	);
 	expect(rowsCut).toBe(0);
 	expect(errors).toEqual([]);
@@ -106,6 +118,11 @@ test('a metric plan in two pours on a phone: corners carry the section number an
 	await page.screenshot({ path: 'test-results/screens/plan-layout-sheet-390.png', fullPage: true });
 	const card = page.getByTestId('build-card');
 	// 100 mm slab + 100 mm thickened-edge trench; no base under the thickened edges (as the base volume lays it).
-	await expect(card.locator('div', { hasText: /^Dig at thickened edges/ }).getByRole('definition').first()).toHaveText('200 mm');
+	await expect(
+		card
+			.locator('div', { hasText: /^Dig at thickened edges/ })
+			.getByRole('definition')
+			.first()
+	).toHaveText('200 mm');
 	expect(errors).toEqual([]);
 });

@@ -148,7 +148,10 @@ async function fillEveryStep(page: Page) {
 	await expect(page.getByLabel('Length of edge C–D in ft')).toHaveValue('15');
 	// A length the plan cannot take stays in its field, marked, with the reason; nothing else moves.
 	const ab = page.getByLabel('Length of edge A–B in ft');
-	for (const [bad, why] of [['5000', 'at most 1000 ft around'], ['-3', 'Enter a length above 0 ft.']]) {
+	for (const [bad, why] of [
+		['5000', 'at most 1000 ft around'],
+		['-3', 'Enter a length above 0 ft.']
+	]) {
 		await ab.fill(bad);
 		await ab.blur();
 		await expect(ab).toHaveValue(bad);

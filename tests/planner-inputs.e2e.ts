@@ -165,7 +165,8 @@ async function crew(page: Page) {
 /** Every number field and select the new inputs use, as shown, by id. */
 async function readNew(page: Page) {
 	const seen: Record<string, string> = {};
-	const ids = /^(exposure|air-(temp|low)(-\d+)?|concrete-temp|design-strength|cement|reinforcement|mesh-|wire-|chair-|stake-length|board-length-|base-overhang|stone-|soil-|edge-profile|bag-|plan-size|water-ratio|readymix-|curing-|joint-method|forms-off-|walk-|furniture-|vehicle-|currency|short-load-fee|price-)/;
+	const ids =
+		/^(exposure|air-(temp|low)(-\d+)?|concrete-temp|design-strength|cement|reinforcement|mesh-|wire-|chair-|stake-length|board-length-|base-overhang|stone-|soil-|edge-profile|bag-|plan-size|water-ratio|readymix-|curing-|joint-method|forms-off-|walk-|furniture-|vehicle-|currency|short-load-fee|price-)/;
 	for (const title of ['Site', 'Outline', 'Build-up', 'Crew']) {
 		await goTo(page, title);
 		for (const el of await page.locator('section[aria-labelledby="step-heading"]').locator('input[id], select[id]').all()) {
@@ -212,7 +213,17 @@ test('signed in, the new inputs are saved and hold after a reload', async ({ pag
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 15_000 });
 	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
 	const shown = await readNew(page);
-	expect(shown).toMatchObject({ exposure: 'severe', 'air-low-2': '57', 'section-name': 'Back patio', 'stake-length': '24', 'bag-yield-0': '0.5', currency: 'EUR', 'curing-method': 'compound', 'joint-method': 'saw', 'short-load-fee': '75' });
+	expect(shown).toMatchObject({
+		exposure: 'severe',
+		'air-low-2': '57',
+		'section-name': 'Back patio',
+		'stake-length': '24',
+		'bag-yield-0': '0.5',
+		currency: 'EUR',
+		'curing-method': 'compound',
+		'joint-method': 'saw',
+		'short-load-fee': '75'
+	});
 	await page.reload();
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved');
 	expect(await readNew(page)).toEqual(shown);
@@ -240,7 +251,12 @@ test("a freestanding pad's chosen high edge is marked on the plan page: 2D view,
 	await expect(page.locator('figure svg line[data-high]')).toHaveCount(1);
 	await expect(page.locator('figure svg text', { hasText: 'high side' })).toHaveCount(1);
 	const card = page.getByTestId('build-card');
-	await expect(card.locator('div', { hasText: /^High side/ }).getByRole('definition').first()).toHaveText('edge C–D');
+	await expect(
+		card
+			.locator('div', { hasText: /^High side/ })
+			.getByRole('definition')
+			.first()
+	).toHaveText('edge C–D');
 	const sheet = page.getByTestId('layout-sheet');
 	await expect(sheet.getByTestId('sheet-high-edge')).toHaveText('high side, edge C–D');
 	await expect(sheet.getByTestId('layout-drawing').locator('line[data-high]')).toHaveCount(1);

@@ -42,7 +42,11 @@ test('on a phone the key results stay in sight while editing, corners are big en
 	await page.goto('/plans/new');
 	// Touch targets of at least 44 px: the header links (the home link was 31 px), the cautions summary.
 	const nav = page.getByRole('navigation', { name: 'Main' });
-	for (const target of [nav.getByRole('link', { name: 'Stakeline' }), nav.getByRole('link', { name: 'Sign in' }), page.getByTestId('results').locator('summary')]) {
+	for (const target of [
+		nav.getByRole('link', { name: 'Stakeline' }),
+		nav.getByRole('link', { name: 'Sign in' }),
+		page.getByTestId('results').locator('summary')
+	]) {
 		expect((await target.boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	}
 	await everyStep(page, 'new plan');
@@ -105,7 +109,9 @@ test('on a phone the key results stay in sight while editing, corners are big en
 	await page.touchscreen.tap(cell.x + cell.width - 3, cell.y + cell.height / 2);
 	await expect(wall).toBeChecked();
 	// Neighbouring rows' wall targets stand apart (they touched, so a tap on the seam found two).
-	const rows = await page.getByTestId('house-wall-target').evaluateAll((els) => els.map((e) => e.getBoundingClientRect()).map((r) => ({ top: r.top, bottom: r.bottom })));
+	const rows = await page
+		.getByTestId('house-wall-target')
+		.evaluateAll((els) => els.map((e) => e.getBoundingClientRect()).map((r) => ({ top: r.top, bottom: r.bottom })));
 	for (let i = 1; i < rows.length; i++) expect(rows[i].top - rows[i - 1].bottom, `gap above wall target ${i + 1}`).toBeGreaterThanOrEqual(8);
 	await page.screenshot({ path: 'test-results/screens/phone-edge-table.png' });
 	for (const hit of await page.getByTestId('corner-hit').all()) {
@@ -120,7 +126,22 @@ test('on a phone the edit page and the plan page of a saved plan do not scroll s
 	test.setTimeout(120_000);
 	await signUp(page, { name: 'Phoebe Small', email: uniqueEmail('phone'), password: 'small-screen-plan' });
 	const created = await page.request.post('/api/plans', {
-		data: { name: 'Phone patio', input: { units: 'imperial', sections: [{ outline: [[0, 0], [14, 0], [14, 12], [0, 12]] }] } }
+		data: {
+			name: 'Phone patio',
+			input: {
+				units: 'imperial',
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[14, 0],
+							[14, 12],
+							[0, 12]
+						]
+					}
+				]
+			}
+		}
 	});
 	const { plan } = await created.json();
 	await page.goto(`/plans/${plan.id}/edit`);

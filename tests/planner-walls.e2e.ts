@@ -58,7 +58,10 @@ test('an L around a house corner keeps both walls through save, reload, a split 
 
 	const id = await saved(page);
 	const stored = (await (await page.request.get(`/api/plans/${id}`)).json()).plan.input;
-	expect([stored.houseEdge, ...stored.otherHouseEdges]).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }]);
+	expect([stored.houseEdge, ...stored.otherHouseEdges]).toEqual([
+		{ section: 0, edge: 2 },
+		{ section: 0, edge: 3 }
+	]);
 	await page.reload();
 	await goTo(page, 'Outline');
 	await expect(wallBox(page, 'C–D')).toBeChecked();
@@ -119,9 +122,14 @@ test('a freestanding shed pad with a chosen high edge, in two pours, saved and r
 	const record = (await (await page.request.get(`/api/plans/${id}`)).json()).plan;
 	const stored = record.input;
 	// The edges the two pours share lie inside the slab: the list does not offer them as a high side.
-	const inside = (record.result.geometry.sections as { edges: { kind: string }[] }[]).flatMap((sec, s) => sec.edges.flatMap((e, i) => (e.kind === 'coldJoint' ? [`${s}:${i}`] : [])));
+	const inside = (record.result.geometry.sections as { edges: { kind: string }[] }[]).flatMap((sec, s) =>
+		sec.edges.flatMap((e, i) => (e.kind === 'coldJoint' ? [`${s}:${i}`] : []))
+	);
 	expect(inside).toHaveLength(2);
-	const offered = await page.getByLabel('High side').locator('option').evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value));
+	const offered = await page
+		.getByLabel('High side')
+		.locator('option')
+		.evaluateAll((os) => os.map((o) => (o as HTMLOptionElement).value));
 	expect(offered).toHaveLength(1 + 8 - 1 - 2); // the default, then the eight edges less the default and the two inside
 	for (const v of inside) expect(offered).not.toContain(v);
 	expect(stored.houseEdge).toBeNull();

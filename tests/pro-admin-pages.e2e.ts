@@ -11,7 +11,8 @@ async function checkPage(page: Page, path: string, found: string[]) {
 	await page.goto(path, { waitUntil: 'networkidle' });
 	expect(page.url(), `${path} should not redirect`).toContain(path.split('?')[0]);
 	const { violations } = await new AxeBuilder({ page }).analyze();
-	for (const v of violations.filter((v) => v.impact === 'serious' || v.impact === 'critical')) found.push(`${path} ${v.id}: ${v.nodes.map((n) => n.target).join(', ')}`);
+	for (const v of violations.filter((v) => v.impact === 'serious' || v.impact === 'critical'))
+		found.push(`${path} ${v.id}: ${v.nodes.map((n) => n.target).join(', ')}`);
 	const { scroll, client } = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, client: document.documentElement.clientWidth }));
 	if (scroll > client) found.push(`${path}: ${scroll} px wide on a ${client} px screen`);
 	await page.screenshot({ path: `test-results/screens/phone${path.replace(/[^a-z0-9]+/gi, '-')}.png`, fullPage: true });
@@ -29,7 +30,11 @@ test('every pro and admin page, and the bids pages, are axe-clean and fit a 390 
 	await page.getByRole('checkbox', { name: /Ridgeback Flatwork/ }).check();
 	await page.getByRole('button', { name: 'Send the plan' }).click();
 	await expect(page.getByText('Sent to 1 contractor.')).toBeVisible();
-	const leadId = await insertBid(planId, demoUser('contractor').email, { dollars: 2600, days: 2, inclusions: 'Forms, base, pour, broom finish, curing blanket for a week.' });
+	const leadId = await insertBid(planId, demoUser('contractor').email, {
+		dollars: 2600,
+		days: 2,
+		inclusions: 'Forms, base, pour, broom finish, curing blanket for a week.'
+	});
 	await checkPage(page, `/plans/${planId}/bids`, found);
 	await checkPage(page, `/plans/${planId}/bids/${leadId}`, found);
 	await checkPage(page, '/account', found);
@@ -37,7 +42,8 @@ test('every pro and admin page, and the bids pages, are axe-clean and fit a 390 
 
 	await signIn(page, demoUser('contractor').email, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
-	for (const path of ['/pro', '/pro/profile', '/pro/leads', `/pro/leads/${leadId}`, '/pro/billing', '/messages', '/account']) await checkPage(page, path, found);
+	for (const path of ['/pro', '/pro/profile', '/pro/leads', `/pro/leads/${leadId}`, '/pro/billing', '/messages', '/account'])
+		await checkPage(page, path, found);
 	await signOut(page);
 
 	// A contractor still awaiting review sees other states of the same pages.

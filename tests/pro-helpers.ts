@@ -17,7 +17,9 @@ export const pdf = (label: string) => ({
 export const pngCertificate = async () => ({
 	name: 'insurance-certificate.png',
 	mimeType: 'image/png',
-	buffer: await sharp({ create: { width: 40, height: 30, channels: 3, background: '#d6e8da' } }).png().toBuffer()
+	buffer: await sharp({ create: { width: 40, height: 30, channels: 3, background: '#d6e8da' } })
+		.png()
+		.toBuffer()
 });
 
 /** The ISO day `days` from today (UTC), as a date field takes it. */
@@ -118,7 +120,11 @@ export async function bumpPlanRevision(planId: string) {
  * A bid from the contractor at `contractorEmail` on the lead of `planId`, stored straight in the
  * database (the contractor's side is driven in contractor-bid.e2e.ts). Dates are days from today.
  */
-export async function insertBid(planId: string, contractorEmail: string, o: { dollars: number; days: number; startIn?: number; validFor?: number; inclusions?: string }) {
+export async function insertBid(
+	planId: string,
+	contractorEmail: string,
+	o: { dollars: number; days: number; startIn?: number; validFor?: number; inclusions?: string }
+) {
 	const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
 	const day = (n: number) => new Date(Date.now() + n * 86_400_000).toISOString().slice(0, 10);
 	try {

@@ -27,7 +27,10 @@ test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and 
 	const owner = demoUser('homeowner');
 	await signIn(page, owner.email, demoPassword);
 	await expect(page).toHaveURL(/\/plans$/);
-	await page.getByRole('link', { name: /patio|pad|walk/i }).first().click();
+	await page
+		.getByRole('link', { name: /patio|pad|walk/i })
+		.first()
+		.click();
 	await page.getByRole('button', { name: 'Show 3D preview' }).click();
 	await expect(page.locator('canvas').first()).toBeVisible();
 	await page.waitForLoadState('networkidle');

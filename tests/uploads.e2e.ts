@@ -6,8 +6,16 @@ import { fillProfile, insertPlan, pdf } from './pro-helpers';
 test.describe.configure({ timeout: 180_000 });
 
 const MB = 1024 * 1024;
-const bigPdf = (mb: number) => ({ name: 'scanned-licence.pdf', mimeType: 'application/pdf', buffer: Buffer.concat([pdf('big').buffer, Buffer.alloc(mb * MB, 32)]) });
-const wordFile = { name: 'insurance.docx', mimeType: 'application/vnd.openxmlformats-officedocument.wordprocessingml.document', buffer: Buffer.from('PK\u0003\u0004 not really') };
+const bigPdf = (mb: number) => ({
+	name: 'scanned-licence.pdf',
+	mimeType: 'application/pdf',
+	buffer: Buffer.concat([pdf('big').buffer, Buffer.alloc(mb * MB, 32)])
+});
+const wordFile = {
+	name: 'insurance.docx',
+	mimeType: 'application/vnd.openxmlformats-officedocument.wordprocessingml.document',
+	buffer: Buffer.from('PK\u0003\u0004 not really')
+};
 
 test('contractor documents: a wrong type or an oversized file is refused in the browser with the reason, and nothing typed is lost', async ({ page }) => {
 	const errors = watchErrors(page);
@@ -46,7 +54,10 @@ test('without JavaScript, a form over the body limit gets a page that says why, 
 	await page.goto('/pro/profile');
 	await fillProfile(page, 'Flint Flatwork');
 	await page.getByLabel('Licence document').setInputFiles(bigPdf(17));
-	const [answer] = await Promise.all([page.waitForResponse((r) => r.request().method() === 'POST'), page.getByRole('button', { name: 'Send for review' }).click()]);
+	const [answer] = await Promise.all([
+		page.waitForResponse((r) => r.request().method() === 'POST'),
+		page.getByRole('button', { name: 'Send for review' }).click()
+	]);
 	expect(answer.status()).toBe(413);
 	await expect(page.getByRole('heading', { name: 'The files are too large' })).toBeVisible();
 	await expect(page.getByText(/the limit is 16\.0 MB/)).toBeVisible();
@@ -66,7 +77,9 @@ test('site photos: a wrong type or an oversized photo is refused before sending,
 	page.on('request', (r) => r.method() === 'POST' && r.url().endsWith('/photos') && sent.push(r.url()));
 	await expect(page.getByText('JPEG, PNG, or WebP, up to 12 MB each.')).toBeVisible();
 
-	const photo = await sharp({ create: { width: 320, height: 240, channels: 3, background: '#9bb88a' } }).jpeg().toBuffer();
+	const photo = await sharp({ create: { width: 320, height: 240, channels: 3, background: '#9bb88a' } })
+		.jpeg()
+		.toBuffer();
 	await page.getByTestId('photo-input').setInputFiles([
 		{ name: 'plan.pdf', mimeType: 'application/pdf', buffer: pdf('x').buffer },
 		{ name: 'huge.jpg', mimeType: 'image/jpeg', buffer: Buffer.concat([photo, Buffer.alloc(13 * MB)]) },

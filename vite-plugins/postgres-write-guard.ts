@@ -14,7 +14,10 @@ const PATCHES: [string, string][] = [
 		'  function nextWrite(fn) {\n    if (!socket) { nextWriteTimer !== null && clearImmediate(nextWriteTimer); chunk = nextWriteTimer = null; return false }\n    const x = socket.write(chunk, fn)'
 	],
 	['    clearImmediate(nextWriteTimer)\n    if (socket) {', '    clearImmediate(nextWriteTimer)\n    chunk = nextWriteTimer = null\n    if (socket) {'],
-	['    clearImmediate(nextWriteTimer)\n    socket.removeListener', '    clearImmediate(nextWriteTimer)\n    chunk = nextWriteTimer = null\n    socket.removeListener'],
+	[
+		'    clearImmediate(nextWriteTimer)\n    socket.removeListener',
+		'    clearImmediate(nextWriteTimer)\n    chunk = nextWriteTimer = null\n    socket.removeListener'
+	],
 	// A backend that ends while it answers (a restart's "terminating connection", a start-up's "the
 	// database system is shutting down") leaves its error and its query set after the socket closes;
 	// the next connection's first ReadyForQuery hands that error to whatever query reconnected it,

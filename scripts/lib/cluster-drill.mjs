@@ -10,7 +10,19 @@ import autocannon from 'autocannon';
 import postgres from 'postgres';
 
 /** A small square slab: a valid plan the engine computes quickly. */
-const input = { units: 'imperial', sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }] };
+const input = {
+	units: 'imperial',
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[12, 0],
+				[12, 10],
+				[0, 10]
+			]
+		}
+	]
+};
 
 /**
  * Signs a homeowner in through nginx; returns the session cookie.
@@ -120,7 +132,11 @@ export async function killDrill(o) {
 		// As a client would: each failed write sent again with its key, now that only the survivor is up.
 		retried = [];
 		for (const w of answers.filter((a) => a.kind === 'write' && a.status !== 201)) {
-			const res = await fetch(`${base}/api/plans`, { method: 'POST', headers: { ...headers, 'idempotency-key': w.key }, body: JSON.stringify({ name: w.name, input }) });
+			const res = await fetch(`${base}/api/plans`, {
+				method: 'POST',
+				headers: { ...headers, 'idempotency-key': w.key },
+				body: JSON.stringify({ name: w.name, input })
+			});
 			retried.push({ ...w, retryStatus: res.status });
 		}
 		afterRetry = await drillRows();
@@ -140,7 +156,8 @@ export async function killDrill(o) {
 	const failed = answers.filter((a) => a.status < 200 || a.status >= 300);
 	// In flight on the killed server: a write nginx had already passed to it, answered 502 naming it,
 	// within two seconds of the kill.
-	const inFlight = (/** @type {Answer} */ a) => a.kind === 'write' && a.status === 502 && a.upstream.startsWith(victimAddress) && a.at >= killedAt && a.at - killedAt <= 2000;
+	const inFlight = (/** @type {Answer} */ a) =>
+		a.kind === 'write' && a.status === 502 && a.upstream.startsWith(victimAddress) && a.at >= killedAt && a.at - killedAt <= 2000;
 	const otherFailures = failed.filter((a) => !inFlight(a));
 	const afterKill = answers.filter((a) => a.at > killedAt + 2000);
 	const survivorAnswers = afterKill.filter((a) => a.status >= 200 && a.status < 300);

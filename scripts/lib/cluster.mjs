@@ -176,7 +176,15 @@ export async function copyUploadsToBucket(uploadDir, s3env) {
 			);
 			if (there) continue;
 			const Body = fs.readFileSync(file);
-			await client.send(new PutObjectCommand({ Bucket, Key, Body, ContentLength: Body.length, ContentType: TYPES[path.extname(rel).toLowerCase()] ?? 'application/octet-stream' }));
+			await client.send(
+				new PutObjectCommand({
+					Bucket,
+					Key,
+					Body,
+					ContentLength: Body.length,
+					ContentType: TYPES[path.extname(rel).toLowerCase()] ?? 'application/octet-stream'
+				})
+			);
 			copied++;
 		}
 	} finally {

@@ -89,7 +89,20 @@ export function ensurePostgres(s, { freshDatabase = false } = {}) {
 	}
 
 	const sql = (query) => {
-		const [c, a] = asOwner(path.join(bin, 'psql'), ['-h', runDir, '-p', String(s.pgPort), '-U', superuser, '-d', 'postgres', '-v', 'ON_ERROR_STOP=1', '-qtAc', query]);
+		const [c, a] = asOwner(path.join(bin, 'psql'), [
+			'-h',
+			runDir,
+			'-p',
+			String(s.pgPort),
+			'-U',
+			superuser,
+			'-d',
+			'postgres',
+			'-v',
+			'ON_ERROR_STOP=1',
+			'-qtAc',
+			query
+		]);
 		const out = capture(c, a);
 		if (out === null) {
 			run(c, a); // again, with its error shown

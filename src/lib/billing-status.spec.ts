@@ -1,5 +1,15 @@
 import { describe, expect, it } from 'vitest';
-import { billingEvents, billingStatuses, billingTarget, canOpenLead, deliveryPaused, leadAllowance, type BillingEvent, type BillingStatus, type LeadAllowance } from './billing-status';
+import {
+	billingEvents,
+	billingStatuses,
+	billingTarget,
+	canOpenLead,
+	deliveryPaused,
+	leadAllowance,
+	type BillingEvent,
+	type BillingStatus,
+	type LeadAllowance
+} from './billing-status';
 
 // The expected result of every (state, event) pair, written out by hand: the table must match it.
 const expected: Record<BillingStatus, Record<BillingEvent, BillingStatus>> = {

@@ -1,5 +1,17 @@
 import { describe, expect, it } from 'vitest';
-import { contractorStatuses, daysUntil, reminderDue, statusAfterExpiry, decisionMeta, decisionsFrom, decisionTarget, statusAfterEdit, vettingDecisions, type ContractorStatus, type VettingDecision } from './contractor-status';
+import {
+	contractorStatuses,
+	daysUntil,
+	reminderDue,
+	statusAfterExpiry,
+	decisionMeta,
+	decisionsFrom,
+	decisionTarget,
+	statusAfterEdit,
+	vettingDecisions,
+	type ContractorStatus,
+	type VettingDecision
+} from './contractor-status';
 
 // Written out by hand, one row per status, one column per decision; null = refused.
 // Reinstate is tested separately below because its target depends on what the suspension remembers.
@@ -65,7 +77,8 @@ describe('vetting decisions, every (status, decision) pair', () => {
 			for (const d of vettingDecisions)
 				for (const before of [null, ...contractorStatuses])
 					for (const changed of [false, true])
-						if (decisionTarget(s, d, { before, credentialsChanged: changed }) === 'approved') ways.add(d === 'reinstate' ? `${s}:${d}:${before}:${changed}` : `${s}:${d}`);
+						if (decisionTarget(s, d, { before, credentialsChanged: changed }) === 'approved')
+							ways.add(d === 'reinstate' ? `${s}:${d}:${before}:${changed}` : `${s}:${d}`);
 		expect([...ways].sort()).toEqual(['awaiting_review:approve', 'suspended:reinstate:approved:false']);
 	});
 });

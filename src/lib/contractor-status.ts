@@ -99,7 +99,8 @@ export const reminderDays = [30, 7] as const;
 export type ReminderDays = (typeof reminderDays)[number];
 
 /** Whole days from `today` to `expiresOn` (ISO days; negative once passed). */
-export const daysUntil = (expiresOn: string, today: string) => Math.round((Date.parse(`${expiresOn}T00:00:00Z`) - Date.parse(`${today}T00:00:00Z`)) / 86_400_000);
+export const daysUntil = (expiresOn: string, today: string) =>
+	Math.round((Date.parse(`${expiresOn}T00:00:00Z`) - Date.parse(`${today}T00:00:00Z`)) / 86_400_000);
 
 /**
  * The reminder due for a date `daysLeft` away: the 7-day one inside a week, the 30-day one inside

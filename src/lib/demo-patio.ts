@@ -8,8 +8,24 @@ export const demoPatio = () =>
 		units: 'imperial',
 		name: 'Demo patio',
 		sections: [
-			{ name: 'First pour', outline: [[0, 0], [12, 0], [12, 14], [0, 14]] },
-			{ name: 'Second pour', outline: [[12, 0], [22, 0], [22, 14], [12, 14]] }
+			{
+				name: 'First pour',
+				outline: [
+					[0, 0],
+					[12, 0],
+					[12, 14],
+					[0, 14]
+				]
+			},
+			{
+				name: 'Second pour',
+				outline: [
+					[12, 0],
+					[22, 0],
+					[22, 14],
+					[12, 14]
+				]
+			}
 		],
 		houseEdge: { section: 0, edge: 0 },
 		otherHouseEdges: [{ section: 1, edge: 0 }],

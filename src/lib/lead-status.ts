@@ -28,7 +28,17 @@ export const leadTable: Record<LeadStatus, Partial<Record<LeadAction, Cell>>> = 
 	new: { view: 'viewed', bid: 'bid_sent', decline: 'declined', accept_other: 'not_selected', close: 'closed', expire: 'expired', reopen: 'same' },
 	viewed: { view: 'same', bid: 'bid_sent', decline: 'declined', accept_other: 'not_selected', close: 'closed', expire: 'expired', reopen: 'same' },
 	// A firm that bid answered in time: the respond-by date no longer concerns it (its bid has its own valid-until).
-	bid_sent: { view: 'same', bid: 'bid_sent', withdraw: 'withdrawn', decline: 'declined', accept: 'won', accept_other: 'not_selected', close: 'closed', expire: 'same', reopen: 'same' },
+	bid_sent: {
+		view: 'same',
+		bid: 'bid_sent',
+		withdraw: 'withdrawn',
+		decline: 'declined',
+		accept: 'won',
+		accept_other: 'not_selected',
+		close: 'closed',
+		expire: 'same',
+		reopen: 'same'
+	},
 	declined: { view: 'same', accept_other: 'same', close: 'same', expire: 'same', reopen: 'same' },
 	won: { view: 'same', complete: 'done', release: 'released' },
 	not_selected: { view: 'same', close: 'same', expire: 'same', reopen: 'bid_sent' },

@@ -87,4 +87,3 @@ export const MAX_CONTRACTORS_PER_SEND = 5;
 
 /** A bid past its valid-until date can no longer be accepted or edited. */
 export const isExpired = (validUntil: string, today = new Date().toISOString().slice(0, 10)) => validUntil < today;
-

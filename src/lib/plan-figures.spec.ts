@@ -26,7 +26,12 @@ describe('planFigures', () => {
 	});
 
 	it('leaves out what is missing or malformed instead of failing', () => {
-		const f = planFigures(null, { area: { squareFeet: 'big' }, volume: { net: { cubicFeet: 1, cubicYards: 2, cubicMeters: 3 } }, bags: 'many', joints: { maxSpacing: 2.4 } });
+		const f = planFigures(null, {
+			area: { squareFeet: 'big' },
+			volume: { net: { cubicFeet: 1, cubicYards: 2, cubicMeters: 3 } },
+			bags: 'many',
+			joints: { maxSpacing: 2.4 }
+		});
 		expect(f.units).toBe('imperial');
 		expect(f.area).toBeUndefined();
 		expect(f.bags).toBeUndefined();

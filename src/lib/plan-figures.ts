@@ -68,7 +68,25 @@ export function planFigures(input: unknown, result: unknown): PlanFigures {
 }
 
 /** Every top-level part of the engine's result, as src/lib/plan/index.ts defines PlanResult. */
-const RESULT_PARTS = ['units', 'area', 'geometry', 'volume', 'forms', 'elevations', 'bags', 'readyMix', 'cost', 'mixing', 'joints', 'strength', 'milestones', 'schedule', 'weather', 'materials', 'cautions'] as const;
+const RESULT_PARTS = [
+	'units',
+	'area',
+	'geometry',
+	'volume',
+	'forms',
+	'elevations',
+	'bags',
+	'readyMix',
+	'cost',
+	'mixing',
+	'joints',
+	'strength',
+	'milestones',
+	'schedule',
+	'weather',
+	'materials',
+	'cautions'
+] as const;
 
 /**
  * The frozen result as a whole PlanResult when it has every part, so the planner's views (outline,

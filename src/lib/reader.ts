@@ -46,7 +46,16 @@ export function zonedTime(iso: string, hour: number, timeZone: string): Date {
 	const wall = Date.UTC(+iso.slice(0, 4), +iso.slice(5, 7) - 1, +iso.slice(8, 10), hour);
 	// The zone's offset at an instant: its wall clock read as if UTC, less the instant.
 	const offset = (t: number) => {
-		const p = dateFormat('en-US', { timeZone, hourCycle: 'h23', year: 'numeric', month: 'numeric', day: 'numeric', hour: 'numeric', minute: 'numeric', second: 'numeric' }).formatToParts(t);
+		const p = dateFormat('en-US', {
+			timeZone,
+			hourCycle: 'h23',
+			year: 'numeric',
+			month: 'numeric',
+			day: 'numeric',
+			hour: 'numeric',
+			minute: 'numeric',
+			second: 'numeric'
+		}).formatToParts(t);
 		const n = (type: string) => +p.find((x) => x.type === type)!.value;
 		return Date.UTC(n('year'), n('month') - 1, n('day'), n('hour'), n('minute'), n('second')) - t;
 	};

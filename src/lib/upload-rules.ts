@@ -25,8 +25,7 @@ const orList = new Intl.ListFormat('en', { type: 'disjunction' });
 export const typeList = (rule: UploadRule) => orList.format(Object.values(rule.types).map((t) => t[0]));
 
 /** "PDF, JPEG, PNG, or WebP", for a hint. */
-export const shortTypeList = (rule: UploadRule) =>
-	orList.format(Object.values(rule.types).map((t) => t[0].replace(/^an? /, '').replace(/ image$/, '')));
+export const shortTypeList = (rule: UploadRule) => orList.format(Object.values(rule.types).map((t) => t[0].replace(/^an? /, '').replace(/ image$/, '')));
 
 /**
  * Why the browser should not send this file, or null. Reads the claimed type and, when the browser
@@ -34,7 +33,8 @@ export const shortTypeList = (rule: UploadRule) =>
  */
 export function refuseFile(file: { name: string; size: number; type: string }, rule: UploadRule, what: string = rule.what): string | null {
 	if (file.size === 0) return `The ${what} file “${file.name}” is empty.`;
-	if (file.size > rule.maxBytes) return `The ${what} “${file.name}” is ${formatMb(file.size)}; the limit is ${formatMb(rule.maxBytes)}. Please choose a smaller file.`;
+	if (file.size > rule.maxBytes)
+		return `The ${what} “${file.name}” is ${formatMb(file.size)}; the limit is ${formatMb(rule.maxBytes)}. Please choose a smaller file.`;
 	const ext = file.name.split('.').pop()?.toLowerCase() ?? '';
 	const known = file.type ? file.type in rule.types : Object.values(rule.types).some((t) => t.slice(1).includes(ext));
 	if (!known) return `The ${what} must be ${typeList(rule)}; “${file.name}” is not.`;

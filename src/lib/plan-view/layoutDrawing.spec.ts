@@ -6,7 +6,27 @@ import { labelBox, layoutDrawing, type LayoutDrawing } from './layoutDrawing';
 import demoPlans from '../../../fixtures/demo-plans.json' with { type: 'json' };
 import { cornerEll } from '$lib/plan/test-plans';
 
-const twoPours = computePlan({ units: 'metric', sections: [{ outline: [[0, 0], [2, 0], [2, 3], [0, 3]] }, { outline: [[2, 0], [4, 0], [4, 3], [2, 3]] }] });
+const twoPours = computePlan({
+	units: 'metric',
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[2, 0],
+				[2, 3],
+				[0, 3]
+			]
+		},
+		{
+			outline: [
+				[2, 0],
+				[4, 0],
+				[4, 3],
+				[2, 3]
+			]
+		}
+	]
+});
 
 describe('layout drawing', () => {
 	it('fits the slab in the box at one scale and keeps its proportions', () => {
@@ -34,8 +54,35 @@ describe('layout drawing', () => {
 
 describe("a freestanding pad's high edge", () => {
 	// A 4 × 3 m shed pad, freestanding, high along edge C–D (vertex 2 to 3, the back).
-	const pad = computePlan({ units: 'metric', sections: [{ outline: [[0, 0], [4, 0], [4, 3], [0, 3]] }], houseEdge: null, slope: { highEdge: { section: 0, edge: 2 } } });
-	const alongHouse = computePlan({ units: 'metric', sections: [{ outline: [[0, 0], [4, 0], [4, 3], [0, 3]] }], slope: { highEdge: { section: 0, edge: 2 } } });
+	const pad = computePlan({
+		units: 'metric',
+		sections: [
+			{
+				outline: [
+					[0, 0],
+					[4, 0],
+					[4, 3],
+					[0, 3]
+				]
+			}
+		],
+		houseEdge: null,
+		slope: { highEdge: { section: 0, edge: 2 } }
+	});
+	const alongHouse = computePlan({
+		units: 'metric',
+		sections: [
+			{
+				outline: [
+					[0, 0],
+					[4, 0],
+					[4, 3],
+					[0, 3]
+				]
+			}
+		],
+		slope: { highEdge: { section: 0, edge: 2 } }
+	});
 
 	it('is drawn on the layout sheet along that edge, with its name', () => {
 		const sheet = layoutSheet(pad);
@@ -64,7 +111,20 @@ describe("a freestanding pad's high edge", () => {
 describe('a pour split inside one section', () => {
 	// 6 × 6 ft at 70 °F: more bags than the default crew places before the mix stiffens, so the engine
 	// splits the section with bulkheads that lie on no edge of the outline (edge −1).
-	const split = computePlan({ units: 'imperial', sections: [{ outline: [[0, 0], [6, 0], [6, 6], [0, 6]] }], conditions: { airTemp: 70 } });
+	const split = computePlan({
+		units: 'imperial',
+		sections: [
+			{
+				outline: [
+					[0, 0],
+					[6, 0],
+					[6, 6],
+					[0, 6]
+				]
+			}
+		],
+		conditions: { airTemp: 70 }
+	});
 
 	it('draws its bulkheads and names every stake', () => {
 		expect(split.forms.runs.some((r) => r.kind === 'bulkhead' && r.edge === -1)).toBe(true);
@@ -88,20 +148,35 @@ function crosses(a: readonly number[], b: readonly number[], r: { x0: number; y0
 		const o = (u: readonly number[], v: readonly number[], w: readonly number[]) => Math.sign((v[0] - u[0]) * (w[1] - u[1]) - (v[1] - u[1]) * (w[0] - u[0]));
 		return o(p, q, c) !== o(p, q, d) && o(c, d, p) !== o(c, d, q);
 	};
-	const [tl, tr, br, bl] = [[r.x0, r.y0], [r.x1, r.y0], [r.x1, r.y1], [r.x0, r.y1]];
+	const [tl, tr, br, bl] = [
+		[r.x0, r.y0],
+		[r.x1, r.y0],
+		[r.x1, r.y1],
+		[r.x0, r.y1]
+	];
 	return cut(a, b, tl, tr) || cut(a, b, tr, br) || cut(a, b, br, bl) || cut(a, b, bl, tl);
 }
 
 /** Every clash in a drawing: a label on a drawn line, a stake, the start circle or another label. */
 function clashes(d: LayoutDrawing): string[] {
-	const lines = [...d.slabs.flatMap((o) => o.map((p, i) => ({ from: p, to: o[(i + 1) % o.length] }))), ...d.house, ...d.joints, ...d.coldJoints, ...d.diagonals, ...(d.high ? [d.high] : [])];
+	const lines = [
+		...d.slabs.flatMap((o) => o.map((p, i) => ({ from: p, to: o[(i + 1) % o.length] }))),
+		...d.house,
+		...d.joints,
+		...d.coldJoints,
+		...d.diagonals,
+		...(d.high ? [d.high] : [])
+	];
 	const boxes = d.labels.map((l) => ({ l, b: labelBox(l) }));
 	const out: string[] = [];
 	for (const [i, { l, b }] of boxes.entries()) {
 		if (lines.some((s) => crosses(s.from, s.to, b))) out.push(`${l.kind} ${l.text} on a line`);
-		if (d.stakes.some((s) => s.at[0] > b.x0 - 2.5 && s.at[0] < b.x1 + 2.5 && s.at[1] > b.y0 - 2.5 && s.at[1] < b.y1 + 2.5)) out.push(`${l.kind} ${l.text} on a stake`);
-		if (d.start && d.start[0] > b.x0 - 8 && d.start[0] < b.x1 + 8 && d.start[1] > b.y0 - 8 && d.start[1] < b.y1 + 8) out.push(`${l.kind} ${l.text} on the start circle`);
-		for (const o of boxes.slice(i + 1)) if (b.x0 < o.b.x1 && o.b.x0 < b.x1 && b.y0 < o.b.y1 && o.b.y0 < b.y1) out.push(`${l.kind} ${l.text} on ${o.l.kind} ${o.l.text}`);
+		if (d.stakes.some((s) => s.at[0] > b.x0 - 2.5 && s.at[0] < b.x1 + 2.5 && s.at[1] > b.y0 - 2.5 && s.at[1] < b.y1 + 2.5))
+			out.push(`${l.kind} ${l.text} on a stake`);
+		if (d.start && d.start[0] > b.x0 - 8 && d.start[0] < b.x1 + 8 && d.start[1] > b.y0 - 8 && d.start[1] < b.y1 + 8)
+			out.push(`${l.kind} ${l.text} on the start circle`);
+		for (const o of boxes.slice(i + 1))
+			if (b.x0 < o.b.x1 && o.b.x0 < b.x1 && b.y0 < o.b.y1 && o.b.y0 < b.y1) out.push(`${l.kind} ${l.text} on ${o.l.kind} ${o.l.text}`);
 		if (b.x0 < 0 || b.y0 < 0 || b.x1 > d.width || b.y1 > d.height) out.push(`${l.kind} ${l.text} outside the drawing`);
 	}
 	return out;
@@ -115,7 +190,10 @@ describe('labels keep clear of each other and of the drawing', () => {
 	];
 	// The plan page's box and the PDF's (a Letter page less its margins).
 	for (const [name, plan] of plans)
-		for (const box of [{ width: 640, height: 480 }, { width: 504, height: 300 }])
+		for (const box of [
+			{ width: 640, height: 480 },
+			{ width: 504, height: 300 }
+		])
 			it(`${name}, ${box.width} × ${box.height}`, () => {
 				const d = layoutDrawing(plan, layoutSheet(plan), box);
 				expect(d.labels.length).toBeGreaterThan(8);

@@ -102,7 +102,13 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 			const mid = P([(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
 			const nn = out(e.index);
 			// Edge lengths sit just inside the slab, clear of the stakes outside it.
-			labels.push({ kind: 'length', text: tapeLength(e.length, r.units), at: [mid[0] - nn[0] * 10, mid[1] - nn[1] * 10], normal: [-nn[0], -nn[1]], tangent: unit(a, b) });
+			labels.push({
+				kind: 'length',
+				text: tapeLength(e.length, r.units),
+				at: [mid[0] - nn[0] * 10, mid[1] - nn[1] * 10],
+				normal: [-nn[0], -nn[1]],
+				tangent: unit(a, b)
+			});
 		}
 	}
 	const runOut = new Map<string, Pt>();
@@ -139,7 +145,14 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 		...r.forms.runs.filter((run) => run.kind === 'bulkhead' && run.edge < 0).map((run) => line(run.from, run.to))
 	];
 	// Everything drawn that a label must keep off: outlines, walls, joints, diagonals, stakes, the start circle.
-	const drawn = [...slabs.flatMap((o) => o.map((p, i) => ({ from: p, to: o[(i + 1) % o.length] }))), ...house, ...(high ? [high] : []), ...joints, ...coldJoints, ...diagonals];
+	const drawn = [
+		...slabs.flatMap((o) => o.map((p, i) => ({ from: p, to: o[(i + 1) % o.length] }))),
+		...house,
+		...(high ? [high] : []),
+		...joints,
+		...coldJoints,
+		...diagonals
+	];
 	const dots: Box[] = stakes.map((s) => ({ x0: s.at[0] - 3, y0: s.at[1] - 3, x1: s.at[0] + 3, y1: s.at[1] + 3 }));
 	if (start) dots.push({ x0: start[0] - 9, y0: start[1] - 9, x1: start[0] + 9, y1: start[1] + 9 });
 	const order: DrawnLabel['kind'][] = ['corner', 'high', 'length', 'board', 'stake'];

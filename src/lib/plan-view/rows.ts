@@ -152,8 +152,7 @@ export function mixingRows(p: MixingPlan): MixingRow[] {
 	}));
 }
 
-export const fitText = (r: MixingRow) =>
-	`${r.fits ? 'Fits' : 'Does not fit'} the working time, keeping ${r.finish} for finishing: ${r.spare}.`;
+export const fitText = (r: MixingRow) => `${r.fits ? 'Fits' : 'Does not fit'} the working time, keeping ${r.finish} for finishing: ${r.spare}.`;
 
 export const READY_MIX_HINT =
 	'At least one section would stiffen before this crew could place it: split it as shown, add people or a mixer, or order ready-mix.';

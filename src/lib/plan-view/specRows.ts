@@ -43,6 +43,10 @@ export function specRows(input: unknown, result: PlanResult | null): SpecRow[] {
 		label: 'Control joints',
 		value: `${formatLength(j.totalLength, u)} in all, ${jointMethod[j.method]}, ${formatSmall(j.depth, u)} deep, at most ${formatLength(j.maxSpacing, u)} apart`
 	});
-	if (result.geometry.coldJoints.length) rows.push({ label: 'Pours', value: `${result.geometry.sections.length} pours, ${result.geometry.coldJoints.length} cold ${result.geometry.coldJoints.length === 1 ? 'joint' : 'joints'}` });
+	if (result.geometry.coldJoints.length)
+		rows.push({
+			label: 'Pours',
+			value: `${result.geometry.sections.length} pours, ${result.geometry.coldJoints.length} cold ${result.geometry.coldJoints.length === 1 ? 'joint' : 'joints'}`
+		});
 	return rows;
 }

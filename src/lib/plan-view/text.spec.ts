@@ -1,6 +1,19 @@
 import { describe, expect, it } from 'vitest';
 import { area, mass, small, temperature } from '$lib/plan/units';
-import { figure, formatArea, formatDate, formatFall, formatElevation, formatMass, formatMinutes, formatQuantity, formatTemperature, plural, readerLocale, strengthNote } from './text';
+import {
+	figure,
+	formatArea,
+	formatDate,
+	formatFall,
+	formatElevation,
+	formatMass,
+	formatMinutes,
+	formatQuantity,
+	formatTemperature,
+	plural,
+	readerLocale,
+	strengthNote
+} from './text';
 
 describe('unit text', () => {
 	it('plain figures group thousands and drop trailing zeros and the sign of a zero', () => {

@@ -22,20 +22,16 @@ export const figure = (v: number, digits = 1) =>
 export const formatCost = (amount: number, currency?: string) => formatMoney(toCents(amount), currency);
 
 /** Concrete as it is ordered, without the ft³ aside: "2.4 yd³", "1.85 m³". */
-export const formatOrderVolume = (v: Volume, u: Units) =>
-	u === 'imperial' ? `${num(v.cubicYards, 2)} yd³` : `${num(v.cubicMeters, 2)} m³`;
+export const formatOrderVolume = (v: Volume, u: Units) => (u === 'imperial' ? `${num(v.cubicYards, 2)} yd³` : `${num(v.cubicMeters, 2)} m³`);
 
 /** `figure` with the digits spelled out, as the formatters below use it. */
 export const num = (x: number, digits: number) => figure(x, digits);
 
-export const formatArea = (a: Area, u: Units) =>
-	u === 'imperial' ? `${num(a.squareFeet, 1)} ft²` : `${num(a.squareMeters, 2)} m²`;
+export const formatArea = (a: Area, u: Units) => (u === 'imperial' ? `${num(a.squareFeet, 1)} ft²` : `${num(a.squareMeters, 2)} m²`);
 
-export const formatMass = (m: Mass, u: Units) =>
-	u === 'imperial' ? `${num(m.pounds, 0)} lb` : `${num(m.kilograms, 1)} kg`;
+export const formatMass = (m: Mass, u: Units) => (u === 'imperial' ? `${num(m.pounds, 0)} lb` : `${num(m.kilograms, 1)} kg`);
 
-export const formatTemperature = (t: Temperature, u: Units) =>
-	u === 'imperial' ? `${num(t.fahrenheit, 0)} °F` : `${num(t.celsius, 0)} °C`;
+export const formatTemperature = (t: Temperature, u: Units) => (u === 'imperial' ? `${num(t.fahrenheit, 0)} °F` : `${num(t.celsius, 0)} °C`);
 
 export const formatPercent = (p: number) => `${num(p, 0)} %`;
 

@@ -37,7 +37,10 @@ describe('bags for an 88 ft³ order', () => {
 		expect(r.order).toBeCloseTo(3.5, 12); // 88 / 27 = 3.26 yd³ → next 0.25 (from memory)
 		expect(r.shortLoad).toBe(false);
 		expect(r.cost).toBeCloseTo(630, 9); // 3.5 × 180
-		const c = compareCost(m.bags.offered.map((b) => bagOption(b, [order], m)), r);
+		const c = compareCost(
+			m.bags.offered.map((b) => bagOption(b, [order], m)),
+			r
+		);
 		expect(c.cheaper).toBe('readyMix');
 	});
 

@@ -74,10 +74,7 @@ export function readyMix(orderM3: number, m: Model): ReadyMixResult {
 	const minimum = m3ToOrderVolume(m.readyMix.minimumM3, u);
 	const shortLoad = order < minimum - 1e-9;
 	const price = m.readyMix.pricePerM3;
-	const cost =
-		price === undefined
-			? undefined
-			: price * orderVolumeToM3(order, u) + (shortLoad ? (m.readyMix.shortLoadFee ?? 0) : 0);
+	const cost = price === undefined ? undefined : price * orderVolumeToM3(order, u) + (shortLoad ? (m.readyMix.shortLoadFee ?? 0) : 0);
 	const note = shortLoad
 		? `${fmt(order)} ${unit} is under the plant's ${fmt(minimum)} ${unit} minimum: expect a short-load fee, or ask whether they deliver this little at all.`
 		: `Order ${fmt(order)} ${unit}, rounded up to the ${fmt(inc)} ${unit} increment.`;
@@ -94,8 +91,7 @@ export function compareCost(bags: BagOption[], mix: ReadyMixResult, materials?: 
 	const readyMixCost = mix.cost;
 	const shared = (materials?.items ?? []).filter((i) => i.id !== 'concrete-bags' && i.id !== 'water');
 	const sharedCost = shared.reduce((a, i) => a + (i.cost ?? 0), 0);
-	const cheaper =
-		bagCost === undefined || readyMixCost === undefined ? null : bagCost <= readyMixCost ? 'bags' : 'readyMix';
+	const cheaper = bagCost === undefined || readyMixCost === undefined ? null : bagCost <= readyMixCost ? 'bags' : 'readyMix';
 	return {
 		cheaper,
 		bagSize: best?.size,

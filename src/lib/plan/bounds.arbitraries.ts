@@ -16,7 +16,12 @@ const star = (n: number, cx: number, cy: number, r: number, radii: number[], tur
 		return [Math.round((cx + k * Math.cos(a)) * 1000) / 1000, Math.round((cy + k * Math.sin(a)) * 1000) / 1000];
 	});
 
-const rect = (x: number, w: number, h: number): P[] => [[x, 0], [x + w, 0], [x + w, h], [x, h]];
+const rect = (x: number, w: number, h: number): P[] => [
+	[x, 0],
+	[x + w, 0],
+	[x + w, h],
+	[x, h]
+];
 
 /** How big a section may be so that `count` of them stay inside the area, outline and stake limits. */
 function sectionSize(units: Units, count: number, stakeSpacing: number) {
@@ -85,13 +90,21 @@ export const planOutside: fc.Arbitrary<Breach> = fc.oneof(
 	fc.tuple(fc.constantFrom<Units>('imperial', 'metric'), over).map(([u, k]): Breach => {
 		// A square over the area limit whose outline stays under the perimeter limit.
 		const side = Math.min(Math.sqrt(LIMITS.area[u] * Math.min(k, 1.3)), (LIMITS.perimeter[u] / 4) * 0.99);
-		return { limit: 'area', needle: `the limit is ${LIMITS.area[u].toLocaleString('en-US')}`, plan: { ...base(u), sections: [{ outline: rect(0, side, side) }] } };
+		return {
+			limit: 'area',
+			needle: `the limit is ${LIMITS.area[u].toLocaleString('en-US')}`,
+			plan: { ...base(u), sections: [{ outline: rect(0, side, side) }] }
+		};
 	}),
 	fc.tuple(fc.constantFrom<Units>('imperial', 'metric'), over).map(([u, k]): Breach => {
 		// A strip 1 unit wide, longer than the outline limit allows.
 		const len = Math.min((LIMITS.perimeter[u] / 2) * k, u === 'imperial' ? 1999 : 599);
 		const width = u === 'imperial' ? 1 : 0.3;
-		return { limit: 'perimeter', needle: `the limit is ${LIMITS.perimeter[u].toLocaleString('en-US')}`, plan: { ...base(u), sections: [{ outline: rect(-len / 2, len, width) }] } };
+		return {
+			limit: 'perimeter',
+			needle: `the limit is ${LIMITS.perimeter[u].toLocaleString('en-US')}`,
+			plan: { ...base(u), sections: [{ outline: rect(-len / 2, len, width) }] }
+		};
 	}),
 	fc.integer({ min: LIMITS.vertices / 4 + 1, max: LIMITS.verticesPerSection }).map((n): Breach => ({
 		// Four stars, each under the per-section limit, together over the total.
@@ -112,7 +125,11 @@ export const planOutside: fc.Arbitrary<Breach> = fc.oneof(
 	fc.double({ min: 1, max: 1.5, noNaN: true }).map((spacing): Breach => {
 		// Close stakes along a long thin strip: more than the limit, inside the outline limit.
 		const len = (LIMITS.stakes * spacing * 1.05) / 2;
-		return { limit: 'stakes', needle: `the limit is ${LIMITS.stakes}`, plan: { ...base('imperial'), sections: [{ outline: rect(0, len, 2) }], forms: { stakeSpacing: spacing } } };
+		return {
+			limit: 'stakes',
+			needle: `the limit is ${LIMITS.stakes}`,
+			plan: { ...base('imperial'), sections: [{ outline: rect(0, len, 2) }], forms: { stakeSpacing: spacing } }
+		};
 	}),
 	fc.tuple(fc.integer({ min: 10, max: 20 }), fc.double({ min: 6, max: 12, noNaN: true })).map(([size, t]): Breach => ({
 		// Small bags on a slab near the area limit.

@@ -37,16 +37,29 @@ export function calendarEntries(r: PlanResult, planName: string): CalendarEntry[
 		const work = day.tasks.filter((t) => pourOf(t.id) === null && !milestoneIds.has(t.id));
 		if (!work.length) continue;
 		const labels = [...new Set(work.map((t) => WORK_LABELS[t.id] ?? 'Site work'))];
-		out.push({ key: `day-${day.day}`, date: day.date, kind: 'work', title: `${planName}: ${labels.join('; ')}`, description: work.map((t) => t.text).join('\n') });
+		out.push({
+			key: `day-${day.day}`,
+			date: day.date,
+			kind: 'work',
+			title: `${planName}: ${labels.join('; ')}`,
+			description: work.map((t) => t.text).join('\n')
+		});
 	}
 	r.schedule.pourDays.forEach((p, i) => {
 		if (!p.date) return;
 		const split = r.schedule.pourDays.some((q) => q.section === p.section && q.part > 0);
 		const name = `${r.geometry.sections[p.section]?.name ?? `Section ${p.section + 1}`}${split ? `, part ${p.part + 1}` : ''}`;
 		const tasks = r.schedule.days.find((d) => d.day === p.day)?.tasks.filter((t) => pourOf(t.id) === i) ?? [];
-		out.push({ key: `pour-${i}`, date: p.date, kind: 'pour', title: `${planName}: pour ${name} (${p.bags} bags)`, description: tasks.map((t) => t.text).join('\n') });
+		out.push({
+			key: `pour-${i}`,
+			date: p.date,
+			kind: 'pour',
+			title: `${planName}: pour ${name} (${p.bags} bags)`,
+			description: tasks.map((t) => t.text).join('\n')
+		});
 	});
 	for (const m of r.milestones)
-		if (m.date) out.push({ key: `milestone-${m.id}`, date: m.date, kind: 'milestone', title: `${planName}: ${m.title}`, description: `${m.rule}. Source: ${m.source}.` });
+		if (m.date)
+			out.push({ key: `milestone-${m.id}`, date: m.date, kind: 'milestone', title: `${planName}: ${m.title}`, description: `${m.rule}. Source: ${m.source}.` });
 	return out.sort((a, b) => (a.date < b.date ? -1 : a.date > b.date ? 1 : 0));
 }

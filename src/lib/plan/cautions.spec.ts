@@ -26,7 +26,7 @@ describe('every plan', () => {
 		expect(sev(50)).toBe('info'); // 50 lb = 22.68 kg < 23 kg, NIOSH Pub. 94-110
 	});
 
-	it('names a metric bag once, in kg, and the load constant in the plan\'s unit first', () => {
+	it("names a metric bag once, in kg, and the load constant in the plan's unit first", () => {
 		const reason = (input: PlanInput) => computePlan(input).cautions.find((x) => x.id === 'bag-weight')!.reason;
 		const met = reason({ units: 'metric', sections: [{ outline: rect(0, 0, 3, 2) }], bags: { offered: [{ size: 40 }] } });
 		expect(met).toMatch(/^The 40 kg bags are over the NIOSH load constant of 23 kg \(51 lb\)/);
@@ -123,7 +123,11 @@ describe('plan-specific cautions', () => {
 		const level = c({ houseEdge: { section: 0, edge: 0 }, slope: { fall: { value: 0, unit: 'percent' } } });
 		expect(level.reason).toMatch(/edge A–B the surface is level/);
 		expect(level.action).toMatch(/Pitch step, raise Fall/);
-		const two = c({ sections: [{ outline: rect(0, 0, 10, 8) }, { name: 'Walk', outline: rect(10, 0, 14, 8) }], houseEdge: { section: 1, edge: 1 }, slope: { highEdge: { section: 0, edge: 3 } } });
+		const two = c({
+			sections: [{ outline: rect(0, 0, 10, 8) }, { name: 'Walk', outline: rect(10, 0, 14, 8) }],
+			houseEdge: { section: 1, edge: 1 },
+			slope: { highEdge: { section: 0, edge: 3 } }
+		});
 		expect(two.reason).toMatch(/edge 2B–2C of Walk/);
 		for (const x of [high, level, two]) expect(`${x.reason} ${x.action}`).not.toMatch(/slope\.|highEdge|edge \d+[ ,.]/);
 	});

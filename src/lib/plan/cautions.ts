@@ -75,7 +75,8 @@ const utilities: Rule = () => ({
 	id: 'utility-locate',
 	title: 'Have buried utilities marked before digging',
 	reason: 'The plan digs for the slab and its base; gas, power and water lines can run shallow.',
-	action: 'Call 811 in the US (or your one-call number) at least 3 working days before digging — the day plan schedules it — wait for every utility to mark, and dig by hand near the marks.',
+	action:
+		'Call 811 in the US (or your one-call number) at least 3 working days before digging — the day plan schedules it — wait for every utility to mark, and dig by hand near the marks.',
 	source: 'FCC 05-59 (2005), 811 as the one-call number; notice set by state one-call law (2–3 working days in most states)',
 	severity: 'warning'
 });
@@ -128,7 +129,11 @@ const loads: Rule = ({ m }) => {
 	if (steel && !loaded) return null;
 	const psi = m.designStrengthMpa / MPA_PER_PSI;
 	const fr = m.units === 'imperial' ? `${Math.round(modulusOfRupture.psi(psi))} psi` : `${one(modulusOfRupture.mpa(m.designStrengthMpa), 2)} MPa`;
-	const what = steel ? `reinforced with ${m.reinforcement === 'mesh' ? 'welded wire mesh' : 'rebar'}` : m.reinforcement === 'fiber' ? 'fiber-reinforced only' : 'unreinforced';
+	const what = steel
+		? `reinforced with ${m.reinforcement === 'mesh' ? 'welded wire mesh' : 'rebar'}`
+		: m.reinforcement === 'fiber'
+			? 'fiber-reinforced only'
+			: 'unreinforced';
 	return {
 		id: steel ? 'loads-need-design' : 'unreinforced-loads',
 		title: steel ? 'Reinforcement does not make a slab carry vehicles' : 'Unreinforced concrete cracks under point and vehicle loads',
@@ -280,7 +285,8 @@ const weatherRules: Rule[] = [
 			id: 'cold-weather',
 			title: 'Cold weather',
 			reason: `The air falls to ${one(Math.min(...w.pours.map((p) => p.coldestAir.fahrenheit)))} °F (${one(Math.min(...w.pours.map((p) => p.coldestAir.celsius)))} °C) in the days after a pour — at or below 40 °F (4.4 °C) — or the mix goes in below 55 °F (13 °C). The concrete ${when}.`,
-			action: 'Keep the slab at or above 55 °F (13 °C) as placed, cover it with insulated blankets until it has reached 500 psi and through any frost, never pour on frozen ground; or wait for warmer days.',
+			action:
+				'Keep the slab at or above 55 °F (13 °C) as placed, cover it with insulated blankets until it has reached 500 psi and through any frost, never pour on frozen ground; or wait for warmer days.',
 			source: 'ACI 306R (cold weather: air falling to 40 °F; Table 3.1; 500 psi after Powers); strength from ACI 209R-92 on ASTM C1074 equivalent age',
 			severity: 'warning'
 		};
@@ -292,7 +298,8 @@ const weatherRules: Rule[] = [
 					id: 'cool-curing',
 					title: 'Too cool to cure without cover',
 					reason: `A daily mean of ${one(Math.min(...w.pours.map((p) => p.coldestCuringMean.fahrenheit)))} °F (${one(Math.min(...w.pours.map((p) => p.coldestCuringMean.celsius)))} °C) falls in the first ${m.cement === 'typeIII' ? 3 : 7} days after a pour; concrete should stay above 50 °F (10 °C) and moist that long.`,
-					action: 'Cover the slab with insulated curing blankets over the moist cure, or pour in a warmer week; strength gain slows and the milestones move out.',
+					action:
+						'Cover the slab with insulated curing blankets over the moist cure, or pour in a warmer week; strength gain slows and the milestones move out.',
 					// ACI 318-19 section number from memory
 					source: 'ACI 318-19 §26.5.3.1',
 					severity: 'warning'
@@ -343,7 +350,8 @@ const crew: Rule[] = [
 				id: 'mixing-time',
 				title: 'Split into pours on separate days',
 				reason: `${late.map((s) => `${m.sections[s.index].name} (${s.split!.parts} pours of ${s.split!.bagsPerPart.join(', ')} bags)`).join('; ')}: the crew cannot place it in one go before the first batch stiffens.`,
-				action: 'Set a bulkhead board on stakes at each cold joint, on a control-joint line, and pour one part a day as the day plan lists; or add hands, a drum mixer, or order ready-mix.',
+				action:
+					'Set a bulkhead board on stakes at each cold joint, on a control-joint line, and pour one part a day as the day plan lists; or add hands, a drum mixer, or order ready-mix.',
 				source: 'common practice (1½–2 h working time at 70 °F), no published source; joints ACI 302.1R',
 				severity: 'info'
 			};
@@ -403,9 +411,24 @@ const trenchAboveBase: Rule = ({ m }) => {
 	};
 };
 
-const RULES: Rule[] = [localCodes, utilities, wetCement, bagWeight, silica, loads, ...freezeThaw, fillNearSurface, oilRelease, aboveReference, ...drainage, ...weatherRules, ...crew, ...build, trenchAboveBase];
+const RULES: Rule[] = [
+	localCodes,
+	utilities,
+	wetCement,
+	bagWeight,
+	silica,
+	loads,
+	...freezeThaw,
+	fillNearSurface,
+	oilRelease,
+	aboveReference,
+	...drainage,
+	...weatherRules,
+	...crew,
+	...build,
+	trenchAboveBase
+];
 
 export function computeCautions(c: CautionContext): Caution[] {
 	return RULES.map((r) => r(c)).filter((x): x is Caution => x !== null);
 }
-

@@ -89,6 +89,36 @@ export const COMMON = {
  * right size for a US or metric market, from memory. Same keys and units as the prices input.
  */
 export const EXAMPLE_PRICES = {
-	imperial: { gravel: 45, lumber: 0.9, stake: 1.25, screw: 0.1, mesh: 0.3, releaseAgent: 15, isolationStrip: 1, curingCover: 0.1, curingCompound: 25, fiber: 8, rebar: 0.6, chair: 0.4, tools: 150, haulSoil: 60 },
-	metric: { gravel: 60, lumber: 3, stake: 1.25, screw: 0.1, mesh: 3.2, releaseAgent: 15, isolationStrip: 3.3, curingCover: 1.1, curingCompound: 6.6, fiber: 18, rebar: 2, chair: 0.4, tools: 150, haulSoil: 60 }
+	imperial: {
+		gravel: 45,
+		lumber: 0.9,
+		stake: 1.25,
+		screw: 0.1,
+		mesh: 0.3,
+		releaseAgent: 15,
+		isolationStrip: 1,
+		curingCover: 0.1,
+		curingCompound: 25,
+		fiber: 8,
+		rebar: 0.6,
+		chair: 0.4,
+		tools: 150,
+		haulSoil: 60
+	},
+	metric: {
+		gravel: 60,
+		lumber: 3,
+		stake: 1.25,
+		screw: 0.1,
+		mesh: 3.2,
+		releaseAgent: 15,
+		isolationStrip: 3.3,
+		curingCover: 1.1,
+		curingCompound: 6.6,
+		fiber: 18,
+		rebar: 2,
+		chair: 0.4,
+		tools: 150,
+		haulSoil: 60
+	}
 } as const;

@@ -34,11 +34,9 @@ export function tapeLength(l: Length, u: Units): string {
 	return `${sixteenths ? sign : ''}${feet ? `${feet} ft ${inchText}` : inchText}`;
 }
 
-export const formatSmall = (s: Small, u: Units) =>
-	u === 'imperial' ? formatInches(s.inches) : `${Math.round(s.millimeters)} mm`;
+export const formatSmall = (s: Small, u: Units) => (u === 'imperial' ? formatInches(s.inches) : `${Math.round(s.millimeters)} mm`);
 
-export const formatLength = (l: Length, u: Units) =>
-	u === 'imperial' ? `${trim(l.feet, 2)} ft` : `${trim(l.meters, 2)} m`;
+export const formatLength = (l: Length, u: Units) => (u === 'imperial' ? `${trim(l.feet, 2)} ft` : `${trim(l.meters, 2)} m`);
 
 export const formatVolume = (v: Volume, u: Units) =>
 	u === 'imperial' ? `${trim(v.cubicYards, 2)} yd³ (${trim(v.cubicFeet, 1)} ft³)` : `${trim(v.cubicMeters, 2)} m³`;

@@ -1,12 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-	findColdJoints,
-	freeIntervals,
-	geometryIssues,
-	layoutSections,
-	outlineProblem,
-	outlinesOverlap
-} from './geometry';
+import { findColdJoints, freeIntervals, geometryIssues, layoutSections, outlineProblem, outlinesOverlap } from './geometry';
 import type { Pt } from './polygon';
 
 const eps = 1e-9;
@@ -24,12 +17,63 @@ describe('outline validity', () => {
 	});
 
 	it('rejects self-intersecting, degenerate and folded outlines', () => {
-		expect(outlineProblem([[0, 0], [10, 0], [2, 8], [8, 10]], eps)).toMatch(/cross/); // edges 1 and 3 meet near (4.4, 5.6)
-		expect(outlineProblem([[0, 0], [10, 0], [10, 0], [0, 10]], eps)).toMatch(/same point/);
-		expect(outlineProblem([[0, 0], [5, 0], [10, 0]], eps)).toMatch(/no area/);
-		expect(outlineProblem([[0, 0], [10, 0], [4, 0], [4, 5]], eps)).toMatch(/fold back/);
+		expect(
+			outlineProblem(
+				[
+					[0, 0],
+					[10, 0],
+					[2, 8],
+					[8, 10]
+				],
+				eps
+			)
+		).toMatch(/cross/); // edges 1 and 3 meet near (4.4, 5.6)
+		expect(
+			outlineProblem(
+				[
+					[0, 0],
+					[10, 0],
+					[10, 0],
+					[0, 10]
+				],
+				eps
+			)
+		).toMatch(/same point/);
+		expect(
+			outlineProblem(
+				[
+					[0, 0],
+					[5, 0],
+					[10, 0]
+				],
+				eps
+			)
+		).toMatch(/no area/);
+		expect(
+			outlineProblem(
+				[
+					[0, 0],
+					[10, 0],
+					[4, 0],
+					[4, 5]
+				],
+				eps
+			)
+		).toMatch(/fold back/);
 		// A figure eight touching itself at one vertex.
-		expect(outlineProblem([[0, 0], [4, 0], [2, 2], [4, 4], [0, 4], [2, 2]], eps)).toMatch(/touch/);
+		expect(
+			outlineProblem(
+				[
+					[0, 0],
+					[4, 0],
+					[2, 2],
+					[4, 4],
+					[0, 4],
+					[2, 2]
+				],
+				eps
+			)
+		).toMatch(/touch/);
 	});
 });
 
@@ -46,7 +90,16 @@ describe('overlapping sections', () => {
 	});
 
 	it('reports each problem at the outline it concerns', () => {
-		const issues = geometryIssues([rect(0, 0, 10, 12), rect(5, 0, 10, 12), [[0, 0], [1, 0], [0, 1], [1, 1]]]);
+		const issues = geometryIssues([
+			rect(0, 0, 10, 12),
+			rect(5, 0, 10, 12),
+			[
+				[0, 0],
+				[1, 0],
+				[0, 1],
+				[1, 1]
+			]
+		]);
 		expect(issues).toContainEqual(expect.objectContaining({ path: 'sections.1.outline' }));
 		expect(issues).toContainEqual(expect.objectContaining({ path: 'sections.2.outline' }));
 	});

@@ -1,6 +1,21 @@
 // Section outlines: validity, areas, shared edges (cold joints) and the free edges that get forms.
 
-import { bbox, boxesMeet, cross, dist, edgeBoxes, edgeBoxesMeet, interiorPoint, lerp, next, perimeter, pointInPolygonXY, project, segmentRelation, signedArea } from './polygon';
+import {
+	bbox,
+	boxesMeet,
+	cross,
+	dist,
+	edgeBoxes,
+	edgeBoxesMeet,
+	interiorPoint,
+	lerp,
+	next,
+	perimeter,
+	pointInPolygonXY,
+	project,
+	segmentRelation,
+	signedArea
+} from './polygon';
 import type { Box, Pt } from './polygon';
 
 /** A problem with the input, addressed by its path in the request (e.g. "sections.0.outline"). */
@@ -27,8 +42,7 @@ export const tolerance = (outlines: readonly (readonly Pt[])[]) => {
 export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64Array = edgeBoxes(poly)): string | null {
 	const n = poly.length;
 	for (let i = 0; i < n; i++) {
-		if (dist(poly[i], next(poly, i)) <= eps)
-			return `vertices ${i} and ${(i + 1) % n} are the same point`;
+		if (dist(poly[i], next(poly, i)) <= eps) return `vertices ${i} and ${(i + 1) % n} are the same point`;
 	}
 	if (Math.abs(signedArea(poly)) <= eps * perimeter(poly)) return 'the outline has no area';
 	for (let i = 0; i < n; i++) {
@@ -37,16 +51,12 @@ export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64A
 		const b = next(poly, i);
 		const c = poly[(i + 2) % n];
 		// dot(sub(b, a), sub(c, b)) < 0, written out to skip two temporary arrays.
-		if (
-			Math.abs(cross(a, b, c)) <= eps * dist(a, b) &&
-			(b[0] - a[0]) * (c[0] - b[0]) + (b[1] - a[1]) * (c[1] - b[1]) < 0
-		)
+		if (Math.abs(cross(a, b, c)) <= eps * dist(a, b) && (b[0] - a[0]) * (c[0] - b[0]) + (b[1] - a[1]) * (c[1] - b[1]) < 0)
 			return `edges ${i} and ${(i + 1) % n} fold back onto each other`;
 		for (let j = i + 2; j < n; j++) {
 			if ((i === 0 && j === n - 1) || !edgeBoxesMeet(boxes, i, boxes, j, eps)) continue;
 			const rel = segmentRelation(a, b, poly[j], next(poly, j), eps);
-			if (rel !== 'none')
-				return `edges ${i} and ${j} ${rel === 'cross' ? 'cross' : 'touch'}: the outline must not cross or touch itself`;
+			if (rel !== 'none') return `edges ${i} and ${j} ${rel === 'cross' ? 'cross' : 'touch'}: the outline must not cross or touch itself`;
 		}
 	}
 	return null;
@@ -68,8 +78,7 @@ function probe(poly: readonly Pt[], eps: number, edges: Float64Array = edgeBoxes
 const insideBox = (x: number, y: number, b: Box) => x > b.minX && x < b.maxX && y > b.minY && y < b.maxY;
 
 /** Whether the point lies inside the other outline (its box first: most points are far off). */
-const inside = (x: number, y: number, into: Probe, eps: number) =>
-	insideBox(x, y, into.box) && pointInPolygonXY(x, y, into.poly, eps) === 'inside';
+const inside = (x: number, y: number, into: Probe, eps: number) => insideBox(x, y, into.box) && pointInPolygonXY(x, y, into.poly, eps) === 'inside';
 
 /**
  * Whether one of the outline's vertices, edge midpoints or its interior point lies inside the
@@ -94,11 +103,7 @@ function probesOverlap(a: Probe, b: Probe, eps: number): boolean {
 	const B = b.poly;
 	for (let i = 0; i < A.length; i++)
 		for (let j = 0; j < B.length; j++)
-			if (
-				edgeBoxesMeet(a.edges, i, b.edges, j, eps) &&
-				segmentRelation(A[i], next(A, i), B[j], next(B, j), eps) === 'cross'
-			)
-				return true;
+			if (edgeBoxesMeet(a.edges, i, b.edges, j, eps) && segmentRelation(A[i], next(A, i), B[j], next(B, j), eps) === 'cross') return true;
 	return hits(a, b, eps) || hits(b, a, eps);
 }
 
@@ -177,12 +182,7 @@ export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number
 const WHOLE_EDGE: readonly (readonly [number, number])[] = [[0, 1]];
 
 /** The pieces of one edge (as parameter intervals) not shared with another section. */
-export function freeIntervals(
-	a: Pt,
-	b: Pt,
-	shared: readonly ColdJointSeg[],
-	eps: number
-): readonly (readonly [number, number])[] {
+export function freeIntervals(a: Pt, b: Pt, shared: readonly ColdJointSeg[], eps: number): readonly (readonly [number, number])[] {
 	if (!shared.length) return WHOLE_EDGE;
 	const cuts = shared
 		.map((j): [number, number] => {
@@ -238,8 +238,7 @@ export function layoutSections(outlines: readonly (readonly Pt[])[]): Layout {
 	let outerPerimeter = 0;
 	// Each edge's joints, in the order found: one pass instead of a filter over all joints per edge.
 	const byEdge: ColdJointSeg[][][] = outlines.map(() => []);
-	for (const j of coldJoints)
-		for (let k = 0; k < 2; k++) (byEdge[j.sections[k]][j.edges[k]] ??= []).push(j);
+	for (const j of coldJoints) for (let k = 0; k < 2; k++) (byEdge[j.sections[k]][j.edges[k]] ??= []).push(j);
 	const sections = outlines.map((outline, s): SectionShape => {
 		const a = signedArea(outline);
 		const edges = outline.map((from, i): EdgeInfo => {

@@ -98,7 +98,11 @@ describe('a pour too big for the crew', () => {
 
 	it('pours each part on its own day, with bulkheads in the forms and stakes', () => {
 		// Each third 14.667 ft³ → 24.4, 25 bags (bag labels), one day apart at 70 °F (forms off ~24 h, common practice).
-		expect(r.schedule.pourDays.map((p) => [p.part, p.bags, p.day])).toEqual([[0, 25, 6], [1, 25, 7], [2, 25, 8]]);
+		expect(r.schedule.pourDays.map((p) => [p.part, p.bags, p.day])).toEqual([
+			[0, 25, 6],
+			[1, 25, 7],
+			[2, 25, 8]
+		]);
 		expect(r.forms.runs.filter((x) => x.kind === 'bulkhead').map((x) => x.length.feet)).toEqual([10, 10].map((x) => expect.closeTo(x, 9)));
 		// Each 10 ft bulkhead: 4 gaps of 2.5 ft → 5 new stakes (every 3 ft at most, common practice): 13 + 10.
 		expect(whole.forms.stakes.count).toBe(13);

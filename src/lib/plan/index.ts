@@ -12,16 +12,7 @@ import { computeMaterials, type MaterialsResult } from './materials';
 import { computeMixing, type MixingResult } from './mixing';
 import { airLowOn, airTempOn, toModel, type Model } from './model';
 import type { Pt } from './polygon';
-import {
-	ageSeries,
-	buildSchedule,
-	milestones,
-	pourOffsets,
-	type Pour,
-	strengthSeries,
-	type Milestone,
-	type ScheduleResult
-} from './schedule';
+import { ageSeries, buildSchedule, milestones, pourOffsets, type Pour, strengthSeries, type Milestone, type ScheduleResult } from './schedule';
 import { parsePlanInput, type EdgeRef, type ParsedPlan, type PlanInput } from './schema';
 import type { StrengthDay } from './strength';
 import { area, length, mToPlan } from './units';
@@ -95,13 +86,7 @@ function geometryResult(m: Model, layout: Layout, thick: boolean[][]): GeometryR
 			edges: s.edges.map((e) => ({
 				index: e.index,
 				length: length(e.length),
-				kind: isHouse(s.index, e.index)
-					? 'house'
-					: !e.shared.length
-						? 'outer'
-						: e.free.length
-							? 'partlyShared'
-							: 'coldJoint',
+				kind: isHouse(s.index, e.index) ? 'house' : !e.shared.length ? 'outer' : e.free.length ? 'partlyShared' : 'coldJoint',
 				thickened: thick[s.index][e.index]
 			}))
 		})),
@@ -112,8 +97,7 @@ function geometryResult(m: Model, layout: Layout, thick: boolean[][]): GeometryR
 }
 
 /** Widest span a screed must bridge: the shorter side of the largest section, m. */
-const screedSpan = (grids: SectionGrid[]) =>
-	Math.max(...grids.map((g) => Math.min(g.us[g.us.length - 1] - g.us[0], g.ws[g.ws.length - 1] - g.ws[0])));
+const screedSpan = (grids: SectionGrid[]) => Math.max(...grids.map((g) => Math.min(g.us[g.us.length - 1] - g.us[0], g.ws[g.ws.length - 1] - g.ws[0])));
 
 /** The joint depth as the day plan states it. */
 const jointDepthText = (m: Model, j: JointsResult) => formatSmall(j.depth, m.units);

@@ -48,7 +48,11 @@ describe('joint lines', () => {
 		const { joints } = computeJoints(m, layout, slopePlane(m, layout).frame);
 		const lines = joints.sections[0].lines.map((l) => [...l.from, ...l.to].map((v) => Math.round(v * 1e6) / 1e6));
 		// Max 12 ft (36 × 4 in): across at x = 8 (from the corner) and 16; along at y = 6 (from the corner).
-		expect(lines).toEqual([[8, 6, 8, 18], [16, 0, 16, 18], [8, 6, 24, 6]]);
+		expect(lines).toEqual([
+			[8, 6, 8, 18],
+			[16, 0, 16, 18],
+			[8, 6, 24, 6]
+		]);
 		expect(joints.sections[0].panels).toBe(5);
 		expect(joints.sections[0].maxAspect).toBeLessThanOrEqual(1.5 + 1e-9); // ACI 302.1R
 		expect(joints.maxSpacing.feet).toBeCloseTo(12, 9);

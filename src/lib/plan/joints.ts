@@ -25,14 +25,12 @@ export function jointSpacing(thickness: number): { min: number; max: number } {
 	};
 }
 
-export const jointDepth = (thickness: number) =>
-	Math.max(ACI_302.depthFraction * thickness, ACI_302.minDepth);
+export const jointDepth = (thickness: number) => Math.max(ACI_302.depthFraction * thickness, ACI_302.minDepth);
 
 /** Interval ends from lo to hi through the given cut values, dropping cuts that would leave slivers. */
 export function breakpoints(cuts: number[], lo: number, hi: number, minGap: number): number[] {
 	const out = [lo];
-	for (const c of sortNumbers([...cuts]))
-		if (c - out[out.length - 1] >= minGap && hi - c >= minGap) out.push(c);
+	for (const c of sortNumbers([...cuts])) if (c - out[out.length - 1] >= minGap && hi - c >= minGap) out.push(c);
 	out.push(hi);
 	return out;
 }
@@ -40,8 +38,7 @@ export function breakpoints(cuts: number[], lo: number, hi: number, minGap: numb
 /** Grid coordinates: each interval between breakpoints split into its count of equal parts. */
 export function gridLines(bps: number[], counts: number[]): number[] {
 	const out = [bps[0]];
-	for (let i = 0; i + 1 < bps.length; i++)
-		for (let k = 1; k <= counts[i]; k++) out.push(bps[i] + ((bps[i + 1] - bps[i]) * k) / counts[i]);
+	for (let i = 0; i + 1 < bps.length; i++) for (let k = 1; k <= counts[i]; k++) out.push(bps[i] + ((bps[i + 1] - bps[i]) * k) / counts[i]);
 	return out;
 }
 
@@ -69,7 +66,10 @@ function isReentrant(poly: readonly Pt[], i: number, orient: number): boolean {
 	const a = poly[(i + n - 1) % n];
 	const b = poly[i];
 	const c = poly[(i + 1) % n];
-	const ux = b[0] - a[0], uy = b[1] - a[1], vx = c[0] - b[0], vy = c[1] - b[1];
+	const ux = b[0] - a[0],
+		uy = b[1] - a[1],
+		vx = c[0] - b[0],
+		vy = c[1] - b[1];
 	const cos = (ux * vx + uy * vy) / Math.sqrt((ux * ux + uy * uy) * (vx * vx + vy * vy));
 	return cos < Math.cos(Math.PI / 6);
 }
@@ -85,8 +85,18 @@ export function panelGrid(poly: readonly Pt[], max: number, min: number, eps: nu
 	}
 	const orient = Math.sign(signedArea(poly));
 	const reflex = poly.filter((_, i) => isReentrant(poly, i, orient));
-	const bu = breakpoints(reflex.map((p) => p[0]), uMin, uMax, min / 3);
-	const bw = breakpoints(reflex.map((p) => p[1]), wMin, wMax, min / 3);
+	const bu = breakpoints(
+		reflex.map((p) => p[0]),
+		uMin,
+		uMax,
+		min / 3
+	);
+	const bw = breakpoints(
+		reflex.map((p) => p[1]),
+		wMin,
+		wMax,
+		min / 3
+	);
 	const cu = bu.slice(1).map((b, i) => Math.max(1, countUp((b - bu[i]) / max)));
 	const cw = bw.slice(1).map((b, i) => Math.max(1, countUp((b - bw[i]) / max)));
 	let grid: Grid = { us: [], ws: [], panels: 0, maxAspect: 1 };

@@ -47,7 +47,21 @@ describe('layout sheet', () => {
 
 	it('does not call a corner square when it is not, and gives its check by the law of cosines', () => {
 		// A parallelogram leaning 2 ft over 8 ft: the corner at A is atan(8/2) ≈ 76°.
-		const sheet = layoutSheet(computePlan({ units: 'imperial', sections: [{ outline: [[0, 0], [12, 0], [14, 8], [2, 8]] }] }));
+		const sheet = layoutSheet(
+			computePlan({
+				units: 'imperial',
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[12, 0],
+							[14, 8],
+							[2, 8]
+						]
+					}
+				]
+			})
+		);
 		const c = sheet.squareCheck!;
 		expect(c.ratio).toBeNull();
 		expect(c.angle).toBeCloseTo((Math.atan2(8, 2) * 180) / Math.PI, 6); // angle between +x and (2, 8)

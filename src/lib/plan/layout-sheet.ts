@@ -42,7 +42,13 @@ export interface LayoutSheet {
 	/** A freestanding pad's high side ("A–B"), where the top is highest; null along a house. */
 	highEdge: string | null;
 	squareCheck: SquareCheck | null;
-	diagonals: { section: number; name: string; first: { from: string; to: string; length: Length }; second: { from: string; to: string; length: Length }; square: boolean }[];
+	diagonals: {
+		section: number;
+		name: string;
+		first: { from: string; to: string; length: Length };
+		second: { from: string; to: string; length: Length };
+		square: boolean;
+	}[];
 	boards: { id: string; kind: 'outer' | 'house' | 'bulkhead'; formed: boolean; edge: string; length: Length }[];
 	stakes: { id: string; board: string; from: string; along: string; distance: Length }[];
 }

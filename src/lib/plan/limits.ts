@@ -27,5 +27,4 @@ export const LIMITS = {
  * Largest answer (rounded JSON, bytes) a plan inside LIMITS may get: it grows linearly with stakes,
  * corners and sections. At the limits this is 20 + 180 + 240 + 96 kB, under 1 MB.
  */
-export const answerBytesBound = (stakes: number, corners: number, sections: number) =>
-	20_000 + 300 * stakes + 800 * corners + 8_000 * sections;
+export const answerBytesBound = (stakes: number, corners: number, sections: number) => 20_000 + 300 * stakes + 800 * corners + 8_000 * sections;

@@ -31,7 +31,15 @@ describe('cut list', () => {
 
 	it('packs pieces first-fit decreasing into stock boards', () => {
 		// 7 opens an 8, 5 opens another 8, 3 goes in the second's offcut (no kerf here).
-		const boards = cutBoards([{ run: 'a', length: 3 }, { run: 'b', length: 7 }, { run: 'c', length: 5 }], [8, 12], 0);
+		const boards = cutBoards(
+			[
+				{ run: 'a', length: 3 },
+				{ run: 'b', length: 7 },
+				{ run: 'c', length: 5 }
+			],
+			[8, 12],
+			0
+		);
 		expect(boards.map((b) => b.stock)).toEqual([8, 8]);
 		expect(boards.map((b) => b.left)).toEqual([1, 0]);
 	});
@@ -69,7 +77,10 @@ describe('stakes', () => {
 		expect(forms.corners).toBe(2);
 		expect(forms.screws).toBe(20 * 2 + 4 + 2 * 2);
 		// 12.125 → a 16 (its offcut takes the 0.6 m cleat); 12 → a 12; 10.0625 × 2 → two 12s.
-		expect(forms.buy.map((b) => [Math.round(b.stock.feet), b.count])).toEqual([[12, 3], [16, 1]]);
+		expect(forms.buy.map((b) => [Math.round(b.stock.feet), b.count])).toEqual([
+			[12, 3],
+			[16, 1]
+		]);
 		expect(forms.isolationStrip.feet).toBeCloseTo(20, 9);
 		expect(forms.formLength.feet).toBeCloseTo(44, 9); // 12 + 20 + 12
 	});
@@ -81,7 +92,10 @@ describe('stakes', () => {
 		const { forms } = computeForms(m, layout);
 		expect(forms.cleats).toBe(0);
 		expect(forms.corners).toBe(4);
-		expect(forms.buy.map((b) => [Math.round(b.stock.feet), b.count])).toEqual([[12, 2], [16, 2]]);
+		expect(forms.buy.map((b) => [Math.round(b.stock.feet), b.count])).toEqual([
+			[12, 2],
+			[16, 2]
+		]);
 		expect(forms.cutList.flatMap((c) => c.cuts.map((x) => x.length.feet)).sort((a, b) => a - b)).toEqual(
 			[10.25, 10.25, 16, 16].map((x) => expect.closeTo(x, 9))
 		);

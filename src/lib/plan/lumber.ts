@@ -59,8 +59,7 @@ export function formRuns(m: Model, layout: Layout, splits: readonly SplitBulkhea
 		for (const e of sec.edges) {
 			const kind: RunKind = isHouse(sec.index, e.index) ? 'house' : 'outer';
 			const formed = kind === 'outer' || m.houseEdgeFormed;
-			for (const [t0, t1] of e.free)
-				add(kind, sec.index, e.index, lerp(e.from, e.to, t0), lerp(e.from, e.to, t1), formed);
+			for (const [t0, t1] of e.free) add(kind, sec.index, e.index, lerp(e.from, e.to, t0), lerp(e.from, e.to, t1), formed);
 		}
 	for (const j of layout.coldJoints) add('bulkhead', j.sections[0], j.edges[0], j.from, j.to, true);
 	for (const b of splits) add('bulkhead', b.section, -1, b.from, b.to, true);
@@ -193,8 +192,7 @@ export interface FormsResult {
 export function formFit(depth: number, thickness: number): Pick<FormsResult, 'fit' | 'difference' | 'note'> {
 	const d = depth - thickness;
 	const difference = small(Math.abs(d));
-	if (Math.abs(d) <= FLUSH_M)
-		return { fit: 'flush', difference, note: 'The board depth matches the slab: set its top at finished height.' };
+	if (Math.abs(d) <= FLUSH_M) return { fit: 'flush', difference, note: 'The board depth matches the slab: set its top at finished height.' };
 	if (d < 0)
 		return {
 			fit: 'shallow',
@@ -208,11 +206,7 @@ export function formFit(depth: number, thickness: number): Pick<FormsResult, 'fi
 	};
 }
 
-export function computeForms(
-	m: Model,
-	layout: Layout,
-	splits: readonly SplitBulkhead[] = []
-): { forms: FormsResult; stakes: StakePoint[] } {
+export function computeForms(m: Model, layout: Layout, splits: readonly SplitBulkhead[] = []): { forms: FormsResult; stakes: StakePoint[] } {
 	const runs = formRuns(m, layout, splits);
 	const maxStock = m.forms.stockLengths[m.forms.stockLengths.length - 1];
 	const pieces: { run: string; length: number }[] = [];
@@ -236,8 +230,7 @@ export function computeForms(
 		const i1 = Math.floor((p[0] + 1e-4) * 1e3);
 		const j0 = Math.floor((p[1] - 1e-4) * 1e3);
 		const j1 = Math.floor((p[1] + 1e-4) * 1e3);
-		if (near(p, i0, j0) || (i1 !== i0 && near(p, i1, j0)) || (j1 !== j0 && (near(p, i0, j1) || (i1 !== i0 && near(p, i1, j1)))))
-			return true;
+		if (near(p, i0, j0) || (i1 !== i0 && near(p, i1, j0)) || (j1 !== j0 && (near(p, i0, j1) || (i1 !== i0 && near(p, i1, j1))))) return true;
 		const k = cellKey(Math.floor(p[0] * 1e3), Math.floor(p[1] * 1e3));
 		before.push(lastIn.get(k) ?? -1);
 		lastIn.set(k, stakes.length);
@@ -289,9 +282,7 @@ export function computeForms(
 				to: P(r.to)
 			})),
 			formLength: length(formLength),
-			buy: m.forms.stockLengths
-				.map((s) => ({ stock: length(s), count: boards.filter((b) => b.stock === s).length }))
-				.filter((b) => b.count > 0),
+			buy: m.forms.stockLengths.map((s) => ({ stock: length(s), count: boards.filter((b) => b.stock === s).length })).filter((b) => b.count > 0),
 			cutList: boards.map((b) => ({
 				stock: length(b.stock),
 				cuts: b.cuts.map((c) => ({ run: c.run, length: length(c.length) })),

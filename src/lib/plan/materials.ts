@@ -143,8 +143,20 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 	const faceM2 = x.forms.formLength.meters * m.forms.depth;
 	const releaseL = faceM2 / RELEASE_M2_PER_L;
 	items.push(
-		{ id: 'stakes', name: `Form stakes, ${Math.round(imp ? x.forms.stakes.length.inches : x.forms.stakes.length.millimeters)} ${imp ? 'in' : 'mm'}`, quantity: x.forms.stakes.count, unit: 'stakes', cost: priced(x.forms.stakes.count, p.stake) },
-		{ id: 'screws', name: 'Exterior screws for stakes, splice cleats and corners', quantity: x.forms.screws, unit: 'screws', cost: priced(x.forms.screws, p.screw) }
+		{
+			id: 'stakes',
+			name: `Form stakes, ${Math.round(imp ? x.forms.stakes.length.inches : x.forms.stakes.length.millimeters)} ${imp ? 'in' : 'mm'}`,
+			quantity: x.forms.stakes.count,
+			unit: 'stakes',
+			cost: priced(x.forms.stakes.count, p.stake)
+		},
+		{
+			id: 'screws',
+			name: 'Exterior screws for stakes, splice cleats and corners',
+			quantity: x.forms.screws,
+			unit: 'screws',
+			cost: priced(x.forms.screws, p.screw)
+		}
 	);
 	if (m.forms.release === 'agent') {
 		const containers = Math.max(1, countUp(releaseL / RELEASE_CONTAINER_L));
@@ -158,7 +170,13 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 		});
 	}
 	if (x.forms.isolationStrip.meters > 0)
-		items.push({ id: 'isolation-strip', name: 'Isolation-joint strip against the house', quantity: L(x.forms.isolationStrip), unit: lu, cost: priced(x.forms.isolationStrip.meters, p.isolationStripPerM) });
+		items.push({
+			id: 'isolation-strip',
+			name: 'Isolation-joint strip against the house',
+			quantity: L(x.forms.isolationStrip),
+			unit: lu,
+			cost: priced(x.forms.isolationStrip.meters, p.isolationStripPerM)
+		});
 	if (m.reinforcement === 'mesh') {
 		const q = meshQuantities(m, x.slabAreaM2);
 		items.push(
@@ -170,7 +188,14 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 				cost: priced(q.boughtM2, p.meshPerM2),
 				note: `Lap each ${round1(imp ? q.lap / M_PER_IN : q.lap * 1000)} ${imp ? 'in' : 'mm'} (one wire spacing plus 2 in, common practice); ${round1(imp ? q.boughtM2 / M2_PER_FT2 : q.boughtM2)} ${lu}² bought.`
 			},
-			{ id: 'chairs', name: 'Chairs to hold the mesh in the upper half', quantity: q.chairs, unit: 'chairs', cost: priced(q.chairs, p.chair), note: 'One per grid square at the chair spacing (WRI: supports at most 3 ft apart).' }
+			{
+				id: 'chairs',
+				name: 'Chairs to hold the mesh in the upper half',
+				quantity: q.chairs,
+				unit: 'chairs',
+				cost: priced(q.chairs, p.chair),
+				note: 'One per grid square at the chair spacing (WRI: supports at most 3 ft apart).'
+			}
 		);
 	}
 	if (m.reinforcement === 'rebar') {
@@ -200,10 +225,22 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 		});
 	}
 	if (m.curing.method === 'cover')
-		items.push({ id: 'curing-cover', name: 'Plastic sheet or wet burlap for curing', quantity: area, unit: `${lu}²`, cost: priced(x.slabAreaM2, p.curingCoverPerM2) });
+		items.push({
+			id: 'curing-cover',
+			name: 'Plastic sheet or wet burlap for curing',
+			quantity: area,
+			unit: `${lu}²`,
+			cost: priced(x.slabAreaM2, p.curingCoverPerM2)
+		});
 	if (m.curing.method === 'compound') {
 		const liters = x.slabAreaM2 / m.curing.coverage;
-		items.push({ id: 'curing-compound', name: 'Curing compound (ASTM C309)', quantity: imp ? liters / L_PER_US_GAL : liters, unit: imp ? 'gal' : 'L', cost: priced(liters, p.curingCompoundPerL) });
+		items.push({
+			id: 'curing-compound',
+			name: 'Curing compound (ASTM C309)',
+			quantity: imp ? liters / L_PER_US_GAL : liters,
+			unit: imp ? 'gal' : 'L',
+			cost: priced(liters, p.curingCompoundPerL)
+		});
 	}
 	const dig = x.volume.dig;
 	items.push({
@@ -214,7 +251,14 @@ export function computeMaterials(m: Model, x: MaterialsInput): MaterialsResult {
 		cost: priced(dig.loads, p.haulSoil),
 		note: `${round1(imp ? dig.volume.cubicYards : dig.volume.cubicMeters)} ${imp ? 'yd³' : 'm³'} in the ground, about ${round1(imp ? dig.weight.shortTons : dig.weight.tonnes)} ${imp ? 'short tons' : 't'} at the vehicle's payload (soil density: common practice, no published source). ${dig.note}` // soil density from memory
 	});
-	items.push({ id: 'tools', name: 'Tools (bought or hired)', quantity: 1, unit: 'set', cost: p.tools, note: 'The tool list below; counted for bags and ready-mix alike.' });
+	items.push({
+		id: 'tools',
+		name: 'Tools (bought or hired)',
+		quantity: 1,
+		unit: 'set',
+		cost: p.tools,
+		note: 'The tool list below; counted for bags and ready-mix alike.'
+	});
 	return { items, tools: tools(m, x), diyTotal: total(items) };
 }
 
@@ -239,7 +283,12 @@ function tools(m: Model, x: MaterialsInput): Tool[] {
 		{ id: 'wheelbarrow', name: 'Wheelbarrow', count: Math.max(1, m.crew.people - 1), why: 'Moves mix from the mixer to the forms.' },
 		{ id: 'shovel', name: 'Shovels and a rake', count: m.crew.people, why: 'Digging, spreading base and concrete.' },
 		{ id: 'tamper', name: 'Hand tamper or plate compactor', count: 1, why: 'Compacts the base in lifts.' },
-		{ id: 'line-level', name: imp ? "Mason's line, line level, tape and a 4 ft level" : "Mason's line, line level, tape and a 1.2 m level", count: 1, why: 'Sets the forms to the level-line table.' },
+		{
+			id: 'line-level',
+			name: imp ? "Mason's line, line level, tape and a 4 ft level" : "Mason's line, line level, tape and a 1.2 m level",
+			count: 1,
+			why: 'Sets the forms to the level-line table.'
+		},
 		{ id: 'driver', name: 'Drill-driver and a sledge', count: 1, why: 'Drives stakes, screws the forms.' },
 		{
 			id: 'screed',
@@ -252,12 +301,18 @@ function tools(m: Model, x: MaterialsInput): Tool[] {
 		{ id: 'floats', name: 'Bull float or magnesium float, edger, broom', count: 1, why: 'Finishing.' },
 		{ id: 'ppe', name: 'Alkali-resistant gloves, rubber boots, eye protection', count: m.crew.people, why: 'Wet cement burns skin and eyes (OSHA 3351-07).' }
 	];
-	if (m.curing.method === 'wet') list.push({ id: 'hose', name: 'Hose with a sprinkler or soaker', count: 1, why: 'Keeps the slab wet through curing (ACI 308R).' });
+	if (m.curing.method === 'wet')
+		list.push({ id: 'hose', name: 'Hose with a sprinkler or soaker', count: 1, why: 'Keeps the slab wet through curing (ACI 308R).' });
 	if (m.curing.method === 'compound') list.push({ id: 'sprayer', name: 'Pump sprayer', count: 1, why: 'Sprays the curing compound evenly.' });
 	if (x.hasJoints)
 		list.push(
 			m.jointMethod === 'saw'
-				? { id: 'saw', name: 'Concrete saw with water feed, and a respirator', count: 1, why: 'Cuts the control joints; water keeps silica dust down (OSHA 29 CFR 1926.1153).' }
+				? {
+						id: 'saw',
+						name: 'Concrete saw with water feed, and a respirator',
+						count: 1,
+						why: 'Cuts the control joints; water keeps silica dust down (OSHA 29 CFR 1926.1153).'
+					}
 				: { id: 'groover', name: 'Groover deep enough for the joint depth', count: 1, why: 'Tools the control joints.' }
 		);
 	return list;

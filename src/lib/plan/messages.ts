@@ -19,8 +19,7 @@ const RATE_WORDS: Record<Units, Record<RateUnit, string>> = {
  * drop is bounded by the largest small dimension (`maxDrop`, 48 in or 1,200 mm).
  */
 export function rateMessage(label: string, rate: RateUnit | undefined, units: Units, signed: boolean, maxDrop: number): string {
-	if (!rate || !(rate in RATE_MAX))
-		return `Enter ${label} as a number with its unit: %, in per ft, mm per m, or a total drop in ${UNIT[units].S}.`;
+	if (!rate || !(rate in RATE_MAX)) return `Enter ${label} as a number with its unit: %, in per ft, mm per m, or a total drop in ${UNIT[units].S}.`;
 	const max = rate === 'totalDrop' ? maxDrop : RATE_MAX[rate];
 	return `Enter ${label}${range(signed ? -max : 0, max, RATE_WORDS[units][rate])}.`;
 }
@@ -28,8 +27,42 @@ export function rateMessage(label: string, rate: RateUnit | undefined, units: Un
 type UnitKind = 'L' | 'S' | 'T' | 'M' | 'V' | 'PV' | 'psi' | 'wind' | '%' | 'min' | 'days' | 'money' | 'x' | 'dens' | 'cover' | 'dose';
 
 const UNIT: Record<Units, Record<UnitKind, string>> = {
-	imperial: { L: 'ft', S: 'in', T: '°F', M: 'lb', V: 'yd³', PV: 'ft³', psi: 'psi', wind: 'mph', '%': '%', min: 'min', days: 'days', money: 'USD', x: '', dens: 'short tons per yd³', cover: 'ft² per US gal', dose: 'oz' },
-	metric: { L: 'm', S: 'mm', T: '°C', M: 'kg', V: 'm³', PV: 'm³', psi: 'MPa', wind: 'km/h', '%': '%', min: 'min', days: 'days', money: 'USD', x: '', dens: 't per m³', cover: 'm² per L', dose: 'g' }
+	imperial: {
+		L: 'ft',
+		S: 'in',
+		T: '°F',
+		M: 'lb',
+		V: 'yd³',
+		PV: 'ft³',
+		psi: 'psi',
+		wind: 'mph',
+		'%': '%',
+		min: 'min',
+		days: 'days',
+		money: 'USD',
+		x: '',
+		dens: 'short tons per yd³',
+		cover: 'ft² per US gal',
+		dose: 'oz'
+	},
+	metric: {
+		L: 'm',
+		S: 'mm',
+		T: '°C',
+		M: 'kg',
+		V: 'm³',
+		PV: 'm³',
+		psi: 'MPa',
+		wind: 'km/h',
+		'%': '%',
+		min: 'min',
+		days: 'days',
+		money: 'USD',
+		x: '',
+		dens: 't per m³',
+		cover: 'm² per L',
+		dose: 'g'
+	}
 };
 
 /**
@@ -264,8 +297,7 @@ export function planMessage(iss: Issue, units: Units, input?: unknown): string {
 	}
 	const Label = label[0].toUpperCase() + label.slice(1);
 	// A corner of an outline: [x, y] in the plan's length unit.
-	if (key === 'sections.outline' && typeof path[path.length - 1] === 'number')
-		return `Enter each corner as two numbers [x, y] in ${unit}.`;
+	if (key === 'sections.outline' && typeof path[path.length - 1] === 'number') return `Enter each corner as two numbers [x, y] in ${unit}.`;
 	// The schema that owns the issue (for a min/max check, the number it belongs to).
 	const owner = ((iss as { schema?: unknown }).schema ?? iss.inst ?? {}) as NumberInfo;
 	const [min, max] = [owner.minValue, owner.maxValue];
@@ -294,8 +326,7 @@ export function planMessage(iss: Issue, units: Units, input?: unknown): string {
 		case 'too_big': {
 			if (iss.origin === 'number' || iss.origin === 'int' || iss.origin === 'bigint')
 				return `Enter ${label}${range(min ?? (iss.code === 'too_small' ? Number(iss.minimum) : null), max ?? (iss.code === 'too_big' ? Number(iss.maximum) : null), unit, whole)}.`;
-			if (iss.origin === 'string')
-				return iss.code === 'too_big' ? `Shorten ${label} to ${iss.maximum} characters or fewer.` : `Enter ${label}.`;
+			if (iss.origin === 'string') return iss.code === 'too_big' ? `Shorten ${label} to ${iss.maximum} characters or fewer.` : `Enter ${label}.`;
 			if (iss.origin === 'array' || iss.origin === 'set') {
 				const items = ITEMS[key] ?? 'entries';
 				if (key === 'sections' && iss.code === 'too_small') return 'Draw at least one section (an outline of 3 or more corners).';
@@ -313,10 +344,18 @@ export function planMessage(iss: Issue, units: Units, input?: unknown): string {
 		case 'invalid_format':
 			return iss.format === 'date' ? `Enter ${label} as a date, YYYY-MM-DD.` : `Check the form of ${label}.`;
 		case 'unrecognized_keys':
-			return `${iss.keys.length > 1 ? `The fields ${list(iss.keys.map((k) => `"${k}"`), 'and')} are` : `The field "${iss.keys[0]}" is`} not part of ${keys.length ? label : 'a plan'}; check the spelling or remove ${iss.keys.length > 1 ? 'them' : 'it'}.`;
+			return `${
+				iss.keys.length > 1
+					? `The fields ${list(
+							iss.keys.map((k) => `"${k}"`),
+							'and'
+						)} are`
+					: `The field "${iss.keys[0]}" is`
+			} not part of ${keys.length ? label : 'a plan'}; check the spelling or remove ${iss.keys.length > 1 ? 'them' : 'it'}.`;
 		case 'invalid_union':
 			if (key === 'units') return 'Choose the units: imperial or metric.';
-			if (key === 'conditions.airTemp' || key === 'conditions.airLow') return `Enter ${label}${range(units === 'imperial' ? -40 : -40, units === 'imperial' ? 130 : 55, unit)}, as one value or a list of one per day.`;
+			if (key === 'conditions.airTemp' || key === 'conditions.airLow')
+				return `Enter ${label}${range(units === 'imperial' ? -40 : -40, units === 'imperial' ? 130 : 55, unit)}, as one value or a list of one per day.`;
 			if (key === 'thickenedEdge.edges') return `Choose ${label}: none, free, or a list of edges ({ section, edge }).`;
 			return `Check ${label}.`;
 		default:

@@ -54,7 +54,12 @@ describe('crew time', () => {
 });
 
 describe('splitting a section', () => {
-	const poly: [number, number][] = [[0, 0], [24, 0], [24, 12], [0, 12]];
+	const poly: [number, number][] = [
+		[0, 0],
+		[24, 0],
+		[24, 12],
+		[0, 12]
+	];
 	// Yield 1 per bag and 30 units of concrete: a part holding a share of the 288 area needs ⌈30 × share⌉ bags.
 
 	it('puts every cold joint on a control-joint line, farthest first', () => {

@@ -7,7 +7,16 @@ const model = (input: PlanInput) => {
 	if (!r.ok) throw new Error(JSON.stringify(r.errors));
 	return toModel(r.plan);
 };
-const sections = [{ outline: [[0, 0], [20, 0], [20, 12], [0, 12]] as [number, number][] }];
+const sections = [
+	{
+		outline: [
+			[0, 0],
+			[20, 0],
+			[20, 12],
+			[0, 12]
+		] as [number, number][]
+	}
+];
 
 describe('dressed lumber', () => {
 	it('sets each nominal board at its PS 20 dry depth', () => {

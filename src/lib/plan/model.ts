@@ -3,7 +3,22 @@
 import { COMMON } from './defaults';
 import type { Pt } from './polygon';
 import type { EdgeRef, ParsedPlan } from './schema';
-import { KG_PER_LB, L_PER_US_GAL, M2_PER_FT2, MPA_PER_PSI, M3_PER_FT3, M3_PER_YD3, M_PER_IN, massToKg, orderVolumeToM3, planToM, planVolumeToM3, smallToM, tempToC, windToKmh } from './units';
+import {
+	KG_PER_LB,
+	L_PER_US_GAL,
+	M2_PER_FT2,
+	MPA_PER_PSI,
+	M3_PER_FT3,
+	M3_PER_YD3,
+	M_PER_IN,
+	massToKg,
+	orderVolumeToM3,
+	planToM,
+	planVolumeToM3,
+	smallToM,
+	tempToC,
+	windToKmh
+} from './units';
 import type { Units } from './units';
 
 /** PS 20 dressed (dry) depth of each nominal board, inches (DOC PS 20). */
@@ -150,8 +165,7 @@ export function toModel(p: ParsedPlan): Model {
 	const largest = offered.reduce((a, b) => (b.kg > a.kg ? b : a));
 	const houseEdges = p.houseEdge ? [p.houseEdge, ...p.otherHouseEdges] : [];
 	const temps = Array.isArray(p.conditions.airTemp) ? p.conditions.airTemp : [p.conditions.airTemp];
-	const depth =
-		p.forms.lumber === 'custom' ? S(p.forms.customDepth ?? 0) : DRESSED_DEPTH_IN[p.forms.lumber] * M_PER_IN;
+	const depth = p.forms.lumber === 'custom' ? S(p.forms.customDepth ?? 0) : DRESSED_DEPTH_IN[p.forms.lumber] * M_PER_IN;
 	return {
 		units: u,
 		name: p.name,
@@ -223,7 +237,8 @@ export function toModel(p: ParsedPlan): Model {
 			releaseAgent: p.prices.releaseAgent,
 			isolationStripPerM: perL(p.prices.isolationStrip),
 			curingCoverPerM2: p.prices.curingCover === undefined ? undefined : p.prices.curingCover / L(1) ** 2,
-			curingCompoundPerL: p.prices.curingCompound === undefined ? undefined : u === 'imperial' ? p.prices.curingCompound / L_PER_US_GAL : p.prices.curingCompound,
+			curingCompoundPerL:
+				p.prices.curingCompound === undefined ? undefined : u === 'imperial' ? p.prices.curingCompound / L_PER_US_GAL : p.prices.curingCompound,
 			fiberPerKg: p.prices.fiber === undefined ? undefined : p.prices.fiber / massToKg(1, u),
 			rebarPerM: perL(p.prices.rebar),
 			chair: p.prices.chair,
@@ -279,9 +294,7 @@ function density(v: number, u: Units): number {
 }
 
 /** Daily low on a day counted from the first pour, holding the last given value; the mean when none was given. */
-export const airLowOn = (m: Model, day: number) =>
-	m.airLows.length ? m.airLows[Math.min(day, m.airLows.length - 1)] : airTempOn(m, day);
+export const airLowOn = (m: Model, day: number) => (m.airLows.length ? m.airLows[Math.min(day, m.airLows.length - 1)] : airTempOn(m, day));
 
 /** Air temperature on a day counted from the first pour (0), holding the last given value. */
 export const airTempOn = (m: Model, day: number) => m.airTemps[Math.min(day, m.airTemps.length - 1)];
-

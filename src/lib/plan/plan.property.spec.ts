@@ -14,8 +14,7 @@ import { ELL, largestPlan, rect } from './test-plans';
 const RUNS = { numRuns: 40 };
 // Up to 27 ft a side, so twice that stays inside the 3000 ft² limit.
 const size = fc.double({ min: 4, max: 27, noNaN: true });
-const plan = (outline: [number, number][], over: Partial<PlanInput> = {}): PlanInput =>
-	({ units: 'imperial', sections: [{ outline }], ...over }) as PlanInput;
+const plan = (outline: [number, number][], over: Partial<PlanInput> = {}): PlanInput => ({ units: 'imperial', sections: [{ outline }], ...over }) as PlanInput;
 const close = (a: number, b: number, rel = 1e-9) => expect(Math.abs(a - b)).toBeLessThanOrEqual(rel * Math.max(1, Math.abs(a)));
 
 describe('volume is linear in thickness and area', () => {

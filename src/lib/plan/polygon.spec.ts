@@ -14,9 +14,21 @@ import {
 	type Pt
 } from './polygon';
 
-const rect: Pt[] = [[0, 0], [20, 0], [20, 12], [0, 12]];
+const rect: Pt[] = [
+	[0, 0],
+	[20, 0],
+	[20, 12],
+	[0, 12]
+];
 // L-shape: a 24 × 18 rectangle less an 8 × 6 notch at the origin.
-const ell: Pt[] = [[8, 0], [24, 0], [24, 18], [0, 18], [0, 6], [8, 6]];
+const ell: Pt[] = [
+	[8, 0],
+	[24, 0],
+	[24, 18],
+	[0, 18],
+	[0, 6],
+	[8, 6]
+];
 const eps = 1e-9;
 
 describe('area and perimeter', () => {
@@ -52,7 +64,24 @@ describe('point in polygon', () => {
 
 	it('finds a point strictly inside', () => {
 		expect(pointInPolygon(interiorPoint(ell, eps), ell, eps)).toBe('inside');
-		expect(pointInPolygon(interiorPoint([[0, 0], [10, 0], [0, 10]], eps), [[0, 0], [10, 0], [0, 10]], eps)).toBe('inside');
+		expect(
+			pointInPolygon(
+				interiorPoint(
+					[
+						[0, 0],
+						[10, 0],
+						[0, 10]
+					],
+					eps
+				),
+				[
+					[0, 0],
+					[10, 0],
+					[0, 10]
+				],
+				eps
+			)
+		).toBe('inside');
 	});
 });
 

@@ -11,8 +11,7 @@ export const dist = (a: Pt, b: Pt) => {
 	return Math.sqrt(dx * dx + dy * dy); // Math.hypot is several times slower
 };
 /** Point at t along a→b; exact at the ends so shared corners compare equal. */
-export const lerp = (a: Pt, b: Pt, t: number): Pt =>
-	t === 0 ? a : t === 1 ? b : [a[0] + (b[0] - a[0]) * t, a[1] + (b[1] - a[1]) * t];
+export const lerp = (a: Pt, b: Pt, t: number): Pt => (t === 0 ? a : t === 1 ? b : [a[0] + (b[0] - a[0]) * t, a[1] + (b[1] - a[1]) * t]);
 /** a scaled to length 1. */
 export const unit = (a: Pt): Pt => {
 	const l = Math.sqrt(a[0] * a[0] + a[1] * a[1]);
@@ -92,8 +91,7 @@ export function segmentRelation(a: Pt, b: Pt, c: Pt, d: Pt, eps: number): Relati
 		return (t1 - t0) * len >= -eps ? 'touch' : 'none';
 	}
 	// Written out rather than through a helper closure, which would be allocated on every call.
-	if (distToSegment(c, a, b) <= eps || distToSegment(d, a, b) <= eps || distToSegment(a, c, d) <= eps || distToSegment(b, c, d) <= eps)
-		return 'touch';
+	if (distToSegment(c, a, b) <= eps || distToSegment(d, a, b) <= eps || distToSegment(a, c, d) <= eps || distToSegment(b, c, d) <= eps) return 'touch';
 	return 'none';
 }
 
@@ -117,8 +115,7 @@ export function bbox(poly: readonly Pt[]): Box {
 	return { minX, minY, maxX, maxY };
 }
 
-export const boxesMeet = (a: Box, b: Box, eps: number) =>
-	a.minX <= b.maxX + eps && b.minX <= a.maxX + eps && a.minY <= b.maxY + eps && b.minY <= a.maxY + eps;
+export const boxesMeet = (a: Box, b: Box, eps: number) => a.minX <= b.maxX + eps && b.minX <= a.maxX + eps && a.minY <= b.maxY + eps && b.minY <= a.maxY + eps;
 
 export function pointInPolygon(p: Pt, poly: readonly Pt[], eps: number): Where {
 	return pointInPolygonXY(p[0], p[1], poly, eps);
@@ -180,8 +177,7 @@ export function clipVertical(poly: readonly Pt[], c: number, eps: number): [numb
 		const da = a[0] - c;
 		const db = b[0] - c;
 		if (Math.abs(da) <= eps) ys.push(a[1]);
-		else if ((da > eps && db < -eps) || (da < -eps && db > eps))
-			ys.push(a[1] + (-da / (b[0] - a[0])) * (b[1] - a[1]));
+		else if ((da > eps && db < -eps) || (da < -eps && db > eps)) ys.push(a[1] + (-da / (b[0] - a[0])) * (b[1] - a[1]));
 	}
 	sortNumbers(ys);
 	const out: [number, number][] = [];
@@ -257,10 +253,7 @@ export function edgeBoxes(poly: readonly Pt[]): Float64Array {
 
 /** Whether edge i of one packed set and edge j of another have meeting boxes. */
 export const edgeBoxesMeet = (A: Float64Array, i: number, B: Float64Array, j: number, eps: number) =>
-	A[i * 4] <= B[j * 4 + 2] + eps &&
-	B[j * 4] <= A[i * 4 + 2] + eps &&
-	A[i * 4 + 1] <= B[j * 4 + 3] + eps &&
-	B[j * 4 + 1] <= A[i * 4 + 3] + eps;
+	A[i * 4] <= B[j * 4 + 2] + eps && B[j * 4] <= A[i * 4 + 2] + eps && A[i * 4 + 1] <= B[j * 4 + 3] + eps && B[j * 4 + 1] <= A[i * 4 + 3] + eps;
 
 /** Interior angle test: true where the outline turns against its winding (a re-entrant corner). */
 export function isReflex(poly: readonly Pt[], i: number, orientation: number): boolean {
@@ -282,7 +275,4 @@ export const toFrame = (f: Frame, p: Pt): Pt => {
 	return [dx * f.t[0] + dy * f.t[1], dx * f.n[0] + dy * f.n[1]];
 };
 
-export const fromFrame = (f: Frame, q: Pt): Pt => [
-	f.origin[0] + f.t[0] * q[0] + f.n[0] * q[1],
-	f.origin[1] + f.t[1] * q[0] + f.n[1] * q[1]
-];
+export const fromFrame = (f: Frame, q: Pt): Pt => [f.origin[0] + f.t[0] * q[0] + f.n[0] * q[1], f.origin[1] + f.t[1] * q[0] + f.n[1] * q[1]];

@@ -38,7 +38,11 @@ const at = z
 	.min(946684800000, 'The time must be after the year 2000.')
 	.max(4102444800000, 'The time must be before the year 2100.');
 /** The device's offset from UTC in minutes (Date#getTimezoneOffset), for the local date. */
-const tz = z.number().int().min(-840, 'The time-zone offset must be between −840 and 840 minutes.').max(840, 'The time-zone offset must be between −840 and 840 minutes.');
+const tz = z
+	.number()
+	.int()
+	.min(-840, 'The time-zone offset must be between −840 and 840 minutes.')
+	.max(840, 'The time-zone offset must be between −840 and 840 minutes.');
 const pour = z
 	.number()
 	.int('The pour must be a whole number.')
@@ -96,10 +100,7 @@ export const pourRecordSchema = z
 	});
 
 export const pourRecordsBody = z.object({
-	records: z
-		.array(pourRecordSchema)
-		.min(1, 'Send at least one record.')
-		.max(L.perRequest, `Send at most ${L.perRequest} records at a time.`)
+	records: z.array(pourRecordSchema).min(1, 'Send at least one record.').max(L.perRequest, `Send at most ${L.perRequest} records at a time.`)
 });
 
 export type PourRecord = z.infer<typeof pourRecordSchema>;

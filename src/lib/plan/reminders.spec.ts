@@ -83,8 +83,24 @@ describe('curing reminders from the pour log', () => {
 	const twoPours: PlanInput = {
 		units: 'metric',
 		sections: [
-			{ name: 'West half', outline: [[0, 0], [1.8, 0], [1.8, 2.4], [0, 2.4]] },
-			{ name: 'East half', outline: [[1.8, 0], [3.6, 0], [3.6, 2.4], [1.8, 2.4]] }
+			{
+				name: 'West half',
+				outline: [
+					[0, 0],
+					[1.8, 0],
+					[1.8, 2.4],
+					[0, 2.4]
+				]
+			},
+			{
+				name: 'East half',
+				outline: [
+					[1.8, 0],
+					[3.6, 0],
+					[3.6, 2.4],
+					[1.8, 2.4]
+				]
+			}
 		],
 		houseEdge: null,
 		conditions: { airTemp: 20, pourDate: '2027-10-09' }
@@ -96,7 +112,10 @@ describe('curing reminders from the pour log', () => {
 		({ key: `key-${String(i).padStart(4, '0')}`, at: Date.parse(`${date}T08:00:00Z`) + i * 60_000, tz: 0, ...r }) as PourRecord;
 
 	it('count from the planned date while nothing is started, and not from notes or temperatures', () => {
-		const r = curingRemindersFor(twoPours, [rec({ kind: 'note', text: 'rain' }, '2027-10-12', 0), rec({ kind: 'temp', date: '2027-10-12', unit: 'C', low: 2, high: 9 }, '2027-10-12', 1)]);
+		const r = curingRemindersFor(twoPours, [
+			rec({ kind: 'note', text: 'rain' }, '2027-10-12', 0),
+			rec({ kind: 'temp', date: '2027-10-12', unit: 'C', low: 2, high: 9 }, '2027-10-12', 1)
+		]);
 		expect(r).toEqual({ ...plannedCuringReminders(twoPours), logged: false });
 		expect(r.pourDate).toBe('2027-10-09');
 	});
@@ -119,7 +138,10 @@ describe('curing reminders from the pour log', () => {
 	it('follow the first batch over the start tap, and go back to the plan when the only batch is taken back and nothing was started', () => {
 		const started = curingRemindersFor(twoPours, [rec({ kind: 'start', pour: 0 }, '2027-10-11', 0), rec({ kind: 'batch', pour: 0 }, '2027-10-12', 1)]);
 		expect(started.pourDate).toBe('2027-10-12');
-		const undone = curingRemindersFor(twoPours, [rec({ kind: 'batch', pour: 0 }, '2027-10-12', 0), rec({ kind: 'undo', pour: 0, of: 'key-0000' }, '2027-10-12', 1)]);
+		const undone = curingRemindersFor(twoPours, [
+			rec({ kind: 'batch', pour: 0 }, '2027-10-12', 0),
+			rec({ kind: 'undo', pour: 0, of: 'key-0000' }, '2027-10-12', 1)
+		]);
 		expect(undone).toEqual({ ...plannedCuringReminders(twoPours), logged: false });
 	});
 

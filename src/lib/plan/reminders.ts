@@ -31,8 +31,7 @@ export interface CuringDay {
  */
 export const MAX_MOIST_DAYS = 14;
 
-const days = (a: string, b: string) =>
-	dayNumber(+b.slice(0, 4), +b.slice(5, 7), +b.slice(8, 10)) - dayNumber(+a.slice(0, 4), +a.slice(5, 7), +a.slice(8, 10));
+const days = (a: string, b: string) => dayNumber(+b.slice(0, 4), +b.slice(5, 7), +b.slice(8, 10)) - dayNumber(+a.slice(0, 4), +a.slice(5, 7), +a.slice(8, 10));
 
 /** What to do on a curing day, by method (ACI 308R lists water, sheet and membrane curing). */
 function moistItem(method: ParsedPlan['curing']['method']): CuringItem | null {
@@ -82,10 +81,7 @@ export function plannedCuringReminders(input: unknown): { pourDate: string | nul
  * (`logged: true`), else from the plan's own pour date. A start logged on another day than planned
  * moves every reminder with it.
  */
-export function curingRemindersFor(
-	input: unknown,
-	records: readonly PourRecord[]
-): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
+export function curingRemindersFor(input: unknown, records: readonly PourRecord[]): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
 	if (records.length) {
 		const parsed = parsePlanInput(input);
 		if (parsed.ok) {
@@ -134,7 +130,5 @@ export function curingDaysOf(r: PlanResult, method: ParsedPlan['curing']['method
 			text: 'The slab has reached about 500 psi (3.5 MPa), enough to survive a single freeze; keep it covered through any frost until curing ends, and keep de-icing salts off it this first winter.',
 			source: 'ACI 306R (500 psi after Powers); strength from ACI 209R-92 on ASTM C1074 equivalent age'
 		});
-	return [...byDate.entries()]
-		.sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0))
-		.map(([date, items]) => ({ date, day: days(first, date), items }));
+	return [...byDate.entries()].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0)).map(([date, items]) => ({ date, day: days(first, date), items }));
 }

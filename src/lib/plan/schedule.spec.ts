@@ -47,7 +47,15 @@ describe('the utility locate', () => {
 		const { m } = modelOf({ ...twoHalves(20), conditions: { airTemp: 20, pourDate: '2027-06-01' } });
 		// Pour Tue 1 June, forms Mon 31 May, dig Sun 30 May, call Wed 26 May: day 1 + 4 + 2 = day 7.
 		expect(firstPourDay(m)).toBe(7);
-		const s = buildSchedule(m, [{ section: 0, part: 0, bags: 30 }, { section: 1, part: 0, bags: 30 }], [0, 1], []);
+		const s = buildSchedule(
+			m,
+			[
+				{ section: 0, part: 0, bags: 30 },
+				{ section: 1, part: 0, bags: 30 }
+			],
+			[0, 1],
+			[]
+		);
 		expect(s.days[0]).toMatchObject({ day: 1, date: '2027-05-26' });
 		expect(s.days[0].tasks[0].id).toBe('locate'); // FCC 05-59: call 811 before digging
 		expect(s.digDay).toBe(5);
@@ -61,7 +69,11 @@ describe('the utility locate', () => {
 describe('milestones', () => {
 	it('follows the equivalent age at 20 °C for Type I', () => {
 		const { m } = modelOf({ ...twoHalves(20), loads: { vehicles: true } });
-		const ms = milestones(m, ageSeries(0, () => 20), 0);
+		const ms = milestones(
+			m,
+			ageSeries(0, () => 20),
+			0
+		);
 		const day = (id: string) => ms.find((x) => x.id === id)!.day;
 		expect(day('forms-off')).toBe(1); // common practice, ~24 h
 		expect(day('walk')).toBe(2); // common practice, 24–48 h
@@ -71,12 +83,22 @@ describe('milestones', () => {
 
 	it('dates driving on it only where the plan allows vehicles', () => {
 		const { m } = modelOf(twoHalves(20));
-		expect(milestones(m, ageSeries(0, () => 20), 0).map((x) => x.id)).not.toContain('vehicles');
+		expect(
+			milestones(
+				m,
+				ageSeries(0, () => 20),
+				0
+			).map((x) => x.id)
+		).not.toContain('vehicles');
 	});
 
 	it('ends curing at 3 days for Type III, before it reaches 70 %', () => {
 		const { m } = modelOf({ ...twoHalves(20), mix: { cement: 'typeIII' } });
-		const ms = milestones(m, ageSeries(0, () => 20), 0);
+		const ms = milestones(
+			m,
+			ageSeries(0, () => 20),
+			0
+		);
 		// ACI 318-19 §26.5.3.1: 3 days for high-early; 70 % needs t / (2.3 + 0.92 t) ≥ 0.7 → t ≥ 4.52 (ACI 209R-92):
 		// whichever comes first → day 3.
 		expect(ms.find((x) => x.id === 'curing-done')!.day).toBe(3);
@@ -85,7 +107,13 @@ describe('milestones', () => {
 	it('stretches the 7 days in cool weather', () => {
 		const { m } = modelOf(twoHalves(10));
 		// At 10 °C a day counts 0.547512 (ASTM C1074): 7 / 0.547512 = 12.8 → day 13; 70 % also needs 7 equivalent days.
-		expect(milestones(m, ageSeries(0, () => 10), 0).find((x) => x.id === 'curing-done')!.day).toBe(13);
+		expect(
+			milestones(
+				m,
+				ageSeries(0, () => 10),
+				0
+			).find((x) => x.id === 'curing-done')!.day
+		).toBe(13);
 	});
 });
 
@@ -95,7 +123,19 @@ describe('the day plan', () => {
 		expect(addDays('2028-02-28', 1)).toBe('2028-02-29'); // 2028 is a leap year
 		expect(addDays('2027-01-01', -1)).toBe('2026-12-31');
 		const { m } = modelOf({ ...twoHalves(20), conditions: { airTemp: 20, pourDate: '2027-06-01' } });
-		const s = buildSchedule(m, [{ section: 0, part: 0, bags: 30 }, { section: 1, part: 0, bags: 30 }], [0, 1], milestones(m, ageSeries(1, () => 20), 1));
+		const s = buildSchedule(
+			m,
+			[
+				{ section: 0, part: 0, bags: 30 },
+				{ section: 1, part: 0, bags: 30 }
+			],
+			[0, 1],
+			milestones(
+				m,
+				ageSeries(1, () => 20),
+				1
+			)
+		);
 		expect(s.pourDays).toEqual([
 			{ section: 0, part: 0, bags: 30, day: 7, date: '2027-06-01' },
 			{ section: 1, part: 0, bags: 30, day: 8, date: '2027-06-02' }

@@ -24,7 +24,7 @@ export function locateLead(digIso: string | undefined, n = LOCATE_WORKING_DAYS):
 	if (!digIso) return n;
 	const dig = dayNumber(+digIso.slice(0, 4), +digIso.slice(5, 7), +digIso.slice(8, 10));
 	let d = dig;
-	for (let count = 0; count < n; ) {
+	for (let count = 0; count < n;) {
 		d--;
 		const w = weekday(d);
 		if (w !== 0 && w !== 6) count++;
@@ -186,11 +186,31 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 	const to70 = byPercent(CURING.percent);
 	const byDays = byAge(curingMin);
 	const list: Omit<Milestone, 'planDay' | 'date'>[] = [
-		{ id: 'forms-off', title: 'Strip the forms', day: byAge(ms.formsOffDays), rule: `${dayCount(ms.formsOffDays)} ${asIfAt}`, source: 'common practice (about 24 h)' },
+		{
+			id: 'forms-off',
+			title: 'Strip the forms',
+			day: byAge(ms.formsOffDays),
+			rule: `${dayCount(ms.formsOffDays)} ${asIfAt}`,
+			source: 'common practice (about 24 h)'
+		},
 		{ id: 'walk', title: 'Walk on it', day: byAge(ms.walkDays), rule: `${dayCount(ms.walkDays)} ${asIfAt}`, source: 'common practice (24–48 h)' },
-		{ id: 'furniture', title: 'Set furniture on it', day: byAge(ms.furnitureDays), rule: `${dayCount(ms.furnitureDays)} ${asIfAt}`, source: 'common practice, no published source' }, // from memory
+		{
+			id: 'furniture',
+			title: 'Set furniture on it',
+			day: byAge(ms.furnitureDays),
+			rule: `${dayCount(ms.furnitureDays)} ${asIfAt}`,
+			source: 'common practice, no published source'
+		}, // from memory
 		...(m.loads.vehicles
-			? [{ id: 'vehicles' as const, title: 'Drive on it', day: byPercent(ms.vehiclePercent), rule: `${ms.vehiclePercent} % of design strength`, source: 'common practice (about 70 % of design strength)' }]
+			? [
+					{
+						id: 'vehicles' as const,
+						title: 'Drive on it',
+						day: byPercent(ms.vehiclePercent),
+						rule: `${ms.vehiclePercent} % of design strength`,
+						source: 'common practice (about 70 % of design strength)'
+					}
+				]
 			: []),
 		{
 			id: 'curing-done',
@@ -214,11 +234,20 @@ const dayCount = (n: number) => `${n} day${n === 1 ? '' : 's'}`;
 function finishing(m: Model, jointDepthIn: string): { id: string; text: string }[] {
 	return [
 		{ id: 'screed', text: 'Screed the surface off the forms as each load goes in, then bull-float it at once (common practice).' },
-		{ id: 'bleed', text: 'Wait until the bleed water has left the surface before edging or floating again: working water back in weakens the top (ACI 302.1R).' }, // from memory
+		{
+			id: 'bleed',
+			text: 'Wait until the bleed water has left the surface before edging or floating again: working water back in weakens the top (ACI 302.1R).'
+		}, // from memory
 		{ id: 'edge', text: 'Run an edger along every form and bulkhead (common practice).' },
 		m.jointMethod === 'saw'
-			? { id: 'saw-window', text: `Saw the control joints ${jointDepthIn} deep as soon as the cut does not ravel: about 4–12 h after placing with a conventional saw, sooner in heat (ACI 302.1R-15, as ACI's own guidance states); an early-entry saw can cut within a few hours.` }
-			: { id: 'tool', text: `Tool the control joints ${jointDepthIn} deep with a groover while the concrete is still plastic, and again after floating (ACI 302.1R).` },
+			? {
+					id: 'saw-window',
+					text: `Saw the control joints ${jointDepthIn} deep as soon as the cut does not ravel: about 4–12 h after placing with a conventional saw, sooner in heat (ACI 302.1R-15, as ACI's own guidance states); an early-entry saw can cut within a few hours.`
+				}
+			: {
+					id: 'tool',
+					text: `Tool the control joints ${jointDepthIn} deep with a groover while the concrete is still plastic, and again after floating (ACI 302.1R).`
+				},
 		{ id: 'broom', text: 'Broom the surface across the fall for grip once it holds the marks (common practice).' }
 	];
 }
@@ -235,13 +264,7 @@ function curingStep(m: Model): string {
 	}
 }
 
-export function buildSchedule(
-	m: Model,
-	pours: readonly Pour[],
-	offsets: number[],
-	stones: Milestone[],
-	jointDepthIn = '¼ of the thickness'
-): ScheduleResult {
+export function buildSchedule(m: Model, pours: readonly Pour[], offsets: number[], stones: Milestone[], jointDepthIn = '¼ of the thickness'): ScheduleResult {
 	const first0 = firstPourDay(m);
 	const digDay = first0 - 2;
 	const days = new Map<number, ScheduleDay['tasks']>();
@@ -249,7 +272,11 @@ export function buildSchedule(
 		if (!days.has(day)) days.set(day, []);
 		days.get(day)!.push({ id, text });
 	};
-	add(1, 'locate', `Call 811 (or your one-call number) at least ${LOCATE_WORKING_DAYS} working days before digging, and wait until every utility has marked or cleared (state one-call law rules the notice).`);
+	add(
+		1,
+		'locate',
+		`Call 811 (or your one-call number) at least ${LOCATE_WORKING_DAYS} working days before digging, and wait until every utility has marked or cleared (state one-call law rules the notice).`
+	);
 	add(digDay, 'layout', 'Check the utility marks are all in; lay out the outline with stakes and string; mark the high point from the reference.');
 	add(digDay, 'dig', 'Dig to slab thickness plus base depth, the base past the forms, and the trenches for any thickened edges; dig by hand near any marks.');
 	// The coat follows the Build-up step's choice (oil: see the form-release-oil caution).
@@ -271,8 +298,7 @@ export function buildSchedule(
 		for (const f of finishing(m, jointDepthIn)) add(day, `${f.id}-${i}`, f.text);
 		add(day, `cure-${i}`, curingStep(m));
 	});
-	for (const s of stones)
-		if (s.planDay !== null) add(s.planDay, s.id, `${s.title} (${s.rule}).`);
+	for (const s of stones) if (s.planDay !== null) add(s.planDay, s.id, `${s.title} (${s.rule}).`);
 	const curing = stones.find((s) => s.id === 'curing-done')?.day ?? CURING[m.cement];
 	const date = m.pourDate ? datesFrom(m.pourDate) : null;
 	const list = [...days.entries()]

@@ -1,7 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { parsePlanInput, planInputJsonSchema } from './schema';
 
-const square = [[0, 0], [10, 0], [10, 10], [0, 10]];
+const square = [
+	[0, 0],
+	[10, 0],
+	[10, 10],
+	[0, 10]
+];
 const base = { units: 'imperial', sections: [{ outline: square }] };
 
 const errorsOf = (input: unknown) => {
@@ -44,7 +49,20 @@ describe('errors carry dotted paths', () => {
 	});
 
 	it('names wrong types and unknown keys', () => {
-		const errors = errorsOf({ ...base, thickness: 'four', colour: 'grey', sections: [{ outline: [[0, 0], ['1', 0], [1, 1]] }] });
+		const errors = errorsOf({
+			...base,
+			thickness: 'four',
+			colour: 'grey',
+			sections: [
+				{
+					outline: [
+						[0, 0],
+						['1', 0],
+						[1, 1]
+					]
+				}
+			]
+		});
 		const paths = errors.map((e) => e.path);
 		expect(paths).toContain('thickness');
 		expect(paths).toContain('colour');
@@ -64,13 +82,44 @@ describe('errors carry dotted paths', () => {
 
 	it('bounds slopes and coordinates', () => {
 		expect(errorsOf({ ...base, slope: { fall: { value: 30, unit: 'percent' } } })[0].path).toBe('slope.fall.value');
-		expect(errorsOf({ ...base, sections: [{ outline: [[0, 0], [10, 0], [5000, 10]] }] })[0].path).toBe('sections.0.outline.2');
+		expect(
+			errorsOf({
+				...base,
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[10, 0],
+							[5000, 10]
+						]
+					}
+				]
+			})[0].path
+		).toBe('sections.0.outline.2');
 	});
 
 	it('rejects invalid geometry at the outline', () => {
-		const bow = [[0, 0], [10, 0], [2, 8], [8, 10]];
+		const bow = [
+			[0, 0],
+			[10, 0],
+			[2, 8],
+			[8, 10]
+		];
 		expect(errorsOf({ ...base, sections: [{ outline: bow }] })[0].path).toBe('sections.0.outline');
-		const overlap = errorsOf({ ...base, sections: [{ outline: square }, { outline: [[5, 5], [15, 5], [15, 15], [5, 15]] }] });
+		const overlap = errorsOf({
+			...base,
+			sections: [
+				{ outline: square },
+				{
+					outline: [
+						[5, 5],
+						[15, 5],
+						[15, 15],
+						[5, 15]
+					]
+				}
+			]
+		});
 		expect(overlap[0].path).toBe('sections.1.outline');
 	});
 });
@@ -86,7 +135,12 @@ describe('JSON Schema', () => {
 });
 
 describe('scope limits', () => {
-	const rect = (w: number, h: number) => [[0, 0], [w, 0], [w, h], [0, h]];
+	const rect = (w: number, h: number) => [
+		[0, 0],
+		[w, 0],
+		[w, h],
+		[0, h]
+	];
 	const plan = (over: object) => ({ units: 'imperial', ...over });
 	const messages = (input: unknown) => {
 		const r = parsePlanInput(input);
@@ -153,7 +207,9 @@ describe('messages in plain words', () => {
 		expect(messageAt({ slope: { fall: { value: 60, unit: 'totalDrop' } } }, 'slope.fall.value')).toBe('Enter the fall, 0–48 in.');
 		expect(messageAt({ slope: { fall: { value: null, unit: 'percent' } } }, 'slope.fall.value')).toBe('Enter the fall, 0–25 %.');
 		expect(messageAt({ units: 'metric', slope: { fall: { value: 300, unit: 'mmPerM' } } }, 'slope.fall.value')).toBe('Enter the fall, 0–250 mm per m.');
-		expect(messageAt({ units: 'metric', slope: { crossFall: { value: null, unit: 'totalDrop' } } }, 'slope.crossFall.value')).toBe('Enter the cross fall, −1,200 to 1,200 mm.');
+		expect(messageAt({ units: 'metric', slope: { crossFall: { value: null, unit: 'totalDrop' } } }, 'slope.crossFall.value')).toBe(
+			'Enter the cross fall, −1,200 to 1,200 mm.'
+		);
 		expect(messageAt({ prices: { stake: -1 } }, 'prices.stake')).toBe('Enter the stake price, 0–1,000,000 USD.');
 		expect(messageAt({ currency: 'CAD', prices: { stake: -1 } }, 'prices.stake')).toBe('Enter the stake price, 0–1,000,000 CAD.');
 	});
@@ -186,7 +242,8 @@ describe('messages in plain words', () => {
 		/^bags\.waterRatio$/,
 		/^reinforcing\.lapDiameters$/ // counted in bar diameters, which the label says
 	];
-	const UNIT_WORD = /\d (ft|in|m|mm|°F|°C|lb|kg|yd³|ft³|m³|psi|MPa|mph|km\/h|%|min|days|in per ft|mm per m|short tons per yd³|t per m³|ft² per US gal|m² per L|oz|g|USD)[.,]/;
+	const UNIT_WORD =
+		/\d (ft|in|m|mm|°F|°C|lb|kg|yd³|ft³|m³|psi|MPa|mph|km\/h|%|min|days|in per ft|mm per m|short tons per yd³|t per m³|ft² per US gal|m² per L|oz|g|USD)[.,]/;
 	type Node = { type?: string | string[]; properties?: Record<string, Node>; items?: Node; prefixItems?: Node[]; anyOf?: Node[]; oneOf?: Node[] };
 	function numberPaths(n: Node, path: (string | number)[], out: (string | number)[][]) {
 		const types = [n.type ?? []].flat();

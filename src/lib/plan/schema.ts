@@ -54,9 +54,7 @@ function withDefaults<T extends z.ZodObject>(schema: T) {
 function planSchemaFor<U extends Units>(units: U) {
 	const d = DEFAULTS[units];
 	const imp = units === 'imperial';
-	const [L, S, T, M, V, PV] = imp
-		? ['ft', 'in', '°F', 'lb', 'yd³', 'ft³']
-		: ['m', 'mm', '°C', 'kg', 'm³', 'm³'];
+	const [L, S, T, M, V, PV] = imp ? ['ft', 'in', '°F', 'lb', 'yd³', 'ft³'] : ['m', 'mm', '°C', 'kg', 'm³', 'm³'];
 	// Bounds are checked in crossChecks: per-number zod checks cost more than the whole engine.
 	const coord = z.number().meta({ minimum: -d.maxCoordinate, maximum: d.maxCoordinate });
 	const smallDim = z.number().min(0).max(d.maxSmall);
@@ -64,7 +62,12 @@ function planSchemaFor<U extends Units>(units: U) {
 	const temp = imp ? z.number().min(-40).max(130) : z.number().min(-40).max(55);
 
 	const edgeRef = z.strictObject({
-		section: z.int().min(0).max(MAX_SECTIONS - 1).default(0).describe('Index into sections.'),
+		section: z
+			.int()
+			.min(0)
+			.max(MAX_SECTIONS - 1)
+			.default(0)
+			.describe('Index into sections.'),
 		edge: z
 			.int()
 			.min(0)
@@ -75,14 +78,14 @@ function planSchemaFor<U extends Units>(units: U) {
 	const rate = (signed: boolean, label: string) =>
 		z
 			.strictObject({
-				value: z.number().min(signed ? -d.maxSmall : 0).max(d.maxSmall),
-				unit: z
-					.enum(RATE_UNITS)
-					.describe(`percent, in per ft, mm per m, or a totalDrop in ${S} across the slab.`)
+				value: z
+					.number()
+					.min(signed ? -d.maxSmall : 0)
+					.max(d.maxSmall),
+				unit: z.enum(RATE_UNITS).describe(`percent, in per ft, mm per m, or a totalDrop in ${S} across the slab.`)
 			})
 			.superRefine(({ value, unit }, ctx) => {
-				if (Math.abs(value) > RATE_MAX[unit])
-					ctx.addIssue({ code: 'custom', path: ['value'], message: rateMessage(label, unit, units, signed, d.maxSmall) });
+				if (Math.abs(value) > RATE_MAX[unit]) ctx.addIssue({ code: 'custom', path: ['value'], message: rateMessage(label, unit, units, signed, d.maxSmall) });
 			});
 
 	const section = z.strictObject({
@@ -104,36 +107,15 @@ function planSchemaFor<U extends Units>(units: U) {
 			.refine((c) => CURRENCIES.has(c), { error: 'Enter a three-letter currency code such as USD, CAD or EUR (ISO 4217).' })
 			.default('USD')
 			.describe('ISO 4217 code of every price in the plan.'),
-		sections: z
-			.array(section)
-			.min(1)
-			.max(MAX_SECTIONS)
-			.describe('Pour sections in pour order; sections sharing an edge meet at a cold joint.'),
-		houseEdge: edgeRef
-			.nullable()
-			.default({ section: 0, edge: 0 })
-			.describe('The edge along the house wall; null for a freestanding slab.'),
-		otherHouseEdges: z
-			.array(edgeRef)
-			.max(8)
-			.default([])
-			.describe('More edges along the house, e.g. both sides of a notch around a house corner.'),
-		gapToHouse: smallDim
-			.default(d.gapToHouse)
-			.describe(`Space between slab and wall, ${S} (room for an isolation strip; common practice).`), // from memory
-		houseEdgeFormed: z
-			.boolean()
-			.default(false)
-			.describe('true: a form board along the house; false: poured against an isolation strip.'),
+		sections: z.array(section).min(1).max(MAX_SECTIONS).describe('Pour sections in pour order; sections sharing an edge meet at a cold joint.'),
+		houseEdge: edgeRef.nullable().default({ section: 0, edge: 0 }).describe('The edge along the house wall; null for a freestanding slab.'),
+		otherHouseEdges: z.array(edgeRef).max(8).default([]).describe('More edges along the house, e.g. both sides of a notch around a house corner.'),
+		gapToHouse: smallDim.default(d.gapToHouse).describe(`Space between slab and wall, ${S} (room for an isolation strip; common practice).`), // from memory
+		houseEdgeFormed: z.boolean().default(false).describe('true: a form board along the house; false: poured against an isolation strip.'),
 		reference: withDefaults(
 			z.strictObject({
 				label: text(80).default('reference mark'),
-				below: z
-					.number()
-					.min(-d.maxSmall)
-					.max(d.maxSmall)
-					.default(0)
-					.describe(`How far the slab's high point sits below the reference, ${S}.`)
+				below: z.number().min(-d.maxSmall).max(d.maxSmall).default(0).describe(`How far the slab's high point sits below the reference, ${S}.`)
 			})
 		),
 		slope: withDefaults(
@@ -144,9 +126,7 @@ function planSchemaFor<U extends Units>(units: U) {
 				crossFall: rate(true, 'the cross fall')
 					.default({ value: 0, unit: 'percent' })
 					.describe('Fall along the high edge; positive falls toward its end vertex.'),
-				highEdge: edgeRef
-					.optional()
-					.describe('The edge at the high side; defaults to houseEdge, else section 0 edge 0.')
+				highEdge: edgeRef.optional().describe('The edge at the high side; defaults to houseEdge, else section 0 edge 0.')
 			})
 		),
 		thickness: z
@@ -166,12 +146,14 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default(d.stakeSpacing)
 					.describe(`${L}; common practice 3–4 ft, plus one at every corner and splice.`),
 				stakeLength: smallDim.default(d.stakeLength).describe(`Stake length, ${S}; common practice, no published source.`), // from memory
-				release: z
-					.enum(['agent', 'oil', 'none'])
-					.default('agent')
-					.describe('What keeps concrete off the boards.'),
+				release: z.enum(['agent', 'oil', 'none']).default('agent').describe('What keeps concrete off the boards.'),
 				stockLengths: z
-					.array(z.number().min(imp ? 4 : 1.2).max(imp ? 24 : 7.2))
+					.array(
+						z
+							.number()
+							.min(imp ? 4 : 1.2)
+							.max(imp ? 24 : 7.2)
+					)
 					.min(1)
 					.max(8)
 					.default([...d.stockLengths])
@@ -185,9 +167,7 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default('none')
 					.describe("'free' thickens every edge not along the house or a cold joint."),
 				width: smallDim.default(d.edgeWidth).describe(`Trench width, ${S}; common practice, no published source.`), // from memory
-				extraDepth: smallDim
-					.optional()
-					.describe(`Depth below the slab, ${S}; defaults to the thickness (common practice).`),
+				extraDepth: smallDim.optional().describe(`Depth below the slab, ${S}; defaults to the thickness (common practice).`),
 				profile: z
 					.enum(['rectangular', 'tapered'])
 					.default('rectangular')
@@ -197,15 +177,20 @@ function planSchemaFor<U extends Units>(units: U) {
 		base: withDefaults(
 			z.strictObject({
 				depth: smallDim.default(d.baseDepth).describe(`Compacted gravel, ${S} (IRC R506.2.2).`),
-				bulking: z
-					.number()
-					.min(1)
-					.max(2)
-					.default(COMMON.baseBulking)
-					.describe('Loose ÷ compacted volume (common practice 1.15–1.30).'),
+				bulking: z.number().min(1).max(2).default(COMMON.baseBulking).describe('Loose ÷ compacted volume (common practice 1.15–1.30).'),
 				overhang: smallDim.default(d.baseOverhang).describe(`Base past the forms, ${S}; common practice.`),
-				stoneDensity: z.number().min(0.5).max(3).default(d.stoneDensity).describe(`Compacted stone, ${imp ? 'short tons per yd³' : 't per m³'}; common practice.`),
-				soilDensity: z.number().min(0.5).max(3).default(d.soilDensity).describe(`Dug soil in the ground, ${imp ? 'short tons per yd³' : 't per m³'}; common practice, no published source.`) // from memory
+				stoneDensity: z
+					.number()
+					.min(0.5)
+					.max(3)
+					.default(d.stoneDensity)
+					.describe(`Compacted stone, ${imp ? 'short tons per yd³' : 't per m³'}; common practice.`),
+				soilDensity: z
+					.number()
+					.min(0.5)
+					.max(3)
+					.default(d.soilDensity)
+					.describe(`Dug soil in the ground, ${imp ? 'short tons per yd³' : 't per m³'}; common practice, no published source.`) // from memory
 			})
 		),
 		fill: z
@@ -234,18 +219,17 @@ function planSchemaFor<U extends Units>(units: U) {
 					.describe(`28-day strength, ${imp ? 'psi' : 'MPa'}; IRC Table R402.2 asks 2500–3500 psi by weathering.`) // default from memory
 			})
 		),
-		wastePercent: z
-			.number()
-			.min(0)
-			.max(50)
-			.default(COMMON.wastePercent)
-			.describe('common practice 5–10 %.'),
+		wastePercent: z.number().min(0).max(50).default(COMMON.wastePercent).describe('common practice 5–10 %.'),
 		bags: withDefaults(
 			z.strictObject({
 				offered: z
 					.array(
 						z.strictObject({
-							size: z.number().min(imp ? 10 : 5).max(imp ? 100 : 50).describe(`Bag mass, ${M}.`),
+							size: z
+								.number()
+								.min(imp ? 10 : 5)
+								.max(imp ? 100 : 50)
+								.describe(`Bag mass, ${M}.`),
 							yield: z
 								.number()
 								.min(imp ? 0.05 : 0.001)
@@ -258,13 +242,13 @@ function planSchemaFor<U extends Units>(units: U) {
 					.min(1)
 					.max(6)
 					.default(d.bagSizes.map((size) => ({ size }))),
-				planSize: z.number().min(imp ? 10 : 5).max(imp ? 100 : 50).optional().describe('Bag size the mixing plan uses; default the largest.'),
-				waterRatio: z
+				planSize: z
 					.number()
-					.min(0)
-					.max(0.2)
-					.default(COMMON.waterPerKgDryMix)
-					.describe('Water per dry mix by mass; the bag label rules.') // default from memory
+					.min(imp ? 10 : 5)
+					.max(imp ? 100 : 50)
+					.optional()
+					.describe('Bag size the mixing plan uses; default the largest.'),
+				waterRatio: z.number().min(0).max(0.2).default(COMMON.waterPerKgDryMix).describe('Water per dry mix by mass; the bag label rules.') // default from memory
 			})
 		),
 		readyMix: withDefaults(
@@ -297,12 +281,7 @@ function planSchemaFor<U extends Units>(units: U) {
 			z.strictObject({
 				people: z.int().min(1).max(20).default(COMMON.people),
 				method: z.enum(['hand', 'drum']).default('hand').describe('hand: tub or wheelbarrow.'),
-				handMixMinutes: z
-					.number()
-					.min(1)
-					.max(30)
-					.default(COMMON.handMixMinutesPer80lb)
-					.describe('Per 80 lb (36 kg) of dry mix; common practice 5–8 min.'),
+				handMixMinutes: z.number().min(1).max(30).default(COMMON.handMixMinutesPer80lb).describe('Per 80 lb (36 kg) of dry mix; common practice 5–8 min.'),
 				drumMinutesPerBatch: z.number().min(1).max(30).default(COMMON.drumMixMinutesPerBatch),
 				drumBatchMass: z
 					.number()
@@ -323,7 +302,11 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default(COMMON.workingMinutesAt70F)
 					.describe('Workable time of the mix at 70 °F (21 °C); common practice 1½–2 h.'),
 				finishMinutes: z.number().min(0).max(240).default(COMMON.finishMinutes),
-				payload: z.number().min(imp ? 100 : 45).max(imp ? 20000 : 9000).default(d.payload)
+				payload: z
+					.number()
+					.min(imp ? 100 : 45)
+					.max(imp ? 20000 : 9000)
+					.default(d.payload)
 			})
 		),
 		conditions: withDefaults(
@@ -337,7 +320,12 @@ function planSchemaFor<U extends Units>(units: U) {
 					.optional()
 					.describe(`Daily low air temperature, ${T}: one value or one per day; checked against ACI 306R's 40 °F.`),
 				humidity: z.number().min(0).max(100).default(COMMON.humidity).describe('Relative humidity, %.'),
-				wind: z.number().min(0).max(imp ? 100 : 160).default(d.wind).describe(imp ? 'mph' : 'km/h'),
+				wind: z
+					.number()
+					.min(0)
+					.max(imp ? 100 : 160)
+					.default(d.wind)
+					.describe(imp ? 'mph' : 'km/h'),
 				concreteTemp: temp.optional().describe(`As placed, ${T}; defaults to the air temperature.`),
 				pourDate: z.iso.date().optional().describe('First pour day, YYYY-MM-DD.')
 			})
@@ -349,8 +337,7 @@ function planSchemaFor<U extends Units>(units: U) {
 				furnitureDays: z.number().min(0.5).max(28).default(COMMON.furnitureDays),
 				vehiclePercent: z.number().min(10).max(100).default(COMMON.vehiclePercent)
 			})
-		)
-			.describe('Days are equivalent age at 20 °C (ASTM C1074), so cold weather pushes them out.'),
+		).describe('Days are equivalent age at 20 °C (ASTM C1074), so cold weather pushes them out.'),
 		joints: withDefaults(z.strictObject({ method: z.enum(['tool', 'saw']).default('tool') })),
 		exposure: z
 			.enum(['negligible', 'moderate', 'severe'])
@@ -358,22 +345,55 @@ function planSchemaFor<U extends Units>(units: U) {
 			.describe('Freeze–thaw weathering where the slab is (IRC Table R402.2): severe where winters freeze hard and de-icers are used.'),
 		curing: withDefaults(
 			z.strictObject({
-				method: z.enum(['cover', 'wet', 'compound']).default('cover').describe('cover: plastic sheet or wet burlap; wet: sprinkle or pond; compound: ASTM C309 membrane.'),
-				coverage: z.number().min(imp ? 50 : 1).max(imp ? 800 : 20).default(d.compoundCoverage).describe(`Compound coverage, ${imp ? 'ft² per US gal' : 'm² per L'}; the label rules.`)
+				method: z
+					.enum(['cover', 'wet', 'compound'])
+					.default('cover')
+					.describe('cover: plastic sheet or wet burlap; wet: sprinkle or pond; compound: ASTM C309 membrane.'),
+				coverage: z
+					.number()
+					.min(imp ? 50 : 1)
+					.max(imp ? 800 : 20)
+					.default(d.compoundCoverage)
+					.describe(`Compound coverage, ${imp ? 'ft² per US gal' : 'm² per L'}; the label rules.`)
 			})
 		),
 		reinforcing: withDefaults(
 			z.strictObject({
 				meshForm: z.enum(['sheet', 'roll']).default('sheet'),
-				meshWidth: z.number().min(imp ? 2 : 0.6).max(imp ? 12 : 3.6).default(d.meshWidth).describe(`${L}; sheet or roll width.`),
-				meshLength: z.number().min(imp ? 2 : 0.6).max(imp ? 300 : 90).default(d.meshLength).describe(`${L}; sheet or roll length.`),
+				meshWidth: z
+					.number()
+					.min(imp ? 2 : 0.6)
+					.max(imp ? 12 : 3.6)
+					.default(d.meshWidth)
+					.describe(`${L}; sheet or roll width.`),
+				meshLength: z
+					.number()
+					.min(imp ? 2 : 0.6)
+					.max(imp ? 300 : 90)
+					.default(d.meshLength)
+					.describe(`${L}; sheet or roll length.`),
 				wireSpacing: smallDim.default(d.wireSpacing).describe(`${S}; 6 in for 6×6 mesh.`),
-				chairSpacing: z.number().min(imp ? 1 : 0.3).max(imp ? 6 : 1.8).default(d.chairSpacing).describe(`${L}; supports every 3 ft at most (WRI).`),
+				chairSpacing: z
+					.number()
+					.min(imp ? 1 : 0.3)
+					.max(imp ? 6 : 1.8)
+					.default(d.chairSpacing)
+					.describe(`${L}; supports every 3 ft at most (WRI).`),
 				barSpacing: smallDim.default(d.barSpacing).describe(`${S}; from the design, this is an example.`),
 				barDiameter: smallDim.default(d.barDiameter).describe(`${S}; #3 bar is ⅜ in.`),
-				barStock: z.number().min(imp ? 4 : 1.2).max(imp ? 40 : 12).default(d.barStock).describe(`${L}; bar length on sale.`),
+				barStock: z
+					.number()
+					.min(imp ? 4 : 1.2)
+					.max(imp ? 40 : 12)
+					.default(d.barStock)
+					.describe(`${L}; bar length on sale.`),
 				lapDiameters: z.number().min(0).max(100).default(40).describe('Lap splice in bar diameters; common practice 40.'),
-				fiberPerBag: z.number().min(0).max(imp ? 16 : 500).optional().describe(`${imp ? 'oz' : 'g'} of fiber per bag of the plan's size, as the fiber label gives it.`)
+				fiberPerBag: z
+					.number()
+					.min(0)
+					.max(imp ? 16 : 500)
+					.optional()
+					.describe(`${imp ? 'oz' : 'g'} of fiber per bag of the plan's size, as the fiber label gives it.`)
 			})
 		)
 	});
@@ -390,8 +410,7 @@ function crossChecks(plan: Parsed): PlanIssue[] {
 	const checkEdge = (ref: EdgeRefOut | null | undefined, path: string) => {
 		if (!ref) return;
 		const o = outlines[ref.section];
-		if (!o)
-			issues.push({ path: `${path}.section`, message: `Choose a section from 0 to ${outlines.length - 1}; there is no section ${ref.section}.` });
+		if (!o) issues.push({ path: `${path}.section`, message: `Choose a section from 0 to ${outlines.length - 1}; there is no section ${ref.section}.` });
 		else if (ref.edge >= o.length)
 			issues.push({ path: `${path}.edge`, message: `Choose an edge of section ${ref.section} from 0 to ${o.length - 1}; it has ${o.length} edges.` });
 	};
@@ -403,7 +422,10 @@ function crossChecks(plan: Parsed): PlanIssue[] {
 	const te = plan.thickenedEdge.edges;
 	if (Array.isArray(te)) te.forEach((r, i) => checkEdge(r, `thickenedEdge.edges.${i}`));
 	if (plan.forms.lumber === 'custom' && !plan.forms.customDepth)
-		issues.push({ path: 'forms.customDepth', message: `Enter the board depth for custom lumber, 0–${plainNumber(DEFAULTS[plan.units].maxSmall)} ${plan.units === 'imperial' ? 'in' : 'mm'}.` });
+		issues.push({
+			path: 'forms.customDepth',
+			message: `Enter the board depth for custom lumber, 0–${plainNumber(DEFAULTS[plan.units].maxSmall)} ${plan.units === 'imperial' ? 'in' : 'mm'}.`
+		});
 	if (plan.fill && (plan.fill.volume === undefined) === (plan.fill.shareOfTrench === undefined))
 		issues.push({ path: 'fill', message: 'Give the fill as either a volume or a share of the trench, not both.' });
 	if (plan.bags.planSize !== undefined && !plan.bags.offered.some((b) => b.size === plan.bags.planSize))
@@ -472,8 +494,7 @@ function scopeIssues(plan: Parsed): PlanIssue[] {
 	// Concrete ordered, m³: slab plus the most a thickened edge can add, plus waste.
 	const small = imp ? M_PER_IN : 0.001;
 	const te = plan.thickenedEdge;
-	const trenchLength =
-		te.edges === 'none' ? 0 : te.edges === 'free' ? edge : te.edges.reduce((s, r) => s + edgeLength(outlines, r), 0);
+	const trenchLength = te.edges === 'none' ? 0 : te.edges === 'free' ? edge : te.edges.reduce((s, r) => s + edgeLength(outlines, r), 0);
 	const orderM3 =
 		(area * (imp ? M2_PER_FT2 : 1) * plan.thickness * small +
 			trenchLength * (imp ? M_PER_FT : 1) * te.width * small * (te.extraDepth ?? plan.thickness) * small) *
@@ -499,16 +520,13 @@ function edgeLength(outlines: readonly (readonly (readonly [number, number])[])[
 	return Math.hypot(b[0] - a[0], b[1] - a[1]);
 }
 
-export const planInputSchema = z
-	.discriminatedUnion('units', [planSchemaFor('imperial'), planSchemaFor('metric')])
-	.superRefine(
-		(plan, ctx) => {
-			for (const i of crossChecks(plan))
-				ctx.addIssue({ code: 'custom', path: i.path.split('.').map(pathPart), message: i.message });
-		},
-		// Only on input that passed every field check: an over-long outline never reaches the geometry.
-		{ when: (payload) => payload.issues.length === 0 }
-	);
+export const planInputSchema = z.discriminatedUnion('units', [planSchemaFor('imperial'), planSchemaFor('metric')]).superRefine(
+	(plan, ctx) => {
+		for (const i of crossChecks(plan)) ctx.addIssue({ code: 'custom', path: i.path.split('.').map(pathPart), message: i.message });
+	},
+	// Only on input that passed every field check: an over-long outline never reaches the geometry.
+	{ when: (payload) => payload.issues.length === 0 }
+);
 
 const pathPart = (p: string) => (/^\d+$/.test(p) ? Number(p) : p);
 
@@ -519,7 +537,6 @@ export type ParsedPlan = z.output<typeof planInputSchema>;
 export type EdgeRef = EdgeRefOut;
 
 export type ParseResult = { ok: true; plan: ParsedPlan } | { ok: false; errors: PlanIssue[] };
-
 
 /**
  * Validate anything against the schema; errors carry dotted paths like "sections.0.outline" and

@@ -61,11 +61,7 @@ export interface StrengthDay {
 }
 
 /** Day-by-day timeline for days 1..n, from the daily mean temperatures after the pour. */
-export function strengthTimeline(
-	dailyTempsC: number[],
-	cement: keyof typeof ACI_209,
-	designMpa: number
-): StrengthDay[] {
+export function strengthTimeline(dailyTempsC: number[], cement: keyof typeof ACI_209, designMpa: number): StrengthDay[] {
 	const te = equivalentAges(dailyTempsC);
 	const mt = maturity(dailyTempsC);
 	return te.map((age, i) => {

@@ -13,7 +13,14 @@ export const rect = (x0: number, y0: number, w: number, h: number): [number, num
 ];
 
 /** L-shape: a 24 × 18 rectangle less an 8 × 6 notch at the origin (a house corner). */
-export const ELL: [number, number][] = [[8, 0], [24, 0], [24, 18], [0, 18], [0, 6], [8, 6]];
+export const ELL: [number, number][] = [
+	[8, 0],
+	[24, 0],
+	[24, 18],
+	[0, 18],
+	[0, 6],
+	[8, 6]
+];
 
 /** ELL wrapped around a house corner: both inner edges are walls, 2 % fall and 2 % cross fall. */
 export const cornerEll: PlanInput = {
@@ -46,7 +53,12 @@ export function wavyPad(): PlanInput {
 		slope: { fall: { value: 1.5, unit: 'percent' }, crossFall: { value: 0.5, unit: 'percent' } },
 		thickenedEdge: { edges: 'free' },
 		fill: { shareOfTrench: 0.2, largestPiece: 3 },
-		bags: { offered: [{ size: 80, price: 6.4 }, { size: 60, price: 5.1 }] },
+		bags: {
+			offered: [
+				{ size: 80, price: 6.4 },
+				{ size: 60, price: 5.1 }
+			]
+		},
 		readyMix: { price: 185 },
 		crew: { people: 3, method: 'drum' },
 		conditions: { airTemp: [60, 55, 50, 58, 62, 65], humidity: 40, wind: 8, pourDate: '2027-06-01' }

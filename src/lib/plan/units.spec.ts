@@ -1,20 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import {
-	area,
-	countUp,
-	length,
-	mass,
-	massToKg,
-	orderVolumeToM3,
-	planToM,
-	roundUpTo,
-	small,
-	smallToM,
-	tempToC,
-	temperature,
-	volume,
-	windToKmh
-} from './units';
+import { area, countUp, length, mass, massToKg, orderVolumeToM3, planToM, roundUpTo, small, smallToM, tempToC, temperature, volume, windToKmh } from './units';
 
 describe('dual-unit values', () => {
 	it('gives a volume in ft³, yd³ and m³', () => {

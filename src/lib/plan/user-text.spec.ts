@@ -20,9 +20,31 @@ const base: PlanInput = { units: 'imperial', sections: [{ outline: rect(0, 0, 20
  * furniture and curing milestones, the bleed-water step, and the cautions on permits, de-icers,
  * oil, steep falls, cold curing and hot concrete. */
 const plans: [string, PlanInput][] = [
-	['fibre without a label dose, release agent, severe exposure', { ...base, reinforcement: 'fiber', forms: { release: 'agent' }, exposure: 'severe', prices: { haulSoil: 40 } }],
-	['oil release, steep fall, cold week, vehicles', { ...base, forms: { release: 'oil' }, slope: { fall: { value: 8, unit: 'percent' } }, loads: { vehicles: true }, conditions: { airTemp: 42, airLow: 30, pourDate: '2027-03-01' } }],
-	['hot concrete, saw-cut joints, compound cure, metric', { units: 'metric', sections: [{ outline: rect(0, 0, 6, 4) }], conditions: { airTemp: 36, concreteTemp: 38 }, joints: { method: 'saw' }, curing: { method: 'compound' }, reinforcement: 'mesh' }],
+	[
+		'fibre without a label dose, release agent, severe exposure',
+		{ ...base, reinforcement: 'fiber', forms: { release: 'agent' }, exposure: 'severe', prices: { haulSoil: 40 } }
+	],
+	[
+		'oil release, steep fall, cold week, vehicles',
+		{
+			...base,
+			forms: { release: 'oil' },
+			slope: { fall: { value: 8, unit: 'percent' } },
+			loads: { vehicles: true },
+			conditions: { airTemp: 42, airLow: 30, pourDate: '2027-03-01' }
+		}
+	],
+	[
+		'hot concrete, saw-cut joints, compound cure, metric',
+		{
+			units: 'metric',
+			sections: [{ outline: rect(0, 0, 6, 4) }],
+			conditions: { airTemp: 36, concreteTemp: 38 },
+			joints: { method: 'saw' },
+			curing: { method: 'compound' },
+			reinforcement: 'mesh'
+		}
+	],
 	['rebar, thickened edge, drum', { ...base, reinforcement: 'rebar', thickenedEdge: { edges: 'free' }, crew: { method: 'drum' }, mix: { cement: 'typeIII' } }]
 ];
 const results: [string, PlanResult][] = plans.map(([name, input]) => [name, computePlan(input)]);
@@ -68,11 +90,15 @@ describe('text a person reads', () => {
 		expect(strings(r).filter((t) => /\w\(s\)|\bAbout 0 /.test(t))).toEqual([]);
 	});
 
-	it('milestone rules speak the plan\'s temperature unit, in plain words', () => {
-		const imp = computePlan(base).milestones.map((x) => x.rule).join('\n');
+	it("milestone rules speak the plan's temperature unit, in plain words", () => {
+		const imp = computePlan(base)
+			.milestones.map((x) => x.rule)
+			.join('\n');
 		expect(imp).toMatch(/as if at 68 °F/);
 		expect(imp).not.toMatch(/°C|equivalent age/);
-		const met = computePlan({ units: 'metric', sections: [{ outline: rect(0, 0, 6, 4) }] }).milestones.map((x) => x.rule).join('\n');
+		const met = computePlan({ units: 'metric', sections: [{ outline: rect(0, 0, 6, 4) }] })
+			.milestones.map((x) => x.rule)
+			.join('\n');
 		expect(met).toMatch(/as if at 20 °C/);
 		expect(met).not.toMatch(/°F/);
 	});
@@ -80,5 +106,4 @@ describe('text a person reads', () => {
 	it('the article check itself catches the slips it is for', () => {
 		expect(articleSlips('carry a 80 lb bag, an 4 in slab, an 18 in stake, a 60 lb bag, an 8 ft board, a 1.2 m level')).toEqual(['a 80', 'an 4']);
 	});
-
 });

@@ -107,15 +107,9 @@ export interface VolumeResult {
 function fillPerSection(m: Model, trench: number[]): number[] {
 	const total = trench.reduce((a, b) => a + b, 0);
 	if (!m.fill) return trench.map(() => 0);
-	if (total <= 0)
-		throw new PlanInputError([
-			{ path: 'fill', message: 'Chunk fill goes in a thickened-edge trench, and this plan has none.' }
-		]);
+	if (total <= 0) throw new PlanInputError([{ path: 'fill', message: 'Chunk fill goes in a thickened-edge trench, and this plan has none.' }]);
 	const share = m.fill.share ?? (m.fill.volume ?? 0) / total;
-	if (share > 0.9)
-		throw new PlanInputError([
-			{ path: 'fill.volume', message: 'More fill than 90 % of the trench volume leaves no concrete around it.' }
-		]);
+	if (share > 0.9) throw new PlanInputError([{ path: 'fill.volume', message: 'More fill than 90 % of the trench volume leaves no concrete around it.' }]);
 	return trench.map((t) => t * share);
 }
 
@@ -145,9 +139,7 @@ export function computeVolume(m: Model, layout: Layout, thick: boolean[][]): Vol
 	const house = (s: number, e: number) => m.houseEdges.some((h) => h.section === s && h.edge === e);
 	let outerRun = 0;
 	for (const sec of layout.sections)
-		for (const e of sec.edges)
-			if (!thick[sec.index][e.index] && !house(sec.index, e.index))
-				for (const [t0, t1] of e.free) outerRun += (t1 - t0) * e.length;
+		for (const e of sec.edges) if (!thick[sec.index][e.index] && !house(sec.index, e.index)) for (const [t0, t1] of e.free) outerRun += (t1 - t0) * e.length;
 	const overhangArea = m.base.depth > 0 ? outerRun * m.base.overhang : 0;
 	const baseArea = m.base.depth > 0 ? slabArea - trenchTotal + overhangArea : 0;
 	const compacted = baseArea * m.base.depth;
@@ -173,9 +165,10 @@ export function computeVolume(m: Model, layout: Layout, thick: boolean[][]): Vol
 			compacted: volume(compacted),
 			loose: volume(compacted * m.base.bulking),
 			weight: tons(compacted * m.base.stoneDensity),
-			note: trenchTotal > 0
-				? 'No base under the thickened edges: they bear on firm undisturbed soil at the trench bottom (common practice, no published source); the base runs past the other forms.'
-				: 'The base runs past the forms so their stakes and the slab edge sit on it (common practice, no published source).'
+			note:
+				trenchTotal > 0
+					? 'No base under the thickened edges: they bear on firm undisturbed soil at the trench bottom (common practice, no published source); the base runs past the other forms.'
+					: 'The base runs past the forms so their stakes and the slab edge sit on it (common practice, no published source).'
 		},
 		dig: {
 			volume: volume(digM3),

@@ -56,7 +56,22 @@ describe('converted values read like typed ones', () => {
 		expect(back.thickness).toBe(4);
 		expect(back.gapToHouse).toBe(typed.gapToHouse);
 		// A metric size shown in feet: 3.6 m = 141.73 in → 141 3/4 in = 11.8125 ft.
-		const m = convertPlan({ ...starterInput('metric'), sections: [{ outline: [[0, 0], [3.6, 0], [3.6, 3], [0, 3]] }] }, 'imperial');
+		const m = convertPlan(
+			{
+				...starterInput('metric'),
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[3.6, 0],
+							[3.6, 3],
+							[0, 3]
+						]
+					}
+				]
+			},
+			'imperial'
+		);
 		expect(m.sections[0].outline[1]).toEqual([11.8125, 0]);
 		for (const [path, v] of numbers(m.sections)) expect(decimals(v), path).toBeLessThanOrEqual(4);
 	});
@@ -98,7 +113,19 @@ describe('switching units in the wizard', () => {
 
 	it('names the field in plain words, never an engine path', () => {
 		const plan = starterInput('imperial');
-		const bad = { ...plan, sections: [{ outline: [[0, 0], [12, 0], [0, 0], [12, 0]] }] };
+		const bad = {
+			...plan,
+			sections: [
+				{
+					outline: [
+						[0, 0],
+						[12, 0],
+						[0, 0],
+						[12, 0]
+					]
+				}
+			]
+		};
 		const r = switchUnits(bad, 'metric', null);
 		expect(r.ok).toBe(false);
 		if (r.ok) return;

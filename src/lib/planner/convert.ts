@@ -67,8 +67,14 @@ export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 			stockLengths: d.forms.stockLengths
 		},
 		thickenedEdge: { ...p.thickenedEdge, width: small(p.thickenedEdge.width), extraDepth: opt(p.thickenedEdge.extraDepth, small) },
-		base: { ...p.base, depth: small(p.base.depth), overhang: small(p.base.overhang), stoneDensity: dens(p.base.stoneDensity), soilDensity: dens(p.base.soilDensity) },
-		curing: { ...p.curing, coverage: r(metric ? p.curing.coverage * FT ** 2 / GAL : (p.curing.coverage * GAL) / FT ** 2, metric ? 2 : 0) },
+		base: {
+			...p.base,
+			depth: small(p.base.depth),
+			overhang: small(p.base.overhang),
+			stoneDensity: dens(p.base.stoneDensity),
+			soilDensity: dens(p.base.soilDensity)
+		},
+		curing: { ...p.curing, coverage: r(metric ? (p.curing.coverage * FT ** 2) / GAL : (p.curing.coverage * GAL) / FT ** 2, metric ? 2 : 0) },
 		reinforcing: {
 			...p.reinforcing,
 			meshWidth: len(p.reinforcing.meshWidth),

@@ -5,7 +5,19 @@ import { CURRENCY_CODES, currencyOptions } from './currencies';
 describe('currencies offered', () => {
 	it('every code offered is one the schema accepts (ISO 4217, formattable here)', () => {
 		for (const currency of CURRENCY_CODES) {
-			const r = parsePlanInput({ units: 'imperial', currency, sections: [{ outline: [[0, 0], [4, 0], [4, 4]] }] });
+			const r = parsePlanInput({
+				units: 'imperial',
+				currency,
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[4, 0],
+							[4, 4]
+						]
+					}
+				]
+			});
 			expect(r.ok, currency).toBe(true);
 		}
 	});

@@ -21,7 +21,11 @@ function objects(v: unknown, out: object[] = []): object[] {
 
 describe('the plan the wizard edits', () => {
 	it('is a deep copy with nothing frozen, so every field can be written', () => {
-		for (const input of [starterInput('imperial'), starterInput('metric'), completeInput({ units: 'imperial', sections: [{ outline: lShape(16, 12, 6, 5) }] })!]) {
+		for (const input of [
+			starterInput('imperial'),
+			starterInput('metric'),
+			completeInput({ units: 'imperial', sections: [{ outline: lShape(16, 12, 6, 5) }] })!
+		]) {
 			const all = objects(input);
 			expect(all.length).toBeGreaterThan(20);
 			expect(all.filter((o) => Object.isFrozen(o) || !Object.isExtensible(o))).toEqual([]);
@@ -106,7 +110,10 @@ describe('shape presets', () => {
 		input.houseEdge = walls[0];
 		input.otherHouseEdges = walls.slice(1);
 		expect(detectPreset(input)).toEqual(p);
-		expect(walls).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }]);
+		expect(walls).toEqual([
+			{ section: 0, edge: 2 },
+			{ section: 0, edge: 3 }
+		]);
 		input.houseEdge = null;
 		input.otherHouseEdges = [];
 		expect(detectPreset(input).house).toBe('none');
@@ -135,7 +142,15 @@ describe('the house-corner preset', () => {
 	])('falls away from both walls (IRC R401.3) with the fall as %o', (fall) => {
 		const p = { shape: 'l' as const, length: 16, width: 12, notchLength: 6, notchWidth: 5, house: 'corner' as const };
 		const [houseEdge, ...otherHouseEdges] = presetHouse(p);
-		const r = computePlan(completeInput({ units: 'imperial', sections: [{ outline: presetOutline(p) }], houseEdge, otherHouseEdges, slope: { fall, crossFall: presetCrossFall(p, fall) } })!);
+		const r = computePlan(
+			completeInput({
+				units: 'imperial',
+				sections: [{ outline: presetOutline(p) }],
+				houseEdge,
+				otherHouseEdges,
+				slope: { fall, crossFall: presetCrossFall(p, fall) }
+			})!
+		);
 		expect(r.elevations.houseEdges).toHaveLength(2);
 		for (const h of r.elevations.houseEdges) expect(h.fallAway.percent).toBeGreaterThan(0);
 		expect(r.cautions.map((c) => c.id)).not.toContain('water-toward-foundation');
@@ -144,13 +159,31 @@ describe('the house-corner preset', () => {
 
 describe('walls through outline changes', () => {
 	it('a split keeps both notch walls of an L; removing a corner keeps the wall on the merged edge', () => {
-		const draft = new PlanDraft({ name: 'L', input: completeInput({ units: 'imperial', sections: [{ outline: lShape(24, 18, 8, 6) }], houseEdge: { section: 0, edge: 2 }, otherHouseEdges: [{ section: 0, edge: 3 }] })! });
+		const draft = new PlanDraft({
+			name: 'L',
+			input: completeInput({
+				units: 'imperial',
+				sections: [{ outline: lShape(24, 18, 8, 6) }],
+				houseEdge: { section: 0, edge: 2 },
+				otherHouseEdges: [{ section: 0, edge: 3 }]
+			})!
+		});
 		draft.addCorner(0, 2); // C–D halved: both halves are wall
-		expect(draft.houseEdges).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }, { section: 0, edge: 4 }]);
+		expect(draft.houseEdges).toEqual([
+			{ section: 0, edge: 2 },
+			{ section: 0, edge: 3 },
+			{ section: 0, edge: 4 }
+		]);
 		draft.removeCorner(0, 3); // the new middle corner goes: one wall C–D again
-		expect(draft.houseEdges).toEqual([{ section: 0, edge: 2 }, { section: 0, edge: 3 }]);
+		expect(draft.houseEdges).toEqual([
+			{ section: 0, edge: 2 },
+			{ section: 0, edge: 3 }
+		]);
 		draft.removeCorner(0, 0); // A goes: F–A and A–B merge; walls C–D, D–E renumber to 1, 2
-		expect(draft.houseEdges).toEqual([{ section: 0, edge: 1 }, { section: 0, edge: 2 }]);
+		expect(draft.houseEdges).toEqual([
+			{ section: 0, edge: 1 },
+			{ section: 0, edge: 2 }
+		]);
 		expect(draft.outcome.ok).toBe(true);
 	});
 });
@@ -159,12 +192,47 @@ describe('section names', () => {
 	const twoPours = () =>
 		new PlanDraft({
 			name: 'Names',
-			input: completeInput({ units: 'imperial', sections: [{ name: 'Front walk', outline: [[0, 0], [10, 0], [10, 4], [0, 4]] }, { name: 'Landing', outline: [[10, 0], [14, 0], [14, 4], [10, 4]] }] })!
+			input: completeInput({
+				units: 'imperial',
+				sections: [
+					{
+						name: 'Front walk',
+						outline: [
+							[0, 0],
+							[10, 0],
+							[10, 4],
+							[0, 4]
+						]
+					},
+					{
+						name: 'Landing',
+						outline: [
+							[10, 0],
+							[14, 0],
+							[14, 4],
+							[10, 4]
+						]
+					}
+				]
+			})!
 		});
 
 	it('survive splitting a pour: the split one names both halves, the others keep theirs', () => {
 		const d = twoPours();
-		d.splitSection(0, [[[0, 0], [5, 0], [5, 4], [0, 4]], [[5, 0], [10, 0], [10, 4], [5, 4]]]);
+		d.splitSection(0, [
+			[
+				[0, 0],
+				[5, 0],
+				[5, 4],
+				[0, 4]
+			],
+			[
+				[5, 0],
+				[10, 0],
+				[10, 4],
+				[5, 4]
+			]
+		]);
 		expect(d.input.sections.map((s) => s.name)).toEqual(['Front walk', 'Front walk, part 2', 'Landing']);
 		expect(d.result?.area.sections.length).toBe(3);
 	});
@@ -174,7 +242,20 @@ describe('section names', () => {
 		d.removeSection(0);
 		expect(d.input.sections.map((s) => s.name)).toEqual(['Landing']);
 		const e = twoPours();
-		e.splitSection(1, [[[10, 0], [12, 0], [12, 4], [10, 4]], [[12, 0], [14, 0], [14, 4], [12, 4]]]);
+		e.splitSection(1, [
+			[
+				[10, 0],
+				[12, 0],
+				[12, 4],
+				[10, 4]
+			],
+			[
+				[12, 0],
+				[14, 0],
+				[14, 4],
+				[12, 4]
+			]
+		]);
 		e.removeSection(0);
 		expect(e.input.sections.map((s) => s.name)).toEqual(['Landing', 'Landing, part 2']);
 	});

@@ -183,7 +183,11 @@ export class PlanDraft {
 	/** Cuts section s in two along a straight line; its name goes with both halves ("Walk", "Walk, part 2"). */
 	splitSection(s: number, pieces: [Pt[], Pt[]]) {
 		const names = this.#input.sections.flatMap((x, i) => (i === s ? [x.name, x.name ? `${x.name}, part 2` : undefined] : [x.name]));
-		this.setOutlines(this.#input.sections.flatMap((x, i) => (i === s ? pieces : [x.outline as Pt[]])), undefined, names);
+		this.setOutlines(
+			this.#input.sections.flatMap((x, i) => (i === s ? pieces : [x.outline as Pt[]])),
+			undefined,
+			names
+		);
 	}
 
 	/** Removes section s; the other sections keep their names. */

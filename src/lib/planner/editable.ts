@@ -21,7 +21,10 @@ export function sameData(a: unknown, b: unknown): boolean {
 		return a.every((x, i) => sameData(x, b[i]));
 	}
 	if (a === null || b === null || typeof a !== 'object' || typeof b !== 'object') return false;
-	const keys = (o: object) => Object.entries(o).filter(([, x]) => x !== undefined).map(([k]) => k);
+	const keys = (o: object) =>
+		Object.entries(o)
+			.filter(([, x]) => x !== undefined)
+			.map(([k]) => k);
 	const ka = keys(a);
 	if (ka.length !== keys(b).length) return false;
 	return ka.every((k) => sameData((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k]));

@@ -11,7 +11,18 @@ function defaultsFor(units: Units): ParsedPlan | undefined {
 	if (found) return found;
 	const e = engine();
 	if (!e) return undefined;
-	const parsed = e.parsePlanInput({ units, sections: [{ outline: [[0, 0], [1, 0], [1, 1]] }] });
+	const parsed = e.parsePlanInput({
+		units,
+		sections: [
+			{
+				outline: [
+					[0, 0],
+					[1, 0],
+					[1, 1]
+				]
+			}
+		]
+	});
 	if (!parsed.ok) throw new Error('the minimal plan is invalid');
 	return (cache[units] = parsed.plan);
 }

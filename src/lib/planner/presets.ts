@@ -27,7 +27,11 @@ export function presetOutline(p: Preset): Pt[] {
 /** The walls a preset stands against: edge A–B, or both notch edges C–D and D–E of the L. */
 export function presetHouse(p: Preset): EdgeRef[] {
 	if (p.house === 'none') return [];
-	if (p.house === 'corner' && p.shape === 'l') return [{ section: 0, edge: 2 }, { section: 0, edge: 3 }];
+	if (p.house === 'corner' && p.shape === 'l')
+		return [
+			{ section: 0, edge: 2 },
+			{ section: 0, edge: 3 }
+		];
 	return [{ section: 0, edge: 0 }];
 }
 

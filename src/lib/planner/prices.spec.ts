@@ -31,7 +31,10 @@ describe('price fields', () => {
 			const [a, b] = [shapes.imperial[key].description, shapes.metric[key].description];
 			if (a !== b) expect(PRICE_LABELS[key].per.imperial, key).not.toBe(PRICE_LABELS[key].per.metric);
 			// The unit the schema names after "Per" is the one the label names.
-			for (const [units, d] of [['imperial', a], ['metric', b]] as const) {
+			for (const [units, d] of [
+				['imperial', a],
+				['metric', b]
+			] as const) {
 				const unit = d?.match(/^Per ([^ .;]+)/)?.[1];
 				if (unit && /[²³]|^(ft|m|lb|kg|US|L|yd)$/.test(unit)) expect(PRICE_LABELS[key].per[units], `${key} ${units}`).toContain(unit);
 			}

@@ -40,9 +40,16 @@ const smallPerLength = (units: 'imperial' | 'metric') => (units === 'imperial' ?
 export function convertRate(r: Rate, to: RateUnit, span: number, units: 'imperial' | 'metric'): Rate {
 	if (r.unit === to) return { ...r };
 	const ratio =
-		r.unit === 'percent' ? r.value / 100 : r.unit === 'inPerFt' ? r.value / 12 : r.unit === 'mmPerM' ? r.value / 1000 : span > 0 ? r.value / smallPerLength(units) / span : 0;
-	const value =
-		to === 'percent' ? ratio * 100 : to === 'inPerFt' ? ratio * 12 : to === 'mmPerM' ? ratio * 1000 : ratio * span * smallPerLength(units);
+		r.unit === 'percent'
+			? r.value / 100
+			: r.unit === 'inPerFt'
+				? r.value / 12
+				: r.unit === 'mmPerM'
+					? r.value / 1000
+					: span > 0
+						? r.value / smallPerLength(units) / span
+						: 0;
+	const value = to === 'percent' ? ratio * 100 : to === 'inPerFt' ? ratio * 12 : to === 'mmPerM' ? ratio * 1000 : ratio * span * smallPerLength(units);
 	const k = 10 ** DIGITS[units][to];
 	return { value: Math.round(value * k) / k || 0, unit: to };
 }

@@ -56,7 +56,11 @@ describe('the device queue', () => {
 
 	it('sets a refused batch aside with the server’s reason, and keeps it on a 5xx', async () => {
 		addRecord(plan, batch(1));
-		const answer = (status: number) => (async () => new Response(JSON.stringify({ errors: [{ path: 'records', message: 'A plan’s pour log can hold at most 2000 records.' }] }), { status })) as typeof fetch;
+		const answer = (status: number) =>
+			(async () =>
+				new Response(JSON.stringify({ errors: [{ path: 'records', message: 'A plan’s pour log can hold at most 2000 records.' }] }), {
+					status
+				})) as typeof fetch;
 		expect(await sendQueued(plan, answer(503))).toBe('offline');
 		expect(readSaved(plan).pending).toEqual(['batch-key-1']);
 		expect(await sendQueued(plan, answer(413))).toBe('refused');

@@ -3,13 +3,8 @@ import { plainText } from '$lib/plan/text';
 
 export const PASSWORD_MIN = 10;
 
-const email = plainText()
-	.trim()
-	.min(1, 'Enter your e-mail address.')
-	.pipe(z.email('That does not look like an e-mail address.'));
-const newPassword = plainText()
-	.min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`)
-	.max(200, 'Use at most 200 characters.');
+const email = plainText().trim().min(1, 'Enter your e-mail address.').pipe(z.email('That does not look like an e-mail address.'));
+const newPassword = plainText().min(PASSWORD_MIN, `Use at least ${PASSWORD_MIN} characters.`).max(200, 'Use at most 200 characters.');
 
 export const signUpSchema = z.object({
 	name: plainText().trim().min(1, 'Enter your name.').max(100, 'Use at most 100 characters.'),

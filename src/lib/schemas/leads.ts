@@ -21,23 +21,27 @@ export const contactPhone = plainText()
 		return digits >= 7 && digits <= 15;
 	}, 'Enter a phone number with its area code (7 to 15 digits).');
 
-export const getBidsSchema = z.object({
-	scope: z.enum(serviceKinds, { error: 'Choose what you want done.' }),
-	timeframe: z.enum(timeframes, { error: 'Choose when the work should happen.' }),
-	notes: plainText().trim().max(2000, 'Use at most 2000 characters.').default(''),
-	finish: z.enum(finishes, { error: 'Choose a finish.' }).default('broom'),
-	existingSurface: z.enum(existingSurfaces, { error: 'Choose what is there now.' }).default('grass_soil'),
-	siteAccess: plainText().trim().max(500, 'Use at most 500 characters.').default(''),
-	// Optional when sending (asked again on accepting); given, both must be valid.
-	siteAddress: plainText().trim().max(200, 'Use at most 200 characters.').default(''),
-	phone: plainText().trim().max(25, 'Use at most 25 characters.').default(''),
-	contractors: z
-		.array(uuid)
-		.min(1, 'Choose at least one contractor.')
-		.max(MAX_CONTRACTORS_PER_SEND, `Choose at most ${MAX_CONTRACTORS_PER_SEND} contractors.`)
-})
+export const getBidsSchema = z
+	.object({
+		scope: z.enum(serviceKinds, { error: 'Choose what you want done.' }),
+		timeframe: z.enum(timeframes, { error: 'Choose when the work should happen.' }),
+		notes: plainText().trim().max(2000, 'Use at most 2000 characters.').default(''),
+		finish: z.enum(finishes, { error: 'Choose a finish.' }).default('broom'),
+		existingSurface: z.enum(existingSurfaces, { error: 'Choose what is there now.' }).default('grass_soil'),
+		siteAccess: plainText().trim().max(500, 'Use at most 500 characters.').default(''),
+		// Optional when sending (asked again on accepting); given, both must be valid.
+		siteAddress: plainText().trim().max(200, 'Use at most 200 characters.').default(''),
+		phone: plainText().trim().max(25, 'Use at most 25 characters.').default(''),
+		contractors: z
+			.array(uuid)
+			.min(1, 'Choose at least one contractor.')
+			.max(MAX_CONTRACTORS_PER_SEND, `Choose at most ${MAX_CONTRACTORS_PER_SEND} contractors.`)
+	})
 	.superRefine((v, ctx) => {
-		for (const [key, schema] of [['siteAddress', siteAddress], ['phone', contactPhone]] as const) {
+		for (const [key, schema] of [
+			['siteAddress', siteAddress],
+			['phone', contactPhone]
+		] as const) {
 			const bad = v[key] ? schema.safeParse(v[key]).error?.issues[0] : undefined;
 			if (bad) ctx.addIssue({ code: 'custom', path: [key], message: bad.message });
 		}
@@ -61,7 +65,11 @@ const optionalDollars = plainText()
 	.refine((s) => s === '' || DOLLARS.test(s), dollarsMessage)
 	.transform((s) => (s === '' ? null : toCents(s)));
 
-const isoDate = (missing: string) => plainText().trim().min(1, missing).regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter a date.');
+const isoDate = (missing: string) =>
+	plainText()
+		.trim()
+		.min(1, missing)
+		.regex(/^\d{4}-\d{2}-\d{2}$/, 'Enter a date.');
 const utcToday = () => new Date().toISOString().slice(0, 10);
 
 /**

@@ -19,7 +19,8 @@ async function tokenSentTo(to: string) {
 	await expect.poll(async () => (text = (await db.select().from(devMail).where(eq(devMail.to, to)))[0]?.text ?? '')).toMatch(/token=/);
 	return /token=([A-Za-z0-9_=-]+)/.exec(text)![1];
 }
-const outboxTo = (to: string) => db.select({ subject: mailOutbox.subject, text: mailOutbox.text }).from(mailOutbox).where(eq(mailOutbox.to, to)).orderBy(mailOutbox.createdAt);
+const outboxTo = (to: string) =>
+	db.select({ subject: mailOutbox.subject, text: mailOutbox.text }).from(mailOutbox).where(eq(mailOutbox.to, to)).orderBy(mailOutbox.createdAt);
 
 useTestDatabase({ worker: true });
 
@@ -91,7 +92,10 @@ describe('disabling an account', () => {
 		const fresh = generateSessionToken();
 		await createSession(fresh, u.id);
 		expect((await validateSessionToken(fresh)).user?.id).toBe(u.id);
-		const audit = await db.select().from(auditLog).where(and(eq(auditLog.subjectId, u.id)));
+		const audit = await db
+			.select()
+			.from(auditLog)
+			.where(and(eq(auditLog.subjectId, u.id)));
 		expect(audit.map((a) => [a.action, a.reason, a.actorName]).sort()).toEqual([
 			['disable_account', 'Spam in plan notes', 'Admin Ida'],
 			['enable_account', 'Cleaned up', 'Admin Ida']

@@ -19,7 +19,8 @@ useTestDatabase({ worker: true });
 
 describe('confirm-first sign-up', () => {
 	const origin = 'http://stakeline.test';
-	const subjects = async (to: string) => (await db.select({ subject: mailOutbox.subject }).from(mailOutbox).where(eq(mailOutbox.to, to)).orderBy(mailOutbox.createdAt)).map((m) => m.subject);
+	const subjects = async (to: string) =>
+		(await db.select({ subject: mailOutbox.subject }).from(mailOutbox).where(eq(mailOutbox.to, to)).orderBy(mailOutbox.createdAt)).map((m) => m.subject);
 	const signUp = (email: string, name: string, role: 'homeowner' | 'contractor' = 'homeowner') =>
 		signUpOrNotify({ name, email, password: `${name}-password-1`, role }, origin, '/plans/new');
 
@@ -76,7 +77,9 @@ describe('users', () => {
 	it('refuse a second account with the same e-mail in any case, storing nothing', async () => {
 		const email = unique('dup');
 		await createUser({ name: 'First', email, password: 'first-password', role: 'homeowner' });
-		await expect(createUser({ name: 'Second', email: email.toUpperCase(), password: 'second-password', role: 'contractor' })).rejects.toBeInstanceOf(EmailTakenError);
+		await expect(createUser({ name: 'Second', email: email.toUpperCase(), password: 'second-password', role: 'contractor' })).rejects.toBeInstanceOf(
+			EmailTakenError
+		);
 		const rows = await db.select().from(user).where(eq(user.email, email));
 		expect(rows.map((r) => r.name)).toEqual(['First']);
 	});
@@ -108,14 +111,20 @@ describe('sessions', () => {
 
 	it('expire: an expired session is refused and deleted', async () => {
 		const { token, s } = await newSession();
-		await db.update(session).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(session.id, s.id));
+		await db
+			.update(session)
+			.set({ expiresAt: new Date(Date.now() - 1000) })
+			.where(eq(session.id, s.id));
 		expect(await validateSessionToken(token)).toEqual({ session: null, user: null });
 		expect(await db.select().from(session).where(eq(session.id, s.id))).toHaveLength(0);
 	});
 
 	it('renew when under 15 days are left', async () => {
 		const { token, s } = await newSession();
-		await db.update(session).set({ expiresAt: new Date(Date.now() + 10 * DAY) }).where(eq(session.id, s.id));
+		await db
+			.update(session)
+			.set({ expiresAt: new Date(Date.now() + 10 * DAY) })
+			.where(eq(session.id, s.id));
 		await validateSessionToken(token);
 		const [row] = await db.select().from(session).where(eq(session.id, s.id));
 		expect(row.expiresAt.getTime()).toBeGreaterThan(Date.now() + 29 * DAY);
@@ -144,7 +153,10 @@ describe('one-time e-mail tokens', () => {
 	it('stop working when expired', async () => {
 		const u = await createUser({ name: 'Old', email: unique('o'), password: 'token-pass-34', role: 'homeowner' });
 		const t = await createEmailToken(u.id, 'verify_email');
-		await db.update(emailToken).set({ expiresAt: new Date(Date.now() - 1) }).where(eq(emailToken.id, hashToken(t)));
+		await db
+			.update(emailToken)
+			.set({ expiresAt: new Date(Date.now() - 1) })
+			.where(eq(emailToken.id, hashToken(t)));
 		expect(await consumeEmailToken(t, 'verify_email')).toBeNull();
 	});
 });
@@ -202,5 +214,4 @@ describe('mail outbox', () => {
 		const jobs = await db.execute(sql`SELECT 1 FROM graphile_worker.jobs j JOIN mail_outbox m ON j.key = 'mail:' || m.id WHERE m.to = ${to}`);
 		expect(jobs.length).toBe(0);
 	});
-
 });

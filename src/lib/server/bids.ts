@@ -32,11 +32,21 @@ import {
  */
 export async function acceptBid(ownerId: string, planId: string, bidId: string, origin: string, contact: JobContactInput) {
 	const out = await db.transaction(async (tx) => {
-		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+		const [p] = await tx
+			.select({ id: plan.id })
+			.from(plan)
+			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
+			.for('update');
 		if (!p) return null;
-		const [b] = await tx.select().from(bid).where(and(eq(bid.id, bidId), eq(bid.planId, planId)));
+		const [b] = await tx
+			.select()
+			.from(bid)
+			.where(and(eq(bid.id, bidId), eq(bid.planId, planId)));
 		if (!b) return null;
-		const [already] = await tx.select({ id: bid.id }).from(bid).where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
+		const [already] = await tx
+			.select({ id: bid.id })
+			.from(bid)
+			.where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
 		if (already) throw new LeadRefused('You accepted a bid for this plan already.');
 		if (b.status !== 'open') throw new LeadRefused('This bid is no longer open.');
 		if (isExpired(b.validUntil)) throw new LeadRefused(`This bid was valid until ${b.validUntil}; ask the contractor to renew it.`);
@@ -52,7 +62,10 @@ export async function acceptBid(ownerId: string, planId: string, bidId: string, 
 		await saveJobContact(tx, planId, contact);
 		const now = new Date();
 		await tx.update(bid).set({ status: 'accepted', updatedAt: now }).where(eq(bid.id, b.id));
-		await tx.update(bid).set({ status: 'not_selected', updatedAt: now }).where(and(eq(bid.planId, planId), eq(bid.status, 'open'), ne(bid.id, b.id)));
+		await tx
+			.update(bid)
+			.set({ status: 'not_selected', updatedAt: now })
+			.where(and(eq(bid.planId, planId), eq(bid.status, 'open'), ne(bid.id, b.id)));
 		await tx.update(lead).set({ status: wonTo, updatedAt: now }).where(eq(lead.id, b.leadId));
 		// Only the leads the table moves (the open ones); declined, withdrawn and expired ones stay as they are.
 		const others = await tx
@@ -93,11 +106,19 @@ export async function saveBid(contractorId: string, leadId: string, input: BidIn
 		if (locked.bid && locked.bid.status !== 'open') throw new LeadRefused('This bid is no longer open.');
 		if (locked.bid && isExpired(locked.bid.validUntil)) throw new LeadRefused('This bid has expired; it can no longer be changed.');
 		const now = new Date();
-		if (locked.bid) await tx.update(bid).set({ ...input, updatedAt: now }).where(eq(bid.id, locked.bid.id));
+		if (locked.bid)
+			await tx
+				.update(bid)
+				.set({ ...input, updatedAt: now })
+				.where(eq(bid.id, locked.bid.id));
 		else await tx.insert(bid).values({ ...input, leadId, planId: locked.lead.planId, contractorId });
 		await tx.update(lead).set({ status: to, updatedAt: now }).where(eq(lead.id, leadId));
 		const home = await homeownerOf(tx, locked.lead.homeownerId);
-		await queueMail(home.email, newBidMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, !!locked.bid, bidsUrl(origin, locked.lead.planId)), tx);
+		await queueMail(
+			home.email,
+			newBidMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, !!locked.bid, bidsUrl(origin, locked.lead.planId)),
+			tx
+		);
 		return true;
 	});
 	return out;
@@ -114,7 +135,11 @@ export async function withdrawBid(contractorId: string, leadId: string, origin =
 		await tx.update(bid).set({ status: 'withdrawn', updatedAt: new Date() }).where(eq(bid.id, locked.bid.id));
 		await tx.update(lead).set({ status: to, updatedAt: new Date() }).where(eq(lead.id, leadId));
 		const home = await homeownerOf(tx, locked.lead.homeownerId);
-		await queueMail(home.email, bidWithdrawnMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, bidsUrl(origin, locked.lead.planId)), tx);
+		await queueMail(
+			home.email,
+			bidWithdrawnMail(home.name, c.businessName ?? 'A contractor', locked.lead.snapshot.name, bidsUrl(origin, locked.lead.planId)),
+			tx
+		);
 		return true;
 	});
 	return out;
@@ -127,7 +152,11 @@ export async function withdrawBid(contractorId: string, leadId: string, origin =
  */
 export async function reopenBidding(ownerId: string, planId: string, origin: string) {
 	const out = await db.transaction(async (tx) => {
-		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+		const [p] = await tx
+			.select({ id: plan.id })
+			.from(plan)
+			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
+			.for('update');
 		if (!p) return null;
 		const [won] = await tx
 			.select({ bidId: bid.id, leadId: bid.leadId, status: contractor.status })
@@ -138,7 +167,10 @@ export async function reopenBidding(ownerId: string, planId: string, origin: str
 		if (won.status === 'approved') throw new LeadRefused('The contractor you hired is in good standing; talk to them in the messages first.');
 		const now = new Date();
 		await tx.update(bid).set({ status: 'released', updatedAt: now }).where(eq(bid.id, won.bidId));
-		await tx.update(lead).set({ status: step('won', 'release', 'There is no accepted bid to release.'), updatedAt: now }).where(eq(lead.id, won.leadId));
+		await tx
+			.update(lead)
+			.set({ status: step('won', 'release', 'There is no accepted bid to release.'), updatedAt: now })
+			.where(eq(lead.id, won.leadId));
 		const today = new Date().toISOString().slice(0, 10);
 		const reopened = await tx
 			.update(bid)
@@ -146,10 +178,23 @@ export async function reopenBidding(ownerId: string, planId: string, origin: str
 			.where(and(eq(bid.planId, planId), eq(bid.status, 'not_selected'), sql`${bid.validUntil} >= ${today}`))
 			.returning({ leadId: bid.leadId });
 		// The table's reopen step: a not-selected lead with a still-valid bid is bid_sent again.
-		if (reopened.length) await tx.update(lead).set({ status: leadTarget('not_selected', 'reopen')!, updatedAt: now }).where(inArray(lead.id, reopened.map((r) => r.leadId)));
+		if (reopened.length)
+			await tx
+				.update(lead)
+				.set({ status: leadTarget('not_selected', 'reopen')!, updatedAt: now })
+				.where(
+					inArray(
+						lead.id,
+						reopened.map((r) => r.leadId)
+					)
+				);
 		for (const to of await leadContractors(tx, [won.leadId, ...reopened.map((r) => r.leadId)])) {
 			const url = leadUrl(origin, to.leadId);
-			await queueMail(to.email, to.leadId === won.leadId ? jobReleasedMail(to.name, to.town ?? 'you', url) : biddingReopenedMail(to.name, to.town ?? 'you', url), tx);
+			await queueMail(
+				to.email,
+				to.leadId === won.leadId ? jobReleasedMail(to.name, to.town ?? 'you', url) : biddingReopenedMail(to.name, to.town ?? 'you', url),
+				tx
+			);
 		}
 		return { reopened: reopened.length };
 	});

@@ -8,8 +8,24 @@ import { planCalendar } from './calendar';
 const split: PlanInput = {
 	...cornerEll,
 	sections: [
-		{ name: 'Front pad', outline: [[0, 0], [12, 0], [12, 10], [0, 10]] },
-		{ name: 'Back pad', outline: [[12, 0], [24, 0], [24, 10], [12, 10]] }
+		{
+			name: 'Front pad',
+			outline: [
+				[0, 0],
+				[12, 0],
+				[12, 10],
+				[0, 10]
+			]
+		},
+		{
+			name: 'Back pad',
+			outline: [
+				[12, 0],
+				[24, 0],
+				[24, 10],
+				[12, 10]
+			]
+		}
 	],
 	houseEdge: { section: 0, edge: 0 },
 	otherHouseEdges: [],

@@ -18,7 +18,11 @@ export async function findContractor(userId: string) {
 	const [row] = await db.select().from(contractor).where(eq(contractor.userId, userId));
 	if (!row) return null;
 	const mine = eq(contractorDocument.contractorId, userId);
-	const documents = await db.select(documentFields).from(contractorDocument).where(and(mine, isNull(contractorDocument.supersededAt))).orderBy(asc(contractorDocument.kind));
+	const documents = await db
+		.select(documentFields)
+		.from(contractorDocument)
+		.where(and(mine, isNull(contractorDocument.supersededAt)))
+		.orderBy(asc(contractorDocument.kind));
 	const earlierDocuments = await db
 		.select(documentFields)
 		.from(contractorDocument)
@@ -128,9 +132,15 @@ export async function saveContractorProfile(
 					.update(contractorDocument)
 					.set({ supersededAt: now })
 					.where(and(eq(contractorDocument.contractorId, userId), eq(contractorDocument.kind, kind), isNull(contractorDocument.supersededAt)));
-				await tx
-					.insert(contractorDocument)
-					.values({ contractorId: userId, kind, storageKey: key, contentType: file.mime, bytes: file.bytes.byteLength, originalName: file.name, createdAt: now });
+				await tx.insert(contractorDocument).values({
+					contractorId: userId,
+					kind,
+					storageKey: key,
+					contentType: file.mime,
+					bytes: file.bytes.byteLength,
+					originalName: file.name,
+					createdAt: now
+				});
 			}
 			if (entersQueue) {
 				const admins = await tx.select({ name: user.name, email: user.email }).from(user).where(eq(user.role, 'admin'));

@@ -17,10 +17,12 @@ export const isoDay = (now: Date) => now.toISOString().slice(0, 10);
 export const EXPIRING_WINDOW_DAYS = 45;
 
 const credentialDates = (c: { licenceExpiresOn: string | null; insuranceExpiresOn: string | null }) =>
-	([
-		['licence', c.licenceExpiresOn],
-		['insurance', c.insuranceExpiresOn]
-	] as [DocumentKind, string | null][]).filter((e): e is [DocumentKind, string] => e[1] !== null);
+	(
+		[
+			['licence', c.licenceExpiresOn],
+			['insurance', c.insuranceExpiresOn]
+		] as [DocumentKind, string | null][]
+	).filter((e): e is [DocumentKind, string] => e[1] !== null);
 
 /** True when neither date has passed on `today` (a missing date is not an expired one). */
 export const credentialsCurrent = (c: { licenceExpiresOn: string | null; insuranceExpiresOn: string | null }, today: string) =>
@@ -56,7 +58,9 @@ async function lapseExpired(tx: Tx, today: string, origin: string, only?: string
 		const kinds = credentialDates(row)
 			.filter(([, d]) => d < today)
 			.map(([k]) => k);
-		const reason = kinds.map((k) => `Your ${k} expired on ${formatDayLong(k === 'licence' ? row.licenceExpiresOn! : row.insuranceExpiresOn!)}.`).join(' ') + ' Upload the renewed document with its new date.';
+		const reason =
+			kinds.map((k) => `Your ${k} expired on ${formatDayLong(k === 'licence' ? row.licenceExpiresOn! : row.insuranceExpiresOn!)}.`).join(' ') +
+			' Upload the renewed document with its new date.';
 		await tx.update(contractor).set({ status: to, statusReason: reason, updatedAt: new Date() }).where(eq(contractor.userId, row.userId));
 		await queueMail(email, credentialLapsedMail(name, kinds, `${origin}/pro/profile`), tx);
 		await tellHomeownersOfContractorChange(tx, row.userId, row.businessName ?? name, 'lapsed', origin);

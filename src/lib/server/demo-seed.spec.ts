@@ -12,5 +12,4 @@ describe('demo seed', () => {
 		expect(r.stdout).toContain('Demo data not loaded into db.internal.example:5432/stakeline');
 		expect(r.status).toBe(0);
 	}, 60_000);
-
 });

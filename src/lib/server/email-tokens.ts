@@ -14,11 +14,7 @@ export const TOKEN_LIFETIME_MS: Record<TokenPurpose, number> = {
 };
 
 /** A new one-time link token; earlier unused ones of the same purpose stop working. */
-export async function createEmailToken(
-	userId: string,
-	purpose: TokenPurpose,
-	{ tx: inTx, newEmail }: { tx?: Tx; newEmail?: string } = {}
-): Promise<string> {
+export async function createEmailToken(userId: string, purpose: TokenPurpose, { tx: inTx, newEmail }: { tx?: Tx; newEmail?: string } = {}): Promise<string> {
 	const token = generateToken();
 	const run = (fn: (tx: Tx) => Promise<void>) => (inTx ? fn(inTx) : db.transaction(fn));
 	await run(async (tx) => {

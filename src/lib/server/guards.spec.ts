@@ -8,15 +8,37 @@ describe('safeRedirect', () => {
 	});
 
 	it('refuses anything a browser would send elsewhere', () => {
-		for (const t of ['//evil.example', '/\t/evil.example', '/\\evil.example', '/\n/evil.example', 'https://evil.example', 'evil.example', '', null, undefined]) {
+		for (const t of [
+			'//evil.example',
+			'/\t/evil.example',
+			'/\\evil.example',
+			'/\n/evil.example',
+			'https://evil.example',
+			'evil.example',
+			'',
+			null,
+			undefined
+		]) {
 			expect(safeRedirect(t, '/home')).toBe('/home');
 		}
 	});
 
 	it('refuses the forms that normalise to another site', () => {
 		// As the sign-in page reads them: URLSearchParams percent-decodes the query once.
-		const query = ['%2F.%2F%2Fevil.example', '%2F%2Fevil.example', '%2F%5Cevil.example', '%2F%09%2Fevil.example', '%2F%0A%2Fevil.example', '%2F%0D%2Fevil.example',
-			'/./%2F/evil.example', '%2F..%2F%2Fevil.example', '/a/..//evil.example', '/%00//evil.example', 'http:%2F%2Fevil.example', '%2F%2F%2Fevil.example'];
+		const query = [
+			'%2F.%2F%2Fevil.example',
+			'%2F%2Fevil.example',
+			'%2F%5Cevil.example',
+			'%2F%09%2Fevil.example',
+			'%2F%0A%2Fevil.example',
+			'%2F%0D%2Fevil.example',
+			'/./%2F/evil.example',
+			'%2F..%2F%2Fevil.example',
+			'/a/..//evil.example',
+			'/%00//evil.example',
+			'http:%2F%2Fevil.example',
+			'%2F%2F%2Fevil.example'
+		];
 		for (const q of query) {
 			const target = new URLSearchParams(`redirectTo=${q}`).get('redirectTo');
 			const result = safeRedirect(target, '/home');

@@ -44,7 +44,6 @@ export const today = () => new Date().toISOString().slice(0, 10);
 export const credentialsCurrentSql = (day: string) =>
 	sql`(coalesce(${contractor.licenceExpiresOn}, 'infinity'::date) >= ${day}::date and coalesce(${contractor.insuranceExpiresOn}, 'infinity'::date) >= ${day}::date)`;
 
-
 /**
  * SQL: true when the account `userId` names was disabled by an admin. One definition for every
  * place that must treat such a contractor as gone: matching, the bids page, accepting a bid.
@@ -55,16 +54,30 @@ export const accountDisabledSql = (userId: SQL | typeof contractor.userId) =>
 /** Name and e-mail of each lead's contractor, with the lead's town, in one query. */
 export const leadContractors = (tx: Tx, leadIds: string[]) =>
 	leadIds.length
-		? tx.select({ leadId: lead.id, town: lead.town, name: user.name, email: user.email }).from(lead).innerJoin(user, eq(user.id, lead.contractorId)).where(inArray(lead.id, leadIds))
+		? tx
+				.select({ leadId: lead.id, town: lead.town, name: user.name, email: user.email })
+				.from(lead)
+				.innerJoin(user, eq(user.id, lead.contractorId))
+				.where(inArray(lead.id, leadIds))
 		: Promise.resolve([]);
 
 /** The owner's plan, locked against a concurrent accept; refused once a bid is accepted. */
 export async function lockOpenPlan(tx: Tx, ownerId: string, planId: string) {
-	const [p] = await tx.select().from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+	const [p] = await tx
+		.select()
+		.from(plan)
+		.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
+		.for('update');
 	if (!p) return null;
-	const [accepted] = await tx.select({ id: bid.id }).from(bid).where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
+	const [accepted] = await tx
+		.select({ id: bid.id })
+		.from(bid)
+		.where(and(eq(bid.planId, planId), eq(bid.status, 'accepted')));
 	if (accepted) throw new LeadRefused('You accepted a bid for this plan already.');
-	const [done] = await tx.select({ id: lead.id }).from(lead).where(and(eq(lead.planId, planId), eq(lead.status, 'done')));
+	const [done] = await tx
+		.select({ id: lead.id })
+		.from(lead)
+		.where(and(eq(lead.planId, planId), eq(lead.status, 'done')));
 	if (done) throw new LeadRefused('You marked the job for this plan done.');
 	return p;
 }
@@ -74,7 +87,10 @@ export async function lockOpenPlan(tx: Tx, ownerId: string, planId: string) {
  * accept in progress (FOR UPDATE) but not for the homeowner's ordinary plan saves.
  */
 export async function lockOwnLead(tx: Tx, contractorId: string, leadId: string) {
-	const [l] = await tx.select().from(lead).where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
+	const [l] = await tx
+		.select()
+		.from(lead)
+		.where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
 	if (!l) return null;
 	await tx.select({ id: plan.id }).from(plan).where(eq(plan.id, l.planId)).for('key share');
 	const [fresh] = await tx.select().from(lead).where(eq(lead.id, leadId)).for('update');

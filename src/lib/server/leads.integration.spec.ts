@@ -4,7 +4,17 @@ import { and, eq } from 'drizzle-orm';
 import { haversineKm } from '$lib/geo';
 import { db } from './db';
 import { bid, contractor, lead, mailOutbox, plan, planPhoto } from './db/schema';
-import { announceRevision, tellHomeownersOfContractorChange, contractorLead, declineLead, LeadRefused, leadsForPlan, leadPhotoPlan, markLeadSeen, sendLeads } from './leads';
+import {
+	announceRevision,
+	tellHomeownersOfContractorChange,
+	contractorLead,
+	declineLead,
+	LeadRefused,
+	leadsForPlan,
+	leadPhotoPlan,
+	markLeadSeen,
+	sendLeads
+} from './leads';
 import { acceptBid, reopenBidding, saveBid, withdrawBid } from './bids';
 import { postMessage, unreadMessageCount } from './messages';
 import { matchContractors, placeOf } from './matching';
@@ -26,7 +36,16 @@ const future = (days: number) => new Date(Date.now() + days * 86_400_000).toISOS
 const HOME_ZIP = '52632';
 const home = placeOf(HOME_ZIP)!;
 
-async function approvedContractor(name: string, o: { postcode: string; radius: number; unit: 'mi' | 'km'; services?: ('layout_forms' | 'base_prep' | 'pour_finish' | 'whole_job')[]; status?: 'approved' | 'awaiting_review' | 'suspended' }) {
+async function approvedContractor(
+	name: string,
+	o: {
+		postcode: string;
+		radius: number;
+		unit: 'mi' | 'km';
+		services?: ('layout_forms' | 'base_prep' | 'pour_finish' | 'whole_job')[];
+		status?: 'approved' | 'awaiting_review' | 'suspended';
+	}
+) {
 	const u = await createUser({ name, email: unique('pro'), password: 'contractor-pass', role: 'contractor' });
 	const at = placeOf(o.postcode)!;
 	await db
@@ -50,7 +69,13 @@ async function homeownerWithPlan(postcode = HOME_ZIP) {
 	const owner = await createUser({ name: 'Hale Owner', email: unique('home'), password: 'homeowner-pass', role: 'homeowner' });
 	const [p] = await db
 		.insert(plan)
-		.values({ ownerId: owner.id, name: 'Side walk', postcode, input: { units: 'imperial', note: 'first' }, result: storedFigures({ area: { squareFeet: 60, squareMeters: 5.57 } }) })
+		.values({
+			ownerId: owner.id,
+			name: 'Side walk',
+			postcode,
+			input: { units: 'imperial', note: 'first' },
+			result: storedFigures({ area: { squareFeet: 60, squareMeters: 5.57 } })
+		})
 		.returning();
 	return { owner, plan: p };
 }
@@ -103,8 +128,14 @@ describe('leads', () => {
 		const sent = await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'flexible', notes: 'Gate is on the left.', contractors: [c.id] }, origin);
 		expect(sent).toEqual({ created: 1 });
 
-		await db.update(plan).set({ input: { units: 'metric', note: 'second' }, revision: 2 }).where(eq(plan.id, p.id));
-		const [l] = await db.select().from(lead).where(and(eq(lead.planId, p.id), eq(lead.contractorId, c.id)));
+		await db
+			.update(plan)
+			.set({ input: { units: 'metric', note: 'second' }, revision: 2 })
+			.where(eq(plan.id, p.id));
+		const [l] = await db
+			.select()
+			.from(lead)
+			.where(and(eq(lead.planId, p.id), eq(lead.contractorId, c.id)));
 		expect(l.planRevision).toBe(1);
 		expect(l.snapshot.input).toEqual({ units: 'imperial', note: 'first' });
 
@@ -126,7 +157,9 @@ describe('leads', () => {
 	it('refuse contractors outside the match and plans of someone else', async () => {
 		const outside = await approvedContractor('Outside', { postcode: '52601', radius: 5, unit: 'mi' });
 		const { owner, plan: p } = await homeownerWithPlan();
-		await expect(sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [outside.id] }, origin)).rejects.toBeInstanceOf(LeadRefused);
+		await expect(sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [outside.id] }, origin)).rejects.toBeInstanceOf(
+			LeadRefused
+		);
 		const other = await homeownerWithPlan();
 		expect(await sendLeads(other.owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [outside.id] }, origin)).toBeNull();
 		expect(await db.select().from(lead).where(eq(lead.planId, p.id))).toHaveLength(0);
@@ -152,14 +185,24 @@ describe('leads', () => {
 		expect(before?.homeowner).toBeNull();
 		expect(JSON.stringify(before)).not.toContain(owner.email);
 
-		const [bidA] = await db.select().from(bid).where(eq(bid.leadId, leadOf(a.id)));
+		const [bidA] = await db
+			.select()
+			.from(bid)
+			.where(eq(bid.leadId, leadOf(a.id)));
 		expect(await acceptBid(owner.id, p.id, bidA.id, origin, site)).toBe(true);
 		const after = await contractorLead(a.id, leadOf(a.id));
 		expect(after?.homeowner).toEqual({ name: 'Hale Owner', email: owner.email, ...site });
 		expect(after?.bid?.status).toBe('accepted');
 		const statuses = Object.fromEntries((await db.select().from(lead).where(eq(lead.planId, p.id))).map((l) => [l.contractorId, l.status]));
 		expect(statuses).toEqual({ [a.id]: 'won', [b.id]: 'not_selected', [c.id]: 'declined' });
-		expect((await db.select().from(bid).where(eq(bid.leadId, leadOf(b.id))))[0].status).toBe('not_selected');
+		expect(
+			(
+				await db
+					.select()
+					.from(bid)
+					.where(eq(bid.leadId, leadOf(b.id)))
+			)[0].status
+		).toBe('not_selected');
 		await expect(saveBid(a.id, leadOf(a.id), bidInput(9999), origin)).rejects.toThrow(/closed/);
 		const mails = await db.select().from(mailOutbox).where(eq(mailOutbox.to, b.email));
 		expect(mails.some((m) => /was not selected/.test(m.subject))).toBe(true);
@@ -172,7 +215,10 @@ describe('leads', () => {
 		const leads = await db.select().from(lead).where(eq(lead.planId, p.id));
 		const leadOf = (id: string) => leads.find((l) => l.contractorId === id)!.id;
 		expect(await saveBid(a.id, leadOf(a.id), bidInput(2400), origin)).toBe(true);
-		const [bidA] = await db.select().from(bid).where(eq(bid.leadId, leadOf(a.id)));
+		const [bidA] = await db
+			.select()
+			.from(bid)
+			.where(eq(bid.leadId, leadOf(a.id)));
 		expect(await acceptBid(owner.id, p.id, bidA.id, origin, site)).toBe(true);
 		const subjects = (await db.select().from(mailOutbox).where(eq(mailOutbox.to, quiet.email))).map((m) => m.subject);
 		expect(subjects.some((t) => /another firm was hired/.test(t))).toBe(true);
@@ -185,7 +231,13 @@ describe('leads', () => {
 		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'within_month', notes: '', contractors: [firm.id] }, origin);
 		const [l] = await db.select().from(lead).where(eq(lead.planId, p.id));
 		expect(await saveBid(firm.id, l.id, bidInput(2400), origin)).toBe(true);
-		const admin = await createUser({ name: 'Desk Admin', email: `desk-${Date.now()}@example.test`, password: 'long-enough-pass', role: 'admin', verified: true });
+		const admin = await createUser({
+			name: 'Desk Admin',
+			email: `desk-${Date.now()}@example.test`,
+			password: 'long-enough-pass',
+			role: 'admin',
+			verified: true
+		});
 		expect(await setAccountDisabled(admin, firm.id, true, 'Complaints under review.', origin)).toBe(true);
 		const told = (await db.select().from(mailOutbox).where(eq(mailOutbox.to, owner.email))).map((m) => m.subject);
 		expect(told.some((t) => /Juniper.* is suspended for now/.test(t))).toBe(true);
@@ -269,7 +321,13 @@ describe('suspension and reinstatement', () => {
 		await sendLeads(a.owner, a.plan.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id] }, origin);
 		await sendLeads(b.owner, b.plan.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id, other.id] }, origin);
 		await sendLeads(d.owner, d.plan.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id] }, origin);
-		const leadOf = async (planId: string, who: string) => (await db.select().from(lead).where(and(eq(lead.planId, planId), eq(lead.contractorId, who))))[0];
+		const leadOf = async (planId: string, who: string) =>
+			(
+				await db
+					.select()
+					.from(lead)
+					.where(and(eq(lead.planId, planId), eq(lead.contractorId, who)))
+			)[0];
 		const la = await leadOf(a.plan.id, c.id);
 		const lb = await leadOf(b.plan.id, c.id);
 		const lbOther = await leadOf(b.plan.id, other.id);
@@ -302,9 +360,9 @@ describe('suspension and reinstatement', () => {
 		expect((await mailsTo(d.owner.email)).filter((m) => /suspended/.test(m.subject))).toHaveLength(0);
 
 		await decide(admin, c.id, 'reinstate', null, origin);
-		expect((await status(c.id))).toBe('approved');
+		expect(await status(c.id)).toBe('approved');
 		expect((await leadOf(a.plan.id, c.id)).status).toBe('bid_sent');
-		expect((await acceptBid(a.owner.id, a.plan.id, openBid.id, origin, site))).toBe(true);
+		expect(await acceptBid(a.owner.id, a.plan.id, openBid.id, origin, site)).toBe(true);
 		for (const who of [a.owner.email, b.owner.email]) expect((await mailsTo(who)).filter((m) => /is active again/.test(m.subject))).toHaveLength(1);
 		const toContractor = (await mailsTo(c.email)).filter((m) => /active again/.test(m.subject));
 		expect(toContractor[0].text).toContain('your leads that are still open are back on your desk');
@@ -326,7 +384,10 @@ describe('suspension and reinstatement', () => {
 
 		await decide(admin, c.id, 'suspend', 'A complaint to look into.', origin);
 		expect(await reopenBidding(owner.id, p.id, origin)).toEqual({ reopened: 1 });
-		const byLead = async (id: string) => [(await db.select().from(bid).where(eq(bid.leadId, id)))[0].status, (await db.select().from(lead).where(eq(lead.id, id)))[0].status];
+		const byLead = async (id: string) => [
+			(await db.select().from(bid).where(eq(bid.leadId, id)))[0].status,
+			(await db.select().from(lead).where(eq(lead.id, id)))[0].status
+		];
 		expect(await byLead(lc.id)).toEqual(['released', 'released']);
 		expect(await byLead(lo.id)).toEqual(['open', 'bid_sent']);
 		expect((await mailsTo(c.email)).filter((m) => /was released/.test(m.subject))).toHaveLength(1);
@@ -386,10 +447,19 @@ describe('lead photos', () => {
 		const other = await approvedContractor('Moth', { postcode: HOME_ZIP, radius: 10, unit: 'mi' });
 		const { owner, plan: p } = await homeownerWithPlan();
 		const photo = { storageKey: 'k', thumbKey: 't', contentType: 'image/jpeg', bytes: 3, originalName: 'yard.jpg' };
-		const [before] = await db.insert(planPhoto).values({ planId: p.id, ...photo }).returning();
+		const [before] = await db
+			.insert(planPhoto)
+			.values({ planId: p.id, ...photo })
+			.returning();
 		await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [c.id, other.id] }, origin);
-		const [after] = await db.insert(planPhoto).values({ planId: p.id, ...photo }).returning();
-		const [l] = await db.select().from(lead).where(and(eq(lead.planId, p.id), eq(lead.contractorId, c.id)));
+		const [after] = await db
+			.insert(planPhoto)
+			.values({ planId: p.id, ...photo })
+			.returning();
+		const [l] = await db
+			.select()
+			.from(lead)
+			.where(and(eq(lead.planId, p.id), eq(lead.contractorId, c.id)));
 
 		expect(l.snapshot.photoIds).toEqual([before.id]);
 		expect(await leadPhotoPlan(c.id, l.id, before.id)).toBe(p.id);

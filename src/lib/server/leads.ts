@@ -71,7 +71,9 @@ export async function sendLeads(
 		if (input.contractors.some((id) => !matches.has(id))) throw new LeadRefused('A contractor you chose does not serve this plan’s area for that work.');
 		if (input.contact) await saveJobContact(tx, planId, input.contact);
 		const due = respondBy(new Date(), input.timeframe);
-		const photoIds = (await tx.select({ id: planPhoto.id }).from(planPhoto).where(eq(planPhoto.planId, planId)).orderBy(asc(planPhoto.createdAt))).map((r) => r.id);
+		const photoIds = (await tx.select({ id: planPhoto.id }).from(planPhoto).where(eq(planPhoto.planId, planId)).orderBy(asc(planPhoto.createdAt))).map(
+			(r) => r.id
+		);
 		const rows = await tx
 			.insert(lead)
 			.values(
@@ -95,7 +97,10 @@ export async function sendLeads(
 			)
 			.onConflictDoNothing({ target: [lead.planId, lead.contractorId] })
 			.returning({ id: lead.id });
-		for (const to of await leadContractors(tx, rows.map((r) => r.id)))
+		for (const to of await leadContractors(
+			tx,
+			rows.map((r) => r.id)
+		))
 			await queueMail(to.email, newLeadMail(to.name, place.town, p.name, formatDate(due), leadUrl(origin, to.leadId)), tx);
 		return { created: rows.length };
 	});
@@ -115,7 +120,10 @@ export async function announceRevision(owner: Actor, planId: string, origin: str
 			.set({ latestRevision: p.revision, updatedAt: new Date() })
 			.where(and(eq(lead.planId, planId), sql`${lead.latestRevision} < ${p.revision}`, inArray(lead.status, [...openLeadStatuses])))
 			.returning({ id: lead.id });
-		for (const to of await leadContractors(tx, rows.map((r) => r.id)))
+		for (const to of await leadContractors(
+			tx,
+			rows.map((r) => r.id)
+		))
 			await queueMail(to.email, newerRevisionMail(to.name, to.town ?? 'you', p.revision, leadUrl(origin, to.leadId)), tx);
 		return rows.length;
 	});
@@ -196,7 +204,11 @@ export async function contractorLead(contractorId: string, leadId: string) {
 	const [{ asked }] = await db.select({ asked: count() }).from(lead).where(eq(lead.planId, row.lead.planId));
 	const hired = row.lead.status === 'won' || row.lead.status === 'done';
 	const site = hired ? await jobContactOf(row.lead.planId) : null;
-	return { ...rest, asked, homeowner: hired ? { name: homeownerName, email: homeownerEmail, siteAddress: site?.siteAddress ?? null, phone: site?.phone ?? null } : null };
+	return {
+		...rest,
+		asked,
+		homeowner: hired ? { name: homeownerName, email: homeownerEmail, siteAddress: site?.siteAddress ?? null, phone: site?.phone ?? null } : null
+	};
 }
 
 /** Opening a lead marks it viewed and its messages read. */
@@ -208,7 +220,10 @@ export async function markLeadSeen(contractorId: string, leadId: string) {
 }
 
 export async function markLeadReadByHomeowner(homeownerId: string, leadId: string) {
-	await db.update(lead).set({ homeownerReadAt: new Date() }).where(and(eq(lead.id, leadId), eq(lead.homeownerId, homeownerId)));
+	await db
+		.update(lead)
+		.set({ homeownerReadAt: new Date() })
+		.where(and(eq(lead.id, leadId), eq(lead.homeownerId, homeownerId)));
 }
 
 /** Declining also withdraws an open bid; the homeowner sees the reason. */
@@ -228,16 +243,31 @@ export async function declineLead(contractorId: string, leadId: string, reason: 
  * decision means for them (inside the decision's transaction). Nothing is withdrawn: while the
  * contractor is not approved their bids simply cannot be accepted, and they are open again after.
  */
-export async function tellHomeownersOfContractorChange(tx: Tx, contractorId: string, business: string, change: 'suspended' | 'review' | 'lapsed' | 'active', origin: string) {
+export async function tellHomeownersOfContractorChange(
+	tx: Tx,
+	contractorId: string,
+	business: string,
+	change: 'suspended' | 'review' | 'lapsed' | 'active',
+	origin: string
+) {
 	const rows = await tx
-		.select({ planId: lead.planId, planName: sql<string>`${lead.snapshot}->>'name'`, accepted: sql<boolean>`${bid.status} = 'accepted'`, name: user.name, email: user.email })
+		.select({
+			planId: lead.planId,
+			planName: sql<string>`${lead.snapshot}->>'name'`,
+			accepted: sql<boolean>`${bid.status} = 'accepted'`,
+			name: user.name,
+			email: user.email
+		})
 		.from(lead)
 		.innerJoin(user, eq(user.id, lead.homeownerId))
 		.leftJoin(bid, eq(bid.leadId, lead.id))
 		.where(and(eq(lead.contractorId, contractorId), inArray(lead.status, [...openLeadStatuses, 'won'])));
 	for (const r of rows) {
 		const url = bidsUrl(origin, r.planId);
-		const mail = change === 'active' ? contractorActiveAgainMail(r.name, business, r.planName, url) : contractorPausedMail(r.name, business, r.planName, change, !!r.accepted, url);
+		const mail =
+			change === 'active'
+				? contractorActiveAgainMail(r.name, business, r.planName, url)
+				: contractorPausedMail(r.name, business, r.planName, change, !!r.accepted, url);
 		await queueMail(r.email, mail, tx);
 	}
 	return rows.length;
@@ -245,7 +275,10 @@ export async function tellHomeownersOfContractorChange(tx: Tx, contractorId: str
 
 /** The plan of `leadId` when `photoId` was among its photos as sent to `contractorId`; else null. */
 export async function leadPhotoPlan(contractorId: string, leadId: string, photoId: string) {
-	const [l] = await db.select({ planId: lead.planId, snapshot: lead.snapshot }).from(lead).where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
+	const [l] = await db
+		.select({ planId: lead.planId, snapshot: lead.snapshot })
+		.from(lead)
+		.where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
 	return l?.snapshot.photoIds?.includes(photoId) ? l.planId : null;
 }
 
@@ -256,10 +289,15 @@ export async function leadPhotoPlan(contractorId: string, leadId: string, photoI
  */
 export async function closeRequest(ownerId: string, planId: string, origin: string) {
 	const out = await db.transaction(async (tx) => {
-		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+		const [p] = await tx
+			.select({ id: plan.id })
+			.from(plan)
+			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
+			.for('update');
 		if (!p) return null;
 		const leads = await tx.select({ id: lead.id, status: lead.status }).from(lead).where(eq(lead.planId, planId)).for('update');
-		for (const l of leads) step(l.status, 'close', l.status === 'won' ? 'You accepted a bid already: mark the job done when it is finished.' : 'This job is done already.');
+		for (const l of leads)
+			step(l.status, 'close', l.status === 'won' ? 'You accepted a bid already: mark the job done when it is finished.' : 'This job is done already.');
 		const moving = leads.filter((l) => isOpenLead(l.status) && leadTarget(l.status, 'close') !== l.status);
 		if (!moving.length) throw new LeadRefused('There is no open request to close.');
 		const now = new Date();
@@ -272,8 +310,13 @@ export async function closeRequest(ownerId: string, planId: string, origin: stri
 			.returning({ leadId: bid.leadId });
 		const withBid = new Set(closedBids.map((b) => b.leadId));
 		// billing: a lead closed before any bid gives back what opening it used.
-		await refundLeadCharges(tx, ids.filter((id) => !withBid.has(id) && moving.find((l) => l.id === id)?.status !== 'bid_sent'), 'closed');
-		for (const to of await leadContractors(tx, ids)) await queueMail(to.email, requestClosedMail(to.name, to.town ?? 'you', withBid.has(to.leadId), leadUrl(origin, to.leadId)), tx);
+		await refundLeadCharges(
+			tx,
+			ids.filter((id) => !withBid.has(id) && moving.find((l) => l.id === id)?.status !== 'bid_sent'),
+			'closed'
+		);
+		for (const to of await leadContractors(tx, ids))
+			await queueMail(to.email, requestClosedMail(to.name, to.town ?? 'you', withBid.has(to.leadId), leadUrl(origin, to.leadId)), tx);
 		return { closed: ids.length };
 	});
 	return out;
@@ -282,7 +325,11 @@ export async function closeRequest(ownerId: string, planId: string, origin: stri
 /** The homeowner marks the hired job done (won → done) and the contractor is told. */
 export async function completeJob(ownerId: string, planId: string, origin: string) {
 	const out = await db.transaction(async (tx) => {
-		const [p] = await tx.select({ id: plan.id }).from(plan).where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))).for('update');
+		const [p] = await tx
+			.select({ id: plan.id })
+			.from(plan)
+			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
+			.for('update');
 		if (!p) return null;
 		const [won] = await tx
 			.select({ id: lead.id, status: lead.status })
@@ -315,11 +362,24 @@ export async function expireLeads(tx: Tx, day: string, origin: string, only: { c
 				only.planId ? eq(lead.planId, only.planId) : undefined
 			)
 		)
-		.returning({ id: lead.id, planId: lead.planId, homeownerId: lead.homeownerId, respondBy: lead.respondBy, planName: sql<string>`${lead.snapshot}->>'name'` });
+		.returning({
+			id: lead.id,
+			planId: lead.planId,
+			homeownerId: lead.homeownerId,
+			respondBy: lead.respondBy,
+			planName: sql<string>`${lead.snapshot}->>'name'`
+		});
 	if (!rows.length) return 0;
 	// billing: a lead that expired unanswered gives back what opening it used.
-	await refundLeadCharges(tx, rows.map((r) => r.id), 'expired');
-	for (const to of await leadContractors(tx, rows.map((r) => r.id))) {
+	await refundLeadCharges(
+		tx,
+		rows.map((r) => r.id),
+		'expired'
+	);
+	for (const to of await leadContractors(
+		tx,
+		rows.map((r) => r.id)
+	)) {
 		const r = rows.find((x) => x.id === to.leadId)!;
 		await queueMail(to.email, leadExpiredMail(to.name, to.town ?? 'you', formatDate(r.respondBy!), leadUrl(origin, to.leadId)), tx);
 	}
@@ -327,7 +387,12 @@ export async function expireLeads(tx: Tx, day: string, origin: string, only: { c
 		.select({ leadId: lead.id, business: sql<string>`coalesce(${contractor.businessName}, 'A contractor')` })
 		.from(lead)
 		.innerJoin(contractor, eq(contractor.userId, lead.contractorId))
-		.where(inArray(lead.id, rows.map((r) => r.id)));
+		.where(
+			inArray(
+				lead.id,
+				rows.map((r) => r.id)
+			)
+		);
 	for (const planId of new Set(rows.map((r) => r.planId))) {
 		const mine = rows.filter((r) => r.planId === planId);
 		const home = await homeownerOf(tx, mine[0].homeownerId);

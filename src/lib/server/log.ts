@@ -38,13 +38,21 @@ export function safePath(url: URL): string {
 export function errorSummary(err: unknown): Record<string, unknown> {
 	if (!(err instanceof Error)) return { message: String(err).slice(0, 200) };
 	const cause = err.cause instanceof Error ? err.cause : undefined;
-	const firstLine = (m: string) => m.split('\n')[0].replace(/^Failed query: .*/s, 'Failed query').slice(0, 300);
+	const firstLine = (m: string) =>
+		m
+			.split('\n')[0]
+			.replace(/^Failed query: .*/s, 'Failed query')
+			.slice(0, 300);
 	return {
 		type: err.name,
 		code: (err as { code?: unknown }).code ?? (cause as { code?: unknown } | undefined)?.code,
 		message: firstLine(err.message),
 		cause: cause && firstLine(cause.message),
 		// Only the frames: the stack's head repeats the whole message.
-		stack: err.stack?.split('\n').filter((l) => /^\s+at /.test(l)).slice(0, 5).join('\n')
+		stack: err.stack
+			?.split('\n')
+			.filter((l) => /^\s+at /.test(l))
+			.slice(0, 5)
+			.join('\n')
 	};
 }

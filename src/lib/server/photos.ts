@@ -23,14 +23,22 @@ export class PhotoRejected extends Error {}
  */
 export async function addPhoto(planId: string, bytes: Uint8Array, originalName: string): Promise<PlanPhoto> {
 	// The header alone gives the size: a bomb is refused before any pixel is decoded.
-	const meta = await sharp(bytes).metadata().catch(() => null);
+	const meta = await sharp(bytes)
+		.metadata()
+		.catch(() => null);
 	if (!meta?.width || !meta.height) throw new PhotoRejected('That image could not be read; it may be damaged.');
 	if (meta.width * meta.height > MAX_INPUT_PIXELS)
-		throw new PhotoRejected(`That image is ${meta.width} × ${meta.height} pixels; the limit is ${MAX_INPUT_PIXELS / 1e6} megapixels. Please send a smaller photo.`);
+		throw new PhotoRejected(
+			`That image is ${meta.width} × ${meta.height} pixels; the limit is ${MAX_INPUT_PIXELS / 1e6} megapixels. Please send a smaller photo.`
+		);
 	let image: Buffer, thumb: Buffer, info: OutputInfo;
 	try {
 		// Decoded once: the thumbnail is made from the small re-encoded copy, not from the upload.
-		({ data: image, info } = await sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS }).rotate().resize({ width: 2400, height: 2400, fit: 'inside', withoutEnlargement: true }).jpeg({ quality: 85 }).toBuffer({ resolveWithObject: true }));
+		({ data: image, info } = await sharp(bytes, { limitInputPixels: MAX_INPUT_PIXELS })
+			.rotate()
+			.resize({ width: 2400, height: 2400, fit: 'inside', withoutEnlargement: true })
+			.jpeg({ quality: 85 })
+			.toBuffer({ resolveWithObject: true }));
 		thumb = await sharp(image).resize({ width: 360, height: 270, fit: 'cover' }).webp({ quality: 75 }).toBuffer();
 	} catch {
 		throw new PhotoRejected('That image could not be read; it may be damaged.');
@@ -78,12 +86,18 @@ export function listPhotos(planId: string) {
 }
 
 export async function findPhoto(planId: string, photoId: string) {
-	const [row] = await db.select().from(planPhoto).where(and(eq(planPhoto.planId, planId), eq(planPhoto.id, photoId)));
+	const [row] = await db
+		.select()
+		.from(planPhoto)
+		.where(and(eq(planPhoto.planId, planId), eq(planPhoto.id, photoId)));
 	return row;
 }
 
 export async function deletePhoto(planId: string, photoId: string) {
-	const [row] = await db.delete(planPhoto).where(and(eq(planPhoto.planId, planId), eq(planPhoto.id, photoId))).returning();
+	const [row] = await db
+		.delete(planPhoto)
+		.where(and(eq(planPhoto.planId, planId), eq(planPhoto.id, photoId)))
+		.returning();
 	if (row) await Promise.all([storage().delete(row.storageKey), storage().delete(row.thumbKey)]);
 	return row !== undefined;
 }

@@ -11,7 +11,19 @@ import { useTestDatabase } from './integration-setup';
 useTestDatabase();
 
 const owner = () => createUser({ name: 'Plan Owner', email: `plans-${crypto.randomUUID()}@it.stakeline.test`, password: 'plans-password', role: 'homeowner' });
-const input = (length = 12) => ({ units: 'imperial', sections: [{ outline: [[0, 0], [length, 0], [length, 10], [0, 10]] }] });
+const input = (length = 12) => ({
+	units: 'imperial',
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[length, 0],
+				[length, 10],
+				[0, 10]
+			]
+		}
+	]
+});
 
 describe('saved plans', () => {
 	it('record the engine version of their result; an older one is recomputed from the input', async () => {
@@ -19,8 +31,23 @@ describe('saved plans', () => {
 		const p = await createPlan(me.id, { name: 'Versioned', input: input() });
 		expect(p.engineVersion).toBe(ENGINE_VERSION);
 		// What an older engine left: another result (here a 12 × 10 ft slab's for a 16 × 10 ft input), version 0.
-		const refusedInput = { units: 'imperial', sections: [{ outline: [[0, 0], [10, 10], [10, 0], [0, 10]] }] }; // crosses itself
-		await db.update(plan).set({ input: input(16), engineVersion: 0 }).where(eq(plan.id, p.id));
+		const refusedInput = {
+			units: 'imperial',
+			sections: [
+				{
+					outline: [
+						[0, 0],
+						[10, 10],
+						[10, 0],
+						[0, 10]
+					]
+				}
+			]
+		}; // crosses itself
+		await db
+			.update(plan)
+			.set({ input: input(16), engineVersion: 0 })
+			.where(eq(plan.id, p.id));
 		const bad = await createPlan(me.id, { name: 'Now refused', input: input() });
 		await db.update(plan).set({ input: refusedInput, engineVersion: 0 }).where(eq(plan.id, bad.id));
 
@@ -47,7 +74,19 @@ describe('saved plans', () => {
 
 	it('refuse invalid input with paths under input', async () => {
 		const me = await owner();
-		const bad = { units: 'imperial', sections: [{ outline: [[0, 0], [10, 10], [10, 0], [0, 10]] }] }; // a bow tie crosses itself
+		const bad = {
+			units: 'imperial',
+			sections: [
+				{
+					outline: [
+						[0, 0],
+						[10, 10],
+						[10, 0],
+						[0, 10]
+					]
+				}
+			]
+		}; // a bow tie crosses itself
 		const err = await createPlan(me.id, { name: 'Bow tie', input: bad }).catch((e) => e);
 		expect(err).toBeInstanceOf(PlanInputInvalid);
 		expect((err as PlanInputInvalid).issues[0].path).toMatch(/^input\.sections/);

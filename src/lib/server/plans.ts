@@ -54,7 +54,10 @@ export async function listPlans(ownerId: string): Promise<Plan[]> {
 
 /** The plan, only when it belongs to ownerId: someone else's plan is simply not found. */
 export async function findOwnPlan(id: string, ownerId: string): Promise<Plan | undefined> {
-	const [found] = await db.select().from(plan).where(and(eq(plan.id, id), eq(plan.ownerId, ownerId)));
+	const [found] = await db
+		.select()
+		.from(plan)
+		.where(and(eq(plan.id, id), eq(plan.ownerId, ownerId)));
 	return found;
 }
 
@@ -136,14 +139,30 @@ export async function duplicatePlan(id: string, ownerId: string): Promise<Plan |
 	if (!source) return undefined;
 	const [copy] = await db
 		.insert(plan)
-		.values({ ownerId, name: `${source.name} (copy)`.slice(0, 100), postcode: source.postcode, input: source.input, result: source.result, engineVersion: source.engineVersion })
+		.values({
+			ownerId,
+			name: `${source.name} (copy)`.slice(0, 100),
+			postcode: source.postcode,
+			input: source.input,
+			result: source.result,
+			engineVersion: source.engineVersion
+		})
 		.returning();
 	return copy;
 }
 
 /** What the API and pages send to the browser. */
 export function planView(p: Plan): PlanRecord {
-	return { id: p.id, name: p.name, postcode: p.postcode ?? '', revision: p.revision, input: p.input, result: p.result, createdAt: p.createdAt, updatedAt: p.updatedAt };
+	return {
+		id: p.id,
+		name: p.name,
+		postcode: p.postcode ?? '',
+		revision: p.revision,
+		input: p.input,
+		result: p.result,
+		createdAt: p.createdAt,
+		updatedAt: p.updatedAt
+	};
 }
 
 /**

@@ -11,7 +11,11 @@ const DATING = new Set<PourRecord['kind']>(['start', 'batch', 'undo']);
 
 /** Every record of a plan, oldest first. */
 export async function listPourRecords(planId: string, conn: Conn = db): Promise<PourRecord[]> {
-	const rows = await conn.select({ record: pourRecord.record }).from(pourRecord).where(eq(pourRecord.planId, planId)).orderBy(asc(pourRecord.at), asc(pourRecord.key));
+	const rows = await conn
+		.select({ record: pourRecord.record })
+		.from(pourRecord)
+		.where(eq(pourRecord.planId, planId))
+		.orderBy(asc(pourRecord.at), asc(pourRecord.key));
 	return rows.map((r) => r.record as PourRecord);
 }
 
@@ -32,7 +36,10 @@ export async function savePourRecords(planId: string, records: PourRecord[]): Pr
 			.where(and(eq(pourRecord.planId, planId), inArray(pourRecord.key, keys)));
 		const seen = new Set(held.map((h) => h.key));
 		const fresh = records.filter((r) => !seen.has(r.key) && seen.add(r.key));
-		const [{ n }] = await tx.select({ n: sql<number>`count(*)::int` }).from(pourRecord).where(eq(pourRecord.planId, planId));
+		const [{ n }] = await tx
+			.select({ n: sql<number>`count(*)::int` })
+			.from(pourRecord)
+			.where(eq(pourRecord.planId, planId));
 		if (n + fresh.length > POUR_LOG_LIMITS.perPlan)
 			return { ok: false as const, status: 413, message: `A plan's pour log can hold at most ${POUR_LOG_LIMITS.perPlan} records.` };
 		if (fresh.length)

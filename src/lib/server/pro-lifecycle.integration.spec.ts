@@ -63,17 +63,39 @@ async function homeowner() {
 	const owner = await createUser({ name: 'Wynn Harrow', email: unique('home'), password: 'homeowner-pass', role: 'homeowner' });
 	const [p] = await db
 		.insert(plan)
-		.values({ ownerId: owner.id, name: 'Back step pad', postcode: HOME_ZIP, input: { units: 'imperial' }, result: storedFigures({ area: { squareFeet: 40, squareMeters: 3.7 } }) })
+		.values({
+			ownerId: owner.id,
+			name: 'Back step pad',
+			postcode: HOME_ZIP,
+			input: { units: 'imperial' },
+			result: storedFigures({ area: { squareFeet: 40, squareMeters: 3.7 } })
+		})
 		.returning();
 	const [{ email }] = await db.select({ email: user.email }).from(user).where(eq(user.id, owner.id));
 	return { owner, plan: p, email };
 }
 
 const subjects = async (to: string, pattern = '%') =>
-	(await db.select({ s: mailOutbox.subject }).from(mailOutbox).where(and(eq(mailOutbox.to, to), like(mailOutbox.subject, pattern)))).map((r) => r.s).sort();
+	(
+		await db
+			.select({ s: mailOutbox.subject })
+			.from(mailOutbox)
+			.where(and(eq(mailOutbox.to, to), like(mailOutbox.subject, pattern)))
+	)
+		.map((r) => r.s)
+		.sort();
 const statusOf = async (id: string) => (await db.select({ s: contractor.status }).from(contractor).where(eq(contractor.userId, id)))[0].s;
 const leadStatus = async (id: string) => (await db.select({ s: lead.status }).from(lead).where(eq(lead.id, id)))[0].s;
-const bidInput = (validUntil: string, earliestStart: string) => ({ totalCents: 240000, lineItems: [], earliestStart, durationDays: 2, validUntil, inclusions: '', exclusions: '', notes: '' });
+const bidInput = (validUntil: string, earliestStart: string) => ({
+	totalCents: 240000,
+	lineItems: [],
+	earliestStart,
+	durationDays: 2,
+	validUntil,
+	inclusions: '',
+	exclusions: '',
+	notes: ''
+});
 
 describe('credential expiry', () => {
 	it('stops leads the day after the licence expires, lapses the account once, and tells the homeowner with its bid', async () => {
@@ -103,7 +125,9 @@ describe('credential expiry', () => {
 		expect(row.reason).toMatch(/licence expired/);
 		await sweepContractor(f.id, new Date(), origin);
 		expect(await subjects(f.email, '%has expired')).toEqual(['Your licence on Stakeline has expired']);
-		expect(await subjects(h.email, '%expired')).toEqual([`${(await db.select({ b: contractor.businessName }).from(contractor).where(eq(contractor.userId, f.id)))[0].b}: licence or insurance expired`]);
+		expect(await subjects(h.email, '%expired')).toEqual([
+			`${(await db.select({ b: contractor.businessName }).from(contractor).where(eq(contractor.userId, f.id)))[0].b}: licence or insurance expired`
+		]);
 		await expect(saveBid(f.id, l.id, bidInput(plus(expiresOn, 60), plus(expiresOn, 5)), origin)).rejects.toBeInstanceOf(LeadRefused);
 	});
 
@@ -120,7 +144,10 @@ describe('credential expiry', () => {
 		// A week out: the 7-day reminder, once, with the same concurrency.
 		setClock(plus(today, 14));
 		await Promise.all([sweepContractor(f.id, new Date(), origin), sweepContractor(f.id, new Date(), origin)]);
-		expect(await subjects(f.email, '%expires in%')).toEqual(['Your insurance on Stakeline expires in 20 days', 'Your insurance on Stakeline expires in 6 days']);
+		expect(await subjects(f.email, '%expires in%')).toEqual([
+			'Your insurance on Stakeline expires in 20 days',
+			'Your insurance on Stakeline expires in 6 days'
+		]);
 		const rows = await db.select({ d: credentialReminder.daysBefore }).from(credentialReminder).where(eq(credentialReminder.contractorId, f.id));
 		expect(rows.map((r) => r.d).sort()).toEqual([30, 7]);
 	});
@@ -158,7 +185,10 @@ describe('lead life cycle', () => {
 		const h = await homeowner();
 		const today = iso(new Date());
 		await sendLeads(h.owner, h.plan.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [a.id, b.id] }, origin);
-		const [la] = await db.select().from(lead).where(and(eq(lead.planId, h.plan.id), eq(lead.contractorId, a.id)));
+		const [la] = await db
+			.select()
+			.from(lead)
+			.where(and(eq(lead.planId, h.plan.id), eq(lead.contractorId, a.id)));
 		await saveBid(a.id, la.id, bidInput(plus(today, 30), plus(today, 4)), origin);
 
 		await expect(completeJob(h.owner.id, h.plan.id, origin)).rejects.toThrow(/Accept a bid first/);
@@ -178,7 +208,18 @@ describe('lead life cycle', () => {
 		const lose = await firm('Pennyroyal Works', { licence: null, insurance: null });
 		const h = await homeowner();
 		const today = iso(new Date());
-		await sendLeads(h.owner, h.plan.id, { scope: 'whole_job', timeframe: 'soon', notes: '', contractors: [win.id, lose.id], contact: { siteAddress: '9 Old Road, Ottumwa', phone: '641 555 0100' } }, origin);
+		await sendLeads(
+			h.owner,
+			h.plan.id,
+			{
+				scope: 'whole_job',
+				timeframe: 'soon',
+				notes: '',
+				contractors: [win.id, lose.id],
+				contact: { siteAddress: '9 Old Road, Ottumwa', phone: '641 555 0100' }
+			},
+			origin
+		);
 		const leads = await db.select().from(lead).where(eq(lead.planId, h.plan.id));
 		const lw = leads.find((l) => l.contractorId === win.id)!;
 		const ll = leads.find((l) => l.contractorId === lose.id)!;

@@ -13,7 +13,19 @@ import { useTestDatabase } from './integration-setup';
 
 useTestDatabase();
 
-const input = { units: 'imperial', sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }] };
+const input = {
+	units: 'imperial',
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[12, 0],
+				[12, 10],
+				[0, 10]
+			]
+		}
+	]
+};
 const owner = () => createUser({ name: 'Retry Owner', email: `retry-${crypto.randomUUID()}@it.stakeline.test`, password: 'retry-password', role: 'homeowner' });
 
 function capture() {

@@ -19,10 +19,26 @@ useTestDatabase();
 
 const TZ = 'America/Denver';
 const origin = 'http://stakeline.test';
-const owner = () => createUser({ name: 'Curing Owner', email: `curing-${crypto.randomUUID()}@it.stakeline.test`, password: 'curing-password', role: 'homeowner', verified: true });
+const owner = () =>
+	createUser({
+		name: 'Curing Owner',
+		email: `curing-${crypto.randomUUID()}@it.stakeline.test`,
+		password: 'curing-password',
+		role: 'homeowner',
+		verified: true
+	});
 const input = (pourDate: string) => ({
 	units: 'imperial',
-	sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }],
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[12, 0],
+				[12, 10],
+				[0, 10]
+			]
+		}
+	],
 	conditions: { airTemp: 60, pourDate }
 });
 /** The plan's reminder jobs waiting in the queue: day → run_at. */
@@ -77,10 +93,18 @@ describe('curing reminders', () => {
 		const received = async () => (await db.select().from(devMail).where(eq(devMail.to, u.email))).map((m) => m.text);
 		await expect.poll(async () => (await received()).length, { timeout: 30_000 }).toBe(days.length);
 		await expect.poll(async () => Object.keys(await jobsOf(p.id)).length).toBe(0);
-		await expect.poll(async () => (await db.execute(sql`SELECT 1 FROM graphile_worker.jobs j JOIN mail_outbox m ON j.key = 'mail:' || m.id WHERE m.to = ${u.email}`)).length).toBe(0);
+		await expect
+			.poll(
+				async () => (await db.execute(sql`SELECT 1 FROM graphile_worker.jobs j JOIN mail_outbox m ON j.key = 'mail:' || m.id WHERE m.to = ${u.email}`)).length
+			)
+			.toBe(0);
 		const texts = await received();
 		expect(texts).toHaveLength(days.length);
-		for (const d of days) expect(texts.filter((t) => t.includes(`day ${d.day} after the first pour`)), d.date).toHaveLength(1);
+		for (const d of days)
+			expect(
+				texts.filter((t) => t.includes(`day ${d.day} after the first pour`)),
+				d.date
+			).toHaveLength(1);
 		expect(await db.select().from(mailOutbox).where(eq(mailOutbox.to, u.email))).toHaveLength(days.length);
 		expect(await db.select().from(curingReminderSent).where(eq(curingReminderSent.planId, p.id))).toHaveLength(days.length);
 		// Each carries its stop link; running a day's job again sends nothing more.
@@ -118,7 +142,10 @@ describe('curing reminders', () => {
 		expect(await jobsOf(p.id)).toEqual({});
 
 		const quiet = await owner();
-		await db.update(user).set({ mailOptOut: ['curing'] }).where(eq(user.id, quiet.id));
+		await db
+			.update(user)
+			.set({ mailOptOut: ['curing'] })
+			.where(eq(user.id, quiet.id));
 		const q = await createPlan(quiet.id, { name: 'Quiet', input: input(soon) });
 		await setCuringReminders(q.id, quiet.id, true, TZ);
 		expect((await curingReminderStatus(q.id, quiet.id))?.mailOff).toBe(true);

@@ -30,7 +30,11 @@ export async function cancelCuringReminders(conn: Conn, planId: string): Promise
  * from today on, at SEND_HOUR in the zone stored with the plan. Call in the transaction that
  * changes the plan, so the jobs move exactly when the plan does.
  */
-export async function scheduleCuringReminders(conn: Conn, p: Pick<Plan, 'id' | 'input' | 'curingReminders' | 'reminderTimeZone'>, now = new Date()): Promise<number> {
+export async function scheduleCuringReminders(
+	conn: Conn,
+	p: Pick<Plan, 'id' | 'input' | 'curingReminders' | 'reminderTimeZone'>,
+	now = new Date()
+): Promise<number> {
 	await cancelCuringReminders(conn, p.id);
 	if (!p.curingReminders) return 0;
 	const { pourDate, days } = reminderDays(p, await listPourRecords(p.id, conn));
@@ -98,7 +102,13 @@ export async function sendCuringReminder(job: { planId: string; pourDate: string
 		const token = await unsubscribeToken(row.p.id, tx);
 		await queueMail(
 			row.email,
-			curingReminderMail({ name: row.name, planName: row.p.name, day, planUrl: `${origin}/plans/${row.p.id}`, stopUrl: `${origin}/reminders/stop?token=${encodeURIComponent(token)}` }),
+			curingReminderMail({
+				name: row.name,
+				planName: row.p.name,
+				day,
+				planUrl: `${origin}/plans/${row.p.id}`,
+				stopUrl: `${origin}/reminders/stop?token=${encodeURIComponent(token)}`
+			}),
 			tx
 		);
 		return 'sent';
@@ -114,8 +124,13 @@ export async function curingReminderStatus(planId: string, ownerId: string) {
 		.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)));
 	if (!row) return null;
 	const [jobs, [{ n }], records] = await Promise.all([
-		db.execute<{ key: string }>(sql`SELECT key FROM graphile_worker.jobs WHERE key LIKE ${`${keyPrefix(planId)}%`} AND attempts < max_attempts ORDER BY run_at`),
-		db.select({ n: sql<number>`count(*)::int` }).from(curingReminderSent).where(eq(curingReminderSent.planId, planId)),
+		db.execute<{ key: string }>(
+			sql`SELECT key FROM graphile_worker.jobs WHERE key LIKE ${`${keyPrefix(planId)}%`} AND attempts < max_attempts ORDER BY run_at`
+		),
+		db
+			.select({ n: sql<number>`count(*)::int` })
+			.from(curingReminderSent)
+			.where(eq(curingReminderSent.planId, planId)),
 		listPourRecords(planId)
 	]);
 	const { pourDate, days, logged } = reminderDays(row, records);
@@ -139,7 +154,10 @@ export async function curingReminderStatus(planId: string, ownerId: string) {
 // every server), so a link works without signing in and cannot be made for another plan.
 
 async function signingKey(conn: Conn): Promise<Buffer> {
-	await conn.insert(appSecret).values({ name: 'reminder-links', value: randomBytes(32).toString('base64url') }).onConflictDoNothing();
+	await conn
+		.insert(appSecret)
+		.values({ name: 'reminder-links', value: randomBytes(32).toString('base64url') })
+		.onConflictDoNothing();
 	const [row] = await conn.select().from(appSecret).where(eq(appSecret.name, 'reminder-links'));
 	return Buffer.from(row.value, 'base64url');
 }

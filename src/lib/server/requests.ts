@@ -9,8 +9,7 @@ export const UNAVAILABLE = 'The database is not answering right now. Nothing was
 const downFor = new WeakSet<Request>();
 const idFor = new WeakMap<Request, string>();
 
-const wantsJson = (event: RequestEvent) =>
-	event.url.pathname.startsWith('/api/') || (event.request.headers.get('accept') ?? '').includes('application/json');
+const wantsJson = (event: RequestEvent) => event.url.pathname.startsWith('/api/') || (event.request.headers.get('accept') ?? '').includes('application/json');
 
 function unavailable(event: RequestEvent, requestId: string): Response {
 	const headers = { 'retry-after': String(RETRY_AFTER_S), 'x-request-id': requestId, 'cache-control': 'no-store' };
@@ -37,9 +36,7 @@ export function requestHandle(logger: Logger = defaultLog): Handle {
 			if (downFor.has(event.request) && response.status === 500) {
 				const headers = new Headers(response.headers);
 				headers.set('retry-after', String(RETRY_AFTER_S));
-				response = wantsJson(event)
-					? unavailable(event, requestId)
-					: new Response(response.body, { status: 503, statusText: 'Service Unavailable', headers });
+				response = wantsJson(event) ? unavailable(event, requestId) : new Response(response.body, { status: 503, statusText: 'Service Unavailable', headers });
 			}
 		} catch (err) {
 			if (!databaseUnavailable(err)) throw err;

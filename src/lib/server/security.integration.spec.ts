@@ -41,7 +41,8 @@ async function submit(action: (e: any) => unknown, path: string, fields: Record<
 	} as unknown as RequestEvent;
 	try {
 		const result = (await action(event)) as { status?: number; data?: Record<string, unknown> } | Record<string, unknown>;
-		if (result && 'status' in result && typeof result.status === 'number') return { status: result.status, data: result.data as Record<string, unknown>, cookies };
+		if (result && 'status' in result && typeof result.status === 'number')
+			return { status: result.status, data: result.data as Record<string, unknown>, cookies };
 		return { status: 200, data: result as Record<string, unknown>, cookies };
 	} catch (err) {
 		if (isRedirect(err)) return { status: err.status, location: err.location, cookies };
@@ -57,7 +58,10 @@ async function linkIn(to: string, needle: string): Promise<string> {
 	let text = '';
 	await expect
 		.poll(async () => {
-			const rows = await db.select().from(mailOutbox).where(and(eq(mailOutbox.to, to), like(mailOutbox.text, `%${needle}%`)));
+			const rows = await db
+				.select()
+				.from(mailOutbox)
+				.where(and(eq(mailOutbox.to, to), like(mailOutbox.text, `%${needle}%`)));
 			text = rows[0]?.text ?? '';
 			return rows.length;
 		})
@@ -90,7 +94,10 @@ describe('sign-in throttle', () => {
 		expect(first.status).toBe(429);
 		expect(first.data?.message).toMatch(/wait 15 minutes/);
 		// Let the first pause run out, as 15 minutes would.
-		await db.update(throttleCounter).set({ expire: new Date(Date.now() - 1000) }).where(eq(throttleCounter.key, `signin-pair:${u.email}|${ip}`));
+		await db
+			.update(throttleCounter)
+			.set({ expire: new Date(Date.now() - 1000) })
+			.where(eq(throttleCounter.key, `signin-pair:${u.email}|${ip}`));
 		for (let i = 0; i < 5; i++) expect((await signIn(u.email, 'wrong-password-2', ip)).status).toBe(400);
 		const second = await signIn(u.email, 'wrong-password-2', ip);
 		expect(second.data?.message).toMatch(/wait 30 minutes/);
@@ -130,7 +137,9 @@ describe('sign-in throttle', () => {
 describe('mail a visitor can trigger', () => {
 	it('sends at most 3 of 30 parallel password resets for one address', async () => {
 		const u = await homeowner();
-		const results = await Promise.all(Array.from({ length: 30 }, (_, i) => submit(forgotActions.default, '/forgot-password', { email: u.email }, `${address()}-${i}`)));
+		const results = await Promise.all(
+			Array.from({ length: 30 }, (_, i) => submit(forgotActions.default, '/forgot-password', { email: u.email }, `${address()}-${i}`))
+		);
 		expect(results.filter((r) => r.status === 200).length).toBe(3);
 		expect(results.filter((r) => r.status === 429).length).toBe(27);
 		await expect.poll(async () => (await db.select().from(mailOutbox).where(eq(mailOutbox.to, u.email))).length).toBe(3);
@@ -175,7 +184,10 @@ describe('sessions', () => {
 		const token = generateSessionToken();
 		await createSession(token, u.id);
 		// Signed in 91 days ago and renewed yesterday: still within its 30-day expiry.
-		await db.update(session).set({ createdAt: new Date(Date.now() - 91 * DAY), expiresAt: new Date(Date.now() + 29 * DAY) }).where(eq(session.id, hashToken(token)));
+		await db
+			.update(session)
+			.set({ createdAt: new Date(Date.now() - 91 * DAY), expiresAt: new Date(Date.now() + 29 * DAY) })
+			.where(eq(session.id, hashToken(token)));
 		expect((await validateSessionToken(token)).session).toBeNull();
 	});
 
@@ -184,14 +196,29 @@ describe('sessions', () => {
 		const token = generateSessionToken();
 		await createSession(token, u.id);
 		const signedIn = Date.now() - 80 * DAY;
-		await db.update(session).set({ createdAt: new Date(signedIn), expiresAt: new Date(Date.now() + DAY) }).where(eq(session.id, hashToken(token)));
+		await db
+			.update(session)
+			.set({ createdAt: new Date(signedIn), expiresAt: new Date(Date.now() + DAY) })
+			.where(eq(session.id, hashToken(token)));
 		const { session: s } = await validateSessionToken(token);
 		expect(s?.expiresAt.getTime()).toBe(signedIn + 90 * DAY);
 	});
 });
 
 describe('plans and photos', () => {
-	const input = { units: 'imperial', sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }] };
+	const input = {
+		units: 'imperial',
+		sections: [
+			{
+				outline: [
+					[0, 0],
+					[12, 0],
+					[12, 10],
+					[0, 10]
+				]
+			}
+		]
+	};
 
 	it('answer 404 to deleting someone else’s plan, and keep it', async () => {
 		const owner = await homeowner();
@@ -205,11 +232,16 @@ describe('plans and photos', () => {
 	it(`keep at most ${MAX_PHOTOS_PER_PLAN} photos when 25 arrive at once`, async () => {
 		const owner = await homeowner();
 		const p = await createPlan(owner.id, { name: 'Many photos', input });
-		const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: '#6b8f71' } }).png().toBuffer();
+		const png = await sharp({ create: { width: 40, height: 30, channels: 3, background: '#6b8f71' } })
+			.png()
+			.toBuffer();
 		const results = await Promise.allSettled(Array.from({ length: 25 }, (_, i) => addPhoto(p.id, png, `site-${i}.png`)));
 		expect(results.filter((r) => r.status === 'fulfilled').length).toBe(MAX_PHOTOS_PER_PLAN);
 		for (const r of results.filter((r) => r.status === 'rejected')) expect((r as PromiseRejectedResult).reason).toBeInstanceOf(PhotoRejected);
-		const [{ n }] = await db.select({ n: sql<number>`count(*)::int` }).from(planPhoto).where(eq(planPhoto.planId, p.id));
+		const [{ n }] = await db
+			.select({ n: sql<number>`count(*)::int` })
+			.from(planPhoto)
+			.where(eq(planPhoto.planId, p.id));
 		expect(n).toBe(MAX_PHOTOS_PER_PLAN);
 	});
 
@@ -250,5 +282,10 @@ function hugeBlankPng(width: number, height: number): Buffer {
 	ihdr[8] = 1; // bit depth
 	ihdr[9] = 0; // greyscale
 	const rows = Buffer.alloc((1 + Math.ceil(width / 8)) * height); // filter byte 0 and zero pixels per row
-	return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', deflateSync(rows, { level: 9 })), chunk('IEND', Buffer.alloc(0))]);
+	return Buffer.concat([
+		Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
+		chunk('IHDR', ihdr),
+		chunk('IDAT', deflateSync(rows, { level: 9 })),
+		chunk('IEND', Buffer.alloc(0))
+	]);
 }

@@ -1,14 +1,7 @@
 import fs from 'node:fs/promises';
 import path from 'node:path';
 import { Readable } from 'node:stream';
-import {
-	DeleteObjectCommand,
-	GetObjectCommand,
-	HeadBucketCommand,
-	PutObjectCommand,
-	S3Client,
-	type S3ClientConfig
-} from '@aws-sdk/client-s3';
+import { DeleteObjectCommand, GetObjectCommand, HeadBucketCommand, PutObjectCommand, S3Client, type S3ClientConfig } from '@aws-sdk/client-s3';
 import { env } from '$env/dynamic/private';
 
 /** Bytes read piece by piece, with their length known before the first piece. */

@@ -9,7 +9,9 @@ describe('sniffUpload', () => {
 	it('accepts a PDF and an image by their bytes, whatever the name says', async () => {
 		const pdf = await sniffUpload(new File([pdfBytes], 'licence.bin'), opts);
 		expect(pdf).toMatchObject({ ok: true, mime: 'application/pdf', ext: 'pdf', name: 'licence.bin' });
-		const png = await sharp({ create: { width: 4, height: 4, channels: 3, background: '#3f8a62' } }).png().toBuffer();
+		const png = await sharp({ create: { width: 4, height: 4, channels: 3, background: '#3f8a62' } })
+			.png()
+			.toBuffer();
 		const img = await sniffUpload(new File([new Uint8Array(png)], 'insurance.pdf', { type: 'application/pdf' }), opts);
 		expect(img).toMatchObject({ ok: true, mime: 'image/png', ext: 'png' });
 	});

@@ -7,7 +7,6 @@ export { MB };
 export type SniffedUpload = { bytes: Uint8Array; mime: string; ext: string; name: string };
 export type UploadCheck = ({ ok: true } & SniffedUpload) | { ok: false; message: string };
 
-
 /** A file input left empty arrives as a nameless, empty File. */
 export const isEmptyUpload = (v: FormDataEntryValue | null): boolean => !(v instanceof File) || (v.size === 0 && !v.name);
 
@@ -22,7 +21,10 @@ export async function sniffUpload(file: File, o: { maxBytes: number; accept: Rec
 	const bytes = new Uint8Array(await file.arrayBuffer());
 	const type = await fileTypeFromBuffer(bytes);
 	if (!type || !(type.mime in o.accept))
-		return { ok: false, message: `The ${o.what} must be ${new Intl.ListFormat('en', { type: 'disjunction' }).format(Object.values(o.accept))}; this file is ${type ? type.ext.toUpperCase() : 'not one of them'}.` };
+		return {
+			ok: false,
+			message: `The ${o.what} must be ${new Intl.ListFormat('en', { type: 'disjunction' }).format(Object.values(o.accept))}; this file is ${type ? type.ext.toUpperCase() : 'not one of them'}.`
+		};
 	return { ok: true, bytes, mime: type.mime, ext: type.ext, name: file.name.slice(0, 200) || `upload.${type.ext}` };
 }
 

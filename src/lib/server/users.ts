@@ -4,14 +4,7 @@ import { contractor, user, type Role, type User } from '$lib/server/db/schema';
 import { hashPassword } from './password';
 import { consumeEmailChangeToken, createEmailToken, expireEmailTokens } from './email-tokens';
 import { queueMail } from './mail';
-import {
-	confirmNewEmailMail,
-	emailChangeNoticeMail,
-	resetPasswordMail,
-	signInLinkMail,
-	signUpAttemptMail,
-	verifyEmailMail
-} from './mail/templates';
+import { confirmNewEmailMail, emailChangeNoticeMail, resetPasswordMail, signInLinkMail, signUpAttemptMail, verifyEmailMail } from './mail/templates';
 
 export class EmailTakenError extends Error {
 	constructor() {
@@ -20,8 +13,7 @@ export class EmailTakenError extends Error {
 }
 
 const UNIQUE_VIOLATION = '23505';
-const isUniqueViolation = (err: unknown) =>
-	[err, (err as { cause?: unknown })?.cause].some((e) => (e as { code?: string })?.code === UNIQUE_VIOLATION);
+const isUniqueViolation = (err: unknown) => [err, (err as { cause?: unknown })?.cause].some((e) => (e as { code?: string })?.code === UNIQUE_VIOLATION);
 
 export const DISABLED_MESSAGE = 'This account is disabled. Write to Stakeline support if you think this is a mistake.';
 
@@ -52,7 +44,10 @@ export async function createUser(input: { name: string; email: string; password:
 }
 
 export async function findUserByEmail(email: string): Promise<User | undefined> {
-	const [found] = await db.select().from(user).where(eq(user.email, normalizeEmail(email)));
+	const [found] = await db
+		.select()
+		.from(user)
+		.where(eq(user.email, normalizeEmail(email)));
 	return found;
 }
 
@@ -62,7 +57,10 @@ export async function findUserById(id: string): Promise<User | undefined> {
 }
 
 export async function setPassword(userId: string, password: string) {
-	await db.update(user).set({ passwordHash: await hashPassword(password) }).where(eq(user.id, userId));
+	await db
+		.update(user)
+		.set({ passwordHash: await hashPassword(password) })
+		.where(eq(user.id, userId));
 	// Someone who changed the address from a stolen session loses it with the password.
 	await expireEmailTokens(userId, 'change_email');
 }

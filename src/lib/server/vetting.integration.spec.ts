@@ -13,7 +13,12 @@ import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
 useTestDatabase();
 
 const origin = 'http://127.0.0.1:3000';
-const pdf = (label: string): SniffedUpload => ({ bytes: new TextEncoder().encode(`%PDF-1.4 ${label}`), mime: 'application/pdf', ext: 'pdf', name: `${label}.pdf` });
+const pdf = (label: string): SniffedUpload => ({
+	bytes: new TextEncoder().encode(`%PDF-1.4 ${label}`),
+	mime: 'application/pdf',
+	ext: 'pdf',
+	name: `${label}.pdf`
+});
 const profile = {
 	businessName: 'Cinderbank Pours',
 	contactName: 'Ola Frett',
@@ -214,7 +219,13 @@ describe('submission', () => {
 	it('tells every admin, in the same transaction as the submission, and only when the profile enters the queue', async () => {
 		const a = await admin();
 		const u = await createUser({ name: 'Queue Entrant', email: unique('entrant'), password: 'contractor-pass', role: 'contractor' });
-		await saveContractorProfile(u.id, { ...profile, businessName: `Entrant ${u.id}` }, centroid, { licence: pdf('licence'), insurance: pdf('insurance') }, origin);
+		await saveContractorProfile(
+			u.id,
+			{ ...profile, businessName: `Entrant ${u.id}` },
+			centroid,
+			{ licence: pdf('licence'), insurance: pdf('insurance') },
+			origin
+		);
 		const toAdmin = async () => (await db.select().from(mailOutbox).where(eq(mailOutbox.to, a.email))).filter((m) => m.subject.includes(`Entrant ${u.id}`));
 		expect(await toAdmin()).toHaveLength(1);
 		expect((await toAdmin())[0].text).toContain(`${origin}/admin/contractors/${u.id}`);

@@ -66,9 +66,7 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 		expect(rows.map((r) => r.split(' ')[0])).toEqual(result.elevations.stakes.map((s) => s.id));
 		// Each row ends with the engine's distance below the level line.
 		const cells = [...html.matchAll(/<tr[^>]*>([\s\S]*?)<\/tr>/g)].slice(1).map((m) => text(m[1]).trim());
-		expect(cells.map((c) => c.split(' ').slice(-2).join(' '))).toEqual(
-			result.elevations.stakes.map((s) => formatSmall(s.belowLevelLine, u))
-		);
+		expect(cells.map((c) => c.split(' ').slice(-2).join(' '))).toEqual(result.elevations.stakes.map((s) => formatSmall(s.belowLevelLine, u)));
 	});
 
 	it('DayPlan shows every day and task', () => {
@@ -120,9 +118,14 @@ it('CautionList keeps a deferral to local codes even without the engine caution'
 	expect(out).toMatch(/local codes/i);
 });
 
-describe('the drawings\' keys name only what is drawn, in whole sentences', () => {
+describe("the drawings' keys name only what is drawn, in whole sentences", () => {
 	/** Text as a reader sees it: tags dropped without adding spaces, so a missing space shows. */
-	const seen = (html: string) => html.replace(/<!--[\s\S]*?-->/g, '').replace(/<[^>]+>/g, '').replace(/&nbsp;/g, ' ').replace(/\s+/g, ' ');
+	const seen = (html: string) =>
+		html
+			.replace(/<!--[\s\S]*?-->/g, '')
+			.replace(/<[^>]+>/g, '')
+			.replace(/&nbsp;/g, ' ')
+			.replace(/\s+/g, ' ');
 	const pad = computePlan({ units: 'imperial', sections: [{ outline: rect(0, 0, 12, 10) }], houseEdge: null, slope: { highEdge: { section: 0, edge: 2 } } });
 	const ell = computePlan(cornerEll);
 

@@ -12,8 +12,7 @@ export interface Pin {
 	n: number;
 }
 
-const token = (el: Element, name: string, fallback: string) =>
-	getComputedStyle(el).getPropertyValue(name).trim() || fallback;
+const token = (el: Element, name: string, fallback: string) => getComputedStyle(el).getPropertyValue(name).trim() || fallback;
 
 /** Numbered dashed lines at each milestone day; two milestones on one day share a line. */
 function milestoneLines(pins: Pin[], color: string): Plugin<'line'> {
@@ -41,11 +40,7 @@ function milestoneLines(pins: Pin[], color: string): Plugin<'line'> {
 }
 
 /** Draws the chart; resolves to a function that removes it. */
-export async function drawStrengthChart(
-	canvas: HTMLCanvasElement,
-	points: { x: number; y: number }[],
-	pins: Pin[]
-): Promise<() => void> {
+export async function drawStrengthChart(canvas: HTMLCanvasElement, points: { x: number; y: number }[], pins: Pin[]): Promise<() => void> {
 	const { Chart, LineController, LineElement, PointElement, LinearScale, Tooltip } = await import('chart.js');
 	Chart.register(LineController, LineElement, PointElement, LinearScale, Tooltip);
 	Chart.defaults.font.family = 'Nunito, sans-serif';

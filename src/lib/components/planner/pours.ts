@@ -13,7 +13,16 @@ export function pourTimes(mixing: PlanResult['mixing']) {
 	const longest = Math.max(0, ...perPour);
 	const total = perPour.reduce((a, b) => a + b, 0);
 	const late = mixing.sections.filter((s) => !s.fits).length;
-	const badge = pours === 1 ? (mixing.fits ? 'One pour fits' : 'Too much for one pour') : mixing.fits ? `${pours} pours fit` : late === 1 ? 'A pour runs too long' : `${late} pours run too long`;
+	const badge =
+		pours === 1
+			? mixing.fits
+				? 'One pour fits'
+				: 'Too much for one pour'
+			: mixing.fits
+				? `${pours} pours fit`
+				: late === 1
+					? 'A pour runs too long'
+					: `${late} pours run too long`;
 	return { pours, longest, total, badge };
 }
 

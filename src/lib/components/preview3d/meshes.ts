@@ -15,8 +15,7 @@ export const triangulate = (poly: readonly P2[]): number[][] =>
 /** Closed triangle soup of a prism (x, y, z per vertex), wound counter-clockwise seen from outside. */
 export function prismTriangles(p: Prism): number[] {
 	const out: number[] = [];
-	const tri = (...corners: [number, number[]][]) =>
-		corners.forEach(([i, z]) => out.push(p.footprint[i][0], p.footprint[i][1], z[i]));
+	const tri = (...corners: [number, number[]][]) => corners.forEach(([i, z]) => out.push(p.footprint[i][0], p.footprint[i][1], z[i]));
 	const { top: t, bottom: b } = p;
 	for (const [i, j, k] of triangulate(p.footprint)) {
 		tri([i, t], [j, t], [k, t]);
@@ -44,8 +43,7 @@ export function ribbonTriangles(s: Segment, width: number): number[] {
 export function dashes(s: Segment, on = 0.12, off = 0.08): Segment[] {
 	const L = Math.hypot(s.to[0] - s.from[0], s.to[1] - s.from[1]);
 	const out: Segment[] = [];
-	for (let d = 0; d < L; d += on + off)
-		out.push({ from: lerp3(s.from, s.to, d / L), to: lerp3(s.from, s.to, Math.min(1, (d + on) / L)) });
+	for (let d = 0; d < L; d += on + off) out.push({ from: lerp3(s.from, s.to, d / L), to: lerp3(s.from, s.to, Math.min(1, (d + on) / L)) });
 	return out;
 }
 
@@ -59,8 +57,14 @@ export function arrowTriangles(s: Segment, width: number): number[] {
 	const n: P2 = [-d[1] * width * 1.5, d[0] * width * 1.5];
 	return [
 		...ribbonTriangles({ from: s.from, to: neck }, width),
-		neck[0] - n[0], neck[1] - n[1], neck[2],
-		s.to[0], s.to[1], s.to[2],
-		neck[0] + n[0], neck[1] + n[1], neck[2]
+		neck[0] - n[0],
+		neck[1] - n[1],
+		neck[2],
+		s.to[0],
+		s.to[1],
+		s.to[2],
+		neck[0] + n[0],
+		neck[1] + n[1],
+		neck[2]
 	];
 }

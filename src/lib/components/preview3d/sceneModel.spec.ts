@@ -1,22 +1,22 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan, type PlanInput } from '$lib/plan';
 import { M_PER_FT, M_PER_IN } from '$lib/plan/units';
-import {
-	buildScene,
-	LABEL_CLEARANCE_M,
-	LAWN_OVERLAP_M,
-	spreadLabels,
-	LINE_LIFT_M,
-	signedArea,
-	surfaceAt,
-	type Prism
-} from './sceneModel';
+import { buildScene, LABEL_CLEARANCE_M, LAWN_OVERLAP_M, spreadLabels, LINE_LIFT_M, signedArea, surfaceAt, type Prism } from './sceneModel';
 import { prismTriangles, triangulate } from './meshes';
 
 // A 3 × 2 m pad against a wall along y = 0, falling 2 % away from it.
 const pad: PlanInput = {
 	units: 'metric',
-	sections: [{ outline: [[0, 0], [3, 0], [3, 2], [0, 2]] }],
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[3, 0],
+				[3, 2],
+				[0, 2]
+			]
+		}
+	],
 	houseEdge: { section: 0, edge: 0 },
 	gapToHouse: 12,
 	slope: { fall: { value: 2, unit: 'percent' } },
@@ -28,8 +28,22 @@ const pad: PlanInput = {
 const patio: PlanInput = {
 	units: 'imperial',
 	sections: [
-		{ outline: [[0, 0], [12, 0], [12, 14], [0, 14]] },
-		{ outline: [[12, 0], [22, 0], [22, 14], [12, 14]] }
+		{
+			outline: [
+				[0, 0],
+				[12, 0],
+				[12, 14],
+				[0, 14]
+			]
+		},
+		{
+			outline: [
+				[12, 0],
+				[22, 0],
+				[22, 14],
+				[12, 14]
+			]
+		}
 	],
 	houseEdge: { section: 0, edge: 0 },
 	otherHouseEdges: [{ section: 1, edge: 0 }],
@@ -41,7 +55,18 @@ const patio: PlanInput = {
 // A freestanding L, wound clockwise, thickened all round (so one mitre is at a re-entrant corner).
 const ell: PlanInput = {
 	units: 'imperial',
-	sections: [{ outline: [[0, 0], [0, 16], [6, 16], [6, 6], [18, 6], [18, 0]] }],
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[0, 16],
+				[6, 16],
+				[6, 6],
+				[18, 6],
+				[18, 0]
+			]
+		}
+	],
 	houseEdge: null,
 	slope: { fall: { value: 0.25, unit: 'inPerFt' } },
 	thickness: 4,
@@ -125,8 +150,7 @@ describe('buildScene', () => {
 		expect(scene.ground.max[1]).toBeGreaterThan(scene.bounds.max[1]);
 		// The lawn is banked to the board bottoms: boards stand on it, the slab top stays above it.
 		const lawn = (p: readonly [number, number]) => surfaceAt(scene.surface, p) - scene.ground.below;
-		for (const f of scene.forms)
-			f.solid.footprint.forEach((p, i) => expect(f.solid.bottom[i] - lawn(p)).toBeCloseTo(-LAWN_OVERLAP_M, 9));
+		for (const f of scene.forms) f.solid.footprint.forEach((p, i) => expect(f.solid.bottom[i] - lawn(p)).toBeCloseTo(-LAWN_OVERLAP_M, 9));
 		for (const s of scene.sections) s.solid.footprint.forEach((p, i) => expect(s.solid.top[i]).toBeGreaterThan(lawn(p)));
 	});
 
@@ -167,17 +191,26 @@ describe('buildScene', () => {
 	it('leaves the house edge unformed and forms the three open edges', () => {
 		const result = computePlan(pad);
 		const scene = buildScene(result);
-		expect(scene.forms.map((f) => f.run)).toEqual(
-			result.forms.runs.filter((r) => r.formed && r.kind === 'outer').map((r) => r.id)
-		);
+		expect(scene.forms.map((f) => f.run)).toEqual(result.forms.runs.filter((r) => r.formed && r.kind === 'outer').map((r) => r.id));
 		expect(scene.forms).toHaveLength(3);
 		// Boards stand outside the slab: nothing of them is inside the 3 × 2 m outline.
-		for (const f of scene.forms)
-			for (const [x, y] of f.solid.footprint) expect(x <= 1e-9 || x >= 3 - 1e-9 || y <= 1e-9 || y >= 2 - 1e-9).toBe(true);
+		for (const f of scene.forms) for (const [x, y] of f.solid.footprint) expect(x <= 1e-9 || x >= 3 - 1e-9 || y <= 1e-9 || y >= 2 - 1e-9).toBe(true);
 	});
 
 	it('keeps labels apart: none within the clearance of another at the same height', () => {
-		const small = computePlan({ ...pad, sections: [{ outline: [[0, 0], [1, 0], [1, 0.8], [0, 0.8]] }] });
+		const small = computePlan({
+			...pad,
+			sections: [
+				{
+					outline: [
+						[0, 0],
+						[1, 0],
+						[1, 0.8],
+						[0, 0.8]
+					]
+				}
+			]
+		});
 		for (const scene of [buildScene(small), buildScene(computePlan(patio)), buildScene(computePlan(pad))]) {
 			const ls = scene.labels;
 			for (let i = 0; i < ls.length; i++)
@@ -198,7 +231,14 @@ describe('buildScene', () => {
 
 describe('triangulate', () => {
 	it('covers a counter-clockwise L exactly, every triangle wound as the outline', () => {
-		const L: [number, number][] = [[0, 0], [18, 0], [18, 6], [6, 6], [6, 16], [0, 16]]; // 18·6 + 6·10 = 168
+		const L: [number, number][] = [
+			[0, 0],
+			[18, 0],
+			[18, 6],
+			[6, 6],
+			[6, 16],
+			[0, 16]
+		]; // 18·6 + 6·10 = 168
 		const tris = triangulate(L);
 		expect(tris).toHaveLength(L.length - 2); // a simple n-gon has n − 2 triangles
 		const areas = tris.map((t) => signedArea(t.map((i) => L[i])));
@@ -210,7 +250,20 @@ describe('triangulate', () => {
 describe('a pour split inside one section', () => {
 	it('builds the scene with bulkheads that lie on no edge', () => {
 		// 6 × 6 ft at 70 °F: the engine splits it with bulkheads of edge −1.
-		const split = computePlan({ units: 'imperial', sections: [{ outline: [[0, 0], [6, 0], [6, 6], [0, 6]] }], conditions: { airTemp: 70 } });
+		const split = computePlan({
+			units: 'imperial',
+			sections: [
+				{
+					outline: [
+						[0, 0],
+						[6, 0],
+						[6, 6],
+						[0, 6]
+					]
+				}
+			],
+			conditions: { airTemp: 70 }
+		});
 		expect(split.forms.runs.some((r) => r.edge === -1)).toBe(true);
 		const scene = buildScene(split);
 		expect(scene.stakes).toHaveLength(split.elevations.stakes.length);

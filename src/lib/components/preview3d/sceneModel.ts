@@ -83,11 +83,7 @@ const add = (a: P2, b: P2, k = 1): P2 => [a[0] + b[0] * k, a[1] + b[1] * k];
 /** z of the 2D vectors a × b (the engine's `cross` takes three points). */
 const cross = (a: P2, b: P2) => a[0] * b[1] - a[1] * b[0];
 const near = (a: P2, b: P2) => dist(a, b) < 1e-3;
-export const lerp3 = (a: P3, b: P3, f: number): P3 => [
-	a[0] + (b[0] - a[0]) * f,
-	a[1] + (b[1] - a[1]) * f,
-	a[2] + (b[2] - a[2]) * f
-];
+export const lerp3 = (a: P3, b: P3, f: number): P3 => [a[0] + (b[0] - a[0]) * f, a[1] + (b[1] - a[1]) * f, a[2] + (b[2] - a[2]) * f];
 
 export { signedArea };
 
@@ -133,8 +129,7 @@ function band(es: EdgeLine[], i: number, d0: number, d1: number, joins: (j: numb
 	const e = es[i];
 	const prev = es[(i + n - 1) % n];
 	const next = es[(i + 1) % n];
-	const start = (d: number) =>
-		joins((i + n - 1) % n) ? mitre(e.a, prev, e, d) : add(add(e.a, e.n, d), e.t, -extend[0]);
+	const start = (d: number) => (joins((i + n - 1) % n) ? mitre(e.a, prev, e, d) : add(add(e.a, e.n, d), e.t, -extend[0]));
 	const end = (d: number) => (joins((i + 1) % n) ? mitre(e.b, e, next, d) : add(add(e.b, e.n, d), e.t, extend[1]));
 	return [start(d0), end(d0), end(d1), start(d1)];
 }
@@ -178,27 +173,41 @@ function stakePrisms({ result, M, runs, top }: Ctx) {
 		const along = r && near(at, r.from) ? STAKE_M / 2 : r && near(at, r.to) ? -STAKE_M / 2 : 0;
 		const c = add(add(at, out, BOARD_M + STAKE_M / 2), t, along);
 		const h = STAKE_M / 2;
-		const fp = [[-h, -h], [h, -h], [h, h], [-h, h]].map(([i, j]) => add(add(c, t, i), out, j));
+		const fp = [
+			[-h, -h],
+			[h, -h],
+			[h, h],
+			[-h, h]
+		].map(([i, j]) => add(add(c, t, i), out, j));
 		const stakeTop = top(at) - STAKE_BELOW_TOP_M;
-		return { id: s.id, bulkhead: r?.kind === 'bulkhead', solid: prism(fp, () => stakeTop, () => stakeTop - length) };
+		return {
+			id: s.id,
+			bulkhead: r?.kind === 'bulkhead',
+			solid: prism(
+				fp,
+				() => stakeTop,
+				() => stakeTop - length
+			)
+		};
 	});
 }
 
 /** House walls: a block beyond the gap, mitred where house edges of one section meet, and run on
  * past the slab where no other house edge carries on from that corner. */
 function houseWalls({ result, lines }: Ctx, gap: number, wallTop: number, lawn: (p: P2) => number): Prism[] {
-	const edges = result.geometry.sections.flatMap((s, si) =>
-		s.edges.filter((e) => e.kind === 'house').map((e) => ({ si, i: e.index }))
-	);
+	const edges = result.geometry.sections.flatMap((s, si) => s.edges.filter((e) => e.kind === 'house').map((e) => ({ si, i: e.index })));
 	const isHouse = (si: number, i: number) => edges.some((h) => h.si === si && h.i === i);
-	const continued = (p: P2, self: (typeof edges)[number]) =>
-		edges.some((h) => h !== self && [lines[h.si][h.i].a, lines[h.si][h.i].b].some((q) => near(p, q)));
+	const continued = (p: P2, self: (typeof edges)[number]) => edges.some((h) => h !== self && [lines[h.si][h.i].a, lines[h.si][h.i].b].some((q) => near(p, q)));
 	return edges.map((h) => {
 		const e = lines[h.si][h.i];
 		const extend = [continued(e.a, h) ? 0 : WALL_RUN_M, continued(e.b, h) ? 0 : WALL_RUN_M];
 		const fp = band(lines[h.si], h.i, -gap, -gap - WALL_THICK_M, (j) => isHouse(h.si, j), extend);
 		const foot = Math.min(...fp.map(lawn)) - 0.05;
-		return prism(fp, () => wallTop, () => foot);
+		return prism(
+			fp,
+			() => wallTop,
+			() => foot
+		);
 	});
 }
 
@@ -275,9 +284,7 @@ export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSce
 	const width = result.slab.trench ? mm(result.slab.trench.width) : 0;
 	const extraDepth = result.slab.trench ? mm(result.slab.trench.depth) : 0;
 	const strips = geo.flatMap((s, si) =>
-		s.edges
-			.filter((e) => e.thickened)
-			.map((e) => ({ si, e: e.index, quad: band(lines[si], e.index, 0, width, (j) => thick[si][j]) }))
+		s.edges.filter((e) => e.thickened).map((e) => ({ si, e: e.index, quad: band(lines[si], e.index, 0, width, (j) => thick[si][j]) }))
 	);
 	const thickened = strips.map(({ si, e, quad }) => ({
 		section: si,

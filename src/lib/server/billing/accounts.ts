@@ -91,7 +91,10 @@ const queueExtraLeadSync = (tx: Tx, leadId: string, contractorId: string) =>
  */
 export async function openLeadFor(contractorId: string, leadId: string, o: { agreeExtra?: boolean } = {}): Promise<LeadAccess | null> {
 	return db.transaction(async (tx) => {
-		const [l] = await tx.select({ status: lead.status }).from(lead).where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
+		const [l] = await tx
+			.select({ status: lead.status })
+			.from(lead)
+			.where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
 		if (!l) return null;
 		const [charged] = await tx.select({ leadId: leadCharge.leadId }).from(leadCharge).where(eq(leadCharge.leadId, leadId));
 		if (charged) return 'open';
@@ -106,8 +109,16 @@ export async function openLeadFor(contractorId: string, leadId: string, o: { agr
 			.onConflictDoNothing()
 			.returning({ leadId: leadCharge.leadId });
 		if (!inserted.length) return 'open';
-		if (use === 'included') await tx.update(billingAccount).set({ leadsUsed: a.leadsUsed + 1, updatedAt: new Date() }).where(eq(billingAccount.contractorId, contractorId));
-		else if (use === 'credit') await tx.update(billingAccount).set({ credits: a.credits - 1, updatedAt: new Date() }).where(eq(billingAccount.contractorId, contractorId));
+		if (use === 'included')
+			await tx
+				.update(billingAccount)
+				.set({ leadsUsed: a.leadsUsed + 1, updatedAt: new Date() })
+				.where(eq(billingAccount.contractorId, contractorId));
+		else if (use === 'credit')
+			await tx
+				.update(billingAccount)
+				.set({ credits: a.credits - 1, updatedAt: new Date() })
+				.where(eq(billingAccount.contractorId, contractorId));
 		else await queueExtraLeadSync(tx, leadId, contractorId);
 		return 'open';
 	});
@@ -119,7 +130,9 @@ export async function extraLeadsThisPeriod(a: Pick<BillingAccount, 'contractorId
 	const [r] = await exec
 		.select({ n: sql<number>`count(*)::int` })
 		.from(leadCharge)
-		.where(and(eq(leadCharge.contractorId, a.contractorId), eq(leadCharge.kind, 'extra'), eq(leadCharge.periodStart, a.periodStart), isNull(leadCharge.refundedAt)));
+		.where(
+			and(eq(leadCharge.contractorId, a.contractorId), eq(leadCharge.kind, 'extra'), eq(leadCharge.periodStart, a.periodStart), isNull(leadCharge.refundedAt))
+		);
 	const count = r?.n ?? 0;
 	return { count, cents: count * extraLead.cents };
 }
@@ -127,7 +140,10 @@ export async function extraLeadsThisPeriod(a: Pick<BillingAccount, 'contractorId
 /** Which of these leads the contractor has opened (their details stay open to them). */
 export async function openedLeadIds(contractorId: string, leadIds: string[]) {
 	if (!leadIds.length) return new Set<string>();
-	const rows = await db.select({ id: leadCharge.leadId }).from(leadCharge).where(and(eq(leadCharge.contractorId, contractorId), inArray(leadCharge.leadId, leadIds)));
+	const rows = await db
+		.select({ id: leadCharge.leadId })
+		.from(leadCharge)
+		.where(and(eq(leadCharge.contractorId, contractorId), inArray(leadCharge.leadId, leadIds)));
 	return new Set(rows.map((r) => r.id));
 }
 
@@ -175,10 +191,27 @@ export async function chargeSummary(contractorId: string) {
 /** What a contractor without a plan may see of their lead: town, scope, timing and the slab's size. Null when not theirs. */
 export async function leadTeaser(contractorId: string, leadId: string) {
 	const [l] = await db
-		.select({ id: lead.id, town: lead.town, scope: lead.scope, timeframe: lead.timeframe, respondBy: lead.respondBy, input: sql<unknown>`${lead.snapshot}->'input'`, result: sql<unknown>`${lead.snapshot}->'result'` })
+		.select({
+			id: lead.id,
+			town: lead.town,
+			scope: lead.scope,
+			timeframe: lead.timeframe,
+			respondBy: lead.respondBy,
+			input: sql<unknown>`${lead.snapshot}->'input'`,
+			result: sql<unknown>`${lead.snapshot}->'result'`
+		})
 		.from(lead)
 		.where(and(eq(lead.id, leadId), eq(lead.contractorId, contractorId)));
 	if (!l) return null;
 	const f = planFigures(l.input, l.result);
-	return { id: l.id, town: l.town, scope: l.scope, timeframe: l.timeframe, respondBy: l.respondBy, squareFeet: f.area?.squareFeet ?? null, squareMeters: f.area?.squareMeters ?? null, units: f.units };
+	return {
+		id: l.id,
+		town: l.town,
+		scope: l.scope,
+		timeframe: l.timeframe,
+		respondBy: l.respondBy,
+		squareFeet: f.area?.squareFeet ?? null,
+		squareMeters: f.area?.squareMeters ?? null,
+		units: f.units
+	};
 }

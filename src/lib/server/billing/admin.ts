@@ -9,7 +9,14 @@ export async function adminBillingView(contractorId: string) {
 	const a = await billingAccountOf(contractorId);
 	const charges = await chargeSummary(contractorId);
 	const recentCharges = await db
-		.select({ leadId: leadCharge.leadId, kind: leadCharge.kind, chargedAt: leadCharge.chargedAt, refundedAt: leadCharge.refundedAt, refundReason: leadCharge.refundReason, extraState: leadCharge.extraState })
+		.select({
+			leadId: leadCharge.leadId,
+			kind: leadCharge.kind,
+			chargedAt: leadCharge.chargedAt,
+			refundedAt: leadCharge.refundedAt,
+			refundReason: leadCharge.refundReason,
+			extraState: leadCharge.extraState
+		})
 		.from(leadCharge)
 		.where(eq(leadCharge.contractorId, contractorId))
 		.orderBy(desc(leadCharge.chargedAt))

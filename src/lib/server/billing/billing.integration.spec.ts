@@ -75,7 +75,17 @@ async function approvedContractor(name: string) {
 	const u = await createUser({ name, email, password: 'contractor-pass', role: 'contractor' });
 	await db
 		.update(contractor)
-		.set({ businessName: `${name} Co ${crypto.randomUUID().slice(0, 6)}`, status: 'approved', services: ['whole_job'], servicePostcode: ZIP, serviceRadius: 10, serviceRadiusUnit: 'mi', serviceLat: place.lat, serviceLon: place.lon, submittedAt: new Date() })
+		.set({
+			businessName: `${name} Co ${crypto.randomUUID().slice(0, 6)}`,
+			status: 'approved',
+			services: ['whole_job'],
+			servicePostcode: ZIP,
+			serviceRadius: 10,
+			serviceRadiusUnit: 'mi',
+			serviceLat: place.lat,
+			serviceLon: place.lon,
+			submittedAt: new Date()
+		})
 		.where(eq(contractor.userId, u.id));
 	return { id: u.id, email, name };
 }
@@ -83,9 +93,21 @@ async function approvedContractor(name: string) {
 /** A homeowner's plan sent to the contractor; returns the lead and the plan. */
 async function leadFor(contractorId: string) {
 	const owner = await createUser({ name: 'Ines Owner', email: unique('home'), password: 'homeowner-pass', role: 'homeowner' });
-	const [p] = await db.insert(plan).values({ ownerId: owner.id, name: 'Back walk', postcode: ZIP, input: { units: 'imperial' }, result: storedFigures({ area: { squareFeet: 80, squareMeters: 7.43 } }) }).returning();
+	const [p] = await db
+		.insert(plan)
+		.values({
+			ownerId: owner.id,
+			name: 'Back walk',
+			postcode: ZIP,
+			input: { units: 'imperial' },
+			result: storedFigures({ area: { squareFeet: 80, squareMeters: 7.43 } })
+		})
+		.returning();
 	await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'flexible', notes: '', contractors: [contractorId] }, origin);
-	const [l] = await db.select().from(lead).where(and(eq(lead.planId, p.id), eq(lead.contractorId, contractorId)));
+	const [l] = await db
+		.select()
+		.from(lead)
+		.where(and(eq(lead.planId, p.id), eq(lead.contractorId, contractorId)));
 	return { lead: l, owner, planId: p.id };
 }
 
@@ -94,7 +116,12 @@ async function onFakePage(url: string, button: 'complete' | 'cancel', card = 'go
 	const page = await fetch(url);
 	expect(page.status).toBe(200);
 	expect(await page.text()).toContain('nothing is charged');
-	const res = await fetch(`${url}/${button}`, { method: 'POST', headers: { 'content-type': 'application/x-www-form-urlencoded' }, body: `card=${card}`, redirect: 'manual' });
+	const res = await fetch(`${url}/${button}`, {
+		method: 'POST',
+		headers: { 'content-type': 'application/x-www-form-urlencoded' },
+		body: `card=${card}`,
+		redirect: 'manual'
+	});
 	expect(res.status).toBe(303);
 	return res.headers.get('location')!;
 }
@@ -138,7 +165,10 @@ describe('checkout through the fake', () => {
 		const inv = await invoicesOf(c.id);
 		expect(inv).toHaveLength(1);
 		expect(inv[0]).toMatchObject({ status: 'paid', amountCents: monthlyPlan.monthlyCents });
-		const [mail] = await db.select().from(mailOutbox).where(and(eq(mailOutbox.to, c.email), eq(mailOutbox.subject, `Your ${monthlyPlan.name} plan is active`)));
+		const [mail] = await db
+			.select()
+			.from(mailOutbox)
+			.where(and(eq(mailOutbox.to, c.email), eq(mailOutbox.subject, `Your ${monthlyPlan.name} plan is active`)));
 		expect(mail).toBeTruthy();
 
 		// The provider delivering the same event again (same id, signed again) changes nothing.
@@ -147,7 +177,10 @@ describe('checkout through the fake', () => {
 		const used = (await account(c.id)).leadsUsed;
 		expect(used).toBe(1);
 		for (const d of mine) {
-			const out = await applyEvent(verifyEvent(d.payload, payments().webhooks.generateTestHeaderString({ payload: d.payload, secret: env.PAYMENTS_WEBHOOK_SECRET! })), origin);
+			const out = await applyEvent(
+				verifyEvent(d.payload, payments().webhooks.generateTestHeaderString({ payload: d.payload, secret: env.PAYMENTS_WEBHOOK_SECRET! })),
+				origin
+			);
 			expect(out.result).toBe('replayed');
 		}
 		expect((await account(c.id)).leadsUsed).toBe(used);
@@ -200,7 +233,10 @@ describe('enforcement', () => {
 		expect((await account(c.id)).status).toBe('past_due');
 		expect(eventsOf('invoice.payment_failed').length).toBeGreaterThan(0);
 		expect((await matchContractors(place, 'whole_job')).map((m) => m.id)).not.toContain(c.id);
-		const [failedMail] = await db.select().from(mailOutbox).where(and(eq(mailOutbox.to, c.email), eq(mailOutbox.subject, 'Your Stakeline payment did not go through')));
+		const [failedMail] = await db
+			.select()
+			.from(mailOutbox)
+			.where(and(eq(mailOutbox.to, c.email), eq(mailOutbox.subject, 'Your Stakeline payment did not go through')));
 		expect(failedMail).toBeTruthy();
 		// The lead opened before stays open; a new one does not open while overdue.
 		expect(await openLeadFor(c.id, opened.id)).toBe('open');
@@ -244,7 +280,10 @@ describe('credits given back', () => {
 
 	it('a lead that expires unanswered gives its included lead back, once', async () => {
 		const { c, lead: l } = await activeWithLead();
-		await db.update(lead).set({ respondBy: future(-2) }).where(eq(lead.id, l.id));
+		await db
+			.update(lead)
+			.set({ respondBy: future(-2) })
+			.where(eq(lead.id, l.id));
 		expect(await expireLeadsNow({ contractorId: c.id }, origin)).toBe(1);
 		expect((await account(c.id)).leadsUsed).toBe(0);
 		const [charge] = await db.select().from(leadCharge).where(eq(leadCharge.leadId, l.id));
@@ -261,7 +300,12 @@ describe('credits given back', () => {
 		expect((await account(first.c.id)).leadsUsed).toBe(0);
 
 		const second = await activeWithLead();
-		await saveBid(second.c.id, second.lead.id, { totalCents: 240000, lineItems: [], earliestStart: future(5), durationDays: 2, validUntil: future(30), inclusions: '', exclusions: '', notes: '' }, origin);
+		await saveBid(
+			second.c.id,
+			second.lead.id,
+			{ totalCents: 240000, lineItems: [], earliestStart: future(5), durationDays: 2, validUntil: future(30), inclusions: '', exclusions: '', notes: '' },
+			origin
+		);
 		await closeRequest(second.owner.id, second.planId, origin);
 		expect((await account(second.c.id)).leadsUsed).toBe(1);
 		const [charge] = await db.select().from(leadCharge).where(eq(leadCharge.leadId, second.lead.id));
@@ -273,7 +317,10 @@ describe('credits given back', () => {
 		const a = await account(c.id);
 		await fakeControl('/_fake/renew', { subscription: a.subscriptionId!, outcome: 'paid' });
 		expect((await account(c.id)).leadsUsed).toBe(0);
-		await db.update(lead).set({ respondBy: future(-1) }).where(eq(lead.id, l.id));
+		await db
+			.update(lead)
+			.set({ respondBy: future(-1) })
+			.where(eq(lead.id, l.id));
 		await expireLeadsNow({ contractorId: c.id }, origin);
 		expect(await account(c.id)).toMatchObject({ leadsUsed: 0, credits: 1 });
 	});
@@ -334,7 +381,10 @@ describe('extra leads beyond the plan', () => {
 		expect(await account(c.id)).toMatchObject({ leadsUsed: 0, credits: 0 });
 
 		// Given back after it was invoiced (it expired unanswered): a credit, once.
-		await db.update(lead).set({ respondBy: future(-1) }).where(eq(lead.id, first.lead.id));
+		await db
+			.update(lead)
+			.set({ respondBy: future(-1) })
+			.where(eq(lead.id, first.lead.id));
 		await expireLeadsNow({ contractorId: c.id }, origin);
 		expect(await syncExtraLead(first.lead.id)).toBe('credited');
 		expect(await syncExtraLead(first.lead.id)).toBe('credited');
@@ -346,7 +396,10 @@ describe('extra leads beyond the plan', () => {
 		await db.insert(billingAccount).values({ contractorId: c.id, status: 'active', periodStart: new Date(), leadsUsed: monthlyPlan.leadsIncluded });
 		const { lead: l } = await leadFor(c.id);
 		expect(await openLeadFor(c.id, l.id, { agreeExtra: true })).toBe('locked');
-		await db.update(billingAccount).set({ status: 'past_due', customerId: `cus_x_${c.id}`, subscriptionId: 'sub_x' }).where(eq(billingAccount.contractorId, c.id));
+		await db
+			.update(billingAccount)
+			.set({ status: 'past_due', customerId: `cus_x_${c.id}`, subscriptionId: 'sub_x' })
+			.where(eq(billingAccount.contractorId, c.id));
 		expect(await openLeadFor(c.id, l.id, { agreeExtra: true })).toBe('locked');
 		expect(await chargeOf(l.id)).toBeUndefined();
 	});
@@ -372,7 +425,10 @@ describe('extra leads beyond the plan', () => {
 describe('money notices and the mail settings', () => {
 	it('leaves out the receipts a contractor turned off, never the notices that limit the account', async () => {
 		const c = await approvedContractor('Quiet');
-		await db.update(user).set({ mailOptOut: ['billing'] }).where(eq(user.id, c.id));
+		await db
+			.update(user)
+			.set({ mailOptOut: ['billing'] })
+			.where(eq(user.id, c.id));
 		await onFakePage(await startPlanCheckout(c, origin), 'complete', 'declines');
 		await onFakePage(await startPackCheckout(c, origin), 'complete', 'declines');
 		const a = await account(c.id);
@@ -385,7 +441,10 @@ describe('money notices and the mail settings', () => {
 		const subjects = (await db.select().from(mailOutbox).where(eq(mailOutbox.to, c.email))).map((m) => m.subject).sort();
 		// No plan-active, credits-added or payment-received receipts; the failure and the recovery do go.
 		expect(subjects).toEqual(['Your Stakeline payment did not go through', 'Your Stakeline payment went through: leads resume']);
-		const [failed] = await db.select().from(mailOutbox).where(and(eq(mailOutbox.to, c.email), eq(mailOutbox.subject, 'Your Stakeline payment did not go through')));
+		const [failed] = await db
+			.select()
+			.from(mailOutbox)
+			.where(and(eq(mailOutbox.to, c.email), eq(mailOutbox.subject, 'Your Stakeline payment did not go through')));
 		expect(failed.text).toContain(`The payment of $${monthlyPlan.monthlyCents / 100} for ${monthlyPlan.name} failed.`);
 
 		// Someone who keeps receipts gets them.

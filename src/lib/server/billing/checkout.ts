@@ -36,7 +36,12 @@ export async function startPlanCheckout(who: Who, origin: string) {
 		client_reference_id: who.id,
 		metadata: { contractorId: who.id, kind: 'plan' },
 		subscription_data: { metadata: { contractorId: who.id } },
-		line_items: [{ quantity: 1, price_data: { currency, unit_amount: monthlyPlan.monthlyCents, recurring: { interval: 'month' }, product_data: { name: monthlyPlan.name } } }],
+		line_items: [
+			{
+				quantity: 1,
+				price_data: { currency, unit_amount: monthlyPlan.monthlyCents, recurring: { interval: 'month' }, product_data: { name: monthlyPlan.name } }
+			}
+		],
 		success_url: `${billingPage(origin)}?checkout=done&session={CHECKOUT_SESSION_ID}`,
 		cancel_url: `${billingPage(origin)}?checkout=cancelled`
 	});
@@ -87,7 +92,10 @@ export async function setCancelAtPeriodEnd(contractorId: string, cancel: boolean
 	const a = await billingAccountOf(contractorId);
 	if (!a.subscriptionId || (a.status !== 'active' && a.status !== 'past_due')) throw new BillingRefused('There is no running plan to change.');
 	const sub = await payments().subscriptions.update(a.subscriptionId, { cancel_at_period_end: cancel });
-	await db.update(billingAccount).set({ cancelAtPeriodEnd: sub.cancel_at_period_end, updatedAt: new Date() }).where(eq(billingAccount.contractorId, contractorId));
+	await db
+		.update(billingAccount)
+		.set({ cancelAtPeriodEnd: sub.cancel_at_period_end, updatedAt: new Date() })
+		.where(eq(billingAccount.contractorId, contractorId));
 	return sub.cancel_at_period_end;
 }
 

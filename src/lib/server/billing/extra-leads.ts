@@ -43,14 +43,20 @@ export async function syncExtraLead(leadId: string) {
 		return 'billed';
 	}
 	if (c.extraState === 'pending') {
-		await db.update(leadCharge).set({ extraState: 'removed' }).where(and(eq(leadCharge.leadId, leadId), eq(leadCharge.extraState, 'pending')));
+		await db
+			.update(leadCharge)
+			.set({ extraState: 'removed' })
+			.where(and(eq(leadCharge.leadId, leadId), eq(leadCharge.extraState, 'pending')));
 		return 'removed';
 	}
 	if (c.extraState !== 'billed' || !c.invoiceItemId) return c.extraState;
 	const item = await payments().invoiceItems.retrieve(c.invoiceItemId);
 	if (!item.invoice) {
 		await payments().invoiceItems.del(c.invoiceItemId);
-		await db.update(leadCharge).set({ extraState: 'removed' }).where(and(eq(leadCharge.leadId, leadId), eq(leadCharge.extraState, 'billed')));
+		await db
+			.update(leadCharge)
+			.set({ extraState: 'removed' })
+			.where(and(eq(leadCharge.leadId, leadId), eq(leadCharge.extraState, 'billed')));
 		return 'removed';
 	}
 	// Invoiced already: the money is the provider's; the lead comes back as a credit, once.

@@ -46,7 +46,9 @@ export const finalInvoiceMail = (name: string, what: string, paid: boolean, orig
 		name,
 		lines: paid
 			? [`Your plan has ended; its final invoice, ${what}, was paid. Nothing more is due.`]
-			: [`Your plan has ended; its final invoice, ${what}, could not be paid with the card on file. Update your payment method on your billing page: the invoice is retried with the new card at once.`],
+			: [
+					`Your plan has ended; its final invoice, ${what}, could not be paid with the card on file. Update your payment method on your billing page: the invoice is retried with the new card at once.`
+				],
 		action: 'See your invoices',
 		url: billingUrl(origin),
 		footer: paid ? receiptFooter : footer,

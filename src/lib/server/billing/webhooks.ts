@@ -8,7 +8,16 @@ import { queueMail } from '../mail';
 import type { Mail } from '../mail/templates';
 import { lockAccount, type Tx } from './accounts';
 import { payments, webhookSecret } from './client';
-import { finalInvoiceMail, invoicePaidMail, invoiceWords, leadPackPaidMail, paymentFailedMail, paymentRecoveredMail, planActiveMail, planEndedMail } from './mails';
+import {
+	finalInvoiceMail,
+	invoicePaidMail,
+	invoiceWords,
+	leadPackPaidMail,
+	paymentFailedMail,
+	paymentRecoveredMail,
+	planActiveMail,
+	planEndedMail
+} from './mails';
 
 /** Largest webhook body accepted; the provider's events are a few kilobytes. */
 export const WEBHOOK_MAX_BYTES = 256 * 1024;
@@ -64,7 +73,11 @@ function invoiceContents(inv: Stripe.Invoice) {
 export async function applyEvent(event: Stripe.Event, origin: string): Promise<WebhookOutcome> {
 	const out = await db.transaction(async (tx): Promise<WebhookOutcome> => {
 		const contractorId = await contractorOf(tx, event);
-		const fresh = await tx.insert(billingEvent).values({ id: event.id, type: event.type, contractorId }).onConflictDoNothing().returning({ id: billingEvent.id });
+		const fresh = await tx
+			.insert(billingEvent)
+			.values({ id: event.id, type: event.type, contractorId })
+			.onConflictDoNothing()
+			.returning({ id: billingEvent.id });
 		if (!fresh.length) return { result: 'replayed', contractorId };
 		if (!contractorId) return { result: 'ignored', contractorId };
 		const a = await lockAccount(tx, contractorId);

@@ -23,9 +23,7 @@ async function endBackendDuring(query: PromiseLike<unknown>, pid: number) {
 		() => null,
 		(e: { code?: string }) => e
 	);
-	await expect
-		.poll(async () => (await admin`select state from pg_stat_activity where pid = ${pid}`)[0]?.state, { timeout: 10_000 })
-		.toBe('active');
+	await expect.poll(async () => (await admin`select state from pg_stat_activity where pid = ${pid}`)[0]?.state, { timeout: 10_000 }).toBe('active');
 	await admin`select pg_terminate_backend(${pid})`;
 	return outcome;
 }

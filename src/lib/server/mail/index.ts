@@ -46,7 +46,10 @@ export async function queueMail(to: string, mail: Mail, tx?: Tx): Promise<string
 	const write = async (t: Tx) => {
 		const { kind, subject, text, html, headers } = mail;
 		if (kind && (await optedOut(to, kind, t))) return null;
-		const [row] = await t.insert(mailOutbox).values({ to, subject, text, html, headers: headers ?? null }).returning({ id: mailOutbox.id });
+		const [row] = await t
+			.insert(mailOutbox)
+			.values({ to, subject, text, html, headers: headers ?? null })
+			.returning({ id: mailOutbox.id });
 		await t.execute(sql`SELECT graphile_worker.add_job(${SEND_MAIL}, json_build_object('id', ${row.id}::text),
 			max_attempts := ${MAX_ATTEMPTS}, job_key := ${`mail:${row.id}`})`);
 		return row.id;
@@ -56,10 +59,7 @@ export async function queueMail(to: string, mail: Mail, tx?: Tx): Promise<string
 
 /** Whether the account at `to` turned this kind of mail off on its account page. */
 async function optedOut(to: string, kind: MailKind, tx: Tx): Promise<boolean> {
-	const [row] = await tx
-		.select({ off: user.mailOptOut })
-		.from(user)
-		.where(eq(user.email, to.trim().toLowerCase()));
+	const [row] = await tx.select({ off: user.mailOptOut }).from(user).where(eq(user.email, to.trim().toLowerCase()));
 	return !!row?.off.includes(kind);
 }
 

@@ -57,7 +57,14 @@ const simple = (kind: MailKind | undefined, subject: string, name: string, lines
 	notice({ subject, name, lines, action, url, footer, kind });
 
 export const newLeadMail = (name: string, town: string, planName: string, respondBy: string, url: string) =>
-	simple('new_lead', `New lead near ${town}`, name, [`A homeowner near ${town} sent you the plan “${planName}” and asks for a bid. Please bid or decline by ${respondBy}; after that date the lead closes.`], 'Open the lead', url);
+	simple(
+		'new_lead',
+		`New lead near ${town}`,
+		name,
+		[`A homeowner near ${town} sent you the plan “${planName}” and asks for a bid. Please bid or decline by ${respondBy}; after that date the lead closes.`],
+		'Open the lead',
+		url
+	);
 
 export const newerRevisionMail = (name: string, town: string, revision: number, url: string) =>
 	simple(
@@ -82,16 +89,44 @@ export const newBidMail = (name: string, business: string, planName: string, upd
 /** To each firm a plan was sent to, when the homeowner hires one: won, not selected, or (no bid sent) closed. */
 export const bidDecisionMail = (name: string, outcome: 'won' | 'not_selected' | 'hired_other', town: string, url: string) =>
 	outcome === 'won'
-		? simple('bid_result', `Your bid near ${town} was accepted`, name, ['The homeowner accepted your bid. Their contact details are now on the lead page.'], 'Open the lead', url)
+		? simple(
+				'bid_result',
+				`Your bid near ${town} was accepted`,
+				name,
+				['The homeowner accepted your bid. Their contact details are now on the lead page.'],
+				'Open the lead',
+				url
+			)
 		: outcome === 'not_selected'
-			? simple('bid_result', `Your bid near ${town} was not selected`, name, ['The homeowner chose another bid for this plan. Thank you for bidding.'], 'Open the lead', url)
-			: simple('bid_result', `A lead near ${town} is closed: another firm was hired`, name, ['The homeowner hired another firm for this plan before you sent a bid, so the lead is closed. Nothing else changes on your account.'], 'Open the lead', url);
+			? simple(
+					'bid_result',
+					`Your bid near ${town} was not selected`,
+					name,
+					['The homeowner chose another bid for this plan. Thank you for bidding.'],
+					'Open the lead',
+					url
+				)
+			: simple(
+					'bid_result',
+					`A lead near ${town} is closed: another firm was hired`,
+					name,
+					['The homeowner hired another firm for this plan before you sent a bid, so the lead is closed. Nothing else changes on your account.'],
+					'Open the lead',
+					url
+				);
 
 export const newMessageMail = (name: string, from: string, url: string) =>
 	simple('message', `New message from ${from}`, name, [`${from} wrote to you about a slab plan on Stakeline.`], 'Read the message', url);
 
 export const bidWithdrawnMail = (name: string, business: string, planName: string, url: string) =>
-	simple('bid_update', `${business} withdrew their bid`, name, [`${business} withdrew their bid for “${planName}”. Their other bids and messages stay as they were.`], 'Compare the bids', url);
+	simple(
+		'bid_update',
+		`${business} withdrew their bid`,
+		name,
+		[`${business} withdrew their bid for “${planName}”. Their other bids and messages stay as they were.`],
+		'Compare the bids',
+		url
+	);
 
 /**
  * To a homeowner whose contractor Stakeline suspended or sent back to review: it was our decision,
@@ -107,12 +142,24 @@ export function contractorPausedMail(name: string, business: string, planName: s
 	const effect = accepted
 		? `You accepted their bid for “${planName}”, so the job is on hold. You can wait for us, or reopen bidding on your bids page.`
 		: `Their bid or lead for “${planName}” stays on your page, but it cannot be accepted until the account is active again.`;
-	const subject = why === 'suspended' ? `${business} is suspended for now` : why === 'lapsed' ? `${business}: licence or insurance expired` : `${business} is under review for now`;
+	const subject =
+		why === 'suspended'
+			? `${business} is suspended for now`
+			: why === 'lapsed'
+				? `${business}: licence or insurance expired`
+				: `${business} is under review for now`;
 	return simple(undefined, subject, name, [what, effect, 'We will e-mail you when this changes.'], 'Open your bids', url);
 }
 
 export const contractorActiveAgainMail = (name: string, business: string, planName: string, url: string) =>
-	simple(undefined, `${business} is active again`, name, [`The account of ${business} is active again. Their bid or lead for “${planName}” is open as before.`], 'Open your bids', url);
+	simple(
+		undefined,
+		`${business} is active again`,
+		name,
+		[`The account of ${business} is active again. Their bid or lead for “${planName}” is open as before.`],
+		'Open your bids',
+		url
+	);
 
 export const jobReleasedMail = (name: string, town: string, url: string) =>
 	simple(
@@ -125,7 +172,14 @@ export const jobReleasedMail = (name: string, town: string, url: string) =>
 	);
 
 export const biddingReopenedMail = (name: string, town: string, url: string) =>
-	simple('bid_result', `Bidding reopened near ${town}`, name, ['The homeowner reopened bidding on a plan you bid for. Your bid is open again and can be accepted.'], 'Open the lead', url);
+	simple(
+		'bid_result',
+		`Bidding reopened near ${town}`,
+		name,
+		['The homeowner reopened bidding on a plan you bid for. Your bid is open again and can be accepted.'],
+		'Open the lead',
+		url
+	);
 
 export const profileSubmittedMail = (name: string, business: string, url: string) =>
 	notice({
@@ -172,14 +226,23 @@ export const credentialLapsedMail = (name: string, kinds: ('licence' | 'insuranc
 	});
 
 export const leadExpiredMail = (name: string, town: string, respondBy: string, url: string) =>
-	simple('bid_result', `A lead near ${town} expired`, name, [`You did not bid or decline by ${respondBy}, the respond-by date, so the lead is closed. The homeowner was told you did not reply in time.`], 'Open the lead', url);
+	simple(
+		'bid_result',
+		`A lead near ${town} expired`,
+		name,
+		[`You did not bid or decline by ${respondBy}, the respond-by date, so the lead is closed. The homeowner was told you did not reply in time.`],
+		'Open the lead',
+		url
+	);
 
 export const leadsUnansweredMail = (name: string, planName: string, businesses: string[], respondBy: string, url: string) =>
 	simple(
 		'bid_update',
 		businesses.length === 1 ? `${businesses[0]} did not reply in time` : `${businesses.length} contractors did not reply in time`,
 		name,
-		[`${businesses.join(', ')} did not bid or decline on “${planName}” by ${respondBy}, so ${businesses.length === 1 ? 'that request is' : 'those requests are'} closed. Bids you already have are not affected.`],
+		[
+			`${businesses.join(', ')} did not bid or decline on “${planName}” by ${respondBy}, so ${businesses.length === 1 ? 'that request is' : 'those requests are'} closed. Bids you already have are not affected.`
+		],
 		'Open your bids',
 		url
 	);
@@ -195,4 +258,11 @@ export const requestClosedMail = (name: string, town: string, hadBid: boolean, u
 	);
 
 export const jobDoneMail = (name: string, town: string, url: string) =>
-	simple('bid_result', `The job near ${town} is marked done`, name, ['The homeowner marked the job done. Thank you for the work. The lead and its messages stay on your desk for your records.'], 'Open the lead', url);
+	simple(
+		'bid_result',
+		`The job near ${town} is marked done`,
+		name,
+		['The homeowner marked the job done. Thank you for the work. The lead and its messages stay on your desk for your records.'],
+		'Open the lead',
+		url
+	);

@@ -8,7 +8,11 @@ export function curingReminderMail(o: { name: string; planName: string; day: Cur
 	return notice({
 		subject: `${o.planName}: ${o.day.items.map((i) => i.title).join(' · ')}`,
 		name: o.name,
-		lines: [`Curing reminder for ${o.planName}: ${when}.`, ...o.day.items.map((i) => `${i.title}. ${i.text} (${i.source})`), 'Local codes and the product labels rule where they differ.'],
+		lines: [
+			`Curing reminder for ${o.planName}: ${when}.`,
+			...o.day.items.map((i) => `${i.title}. ${i.text} (${i.source})`),
+			'Local codes and the product labels rule where they differ.'
+		],
 		action: 'Open the plan',
 		url: o.planUrl,
 		footer: 'You get these because you turned on e-mail curing reminders for this plan.',

@@ -17,8 +17,7 @@ export const unsubscribeHeaders = (url: string): Record<string, string> => ({
 	'List-Unsubscribe-Post': 'List-Unsubscribe=One-Click'
 });
 
-const escape = (s: string) =>
-	s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
+const escape = (s: string) => s.replace(/[&<>"']/g, (c) => ({ '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' })[c]!);
 
 /** One plain layout for every notice: a greeting, a few lines, one button, the same link as text. */
 export function notice(o: {
@@ -127,8 +126,14 @@ export function emailChangeNoticeMail(name: string, newEmail: string, done: bool
 		subject: done ? 'Your Stakeline e-mail was changed' : 'A change of your Stakeline e-mail was asked for',
 		name,
 		lines: done
-			? [`Your Stakeline account now uses ${newEmail}. Notices go there from now on.`, 'If you did not do this, reset your password at once and write to Stakeline support.']
-			: [`Someone signed in to your account asked to use ${newEmail} instead of this address. It changes only when the link sent there is opened.`, 'If this was not you, change your password now: the request then stops working.'],
+			? [
+					`Your Stakeline account now uses ${newEmail}. Notices go there from now on.`,
+					'If you did not do this, reset your password at once and write to Stakeline support.'
+				]
+			: [
+					`Someone signed in to your account asked to use ${newEmail} instead of this address. It changes only when the link sent there is opened.`,
+					'If this was not you, change your password now: the request then stops working.'
+				],
 		action: done ? 'Reset my password' : 'Open my account',
 		url,
 		footer: 'This is a security notice; it is always sent.'

@@ -64,7 +64,12 @@ export function loadFonts(): Promise<Fonts> {
 			readFile(require.resolve('@fontsource/nunito/unicode.json'), 'utf8')
 		]);
 		const ranges: Record<string, string> = JSON.parse(unicode);
-		const spans = ranges.latin.split(',').map((r) => r.replace('U+', '').split('-').map((h) => parseInt(h, 16)));
+		const spans = ranges.latin.split(',').map((r) =>
+			r
+				.replace('U+', '')
+				.split('-')
+				.map((h) => parseInt(h, 16))
+		);
 		const covers = (cp: number) => spans.some(([lo, hi = lo]) => cp >= lo && cp <= hi);
 		return { regular: woffToSfnt(regular), bold: woffToSfnt(bold), covers };
 	})().catch((e) => {
@@ -78,7 +83,5 @@ export function loadFonts(): Promise<Fonts> {
 const SPELLED: Record<string, string> = { '⅛': '1/8', '⅜': '3/8', '⅝': '5/8', '⅞': '7/8', '≥': '>=', '≤': '<=', '→': '->' };
 
 export function pdfText(s: string, covers: (cp: number) => boolean): string {
-	return [...s.replace(/(\d)([⅛⅜⅝⅞])/g, '$1 $2')]
-		.map((c) => (covers(c.codePointAt(0)!) ? c : (SPELLED[c] ?? '?')))
-		.join('');
+	return [...s.replace(/(\d)([⅛⅜⅝⅞])/g, '$1 $2')].map((c) => (covers(c.codePointAt(0)!) ? c : (SPELLED[c] ?? '?'))).join('');
 }

@@ -27,7 +27,12 @@ export function pageWriter(doc: Doc, t: (s: string) => string) {
 		room(80);
 		doc.moveDown(0.8);
 		text(s, { size: 15, bold: true, color: C.moss, gap: 0 });
-		doc.moveTo(left, doc.y + 1).lineTo(left + width, doc.y + 1).lineWidth(1).strokeColor(C.moss).stroke();
+		doc
+			.moveTo(left, doc.y + 1)
+			.lineTo(left + width, doc.y + 1)
+			.lineWidth(1)
+			.strokeColor(C.moss)
+			.stroke();
 		doc.moveDown(0.5);
 	};
 	// Tables drawn by hand: pdfkit's own table re-opens the font from its buffer for every cell.
@@ -52,7 +57,12 @@ export function pageWriter(doc: Doc, t: (s: string) => string) {
 				doc.fillColor(C.ink).text(c, x + pad, y + pad, { width: widths[i] - 2 * pad });
 				x += widths[i];
 			});
-			doc.moveTo(left, y + h).lineTo(left + width, y + h).lineWidth(isHead ? 1 : 0.5).strokeColor(isHead ? C.moss : C.line).stroke();
+			doc
+				.moveTo(left, y + h)
+				.lineTo(left + width, y + h)
+				.lineWidth(isHead ? 1 : 0.5)
+				.strokeColor(isHead ? C.moss : C.line)
+				.stroke();
 			doc.x = left;
 			doc.y = y + h;
 		};
@@ -65,12 +75,7 @@ export function pageWriter(doc: Doc, t: (s: string) => string) {
 }
 
 /** A small vector line chart of percent strength by day, milestones as numbered dashed lines. */
-export function strengthChart(
-	doc: Doc,
-	days: PlanResult['strength'],
-	stones: MilestoneRow[],
-	o: { x: number; width: number; t: (s: string) => string }
-) {
+export function strengthChart(doc: Doc, days: PlanResult['strength'], stones: MilestoneRow[], o: { x: number; width: number; t: (s: string) => string }) {
 	const h = 130;
 	if (doc.y + h + 40 > doc.page.height - doc.page.margins.bottom) doc.addPage();
 	const top = doc.y + 8;
@@ -82,16 +87,33 @@ export function strengthChart(
 	const py = (pct: number) => top + h - (pct / yMax) * h;
 	doc.save().lineWidth(0.5).strokeColor(C.line);
 	for (let pct = 0; pct <= yMax; pct += 25) {
-		doc.moveTo(x0, py(pct)).lineTo(x0 + w, py(pct)).stroke();
-		doc.font('regular').fontSize(7).fillColor(C.soft).text(`${pct} %`, o.x, py(pct) - 3, { width: 26, align: 'right', lineBreak: false });
+		doc
+			.moveTo(x0, py(pct))
+			.lineTo(x0 + w, py(pct))
+			.stroke();
+		doc
+			.font('regular')
+			.fontSize(7)
+			.fillColor(C.soft)
+			.text(`${pct} %`, o.x, py(pct) - 3, { width: 26, align: 'right', lineBreak: false });
 	}
-	for (let d = 0; d <= days.length; d += 7)
-		doc.text(String(d), px(d) - 10, top + h + 4, { width: 20, align: 'center', lineBreak: false });
+	for (let d = 0; d <= days.length; d += 7) doc.text(String(d), px(d) - 10, top + h + 4, { width: 20, align: 'center', lineBreak: false });
 	doc.text(o.t('Days after the last pour'), x0, top + h + 14, { width: w, align: 'center', lineBreak: false });
 	stones.forEach((m, i) => {
 		if (m.day === null || m.percent === undefined) return;
-		doc.save().dash(3, { space: 3 }).strokeColor(C.clay).moveTo(px(m.day), top).lineTo(px(m.day), top + h).stroke().restore();
-		doc.font('bold').fontSize(8).fillColor(C.clay).text(String(i + 1), px(m.day) + 2, top + 2 + (i % 3) * 9, { lineBreak: false });
+		doc
+			.save()
+			.dash(3, { space: 3 })
+			.strokeColor(C.clay)
+			.moveTo(px(m.day), top)
+			.lineTo(px(m.day), top + h)
+			.stroke()
+			.restore();
+		doc
+			.font('bold')
+			.fontSize(8)
+			.fillColor(C.clay)
+			.text(String(i + 1), px(m.day) + 2, top + 2 + (i % 3) * 9, { lineBreak: false });
 	});
 	doc.lineWidth(1.5).strokeColor(C.moss);
 	days.forEach((d, i) => (i ? doc.lineTo(px(d.day), py(d.percent)) : doc.moveTo(px(d.day), py(d.percent))));
@@ -106,7 +128,10 @@ export function drawLayout(doc: Doc, d: LayoutDrawing, o: { x: number; y: number
 	const seg = (l: { from: readonly [number, number]; to: readonly [number, number] }) => doc.moveTo(...P(l.from)).lineTo(...P(l.to));
 	doc.save();
 	for (const s of d.slabs) {
-		doc.polygon(...s.map(P)).lineWidth(1.2).fillAndStroke(C.mossLight, C.ink);
+		doc
+			.polygon(...s.map(P))
+			.lineWidth(1.2)
+			.fillAndStroke(C.mossLight, C.ink);
 	}
 	doc.lineWidth(0.6).strokeColor(C.soft).dash(2, { space: 3 });
 	for (const l of d.diagonals) seg(l).stroke();
@@ -121,7 +146,12 @@ export function drawLayout(doc: Doc, d: LayoutDrawing, o: { x: number; y: number
 		seg(d.high).stroke();
 		doc.undash();
 	}
-	if (d.start) doc.lineWidth(2).strokeColor(C.moss).circle(...P(d.start), 7).stroke();
+	if (d.start)
+		doc
+			.lineWidth(2)
+			.strokeColor(C.moss)
+			.circle(...P(d.start), 7)
+			.stroke();
 	doc.fillColor(C.sky);
 	for (const s of d.stakes) doc.rect(P(s.at)[0] - 2, P(s.at)[1] - 2, 4, 4).fill();
 	// Sizes from the drawing (LABEL_SIZE), which placed each label clear of the lines at that size.

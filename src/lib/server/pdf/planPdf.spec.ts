@@ -101,11 +101,30 @@ describe('planPdf', () => {
 		{
 			id: 'freestanding pad',
 			name: 'Shed pad',
-			result: computePlan({ units: 'imperial', name: 'Shed pad', sections: [{ outline: [[0, 0], [12, 0], [12, 10], [0, 10]] }], houseEdge: null, slope: { highEdge: { section: 0, edge: 2 } } })
+			result: computePlan({
+				units: 'imperial',
+				name: 'Shed pad',
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[12, 0],
+							[12, 10],
+							[0, 10]
+						]
+					}
+				],
+				houseEdge: null,
+				slope: { highEdge: { section: 0, edge: 2 } }
+			})
 		}
 	])('$id: the layout drawing and its legend share a page', { timeout: 30_000 }, async ({ name, result }) => {
 		const pdf = await planPdf({ name, result, createdAt: new Date('2027-04-01T12:00:00Z') });
-		const pages = (Buffer.from(pdf).toString('latin1').match(/\/Type \/Page\b/g) ?? []).length;
+		const pages = (
+			Buffer.from(pdf)
+				.toString('latin1')
+				.match(/\/Type \/Page\b/g) ?? []
+		).length;
 		const texts = await Promise.all(Array.from({ length: pages }, (_, i) => pdfPageText(pdf, i + 1)));
 		const at = texts.findIndex((t) => t.includes('Layout drawing'));
 		expect(at).toBeGreaterThanOrEqual(0);
@@ -114,7 +133,10 @@ describe('planPdf', () => {
 
 	it('uses Letter for imperial plans and A4 for metric ones', async () => {
 		const size = async (r: PlanResult) =>
-			/\/MediaBox \[0 0 ([\d.]+) ([\d.]+)\]/.exec(Buffer.from(await planPdf({ name: 'x', result: r })).toString('latin1'))!.slice(1).map(Number);
+			/\/MediaBox \[0 0 ([\d.]+) ([\d.]+)\]/
+				.exec(Buffer.from(await planPdf({ name: 'x', result: r })).toString('latin1'))!
+				.slice(1)
+				.map(Number);
 		const imperial = plans.find((p) => p.result.units === 'imperial')!.result;
 		const metric = plans.find((p) => p.result.units === 'metric')!.result;
 		expect(await size(imperial)).toEqual([612, 792]);

@@ -91,9 +91,22 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 			let h = 0;
 			for (const [k, c] of cells.slice(i, i + 2).entries()) {
 				const x = left + k * colW;
-				doc.font('regular').fontSize(8).fillColor(C.soft).text(t(c.label), x, rowTop, { width: colW - 8 });
-				doc.font('bold').fontSize(12).fillColor(C.ink).text(t(c.value), x, doc.y, { width: colW - 8 });
-				if (c.note) doc.font('regular').fontSize(8).fillColor(C.soft).text(t(c.note), x, doc.y, { width: colW - 8 });
+				doc
+					.font('regular')
+					.fontSize(8)
+					.fillColor(C.soft)
+					.text(t(c.label), x, rowTop, { width: colW - 8 });
+				doc
+					.font('bold')
+					.fontSize(12)
+					.fillColor(C.ink)
+					.text(t(c.value), x, doc.y, { width: colW - 8 });
+				if (c.note)
+					doc
+						.font('regular')
+						.fontSize(8)
+						.fillColor(C.soft)
+						.text(t(c.note), x, doc.y, { width: colW - 8 });
 				h = Math.max(h, doc.y - rowTop);
 			}
 			rowTop += h + 5;
@@ -109,7 +122,9 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 		sheet.diagonals.length ? 'grey dashes: diagonals' : '',
 		'squares: stakes, numbered as in the stake marks',
 		'R ids: boards as in the cut list'
-	].filter(Boolean).join('; ');
+	]
+		.filter(Boolean)
+		.join('; ');
 	const legend = `Start at corner ${sheet.start.corner} (${sheet.start.why}, circled). ${sheet.highEdge ? `Green dashes: the high side, edge ${sheet.highEdge}; the top falls away from it. ` : ''}${key[0].toUpperCase()}${key.slice(1)}.`;
 	// Room below the drawing for its legend, measured, so the legend never spills onto a page of its own.
 	const legendHeight = doc.font('regular').fontSize(8).heightOfString(t(legend), { width, paragraphGap: 2 }) + 8;
@@ -132,7 +147,9 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 			{ bold: true }
 		);
 	for (const d of sheet.diagonals)
-		text(`Diagonals of ${d.name}: ${d.first.from}–${d.first.to} ${tape(d.first.length)}, ${d.second.from}–${d.second.to} ${tape(d.second.length)}${d.square ? ' (equal: square)' : ''}.`);
+		text(
+			`Diagonals of ${d.name}: ${d.first.from}–${d.first.to} ${tape(d.first.length)}, ${d.second.from}–${d.second.to} ${tape(d.second.length)}${d.square ? ' (equal: square)' : ''}.`
+		);
 	doc.moveDown(0.3);
 	table(
 		['Stake', 'Board', 'From corner, along', 'Distance'],
@@ -162,7 +179,11 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	);
 
 	heading('Mixing plan');
-	text(crewItems(r).map((i) => `${i.label}: ${i.value}${i.note ? ` (${i.note})` : ''}`).join('  ·  '));
+	text(
+		crewItems(r)
+			.map((i) => `${i.label}: ${i.value}${i.note ? ` (${i.note})` : ''}`)
+			.join('  ·  ')
+	);
 	if (r.mixing.readyMixSuggested) text(READY_MIX_HINT, { bold: true, color: C.clay });
 	doc.moveDown(0.3);
 	const mixing = mixingRows(r);
@@ -182,7 +203,12 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 		room(36);
 		text([d.label, d.date, d.pour ? 'pour day' : ''].filter(Boolean).join(' · '), { bold: true, color: d.pour ? C.moss : C.ink, gap: 0 });
 		doc.font('regular').fontSize(10).fillColor(C.ink);
-		doc.list(d.tasks.map((k) => t(k.text)), left + 6, doc.y, { width: width - 6, bulletRadius: 1.6, textIndent: 10, paragraphGap: 1 });
+		doc.list(
+			d.tasks.map((k) => t(k.text)),
+			left + 6,
+			doc.y,
+			{ width: width - 6, bulletRadius: 1.6, textIndent: 10, paragraphGap: 1 }
+		);
 		doc.x = left;
 		doc.moveDown(0.4);
 	}
@@ -226,7 +252,11 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 		const y = doc.y;
 		doc.rect(left, y + 1, w, 12).fill(SEVERITY_COLOR[c.severity]);
 		doc.fillColor(c.severity === 'warning' ? '#000000' : '#ffffff').text(word, left + 4, y + 3.5, { lineBreak: false });
-		doc.font('bold').fontSize(11).fillColor(C.ink).text(t(c.title), left + w + 6, y, { width: width - w - 6, paragraphGap: 1 });
+		doc
+			.font('bold')
+			.fontSize(11)
+			.fillColor(C.ink)
+			.text(t(c.title), left + w + 6, y, { width: width - w - 6, paragraphGap: 1 });
 		doc.x = left;
 		text(c.reason);
 		text(`What to do: ${c.action}`);

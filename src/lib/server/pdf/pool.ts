@@ -44,7 +44,8 @@ export function createPool<In, Out>(filename: string, limits: PoolLimits) {
 		try {
 			return (await pool.run(input, { signal })) as Out;
 		} catch (err) {
-			if (signal.aborted) throw new PdfRefused(`This plan took over ${seconds} s to draw as a PDF; make it smaller (fewer pours or corners) and try again.`, 413);
+			if (signal.aborted)
+				throw new PdfRefused(`This plan took over ${seconds} s to draw as a PDF; make it smaller (fewer pours or corners) and try again.`, 413);
 			const code = (err as { code?: string }).code;
 			if (code === 'ERR_WORKER_OUT_OF_MEMORY')
 				throw new PdfRefused(`This plan needs more than ${limits.heapMb} MB to draw as a PDF; make it smaller and try again.`, 413);

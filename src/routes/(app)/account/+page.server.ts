@@ -51,7 +51,8 @@ export const actions = {
 		if (failure) return fail(failure.status, { ...failure.data, section: 'email' });
 		const fields = (message: string, errors: Record<string, string>) => fail(400, { errors, values, message, section: 'email' });
 		const user = await findUserById(me.id);
-		if (!user || !(await verifyPassword(user.passwordHash, data.current))) return fields('Please correct the fields marked below.', { current: 'That is not your current password.' });
+		if (!user || !(await verifyPassword(user.passwordHash, data.current)))
+			return fields('Please correct the fields marked below.', { current: 'That is not your current password.' });
 		const allowed = await countMailRequest(me.email, event.getClientAddress());
 		if (!allowed.ok) return fields(`Too many e-mails sent. Please wait ${formatWait(allowed.waitMs)}.`, {});
 		try {

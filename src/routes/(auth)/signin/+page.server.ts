@@ -23,7 +23,12 @@ export const actions = {
 		const gate = await countSignInAttempt(data.email, ip);
 		if (!gate.ok) {
 			const when = `please wait ${formatWait(gate.waitMs)}`;
-			return formError(values, `Too many sign-in attempts ${gate.scope === 'pair' ? 'from here' : 'on this account'}. For your safety, ${when}, or have a sign-in link e-mailed to you.`, {}, 429);
+			return formError(
+				values,
+				`Too many sign-in attempts ${gate.scope === 'pair' ? 'from here' : 'on this account'}. For your safety, ${when}, or have a sign-in link e-mailed to you.`,
+				{},
+				429
+			);
 		}
 		const user = await findUserByEmail(data.email);
 		// An unknown address is checked against a dummy hash, so timing does not tell who has an account.

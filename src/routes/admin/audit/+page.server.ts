@@ -7,7 +7,10 @@ import { requireRole } from '$lib/server/guards';
 import { pageFrom } from '$lib/paging';
 import type { PageServerLoad } from './$types';
 
-const day = z.string().regex(/^\d{4}-\d{2}-\d{2}$/).refine((d) => !Number.isNaN(Date.parse(d)));
+const day = z
+	.string()
+	.regex(/^\d{4}-\d{2}-\d{2}$/)
+	.refine((d) => !Number.isNaN(Date.parse(d)));
 /** The filters from the address; anything malformed is ignored rather than refused. */
 const filterSchema = z.object({
 	actor: z.uuid().catch(''),

@@ -31,13 +31,7 @@ export const load = (async (event) => {
 		// The licence number is matched without spaces or dashes too, as people type it either way.
 		const bare = likePattern(q.replace(/[\s-]/g, ''));
 		filters.push(
-			or(
-				ilike(user.name, like),
-				ilike(user.email, like),
-				ilike(contractor.businessName, like),
-				ilike(contractor.licenceNumber, like),
-				ilike(sqlBare(), bare)
-			)!
+			or(ilike(user.name, like), ilike(user.email, like), ilike(contractor.businessName, like), ilike(contractor.licenceNumber, like), ilike(sqlBare(), bare))!
 		);
 	}
 	if (role) filters.push(eq(user.role, role));

@@ -20,8 +20,7 @@ export const POST: RequestHandler = async ({ request, getClientAddress }) => {
 	} catch {
 		return badRequest([{ path: '', message: 'The request body could not be read.' }]);
 	}
-	if (text.length > MAX_BODY_CHARS)
-		return badRequest([{ path: '', message: `The body is over ${MAX_BODY_CHARS} characters.` }]);
+	if (text.length > MAX_BODY_CHARS) return badRequest([{ path: '', message: `The body is over ${MAX_BODY_CHARS} characters.` }]);
 	let body: unknown;
 	try {
 		body = JSON.parse(text);

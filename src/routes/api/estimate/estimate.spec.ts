@@ -8,12 +8,23 @@ import { ESTIMATE_LIMIT } from '$lib/server/rate-limit';
 
 // Each call from its own address, so the per-client rate limit (tested below) stays out of the way.
 const post = (body: string, address = `test-${crypto.randomUUID()}`) =>
-	POST({ request: new Request('http://localhost/api/estimate', { method: 'POST', body }), getClientAddress: () => address } as unknown as Parameters<typeof POST>[0]) as Promise<Response>;
+	POST({ request: new Request('http://localhost/api/estimate', { method: 'POST', body }), getClientAddress: () => address } as unknown as Parameters<
+		typeof POST
+	>[0]) as Promise<Response>;
 const postJson = (value: unknown) => post(JSON.stringify(value));
 
 const valid = {
 	units: 'imperial',
-	sections: [{ outline: [[0, 0], [16, 0], [16, 12], [0, 12]] }],
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[16, 0],
+				[16, 12],
+				[0, 12]
+			]
+		}
+	],
 	bags: { offered: [{ size: 80, price: 6.4 }] },
 	readyMix: { price: 185 }
 };
@@ -78,9 +89,56 @@ describe('POST /api/estimate', () => {
 	});
 
 	it('rejects invalid geometry at the outline', async () => {
-		await expectBad(await postJson({ ...valid, sections: [{ outline: [[0, 0], [10, 0], [2, 8], [8, 10]] }] }), 'sections.0.outline');
-		await expectBad(await postJson({ ...valid, sections: [{ outline: [[0, 0], [10, 0], [10, 0], [0, 10]] }] }), 'sections.0.outline');
-		const overlap = [{ outline: [[0, 0], [10, 0], [10, 10], [0, 10]] }, { outline: [[5, 5], [15, 5], [15, 15], [5, 15]] }];
+		await expectBad(
+			await postJson({
+				...valid,
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[10, 0],
+							[2, 8],
+							[8, 10]
+						]
+					}
+				]
+			}),
+			'sections.0.outline'
+		);
+		await expectBad(
+			await postJson({
+				...valid,
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[10, 0],
+							[10, 0],
+							[0, 10]
+						]
+					}
+				]
+			}),
+			'sections.0.outline'
+		);
+		const overlap = [
+			{
+				outline: [
+					[0, 0],
+					[10, 0],
+					[10, 10],
+					[0, 10]
+				]
+			},
+			{
+				outline: [
+					[5, 5],
+					[15, 5],
+					[15, 15],
+					[5, 15]
+				]
+			}
+		];
 		await expectBad(await postJson({ ...valid, sections: overlap }), 'sections.1.outline');
 	});
 
@@ -90,9 +148,15 @@ describe('POST /api/estimate', () => {
 
 	it('answers random junk with 400 and errors, never a throw', async () => {
 		await fc.assert(
-			fc.asyncProperty(fc.oneof(fc.string(), fc.jsonValue().map((v) => JSON.stringify(v))), async (body) => {
-				await expectBad(await post(body));
-			}),
+			fc.asyncProperty(
+				fc.oneof(
+					fc.string(),
+					fc.jsonValue().map((v) => JSON.stringify(v))
+				),
+				async (body) => {
+					await expectBad(await post(body));
+				}
+			),
 			{ numRuns: 60 }
 		);
 	});
@@ -113,7 +177,16 @@ describe('POST /api/estimate: scope limits', () => {
 	it('refuses the 263-byte attack (a 2000 × 2000 ft slab of 10 lb bags) quickly, naming the limits', async () => {
 		const attack = {
 			units: 'imperial',
-			sections: [{ outline: [[-1000, -1000], [1000, -1000], [1000, 1000], [-1000, 1000]] }],
+			sections: [
+				{
+					outline: [
+						[-1000, -1000],
+						[1000, -1000],
+						[1000, 1000],
+						[-1000, 1000]
+					]
+				}
+			],
 			bags: { offered: [{ size: 10 }] },
 			crew: { method: 'drum', drumBatchMass: 20 }
 		};
@@ -141,8 +214,7 @@ describe('POST /api/estimate: scope limits', () => {
 });
 
 describe('POST /api/estimate: messages in plain words', () => {
-	const messageAt = async (plan: unknown, path: string) =>
-		(await expectBad(await postJson(plan), path)).find((e) => e.path === path)!.message;
+	const messageAt = async (plan: unknown, path: string) => (await expectBad(await postJson(plan), path)).find((e) => e.path === path)!.message;
 
 	it('names the field, its unit and the range to enter', async () => {
 		expect(await messageAt({ ...valid, thickness: null }, 'thickness')).toBe('Enter the thickness, 2–12 in.');

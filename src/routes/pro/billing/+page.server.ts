@@ -45,7 +45,8 @@ async function step<T>(run: () => Promise<T>) {
 		return { ok: true as const, value: await run() };
 	} catch (err) {
 		if (err instanceof BillingRefused) return { ok: false as const, failure: fail(409, { message: err.message }) };
-		if (err instanceof BillingUnavailable) return { ok: false as const, failure: fail(503, { message: 'Payments are not set up on this server yet; nothing was charged.' }) };
+		if (err instanceof BillingUnavailable)
+			return { ok: false as const, failure: fail(503, { message: 'Payments are not set up on this server yet; nothing was charged.' }) };
 		log.error({ err: errorSummary(err) }, 'billing: the payment provider refused or did not answer');
 		return { ok: false as const, failure: fail(503, { message: 'The payment provider did not answer. Nothing was charged; please try again in a minute.' }) };
 	}
@@ -72,7 +73,8 @@ const openAsExtra = async (event: RequestEvent) => {
 	if (!/^[0-9a-f-]{36}$/i.test(leadId)) error(400, 'No lead was named.');
 	const access = await openLeadFor(user.id, leadId, { agreeExtra: true });
 	if (access === null) error(404, 'No such lead');
-	if (access !== 'open') return fail(409, { message: 'This lead cannot be opened as an extra lead now: your plan is not running or its payment is overdue. Nothing was charged.' });
+	if (access !== 'open')
+		return fail(409, { message: 'This lead cannot be opened as an extra lead now: your plan is not running or its payment is overdue. Nothing was charged.' });
 	redirect(303, `/pro/leads/${leadId}`);
 };
 

@@ -16,6 +16,16 @@ export const load = (async (event) => {
 	const { rows, total } = await contractorLeads(user.id, { status, limit: paging.size, offset: paging.offset });
 	const chosen = await contractorDistanceUnit(user.id);
 	// billing: which leads' details are open to the contractor already; the others need a plan or a credit (or, beyond a running plan's included leads, open as an extra lead at its price).
-	const opened = await openedLeadIds(user.id, rows.map((r) => r.id));
-	return { leads: rows.map((r) => ({ ...r, locked: !billing.canOpen && !opened.has(r.id), extra: billing.extra && !opened.has(r.id) })), billing, total, status: status ?? '', unit: chosen ?? defaultDistanceUnit(event.locals.reader.locale), ...paging };
+	const opened = await openedLeadIds(
+		user.id,
+		rows.map((r) => r.id)
+	);
+	return {
+		leads: rows.map((r) => ({ ...r, locked: !billing.canOpen && !opened.has(r.id), extra: billing.extra && !opened.has(r.id) })),
+		billing,
+		total,
+		status: status ?? '',
+		unit: chosen ?? defaultDistanceUnit(event.locals.reader.locale),
+		...paging
+	};
 }) satisfies PageServerLoad;

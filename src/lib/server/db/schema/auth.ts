@@ -20,11 +20,18 @@ export const user = pgTable(
 		disabledAt: timestamp('disabled_at', { withTimezone: true }),
 		disabledReason: text('disabled_reason'),
 		/** Mail kinds (src/lib/mail-kinds.ts) this person turned off; kinds added later start on. */
-		mailOptOut: text('mail_opt_out').array().notNull().default(sql`'{}'`),
+		mailOptOut: text('mail_opt_out')
+			.array()
+			.notNull()
+			.default(sql`'{}'`),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 	},
 	// Few accounts are disabled: "is this account disabled" (matching, bids) reads this small index.
-	(t) => [index('user_disabled_idx').on(t.id).where(sql`${t.disabledAt} is not null`)]
+	(t) => [
+		index('user_disabled_idx')
+			.on(t.id)
+			.where(sql`${t.disabledAt} is not null`)
+	]
 );
 
 export const session = pgTable(

@@ -22,7 +22,10 @@ export const contractor = pgTable(
 		phone: text('phone'),
 		description: text('description'),
 		yearsInTrade: integer('years_in_trade'),
-		services: serviceKindEnum('services').array().notNull().default(sql`'{}'`),
+		services: serviceKindEnum('services')
+			.array()
+			.notNull()
+			.default(sql`'{}'`),
 		licenceNumber: text('licence_number'),
 		licenceAuthority: text('licence_authority'),
 		servicePostcode: text('service_postcode'),
@@ -52,7 +55,9 @@ export const contractor = pgTable(
 	(t) => [
 		index('contractor_status_idx').on(t.status, t.reviewRequestedAt),
 		// Matching reads approved contractors within a band of latitude (matching.ts).
-		index('contractor_approved_lat_idx').on(t.serviceLat).where(sql`${t.status} = 'approved'`)
+		index('contractor_approved_lat_idx')
+			.on(t.serviceLat)
+			.where(sql`${t.status} = 'approved'`)
 	]
 );
 
@@ -75,7 +80,11 @@ export const contractorDocument = pgTable(
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow(),
 		supersededAt: timestamp('superseded_at', { withTimezone: true })
 	},
-	(t) => [uniqueIndex('contractor_document_current_uq').on(t.contractorId, t.kind).where(sql`${t.supersededAt} is null`)]
+	(t) => [
+		uniqueIndex('contractor_document_current_uq')
+			.on(t.contractorId, t.kind)
+			.where(sql`${t.supersededAt} is null`)
+	]
 );
 
 /**

@@ -59,4 +59,3 @@ export const actions = {
 		return { removed: true };
 	}
 } satisfies Actions;
-

@@ -15,7 +15,10 @@ export const load = (async (event) => {
 	requireRole(event, 'admin');
 	const profile = await findContractor(event.params.id);
 	if (!profile) error(404, 'No such contractor');
-	const [account] = await db.select({ name: user.name, email: user.email, createdAt: user.createdAt, emailVerifiedAt: user.emailVerifiedAt }).from(user).where(eq(user.id, event.params.id));
+	const [account] = await db
+		.select({ name: user.name, email: user.email, createdAt: user.createdAt, emailVerifiedAt: user.emailVerifiedAt })
+		.from(user)
+		.where(eq(user.id, event.params.id));
 	const history = await db.select().from(auditLog).where(eq(auditLog.subjectId, event.params.id)).orderBy(desc(auditLog.createdAt)).limit(20);
 	return { profile, account, history, billing: await adminBillingView(event.params.id), changes: changesSinceReview(profile) };
 }) satisfies PageServerLoad;

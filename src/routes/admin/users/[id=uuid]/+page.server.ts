@@ -20,7 +20,10 @@ export const load = (async (event) => {
 	if (!account) error(404, 'No such account');
 	const [[plans], [leads], [sessions]] = await Promise.all([
 		db.select({ n: count() }).from(plan).where(eq(plan.ownerId, id)),
-		db.select({ n: count() }).from(lead).where(account.role === 'contractor' ? eq(lead.contractorId, id) : eq(lead.homeownerId, id)),
+		db
+			.select({ n: count() })
+			.from(lead)
+			.where(account.role === 'contractor' ? eq(lead.contractorId, id) : eq(lead.homeownerId, id)),
 		db.select({ n: count() }).from(session).where(eq(session.userId, id))
 	]);
 	const history = await db.select().from(auditLog).where(eq(auditLog.subjectId, id)).orderBy(desc(auditLog.createdAt)).limit(20);

@@ -5,7 +5,7 @@ import { deletePlan, findOwnPlan, PlanHasLeads, PlanInputInvalid, planView, Stal
 import type { RequestHandler } from './$types';
 
 function notFound(): never {
-	error(404, "No such plan.");
+	error(404, 'No such plan.');
 }
 
 export const GET: RequestHandler = async ({ locals, params }) => {

@@ -29,7 +29,13 @@ export const load = (async (event) => {
 	return {
 		lead: { ...lead, status: lead.status === 'new' ? ('viewed' as const) : lead.status },
 		// The spec sheet's rows are worked out here: the browser then needs no engine on this page.
-		plan: { name: snapshot.name, specRows: specRows(snapshot.input, fullResult(snapshot.result)), figures: planFigures(snapshot.input, snapshot.result), result: fullResult(snapshot.result), photoIds: snapshot.photoIds ?? [] },
+		plan: {
+			name: snapshot.name,
+			specRows: specRows(snapshot.input, fullResult(snapshot.result)),
+			figures: planFigures(snapshot.input, snapshot.result),
+			result: fullResult(snapshot.result),
+			photoIds: snapshot.photoIds ?? []
+		},
 		bid: found.bid,
 		homeowner: found.homeowner,
 		asked: found.asked,
@@ -55,15 +61,25 @@ async function step(values: Record<string, string>, run: () => Promise<boolean>,
 async function billingGate(contractorId: string, leadId: string, values: Record<string, string>) {
 	const access = await openLeadFor(contractorId, leadId);
 	if (access === null) error(404, 'No such lead');
-	if (access === 'locked') return formError(values, 'Opening this lead needs a plan with leads left or a lead credit, and a paid-up account: see Billing.', {}, 402);
-	if (access === 'extra') return formError(values, `You have used this period’s included leads: open this lead as an extra lead (${price(extraLead.cents)} on your next invoice) on the Billing page first.`, {}, 402);
+	if (access === 'locked')
+		return formError(values, 'Opening this lead needs a plan with leads left or a lead credit, and a paid-up account: see Billing.', {}, 402);
+	if (access === 'extra')
+		return formError(
+			values,
+			`You have used this period’s included leads: open this lead as an extra lead (${price(extraLead.cents)} on your next invoice) on the Billing page first.`,
+			{},
+			402
+		);
 	return null;
 }
 
 export const actions = {
 	bid: async (event) => {
 		const user = await requireApprovedContractor(event);
-		const { data, values, failure } = await parseForm(event.request, bidSchemaFor(() => todayIn(event.locals.reader.timeZone)));
+		const { data, values, failure } = await parseForm(
+			event.request,
+			bidSchemaFor(() => todayIn(event.locals.reader.timeZone))
+		);
 		if (failure) return failure;
 		const locked = await billingGate(user.id, event.params.id, values); // billing
 		if (locked) return locked;

@@ -13,7 +13,11 @@ export const GET: RequestHandler = async ({ locals, params, url }) => {
 	const view = planView(found);
 	const ics = planCalendar({ id: view.id, name: view.name, result: currentResult(view.input, view.result), url: `${url.origin}/plans/${view.id}` });
 	if (!ics) error(409, 'This plan has no pour date yet: add one in the plan, then its days can go in a calendar.');
-	const file = view.name.replace(/[^A-Za-z0-9 _-]/g, '').trim().replace(/\s+/g, '-') || 'plan';
+	const file =
+		view.name
+			.replace(/[^A-Za-z0-9 _-]/g, '')
+			.trim()
+			.replace(/\s+/g, '-') || 'plan';
 	return new Response(ics, {
 		headers: {
 			'content-type': 'text/calendar; charset=utf-8',

@@ -14,12 +14,21 @@ export const GET: RequestHandler = async ({ locals, params, request }) => {
 	let bytes: Uint8Array;
 	try {
 		// Drawn in a worker thread with a time and memory cap, never on the request loop.
-		bytes = await renderPlanPdf({ name: view.name, result: currentResult(view.input, view.result), createdAt: found.updatedAt, locale: readerLocale(request.headers.get('accept-language')) });
+		bytes = await renderPlanPdf({
+			name: view.name,
+			result: currentResult(view.input, view.result),
+			createdAt: found.updatedAt,
+			locale: readerLocale(request.headers.get('accept-language'))
+		});
 	} catch (err) {
 		if (!(err instanceof PdfRefused)) throw err;
 		return json({ message: err.message }, { status: err.status, headers: err.status === 503 ? { 'retry-after': '5' } : {} });
 	}
-	const file = view.name.replace(/[^A-Za-z0-9 _-]/g, '').trim().replace(/\s+/g, '-') || 'plan';
+	const file =
+		view.name
+			.replace(/[^A-Za-z0-9 _-]/g, '')
+			.trim()
+			.replace(/\s+/g, '-') || 'plan';
 	return new Response(bytes as BodyInit, {
 		headers: {
 			'content-type': 'application/pdf',

@@ -17,7 +17,13 @@ async function ownLead(event: RequestEvent | Parameters<PageServerLoad>[0]) {
 	if (!isUuid(id) || !isUuid(leadId)) error(404, 'No such lead');
 	const [row] = await db
 		.select({
-			lead: { id: lead.id, status: lead.status, planRevision: lead.planRevision, declineReason: lead.declineReason, planName: sql<string>`${lead.snapshot}->>'name'` },
+			lead: {
+				id: lead.id,
+				status: lead.status,
+				planRevision: lead.planRevision,
+				declineReason: lead.declineReason,
+				planName: sql<string>`${lead.snapshot}->>'name'`
+			},
 			contractor: {
 				businessName: contractor.businessName,
 				description: contractor.description,
