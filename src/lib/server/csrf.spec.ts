@@ -23,8 +23,16 @@ describe('same-origin check for form posts', () => {
 					expect(res?.status, `${method} ${type} ${origin}`).toBe(403);
 					expect(await res!.text()).toBe(`Cross-site ${method} form submissions are forbidden`);
 				}
-		// A body without a content type counts as text/plain, as SvelteKit reads it.
+		// A string body without a content type is sent as text/plain (the Request adds it): refused too.
 		expect(crossSiteRefusal(req('/signin', { type: null }), url('/signin'))?.status).toBe(403);
+	});
+
+	it('leaves a write without a body or content type alone, as SvelteKit does (no form can send one)', () => {
+		const bare = new Request(url('/api/plans/x'), { method: 'DELETE' });
+		expect(bare.headers.get('content-type')).toBeNull();
+		expect(crossSiteRefusal(bare, url('/api/plans/x'))).toBeNull();
+		const sveltekitForm = new Request(url('/signin'), { method: 'POST', headers: { 'content-type': 'application/x-sveltekit-formdata' }, body: 'x' });
+		expect(crossSiteRefusal(sveltekitForm, url('/signin'))?.status).toBe(403);
 	});
 
 	it('answers JSON to a client that asks for it', async () => {

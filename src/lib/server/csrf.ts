@@ -10,12 +10,14 @@ import { json, text, type Handle } from '@sveltejs/kit';
  */
 export const CROSS_SITE_POSTS = new Set(['/reminders/stop']);
 
-const FORM_TYPES = ['application/x-www-form-urlencoded', 'multipart/form-data', 'text/plain'];
+// SvelteKit's list, with its own binary form encoding (what a remote form function sends).
+const FORM_TYPES = ['application/x-www-form-urlencoded', 'multipart/form-data', 'text/plain', 'application/x-sveltekit-formdata'];
 const WRITES = ['POST', 'PUT', 'PATCH', 'DELETE'];
 
 /** Whether SvelteKit would call this a form submission (its is_form_content_type). */
 export function isFormContentType(request: Request): boolean {
-	const type = request.headers.get('content-type')?.split(';', 1)[0].trim().toLowerCase() ?? 'text/plain';
+	// No content type (a DELETE without a body) is no form: no browser form can send one.
+	const type = request.headers.get('content-type')?.split(';', 1)[0].trim().toLowerCase() ?? '';
 	return FORM_TYPES.includes(type);
 }
 
