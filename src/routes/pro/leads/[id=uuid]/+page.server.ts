@@ -26,22 +26,24 @@ export const load = (async (event) => {
 	await markLeadSeen(user.id, event.params.id);
 	// Ids of the homeowner stay on the server, like their name.
 	const { snapshot, homeownerId: _h, contractorId: _c, ...lead } = found.lead;
+	const result = fullResult(snapshot.result);
+	const [unit, messages] = await Promise.all([contractorDistanceUnit(user.id), threadOf(event.params.id)]);
 	return {
 		lead: { ...lead, status: lead.status === 'new' ? ('viewed' as const) : lead.status },
 		// The spec sheet's rows are worked out here: the browser then needs no engine on this page.
 		plan: {
 			name: snapshot.name,
-			specRows: specRows(snapshot.input, fullResult(snapshot.result)),
+			specRows: specRows(snapshot.input, result),
 			figures: planFigures(snapshot.input, snapshot.result),
-			result: fullResult(snapshot.result),
+			result,
 			photoIds: snapshot.photoIds ?? []
 		},
 		bid: found.bid,
 		homeowner: found.homeowner,
 		asked: found.asked,
 		// As on the leads list: the unit the contractor chose, else their language's.
-		unit: (await contractorDistanceUnit(user.id)) ?? defaultDistanceUnit(event.locals.reader.locale),
-		messages: await threadOf(event.params.id),
+		unit: unit ?? defaultDistanceUnit(event.locals.reader.locale),
+		messages,
 		viewerId: user.id
 	};
 }) satisfies PageServerLoad;
