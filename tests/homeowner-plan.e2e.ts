@@ -242,7 +242,27 @@ test('my plans: rename, duplicate and delete with confirmation', async ({ page }
 	});
 	await page.goto('/plans');
 	await expect(page.getByTestId('plan-item')).toContainText('9 m²'); // 3 × 3 m
+	// Every control of a plan row is a touch target of at least 44 px (WCAG 2.5.5), on a phone and a desktop.
+	const tall = async (controls: ['link' | 'button', string][]) => {
+		for (const [role, name] of controls) {
+			const box = await page.getByTestId('plan-item').first().getByRole(role, { name, exact: true }).boundingBox();
+			expect(box!.height, name).toBeGreaterThanOrEqual(44);
+		}
+	};
+	for (const width of [390, 1366]) {
+		await page.setViewportSize({ width, height: width === 390 ? 844 : 768 });
+		await tall([
+			['link', 'Edit'],
+			['link', 'Rename'],
+			['button', 'Duplicate'],
+			['link', 'Delete']
+		]);
+	}
 	await page.getByRole('link', { name: 'Rename' }).click();
+	await tall([
+		['button', 'Save name'],
+		['link', 'Cancel']
+	]);
 	await page.getByLabel('New name').fill('Patio by the oak');
 	await page.getByRole('button', { name: 'Save name' }).click();
 	await expect(page.getByRole('link', { name: 'Patio by the oak' })).toBeVisible();
@@ -250,6 +270,10 @@ test('my plans: rename, duplicate and delete with confirmation', async ({ page }
 	await expect(page.getByTestId('plan-item')).toHaveCount(2);
 	await page.getByTestId('plan-item').filter({ hasText: '(copy)' }).getByRole('link', { name: 'Delete' }).click();
 	await expect(page.getByText('This cannot be undone.')).toBeVisible();
+	await page.setViewportSize({ width: 390, height: 844 });
+	const confirm = page.getByTestId('plan-item').filter({ hasText: '(copy)' });
+	for (const control of [confirm.getByRole('button', { name: 'Yes, delete it' }), confirm.getByRole('link', { name: 'Keep it' })])
+		expect((await control.boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	await page.getByRole('button', { name: 'Yes, delete it' }).click();
 	await expect(page.getByTestId('plan-item')).toHaveCount(1);
 	await expect(page.getByTestId('plan-item')).toContainText('Patio by the oak');
