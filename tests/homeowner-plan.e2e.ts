@@ -94,6 +94,23 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	const shot = await canvas.screenshot({ path: 'test-results/screens/plan-3d.png' });
 	const { channels } = await sharp(shot).stats();
 	expect(Math.max(...channels.map((c) => c.stdev))).toBeGreaterThan(10);
+	// No label covers another on screen, at the opening view and after turning by the keyboard.
+	const labelsClear = () =>
+		page.getByTestId('scene-label').evaluateAll((els) => {
+			const rs = els.map((e) => e.getBoundingClientRect());
+			return rs.every((a, i) => rs.slice(i + 1).every((b) => a.right <= b.left || b.right <= a.left || a.bottom <= b.top || b.bottom <= a.top));
+		});
+	await expect(page.getByTestId('scene-label').first()).toBeVisible();
+	await expect.poll(labelsClear).toBe(true);
+	// The view turns and zooms from the keyboard (the pointer is not the only way).
+	await page.getByRole('button', { name: 'Turn left' }).focus();
+	await page.keyboard.press('Enter');
+	await expect.poll(async () => (await canvas.screenshot()).equals(shot)).toBe(false);
+	await expect.poll(labelsClear).toBe(true);
+	const turned = await canvas.screenshot();
+	await page.getByRole('button', { name: 'Closer' }).focus();
+	await page.keyboard.press('Enter');
+	await expect.poll(async () => (await canvas.screenshot()).equals(turned)).toBe(false);
 
 	// Photos: a real image goes in with progress; a text file named .jpg is refused.
 	const png = await sharp({ create: { width: 80, height: 60, channels: 3, background: '#7a9a5a' } })
