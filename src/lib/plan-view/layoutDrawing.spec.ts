@@ -195,7 +195,7 @@ describe('labels keep clear of each other and of the drawing', () => {
 			{ width: 504, height: 300 },
 			{ width: 480, height: 360 },
 			{ width: 768, height: 576, labelSize: SCREEN_LABEL_SIZE },
-			{ width: 310, height: 341, labelSize: PHONE_LABEL_SIZE }
+			{ width: 310, height: 465, labelSize: PHONE_LABEL_SIZE }
 		])
 			it(`${name}, ${box.width} × ${box.height}${box.labelSize ? ', screen labels' : ''}`, () => {
 				const d = layoutDrawing(plan, layoutSheet(plan), box);
