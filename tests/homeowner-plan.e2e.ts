@@ -33,7 +33,7 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	page,
 	request
 }) => {
-	test.setTimeout(150_000); // sign-up waits on the confirmation mail
+	test.setTimeout(240_000); // sign-up waits on the confirmation mail; 3D turns on a loaded machine
 	await signUp(page, { name: 'Hazel Brook', email: uniqueEmail('planner'), password: 'l-shaped-patio' });
 	await page.getByRole('link', { name: 'Start a new plan' }).click();
 	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
