@@ -1,33 +1,13 @@
 // Offline, a plan that was never opened on this phone has no kept copy: the service worker answers
 // with Stakeline's own offline page (what works and what does not, and links to the plans kept
 // here) instead of the browser's error page, whether the address is typed or a link is followed.
-import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { signUp, uniqueEmail, watchErrors } from './helpers';
+import { axeClean, noSidewaysScroll, rectanglePlan } from './yard-helpers';
 
 test.describe.configure({ timeout: 240_000 });
 
-/** A 10 × 8 ft pad, two people mixing by hand. */
-const input = {
-	units: 'imperial',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[10, 0],
-				[10, 8],
-				[0, 8]
-			]
-		}
-	],
-	houseEdge: null,
-	crew: { people: 2, method: 'hand' },
-	conditions: { airTemp: 65, humidity: 50, wind: 5 }
-};
-
-const axeClean = async (page: Page) => expect((await new AxeBuilder({ page }).analyze()).violations).toEqual([]);
-const noSidewaysScroll = async (page: Page) =>
-	expect(await page.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth)).toBe(true);
+const input = rectanglePlan(10, 8, { airTemp: 65, house: false });
 
 /** The offline page's parts a reader relies on. */
 async function expectOfflinePage(page: Page, nowhere: string) {

@@ -1,33 +1,13 @@
 // The yard pages on a desktop screen (1366 × 768) and on paper: the pour-day page keeps a phone-wide
 // column instead of stretching its buttons and fields across the window, the layout drawing uses the
 // card's width, and a printed pour-day page or plan holds the record, not the controls.
-import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import { signUp, uniqueEmail, watchErrors } from './helpers';
+import { axeClean, noSidewaysScroll, rectanglePlan } from './yard-helpers';
 
 test.describe.configure({ timeout: 240_000 });
 
-/** A 12 × 10 ft patio, two people mixing by hand, 70 °F. */
-const input = {
-	units: 'imperial',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[12, 0],
-				[12, 10],
-				[0, 10]
-			]
-		}
-	],
-	houseEdge: { section: 0, edge: 0 },
-	crew: { people: 2, method: 'hand' },
-	conditions: { airTemp: 70, humidity: 50, wind: 5 }
-};
-
-const axeClean = async (page: Page) => expect((await new AxeBuilder({ page }).analyze()).violations).toEqual([]);
-const noSidewaysScroll = async (page: Page) =>
-	expect(await page.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth)).toBe(true);
+const input = rectanglePlan(12, 10, { airTemp: 70, house: true });
 
 test('the pour-day page and the plan read well on a desktop screen and on paper', async ({ page }) => {
 	await page.setViewportSize({ width: 1366, height: 768 });
