@@ -87,6 +87,10 @@ export async function mailLink(page: Page, email: string, subject: RegExp, o: { 
 export function watchErrors(page: Page) {
 	const errors: string[] = [];
 	page.on('pageerror', (e) => errors.push(e.message));
+	// A content security policy violation is logged, not thrown: it counts as a page error too.
+	page.on('console', (m) => {
+		if (m.type() === 'error' && m.text().includes('Content Security Policy')) errors.push(m.text());
+	});
 	return errors;
 }
 
