@@ -20,6 +20,7 @@ import autocannon from 'autocannon';
 import { root, settings } from './lib/settings.mjs';
 import { background, fail, log, run, waitForOk } from './lib/run.mjs';
 import { bin, node, prepare } from './lib/steps.mjs';
+import { firstPlanId, signInDemo } from './lib/demo-session.mjs';
 
 const ROUTES = ['healthz', 'home', 'wizard', 'account', 'estimate', 'plan'];
 const { values: opt } = parseArgs({
@@ -79,8 +80,8 @@ children.push(app, bare);
 
 if (!(await waitForOk(`${appUrl}/healthz`)) || !(await waitForOk(bareUrl))) fail('The app or the bare page did not start within a minute.');
 
-const cookie = await signIn();
-const planId = await firstPlan(cookie);
+const cookie = await signInDemo(appUrl);
+const planId = await firstPlanId(appUrl, cookie);
 const patio = JSON.stringify(exampleEstimate());
 let sent = 0;
 
@@ -143,28 +144,6 @@ function buildBare() {
 	if (fs.existsSync(path.join(dir, 'build', 'index.js'))) return;
 	log('Building the bare page (scripts/bare)…');
 	run(bin('vite'), ['build', '--logLevel', 'warn'], { cwd: dir });
-}
-
-/** Signs in the first demo homeowner through the sign-in form; the session cookie. */
-async function signIn() {
-	const demo = JSON.parse(fs.readFileSync(path.join(root, 'fixtures', 'demo.json'), 'utf8'));
-	const who = demo.users.find((u) => u.role === 'homeowner');
-	const res = await fetch(`${appUrl}/signin`, {
-		method: 'POST',
-		redirect: 'manual',
-		headers: { origin: appUrl, 'content-type': 'application/x-www-form-urlencoded', 'x-forwarded-for': '127.0.0.1' },
-		body: new URLSearchParams({ email: who.email, password: demo.password, redirectTo: '' })
-	});
-	const set = res.headers.getSetCookie().find((c) => c.startsWith('stakeline_session='));
-	if (!set) fail(`Signing in ${who.email} gave no session cookie (status ${res.status}).`);
-	return set.split(';')[0];
-}
-
-async function firstPlan(cookie) {
-	const html = await (await fetch(`${appUrl}/plans`, { headers: { cookie } })).text();
-	const id = /\/plans\/([0-9a-f-]{36})/.exec(html)?.[1];
-	if (!id) fail('The demo homeowner has no plan to load; was the demo data seeded?');
-	return id;
 }
 
 /** docs/api.md's worked example. */

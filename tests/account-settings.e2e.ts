@@ -1,7 +1,7 @@
 import { expect, test, type Page } from '@playwright/test';
 import postgres from 'postgres';
 import { todayIn } from '../src/lib/reader';
-import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
+import { demoPassword, demoUser, mailLink, openHydrated, reloadHydrated, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertPlan } from './pro-helpers';
 
 test.describe.configure({ timeout: 240_000 });
@@ -18,7 +18,7 @@ async function outbox(to: string, subject: string) {
 }
 
 async function sendToRidgeback(page: Page, planId: string) {
-	await page.goto(`/plans/${planId}/bids`, { waitUntil: 'networkidle' });
+	await openHydrated(page, `/plans/${planId}/bids`);
 	for (const box of await page.getByRole('checkbox').all()) await box.uncheck();
 	await page.getByRole('checkbox', { name: /Ridgeback Flatwork/ }).check();
 	await page.getByRole('button', { name: 'Send the plan' }).click();
@@ -33,7 +33,7 @@ test('a homeowner turns message e-mails off (bids stay on) and moves the account
 	const { id: planId } = await insertPlan(me.email, { name: 'Herb bed pad', postcode: '97330' });
 	await sendToRidgeback(page, planId);
 
-	await page.goto('/account', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/account');
 	const notices = page.getByRole('region', { name: 'E-mail notices' });
 	// A homeowner sees the homeowner's switches only, all on at first.
 	await expect(notices.getByRole('checkbox')).toHaveCount(3);
@@ -44,14 +44,14 @@ test('a homeowner turns message e-mails off (bids stay on) and moves the account
 	await notices.getByLabel('New messages').uncheck();
 	await notices.getByRole('button', { name: 'Save e-mail choices' }).click();
 	await expect(notices.getByText('Saved.')).toBeVisible();
-	await page.reload({ waitUntil: 'networkidle' });
+	await reloadHydrated(page);
 	await expect(page.getByRole('region', { name: 'E-mail notices' }).getByLabel('New messages')).not.toBeChecked();
 	await expect(page.getByRole('region', { name: 'E-mail notices' }).getByLabel('Bids on my plans (new, changed, withdrawn)')).toBeChecked();
 	await signOut(page);
 
 	// The contractor writes and bids: the message shows in Stakeline but sends no e-mail; the bid does.
 	await signIn(page, demoUser('contractor').email, demoPassword);
-	await page.goto('/pro/leads', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/pro/leads');
 	await page.getByTestId('lead-list').getByRole('link', { name: 'Herb bed pad' }).first().click();
 	await page.getByLabel(/^Write to/).fill('Is the pad for a greenhouse?');
 	await page.getByRole('button', { name: 'Send the message' }).click();
@@ -69,7 +69,7 @@ test('a homeowner turns message e-mails off (bids stay on) and moves the account
 
 	// A new address: refused for a wrong password or a taken address, then confirmed from the new inbox.
 	await signIn(page, me.email, me.password);
-	await page.goto('/account', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/account');
 	const change = page.getByRole('region', { name: 'Change e-mail' });
 	const newEmail = uniqueEmail('moved');
 	await change.getByLabel('New e-mail').fill(demoUser('homeowner').email);
@@ -119,7 +119,7 @@ test("a contractor's leads list uses the unit they chose, else their language's;
 	const item = page.getByTestId('lead-list').getByRole('listitem').filter({ hasText: 'Bin store pad' }).first();
 	await expect(item).toContainText(/ km · /);
 
-	await page.goto('/account', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/account');
 	const unit = page.getByLabel('Show distances in');
 	await expect(unit).toHaveValue('auto');
 	await expect(unit.locator('option[value=auto]')).toHaveText(/kilometres/);
@@ -136,7 +136,7 @@ test("a contractor's leads list uses the unit they chose, else their language's;
 	await expect(page.getByLabel('Earliest start')).toHaveAttribute('min', todayIn('Pacific/Kiritimati'));
 
 	// Back to the language's default, as the demo data had it.
-	await page.goto('/account', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/account');
 	await page.getByLabel('Show distances in').selectOption('auto');
 	await page.getByRole('button', { name: 'Save the unit' }).click();
 	await expect(page.getByRole('region', { name: 'Distances in your leads' }).getByText('Saved.')).toBeVisible();

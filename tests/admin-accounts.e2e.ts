@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
+import { demoPassword, demoUser, mailLink, openHydrated, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
 
 test.describe.configure({ timeout: 240_000 });
 
@@ -16,7 +16,7 @@ test('an admin disables a homeowner with a reason: sessions end, sign-in refused
 	// A second sign-up whose link is never followed: the admin sees it as not confirmed.
 	const idle = { name: 'Ines Varga', email: uniqueEmail('unconfirmed') };
 	const stranger = await (await browser.newContext()).newPage();
-	await stranger.goto('/signup', { waitUntil: 'networkidle' });
+	await openHydrated(stranger, '/signup');
 	await stranger.getByLabel('Your name').fill(idle.name);
 	await stranger.getByLabel('E-mail').fill(idle.email);
 	await stranger.getByLabel('Password', { exact: true }).fill('quiet-slab-72');
@@ -103,7 +103,7 @@ test('an admin disables a homeowner with a reason: sessions end, sign-in refused
 	await signIn(theirs, owner.email, owner.password);
 	await expect(theirs).toHaveURL(/\/plans$/);
 	await other.close();
-	await page.goto('/admin/users', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/admin/users');
 	await page.getByLabel('Name, e-mail, business or licence number').fill(idle.email);
 	await page.getByRole('button', { name: 'Show' }).click();
 	await expect(page.getByTestId('users-table')).toContainText(idle.name);
@@ -114,7 +114,7 @@ test('an admin disables a homeowner with a reason: sessions end, sign-in refused
 test('an admin finds contractors by status and by licence number, and sees who confirmed their e-mail', async ({ page }) => {
 	const errors = watchErrors(page);
 	await signIn(page, demoUser('admin').email, demoPassword);
-	await page.goto('/admin/users', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/admin/users');
 	const table = page.getByTestId('users-table');
 	await page.getByLabel('Role').selectOption('contractor');
 	await page.getByLabel('Contractor status').selectOption({ label: 'Awaiting review' });

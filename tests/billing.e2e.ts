@@ -2,7 +2,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { extraLead, leadPack, monthlyPlan, price } from '../src/lib/billing-plans';
 import { insertLead, setUsage } from './billing-helpers';
-import { demoPassword, demoUser, signIn, signOut, uniqueEmail, watchErrors } from './helpers';
+import { demoPassword, demoUser, openHydrated, reloadHydrated, signIn, signOut, uniqueEmail, watchErrors } from './helpers';
 import { approvedNewContractor, insertPlan } from './pro-helpers';
 
 // A long journey on a shared machine (sign-up, review, two trips to the payment page).
@@ -130,14 +130,14 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await expect(page.getByTestId('extra-leads')).toHaveText(`1 this period: ${price(extraLead.cents)} on your next invoice`);
 
 	// Billing receipts are a switch of their own on the account page.
-	await page.goto('/account', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/account');
 	const notices = page.getByRole('region', { name: 'E-mail notices' });
 	const receipts = notices.getByLabel('Billing receipts (plan started, monthly payment received, lead credits added)');
 	await expect(receipts).toBeChecked();
 	await receipts.uncheck();
 	await notices.getByRole('button', { name: 'Save e-mail choices' }).click();
 	await expect(notices.getByText('Saved.')).toBeVisible();
-	await page.reload({ waitUntil: 'networkidle' });
+	await reloadHydrated(page);
 	await expect(
 		page.getByRole('region', { name: 'E-mail notices' }).getByLabel('Billing receipts (plan started, monthly payment received, lead credits added)')
 	).not.toBeChecked();

@@ -11,7 +11,7 @@ import postgres from 'postgres';
 import sharp from 'sharp';
 import { startCluster } from '../scripts/lib/cluster.mjs';
 import { killDrill } from '../scripts/lib/cluster-drill.mjs';
-import { demoPassword, demoUser, uniqueEmail, watchErrors } from './helpers';
+import { demoPassword, demoUser, openHydrated, uniqueEmail, watchErrors } from './helpers';
 import { insertPlan } from './pro-helpers';
 
 test.describe.configure({ mode: 'serial', timeout: 180_000 });
@@ -61,7 +61,7 @@ test('a session made on one server is valid on the other, and signing out on one
 	const errors = watchErrors(page);
 	const homeowner = demoUser('homeowner');
 
-	await page.goto('/signin', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/signin');
 	await page.getByLabel('E-mail').fill(homeowner.email);
 	await page.getByLabel('Password').fill(demoPassword);
 	const [signInAnswer] = await Promise.all([

@@ -15,6 +15,17 @@ export function uniqueEmail(label: string) {
  */
 export async function openHydrated(page: Page, url: string) {
 	await page.goto(url);
+	await hydrated(page);
+}
+
+/** Reloads the page and waits for it to hydrate again (see openHydrated). */
+export async function reloadHydrated(page: Page) {
+	await page.reload();
+	await hydrated(page);
+}
+
+/** Waits until the page in front is hydrated: the signal a test waits for before it types or clicks. */
+export async function hydrated(page: Page) {
 	// A test may turn JavaScript off: then SvelteKit's inline start script (which sets a
 	// __sveltekit_… global) never ran and the page is complete as served.
 	const scripted = await page.evaluate(() => Object.keys(globalThis).some((k) => k.startsWith('__sveltekit_')));
@@ -87,6 +98,10 @@ export async function mailLink(page: Page, email: string, subject: RegExp, o: { 
 export function watchErrors(page: Page) {
 	const errors: string[] = [];
 	page.on('pageerror', (e) => errors.push(e.message));
+	// A content security policy violation is logged, not thrown: it counts as a page error too.
+	page.on('console', (m) => {
+		if (m.type() === 'error' && m.text().includes('Content Security Policy')) errors.push(m.text());
+	});
 	return errors;
 }
 

@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { formatMoney } from '../src/lib/money';
-import { signUp, uniqueEmail, watchErrors } from './helpers';
+import { openHydrated, reloadHydrated, signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertBid, insertPlan } from './pro-helpers';
 
 test.describe.configure({ timeout: 240_000 });
@@ -11,12 +11,14 @@ async function sendFor(
 	planId: string,
 	o: { scope: string; business: string; when: string; finish: string; surface: string; access: string; notes: string }
 ) {
-	await page.goto(`/plans/${planId}/bids`, { waitUntil: 'networkidle' });
+	await openHydrated(page, `/plans/${planId}/bids`);
 	await page.getByLabel('What you want done').selectOption({ label: o.scope });
 	await page.getByRole('button', { name: 'Find contractors' }).click();
 	await expect(page.getByLabel('What you want done')).toHaveValue(new RegExp(o.scope === 'The whole job' ? 'whole_job' : 'pour_finish'));
-	// The list is redrawn for the chosen work with some firms ticked: untick until none is, then tick one.
-	await page.waitForLoadState('networkidle');
+	// The list is redrawn for the chosen work (the address and the send form carry it) with some firms
+	// ticked: untick until none is, then tick one.
+	await expect(page).toHaveURL(/[?&]scope=/);
+	await expect(page.locator('input[type="hidden"][name="scope"]')).toHaveValue(o.scope === 'The whole job' ? 'whole_job' : 'pour_finish');
 	const ticked = page.getByRole('checkbox', { checked: true });
 	await expect(async () => {
 		while (await ticked.count()) await ticked.first().uncheck();
@@ -63,7 +65,7 @@ test('a homeowner compares bids for two kinds of work, one kind at a time, and a
 	await insertBid(planId, 'dell@ridgebackflatwork.example', { dollars: 3100, days: 2, inclusions: 'Dig, base, forms, pour, broom finish.' });
 	await insertBid(planId, 'june@quarrylaneslabs.example', { dollars: 1350, days: 1, inclusions: 'Pour and float finish.' });
 
-	await page.goto(`/plans/${planId}/bids`, { waitUntil: 'networkidle' });
+	await openHydrated(page, `/plans/${planId}/bids`);
 	const filter = page.getByTestId('scope-filter');
 	await expect(filter.getByRole('button')).toHaveText(['Pour and finish (1)', 'The whole job (1)']);
 	// Like with like: one kind of work at a time, starting with the first.
@@ -94,7 +96,7 @@ test('a homeowner compares bids for two kinds of work, one kind at a time, and a
 	await expect(ask).toContainText('The other contractor is told they were not selected.');
 	await mine.getByText('Accept…').click();
 	await expect(mine.getByRole('button', { name: 'Yes, accept this bid' })).toBeHidden();
-	await page.reload({ waitUntil: 'networkidle' });
+	await reloadHydrated(page);
 	await expect(page.getByTestId('compared-scope')).toHaveText('Pour and finish');
 	await rows.first().getByText('Accept…').click();
 	// The hired firm gets the site address and a phone number, asked for here.

@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
+import { demoPassword, demoUser, openHydrated, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertBid, insertPlan } from './pro-helpers';
 
 test.describe.configure({ timeout: 300_000 });
@@ -8,7 +8,7 @@ test.use({ viewport: { width: 390, height: 844 } });
 
 /** Each page: no serious or critical axe violation, nothing wider than the phone's screen. */
 async function checkPage(page: Page, path: string, found: string[]) {
-	await page.goto(path, { waitUntil: 'networkidle' });
+	await openHydrated(page, path);
 	expect(page.url(), `${path} should not redirect`).toContain(path.split('?')[0]);
 	const { violations } = await new AxeBuilder({ page }).analyze();
 	for (const v of violations.filter((v) => v.impact === 'serious' || v.impact === 'critical'))

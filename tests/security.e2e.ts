@@ -1,19 +1,10 @@
 import http from 'node:http';
-import { expect, test, type Page } from '@playwright/test';
-import { demoPassword, demoUser, signIn } from './helpers';
+import { expect, test } from '@playwright/test';
+import { demoPassword, demoUser, openHydrated, signIn, watchErrors } from './helpers';
 
-/** Fails the test on any page error or any script, style or connection the page's CSP blocked. */
-function watch(page: Page) {
-	const problems: string[] = [];
-	page.on('pageerror', (e) => problems.push(`page error: ${e.message}`));
-	page.on('console', (m) => {
-		if (m.type() === 'error' && /Content Security Policy/i.test(m.text())) problems.push(m.text());
-	});
-	return problems;
-}
-
+// watchErrors fails the test on any page error or any script, style or connection the page's CSP blocked.
 test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and chart run under it', async ({ page }) => {
-	const problems = watch(page);
+	const problems = watchErrors(page);
 	const home = await page.goto('/');
 	const csp = home!.headers()['content-security-policy'];
 	const scriptSrc = csp.split(';').find((d) => d.trim().startsWith('script-src'))!;
@@ -21,7 +12,7 @@ test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and 
 	expect(scriptSrc).not.toContain('unsafe-inline');
 	expect(csp).toContain("frame-ancestors 'none'");
 
-	await page.goto('/plans/new', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/plans/new');
 	await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
 
 	const owner = demoUser('homeowner');
@@ -32,17 +23,17 @@ test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and 
 		.first()
 		.click();
 	await page.getByRole('button', { name: 'Show 3D preview' }).click();
-	await expect(page.locator('canvas').first()).toBeVisible();
-	await page.waitForLoadState('networkidle');
+	// The first frame drawn: the viewer's code and the scene have loaded, so any policy violation has shown.
+	await expect(page.getByTestId('preview-canvas')).toHaveAttribute('data-ready', '');
 	expect(problems).toEqual([]);
 });
 
 test('sign-in never redirects off the site, whatever form the target takes', async ({ page }) => {
-	const problems = watch(page);
+	const problems = watchErrors(page);
 	const owner = demoUser('homeowner');
 	for (const target of ['%2F.%2F%2Fevil.example', '%2F%2Fevil.example', '%2F%5Cevil.example', '%2F%09%2Fevil.example']) {
 		await page.context().clearCookies();
-		await page.goto(`/signin?redirectTo=${target}`, { waitUntil: 'networkidle' });
+		await openHydrated(page, `/signin?redirectTo=${target}`);
 		await page.getByLabel('E-mail').fill(owner.email);
 		await page.getByLabel('Password').fill(demoPassword);
 		await page.getByRole('button', { name: 'Sign in' }).click();

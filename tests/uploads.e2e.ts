@@ -1,6 +1,6 @@
 import { expect, test } from '@playwright/test';
 import sharp from 'sharp';
-import { signUp, uniqueEmail, watchErrors } from './helpers';
+import { openHydrated, signUp, uniqueEmail, watchErrors } from './helpers';
 import { fillProfile, insertPlan, pdf } from './pro-helpers';
 
 test.describe.configure({ timeout: 180_000 });
@@ -23,7 +23,7 @@ test('contractor documents: a wrong type or an oversized file is refused in the 
 	page.on('request', (r) => r.method() === 'POST' && posts.push(r.url()));
 	await signUp(page, { name: 'Bo Kettle', email: uniqueEmail('docs'), password: 'form-boards-9', role: 'contractor' });
 	await expect(page).toHaveURL(/\/pro$/);
-	await page.goto('/pro/profile', { waitUntil: 'networkidle' });
+	await openHydrated(page, '/pro/profile');
 	await fillProfile(page, 'Kettle Pads', { zip: '97321', radius: '20', unit: 'mi' });
 	await expect(page.getByText('PDF, JPEG, PNG, or WebP, at most 5.0 MB.').first()).toBeVisible();
 	posts.length = 0;
@@ -72,7 +72,7 @@ test('site photos: a wrong type or an oversized photo is refused before sending,
 	await signUp(page, { name: 'Eda Marsh', email, password: 'photo-of-yard', role: 'homeowner' });
 	await expect(page).toHaveURL(/\/plans$/);
 	const { id } = await insertPlan(email, { name: 'Shed pad', postcode: '97321' });
-	await page.goto(`/plans/${id}`, { waitUntil: 'networkidle' });
+	await openHydrated(page, `/plans/${id}`);
 	const sent: string[] = [];
 	page.on('request', (r) => r.method() === 'POST' && r.url().endsWith('/photos') && sent.push(r.url()));
 	await expect(page.getByText('JPEG, PNG, or WebP, up to 12 MB each.')).toBeVisible();
