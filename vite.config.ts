@@ -11,15 +11,37 @@ export default defineConfig(({ command }) => ({
 	// and for builds that npm start / npm test make with the local fake mail server, never `npm run build`.
 	define: { __DEV_MAILBOX__: JSON.stringify(command === 'serve' || process.env.STAKELINE_DEV_MAILBOX === '1') },
 	test: {
-		include: ['src/**/*.{test,spec}.ts'],
 		environment: 'node',
 		// Timeouts only guard against hangs (timing targets live in benchmarks): the test machine is shared
 		// and can be heavily loaded, so a PDF or a mail round trip may take seconds there.
 		testTimeout: 30_000,
 		expect: { requireAssertions: true, poll: { timeout: 10_000 } },
-		// Integration specs share one test database; run files one after another.
-		fileParallelism: false,
 		server: { deps: { inline: ['postgres'] } },
-		benchmark: { include: ['src/**/*.bench.ts'] }
+		projects: [
+			// Pure specs (engine, views, rules, mail and PDF rendering) run files side by side first…
+			{
+				extends: true,
+				test: {
+					name: 'unit',
+					// Each project names its own files: `extends` concatenates lists, so a shared include would
+					// put every spec in both.
+					include: ['src/**/*.{test,spec}.ts'],
+					exclude: ['src/**/*.integration.spec.ts'],
+					sequence: { groupOrder: 0 },
+					benchmark: { include: ['src/**/*.bench.ts'] }
+				}
+			},
+			// …then the integration specs, which share one test database, one file after another.
+			{
+				extends: true,
+				test: {
+					name: 'integration',
+					include: ['src/**/*.integration.spec.ts'],
+					fileParallelism: false,
+					sequence: { groupOrder: 1 },
+					benchmark: { include: [] }
+				}
+			}
+		]
 	}
 }));

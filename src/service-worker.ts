@@ -7,10 +7,13 @@
 // the static files) cached at install, and each plan's page and pour-day page (with their
 // __data.json) and the plan list (the installed app's start page) cached as they load, network
 // first. Registered from a plan's layout with the scope / so the list at /plans (outside /plans/) is
-// covered too; every other request passes by untouched (no respondWith). Records made offline are not this worker's
-// business: the pour page queues them on the device and sends them itself.
+// covered too; every other request passes by untouched (no respondWith), except a navigation to any other page
+// under /plans, which gets our own offline page (lib/offline-page.ts) when the network fails, as does a plan page
+// with nothing kept. Records made offline are not this worker's business: the pour page queues them on the device
+// and sends them itself.
 
 import { build, files, version } from '$service-worker';
+import { offlinePage, planNameFromPage, type KeptPlan } from '$lib/offline-page';
 
 const sw = self as unknown as ServiceWorkerGlobalScope;
 const SHELL = `shell-${version}`;
@@ -19,6 +22,8 @@ const SHELL_FILES = new Set([...build, ...files]);
 
 /** A page kept for offline use: the plan list, a plan itself or its pour-day page, HTML or data. */
 const PLAN_PAGE = /^\/plans(\/[0-9a-f-]{36}(\/pour)?)?(\/__data\.json)?$/;
+/** Pages a navigation to which gets the offline page rather than the browser's error when nothing is kept. */
+const PLAN_AREA = /^\/plans(\/|$)/;
 
 sw.addEventListener('install', (event) => {
 	event.waitUntil(
@@ -60,8 +65,33 @@ async function networkFirst(request: Request): Promise<Response> {
 			// __data.json is asked for with the nodes the page needs; the full copy answers any of them.
 			(await cache.match(url.origin + url.pathname, { ignoreVary: true }));
 		if (hit) return hit;
+		if (request.mode === 'navigate') return offline(url);
 		throw e;
 	}
+}
+
+/** The plans whose pages are kept, named from their kept pages' titles. */
+async function keptPlans(): Promise<KeptPlan[]> {
+	const cache = await caches.open(PAGES);
+	const plans = new Map<string, KeptPlan>();
+	for (const request of await cache.keys()) {
+		const m = /^\/plans\/([0-9a-f-]{36})(\/pour)?$/.exec(new URL(request.url).pathname);
+		if (!m) continue;
+		const name = planNameFromPage(await ((await cache.match(request, { ignoreVary: true }))?.text() ?? ''));
+		const plan = plans.get(m[1]) ?? { id: m[1], name: name ?? 'Plan', pour: false };
+		if (m[2]) plan.pour = true;
+		else if (name) plan.name = name;
+		plans.set(m[1], plan);
+	}
+	return [...plans.values()];
+}
+
+/** Our own page for a navigation that cannot be answered offline: what works, and the plans kept here. */
+async function offline(url: URL): Promise<Response> {
+	return new Response(offlinePage(url.pathname + url.search, await keptPlans()), {
+		status: 503,
+		headers: { 'content-type': 'text/html; charset=utf-8', 'cache-control': 'no-store' }
+	});
 }
 
 sw.addEventListener('fetch', (event) => {
@@ -74,6 +104,7 @@ sw.addEventListener('fetch', (event) => {
 		return;
 	}
 	if (PLAN_PAGE.test(url.pathname)) event.respondWith(networkFirst(request));
+	else if (request.mode === 'navigate' && PLAN_AREA.test(url.pathname)) event.respondWith(fetch(request).catch(() => offline(url)));
 });
 
 /**

@@ -72,6 +72,46 @@ test('a homeowner turns on curing reminders, adds the plan to a calendar, and st
 		await expect(section.getByLabel('E-mail me curing reminders')).not.toBeChecked();
 		await expect(status).toContainText('Off.');
 		expect(await sql`SELECT 1 FROM graphile_worker.jobs WHERE key LIKE ${`curing:${id}:%`}`).toHaveLength(0);
+
+		// The crew starts the first pour two days late: the calendar file follows the logged day, as the
+		// reminders do, and both the page and each entry say which day the dates count from.
+		const ymd = (d: Date) => `${d.getFullYear()}-${String(d.getMonth() + 1).padStart(2, '0')}-${String(d.getDate()).padStart(2, '0')}`;
+		const longDay = (iso: string) =>
+			new Intl.DateTimeFormat('en-US', { weekday: 'short', month: 'short', day: 'numeric', year: 'numeric', timeZone: 'UTC' }).format(
+				new Date(`${iso}T00:00:00Z`)
+			);
+		const shortDay = (iso: string) => new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${iso}T00:00:00Z`));
+		const late = new Date(Date.parse(`${pourDate}T12:00:00Z`) + 2 * 86_400_000).toISOString().slice(0, 10);
+		await expect(section.getByTestId('ics-dates')).toContainText(`dated from the planned first pour, ${shortDay(pourDate)}.`);
+		expect(pour.description).toContain(`Dates counted from the planned first pour, ${longDay(pourDate)}.`);
+		const at = Date.parse(`${late}T12:00:00Z`);
+		const logged = await page.request.post(`/plans/${id}/pour/records`, {
+			data: {
+				records: [
+					{ kind: 'start', key: `late-start-${id}`, at, tz: 0, pour: 0 },
+					{ kind: 'batch', key: `late-batch-${id}`, at: at + 60_000, tz: 0, pour: 0 }
+				]
+			}
+		});
+		expect(logged.status()).toBe(200);
+		await page.reload();
+		await expect(status).toContainText(`after the pour on ${shortDay(late)} (the day logged on the pour page)`);
+		await expect(section.getByTestId('ics-dates')).toContainText(`dated from the first pour as logged on the pour page, ${shortDay(late)}.`);
+		const [again] = await Promise.all([page.waitForEvent('download'), section.getByRole('link', { name: 'Add to calendar' }).click()]);
+		const moved = Object.values(ical.sync.parseICS(await fs.readFile((await again.path())!, 'utf8'))).filter((c): c is ical.VEvent => c.type === 'VEVENT');
+		const movedPour = moved.find((e) => e.uid === pour.uid)!;
+		expect(ymd(movedPour.start)).toBe(late);
+		expect(movedPour.description).toContain(
+			`Dates counted from the first pour as logged on the pour page, ${longDay(late)} (planned for ${longDay(pourDate)}).`
+		);
+		// Every milestone moves with it, onto the days the reminders now count (two days on).
+		const lateDays = curingReminders(input, late);
+		for (const title of ['Strip the forms', 'Walk on it', 'Set furniture on it']) {
+			const before = events.find((e) => e.summary === `Curing patio: ${title}`)!;
+			const after = moved.find((e) => e.uid === before.uid)!;
+			expect(Date.parse(ymd(after.start)) - Date.parse(ymd(before.start))).toBe(2 * 86_400_000);
+			expect(lateDays.some((d) => d.date === ymd(after.start) && d.items.some((i) => i.title === title))).toBe(true);
+		}
 		expect([...errors, ...strangerErrors]).toEqual([]);
 	} finally {
 		await sql.end();

@@ -33,7 +33,7 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	page,
 	request
 }) => {
-	test.setTimeout(150_000); // sign-up waits on the confirmation mail
+	test.setTimeout(240_000); // sign-up waits on the confirmation mail; 3D turns on a loaded machine
 	await signUp(page, { name: 'Hazel Brook', email: uniqueEmail('planner'), password: 'l-shaped-patio' });
 	await page.getByRole('link', { name: 'Start a new plan' }).click();
 	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
@@ -94,6 +94,23 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	const shot = await canvas.screenshot({ path: 'test-results/screens/plan-3d.png' });
 	const { channels } = await sharp(shot).stats();
 	expect(Math.max(...channels.map((c) => c.stdev))).toBeGreaterThan(10);
+	// No label covers another on screen, at the opening view and after turning by the keyboard.
+	const labelsClear = () =>
+		page.getByTestId('scene-label').evaluateAll((els) => {
+			const rs = els.map((e) => e.getBoundingClientRect());
+			return rs.every((a, i) => rs.slice(i + 1).every((b) => a.right <= b.left || b.right <= a.left || a.bottom <= b.top || b.bottom <= a.top));
+		});
+	await expect(page.getByTestId('scene-label').first()).toBeVisible();
+	await expect.poll(labelsClear).toBe(true);
+	// The view turns and zooms from the keyboard (the pointer is not the only way).
+	await page.getByRole('button', { name: 'Turn left' }).focus();
+	await page.keyboard.press('Enter');
+	await expect.poll(async () => (await canvas.screenshot()).equals(shot)).toBe(false);
+	await expect.poll(labelsClear).toBe(true);
+	const turned = await canvas.screenshot();
+	await page.getByRole('button', { name: 'Closer' }).focus();
+	await page.keyboard.press('Enter');
+	await expect.poll(async () => (await canvas.screenshot()).equals(turned)).toBe(false);
 
 	// Photos: a real image goes in with progress; a text file named .jpg is refused.
 	const png = await sharp({ create: { width: 80, height: 60, channels: 3, background: '#7a9a5a' } })
@@ -242,7 +259,27 @@ test('my plans: rename, duplicate and delete with confirmation', async ({ page }
 	});
 	await page.goto('/plans');
 	await expect(page.getByTestId('plan-item')).toContainText('9 m²'); // 3 × 3 m
+	// Every control of a plan row is a touch target of at least 44 px (WCAG 2.5.5), on a phone and a desktop.
+	const tall = async (controls: ['link' | 'button', string][]) => {
+		for (const [role, name] of controls) {
+			const box = await page.getByTestId('plan-item').first().getByRole(role, { name, exact: true }).boundingBox();
+			expect(box!.height, name).toBeGreaterThanOrEqual(44);
+		}
+	};
+	for (const width of [390, 1366]) {
+		await page.setViewportSize({ width, height: width === 390 ? 844 : 768 });
+		await tall([
+			['link', 'Edit'],
+			['link', 'Rename'],
+			['button', 'Duplicate'],
+			['link', 'Delete']
+		]);
+	}
 	await page.getByRole('link', { name: 'Rename' }).click();
+	await tall([
+		['button', 'Save name'],
+		['link', 'Cancel']
+	]);
 	await page.getByLabel('New name').fill('Patio by the oak');
 	await page.getByRole('button', { name: 'Save name' }).click();
 	await expect(page.getByRole('link', { name: 'Patio by the oak' })).toBeVisible();
@@ -250,6 +287,10 @@ test('my plans: rename, duplicate and delete with confirmation', async ({ page }
 	await expect(page.getByTestId('plan-item')).toHaveCount(2);
 	await page.getByTestId('plan-item').filter({ hasText: '(copy)' }).getByRole('link', { name: 'Delete' }).click();
 	await expect(page.getByText('This cannot be undone.')).toBeVisible();
+	await page.setViewportSize({ width: 390, height: 844 });
+	const confirm = page.getByTestId('plan-item').filter({ hasText: '(copy)' });
+	for (const control of [confirm.getByRole('button', { name: 'Yes, delete it' }), confirm.getByRole('link', { name: 'Keep it' })])
+		expect((await control.boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	await page.getByRole('button', { name: 'Yes, delete it' }).click();
 	await expect(page.getByTestId('plan-item')).toHaveCount(1);
 	await expect(page.getByTestId('plan-item')).toContainText('Patio by the oak');

@@ -26,6 +26,20 @@ async function openDemoPlan(page: Page, planId: string) {
 	return errors;
 }
 
+/**
+ * The smallest stake id's size on screen, in CSS px: its font size in drawing units times the
+ * drawing's scale (its shown width over its viewBox width).
+ */
+async function smallestStakeId(page: Page) {
+	return page.getByTestId('layout-drawing').evaluate((svg) => {
+		const scale = svg.getBoundingClientRect().width / (svg as unknown as SVGSVGElement).viewBox.baseVal.width;
+		const sizes = [...svg.querySelectorAll('text')]
+			.filter((t) => /^S\d+$/.test(t.textContent ?? ''))
+			.map((t) => parseFloat(getComputedStyle(t).fontSize) * scale);
+		return sizes.length ? Math.min(...sizes) : 0;
+	});
+}
+
 test('the plan page opens with the build card and carries a layout sheet with squaring diagonals, on screen and in print', async ({ page }) => {
 	const errors = await openDemoPlan(page, 'lind-back-patio');
 	// The demo back patio: 14 × 12 ft, 4 in thick on 4 in of base (fixtures/demo-plans.json).
@@ -59,6 +73,9 @@ test('the plan page opens with the build card and carries a layout sheet with sq
 	expect(stakeIds.length).toBeGreaterThan(4);
 	for (const id of stakeIds) await expect(sheet.getByRole('rowheader', { name: id, exact: true })).toBeVisible();
 	await page.screenshot({ path: 'test-results/screens/plan-layout-sheet.png', fullPage: true });
+	// On a desktop the stake ids read at 12 px (they were about 8 px: paper sizes scaled to the screen).
+	await page.setViewportSize({ width: 1366, height: 768 });
+	await expect.poll(() => smallestStakeId(page)).toBeGreaterThanOrEqual(11.9);
 
 	// The print view keeps the build card and the layout sheet and drops the buttons.
 	await page.emulateMedia({ media: 'print' });
@@ -115,6 +132,8 @@ test('a metric plan in two pours on a phone: corners carry the section number an
 	await expect(page.getByTestId('build-card')).toBeVisible();
 	await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
 	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+	// Stake ids at 11 px on a phone (they were about 4 px), placed clear of each other (layoutDrawing.spec).
+	await expect.poll(() => smallestStakeId(page)).toBeGreaterThanOrEqual(10.9);
 	await page.screenshot({ path: 'test-results/screens/plan-layout-sheet-390.png', fullPage: true });
 	const card = page.getByTestId('build-card');
 	// 100 mm slab + 100 mm thickened-edge trench; no base under the thickened edges (as the base volume lays it).

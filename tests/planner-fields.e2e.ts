@@ -194,6 +194,25 @@ async function fillEveryStep(page: Page) {
 
 	await goTo(page, 'Build-up');
 	await fillStep(page, typed);
+	// Depths out of range stay in the field, marked, with the range and unit; typing a good one clears it.
+	// Bounds: boards 2–16 in, the trench 2–24 in below the slab (common practice, no published source).
+	for (const [id, bad, why] of [
+		['custom-depth', '1', 'Enter the board depth, 2–16 in.'],
+		['custom-depth', '17', 'Enter the board depth, 2–16 in.'],
+		['edge-depth', '1', 'Enter the trench depth below the slab, 2–24 in.'],
+		['edge-depth', '25', 'Enter the trench depth below the slab, 2–24 in.']
+	]) {
+		const field = stepBody(page).locator(`#${id}`);
+		await field.fill(bad);
+		await field.blur();
+		await expect(field).toHaveValue(bad);
+		await expect(field).toHaveAttribute('aria-invalid', 'true');
+		await expect(stepBody(page).locator(`#${id}-error`)).toHaveText(why);
+		await field.fill(typed[id]);
+		await field.blur();
+		await expect(field).not.toHaveAttribute('aria-invalid');
+		await expect(stepBody(page).locator(`#${id}-error`)).toHaveCount(0);
+	}
 	await goTo(page, 'Crew');
 	await fillStep(page, typed);
 	await goTo(page, 'Review');

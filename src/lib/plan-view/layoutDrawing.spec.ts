@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
 import { layoutSheet } from '$lib/plan/layout-sheet';
 import { buildCardItems } from './buildCard';
-import { labelBox, layoutDrawing, type LayoutDrawing } from './layoutDrawing';
+import { LABEL_SIZE, labelBox, layoutDrawing, PHONE_LABEL_SIZE, SCREEN_LABEL_SIZE, type LayoutDrawing } from './layoutDrawing';
 import demoPlans from '../../../fixtures/demo-plans.json' with { type: 'json' };
 import { cornerEll } from '$lib/plan/test-plans';
 
@@ -167,7 +167,7 @@ function clashes(d: LayoutDrawing): string[] {
 		...d.diagonals,
 		...(d.high ? [d.high] : [])
 	];
-	const boxes = d.labels.map((l) => ({ l, b: labelBox(l) }));
+	const boxes = d.labels.map((l) => ({ l, b: labelBox(l, d.labelSize) }));
 	const out: string[] = [];
 	for (const [i, { l, b }] of boxes.entries()) {
 		if (lines.some((s) => crosses(s.from, s.to, b))) out.push(`${l.kind} ${l.text} on a line`);
@@ -188,15 +188,31 @@ describe('labels keep clear of each other and of the drawing', () => {
 		['L around a house corner', computePlan(cornerEll)] as const,
 		['two pours', twoPours] as const
 	];
-	// The plan page's box and the PDF's (a Letter page less its margins).
+	// The PDF's box (a Letter page less its margins), the print copy's, and the plan page's at a
+	// desktop's 768 px and a phone's 310 px column, where labels are drawn at screen sizes.
 	for (const [name, plan] of plans)
 		for (const box of [
-			{ width: 640, height: 480 },
-			{ width: 504, height: 300 }
+			{ width: 504, height: 300 },
+			{ width: 480, height: 360 },
+			{ width: 768, height: 576, labelSize: SCREEN_LABEL_SIZE },
+			{ width: 310, height: 465, labelSize: PHONE_LABEL_SIZE }
 		])
-			it(`${name}, ${box.width} × ${box.height}`, () => {
+			it(`${name}, ${box.width} × ${box.height}${box.labelSize ? ', screen labels' : ''}`, () => {
 				const d = layoutDrawing(plan, layoutSheet(plan), box);
 				expect(d.labels.length).toBeGreaterThan(8);
 				expect(clashes(d)).toEqual([]);
 			});
+});
+
+describe('label sizes', () => {
+	it('draws stake ids at 12 units on screen (1 unit = 1 CSS px there) and at the paper sizes elsewhere', () => {
+		const plan = computePlan(cornerEll);
+		const screen = layoutDrawing(plan, layoutSheet(plan), { width: 768, height: 576, labelSize: SCREEN_LABEL_SIZE });
+		expect(screen.labelSize.stake).toBe(12);
+		expect(Math.min(...Object.values(screen.labelSize))).toBeGreaterThanOrEqual(12);
+		// Larger labels leave a larger margin: the slab is drawn smaller in the same box.
+		const paper = layoutDrawing(plan, layoutSheet(plan), { width: 768, height: 576 });
+		expect(paper.labelSize).toEqual(LABEL_SIZE);
+		expect(screen.scale).toBeLessThan(paper.scale);
+	});
 });

@@ -30,14 +30,18 @@ export interface LayoutDrawing {
 	stakes: { id: string; at: Pt }[];
 	start: Pt | null;
 	labels: DrawnLabel[];
+	/** Font size of each label kind, in drawing units: the renderers draw the labels at these sizes. */
+	labelSize: LabelSizes;
 	/** Drawing units per plan unit (ft or m). */
 	scale: number;
 }
 
+export type LabelSizes = Record<DrawnLabel['kind'], number>;
+
 export type DrawingPlan = Pick<PlanResult, 'units' | 'geometry' | 'joints' | 'forms' | 'elevations'>;
 
-/** Room around the slab for letters, board ids and stake numbers, in drawing units. */
-const MARGIN = 34;
+/** Room around the slab for letters, board ids and stake numbers, in drawing units at LABEL_SIZE. */
+const BASE_MARGIN = 34;
 
 /** The unit vector from a to b (plan or drawing units alike). */
 function unit(a: readonly [number, number], b: readonly [number, number]): Pt {
@@ -45,7 +49,15 @@ function unit(a: readonly [number, number], b: readonly [number, number]): Pt {
 	return [(b[0] - a[0]) / len, (b[1] - a[1]) / len];
 }
 
-export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: number; height: number }): LayoutDrawing {
+/**
+ * `box.labelSize` sets the label sizes (default LABEL_SIZE, for paper); the gaps between a label and
+ * what it names, and the margin, grow with them.
+ */
+export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: number; height: number; labelSize?: LabelSizes }): LayoutDrawing {
+	const size = box.labelSize ?? LABEL_SIZE;
+	// How much larger than on paper each kind is drawn: its offsets grow by as much.
+	const larger = (kind: DrawnLabel['kind']) => size[kind] / LABEL_SIZE[kind];
+	const MARGIN = BASE_MARGIN * Math.max(...KINDS.map(larger));
 	const pts = r.geometry.sections.flatMap((s) => s.outline);
 	const [x0, x1] = [Math.min(...pts.map((p) => p[0])), Math.max(...pts.map((p) => p[0]))];
 	const [y0, y1] = [Math.min(...pts.map((p) => p[1])), Math.max(...pts.map((p) => p[1]))];
@@ -83,7 +95,13 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 			if (shared) shared.text = `${shared.text}/${text}`;
 			else {
 				const dir: Pt = [bis[0] / k, bis[1] / k];
-				const label: Wanted = { kind: 'corner', text, at: [at[0] + dir[0] * 14, at[1] + dir[1] * 14], normal: dir, tangent: [-dir[1], dir[0]] };
+				const label: Wanted = {
+					kind: 'corner',
+					text,
+					at: [at[0] + dir[0] * 14 * larger('corner'), at[1] + dir[1] * 14 * larger('corner')],
+					normal: dir,
+					tangent: [-dir[1], dir[0]]
+				};
 				cornerAt.set(key, label);
 				labels.push(label);
 			}
@@ -96,7 +114,8 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 				// Outside the slab, two thirds along: clear of the board id (a third along) and the stakes.
 				const at = P([a[0] + (b[0] - a[0]) * 0.65, a[1] + (b[1] - a[1]) * 0.65]);
 				const nn = out(e.index);
-				labels.push({ kind: 'high', text: 'HIGH SIDE', at: [at[0] + nn[0] * 22, at[1] + nn[1] * 22], normal: nn, tangent: unit(a, b) });
+				const off = 22 * larger('high');
+				labels.push({ kind: 'high', text: 'HIGH SIDE', at: [at[0] + nn[0] * off, at[1] + nn[1] * off], normal: nn, tangent: unit(a, b) });
 			}
 			if (e.kind === 'coldJoint') continue;
 			const mid = P([(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]);
@@ -105,7 +124,7 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 			labels.push({
 				kind: 'length',
 				text: tapeLength(e.length, r.units),
-				at: [mid[0] - nn[0] * 10, mid[1] - nn[1] * 10],
+				at: [mid[0] - nn[0] * 10 * larger('length'), mid[1] - nn[1] * 10 * larger('length')],
 				normal: [-nn[0], -nn[1]],
 				tangent: unit(a, b)
 			});
@@ -124,12 +143,14 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 		if (!run.formed) continue;
 		// A third of the way along, so the id does not sit on the length label's line of sight.
 		const at = P([run.from[0] + (run.to[0] - run.from[0]) * 0.35, run.from[1] + (run.to[1] - run.from[1]) * 0.35]);
-		labels.push({ kind: 'board', text: run.id, at: [at[0] + out[0] * 22, at[1] + out[1] * 22], normal: out, tangent: [t[0], t[1]] });
+		const off = 22 * larger('board');
+		labels.push({ kind: 'board', text: run.id, at: [at[0] + out[0] * off, at[1] + out[1] * off], normal: out, tangent: [t[0], t[1]] });
 	}
 	const stakes = r.elevations.stakes.map((s) => ({ id: s.id, at: P([s.x, s.y]), run: s.run }));
 	for (const s of stakes) {
 		const out = runOut.get(s.run) ?? [0, 1];
-		labels.push({ kind: 'stake', text: s.id, at: [s.at[0] + out[0] * 9, s.at[1] + out[1] * 9], normal: out, tangent: [-out[1], out[0]] });
+		const off = 9 * larger('stake');
+		labels.push({ kind: 'stake', text: s.id, at: [s.at[0] + out[0] * off, s.at[1] + out[1] * off], normal: out, tangent: [-out[1], out[0]] });
 	}
 	const diagonals = sheet.diagonals.flatMap((d) => {
 		const o = r.geometry.sections[d.section].outline;
@@ -169,7 +190,8 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 		diagonals,
 		stakes: stakes.map((s) => ({ id: s.id, at: s.at })),
 		start,
-		labels: placeLabels(wanted, drawn, dots, { width, height })
+		labelSize: size,
+		labels: placeLabels(wanted, drawn, dots, { width, height }, size)
 	};
 }
 
@@ -178,11 +200,19 @@ export function layoutDrawing(r: DrawingPlan, sheet: LayoutSheet, box: { width: 
 // before it (and inside the drawing). Both renderers draw the labels at these sizes.
 
 /** Font size of each label kind, in drawing units (SVG px, PDF pt). */
-export const LABEL_SIZE: Record<DrawnLabel['kind'], number> = { corner: 11, high: 9, length: 8, board: 9, stake: 7 };
+export const LABEL_SIZE: LabelSizes = { corner: 11, high: 9, length: 8, board: 9, stake: 7 };
+const KINDS = Object.keys(LABEL_SIZE) as DrawnLabel['kind'][];
+/**
+ * On screen the drawing is laid out in CSS px at the width it is shown, with labels at least 12 px
+ * (paper's 7-unit stake ids were about 8 px on a desktop and 4 px on a phone).
+ */
+export const SCREEN_LABEL_SIZE: LabelSizes = { corner: 16, high: 13, length: 12, board: 13, stake: 12 };
+/** A phone's column (under 480 px) has room for one size less. */
+export const PHONE_LABEL_SIZE: LabelSizes = { corner: 14, high: 11, length: 11, board: 12, stake: 11 };
 
 /** The box a label's text takes, centred on its point (a generous 0.62 em per character). */
-export function labelBox(l: Pick<DrawnLabel, 'at' | 'text' | 'kind'>): Box {
-	const size = LABEL_SIZE[l.kind];
+export function labelBox(l: Pick<DrawnLabel, 'at' | 'text' | 'kind'>, sizes: LabelSizes = LABEL_SIZE): Box {
+	const size = sizes[l.kind];
 	const w = l.text.length * size * 0.62;
 	return { x0: l.at[0] - w / 2, y0: l.at[1] - size * 0.6, x1: l.at[0] + w / 2, y1: l.at[1] + size * 0.6 };
 }
@@ -226,11 +256,12 @@ type Wanted = DrawnLabel & { normal: Pt; tangent: Pt };
 /** Offsets to try, nearest first: out along the label's normal, then sideways along its line. */
 const TRIES: [number, number][] = (() => {
 	const out: [number, number][] = [];
-	for (const n of [0, 4, 8, 12, 16, 22, 28, 36, -6, -12, -20, -30, -42, -56]) for (const t of [0, 8, -8, 16, -16, 26, -26, 38, -38, 52, -52]) out.push([n, t]);
+	for (const n of [0, 4, 8, 12, 16, 22, 28, 36, 46, -6, -12, -20, -30, -42, -56])
+		for (const t of [0, 8, -8, 16, -16, 26, -26, 38, -38, 52, -52, 68, -68]) out.push([n, t]);
 	return out.sort((p, q) => Math.abs(p[0]) + Math.abs(p[1]) * 0.8 - (Math.abs(q[0]) + Math.abs(q[1]) * 0.8));
 })();
 
-function placeLabels(wanted: Wanted[], lines: DrawnLine[], dots: Box[], size: { width: number; height: number }): DrawnLabel[] {
+function placeLabels(wanted: Wanted[], lines: DrawnLine[], dots: Box[], size: { width: number; height: number }, sizes: LabelSizes): DrawnLabel[] {
 	const placed: Box[] = [];
 	const out: DrawnLabel[] = [];
 	const pad = 1.5;
@@ -244,9 +275,12 @@ function placeLabels(wanted: Wanted[], lines: DrawnLine[], dots: Box[], size: { 
 	const tries = wanted.length > 250 ? TRIES.slice(0, 12) : TRIES;
 	for (const w of wanted) {
 		let best: { at: Pt; box: Box; n: number } | null = null;
-		for (const [n, t] of tries) {
+		// Larger labels step further between tries, as far as the paper size steps are to its labels.
+		const k = sizes[w.kind] / LABEL_SIZE[w.kind];
+		for (const [n0, t0] of tries) {
+			const [n, t] = [n0 * k, t0 * k];
 			const at: Pt = [w.at[0] + w.normal[0] * n + w.tangent[0] * t, w.at[1] + w.normal[1] * n + w.tangent[1] * t];
-			const box = grow(labelBox({ ...w, at }));
+			const box = grow(labelBox({ ...w, at }, sizes));
 			const count = hits(box);
 			if (!best || count < best.n) best = { at, box, n: count };
 			if (count === 0) break;

@@ -170,4 +170,11 @@ describe('plan-specific cautions', () => {
 		expect(ids({ sections: [{ outline: rect(0, 0, 20, 16) }] })).toContain('mixing-time');
 		expect(ids({ base: { depth: 0 } })).toContain('no-base'); // IRC R506.2.2
 	});
+
+	it('names every late section in one sentence: "A needs", "A and B need up to"', () => {
+		const reason = (sections: PlanInput['sections']) =>
+			computePlan({ ...base, houseEdge: null, sections } as PlanInput).cautions.find((c) => c.id === 'mixing-time')?.reason ?? '';
+		expect(reason([{ outline: rect(0, 0, 20, 16) }])).toMatch(/^Section 1 needs \d+ min of mixing/);
+		expect(reason([{ outline: rect(0, 0, 20, 16) }, { outline: rect(20, 0, 20, 16) }])).toMatch(/^Section 1 and Section 2 need up to \d+ min of mixing/);
+	});
 });

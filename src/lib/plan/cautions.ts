@@ -358,13 +358,16 @@ const crew: Rule[] = [
 		return {
 			id: 'mixing-time',
 			title: 'The crew cannot place a section before it stiffens',
-			reason: `${late.map((s) => m.sections[s.index].name).join(', ')} needs ${Math.round(Math.max(...late.map((s) => s.totalMinutes)))} min of mixing and placing against ${Math.round(Math.min(...late.map((s) => s.workingMinutes)))} min of working time, with ${late[0].finishMinutes} min kept for finishing.`,
+			reason: `${andList(late.map((s) => m.sections[s.index].name))} ${late.length > 1 ? 'need up to' : 'needs'} ${Math.round(Math.max(...late.map((s) => s.totalMinutes)))} min of mixing and placing against ${Math.round(Math.min(...late.map((s) => s.workingMinutes)))} min of working time, with ${late[0].finishMinutes} min kept for finishing.`,
 			action: 'Split the section as suggested in the mixing plan, add people or a drum mixer, or order ready-mix.',
 			source: 'common practice (1½–2 h working time at 70 °F), no published source',
 			severity: 'warning'
 		};
 	}
 ];
+
+/** "A", "A and B", "A, B and C". */
+const andList = (names: string[]) => (names.length > 1 ? `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}` : (names[0] ?? ''));
 
 const build: Rule[] = [
 	({ m }) =>

@@ -76,23 +76,46 @@ export function plannedCuringReminders(input: unknown): { pourDate: string | nul
 	return { pourDate, days: pourDate ? curingReminders(input, pourDate) : [] };
 }
 
+/** The plan as its reminders and calendar count it: from one first-pour date, and whether the pour log gave it. */
+export interface PlanAsLogged {
+	/** The first pour's date the days count from; null when the plan has none and nothing was started. */
+	pourDate: string | null;
+	/** The plan's own pour date (null when it has none). */
+	plannedDate: string | null;
+	/** True when pourDate is the day the pour log records, not the planned one. */
+	logged: boolean;
+	plan: ParsedPlan;
+	/** The plan computed for pourDate: its day plan, pour days and milestones on the calendar. */
+	result: PlanResult;
+}
+
 /**
- * The reminders counted from the pour date the pour log records when the crew has started a pour
+ * The plan computed from the pour date the pour log records once the crew has started a pour
  * (`logged: true`), else from the plan's own pour date. A start logged on another day than planned
- * moves every reminder with it.
+ * moves every date with it. The curing reminders and the calendar file both read this, so they
+ * always agree. Null when the input does not parse.
  */
-export function curingRemindersFor(input: unknown, records: readonly PourRecord[]): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
-	if (records.length) {
-		const parsed = parsePlanInput(input);
-		if (parsed.ok) {
-			const loggedDate = loggedFirstPourDate(
+export function planAsLogged(input: unknown, records: readonly PourRecord[]): PlanAsLogged | null {
+	const parsed = parsePlanInput(input);
+	if (!parsed.ok) return null;
+	const planned = computeParsedPlan(parsed.plan);
+	const plannedDate = parsed.plan.conditions.pourDate ?? null;
+	const loggedDate = records.length
+		? loggedFirstPourDate(
 				foldRecords(records),
-				computeParsedPlan(parsed.plan).schedule.pourDays.map((p) => p.day)
-			);
-			if (loggedDate) return { pourDate: loggedDate, days: curingReminders(input, loggedDate), logged: true };
-		}
-	}
-	return { ...plannedCuringReminders(input), logged: false };
+				planned.schedule.pourDays.map((p) => p.day)
+			)
+		: null;
+	if (!loggedDate) return { pourDate: plannedDate, plannedDate, logged: false, plan: parsed.plan, result: planned };
+	const plan: ParsedPlan = { ...parsed.plan, conditions: { ...parsed.plan.conditions, pourDate: loggedDate } };
+	return { pourDate: loggedDate, plannedDate, logged: true, plan, result: computeParsedPlan(plan) };
+}
+
+/** The reminders counted as planAsLogged counts: from the logged first-pour day once there is one. */
+export function curingRemindersFor(input: unknown, records: readonly PourRecord[]): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
+	const d = planAsLogged(input, records);
+	if (!d?.pourDate) return { pourDate: null, days: [], logged: false };
+	return { pourDate: d.pourDate, days: curingDaysOf(d.result, d.plan.curing.method), logged: d.logged };
 }
 
 /** The reminder days of a plan already computed with a pour date. */

@@ -214,6 +214,30 @@ describe('messages in plain words', () => {
 		expect(messageAt({ currency: 'CAD', prices: { stake: -1 } }, 'prices.stake')).toBe('Enter the stake price, 0–1,000,000 CAD.');
 	});
 
+	it('bound a custom board depth and a thickened edge’s depth below the slab, in both units', () => {
+		// common practice, no published source: boards 2–16 in (50–400 mm), trench 2–24 in (50–600 mm) below the slab.
+		const board = (units: string, customDepth: number) => messageAt({ units, forms: { lumber: 'custom', customDepth } }, 'forms.customDepth');
+		const trench = (units: string, extraDepth: number) => messageAt({ units, thickenedEdge: { edges: 'free', extraDepth } }, 'thickenedEdge.extraDepth');
+		expect(board('imperial', 1)).toBe('Enter the board depth, 2–16 in.');
+		expect(board('imperial', 17)).toBe('Enter the board depth, 2–16 in.');
+		expect(board('metric', 1)).toBe('Enter the board depth, 50–400 mm.');
+		expect(board('metric', 401)).toBe('Enter the board depth, 50–400 mm.');
+		expect(trench('imperial', 1)).toBe('Enter the trench depth below the slab, 2–24 in.');
+		expect(trench('imperial', 25)).toBe('Enter the trench depth below the slab, 2–24 in.');
+		expect(trench('metric', 1)).toBe('Enter the trench depth below the slab, 50–600 mm.');
+		expect(trench('metric', 601)).toBe('Enter the trench depth below the slab, 50–600 mm.');
+		// The ends of each range are taken.
+		for (const [units, d, t] of [
+			['imperial', 2, 2],
+			['imperial', 16, 24],
+			['metric', 50, 50],
+			['metric', 400, 600]
+		] as const)
+			expect(parsePlanInput({ ...base, units, forms: { lumber: 'custom', customDepth: d }, thickenedEdge: { edges: 'free', extraDepth: t } }).ok).toBe(true);
+		// Custom lumber with no depth says the range too.
+		expect(messageAt({ forms: { lumber: 'custom' } }, 'forms.customDepth')).toBe('Enter the board depth for custom lumber, 2–16 in.');
+	});
+
 	it('give every number field a message with its range, never the validator’s text', () => {
 		const s = planInputJsonSchema() as { oneOf: { properties: Record<string, { type?: string; properties?: Record<string, { type?: string }> }> }[] };
 		let checked = 0;

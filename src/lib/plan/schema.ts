@@ -138,7 +138,14 @@ function planSchemaFor<U extends Units>(units: U) {
 		forms: withDefaults(
 			z.strictObject({
 				lumber: z.enum([...LUMBER_SIZES, 'custom']).default('2x4'),
-				customDepth: smallDim.optional().describe(`Board depth, ${S}, when lumber is custom.`),
+				// common practice, no published source: a form board stands at least a thin slab's
+				// 2 in (50 mm) deep and no deeper than two 2x8s stacked, 16 in (400 mm).
+				customDepth: z
+					.number()
+					.min(imp ? 2 : 50)
+					.max(imp ? 16 : 400)
+					.optional()
+					.describe(`Board depth, ${S}, when lumber is custom.`),
 				stakeSpacing: z
 					.number()
 					.min(imp ? 1 : 0.3)
@@ -167,7 +174,14 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default('none')
 					.describe("'free' thickens every edge not along the house or a cold joint."),
 				width: smallDim.default(d.edgeWidth).describe(`Trench width, ${S}; common practice, no published source.`), // from memory
-				extraDepth: smallDim.optional().describe(`Depth below the slab, ${S}; defaults to the thickness (common practice).`),
+				// common practice, no published source: a thickened edge goes about the slab's own
+				// thickness below it (twice the slab deep in all); 2–24 in (50–600 mm) holds any slab here.
+				extraDepth: z
+					.number()
+					.min(imp ? 2 : 50)
+					.max(imp ? 24 : 600)
+					.optional()
+					.describe(`Depth below the slab, ${S}; defaults to the thickness (common practice).`),
 				profile: z
 					.enum(['rectangular', 'tapered'])
 					.default('rectangular')
@@ -424,7 +438,7 @@ function crossChecks(plan: Parsed): PlanIssue[] {
 	if (plan.forms.lumber === 'custom' && !plan.forms.customDepth)
 		issues.push({
 			path: 'forms.customDepth',
-			message: `Enter the board depth for custom lumber, 0–${plainNumber(DEFAULTS[plan.units].maxSmall)} ${plan.units === 'imperial' ? 'in' : 'mm'}.`
+			message: `Enter the board depth for custom lumber, ${plan.units === 'imperial' ? '2–16 in' : '50–400 mm'}.`
 		});
 	if (plan.fill && (plan.fill.volume === undefined) === (plan.fill.shareOfTrench === undefined))
 		issues.push({ path: 'fill', message: 'Give the fill as either a volume or a share of the trench, not both.' });

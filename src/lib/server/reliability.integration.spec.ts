@@ -114,6 +114,27 @@ describe('log lines', () => {
 	});
 });
 
+describe('the error hook', () => {
+	it('logs an address nothing answers as info with its path, and a failure as an error', () => {
+		const { logger, lines } = capture();
+		logger.level = 'info'; // whatever LOG_LEVEL this run has
+		const missing = serverErrorHandler(logger)({
+			error: new Error('Not found: /favicon.ico'),
+			event: fakeEvent('http://x/favicon.ico'),
+			status: 404,
+			message: 'Not Found'
+		});
+		expect(missing).toMatchObject({ message: 'Not Found' });
+		const broke = serverErrorHandler(logger)({ error: new Error('boom'), event: fakeEvent('http://x/plans'), status: 500, message: 'Internal Error' });
+		expect(broke).toMatchObject({ message: 'Something broke on our side.' });
+		// pino levels: 30 info, 50 error.
+		expect(lines.map((l) => [l.level, l.msg, l.path ?? null])).toEqual([
+			[30, 'not found', '/favicon.ico'],
+			[50, 'unexpected error', null]
+		]);
+	});
+});
+
 describe('idempotent plan create', () => {
 	it('ten parallel retries with one key make one plan and all get it back', async () => {
 		const me = await owner();

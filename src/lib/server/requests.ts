@@ -165,7 +165,13 @@ export function serverErrorHandler(logger: Logger = defaultLog): HandleServerErr
 			logger.warn({ requestId, err: error }, 'database unavailable');
 			return { message: UNAVAILABLE, requestId, unavailable: true };
 		}
+		// An address nothing answers (SvelteKit reports it here too) is the visitor's mistake, not ours:
+		// logged as such, so the error level stays for what needs a look.
+		if (status === 404) {
+			logger.info({ requestId, status, path: event.url.pathname }, 'not found');
+			return { message, requestId };
+		}
 		logger.error({ requestId, status, err: error }, 'unexpected error');
-		return { message: status === 404 ? message : 'Something broke on our side.', requestId };
+		return { message: 'Something broke on our side.', requestId };
 	};
 }

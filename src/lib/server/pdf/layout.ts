@@ -3,7 +3,7 @@
 
 import type PDFDocument from 'pdfkit';
 import { print as C } from '$lib/palette';
-import { LABEL_SIZE, type LayoutDrawing } from '$lib/plan-view/layoutDrawing';
+import type { LayoutDrawing } from '$lib/plan-view/layoutDrawing';
 import type { StrengthChart } from '$lib/plan-view';
 
 export type Doc = InstanceType<typeof PDFDocument>;
@@ -150,11 +150,11 @@ export function drawLayout(doc: Doc, d: LayoutDrawing, o: { x: number; y: number
 			.stroke();
 	doc.fillColor(C.sky);
 	for (const s of d.stakes) doc.rect(P(s.at)[0] - 2, P(s.at)[1] - 2, 4, 4).fill();
-	// Sizes from the drawing (LABEL_SIZE), which placed each label clear of the lines at that size.
+	// Sizes from the drawing (labelSize), which placed each label clear of the lines at that size.
 	const FONT = { corner: ['bold', C.ink], board: ['bold', C.clay], length: ['regular', C.soft], stake: ['regular', C.sky], high: ['bold', C.moss] } as const;
 	for (const l of d.labels) {
 		const [font, color] = FONT[l.kind];
-		const size = LABEL_SIZE[l.kind];
+		const size = d.labelSize[l.kind];
 		doc.font(font).fontSize(size).fillColor(color);
 		const txt = o.t(l.text);
 		const w = doc.widthOfString(txt);

@@ -5,6 +5,7 @@ import { largestPlan } from '$lib/plan/test-plans';
 import { POST } from './+server';
 import { GET } from './schema/+server';
 import { ESTIMATE_LIMIT } from '$lib/server/rate-limit';
+import { useTestDatabase } from '$lib/server/integration-setup';
 
 // Each call from its own address, so the per-client rate limit (tested below) stays out of the way.
 const post = (body: string, address = `test-${crypto.randomUUID()}`) =>
@@ -47,6 +48,9 @@ async function expectBad(res: Response, path?: string): Promise<{ path: string; 
 	if (path !== undefined) expect(body.errors.map((e: { path: string }) => e.path)).toContain(path);
 	return body.errors;
 }
+
+// The per-address limit is counted in PostgreSQL.
+useTestDatabase();
 
 describe('POST /api/estimate', () => {
 	it('is rate-limited per client address, with Retry-After and the limit in the message', async () => {

@@ -1,0 +1,27 @@
+// Shared by the yard journeys (offline fallback, desktop and print): a plain rectangular pad, the
+// axe check and the sideways-scroll check.
+import AxeBuilder from '@axe-core/playwright';
+import { expect, type Page } from '@playwright/test';
+
+/** A `width` × `depth` ft pad, two people mixing by hand, at `airTemp` °F, against the house when asked. */
+export const rectanglePlan = (width: number, depth: number, o: { airTemp: number; house: boolean }) => ({
+	units: 'imperial',
+	sections: [
+		{
+			outline: [
+				[0, 0],
+				[width, 0],
+				[width, depth],
+				[0, depth]
+			]
+		}
+	],
+	houseEdge: o.house ? { section: 0, edge: 0 } : null,
+	crew: { people: 2, method: 'hand' },
+	conditions: { airTemp: o.airTemp, humidity: 50, wind: 5 }
+});
+
+export const axeClean = async (page: Page) => expect((await new AxeBuilder({ page }).analyze()).violations).toEqual([]);
+
+export const noSidewaysScroll = async (page: Page) =>
+	expect(await page.evaluate(() => document.documentElement.scrollWidth <= document.documentElement.clientWidth)).toBe(true);
