@@ -4,3 +4,4 @@
 
 export * from './text';
 export * from './rows';
+export * from './strengthChart';

@@ -3,6 +3,7 @@
 // The engine loads after the wizard's first paint: until then no default is shown.
 import type { ParsedPlan, Units } from '$lib/plan';
 import { engine } from './engine.svelte';
+import { valueAt } from './fieldPath';
 
 const cache: Partial<Record<Units, ParsedPlan>> = {};
 
@@ -29,9 +30,7 @@ function defaultsFor(units: Units): ParsedPlan | undefined {
 
 /** The default at a dotted path ("forms.stakeLength"), or undefined when the field has none. */
 export function fieldDefault(units: Units, path: string): unknown {
-	let v: unknown = defaultsFor(units);
-	for (const k of path.split('.')) v = v && typeof v === 'object' ? (v as Record<string, unknown>)[k] : undefined;
-	return v;
+	return valueAt(defaultsFor(units), path);
 }
 
 /** "Default: 18 in." / "Default: 0.08." for a number field; '' when the field has no number default. */

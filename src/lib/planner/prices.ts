@@ -1,11 +1,12 @@
 // The wizard's price fields, read from the schema's prices object. Each has a label saying what it
 // is, per what unit it is priced, and in which currency; a spec checks that every price key the
 // schema has is labelled here.
-import { planInputSchema, type Units } from '$lib/plan';
+import { planInputSchema, type ParsedPlan, type Units } from '$lib/plan';
 
 const [imperial] = planInputSchema.options;
 /** The price keys of the schema's prices object, in its order. */
-export const PRICE_KEYS = Object.keys(imperial.shape.prices.unwrap().shape);
+export const PRICE_KEYS = Object.keys(imperial.shape.prices.unwrap().shape) as PriceKey[];
+export type PriceKey = keyof ParsedPlan['prices'];
 
 type Label = { what: string; per: Record<Units, string> };
 const both = (per: string): Record<Units, string> => ({ imperial: per, metric: per });
@@ -31,7 +32,7 @@ export const PRICE_LABELS: Record<string, Label> = {
 /** "Gravel for the base, USD per yd³": what, in which currency, per what. */
 export const priceLabel = (what: string, per: string, currency: string) => `${what}, ${currency} ${per}`;
 
-export function priceFields(units: Units, currency = 'USD'): { key: string; label: string }[] {
+export function priceFields(units: Units, currency = 'USD'): { key: PriceKey; label: string }[] {
 	return PRICE_KEYS.map((key) => {
 		const l = PRICE_LABELS[key] ?? { what: key, per: both('each') };
 		return { key, label: priceLabel(l.what, l.per[units], currency) };

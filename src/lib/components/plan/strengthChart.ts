@@ -2,37 +2,28 @@
 // imported here on demand, in the browser only, with just the parts a line chart needs.
 
 import type { Plugin } from 'chart.js';
-import { formatPercent } from '$lib/plan-view';
+import { formatPercent, type StrengthChart } from '$lib/plan-view';
 import { tokens } from '$lib/palette';
-
-export interface Pin {
-	day: number;
-	percent: number;
-	/** The milestone's number in the list under the chart. */
-	n: number;
-}
 
 const token = (el: Element, name: string, fallback: string) => getComputedStyle(el).getPropertyValue(name).trim() || fallback;
 
-/** Numbered dashed lines at each milestone day; two milestones on one day share a line. */
-function milestoneLines(pins: Pin[], color: string): Plugin<'line'> {
+/** The numbered dashed milestone lines (two milestones on one day share a line). */
+function milestoneLines(lines: StrengthChart['lines'], color: string): Plugin<'line'> {
 	return {
 		id: 'milestoneLines',
 		afterDatasetsDraw({ ctx, chartArea, scales }) {
-			const byDay = new Map<number, number[]>();
-			for (const p of pins) byDay.set(p.day, [...(byDay.get(p.day) ?? []), p.n]);
 			ctx.save();
 			ctx.strokeStyle = ctx.fillStyle = color;
 			ctx.setLineDash([4, 4]);
 			ctx.font = 'bold 12px Nunito, sans-serif';
 			ctx.textAlign = 'center';
-			for (const [day, ns] of byDay) {
+			for (const { day, label } of lines) {
 				const x = scales.x.getPixelForValue(day);
 				ctx.beginPath();
 				ctx.moveTo(x, chartArea.top + 14);
 				ctx.lineTo(x, chartArea.bottom);
 				ctx.stroke();
-				ctx.fillText(ns.join('·'), x, chartArea.top + 10);
+				ctx.fillText(label, x, chartArea.top + 10);
 			}
 			ctx.restore();
 		}
@@ -40,7 +31,7 @@ function milestoneLines(pins: Pin[], color: string): Plugin<'line'> {
 }
 
 /** Draws the chart; resolves to a function that removes it. */
-export async function drawStrengthChart(canvas: HTMLCanvasElement, points: { x: number; y: number }[], pins: Pin[]): Promise<() => void> {
+export async function drawStrengthChart(canvas: HTMLCanvasElement, chart: StrengthChart): Promise<() => void> {
 	const { Chart, LineController, LineElement, PointElement, LinearScale, Tooltip } = await import('chart.js');
 	Chart.register(LineController, LineElement, PointElement, LinearScale, Tooltip);
 	Chart.defaults.font.family = 'Nunito, sans-serif';
@@ -51,14 +42,21 @@ export async function drawStrengthChart(canvas: HTMLCanvasElement, points: { x: 
 	const axis = (text: string) => ({ display: true, text, color: ink });
 	// An effect that re-ran while chart.js was loading may have drawn here first: one chart per canvas.
 	Chart.getChart(canvas)?.destroy();
-	const chart = new Chart(canvas, {
+	const drawn = new Chart(canvas, {
 		type: 'line',
 		data: {
 			datasets: [
-				{ label: '% of 28-day strength', data: points, borderColor: moss, backgroundColor: moss, pointRadius: 2, tension: 0.25 },
+				{
+					label: chart.y.title,
+					data: chart.points.map((p) => ({ x: p.day, y: p.percent })),
+					borderColor: moss,
+					backgroundColor: moss,
+					pointRadius: 2,
+					tension: 0.25
+				},
 				{
 					label: 'Milestone',
-					data: pins.map((p) => ({ x: p.day, y: p.percent })),
+					data: chart.pins.map((p) => ({ x: p.day, y: p.percent })),
 					showLine: false,
 					pointStyle: 'rectRot',
 					pointRadius: 7,
@@ -71,13 +69,12 @@ export async function drawStrengthChart(canvas: HTMLCanvasElement, points: { x: 
 			animation: false,
 			maintainAspectRatio: false,
 			scales: {
-				x: { type: 'linear', min: 0, max: points.length, title: axis('Days after the last pour'), ticks: { stepSize: 7, color: ink }, grid },
-				// Warm weather can pass 100 % of the 28-day strength before day 28: let the axis grow.
-				y: { type: 'linear', min: 0, suggestedMax: 100, title: axis('% of 28-day strength'), ticks: { color: ink }, grid }
+				x: { type: 'linear', min: 0, max: chart.x.max, title: axis(chart.x.title), ticks: { stepSize: chart.x.step, color: ink }, grid },
+				y: { type: 'linear', min: 0, max: chart.y.max, title: axis(chart.y.title), ticks: { stepSize: chart.y.step, color: ink }, grid }
 			},
 			plugins: { tooltip: { callbacks: { label: (i) => `Day ${i.parsed.x}: ${formatPercent(i.parsed.y ?? 0)}` } } }
 		},
-		plugins: [milestoneLines(pins, clay)]
+		plugins: [milestoneLines(chart.lines, clay)]
 	});
-	return () => chart.destroy();
+	return () => drawn.destroy();
 }

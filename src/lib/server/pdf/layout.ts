@@ -3,9 +3,8 @@
 
 import type PDFDocument from 'pdfkit';
 import { print as C } from '$lib/palette';
-import type { PlanResult } from '$lib/plan';
 import type { LayoutDrawing } from '$lib/plan-view/layoutDrawing';
-import type { MilestoneRow } from '$lib/plan-view';
+import type { StrengthChart } from '$lib/plan-view';
 
 export type Doc = InstanceType<typeof PDFDocument>;
 
@@ -74,19 +73,17 @@ export function pageWriter(doc: Doc, t: (s: string) => string) {
 	return { left, width, bottom, room, text, heading, table };
 }
 
-/** A small vector line chart of percent strength by day, milestones as numbered dashed lines. */
-export function strengthChart(doc: Doc, days: PlanResult['strength'], stones: MilestoneRow[], o: { x: number; width: number; t: (s: string) => string }) {
+/** A small vector line chart of percent strength by day, milestones as numbered dashed lines: the page's chart geometry, drawn for print. */
+export function drawStrengthChart(doc: Doc, chart: StrengthChart, o: { x: number; width: number; t: (s: string) => string }) {
 	const h = 130;
 	if (doc.y + h + 40 > doc.page.height - doc.page.margins.bottom) doc.addPage();
 	const top = doc.y + 8;
 	const x0 = o.x + 30;
 	const w = o.width - 40;
-	// Warm weather can pass 100 % before day 28: grow the axis in steps of 25 %.
-	const yMax = Math.max(100, Math.ceil(Math.max(...days.map((d) => d.percent)) / 25) * 25);
-	const px = (day: number) => x0 + (day / days.length) * w;
-	const py = (pct: number) => top + h - (pct / yMax) * h;
+	const px = (day: number) => x0 + (day / chart.x.max) * w;
+	const py = (pct: number) => top + h - (pct / chart.y.max) * h;
 	doc.save().lineWidth(0.5).strokeColor(C.line);
-	for (let pct = 0; pct <= yMax; pct += 25) {
+	for (const pct of chart.y.ticks) {
 		doc
 			.moveTo(x0, py(pct))
 			.lineTo(x0 + w, py(pct))
@@ -97,26 +94,25 @@ export function strengthChart(doc: Doc, days: PlanResult['strength'], stones: Mi
 			.fillColor(C.soft)
 			.text(`${pct} %`, o.x, py(pct) - 3, { width: 26, align: 'right', lineBreak: false });
 	}
-	for (let d = 0; d <= days.length; d += 7) doc.text(String(d), px(d) - 10, top + h + 4, { width: 20, align: 'center', lineBreak: false });
-	doc.text(o.t('Days after the last pour'), x0, top + h + 14, { width: w, align: 'center', lineBreak: false });
-	stones.forEach((m, i) => {
-		if (m.day === null || m.percent === undefined) return;
+	for (const d of chart.x.ticks) doc.text(String(d), px(d) - 10, top + h + 4, { width: 20, align: 'center', lineBreak: false });
+	doc.text(o.t(chart.x.title), x0, top + h + 14, { width: w, align: 'center', lineBreak: false });
+	for (const { day, label } of chart.lines) {
 		doc
 			.save()
 			.dash(3, { space: 3 })
 			.strokeColor(C.clay)
-			.moveTo(px(m.day), top)
-			.lineTo(px(m.day), top + h)
+			.moveTo(px(day), top)
+			.lineTo(px(day), top + h)
 			.stroke()
 			.restore();
 		doc
 			.font('bold')
 			.fontSize(8)
 			.fillColor(C.clay)
-			.text(String(i + 1), px(m.day) + 2, top + 2 + (i % 3) * 9, { lineBreak: false });
-	});
+			.text(o.t(label), px(day) + 2, top + 2, { lineBreak: false });
+	}
 	doc.lineWidth(1.5).strokeColor(C.moss);
-	days.forEach((d, i) => (i ? doc.lineTo(px(d.day), py(d.percent)) : doc.moveTo(px(d.day), py(d.percent))));
+	chart.points.forEach((p, i) => (i ? doc.lineTo(px(p.day), py(p.percent)) : doc.moveTo(px(p.day), py(p.percent))));
 	doc.stroke().restore();
 	doc.x = o.x;
 	doc.y = top + h + 32;

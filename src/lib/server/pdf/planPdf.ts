@@ -25,11 +25,12 @@ import {
 	sortCautions,
 	stakeIntro,
 	stakeRows,
+	strengthChartGeometry,
 	strengthNote,
 	summaryItems
 } from '$lib/plan-view';
 import { loadFonts, pdfText } from './fonts';
-import { drawLayout, pageWriter, strengthChart } from './layout';
+import { drawLayout, drawStrengthChart, pageWriter } from './layout';
 
 /** Stakeline tokens for print (lib/palette.ts). */
 const C = print;
@@ -215,7 +216,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 
 	heading('Strength over time');
 	const stones = milestoneRows(r, plan.locale);
-	strengthChart(doc, r.strength, stones, { x: left, width, t });
+	drawStrengthChart(doc, strengthChartGeometry(r.strength, stones), { x: left, width, t });
 	const over = strengthNote(r.strength);
 	if (over) text(over, { size: 8, color: C.soft, gap: 6 });
 	table(

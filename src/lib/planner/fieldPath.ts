@@ -1,0 +1,39 @@
+// A wizard field names the number it edits once, as a dotted path into the plan ("forms.stakeLength",
+// "bags.offered.0.price"); its value, its error and the engine's default are all read at that path.
+import type { ParsedPlan } from '$lib/plan';
+
+/** Every dotted path in T that leads to a number (a list's items by index; a number-or-list field is none). */
+export type NumberPath<T = ParsedPlan> = {
+	[K in keyof T & string]-?: NonNullable<T[K]> extends number
+		? K
+		: NonNullable<T[K]> extends readonly (infer E)[]
+			? E extends readonly unknown[]
+				? never
+				: E extends object
+					? `${K}.${number}.${NumberPath<E>}`
+					: never
+			: NonNullable<T[K]> extends object
+				? `${K}.${NumberPath<NonNullable<T[K]>>}`
+				: never;
+}[keyof T & string];
+
+/** The value at a dotted path, or undefined where any step of it is missing. */
+export function valueAt(from: unknown, path: string): unknown {
+	let v = from;
+	for (const k of path.split('.')) v = v && typeof v === 'object' ? (v as Record<string, unknown>)[k] : undefined;
+	return v;
+}
+
+/** The number at a path of the plan (null while the field is emptied, undefined when unset). */
+export function numberAt(plan: ParsedPlan, path: NumberPath): number | null | undefined {
+	return valueAt(plan, path) as number | null | undefined;
+}
+
+/** Writes a number at a path of the plan; the object holding it exists whenever its field is shown. */
+export function setNumberAt(plan: ParsedPlan, path: NumberPath, value: number | null | undefined): void {
+	const keys = path.split('.');
+	const last = keys.pop() as string;
+	const holder = keys.length ? valueAt(plan, keys.join('.')) : plan;
+	if (!holder || typeof holder !== 'object') throw new Error(`no ${keys.join('.')} in the plan to hold ${path}`);
+	(holder as Record<string, unknown>)[last] = value;
+}
