@@ -26,6 +26,9 @@ test('an admin disables a homeowner with a reason: sessions end, sign-in refused
 
 	await signIn(page, demoUser('admin').email, demoPassword);
 	await expect(page).toHaveURL(/\/admin$/);
+	// The admin's tabs are touch-sized like every other button (they were 36 px).
+	for (const tab of await page.getByRole('navigation', { name: 'Admin' }).getByRole('link').all())
+		expect((await tab.boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	await page.getByRole('navigation', { name: 'Admin' }).getByRole('link', { name: 'Users' }).click();
 	await page.getByLabel('Name, e-mail, business or licence number').fill(owner.email);
 	await page.getByLabel('Role').selectOption('homeowner');

@@ -89,6 +89,8 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await signIn(page, demoUser('contractor').email, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	await page.getByRole('link', { name: 'Open the leads' }).click();
+	// Each lead's title is a touch-sized link (it was 31 px).
+	for (const title of await page.getByTestId('lead-list').getByRole('link').all()) expect((await title.boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	await page.getByTestId('lead-list').getByRole('link', { name: 'Back patio' }).first().click();
 	await expect(page).toHaveURL(/\/pro\/leads\/[0-9a-f-]{36}$/);
 	const otherLeadUrl = page.url();
