@@ -4,7 +4,7 @@ import { layoutSheet } from '$lib/plan/layout-sheet';
 import { buildCardItems } from './buildCard';
 import { LABEL_SIZE, labelBox, layoutDrawing, PHONE_LABEL_SIZE, SCREEN_LABEL_SIZE, type LayoutDrawing } from './layoutDrawing';
 import demoPlans from '../../../fixtures/demo-plans.json' with { type: 'json' };
-import { cornerEll } from '$lib/plan/test-plans';
+import { cornerEll, splitSquare } from '$lib/plan/test-plans';
 
 const twoPours = computePlan({
 	units: 'metric',
@@ -109,22 +109,7 @@ describe("a freestanding pad's high edge", () => {
 });
 
 describe('a pour split inside one section', () => {
-	// 6 × 6 ft at 70 °F: more bags than the default crew places before the mix stiffens, so the engine
-	// splits the section with bulkheads that lie on no edge of the outline (edge −1).
-	const split = computePlan({
-		units: 'imperial',
-		sections: [
-			{
-				outline: [
-					[0, 0],
-					[6, 0],
-					[6, 6],
-					[0, 6]
-				]
-			}
-		],
-		conditions: { airTemp: 70 }
-	});
+	const split = computePlan(splitSquare);
 
 	it('draws its bulkheads and names every stake', () => {
 		expect(split.forms.runs.some((r) => r.kind === 'bulkhead' && r.edge === -1)).toBe(true);

@@ -31,6 +31,12 @@ export const cornerEll: PlanInput = {
 	slope: { fall: { value: 2, unit: 'percent' }, crossFall: { value: 2, unit: 'percent' } }
 };
 
+/**
+ * A 6 × 6 ft pad at 70 °F: more bags than the default crew places before the mix stiffens, so the
+ * engine splits the section with bulkheads that lie on no edge of the outline (edge −1).
+ */
+export const splitSquare: PlanInput = { units: 'imperial', sections: [{ outline: rect(0, 0, 6, 6) }], conditions: { airTemp: 70 } };
+
 export function modelOf(input: PlanInput) {
 	const r = parsePlanInput(input);
 	if (!r.ok) throw new Error(JSON.stringify(r.errors));

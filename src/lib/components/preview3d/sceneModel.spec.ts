@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan, type PlanInput } from '$lib/plan';
+import { splitSquare } from '$lib/plan/test-plans';
 import { M_PER_FT, M_PER_IN } from '$lib/plan/units';
 import { buildScene, LABEL_CLEARANCE_M, LAWN_OVERLAP_M, spreadLabels, LINE_LIFT_M, signedArea, surfaceAt, type Prism } from './sceneModel';
 import { prismTriangles, triangulate } from './meshes';
@@ -249,21 +250,7 @@ describe('triangulate', () => {
 
 describe('a pour split inside one section', () => {
 	it('builds the scene with bulkheads that lie on no edge', () => {
-		// 6 × 6 ft at 70 °F: the engine splits it with bulkheads of edge −1.
-		const split = computePlan({
-			units: 'imperial',
-			sections: [
-				{
-					outline: [
-						[0, 0],
-						[6, 0],
-						[6, 6],
-						[0, 6]
-					]
-				}
-			],
-			conditions: { airTemp: 70 }
-		});
+		const split = computePlan(splitSquare);
 		expect(split.forms.runs.some((r) => r.edge === -1)).toBe(true);
 		const scene = buildScene(split);
 		expect(scene.stakes).toHaveLength(split.elevations.stakes.length);
