@@ -4,126 +4,20 @@ import { leadActions, leadTarget, requestState, statusesMovedBy, threadOpen, typ
 
 // Written out by hand: one row per lead state, one column per step; null = refused.
 const _ = null;
+// One row per state, as a table reads (kept out of the formatter).
+// prettier-ignore
 const expected: Record<LeadStatus, Record<LeadAction, LeadStatus | null>> = {
 	//              view       bid         withdraw     decline     accept  accept_other    close       expire      complete  release     reopen
-	new: {
-		view: 'viewed',
-		bid: 'bid_sent',
-		withdraw: _,
-		decline: 'declined',
-		accept: _,
-		accept_other: 'not_selected',
-		close: 'closed',
-		expire: 'expired',
-		complete: _,
-		release: _,
-		reopen: 'new'
-	},
-	viewed: {
-		view: 'viewed',
-		bid: 'bid_sent',
-		withdraw: _,
-		decline: 'declined',
-		accept: _,
-		accept_other: 'not_selected',
-		close: 'closed',
-		expire: 'expired',
-		complete: _,
-		release: _,
-		reopen: 'viewed'
-	},
-	bid_sent: {
-		view: 'bid_sent',
-		bid: 'bid_sent',
-		withdraw: 'withdrawn',
-		decline: 'declined',
-		accept: 'won',
-		accept_other: 'not_selected',
-		close: 'closed',
-		expire: 'bid_sent',
-		complete: _,
-		release: _,
-		reopen: 'bid_sent'
-	},
-	declined: {
-		view: 'declined',
-		bid: _,
-		withdraw: _,
-		decline: _,
-		accept: _,
-		accept_other: 'declined',
-		close: 'declined',
-		expire: 'declined',
-		complete: _,
-		release: _,
-		reopen: 'declined'
-	},
+	new: { view: 'viewed', bid: 'bid_sent', withdraw: _, decline: 'declined', accept: _, accept_other: 'not_selected', close: 'closed', expire: 'expired', complete: _, release: _, reopen: 'new' },
+	viewed: { view: 'viewed', bid: 'bid_sent', withdraw: _, decline: 'declined', accept: _, accept_other: 'not_selected', close: 'closed', expire: 'expired', complete: _, release: _, reopen: 'viewed' },
+	bid_sent: { view: 'bid_sent', bid: 'bid_sent', withdraw: 'withdrawn', decline: 'declined', accept: 'won', accept_other: 'not_selected', close: 'closed', expire: 'bid_sent', complete: _, release: _, reopen: 'bid_sent' },
+	declined: { view: 'declined', bid: _, withdraw: _, decline: _, accept: _, accept_other: 'declined', close: 'declined', expire: 'declined', complete: _, release: _, reopen: 'declined' },
 	won: { view: 'won', bid: _, withdraw: _, decline: _, accept: _, accept_other: _, close: _, expire: _, complete: 'done', release: 'released', reopen: _ },
-	not_selected: {
-		view: 'not_selected',
-		bid: _,
-		withdraw: _,
-		decline: _,
-		accept: _,
-		accept_other: _,
-		close: 'not_selected',
-		expire: 'not_selected',
-		complete: _,
-		release: _,
-		reopen: 'bid_sent'
-	},
-	withdrawn: {
-		view: 'withdrawn',
-		bid: _,
-		withdraw: _,
-		decline: _,
-		accept: _,
-		accept_other: 'withdrawn',
-		close: 'withdrawn',
-		expire: 'withdrawn',
-		complete: _,
-		release: _,
-		reopen: 'withdrawn'
-	},
-	released: {
-		view: 'released',
-		bid: _,
-		withdraw: _,
-		decline: _,
-		accept: _,
-		accept_other: _,
-		close: 'released',
-		expire: 'released',
-		complete: _,
-		release: _,
-		reopen: 'released'
-	},
-	expired: {
-		view: 'expired',
-		bid: _,
-		withdraw: _,
-		decline: _,
-		accept: _,
-		accept_other: 'expired',
-		close: 'expired',
-		expire: 'expired',
-		complete: _,
-		release: _,
-		reopen: 'expired'
-	},
-	closed: {
-		view: 'closed',
-		bid: _,
-		withdraw: _,
-		decline: _,
-		accept: _,
-		accept_other: _,
-		close: 'closed',
-		expire: 'closed',
-		complete: _,
-		release: _,
-		reopen: 'closed'
-	},
+	not_selected: { view: 'not_selected', bid: _, withdraw: _, decline: _, accept: _, accept_other: _, close: 'not_selected', expire: 'not_selected', complete: _, release: _, reopen: 'bid_sent' },
+	withdrawn: { view: 'withdrawn', bid: _, withdraw: _, decline: _, accept: _, accept_other: 'withdrawn', close: 'withdrawn', expire: 'withdrawn', complete: _, release: _, reopen: 'withdrawn' },
+	released: { view: 'released', bid: _, withdraw: _, decline: _, accept: _, accept_other: _, close: 'released', expire: 'released', complete: _, release: _, reopen: 'released' },
+	expired: { view: 'expired', bid: _, withdraw: _, decline: _, accept: _, accept_other: 'expired', close: 'expired', expire: 'expired', complete: _, release: _, reopen: 'expired' },
+	closed: { view: 'closed', bid: _, withdraw: _, decline: _, accept: _, accept_other: _, close: 'closed', expire: 'closed', complete: _, release: _, reopen: 'closed' },
 	done: { view: 'done', bid: _, withdraw: _, decline: _, accept: _, accept_other: _, close: _, expire: _, complete: _, release: _, reopen: _ }
 };
 
