@@ -47,8 +47,9 @@ const handleAuth: Handle = async ({ event, resolve }) => {
 
 const securityHeaders: Handle = async ({ event, resolve }) => {
 	// Fonts preloaded with the page's scripts and styles (SvelteKit's default leaves them out), so the
-	// text is set in Nunito from the first paint instead of reflowing when it arrives.
-	const response = await resolve(event, { preload: ({ type }) => type === 'js' || type === 'css' || type === 'font' });
+	// text is set in Nunito from the first paint instead of reflowing when it arrives. Only the woff2
+	// files: every browser that reads preload headers takes those, so the woff fallbacks would be fetched for nothing.
+	const response = await resolve(event, { preload: ({ type, path }) => type === 'js' || type === 'css' || (type === 'font' && path.endsWith('.woff2')) });
 	// Only over HTTPS, or a plain-HTTP local run would be told to use HTTPS it does not have.
 	if (event.url.protocol === 'https:') response.headers.set('Strict-Transport-Security', 'max-age=31536000; includeSubDomains');
 	response.headers.set('X-Content-Type-Options', 'nosniff');

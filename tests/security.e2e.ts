@@ -11,6 +11,10 @@ test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and 
 	expect(scriptSrc).toMatch(/'nonce-[\w+/=]+'/);
 	expect(scriptSrc).not.toContain('unsafe-inline');
 	expect(csp).toContain("frame-ancestors 'none'");
+	// The fonts are preloaded with the page (no reflow when they arrive), each weight once, as woff2.
+	const preloads = home!.headers()['link'] ?? '';
+	expect(preloads).toMatch(/nunito-latin-400-normal\.[\w-]+\.woff2>; rel="preload"; as="font"/);
+	expect(preloads).not.toMatch(/\.woff>/);
 
 	await openHydrated(page, '/plans/new');
 	await expect(page.getByRole('heading', { level: 1 })).toBeVisible();
