@@ -24,14 +24,36 @@ function dateFormat(locale: string, options: Intl.DateTimeFormatOptions): Intl.D
 	return f;
 }
 
-/** A time zone this runtime knows, else UTC (an unknown or hostile cookie changes nothing). */
-export function validTimeZone(tz: string | null | undefined): string {
-	if (!tz || tz.length > 64) return 'UTC';
+/**
+ * Remembers a pure function of a short string (a header or cookie value), up to 256 answers, then
+ * starts over: every request reads the reader's locale and zone, and asking Intl costs far more than
+ * a lookup (profile of the plan page under load). Answers hold no user data.
+ */
+function remembered<T>(answer: (key: string) => T): (key: string) => T {
+	const seen = new Map<string, T>();
+	return (key) => {
+		let a = seen.get(key);
+		if (a === undefined) {
+			a = answer(key);
+			if (seen.size >= 256) seen.clear();
+			seen.set(key, a);
+		}
+		return a;
+	};
+}
+
+const knownTimeZone = remembered((tz) => {
 	try {
 		return new Intl.DateTimeFormat('en-US', { timeZone: tz }).resolvedOptions().timeZone;
 	} catch {
 		return 'UTC';
 	}
+});
+
+/** A time zone this runtime knows, else UTC (an unknown or hostile cookie changes nothing). */
+export function validTimeZone(tz: string | null | undefined): string {
+	if (!tz || tz.length > 64) return 'UTC';
+	return knownTimeZone(tz);
 }
 
 /** The calendar day (YYYY-MM-DD) it is now in `timeZone`: a contractor's "today", not UTC's. */
@@ -66,7 +88,7 @@ export function zonedTime(iso: string, hour: number, timeZone: string): Date {
 
 /** Regions that measure road distance in miles; everyone else reads kilometres. */
 const MILE_REGIONS = new Set(['US', 'GB', 'LR', 'MM']);
-export function defaultDistanceUnit(locale: string): DistanceUnit {
+export const defaultDistanceUnit: (locale: string) => DistanceUnit = remembered((locale) => {
 	let region: string | undefined;
 	try {
 		region = new Intl.Locale(locale).maximize().region;
@@ -74,7 +96,7 @@ export function defaultDistanceUnit(locale: string): DistanceUnit {
 		region = undefined;
 	}
 	return region && MILE_REGIONS.has(region) ? 'mi' : 'km';
-}
+});
 
 /** A moment (stored timestamp) in the reader's locale and zone. */
 export const formatMoment = (d: Date | string, r: Reader, style: 'date' | 'datetime' = 'datetime') =>
@@ -91,7 +113,15 @@ export const formatDay = (iso: string, r: Pick<Reader, 'locale'>) =>
  * in, else en-US. Read on the server, so the page renders and hydrates with the same dates.
  */
 export function readerLocale(acceptLanguage: string | null | undefined): string {
-	for (const part of (acceptLanguage ?? '').split(',').slice(0, 10)) {
+	// Browsers send a handful of distinct headers; a longer one is read each time, not remembered.
+	const header = acceptLanguage ?? '';
+	return header.length <= 200 ? localeOfHeader(header) : firstSupportedLocale(header);
+}
+
+const localeOfHeader = remembered((header) => firstSupportedLocale(header));
+
+function firstSupportedLocale(acceptLanguage: string): string {
+	for (const part of acceptLanguage.split(',').slice(0, 10)) {
 		const tag = part.split(';')[0].trim();
 		if (!tag || tag === '*') continue;
 		try {

@@ -242,8 +242,9 @@ export function loggedFirstPourDate(log: PourLog, plannedDays: readonly number[]
 
 /** loggedForecast for a saved plan: its input, its computed result and its records. */
 export function loggedForecastFor(input: unknown, result: Pick<PlanResult, 'schedule'>, records: readonly PourRecord[]): LoggedForecast | null {
+	if (!records.length) return null;
 	const parsed = parsePlanInput(input);
-	if (!parsed.ok || !records.length) return null;
+	if (!parsed.ok) return null;
 	const days = result.schedule.pourDays.map((p) => p.day);
 	const plannedLast = days.length ? Math.max(...days) - Math.min(...days) : 0;
 	return loggedForecast(toModel(parsed.plan), foldRecords(records), plannedLast);

@@ -145,6 +145,15 @@ describe('curing reminders from the pour log', () => {
 		expect(undone).toEqual({ ...plannedCuringReminders(twoPours), logged: false });
 	});
 
+	it("come out the same from the plan's stored result as from computing it again (the plan page passes the stored one)", () => {
+		const records = [rec({ kind: 'start', pour: 0 }, '2027-10-12', 0)];
+		expect(curingRemindersFor(twoPours, [], planned)).toEqual(curingRemindersFor(twoPours, []));
+		expect(curingRemindersFor(twoPours, records, planned)).toEqual(curingRemindersFor(twoPours, records));
+		// The stored result is what is read: a plan with its pour days taken away has no reminder days.
+		const noDays = { ...planned, schedule: { ...planned.schedule, pourDays: [] } };
+		expect(curingRemindersFor(twoPours, [], noDays).days).toEqual([]);
+	});
+
 	it('work for a plan with no planned pour date once a pour is logged', () => {
 		const undated = { ...twoPours, conditions: { airTemp: 20 } } as PlanInput;
 		expect(curingRemindersFor(undated, []).pourDate).toBeNull();

@@ -95,10 +95,11 @@ export interface PlanAsLogged {
  * moves every date with it. The curing reminders and the calendar file both read this, so they
  * always agree. Null when the input does not parse.
  */
-export function planAsLogged(input: unknown, records: readonly PourRecord[]): PlanAsLogged | null {
+export function planAsLogged(input: unknown, records: readonly PourRecord[], known?: PlanResult): PlanAsLogged | null {
 	const parsed = parsePlanInput(input);
 	if (!parsed.ok) return null;
-	const planned = computeParsedPlan(parsed.plan);
+	// `known`: this input's result from this engine version, already at hand (the plan page's stored one).
+	const planned = known ?? computeParsedPlan(parsed.plan);
 	const plannedDate = parsed.plan.conditions.pourDate ?? null;
 	const loggedDate = records.length
 		? loggedFirstPourDate(
@@ -112,8 +113,12 @@ export function planAsLogged(input: unknown, records: readonly PourRecord[]): Pl
 }
 
 /** The reminders counted as planAsLogged counts: from the logged first-pour day once there is one. */
-export function curingRemindersFor(input: unknown, records: readonly PourRecord[]): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
-	const d = planAsLogged(input, records);
+export function curingRemindersFor(
+	input: unknown,
+	records: readonly PourRecord[],
+	known?: PlanResult
+): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
+	const d = planAsLogged(input, records, known);
 	if (!d?.pourDate) return { pourDate: null, days: [], logged: false };
 	return { pourDate: d.pourDate, days: curingDaysOf(d.result, d.plan.curing.method), logged: d.logged };
 }

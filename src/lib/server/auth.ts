@@ -1,5 +1,5 @@
 import type { RequestEvent } from '@sveltejs/kit';
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import { db } from '$lib/server/db';
 import * as table from '$lib/server/db/schema';
 import { generateToken, hashToken } from './tokens';
@@ -30,23 +30,28 @@ export async function createSession(token: string, userId: string) {
 	return session;
 }
 
+// Read on every signed-in request: prepared once, so each request sends only the session id
+// (drizzle builds the SQL text once, PostgreSQL plans it once per connection).
+const sessionWithUser = db
+	.select({
+		user: {
+			id: table.user.id,
+			name: table.user.name,
+			email: table.user.email,
+			role: table.user.role,
+			emailVerifiedAt: table.user.emailVerifiedAt,
+			disabledAt: table.user.disabledAt
+		},
+		session: table.session
+	})
+	.from(table.session)
+	.innerJoin(table.user, eq(table.session.userId, table.user.id))
+	.where(eq(table.session.id, sql.placeholder('id')))
+	.prepare('session_with_user');
+
 export async function validateSessionToken(token: string) {
 	const sessionId = hashToken(token);
-	const [result] = await db
-		.select({
-			user: {
-				id: table.user.id,
-				name: table.user.name,
-				email: table.user.email,
-				role: table.user.role,
-				emailVerifiedAt: table.user.emailVerifiedAt,
-				disabledAt: table.user.disabledAt
-			},
-			session: table.session
-		})
-		.from(table.session)
-		.innerJoin(table.user, eq(table.session.userId, table.user.id))
-		.where(eq(table.session.id, sessionId));
+	const [result] = await sessionWithUser.execute({ id: sessionId });
 
 	if (!result) return { session: null, user: null };
 	const { session, user: found } = result;

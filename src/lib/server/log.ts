@@ -5,13 +5,13 @@ const SECRET_KEYS = ['password', 'newPassword', 'token', 'cookie', 'authorizatio
 const paths = SECRET_KEYS.flatMap((k) => [k, `*.${k}`, `*.*.${k}`]);
 
 /** JSON lines on stdout (or `dest`): one per request, plus errors. LOG_LEVEL=silent turns it off. */
-export function createLogger(dest?: DestinationStream): Logger {
+export function createLogger(dest?: DestinationStream, { redact = true } = {}): Logger {
 	return pino(
 		{
 			level: process.env.LOG_LEVEL ?? 'info',
 			base: undefined,
 			timestamp: pino.stdTimeFunctions.isoTime,
-			redact: { paths, censor: '[redacted]' },
+			...(redact ? { redact: { paths, censor: '[redacted]' } } : {}),
 			serializers: { err: (e: unknown) => (e instanceof Error ? errorSummary(e) : e) }
 		},
 		dest
@@ -19,6 +19,13 @@ export function createLogger(dest?: DestinationStream): Logger {
 }
 
 export const log = createLogger();
+
+/**
+ * The one line per request: its fields are fixed and safe (the path goes through safePath, errors
+ * through errorSummary), so it skips the redaction pass, which cost more than writing the line
+ * (about 30 µs of a 0.75 ms home page in a profile under load).
+ */
+export const requestLog = createLogger(undefined, { redact: false });
 
 const TOKENISH = /^[A-Za-z0-9_-]{24,}$/;
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;

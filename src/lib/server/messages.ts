@@ -56,19 +56,30 @@ export async function postMessage(sender: Actor & { role: string }, leadId: stri
 }
 
 /** Unread messages across all of a user's threads, for the navigation. */
-export async function unreadMessageCount(u: { id: string; role: string }) {
-	if (u.role !== 'homeowner' && u.role !== 'contractor') return 0;
-	const homeowner = u.role === 'homeowner';
-	const mine = homeowner ? eq(lead.homeownerId, u.id) : eq(lead.contractorId, u.id);
-	const readAt = homeowner ? lead.homeownerReadAt : sql`coalesce(${lead.contractorReadAt}, 'epoch')`;
-	// Contractors who are not approved cannot open their threads, so nothing counts as waiting
-	// (checked in the same query: one round trip on every signed-in page).
-	const approved = homeowner ? undefined : sql`exists (select 1 from ${contractor} where ${contractor.userId} = ${u.id} and ${contractor.status} = 'approved')`;
-	const [{ n }] = await db
+// The unread count is read on every signed-in page: one prepared statement per side.
+const unreadCountOf = (homeowner: boolean) =>
+	db
 		.select({ n: count() })
 		.from(leadMessage)
 		.innerJoin(lead, eq(lead.id, leadMessage.leadId))
-		.where(and(mine, ne(leadMessage.senderId, u.id), gt(leadMessage.createdAt, readAt), approved));
+		.where(
+			and(
+				homeowner ? eq(lead.homeownerId, sql.placeholder('me')) : eq(lead.contractorId, sql.placeholder('me')),
+				ne(leadMessage.senderId, sql.placeholder('me')),
+				gt(leadMessage.createdAt, homeowner ? lead.homeownerReadAt : sql`coalesce(${lead.contractorReadAt}, 'epoch')`),
+				// Contractors who are not approved cannot open their threads, so nothing counts as waiting
+				// (checked in the same query: one round trip on every signed-in page).
+				homeowner
+					? undefined
+					: sql`exists (select 1 from ${contractor} where ${contractor.userId} = ${sql.placeholder('me')} and ${contractor.status} = 'approved')`
+			)
+		)
+		.prepare(homeowner ? 'unread_count_homeowner' : 'unread_count_contractor');
+const unreadCount = { homeowner: unreadCountOf(true), contractor: unreadCountOf(false) };
+
+export async function unreadMessageCount(u: { id: string; role: string }) {
+	if (u.role !== 'homeowner' && u.role !== 'contractor') return 0;
+	const [{ n }] = await unreadCount[u.role].execute({ me: u.id });
 	return n;
 }
 

@@ -53,20 +53,26 @@ export async function listPlans(ownerId: string): Promise<Plan[]> {
 }
 
 /** The plan, only when it belongs to ownerId: someone else's plan is simply not found. */
+// Every plan page reads the plan by id and owner: prepared once (drizzle builds the SQL text once).
+const ownPlan = db
+	.select()
+	.from(plan)
+	.where(and(eq(plan.id, sql.placeholder('id')), eq(plan.ownerId, sql.placeholder('owner'))))
+	.prepare('own_plan');
+const ownPlanHeader = db
+	.select({ id: plan.id, name: plan.name, postcode: plan.postcode, revision: plan.revision, createdAt: plan.createdAt, updatedAt: plan.updatedAt })
+	.from(plan)
+	.where(and(eq(plan.id, sql.placeholder('id')), eq(plan.ownerId, sql.placeholder('owner'))))
+	.prepare('own_plan_header');
+
 export async function findOwnPlan(id: string, ownerId: string): Promise<Plan | undefined> {
-	const [found] = await db
-		.select()
-		.from(plan)
-		.where(and(eq(plan.id, id), eq(plan.ownerId, ownerId)));
+	const [found] = await ownPlan.execute({ id, owner: ownerId });
 	return found;
 }
 
 /** The plan's name and revision without its input and result, only when it belongs to ownerId. */
 export async function findOwnPlanHeader(id: string, ownerId: string) {
-	const [found] = await db
-		.select({ id: plan.id, name: plan.name, postcode: plan.postcode, revision: plan.revision, createdAt: plan.createdAt, updatedAt: plan.updatedAt })
-		.from(plan)
-		.where(and(eq(plan.id, id), eq(plan.ownerId, ownerId)));
+	const [found] = await ownPlanHeader.execute({ id, owner: ownerId });
 	return found ? { ...found, postcode: found.postcode ?? '' } : undefined;
 }
 

@@ -4,6 +4,7 @@ import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import { and, eq, sql } from 'drizzle-orm';
 import { curingRemindersFor, type CuringDay } from '$lib/plan/reminders';
 import type { PourRecord } from '$lib/plan/pour-log';
+import type { PlanResult } from '$lib/plan';
 import { todayIn, validTimeZone, zonedTime } from '$lib/reader';
 import { db } from '$lib/server/db';
 import { appSecret, curingReminderSent, plan, user, type Plan } from '$lib/server/db/schema';
@@ -59,9 +60,13 @@ export async function scheduleCuringReminders(
  * read this one function, so a logged start moves the reminders, and a job queued for the planned
  * date is skipped once the log says otherwise.
  */
-export function reminderDays(p: Pick<Plan, 'input'>, records: readonly PourRecord[]): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
+export function reminderDays(
+	p: Pick<Plan, 'input'>,
+	records: readonly PourRecord[],
+	known?: PlanResult
+): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
 	try {
-		return curingRemindersFor(p.input, records);
+		return curingRemindersFor(p.input, records, known);
 	} catch {
 		return { pourDate: null, days: [], logged: false };
 	}
@@ -115,39 +120,64 @@ export async function sendCuringReminder(job: { planId: string; pourDate: string
 	});
 }
 
-/** What the plan page says about the reminders: true to what is queued and sent. */
-export async function curingReminderStatus(planId: string, ownerId: string) {
-	const [row] = await db
-		.select({ on: plan.curingReminders, timeZone: plan.reminderTimeZone, input: plan.input, off: user.mailOptOut })
-		.from(plan)
-		.innerJoin(user, eq(user.id, plan.ownerId))
-		.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)));
-	if (!row) return null;
-	const [jobs, [{ n }], records] = await Promise.all([
+/** What the plan page shows of the reminders: the switch, the mail setting, the jobs waiting and sent. */
+export async function curingReminderState(planId: string, ownerId: string) {
+	const [[row], jobs, [{ n }]] = await Promise.all([
+		db
+			.select({ on: plan.curingReminders, timeZone: plan.reminderTimeZone, off: user.mailOptOut })
+			.from(plan)
+			.innerJoin(user, eq(user.id, plan.ownerId))
+			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))),
 		db.execute<{ key: string }>(
 			sql`SELECT key FROM graphile_worker.jobs WHERE key LIKE ${`${keyPrefix(planId)}%`} AND attempts < max_attempts ORDER BY run_at`
 		),
 		db
 			.select({ n: sql<number>`count(*)::int` })
 			.from(curingReminderSent)
-			.where(eq(curingReminderSent.planId, planId)),
-		listPourRecords(planId)
+			.where(eq(curingReminderSent.planId, planId))
 	]);
-	const { pourDate, days, logged } = reminderDays(row, records);
+	if (!row) return null;
+	return { ...row, scheduled: jobs.map((j) => j.key.slice(keyPrefix(planId).length)), sent: n };
+}
+
+/**
+ * The reminders' status from their state and the plan's pour log. `known` is the plan's stored
+ * result when the current engine wrote it, so the page does not compute the plan a second time.
+ */
+export function curingReminderSummary(
+	state: NonNullable<Awaited<ReturnType<typeof curingReminderState>>>,
+	input: unknown,
+	records: readonly PourRecord[],
+	known?: PlanResult
+) {
+	const { pourDate, days, logged } = reminderDays({ input }, records, known);
 	return {
-		on: row.on,
+		on: state.on,
 		/** The account page's switch for this kind of mail is off. */
-		mailOff: row.off.includes('curing'),
-		timeZone: validTimeZone(row.timeZone),
+		mailOff: state.off.includes('curing'),
+		timeZone: validTimeZone(state.timeZone),
 		sendHour: SEND_HOUR,
 		pourDate,
 		/** The pour date is the one the pour log records, not the planned one. */
 		logged,
 		days: days.length,
 		/** Days with a reminder job waiting, soonest first. */
-		scheduled: jobs.map((j) => j.key.slice(keyPrefix(planId).length)),
-		sent: n
+		scheduled: state.scheduled,
+		sent: state.sent
 	};
+}
+
+/** The status for a plan by id (reads the plan and its pour log itself). */
+export async function curingReminderStatus(planId: string, ownerId: string) {
+	const [state, [found], records] = await Promise.all([
+		curingReminderState(planId, ownerId),
+		db
+			.select({ input: plan.input })
+			.from(plan)
+			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))),
+		listPourRecords(planId)
+	]);
+	return state && found ? curingReminderSummary(state, found.input, records) : null;
 }
 
 // Unsubscribe links: the plan id signed with a key kept in the database (made once, shared by

@@ -1,6 +1,6 @@
 import { json, type Handle, type HandleServerError, type RequestEvent } from '@sveltejs/kit';
 import { databaseUnavailable, RETRY_AFTER_S } from './db';
-import { log as defaultLog, safePath } from './log';
+import { log as defaultLog, requestLog, safePath } from './log';
 import type { Logger } from 'pino';
 
 export const UNAVAILABLE = 'The database is not answering right now. Nothing was saved; please try again in a few seconds.';
@@ -25,7 +25,7 @@ function unavailable(event: RequestEvent, requestId: string): Response {
  * path without query, route, status, time), and turns "database down" failures into a fast 503
  * with Retry-After — also when a hook further down (the session lookup) is what failed.
  */
-export function requestHandle(logger: Logger = defaultLog): Handle {
+export function requestHandle(logger: Logger = requestLog): Handle {
 	return async ({ event, resolve }) => {
 		const t0 = performance.now();
 		const requestId = crypto.randomUUID();

@@ -1,35 +1,37 @@
 import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { currentResult } from '$lib/plan-view/currentResult';
-import { readerLocale } from '$lib/reader';
+import { ENGINE_VERSION } from '$lib/plan';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';
 import { loggedForecastFor } from '$lib/plan/pour-log';
 import { listPourRecords } from '$lib/server/pour-records';
-import { curingReminderStatus, setCuringReminders } from '$lib/server/reminders';
+import { curingReminderState, curingReminderSummary, setCuringReminders } from '$lib/server/reminders';
 import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const me = requireRole(event, 'homeowner');
-	// The plan, its photos, pour log and reminder status at once; the rest is returned only when the plan is the user's own
-	// (the reminder status reads the plan by its owner itself).
-	const [found, photos, records, reminders] = await Promise.all([
+	// The plan, its photos, pour log and reminder state at once; the rest is returned only when the plan is the user's own
+	// (the reminder state reads the plan by its owner itself).
+	const [found, photos, records, reminderState] = await Promise.all([
 		findOwnPlan(event.params.id, me.id),
 		listPhotos(event.params.id),
 		listPourRecords(event.params.id),
-		curingReminderStatus(event.params.id, me.id)
+		curingReminderState(event.params.id, me.id)
 	]);
 	if (!found) error(404, 'No such plan.');
 	const result = currentResult(found.input, found.result);
+	// The stored result stands for the planned plan when this engine wrote it, so it is not computed again.
+	const known = found.engineVersion === ENGINE_VERSION ? result : undefined;
 	return {
 		photos: photos.map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height })),
 		maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024,
 		result,
 		// The strength timeline and milestones again from the pour log's dates and temperatures.
 		logged: loggedForecastFor(found.input, result, records),
-		locale: readerLocale(event.request.headers.get('accept-language')),
-		reminders,
+		locale: event.locals.reader.locale,
+		reminders: reminderState && curingReminderSummary(reminderState, found.input, records, known),
 		readerTimeZone: event.locals.reader.timeZone
 	};
 }) satisfies PageServerLoad;
