@@ -25,6 +25,30 @@ async function sendToRidgeback(page: Page, planId: string) {
 	await expect(page.getByText('Sent to 1 contractor.')).toBeVisible();
 }
 
+test('without scripts, the page that answers the saved e-mail choices shows them as saved', async ({ page, browser }) => {
+	const me = { name: 'Ines Marlowe', email: uniqueEmail('noscript'), password: 'walkway-in-may' };
+	await signUp(page, { ...me, role: 'homeowner' });
+	const plain = await browser.newContext({ javaScriptEnabled: false });
+	try {
+		const p = await plain.newPage();
+		await p.goto('/signin');
+		await p.getByLabel('E-mail').fill(me.email);
+		await p.getByLabel('Password').fill(me.password);
+		await p.getByRole('button', { name: 'Sign in' }).click();
+		await expect(p).toHaveURL(/\/plans$/);
+		await p.goto('/account');
+		const notices = p.getByRole('region', { name: 'E-mail notices' });
+		await notices.getByLabel('New messages').uncheck();
+		await notices.getByRole('button', { name: 'Save e-mail choices' }).click();
+		// The answer to the plain form post is the page itself, rendered after the change.
+		await expect(p.getByRole('region', { name: 'E-mail notices' }).getByText('Saved.')).toBeVisible();
+		await expect(p.getByRole('region', { name: 'E-mail notices' }).getByLabel('New messages')).not.toBeChecked();
+		await expect(p.getByRole('region', { name: 'E-mail notices' }).getByLabel('Bids on my plans (new, changed, withdrawn)')).toBeChecked();
+	} finally {
+		await plain.close();
+	}
+});
+
 test('a homeowner turns message e-mails off (bids stay on) and moves the account to a new address', async ({ page }) => {
 	const errors = watchErrors(page);
 	const me = { name: 'Tove Lindqvist', email: uniqueEmail('settings'), password: 'patio-by-june' };

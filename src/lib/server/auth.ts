@@ -40,7 +40,9 @@ const sessionWithUser = db
 			email: table.user.email,
 			role: table.user.role,
 			emailVerifiedAt: table.user.emailVerifiedAt,
-			disabledAt: table.user.disabledAt
+			disabledAt: table.user.disabledAt,
+			// The account page's mail switches: read here rather than in a second query on that page.
+			mailOptOut: table.user.mailOptOut
 		},
 		session: table.session
 	})

@@ -13,10 +13,9 @@ import type { Actions, PageServerLoad } from './$types';
 
 export const load = (async (event) => {
 	const me = requireUser(event);
-	const user = await findUserById(me.id);
 	return {
 		mailKinds: mailKindsFor(me.role),
-		mailOptOut: user?.mailOptOut ?? [],
+		mailOptOut: me.mailOptOut,
 		distanceUnit: me.role === 'contractor' ? ((await contractorDistanceUnit(me.id)) ?? ('auto' as const)) : null,
 		localeUnit: defaultDistanceUnit(event.locals.reader.locale)
 	};
@@ -72,6 +71,9 @@ export const actions = {
 		const off = mailKindsFor(me.role).filter((k) => !on.has(k));
 		if ([...on].some((k) => !isMailKind(k))) return fail(400, { message: 'Unknown kind of e-mail.', section: 'notices' });
 		await setMailOptOut(me.id, off);
+		// The page's load reads the switches from the session's user (read before this action), and
+		// runs again in this same request when the form was posted without scripts.
+		me.mailOptOut = off;
 		return { noticesSaved: true };
 	},
 	distance: async (event) => {
