@@ -7,6 +7,7 @@ import type { RequestEvent } from '@sveltejs/kit';
 import { eq } from 'drizzle-orm';
 import sharp from 'sharp';
 import { describe, expect, it } from 'vitest';
+import { rect } from '$lib/plan/test-plans';
 import { POST } from '../../routes/(app)/plans/[id=uuid]/photos/+server';
 import { db } from './db';
 import { planPhoto } from './db/schema';
@@ -18,19 +19,8 @@ import { createUser } from './users';
 
 useTestDatabase();
 
-const input = {
-	units: 'imperial',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[12, 0],
-				[12, 10],
-				[0, 10]
-			]
-		}
-	]
-};
+/** A 12 × 10 ft pad. */
+const input = { units: 'imperial', sections: [{ outline: rect(0, 0, 12, 10) }] } as const;
 
 // The route reads only the user's id and role.
 const homeowner = async () =>

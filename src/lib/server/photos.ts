@@ -3,11 +3,11 @@ import sharp, { type OutputInfo } from 'sharp';
 import { db } from '$lib/server/db';
 import { plan, planPhoto, type PlanPhoto } from '$lib/server/db/schema';
 import { storage } from './storage';
-import { uploadRules } from '$lib/upload-rules';
+import { MAX_PHOTOS_PER_PLAN, uploadRules } from '$lib/upload-rules';
 import { imageTypes, sniffUpload } from './uploads';
 
 export const MAX_PHOTO_BYTES = uploadRules.photo.maxBytes;
-export const MAX_PHOTOS_PER_PLAN = 20;
+export { MAX_PHOTOS_PER_PLAN };
 /**
  * Largest image decoded: 40 megapixels (a 48 MP phone's default 24 MP photos pass). A PNG of
  * 16383 × 16383 pixels is under a megabyte on disk but 268 MP, 800 MB once decoded.
