@@ -9,8 +9,9 @@
 // first. Registered from a plan's layout with the scope / so the list at /plans (outside /plans/) is
 // covered too; every other request passes by untouched (no respondWith), except a navigation to any other page
 // under /plans, which gets our own offline page (lib/offline-page.ts) when the network fails, as does a plan page
-// with nothing kept. Records made offline are not this worker's business: the pour page queues them on the device
-// and sends them itself.
+// with nothing kept. Records and photos made offline are not this worker's business: the pour page queues them on
+// the device (localStorage, IndexedDB) and sends them itself; their POSTs pass by, so a failed send reaches the
+// page as a network error and the photo stays queued.
 
 import { build, files, version } from '$service-worker';
 import { offlinePage, planNameFromPage, type KeptPlan } from '$lib/offline-page';

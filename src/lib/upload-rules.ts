@@ -14,6 +14,9 @@ export const uploadRules = {
 	document: { what: 'document', maxBytes: 5 * MB, types: { ...pdf, ...images } }
 } as const satisfies Record<string, UploadRule>;
 
+/** Site photos a plan holds; the pour page's queue counts against it before keeping one on the phone. */
+export const MAX_PHOTOS_PER_PLAN = 20;
+
 export const formatMb = (n: number) => `${(n / MB).toFixed(n < 10 * MB ? 1 : 0)} MB`;
 
 /** The `accept` attribute of the file input. */

@@ -3,11 +3,11 @@ import sharp, { type OutputInfo } from 'sharp';
 import { db } from '$lib/server/db';
 import { plan, planPhoto, type PlanPhoto } from '$lib/server/db/schema';
 import { storage } from './storage';
-import { uploadRules } from '$lib/upload-rules';
+import { MAX_PHOTOS_PER_PLAN, uploadRules } from '$lib/upload-rules';
 import { imageTypes, sniffUpload } from './uploads';
 
 export const MAX_PHOTO_BYTES = uploadRules.photo.maxBytes;
-export const MAX_PHOTOS_PER_PLAN = 20;
+export { MAX_PHOTOS_PER_PLAN };
 /**
  * Largest image decoded: 40 megapixels (a 48 MP phone's default 24 MP photos pass). A PNG of
  * 16383 × 16383 pixels is under a megabyte on disk but 268 MP, 800 MB once decoded.
@@ -17,11 +17,15 @@ const tooMany = `A plan holds at most ${MAX_PHOTOS_PER_PLAN} photos.`;
 
 export class PhotoRejected extends Error {}
 
+export type StoredPhoto = { photo: PlanPhoto; replayed: boolean };
+
 /**
  * Stores a site photo, already checked by sniffUpload: re-encoded upright without its metadata
- * (phone photos carry the GPS position of the house), plus a small thumbnail.
+ * (phone photos carry the GPS position of the house), plus a small thumbnail. With a `clientKey`
+ * the plan holds it once: a second send (the device never saw the first answer) gets the photo
+ * already stored, even when the plan has since filled up.
  */
-export async function addPhoto(planId: string, bytes: Uint8Array, originalName: string): Promise<PlanPhoto> {
+export async function addPhoto(planId: string, bytes: Uint8Array, originalName: string, clientKey: string | null = null): Promise<StoredPhoto> {
 	// The header alone gives the size: a bomb is refused before any pixel is decoded.
 	const meta = await sharp(bytes)
 		.metadata()
@@ -47,9 +51,12 @@ export async function addPhoto(planId: string, bytes: Uint8Array, originalName: 
 	const key = `plans/${planId}/photos/${id}`;
 	await storage().put(`${key}.jpg`, image, 'image/jpeg');
 	await storage().put(`${key}-thumb.webp`, thumb, 'image/webp');
-	const row = await db.transaction(async (tx) => {
-		// The plan row is locked while counting, so parallel uploads cannot all see room for one more.
+	const stored = await db.transaction(async (tx): Promise<StoredPhoto | null> => {
+		// The plan row is locked while counting, so parallel uploads cannot all see room for one more,
+		// and two sends of one key cannot both find it missing.
 		await tx.select({ id: plan.id }).from(plan).where(eq(plan.id, planId)).for('update');
+		const held = clientKey ? await findPhotoByKey(planId, clientKey, tx) : undefined;
+		if (held) return { photo: held, replayed: true };
 		const [{ n }] = await tx.select({ n: count() }).from(planPhoto).where(eq(planPhoto.planId, planId));
 		if (n >= MAX_PHOTOS_PER_PLAN) return null;
 		const [inserted] = await tx
@@ -63,15 +70,26 @@ export async function addPhoto(planId: string, bytes: Uint8Array, originalName: 
 				bytes: image.byteLength,
 				width: info.width,
 				height: info.height,
-				originalName: originalName.slice(0, 200) || 'photo'
+				originalName: originalName.slice(0, 200) || 'photo',
+				clientKey
 			})
 			.returning();
-		return inserted;
+		return { photo: inserted, replayed: false };
 	});
-	if (!row) {
-		await Promise.all([storage().delete(`${key}.jpg`), storage().delete(`${key}-thumb.webp`)]);
-		throw new PhotoRejected(tooMany);
-	}
+	// Nothing stored under this upload's own files: the plan was full, or the key's photo was already there.
+	if (!stored || stored.replayed) await Promise.all([storage().delete(`${key}.jpg`), storage().delete(`${key}-thumb.webp`)]);
+	if (!stored) throw new PhotoRejected(tooMany);
+	return stored;
+}
+
+type Conn = Parameters<Parameters<typeof db.transaction>[0]>[0] | typeof db;
+
+/** The plan's photo sent with this Idempotency-Key, if one was. */
+async function findPhotoByKey(planId: string, clientKey: string, conn: Conn = db): Promise<PlanPhoto | undefined> {
+	const [row] = await conn
+		.select()
+		.from(planPhoto)
+		.where(and(eq(planPhoto.planId, planId), eq(planPhoto.clientKey, clientKey)));
 	return row;
 }
 
@@ -102,17 +120,23 @@ export async function deletePhoto(planId: string, photoId: string) {
 	return row !== undefined;
 }
 
-export type PhotoUpload = { ok: true; photo: PlanPhoto } | { ok: false; status: number; message: string };
+export type PhotoUpload = ({ ok: true } & StoredPhoto) | { ok: false; status: number; message: string };
 
-/** Everything one uploaded file goes through, from the upload route and the no-JavaScript form alike. */
-export async function acceptPhotoUpload(planId: string, file: FormDataEntryValue | null): Promise<PhotoUpload> {
+/**
+ * Everything one uploaded file goes through, from the upload route and the no-JavaScript form alike.
+ * A key already held answers with its photo before anything else is checked: the replay of a photo
+ * the plan took is not refused because the plan is full now.
+ */
+export async function acceptPhotoUpload(planId: string, file: FormDataEntryValue | null, clientKey: string | null = null): Promise<PhotoUpload> {
+	const held = clientKey ? await findPhotoByKey(planId, clientKey) : undefined;
+	if (held) return { ok: true, photo: held, replayed: true };
 	if (!(file instanceof File) || file.size === 0) return { ok: false, status: 400, message: 'Choose a photo to upload.' };
 	// A quick answer when full; addPhoto checks again under a lock.
 	if ((await listPhotos(planId)).length >= MAX_PHOTOS_PER_PLAN) return { ok: false, status: 400, message: tooMany };
 	const checked = await sniffUpload(file, { maxBytes: MAX_PHOTO_BYTES, accept: imageTypes, what: 'photo' });
 	if (!checked.ok) return { ok: false, status: 400, message: checked.message };
 	try {
-		return { ok: true, photo: await addPhoto(planId, checked.bytes, checked.name) };
+		return { ok: true, ...(await addPhoto(planId, checked.bytes, checked.name, clientKey)) };
 	} catch (err) {
 		if (err instanceof PhotoRejected) return { ok: false, status: 400, message: err.message };
 		throw err;

@@ -1,4 +1,4 @@
-import { boolean, date, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uuid } from 'drizzle-orm/pg-core';
+import { boolean, date, index, integer, jsonb, pgTable, primaryKey, text, timestamp, uniqueIndex, uuid } from 'drizzle-orm/pg-core';
 import type { PlanResult } from '../../../plan';
 import { user } from './auth';
 
@@ -32,7 +32,11 @@ export const plan = pgTable(
 	(t) => [index('plan_owner_idx').on(t.ownerId, t.updatedAt)]
 );
 
-/** A site photo; the bytes live in the storage module under `storageKey` / `thumbKey`. */
+/**
+ * A site photo; the bytes live in the storage module under `storageKey` / `thumbKey`. `clientKey` is
+ * the Idempotency-Key the device sent with it (the pour page's offline queue): a photo sent again
+ * after a lost answer is stored once per plan. Null for uploads that sent none.
+ */
 export const planPhoto = pgTable(
 	'plan_photo',
 	{
@@ -47,9 +51,10 @@ export const planPhoto = pgTable(
 		width: integer('width'),
 		height: integer('height'),
 		originalName: text('original_name').notNull(),
+		clientKey: text('client_key'),
 		createdAt: timestamp('created_at', { withTimezone: true }).notNull().defaultNow()
 	},
-	(t) => [index('plan_photo_plan_idx').on(t.planId)]
+	(t) => [index('plan_photo_plan_idx').on(t.planId), uniqueIndex('plan_photo_client_key_idx').on(t.planId, t.clientKey)]
 );
 
 export type Plan = typeof plan.$inferSelect;
