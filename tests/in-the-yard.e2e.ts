@@ -88,7 +88,7 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await expect(page.getByTestId('layout-sheet')).toBeVisible();
 	// The plan list, where the app installed on the home screen opens, reads offline too.
 	await page.goto('/plans');
-	await expect(page.getByTestId('offline-note')).toContainText('Offline — this is the list as this phone last saw it');
+	await expect(page.getByTestId('offline-note')).toContainText('Offline — this is the list as this device last saw it');
 	await expect(page.getByRole('link', { name: 'Yard patio' }).first()).toBeVisible();
 	await page.goto(`/plans/${planId}/pour`);
 	await page.reload();

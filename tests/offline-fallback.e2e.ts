@@ -1,4 +1,4 @@
-// Offline, a plan that was never opened on this phone has no kept copy: the service worker answers
+// Offline, a plan that was never opened on this device has no kept copy: the service worker answers
 // with Stakeline's own offline page (what works and what does not, and links to the plans kept
 // here) instead of the browser's error page, whether the address is typed or a link is followed.
 import { expect, test, type Page } from '@playwright/test';
@@ -12,13 +12,17 @@ const input = rectanglePlan(10, 8, { airTemp: 65, house: false });
 /** The offline page's parts a reader relies on. */
 async function expectOfflinePage(page: Page, nowhere: string) {
 	await expect(page.getByRole('heading', { level: 1, name: 'No connection' })).toBeVisible();
-	await expect(page.getByTestId('offline-page')).toHaveText('This page is not kept on this phone, so it cannot open without a connection.');
+	await expect(page.getByTestId('offline-page')).toHaveText('This page is not kept on this device, so it cannot open without a connection.');
 	const kept = page.getByTestId('kept-plans');
 	await expect(kept.getByRole('link', { name: 'Kept patio' })).toBeVisible();
 	await expect(kept.getByRole('link', { name: 'pour day' })).toHaveCount(1);
 	await expect(kept.getByText(nowhere)).toHaveCount(0);
 	await expect(page.getByRole('heading', { name: 'Needs a connection' })).toBeVisible();
-	await expect(page.getByText('Plans never opened on this phone, editing a plan, bids and messages, and adding photos.')).toBeVisible();
+	await expect(
+		page.getByText(
+			'Plans never opened on this device, editing a plan, bids and messages, and adding photos from the plan page (the pour-day page keeps them until the connection returns).'
+		)
+	).toBeVisible();
 	await expect(page.getByRole('link', { name: 'Try again' })).toBeVisible();
 }
 

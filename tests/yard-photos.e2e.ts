@@ -69,7 +69,7 @@ test('photos taken offline on the pour page wait on the phone, survive a reload,
 	const queued = page.getByTestId('queued-photo');
 	const state = page.getByTestId('photo-queue-state');
 	await expect(queued).toHaveCount(3);
-	await expect(state).toHaveText('3 photos waiting to send. Kept on this phone; they will be sent when there is a connection.');
+	await expect(state).toHaveText('3 photos waiting to send. Kept on this device; they will be sent when there is a connection.');
 	for (const name of ['forms-set.jpg', 'thumb-over-lens.jpg', 'screeded.jpg']) await drawn(page.getByRole('img', { name: `Waiting to send: ${name}` }));
 	await expect(queued.first()).toContainText('waiting to send');
 	// Taken back before it is sent; the remove button is a thumb-sized target.

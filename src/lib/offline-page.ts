@@ -1,7 +1,7 @@
 // The page the service worker answers with when the phone is offline and the page asked for was not
 // kept (a plan never opened here with a connection, or a page that is never kept, such as the
 // editor). Plain HTML with its own styles, since no app script or server can run: it says what
-// works without a connection and what does not, and links to the plans kept on this phone.
+// works without a connection and what does not, and links to the plans kept on this device.
 
 import { tokens } from './palette';
 
@@ -40,14 +40,14 @@ export function offlinePage(path: string, kept: readonly KeptPlan[]): string {
 	const t = tokens;
 	const plans = [...kept].sort((a, b) => a.name.localeCompare(b.name));
 	const list = plans.length
-		? `<h2>Kept on this phone</h2>
+		? `<h2>Kept on this device</h2>
 <ul data-testid="kept-plans">${plans
 				.map(
 					(p) =>
 						`<li><a href="/plans/${escapeHtml(p.id)}">${escapeHtml(p.name)}</a>${p.pour ? ` · <a href="/plans/${escapeHtml(p.id)}/pour">pour day</a>` : ''}</li>`
 				)
 				.join('')}</ul>`
-		: `<h2>Kept on this phone</h2>
+		: `<h2>Kept on this device</h2>
 <p data-testid="kept-plans">No plan yet. Open a plan once with a connection and it stays readable here.</p>`;
 	return `<!doctype html>
 <html lang="en">
@@ -73,11 +73,11 @@ li a{display:inline-flex;align-items:center;min-height:44px}
 <body>
 <main>
 <h1>No connection</h1>
-<p class="note" data-testid="offline-page">This page is not kept on this phone, so it cannot open without a connection.</p>
-<p>A plan stays readable offline once it has been opened here with a connection: its plan page (build card, layout sheet, stake marks, day plan) and its pour-day page, where batches, temperatures and notes are kept on the phone and sent when the connection returns.</p>
+<p class="note" data-testid="offline-page">This page is not kept on this device, so it cannot open without a connection.</p>
+<p>A plan stays readable offline once it has been opened here with a connection: its plan page (build card, layout sheet, stake marks, day plan) and its pour-day page, where batches, temperatures, notes and photos are kept on the device and sent when the connection returns.</p>
 ${list}
 <h2>Needs a connection</h2>
-<p class="soft">Plans never opened on this phone, editing a plan, bids and messages, and adding photos.</p>
+<p class="soft">Plans never opened on this device, editing a plan, bids and messages, and adding photos from the plan page (the pour-day page keeps them until the connection returns).</p>
 <a class="again" href="${escapeHtml(path)}">Try again</a>
 </main>
 </body>
