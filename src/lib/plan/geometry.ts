@@ -181,9 +181,21 @@ export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number
  */
 const WHOLE_EDGE: readonly (readonly [number, number])[] = [[0, 1]];
 
+/** What an edge that meets no other section shares: one list for all of them, never changed. */
+const NO_JOINTS: readonly ColdJointSeg[] = [];
+
 /** The pieces of one edge (as parameter intervals) not shared with another section. */
 export function freeIntervals(a: Pt, b: Pt, shared: readonly ColdJointSeg[], eps: number): readonly (readonly [number, number])[] {
 	if (!shared.length) return WHOLE_EDGE;
+	const len = dist(a, b);
+	const out: [number, number][] = [];
+	// Most shared edges meet one other edge: its piece needs no list and no sort.
+	if (shared.length === 1) {
+		const p = project(a, b, shared[0].from);
+		const q = project(a, b, shared[0].to);
+		pastPiece(out, 0, Math.min(p, q), Math.max(p, q), len, eps);
+		return out;
+	}
 	const cuts = shared
 		.map((j): [number, number] => {
 			const p = project(a, b, j.from);
@@ -191,15 +203,20 @@ export function freeIntervals(a: Pt, b: Pt, shared: readonly ColdJointSeg[], eps
 			return [Math.min(p, q), Math.max(p, q)];
 		})
 		.sort((x, y) => x[0] - y[0]);
-	const len = dist(a, b);
-	const out: [number, number][] = [];
 	let at = 0;
-	for (const [p, q] of cuts) {
-		if ((p - at) * len > eps) out.push([at, p]);
-		at = Math.max(at, q);
-	}
-	if ((1 - at) * len > eps) out.push([at, 1]);
+	for (let k = 0; k < cuts.length; k++) at = pastPiece(out, at, cuts[k][0], cuts[k][1], len, eps, k === cuts.length - 1);
 	return out;
+}
+
+/**
+ * One shared piece [p, q] met walking along an edge from `at`: keeps the free gap before it, and
+ * after the last piece the free rest of the edge. Returns where the walk has got to.
+ */
+function pastPiece(out: [number, number][], at: number, p: number, q: number, len: number, eps: number, last = true): number {
+	if ((p - at) * len > eps) out.push([at, p]);
+	const to = Math.max(at, q);
+	if (last && (1 - to) * len > eps) out.push([to, 1]);
+	return to;
 }
 
 export interface EdgeInfo {
@@ -208,7 +225,7 @@ export interface EdgeInfo {
 	to: Pt;
 	length: number;
 	/** Pieces of the edge shared with other sections. */
-	shared: ColdJointSeg[];
+	shared: readonly ColdJointSeg[];
 	/** Pieces not shared, as [t0, t1] along the edge. */
 	free: readonly (readonly [number, number])[];
 }
@@ -243,7 +260,7 @@ export function layoutSections(outlines: readonly (readonly Pt[])[]): Layout {
 		const a = signedArea(outline);
 		const edges = outline.map((from, i): EdgeInfo => {
 			const to = next(outline, i);
-			const shared = byEdge[s][i] ?? [];
+			const shared = byEdge[s][i] ?? NO_JOINTS;
 			const free = freeIntervals(from, to, shared, eps);
 			const length = dist(from, to);
 			for (const [p, q] of free) outerPerimeter += (q - p) * length;
