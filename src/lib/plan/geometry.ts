@@ -17,6 +17,7 @@ import {
 	signedArea
 } from './polygon';
 import type { Box, Pt } from './polygon';
+import { ascending } from './util';
 
 /** A problem with the input, addressed by its path in the request (e.g. "sections.0.outline"). */
 export interface PlanIssue {
@@ -202,7 +203,7 @@ export function freeIntervals(a: Pt, b: Pt, shared: readonly ColdJointSeg[], eps
 			const q = project(a, b, j.to);
 			return [Math.min(p, q), Math.max(p, q)];
 		})
-		.sort((x, y) => x[0] - y[0]);
+		.sort((x, y) => ascending(x[0], y[0]));
 	let at = 0;
 	for (let k = 0; k < cuts.length; k++) at = pastPiece(out, at, cuts[k][0], cuts[k][1], len, eps, k === cuts.length - 1);
 	return out;

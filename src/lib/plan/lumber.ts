@@ -6,7 +6,7 @@ import { dist, lerp } from './polygon';
 import type { Pt } from './polygon';
 import { countUp, length, mToPlan, small } from './units';
 import type { Length, Small } from './units';
-import { times } from './util';
+import { ascending, times } from './util';
 
 /** Saw kerf lost per cut, 3 mm (⅛ in); from memory. */
 export const KERF_M = 0.003;
@@ -145,12 +145,18 @@ export interface Board {
 /** First-fit decreasing into stock lengths: reuse offcuts, else open the shortest board that fits. */
 export function cutBoards(pieces: { run: string; length: number }[], stock: readonly number[], kerf = KERF_M): Board[] {
 	const boards: Board[] = [];
-	const sorted = [...stock].sort((a, b) => a - b);
-	for (const p of [...pieces].sort((a, b) => b.length - a.length)) {
+	const sorted = [...stock].sort(ascending);
+	// Longest first (`ascending` with the pieces swapped: it allocates nothing per comparison).
+	for (const p of [...pieces].sort((a, b) => ascending(b.length, a.length))) {
 		let best: Board | undefined;
 		for (const b of boards) if (b.left >= p.length - 1e-9 && (!best || b.left < best.left)) best = b;
 		if (!best) {
-			const len = sorted.find((s) => s >= p.length - 1e-9) ?? sorted[sorted.length - 1];
+			let len = sorted[sorted.length - 1];
+			for (const s of sorted)
+				if (s >= p.length - 1e-9) {
+					len = s;
+					break;
+				}
 			best = { stock: len, cuts: [], left: len };
 			boards.push(best);
 		}

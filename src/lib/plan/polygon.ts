@@ -1,6 +1,8 @@
 // Plane geometry on simple polygons given as vertex lists. Unit-free: callers pass a length
 // tolerance in the same unit as the coordinates.
 
+import { ascending } from './util';
+
 export type Pt = readonly [number, number];
 
 export const sub = (a: Pt, b: Pt): Pt => [a[0] - b[0], a[1] - b[1]];
@@ -150,7 +152,7 @@ export function pointInPolygonXY(px: number, py: number, poly: readonly Pt[], ep
  * it, so the order is the same.
  */
 export function sortNumbers(v: number[]): number[] {
-	if (v.length > 32) return v.sort((p, q) => p - q);
+	if (v.length > 32) return v.sort(ascending);
 	for (let i = 1; i < v.length; i++) {
 		const x = v[i];
 		let j = i - 1;
