@@ -5,6 +5,7 @@ import {
 	boxesMeet,
 	cross,
 	dist,
+	allEdgeBoxes,
 	edgeBoxes,
 	edgeBoxesMeet,
 	interiorPoint,
@@ -39,8 +40,11 @@ export const tolerance = (outlines: readonly (readonly Pt[])[]) => {
 	return m * 1e-9;
 };
 
-/** Why an outline is not a usable simple polygon, or null when it is. */
-export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64Array = edgeBoxes(poly)): string | null {
+/**
+ * Why an outline is not a usable simple polygon, or null when it is. `boxes` holds its edge boxes
+ * from box `at` on (polygon.ts, edgeBoxes).
+ */
+export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64Array = edgeBoxes(poly), at = 0): string | null {
 	const n = poly.length;
 	for (let i = 0; i < n; i++) {
 		if (dist(poly[i], next(poly, i)) <= eps) return `vertices ${i} and ${(i + 1) % n} are the same point`;
@@ -55,7 +59,7 @@ export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64A
 		if (Math.abs(cross(a, b, c)) <= eps * dist(a, b) && (b[0] - a[0]) * (c[0] - b[0]) + (b[1] - a[1]) * (c[1] - b[1]) < 0)
 			return `edges ${i} and ${(i + 1) % n} fold back onto each other`;
 		for (let j = i + 2; j < n; j++) {
-			if ((i === 0 && j === n - 1) || !edgeBoxesMeet(boxes, i, boxes, j, eps)) continue;
+			if ((i === 0 && j === n - 1) || !edgeBoxesMeet(boxes, at + i, boxes, at + j, eps)) continue;
 			const rel = segmentRelation(a, b, poly[j], next(poly, j), eps);
 			if (rel !== 'none') return `edges ${i} and ${j} ${rel === 'cross' ? 'cross' : 'touch'}: the outline must not cross or touch itself`;
 		}
@@ -67,13 +71,15 @@ export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64A
 interface Probe {
 	poly: readonly Pt[];
 	box: Box;
+	/** Its edge boxes, from box `at` on. */
 	edges: Float64Array;
+	at: number;
 	/** One point strictly inside the outline. */
 	interior: Pt;
 }
 
-function probe(poly: readonly Pt[], eps: number, edges: Float64Array = edgeBoxes(poly)): Probe {
-	return { poly, box: bbox(poly), edges, interior: interiorPoint(poly, eps) };
+function probe(poly: readonly Pt[], eps: number, edges: Float64Array = edgeBoxes(poly), at = 0): Probe {
+	return { poly, box: bbox(poly), edges, at, interior: interiorPoint(poly, eps) };
 }
 
 const insideBox = (x: number, y: number, b: Box) => x > b.minX && x < b.maxX && y > b.minY && y < b.maxY;
@@ -104,7 +110,7 @@ function probesOverlap(a: Probe, b: Probe, eps: number): boolean {
 	const B = b.poly;
 	for (let i = 0; i < A.length; i++)
 		for (let j = 0; j < B.length; j++)
-			if (edgeBoxesMeet(a.edges, i, b.edges, j, eps) && segmentRelation(A[i], next(A, i), B[j], next(B, j), eps) === 'cross') return true;
+			if (edgeBoxesMeet(a.edges, a.at + i, b.edges, b.at + j, eps) && segmentRelation(A[i], next(A, i), B[j], next(B, j), eps) === 'cross') return true;
 	return hits(a, b, eps) || hits(b, a, eps);
 }
 
@@ -117,12 +123,12 @@ export function outlinesOverlap(a: readonly Pt[], b: readonly Pt[], eps: number)
 export function geometryIssues(outlines: readonly (readonly Pt[])[]): PlanIssue[] {
 	const eps = tolerance(outlines);
 	const issues: PlanIssue[] = [];
+	// One set of edge boxes serves both the self-crossing test and the overlap probe.
+	const { boxes, first } = allEdgeBoxes(outlines);
 	const probes = outlines.map((o, i) => {
-		// One set of edge boxes per outline serves both the self-crossing test and the overlap probe.
-		const boxes = edgeBoxes(o);
-		const problem = outlineProblem(o, eps, boxes);
+		const problem = outlineProblem(o, eps, boxes, first[i]);
 		if (problem) issues.push({ path: `sections.${i}.outline`, message: `Section ${i + 1}: ${problem}.` });
-		return problem ? null : probe(o, eps, boxes);
+		return problem ? null : probe(o, eps, boxes, first[i]);
 	});
 	for (let i = 0; i < outlines.length; i++)
 		for (let j = i + 1; j < outlines.length; j++) {
@@ -157,7 +163,7 @@ function sharedPart(a: Pt, b: Pt, c: Pt, d: Pt, eps: number): [number, number] |
 export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number): ColdJointSeg[] {
 	const out: ColdJointSeg[] = [];
 	const boxes = outlines.map(bbox);
-	const edges = outlines.map(edgeBoxes);
+	const { boxes: edges, first } = allEdgeBoxes(outlines);
 	for (let s = 0; s < outlines.length; s++)
 		for (let r = s + 1; r < outlines.length; r++) {
 			if (!boxesMeet(boxes[s], boxes[r], eps)) continue;
@@ -165,7 +171,7 @@ export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number
 			const B = outlines[r];
 			for (let i = 0; i < A.length; i++)
 				for (let j = 0; j < B.length; j++) {
-					if (!edgeBoxesMeet(edges[s], i, edges[r], j, eps)) continue;
+					if (!edgeBoxesMeet(edges, first[s] + i, edges, first[r] + j, eps)) continue;
 					const part = sharedPart(A[i], next(A, i), B[j], next(B, j), eps);
 					if (!part) continue;
 					const from = lerp(A[i], next(A, i), part[0]);
