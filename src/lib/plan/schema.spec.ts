@@ -128,12 +128,7 @@ describe('errors carry dotted paths', () => {
 // would, and everything else goes to zod, so the messages are zod's and the error map's.
 describe('outline parse', () => {
 	it('hands back new corners equal to those sent', () => {
-		const outline = [
-			[0, 0],
-			[10, 0],
-			[10, 10],
-			[0, 10]
-		];
+		const outline = square;
 		const r = parsePlanInput({ units: 'metric', sections: [{ outline }] });
 		if (!r.ok) throw new Error(JSON.stringify(r.errors));
 		const got = r.plan.sections[0].outline;
