@@ -8,15 +8,19 @@ import { build } from 'vite';
 /**
  * Bundles src/lib/plan/index.ts and test-plans.ts into `outDir` and loads both.
  * @param {string} outDir
- * @param {{ minify?: boolean }} [options] minify: false keeps function names for profiles
+ * @param {{ minify?: boolean, root?: string }} [options] minify: false keeps function names for
+ *   profiles; root: the tree whose src/lib/plan is bundled (default the working directory)
  * @returns {Promise<{ engine: typeof import('../../src/lib/plan/index'), plans: typeof import('../../src/lib/plan/test-plans') }>}
  */
-export async function bundleEngine(outDir, { minify = true } = {}) {
+export async function bundleEngine(outDir, { minify = true, root = '.' } = {}) {
 	await build({
 		configFile: false,
 		logLevel: 'warn',
 		build: {
-			lib: { entry: { engine: 'src/lib/plan/index.ts', plans: 'src/lib/plan/test-plans.ts' }, formats: ['es'] },
+			lib: {
+				entry: { engine: path.join(root, 'src/lib/plan/index.ts'), plans: path.join(root, 'src/lib/plan/test-plans.ts') },
+				formats: ['es']
+			},
 			outDir,
 			emptyOutDir: true,
 			target: 'node20',

@@ -5,6 +5,7 @@ import {
 	boxesMeet,
 	cross,
 	dist,
+	allEdgeBoxes,
 	edgeBoxes,
 	edgeBoxesMeet,
 	interiorPoint,
@@ -17,6 +18,7 @@ import {
 	signedArea
 } from './polygon';
 import type { Box, Pt } from './polygon';
+import { ascending } from './util';
 
 /** A problem with the input, addressed by its path in the request (e.g. "sections.0.outline"). */
 export interface PlanIssue {
@@ -38,8 +40,11 @@ export const tolerance = (outlines: readonly (readonly Pt[])[]) => {
 	return m * 1e-9;
 };
 
-/** Why an outline is not a usable simple polygon, or null when it is. */
-export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64Array = edgeBoxes(poly)): string | null {
+/**
+ * Why an outline is not a usable simple polygon, or null when it is. `boxes` holds its edge boxes
+ * from box `at` on (polygon.ts, edgeBoxes).
+ */
+export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64Array = edgeBoxes(poly), at = 0): string | null {
 	const n = poly.length;
 	for (let i = 0; i < n; i++) {
 		if (dist(poly[i], next(poly, i)) <= eps) return `vertices ${i} and ${(i + 1) % n} are the same point`;
@@ -54,7 +59,7 @@ export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64A
 		if (Math.abs(cross(a, b, c)) <= eps * dist(a, b) && (b[0] - a[0]) * (c[0] - b[0]) + (b[1] - a[1]) * (c[1] - b[1]) < 0)
 			return `edges ${i} and ${(i + 1) % n} fold back onto each other`;
 		for (let j = i + 2; j < n; j++) {
-			if ((i === 0 && j === n - 1) || !edgeBoxesMeet(boxes, i, boxes, j, eps)) continue;
+			if ((i === 0 && j === n - 1) || !edgeBoxesMeet(boxes, at + i, boxes, at + j, eps)) continue;
 			const rel = segmentRelation(a, b, poly[j], next(poly, j), eps);
 			if (rel !== 'none') return `edges ${i} and ${j} ${rel === 'cross' ? 'cross' : 'touch'}: the outline must not cross or touch itself`;
 		}
@@ -66,13 +71,15 @@ export function outlineProblem(poly: readonly Pt[], eps: number, boxes: Float64A
 interface Probe {
 	poly: readonly Pt[];
 	box: Box;
+	/** Its edge boxes, from box `at` on. */
 	edges: Float64Array;
+	at: number;
 	/** One point strictly inside the outline. */
 	interior: Pt;
 }
 
-function probe(poly: readonly Pt[], eps: number, edges: Float64Array = edgeBoxes(poly)): Probe {
-	return { poly, box: bbox(poly), edges, interior: interiorPoint(poly, eps) };
+function probe(poly: readonly Pt[], eps: number, edges: Float64Array = edgeBoxes(poly), at = 0): Probe {
+	return { poly, box: bbox(poly), edges, at, interior: interiorPoint(poly, eps) };
 }
 
 const insideBox = (x: number, y: number, b: Box) => x > b.minX && x < b.maxX && y > b.minY && y < b.maxY;
@@ -103,7 +110,7 @@ function probesOverlap(a: Probe, b: Probe, eps: number): boolean {
 	const B = b.poly;
 	for (let i = 0; i < A.length; i++)
 		for (let j = 0; j < B.length; j++)
-			if (edgeBoxesMeet(a.edges, i, b.edges, j, eps) && segmentRelation(A[i], next(A, i), B[j], next(B, j), eps) === 'cross') return true;
+			if (edgeBoxesMeet(a.edges, a.at + i, b.edges, b.at + j, eps) && segmentRelation(A[i], next(A, i), B[j], next(B, j), eps) === 'cross') return true;
 	return hits(a, b, eps) || hits(b, a, eps);
 }
 
@@ -116,12 +123,12 @@ export function outlinesOverlap(a: readonly Pt[], b: readonly Pt[], eps: number)
 export function geometryIssues(outlines: readonly (readonly Pt[])[]): PlanIssue[] {
 	const eps = tolerance(outlines);
 	const issues: PlanIssue[] = [];
+	// One set of edge boxes serves both the self-crossing test and the overlap probe.
+	const { boxes, first } = allEdgeBoxes(outlines);
 	const probes = outlines.map((o, i) => {
-		// One set of edge boxes per outline serves both the self-crossing test and the overlap probe.
-		const boxes = edgeBoxes(o);
-		const problem = outlineProblem(o, eps, boxes);
+		const problem = outlineProblem(o, eps, boxes, first[i]);
 		if (problem) issues.push({ path: `sections.${i}.outline`, message: `Section ${i + 1}: ${problem}.` });
-		return problem ? null : probe(o, eps, boxes);
+		return problem ? null : probe(o, eps, boxes, first[i]);
 	});
 	for (let i = 0; i < outlines.length; i++)
 		for (let j = i + 1; j < outlines.length; j++) {
@@ -156,7 +163,7 @@ function sharedPart(a: Pt, b: Pt, c: Pt, d: Pt, eps: number): [number, number] |
 export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number): ColdJointSeg[] {
 	const out: ColdJointSeg[] = [];
 	const boxes = outlines.map(bbox);
-	const edges = outlines.map(edgeBoxes);
+	const { boxes: edges, first } = allEdgeBoxes(outlines);
 	for (let s = 0; s < outlines.length; s++)
 		for (let r = s + 1; r < outlines.length; r++) {
 			if (!boxesMeet(boxes[s], boxes[r], eps)) continue;
@@ -164,7 +171,7 @@ export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number
 			const B = outlines[r];
 			for (let i = 0; i < A.length; i++)
 				for (let j = 0; j < B.length; j++) {
-					if (!edgeBoxesMeet(edges[s], i, edges[r], j, eps)) continue;
+					if (!edgeBoxesMeet(edges, first[s] + i, edges, first[r] + j, eps)) continue;
 					const part = sharedPart(A[i], next(A, i), B[j], next(B, j), eps);
 					if (!part) continue;
 					const from = lerp(A[i], next(A, i), part[0]);
@@ -181,25 +188,42 @@ export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number
  */
 const WHOLE_EDGE: readonly (readonly [number, number])[] = [[0, 1]];
 
+/** What an edge that meets no other section shares: one list for all of them, never changed. */
+const NO_JOINTS: readonly ColdJointSeg[] = [];
+
 /** The pieces of one edge (as parameter intervals) not shared with another section. */
 export function freeIntervals(a: Pt, b: Pt, shared: readonly ColdJointSeg[], eps: number): readonly (readonly [number, number])[] {
 	if (!shared.length) return WHOLE_EDGE;
+	const len = dist(a, b);
+	const out: [number, number][] = [];
+	// Most shared edges meet one other edge: its piece needs no list and no sort.
+	if (shared.length === 1) {
+		const p = project(a, b, shared[0].from);
+		const q = project(a, b, shared[0].to);
+		pastPiece(out, 0, Math.min(p, q), Math.max(p, q), len, eps);
+		return out;
+	}
 	const cuts = shared
 		.map((j): [number, number] => {
 			const p = project(a, b, j.from);
 			const q = project(a, b, j.to);
 			return [Math.min(p, q), Math.max(p, q)];
 		})
-		.sort((x, y) => x[0] - y[0]);
-	const len = dist(a, b);
-	const out: [number, number][] = [];
+		.sort((x, y) => ascending(x[0], y[0]));
 	let at = 0;
-	for (const [p, q] of cuts) {
-		if ((p - at) * len > eps) out.push([at, p]);
-		at = Math.max(at, q);
-	}
-	if ((1 - at) * len > eps) out.push([at, 1]);
+	for (let k = 0; k < cuts.length; k++) at = pastPiece(out, at, cuts[k][0], cuts[k][1], len, eps, k === cuts.length - 1);
 	return out;
+}
+
+/**
+ * One shared piece [p, q] met walking along an edge from `at`: keeps the free gap before it, and
+ * after the last piece the free rest of the edge. Returns where the walk has got to.
+ */
+function pastPiece(out: [number, number][], at: number, p: number, q: number, len: number, eps: number, last = true): number {
+	if ((p - at) * len > eps) out.push([at, p]);
+	const to = Math.max(at, q);
+	if (last && (1 - to) * len > eps) out.push([to, 1]);
+	return to;
 }
 
 export interface EdgeInfo {
@@ -208,7 +232,7 @@ export interface EdgeInfo {
 	to: Pt;
 	length: number;
 	/** Pieces of the edge shared with other sections. */
-	shared: ColdJointSeg[];
+	shared: readonly ColdJointSeg[];
 	/** Pieces not shared, as [t0, t1] along the edge. */
 	free: readonly (readonly [number, number])[];
 }
@@ -243,7 +267,7 @@ export function layoutSections(outlines: readonly (readonly Pt[])[]): Layout {
 		const a = signedArea(outline);
 		const edges = outline.map((from, i): EdgeInfo => {
 			const to = next(outline, i);
-			const shared = byEdge[s][i] ?? [];
+			const shared = byEdge[s][i] ?? NO_JOINTS;
 			const free = freeIntervals(from, to, shared, eps);
 			const length = dist(from, to);
 			for (const [p, q] of free) outerPerimeter += (q - p) * length;

@@ -6,7 +6,7 @@ import { dist, lerp } from './polygon';
 import type { Pt } from './polygon';
 import { countUp, length, mToPlan, small } from './units';
 import type { Length, Small } from './units';
-import { times } from './util';
+import { ascending, times } from './util';
 
 /** Saw kerf lost per cut, 3 mm (⅛ in); from memory. */
 export const KERF_M = 0.003;
@@ -67,6 +67,17 @@ export function formRuns(m: Model, layout: Layout, splits: readonly SplitBulkhea
 }
 
 /**
+ * An empty table of chain heads (−1) for about `n` entries: a power of two at least twice `n`, so
+ * a hash masked to its size picks a bucket and chains stay short. A table instead of a Map: the
+ * Map grows by copying itself as it fills, which was most of what placing stakes allocated.
+ */
+function bucketHeads(n: number): Int32Array {
+	let size = 16;
+	while (size < 2 * n) size *= 2;
+	return new Int32Array(size).fill(-1);
+}
+
+/**
  * Board length each formed run needs, by the run's place in `runs`. At every corner one board runs
  * past the other by its thickness; a run takes the lap at its start unless that would cost it a
  * splice a stock board avoids, and then the run ending at that corner takes it instead (common
@@ -78,23 +89,24 @@ export function lapLengths(runs: readonly Run[], t: number, maxStock: number): {
 	for (let i = 0; i < n; i++) lengths[i] = runs[i].length;
 	let laps = 0;
 	const formed = (r: Run) => r.formed && r.kind !== 'bulkhead';
-	// Run ends share exact vertices; a 0.1 mm grid absorbs float noise. Keyed by a small-integer
-	// hash of the grid point (a collision is resolved by comparing the points). Runs ending in one
-	// hash bucket are chained, latest first: `latest` holds a bucket's last run, `before` the one
-	// listed ahead of each (−1: none), so no list is made per bucket.
+	// Run ends share exact vertices; a 0.1 mm grid absorbs float noise. Runs are bucketed by a hash
+	// of the grid point (points that share a bucket are told apart by comparing them) and chained,
+	// latest first: `latest` holds a bucket's last run, `before` the one listed ahead of each
+	// (−1: none), so no list is made per bucket.
 	const q = (v: number) => Math.round(v * 1e4);
-	const hash = (p: Pt) => (Math.imul(q(p[0]), 73856093) ^ Math.imul(q(p[1]), 19349663)) & 0x3fffffff;
-	const latest = new Map<number, number>();
+	const latest = bucketHeads(n);
+	const mask = latest.length - 1;
+	const bucket = (p: Pt) => (Math.imul(q(p[0]), 73856093) ^ Math.imul(q(p[1]), 19349663)) & mask;
 	const before = new Int32Array(n);
 	for (let i = 0; i < n; i++) {
 		if (!formed(runs[i])) continue;
-		const h = hash(runs[i].to);
-		before[i] = latest.get(h) ?? -1;
-		latest.set(h, i);
+		const b = bucket(runs[i].to);
+		before[i] = latest[b];
+		latest[b] = i;
 	}
 	/** The last run listed that ends at p, or −1. */
 	const runEndingAt = (p: Pt) => {
-		for (let i = latest.get(hash(p)) ?? -1; i >= 0; i = before[i]) {
+		for (let i = latest[bucket(p)]; i >= 0; i = before[i]) {
 			const to = runs[i].to;
 			if (q(to[0]) === q(p[0]) && q(to[1]) === q(p[1])) return i;
 		}
@@ -133,12 +145,18 @@ export interface Board {
 /** First-fit decreasing into stock lengths: reuse offcuts, else open the shortest board that fits. */
 export function cutBoards(pieces: { run: string; length: number }[], stock: readonly number[], kerf = KERF_M): Board[] {
 	const boards: Board[] = [];
-	const sorted = [...stock].sort((a, b) => a - b);
-	for (const p of [...pieces].sort((a, b) => b.length - a.length)) {
+	const sorted = [...stock].sort(ascending);
+	// Longest first (`ascending` with the pieces swapped: it allocates nothing per comparison).
+	for (const p of [...pieces].sort((a, b) => ascending(b.length, a.length))) {
 		let best: Board | undefined;
 		for (const b of boards) if (b.left >= p.length - 1e-9 && (!best || b.left < best.left)) best = b;
 		if (!best) {
-			const len = sorted.find((s) => s >= p.length - 1e-9) ?? sorted[sorted.length - 1];
+			let len = sorted[sorted.length - 1];
+			for (const s of sorted)
+				if (s >= p.length - 1e-9) {
+					len = s;
+					break;
+				}
 			best = { stock: len, cuts: [], left: len };
 			boards.push(best);
 		}
@@ -214,14 +232,19 @@ export function computeForms(m: Model, layout: Layout, splits: readonly SplitBul
 	let fixings = 0;
 	// A point shared by two runs gets one stake: points within 0.1 mm are the same. Points sit in
 	// 1 mm cells; a lookup visits only the cells its ±0.1 mm box touches (one, near a cell border
-	// two or four), so float noise at a border cannot make two stakes of one. Cell keys are hashed
-	// to small integers (collisions only cost a distance check). The stakes in one cell are
-	// chained: `lastIn` holds the cell's latest stake, `before[i]` the one ahead of stake i (−1: none).
-	const lastIn = new Map<number, number>();
+	// two or four), so float noise at a border cannot make two stakes of one. Cells are hashed to
+	// buckets of a table (cells sharing a bucket only cost a distance check). The stakes in one
+	// bucket are chained: `lastIn` holds its latest stake, `before[i]` the one ahead of stake i
+	// (−1: none). Sized for about one stake per spacing of form and two per run; more only make
+	// the chains longer.
+	let expected = 0;
+	for (const r of runs) if (r.formed) expected += r.length / m.forms.stakeSpacing + 2;
+	const lastIn = bucketHeads(expected);
+	const mask = lastIn.length - 1;
 	const before: number[] = [];
-	const cellKey = (i: number, j: number) => (Math.imul(i, 73856093) ^ Math.imul(j, 19349663)) & 0x3fffffff;
+	const bucket = (i: number, j: number) => (Math.imul(i, 73856093) ^ Math.imul(j, 19349663)) & mask;
 	const near = (p: Pt, i: number, j: number) => {
-		for (let s = lastIn.get(cellKey(i, j)) ?? -1; s >= 0; s = before[s]) if (dist(p, stakes[s].at) <= 1e-4) return true;
+		for (let s = lastIn[bucket(i, j)]; s >= 0; s = before[s]) if (dist(p, stakes[s].at) <= 1e-4) return true;
 		return false;
 	};
 	/** Whether a stake stands within 0.1 mm of p; if none does, the next stake (at p) is entered. */
@@ -231,9 +254,9 @@ export function computeForms(m: Model, layout: Layout, splits: readonly SplitBul
 		const j0 = Math.floor((p[1] - 1e-4) * 1e3);
 		const j1 = Math.floor((p[1] + 1e-4) * 1e3);
 		if (near(p, i0, j0) || (i1 !== i0 && near(p, i1, j0)) || (j1 !== j0 && (near(p, i0, j1) || (i1 !== i0 && near(p, i1, j1))))) return true;
-		const k = cellKey(Math.floor(p[0] * 1e3), Math.floor(p[1] * 1e3));
-		before.push(lastIn.get(k) ?? -1);
-		lastIn.set(k, stakes.length);
+		const k = bucket(Math.floor(p[0] * 1e3), Math.floor(p[1] * 1e3));
+		before.push(lastIn[k]);
+		lastIn[k] = stakes.length;
 		return false;
 	};
 	let formLength = 0;

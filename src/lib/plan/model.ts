@@ -20,6 +20,7 @@ import {
 	windToKmh
 } from './units';
 import type { Units } from './units';
+import { ascending } from './util';
 
 /** PS 20 dressed (dry) depth of each nominal board, inches (DOC PS 20). */
 export const DRESSED_DEPTH_IN = { '2x4': 3.5, '2x6': 5.5, '2x8': 7.25, '2x10': 9.25, '2x12': 11.25 } as const;
@@ -189,7 +190,7 @@ export function toModel(p: ParsedPlan): Model {
 			stakeSpacing: L(p.forms.stakeSpacing),
 			stakeLength: S(p.forms.stakeLength),
 			release: p.forms.release,
-			stockLengths: [...p.forms.stockLengths].map(L).sort((a, b) => a - b),
+			stockLengths: [...p.forms.stockLengths].map(L).sort(ascending),
 			boardThickness: DRESSED_THICKNESS_IN * M_PER_IN
 		},
 		thickened: {

@@ -1,6 +1,8 @@
 // Plane geometry on simple polygons given as vertex lists. Unit-free: callers pass a length
 // tolerance in the same unit as the coordinates.
 
+import { ascending } from './util';
+
 export type Pt = readonly [number, number];
 
 export const sub = (a: Pt, b: Pt): Pt => [a[0] - b[0], a[1] - b[1]];
@@ -150,7 +152,7 @@ export function pointInPolygonXY(px: number, py: number, poly: readonly Pt[], ep
  * it, so the order is the same.
  */
 export function sortNumbers(v: number[]): number[] {
-	if (v.length > 32) return v.sort((p, q) => p - q);
+	if (v.length > 32) return v.sort(ascending);
 	for (let i = 1; i < v.length; i++) {
 		const x = v[i];
 		let j = i - 1;
@@ -236,19 +238,39 @@ export function interiorPoint(poly: readonly Pt[], eps: number): Pt {
 	return xs.length > 1 ? [(xs[0] + xs[1]) / 2, y] : poly[0];
 }
 
-/** Bounding box of every edge, packed [minX, minY, maxX, maxY] per edge, for quick rejection. */
-export function edgeBoxes(poly: readonly Pt[]): Float64Array {
+/**
+ * Bounding box of every edge, packed [minX, minY, maxX, maxY] per edge, for quick rejection:
+ * edge i's box is box `at + i` of `out`.
+ */
+export function edgeBoxes(poly: readonly Pt[], out = new Float64Array(4 * poly.length), at = 0): Float64Array {
 	const n = poly.length;
-	const out = new Float64Array(4 * n); // one allocation, the numbers stored unboxed
 	for (let i = 0; i < n; i++) {
 		const a = poly[i];
 		const b = poly[i + 1 === n ? 0 : i + 1];
-		out[4 * i] = Math.min(a[0], b[0]);
-		out[4 * i + 1] = Math.min(a[1], b[1]);
-		out[4 * i + 2] = Math.max(a[0], b[0]);
-		out[4 * i + 3] = Math.max(a[1], b[1]);
+		const k = 4 * (at + i);
+		out[k] = Math.min(a[0], b[0]);
+		out[k + 1] = Math.min(a[1], b[1]);
+		out[k + 2] = Math.max(a[0], b[0]);
+		out[k + 3] = Math.max(a[1], b[1]);
 	}
 	return out;
+}
+
+/**
+ * The edge boxes of several outlines in one typed array (the numbers stored unboxed, outside the
+ * JS heap): outline k's edge i is box `first[k] + i`. One array for all, because creating a typed
+ * array that size costs about a microsecond, more than filling it.
+ */
+export function allEdgeBoxes(polys: readonly (readonly Pt[])[]): { boxes: Float64Array; first: number[] } {
+	const first: number[] = [];
+	let n = 0;
+	for (const p of polys) {
+		first.push(n);
+		n += p.length;
+	}
+	const boxes = new Float64Array(4 * n);
+	for (let k = 0; k < polys.length; k++) edgeBoxes(polys[k], boxes, first[k]);
+	return { boxes, first };
 }
 
 /** Whether edge i of one packed set and edge j of another have meeting boxes. */

@@ -124,6 +124,41 @@ describe('errors carry dotted paths', () => {
 	});
 });
 
+// The outline has a parse of its own (parseOutline) in front of zod's: it takes only what zod
+// would, and everything else goes to zod, so the messages are zod's and the error map's.
+describe('outline parse', () => {
+	it('hands back new corners equal to those sent', () => {
+		const outline = square;
+		const r = parsePlanInput({ units: 'metric', sections: [{ outline }] });
+		if (!r.ok) throw new Error(JSON.stringify(r.errors));
+		const got = r.plan.sections[0].outline;
+		expect(got).toEqual(outline);
+		expect(got).not.toBe(outline);
+		got.forEach((p, i) => expect(p).not.toBe(outline[i]));
+	});
+
+	it('leaves every outline it does not take to zod, with the same messages', () => {
+		const corners = (...extra: unknown[]) => [[0, 0], [10, 0], ...extra];
+		const hole = corners([10, 10]);
+		hole[4] = [0, 10];
+		const corner = 'Enter each corner as two numbers [x, y] in ft.';
+		const cases: [unknown, string, string][] = [
+			[corners(), 'sections.0.outline', 'Give at least 3 corners in the outline.'],
+			[corners([1]), 'sections.0.outline.2', corner],
+			[corners([1, 1, 1]), 'sections.0.outline.2', corner],
+			[corners([1, '1']), 'sections.0.outline.2.1', corner],
+			[corners([NaN, 1]), 'sections.0.outline.2.0', corner],
+			[corners([Infinity, 1]), 'sections.0.outline.2.0', corner],
+			[corners(null), 'sections.0.outline.2', corner],
+			[corners([1, new Number(1)]), 'sections.0.outline.2.1', corner],
+			[hole, 'sections.0.outline.3', corner],
+			[Array.from({ length: 101 }, (_, i) => [Math.cos(i), Math.sin(i)]), 'sections.0.outline', 'Give at most 100 corners in the outline.'],
+			['square', 'sections.0.outline', 'Give the outline as a list.']
+		];
+		for (const [outline, path, message] of cases) expect(errorsOf({ ...base, sections: [{ outline }] })[0], JSON.stringify(outline)).toEqual({ path, message });
+	});
+});
+
 describe('JSON Schema', () => {
 	it('publishes both unit systems with their defaults', () => {
 		const s = planInputJsonSchema() as { oneOf: { properties: Record<string, { default?: unknown }> }[] };
