@@ -2,12 +2,25 @@
 // column instead of stretching its buttons and fields across the window, the layout drawing uses the
 // card's width, and a printed pour-day page or plan holds the record, not the controls.
 import { expect, test } from '@playwright/test';
-import { signUp, uniqueEmail, watchErrors } from './helpers';
+import { hydrated, signUp, uniqueEmail, watchErrors } from './helpers';
 import { axeClean, noSidewaysScroll, rectanglePlan } from './yard-helpers';
 
 test.describe.configure({ timeout: 240_000 });
 
-const input = rectanglePlan(12, 10, { airTemp: 70, house: true });
+const inUtc = (o: Intl.DateTimeFormatOptions) => (iso: string) =>
+	new Intl.DateTimeFormat('en-US', { ...o, timeZone: 'UTC' }).format(new Date(`${iso}T00:00:00Z`));
+const longDay = inUtc({ weekday: 'short', month: 'short', day: 'numeric', year: 'numeric' });
+const shortDay = inUtc({ dateStyle: 'medium' });
+
+/** The device's date `days` from now, YYYY-MM-DD. */
+const dayFromNow = (days: number) => {
+	const d = new Date(Date.now() + days * 86_400_000);
+	return new Date(d.getTime() - d.getTimezoneOffset() * 60_000).toISOString().slice(0, 10);
+};
+// Planned a week out: the pour page says what starting early does, and a start taken back dates nothing.
+const pourDate = dayFromNow(7);
+const base = rectanglePlan(12, 10, { airTemp: 70, house: true });
+const input = { ...base, conditions: { ...base.conditions, pourDate } };
 
 test('the pour-day page and the plan read well on a desktop screen and on paper', async ({ page }) => {
 	await page.setViewportSize({ width: 1366, height: 768 });
@@ -28,11 +41,40 @@ test('the pour-day page and the plan read well on a desktop screen and on paper'
 	// The pour page: one column about a phone wide; the one-tap buttons and fields stay in it.
 	await page.getByTestId('pour-link').click();
 	await page.waitForURL(`**/plans/${planId}/pour`);
+	await hydrated(page);
 	const pour = page.getByTestId('pour-0');
-	await pour.getByRole('button', { name: /^Start/ }).click();
+	const start = pour.getByRole('button', { name: /^Start/ });
 	const add = pour.getByTestId('add-batch');
-	await add.click();
+	// A week before the planned day, the page says what starting now would move.
+	await expect(pour.getByTestId('start-date-note')).toHaveText(
+		`Planned for ${longDay(pourDate)}. Starting it today counts the curing days, the reminders and the calendar from today instead.`
+	);
+	// With the keyboard: Start gives way to +1 batch, and the keyboard's place goes with it.
+	await start.focus();
+	await page.keyboard.press('Enter');
+	await expect(add).toBeFocused();
+	// Started by mistake: taken back, the pour is not started and the plan's dates stay the planned ones.
+	await pour.getByRole('button', { name: 'Take back the start' }).focus();
+	await page.keyboard.press('Enter');
+	await expect(start).toBeFocused();
+	await expect(page.getByTestId('sync-state')).toHaveText('All records sent.', { timeout: 30_000 });
+	await page.goto(`/plans/${planId}`);
+	await expect(page.getByTestId('planned-vs-logged')).toContainText('Nothing logged yet');
+	await expect(page.getByTestId('ics-dates')).toContainText(`dated from the planned first pour, ${shortDay(pourDate)}.`);
+	await page.goBack();
+	await hydrated(page);
+	await start.focus();
+	await page.keyboard.press('Enter');
+	await expect(add).toBeFocused();
+	await page.keyboard.press('Enter');
 	await expect(pour.getByTestId('batch-count')).toHaveText('1');
+	// "Placing done" by mistake is taken back the same way; the keyboard stays with the pour.
+	await pour.getByRole('button', { name: 'Placing done' }).focus();
+	await page.keyboard.press('Enter');
+	await expect(pour.getByTestId('placing-done')).toBeFocused();
+	await pour.getByRole('button', { name: 'Take back “Placing done”' }).click();
+	await expect(pour.getByRole('button', { name: 'Placing done' })).toBeFocused();
+	await expect(pour.getByTestId('placing-done')).toHaveCount(0);
 	for (const box of [await pour.boundingBox(), await add.boundingBox(), await page.getByRole('button', { name: 'Log temperature' }).boundingBox()])
 		expect(box!.width).toBeLessThanOrEqual(672);
 	await page.getByLabel('Day’s low and high').check();
