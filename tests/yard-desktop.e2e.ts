@@ -112,5 +112,27 @@ test('the pour-day page and the plan read well on a desktop screen and on paper'
 	await expect(logged.getByText('Daily temperatures used')).toBeHidden();
 	await page.emulateMedia({ media: 'screen' });
 	await axeClean(page);
+
+	// The pour page opened three days after a pour (logged on another device): the clock stopped when
+	// placing was done, 70 min after the first batch, and the finishing windows name their day.
+	const other = await page.request.post('/api/plans', { data: { name: 'Old pour', postcode: '97321', input: base } });
+	const otherId: string = (await other.json()).plan.id;
+	const t0 = Date.now() - 3 * 86_400_000;
+	const rec = (kind: string, minutes: number, i: number) => ({ kind, key: `old-pour-${kind}-${i}`, at: t0 + minutes * 60_000, tz: 0, pour: 0 });
+	const sent = await page.request.post(`/plans/${otherId}/pour/records`, {
+		data: { records: [rec('start', 0, 0), rec('batch', 5, 1), rec('batch', 40, 2), rec('end', 75, 3)] }
+	});
+	expect(sent.status()).toBe(200);
+	await page.goto(`/plans/${otherId}/pour`);
+	await hydrated(page);
+	const old = page.getByTestId('pour-0');
+	await expect(old.getByText('Placing took')).toBeVisible();
+	await expect(old.getByText('Since first batch')).toHaveCount(0);
+	await expect(old.getByTestId('elapsed')).toHaveText('1:10:00');
+	const zone = await page.evaluate(() => Intl.DateTimeFormat().resolvedOptions().timeZone);
+	const weekday = new Intl.DateTimeFormat('en-US', { weekday: 'short', timeZone: zone }).format(new Date(t0 + 75 * 60_000 + 30 * 60_000));
+	const windows = old.getByRole('listitem').filter({ hasText: 'bleed water' });
+	await expect(windows).toContainText(new RegExp(`^${weekday}, [A-Z][a-z]{2} \\d{1,2}, \\d{1,2}:\\d{2}`));
+	await expect(old.getByTestId('placing-done')).toContainText(new RegExp(`Placing done at [A-Z][a-z]{2}, [A-Z][a-z]{2} \\d{1,2}, \\d{1,2}:\\d{2}`));
 	expect(errors).toEqual([]);
 });
