@@ -87,6 +87,12 @@ test('the pour-day page and the plan read well on a desktop screen and on paper'
 	await expect(page.getByTestId('sync-state')).toHaveText('All records sent.', { timeout: 30_000 });
 	await noSidewaysScroll(page);
 	await axeClean(page);
+	// The photo picker (a hidden file input in a button-like label) shows where the keyboard is.
+	await page.getByRole('link', { name: 'the plan page' }).focus();
+	await page.keyboard.press('Tab');
+	await expect(page.getByTestId('photo-input')).toBeFocused();
+	const picker = page.locator('label', { has: page.getByTestId('photo-input') });
+	expect(await picker.evaluate((l) => getComputedStyle(l).outlineStyle)).toBe('solid');
 
 	// On paper the pour page is the record: counts, readings and notes, without the buttons and forms.
 	await page.emulateMedia({ media: 'print' });
@@ -105,6 +111,17 @@ test('the pour-day page and the plan read well on a desktop screen and on paper'
 
 	// The plan on paper: the comparison with the log prints, without its closed "Daily temperatures used" toggle.
 	await page.goto(`/plans/${planId}`);
+	await hydrated(page);
+	// The plan page's photo picker shows its focus too.
+	await page.getByRole('region', { name: 'Add site photos' }).getByTestId('photo-input').focus();
+	await page.keyboard.press('Shift+Tab');
+	await page.keyboard.press('Tab');
+	expect(
+		await page
+			.getByRole('region', { name: 'Add site photos' })
+			.locator('label')
+			.evaluate((l) => getComputedStyle(l).outlineStyle)
+	).toBe('solid');
 	const logged = page.getByTestId('planned-vs-logged');
 	await expect(logged.getByText('Daily temperatures used')).toBeVisible();
 	await page.emulateMedia({ media: 'print' });
