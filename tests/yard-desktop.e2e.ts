@@ -45,9 +45,10 @@ test('the pour-day page and the plan read well on a desktop screen and on paper'
 	const pour = page.getByTestId('pour-0');
 	const start = pour.getByRole('button', { name: /^Start/ });
 	const add = pour.getByTestId('add-batch');
-	// A week before the planned day, the page says what starting now would move.
+	// A week before the planned day (the card names it), the page says what starting now would move.
+	await expect(pour).toContainText(`planned for ${longDay(pourDate)}`);
 	await expect(pour.getByTestId('start-date-note')).toHaveText(
-		`Planned for ${longDay(pourDate)}. Starting it today counts the curing days, the reminders and the calendar from today instead.`
+		'Not the planned day: starting it today counts the curing days, the reminders and the calendar from today instead.'
 	);
 	// With the keyboard: Start gives way to +1 batch, and the keyboard's place goes with it.
 	await start.focus();
@@ -112,6 +113,8 @@ test('the pour-day page and the plan read well on a desktop screen and on paper'
 	// The plan on paper: the comparison with the log prints, without its closed "Daily temperatures used" toggle.
 	await page.goto(`/plans/${planId}`);
 	await hydrated(page);
+	// With a mouse, photos can be dropped on the box, and it says so.
+	await expect(page.getByRole('region', { name: 'Add site photos' }).getByTestId('drop-hint')).toHaveText('Drop photos of the site here');
 	// The plan page's photo picker shows its focus too.
 	await page.getByRole('region', { name: 'Add site photos' }).getByTestId('photo-input').focus();
 	await page.keyboard.press('Shift+Tab');
