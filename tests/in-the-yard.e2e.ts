@@ -94,6 +94,7 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await page.goto('/plans');
 	await expect(page.getByTestId('offline-note')).toContainText('Offline — this is the list as this device last saw it');
 	await expect(page.getByRole('link', { name: 'Yard patio' }).first()).toBeVisible();
+	expect((await page.getByRole('link', { name: 'Yard patio' }).first().boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	await page.goto(`/plans/${planId}/pour`);
 	await page.reload();
 	await expect(page.getByTestId('offline-note')).toBeVisible();
