@@ -140,7 +140,25 @@ test('the pour-day page and the plan read well on a desktop screen and on paper'
 	const t0 = Date.now() - 3 * 86_400_000;
 	const rec = (kind: string, minutes: number, i: number) => ({ kind, key: `old-pour-${kind}-${i}`, at: t0 + minutes * 60_000, tz: 0, pour: 0 });
 	const sent = await page.request.post(`/plans/${otherId}/pour/records`, {
-		data: { records: [rec('start', 0, 0), rec('batch', 5, 1), rec('batch', 40, 2), rec('end', 75, 3)] }
+		data: {
+			records: [
+				rec('start', 0, 0),
+				rec('batch', 5, 1),
+				rec('batch', 40, 2),
+				rec('end', 75, 3),
+				// Three cold days from the pour on (28–40 °F against the plan's 70 °F).
+				...[0, 1, 2].map((d) => ({
+					kind: 'temp',
+					key: `old-pour-temp-${d}`,
+					at: t0 + d * 86_400_000 + 120 * 60_000,
+					tz: 0,
+					date: new Date(t0 + d * 86_400_000).toISOString().slice(0, 10),
+					unit: 'F',
+					low: 28,
+					high: 40
+				}))
+			]
+		}
 	});
 	expect(sent.status()).toBe(200);
 	await page.goto(`/plans/${otherId}/pour`);
@@ -154,5 +172,8 @@ test('the pour-day page and the plan read well on a desktop screen and on paper'
 	const windows = old.getByRole('listitem').filter({ hasText: 'bleed water' });
 	await expect(windows).toContainText(new RegExp(`^${weekday}, [A-Z][a-z]{2} \\d{1,2}, \\d{1,2}:\\d{2}`));
 	await expect(old.getByTestId('placing-done')).toContainText(new RegExp(`Placing done at [A-Z][a-z]{2}, [A-Z][a-z]{2} \\d{1,2}, \\d{1,2}:\\d{2}`));
+	// The plan page says how much later than planned the cold days make each milestone.
+	await page.goto(`/plans/${otherId}`);
+	await expect(page.getByTestId('planned-vs-logged').getByTestId('logged-walk')).toContainText(/\(\d+ more days? than planned\)$/);
 	expect(errors).toEqual([]);
 });
