@@ -73,6 +73,10 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await expect(pour.getByRole('heading', { level: 2 })).toBeVisible();
 	await expect(pour).toContainText('working time 1 h 30 min'); // 90 min at 70 °F: the engine's default (common practice)
 	await expect(page.getByTestId('sync-state')).toHaveText('Nothing logged yet.');
+	// Pressed with a thumb, a mouse or a key alike; and it waits for a connection, whatever kind.
+	await expect(page.getByText(/^Press Start when the crew is ready/)).toHaveText(
+		'Press Start when the crew is ready, then +1 batch each time a batch goes in. Everything is kept on this device and sent when there is a connection.'
+	);
 	// The way back is a thumb-sized target too.
 	expect((await page.getByRole('link', { name: '← Yard patio' }).boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	await axeClean(page);
@@ -90,6 +94,7 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await page.goto('/plans');
 	await expect(page.getByTestId('offline-note')).toContainText('Offline — this is the list as this device last saw it');
 	await expect(page.getByRole('link', { name: 'Yard patio' }).first()).toBeVisible();
+	expect((await page.getByRole('link', { name: 'Yard patio' }).first().boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	await page.goto(`/plans/${planId}/pour`);
 	await page.reload();
 	await expect(page.getByTestId('offline-note')).toBeVisible();
@@ -103,6 +108,7 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	// Offline: start, two batches and the day's low and high.
 	await pour.getByRole('button', { name: /^Start/ }).click();
 	await expect(pour.getByTestId('started-at')).toContainText('The clock runs from the first batch.');
+	await expect(page.getByTestId('sync-state')).toHaveText('1 record waiting to send. Saved on this device; it will be sent when there is a connection.');
 	const add = pour.getByTestId('add-batch');
 	const box = (await add.boundingBox())!;
 	expect(box.height).toBeGreaterThanOrEqual(48); // a thumb-sized target
@@ -116,7 +122,7 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await page.getByTestId('temp-high').fill('52');
 	await page.getByRole('button', { name: 'Log temperature' }).click();
 	await expect(page.getByText('Temperature logged.')).toBeVisible();
-	await expect(page.getByTestId('sync-state')).toContainText('4 records waiting to send');
+	await expect(page.getByTestId('sync-state')).toHaveText('4 records waiting to send. Saved on this device; they will be sent when there is a connection.');
 	// Nothing reached the server from the page that logged it. Checked here, before the reload: Chromium
 	// applies the offline emulation to a new document a moment after it starts, and once (a fresh-clone
 	// run) the reloaded page's first send got through before it did, unseen in the trace's network log.

@@ -148,6 +148,10 @@ test('on a phone the edit page and the plan page of a saved plan do not scroll s
 	await everyStep(page, 'edit page');
 	await page.goto(`/plans/${plan.id}`);
 	await noSidewaysScroll(page, 'plan page');
+	// Nothing can be dropped on a touch screen: the photo box does not ask for it there.
+	const photoBox = page.getByRole('region', { name: 'Add site photos' });
+	await expect(photoBox.getByText('Photos of the site', { exact: true })).toBeVisible();
+	await expect(photoBox.getByTestId('drop-hint')).toBeHidden();
 	// The curing-reminder switch's label was one 26 px line.
 	expect((await page.getByText('E-mail me curing reminders').boundingBox())!.height).toBeGreaterThanOrEqual(44);
 });

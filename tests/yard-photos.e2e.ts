@@ -134,10 +134,9 @@ test('a waiting photo the plan no longer has room for is named with the reason a
 
 	// Two photos wait while the signal is gone…
 	await context.setOffline(true);
-	await page.getByTestId('photo-input').setInputFiles([
-		{ name: 'edge.jpg', mimeType: 'image/jpeg', buffer: await jpeg('#9bb88a') },
-		{ name: 'broom.jpg', mimeType: 'image/jpeg', buffer: await jpeg('#c8b89a') }
-	]);
+	await page.getByTestId('photo-input').setInputFiles([{ name: 'edge.jpg', mimeType: 'image/jpeg', buffer: await jpeg('#9bb88a') }]);
+	await expect(page.getByTestId('photo-queue-state')).toHaveText('1 photo waiting to send. Kept on this device; it will be sent when there is a connection.');
+	await page.getByTestId('photo-input').setInputFiles([{ name: 'broom.jpg', mimeType: 'image/jpeg', buffer: await jpeg('#c8b89a') }]);
 	await expect(page.getByTestId('queued-photo')).toHaveCount(2);
 	// …and meanwhile photos from another phone fill the plan to one short of its 20.
 	await sql`insert into plan_photo (plan_id, storage_key, thumb_key, content_type, bytes, original_name)

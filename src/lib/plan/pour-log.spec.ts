@@ -66,6 +66,26 @@ describe('records', () => {
 		expect(log.pours.get(0)!.bagsUsed).toBe(12);
 	});
 
+	it('drops a start and a "placing done" taken back, so a pour started by mistake dates nothing', () => {
+		const start = rec({ kind: 'start', pour: 0 }, 1);
+		const taken = foldRecords([start, rec({ kind: 'undo', pour: 0, of: start.key }, 2)]);
+		expect(taken.pours.get(0)).toBeUndefined();
+		const { m } = modelOf(input);
+		expect(loggedForecast(m, taken, 0)).toBeNull();
+		// Started again later: that start counts.
+		const again = rec({ kind: 'start', pour: 0 }, 3);
+		expect(foldRecords([start, rec({ kind: 'undo', pour: 0, of: start.key }, 2), again]).pours.get(0)).toMatchObject({
+			startedAt: again.at,
+			startKeys: [again.key]
+		});
+		const batch = rec({ kind: 'batch', pour: 0 }, 4);
+		const end = rec({ kind: 'end', pour: 0 }, 5);
+		expect(foldRecords([again, batch, end]).pours.get(0)).toMatchObject({ endedAt: end.at, endKey: end.key });
+		const reopened = foldRecords([again, batch, end, rec({ kind: 'undo', pour: 0, of: end.key }, 6)]).pours.get(0)!;
+		expect(reopened.endedAt).toBeUndefined();
+		expect(reopened.batches).toEqual([batch.at]);
+	});
+
 	it('takes the low/high mean over the readings of a day, and readings otherwise', () => {
 		const means = dailyMeans([
 			rec({ kind: 'temp', date: '2027-03-01', unit: 'F', reading: 50 }, 1) as never,

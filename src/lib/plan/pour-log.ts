@@ -56,7 +56,7 @@ export const pourRecordSchema = z
 	.discriminatedUnion('kind', [
 		z.object({ kind: z.literal('start'), ...base, pour }),
 		z.object({ kind: z.literal('batch'), ...base, pour }),
-		/** Takes back one batch tapped by mistake. */
+		/** Takes back one start, batch or end tapped by mistake: `of` is that record's key. */
 		z.object({ kind: z.literal('undo'), ...base, pour, of: key }),
 		z.object({ kind: z.literal('end'), ...base, pour }),
 		z.object({
@@ -114,10 +114,13 @@ export const toCelsius = (v: number, unit: 'C' | 'F') => (unit === 'C' ? v : ((v
 export interface PourLogEntry {
 	pour: number;
 	startedAt?: number;
+	/** Keys of the starts still counted (two devices may each have started the pour). */
+	startKeys: string[];
 	/** Times of the batches still counted (undone ones left out), in order. */
 	batches: number[];
 	batchKeys: string[];
 	endedAt?: number;
+	endKey?: string;
 	bagsUsed?: number;
 	/** Local date of the first batch, else of the start. */
 	date?: string;
@@ -129,36 +132,40 @@ export interface PourLog {
 	notes: Extract<PourRecord, { kind: 'note' }>[];
 }
 
-/** Folds records (any order, duplicates by key dropped) into the log. */
+/** Folds records (any order, duplicates by key dropped, undone starts, batches and ends left out) into the log. */
 export function foldRecords(records: readonly PourRecord[]): PourLog {
 	const seen = new Set<string>();
 	const list = records.filter((r) => !seen.has(r.key) && seen.add(r.key)).sort((a, b) => a.at - b.at || (a.key < b.key ? -1 : 1));
 	const undone = new Set(list.flatMap((r) => (r.kind === 'undo' ? [r.of] : [])));
 	const pours = new Map<number, PourLogEntry>();
 	const entry = (p: number) => {
-		if (!pours.has(p)) pours.set(p, { pour: p, batches: [], batchKeys: [] });
+		if (!pours.has(p)) pours.set(p, { pour: p, startKeys: [], batches: [], batchKeys: [] });
 		return pours.get(p)!;
 	};
 	const log: PourLog = { pours, temps: [], notes: [] };
 	for (const r of list) {
+		if (undone.has(r.key)) continue;
 		switch (r.kind) {
 			case 'start': {
 				const e = entry(r.pour);
 				if (e.startedAt === undefined) e.startedAt = r.at;
+				e.startKeys.push(r.key);
 				e.date ??= localDate(r);
 				break;
 			}
 			case 'batch': {
-				if (undone.has(r.key)) break;
 				const e = entry(r.pour);
 				if (!e.batches.length) e.date = localDate(r);
 				e.batches.push(r.at);
 				e.batchKeys.push(r.key);
 				break;
 			}
-			case 'end':
-				entry(r.pour).endedAt = r.at;
+			case 'end': {
+				const e = entry(r.pour);
+				e.endedAt = r.at;
+				e.endKey = r.key;
 				break;
+			}
 			case 'bags':
 				entry(r.pour).bagsUsed = r.bags;
 				break;

@@ -175,6 +175,19 @@ describe('curing reminders', () => {
 		expect(await jobsOf(p.id)).toEqual(expected(logged));
 	});
 
+	it('go back to the planned day when a start tapped by mistake is taken back', async () => {
+		const u = await owner();
+		const p = await createPlan(u.id, { name: 'Tried the button', input: input(soon) });
+		await setCuringReminders(p.id, u.id, true, TZ);
+		const early = addDays(soon, -3);
+		const rec = (r: Record<string, unknown>, key: string) => ({ key, at: Date.parse(`${early}T18:00:00Z`), tz: 0, ...r }) as PourRecord;
+		await savePourRecords(p.id, [rec({ kind: 'start', pour: 0 }, 'start-0001')]);
+		expect(await jobsOf(p.id)).toEqual(expected(early));
+		await savePourRecords(p.id, [rec({ kind: 'undo', pour: 0, of: 'start-0001' }, 'undo-0001')]);
+		expect(await jobsOf(p.id)).toEqual(expected(soon));
+		expect(await curingReminderStatus(p.id, u.id)).toMatchObject({ on: true, pourDate: soon, logged: false });
+	});
+
 	it('skip a job left from an earlier pour date', async () => {
 		const u = await owner();
 		const p = await createPlan(u.id, { name: 'Moved', input: input(addDays(soon, 5)) });
