@@ -4,7 +4,7 @@ import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { computePlan } from '../src/lib/plan/index';
 import { formatVolume } from '../src/lib/plan/format';
-import { demoPassword, demoUser, mailLink, openHydrated, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { demoPassword, demoUser, mailLink, openHydrated, sessionFile, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { pdfText } from './pdf-text';
 
 const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });
@@ -296,9 +296,13 @@ test('my plans: rename, duplicate and delete with confirmation', async ({ page }
 	await expect(page.getByTestId('plan-item')).toContainText('Patio by the oak');
 });
 
-test('contractors cannot use the plan API', async ({ page }) => {
-	await signIn(page, demoUser('contractor').email, demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
-	expect((await page.request.get('/api/plans')).status()).toBe(403);
-	expect((await page.goto('/plans/new'))?.status()).toBe(403);
+test.describe('signed in as the demo contractor', () => {
+	test.use({ storageState: sessionFile(demoUser('contractor').email) });
+
+	test('contractors cannot use the plan API', async ({ page }) => {
+		await page.goto('/pro');
+		await expect(page).toHaveURL(/\/pro$/);
+		expect((await page.request.get('/api/plans')).status()).toBe(403);
+		expect((await page.goto('/plans/new'))?.status()).toBe(403);
+	});
 });
