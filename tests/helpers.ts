@@ -134,6 +134,13 @@ export function watchErrors(page: Page) {
 	return errors;
 }
 
+/** Waits until the wizard has saved the signed-in visitor's plan (its editor's address names it) and returns the plan's id. */
+export async function savedPlanId(page: Page) {
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 15_000 });
+	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
+	return page.url().split('/').at(-2)!;
+}
+
 /** Opens a planner step from the step list and waits for its heading. */
 export async function wizardStep(page: Page, title: string) {
 	await page
