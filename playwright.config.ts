@@ -34,7 +34,11 @@ export default defineConfig({
 			]
 		}
 	},
-	projects: [{ name: 'chromium', use: { ...devices['Desktop Chrome'] } }],
+	projects: [
+		// Signs the demo accounts in once (tests/auth.setup.ts) for the tests that start signed in.
+		{ name: 'sign-in', testMatch: 'auth.setup.ts', use: { ...devices['Desktop Chrome'] } },
+		{ name: 'chromium', use: { ...devices['Desktop Chrome'] }, dependencies: ['sign-in'] }
+	],
 	webServer: {
 		command: 'node build',
 		url: `${baseURL}/healthz`,

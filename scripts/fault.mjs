@@ -12,6 +12,7 @@ import { settings } from './lib/settings.mjs';
 import { ensurePostgres, pgCluster } from './lib/pg.mjs';
 import { background, log } from './lib/run.mjs';
 import { build, migrate, node, seed } from './lib/steps.mjs';
+import { smallSlab as input } from './lib/plans.mjs';
 import path from 'node:path';
 import { root } from './lib/settings.mjs';
 
@@ -85,19 +86,6 @@ const cookie = (confirm.headers.getSetCookie?.() ?? []).map((c) => c.split(';')[
 if (!cookie) throw new Error(`Following the confirmation link gave no session (status ${confirm.status})`);
 const headers = { cookie, origin: base, 'content-type': 'application/json' };
 
-const input = {
-	units: 'imperial',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[12, 0],
-				[12, 10],
-				[0, 10]
-			]
-		}
-	]
-};
 let phase = 'steady';
 let stopping = false;
 const writes = [];

@@ -1,8 +1,30 @@
-import { expect, type Page } from '@playwright/test';
+import { expect, type Browser, type BrowserContextOptions, type Page } from '@playwright/test';
+import { existsSync, readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import demo from '../fixtures/demo.json' with { type: 'json' };
 
 export const demoPassword = demo.password;
 export const demoUser = (role: string) => demo.users.find((u) => u.role === role)!;
+/** The demo homeowner who owns the demo plan `planId` (fixtures/demo.json). */
+export const demoPlanOwner = (planId: string) => demo.users.find((u) => (u as { plans?: string[] }).plans?.includes(planId))!;
+
+/**
+ * The demo accounts a test may start signed in as, with where the sign-in form lands each:
+ * tests/auth.setup.ts signs each in once and keeps its cookies in sessionFile(email), and a test
+ * starts signed in with `test.use({ storageState: sessionFile(email) })`. The session is shared by
+ * every such test, so none of them may sign it out (signOut refuses); a test that signs out signs
+ * itself in.
+ */
+export const storedSessions = [
+	{ email: demoUser('admin').email, landsOn: /\/admin$/ },
+	{ email: demoUser('homeowner').email, landsOn: /\/plans$/ },
+	{ email: demoUser('contractor').email, landsOn: /\/pro$/ },
+	{ email: demoPlanOwner('castell-shed-pad').email, landsOn: /\/plans$/ }
+];
+export const sessionFile = (email: string) => fileURLToPath(new URL(`../.data/auth/${email}.json`, import.meta.url));
+
+/** A fresh visitor's browser context, also in a test that starts signed in: Playwright hands the test's `storageState` to every new context unless it is given one. */
+export const visitorContext = (browser: Browser, options: BrowserContextOptions = {}) => browser.newContext({ storageState: undefined, ...options });
 
 export function uniqueEmail(label: string) {
 	return `${label}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@e2e.stakeline.test`;
@@ -67,6 +89,13 @@ async function submitAndWait(page: Page, button: string) {
 }
 
 export async function signOut(page: Page) {
+	const token = (await page.context().cookies()).find((c) => c.name === 'stakeline_session')?.value;
+	for (const { email } of storedSessions) {
+		const file = sessionFile(email);
+		const stored: { cookies: { value: string }[] } = existsSync(file) ? JSON.parse(readFileSync(file, 'utf8')) : { cookies: [] };
+		if (token && stored.cookies.some((c) => c.value === token))
+			throw new Error(`signOut would end ${email}'s stored session, which later tests start with: sign this test in itself`);
+	}
 	await page.getByRole('button', { name: 'Sign out' }).click();
 	await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
 }
@@ -103,6 +132,13 @@ export function watchErrors(page: Page) {
 		if (m.type() === 'error' && m.text().includes('Content Security Policy')) errors.push(m.text());
 	});
 	return errors;
+}
+
+/** Waits until the wizard has saved the signed-in visitor's plan (its editor's address names it) and returns the plan's id. */
+export async function savedPlanId(page: Page) {
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 15_000 });
+	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
+	return page.url().split('/').at(-2)!;
 }
 
 /** Opens a planner step from the step list and waits for its heading. */

@@ -4,7 +4,7 @@ import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { computePlan } from '../src/lib/plan/index';
 import { formatVolume } from '../src/lib/plan/format';
-import { demoPassword, demoUser, mailLink, openHydrated, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { demoPassword, demoUser, mailLink, openHydrated, savedPlanId, sessionFile, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { pdfText } from './pdf-text';
 
 const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });
@@ -66,9 +66,7 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	const planned = expected.bags.find((b) => b.planned)!;
 	await expect(page.getByTestId('result-volume')).toHaveText(`${fmt(expected.volume.order.cubicYards, 2)} yd³`);
 	await expect(page.getByTestId('result-bags')).toHaveText(String(planned.count));
-	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 10_000 });
-	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
-	const id = page.url().split('/').at(-2)!;
+	const id = await savedPlanId(page);
 
 	// The server stored its own computation of the same input.
 	const api = await (await page.request.get(`/api/plans/${id}`)).json();
@@ -296,9 +294,13 @@ test('my plans: rename, duplicate and delete with confirmation', async ({ page }
 	await expect(page.getByTestId('plan-item')).toContainText('Patio by the oak');
 });
 
-test('contractors cannot use the plan API', async ({ page }) => {
-	await signIn(page, demoUser('contractor').email, demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
-	expect((await page.request.get('/api/plans')).status()).toBe(403);
-	expect((await page.goto('/plans/new'))?.status()).toBe(403);
+test.describe('signed in as the demo contractor', () => {
+	test.use({ storageState: sessionFile(demoUser('contractor').email) });
+
+	test('contractors cannot use the plan API', async ({ page }) => {
+		await page.goto('/pro');
+		await expect(page).toHaveURL(/\/pro$/);
+		expect((await page.request.get('/api/plans')).status()).toBe(403);
+		expect((await page.goto('/plans/new'))?.status()).toBe(403);
+	});
 });

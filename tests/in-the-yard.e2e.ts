@@ -5,6 +5,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import postgres from 'postgres';
 import sharp from 'sharp';
+import { smallPatio } from '../src/lib/plan/test-plans';
 import { signUp, uniqueEmail, watchErrors } from './helpers';
 
 test.describe.configure({ timeout: 240_000 });
@@ -20,17 +21,7 @@ async function stored(planId: string): Promise<Record<string, number>> {
 
 /** A 12 × 10 ft patio, two people mixing by hand, 70 °F: one pour. */
 const input = {
-	units: 'imperial',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[12, 0],
-				[12, 10],
-				[0, 10]
-			]
-		}
-	],
+	...smallPatio(),
 	houseEdge: { section: 0, edge: 0 },
 	crew: { people: 2, method: 'hand' },
 	conditions: { airTemp: 70, humidity: 50, wind: 5 }

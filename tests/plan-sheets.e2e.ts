@@ -1,7 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
-import demo from '../fixtures/demo.json' with { type: 'json' };
 import { writeFile, mkdir } from 'node:fs/promises';
-import { demoPassword, signIn } from './helpers';
+import { demoPlanOwner, sessionFile } from './helpers';
 import { pdfPageCount, pdfPagePixels, pdfPagePng, pdfPageText } from './pdf-text';
 
 test.describe.configure({ timeout: 90_000 });
@@ -10,12 +9,13 @@ test.describe.configure({ timeout: 90_000 });
  *  sections were grid items (not split across pages), 8 in block flow. */
 const PRINT_PAGES_AT_MOST = 8;
 
-/** A fresh visitor signs in as the demo homeowner who owns `planId` and opens that plan. */
-async function openDemoPlan(page: Page, planId: string) {
+/** Its owner's stored session (tests/auth.setup.ts), for a describe block whose tests open the demo plan `planId`. */
+const asOwnerOf = (planId: string) => test.use({ storageState: sessionFile(demoPlanOwner(planId).email) });
+
+/** The demo homeowner, signed in with their stored session, opens their plan from My plans. */
+async function openDemoPlan(page: Page) {
 	const errors: string[] = [];
 	page.on('pageerror', (e) => errors.push(e.message));
-	const owner = demo.users.find((u) => (u as { plans?: string[] }).plans?.includes(planId))!;
-	await signIn(page, owner.email, demoPassword);
 	await page.goto('/plans');
 	await page
 		.getByRole('link', { name: /Back patio|Shed pad|Corner patio/ })
@@ -40,108 +40,116 @@ async function smallestStakeId(page: Page) {
 	});
 }
 
-test('the plan page opens with the build card and carries a layout sheet with squaring diagonals, on screen and in print', async ({ page }) => {
-	const errors = await openDemoPlan(page, 'lind-back-patio');
-	// The demo back patio: 14 × 12 ft, 4 in thick on 4 in of base (fixtures/demo-plans.json).
-	const card = page.getByTestId('build-card');
-	await expect(card).toBeVisible();
-	await expect(card.getByText('Slab thickness')).toBeVisible();
-	await expect(card.locator('div', { hasText: 'Slab thickness' }).getByRole('definition').first()).toHaveText('4 in');
-	// 4 in of slab + 4 in of base.
-	await expect(
-		card
-			.locator('div', { hasText: /^Dig depth/ })
-			.getByRole('definition')
-			.first()
-	).toHaveText('8 in');
-	// The build card comes before everything else in the plan.
-	const cardTop = (await card.boundingBox())!.y;
-	const summaryTop = (await page.getByRole('heading', { name: 'Summary' }).boundingBox())!.y;
-	expect(cardTop).toBeLessThan(summaryTop);
+test.describe('the back patio, opened by its owner', () => {
+	asOwnerOf('lind-back-patio');
 
-	const sheet = page.getByTestId('layout-sheet');
-	await expect(sheet.getByRole('heading', { name: 'Layout sheet' })).toBeVisible();
-	await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
-	// Pythagoras: √(14² + 12²) = √340 = 18.4391 ft = 18 ft 5.269 in → 5 1/4 in to the sixteenth.
-	await expect(sheet.getByTestId('diagonals')).toContainText('A–C 18 ft 5 1/4 in');
-	await expect(sheet.getByTestId('diagonals')).toContainText('B–D 18 ft 5 1/4 in');
-	// 6-8-10: 6² + 8² = 10² (Pythagoras), the 8 ft leg along the 14 ft house edge A–B.
-	await expect(sheet.getByTestId('square-check')).toContainText('6-8-10 ft');
-	await expect(sheet.getByTestId('square-check')).toContainText('mark 8 ft 0 in along A–B');
-	// Every stake of the stake-mark table appears on the sheet under the same id.
-	const stakeIds = await page.locator('#plan-stake-marks ~ div tbody th').evaluateAll((ths) => ths.map((t) => /^S\d+/.exec(t.textContent!.trim())![0]));
-	expect(stakeIds.length).toBeGreaterThan(4);
-	for (const id of stakeIds) await expect(sheet.getByRole('rowheader', { name: id, exact: true })).toBeVisible();
-	await page.screenshot({ path: 'test-results/screens/plan-layout-sheet.png', fullPage: true });
-	// On a desktop the stake ids read at 12 px (they were about 8 px: paper sizes scaled to the screen).
-	await page.setViewportSize({ width: 1366, height: 768 });
-	await expect.poll(() => smallestStakeId(page)).toBeGreaterThanOrEqual(11.9);
+	test('the plan page opens with the build card and carries a layout sheet with squaring diagonals, on screen and in print', async ({ page }) => {
+		const errors = await openDemoPlan(page);
+		// The demo back patio: 14 × 12 ft, 4 in thick on 4 in of base (fixtures/demo-plans.json).
+		const card = page.getByTestId('build-card');
+		await expect(card).toBeVisible();
+		await expect(card.getByText('Slab thickness')).toBeVisible();
+		await expect(card.locator('div', { hasText: 'Slab thickness' }).getByRole('definition').first()).toHaveText('4 in');
+		// 4 in of slab + 4 in of base.
+		await expect(
+			card
+				.locator('div', { hasText: /^Dig depth/ })
+				.getByRole('definition')
+				.first()
+		).toHaveText('8 in');
+		// The build card comes before everything else in the plan.
+		const cardTop = (await card.boundingBox())!.y;
+		const summaryTop = (await page.getByRole('heading', { name: 'Summary' }).boundingBox())!.y;
+		expect(cardTop).toBeLessThan(summaryTop);
 
-	// The print view keeps the build card and the layout sheet and drops the buttons.
-	await page.emulateMedia({ media: 'print' });
-	await expect(page.getByTestId('build-card')).toBeVisible();
-	await expect(page.getByTestId('layout-sheet')).toBeVisible();
-	await expect(page.getByTestId('layout-drawing-print')).toBeVisible();
-	await expect(page.getByTestId('layout-drawing')).toBeHidden();
-	await expect(page.getByRole('link', { name: 'Edit the plan' })).toBeHidden();
-	// Stake ids on paper at least 7 CSS px tall (they were about 6 px: the drawing is shrunk to 4.2 in).
-	const stakeLabel = page.getByTestId('layout-drawing-print').locator('text', { hasText: /^S1$/ });
-	expect((await stakeLabel.boundingBox())!.height).toBeGreaterThanOrEqual(7);
-	await page.screenshot({ path: 'test-results/screens/plan-print.png', fullPage: true });
-	// Printed on Letter paper: the build card and the layout sheet start on page 1, the screen-only
-	// parts (3D, the outline editor's copy, photos, buttons, navigation) are left out, and no table
-	// row is cut in two.
-	const printed = await page.pdf({ format: 'Letter', printBackground: true });
-	const pages = await pdfPageCount(printed);
-	const first = await pdfPageText(printed, 1);
-	expect(first).toContain('Build card');
-	expect(first).toContain('Layout sheet');
-	for (const hidden of ['Edit the plan', 'Download PDF', 'Site photos', 'Sign out', '3D']) expect(first).not.toContain(hidden);
-	console.log(`printed plan: ${pages} pages`);
-	expect(pages).toBeLessThanOrEqual(PRINT_PAGES_AT_MOST);
-	// The sections flow on: the summary follows the layout sheet on page 2 instead of jumping to page 3.
-	const second = await pdfPageText(printed, 2);
-	expect(second).toContain('Summary');
-	expect(second).toContain('Concrete to order');
-	await mkdir('test-results/screens', { recursive: true });
-	for (const n of [1, 2]) await writeFile(`test-results/screens/plan-print-page-${n}.png`, await pdfPagePng(printed, n));
-	// White paper, even with background graphics on: not one pixel of page 1 in the screen's tint (#f7f4ec).
-	const paper = await pdfPagePixels(printed, 1);
-	let tinted = 0;
-	for (let i = 0; i < paper.data.length; i += 4)
-		if (Math.abs(paper.data[i] - 0xf7) <= 2 && Math.abs(paper.data[i + 1] - 0xf4) <= 2 && Math.abs(paper.data[i + 2] - 0xec) <= 2) tinted++;
-	expect(tinted).toBe(0);
-	const rowsCut = await page.evaluate(
-		() =>
-			[...document.querySelectorAll('tbody tr')].filter(
-				(tr) => getComputedStyle(tr).breakInside !== 'avoid' && getComputedStyle(tr).pageBreakInside !== 'avoid'
-			).length
-	);
-	expect(rowsCut).toBe(0);
-	expect(errors).toEqual([]);
+		const sheet = page.getByTestId('layout-sheet');
+		await expect(sheet.getByRole('heading', { name: 'Layout sheet' })).toBeVisible();
+		await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
+		// Pythagoras: √(14² + 12²) = √340 = 18.4391 ft = 18 ft 5.269 in → 5 1/4 in to the sixteenth.
+		await expect(sheet.getByTestId('diagonals')).toContainText('A–C 18 ft 5 1/4 in');
+		await expect(sheet.getByTestId('diagonals')).toContainText('B–D 18 ft 5 1/4 in');
+		// 6-8-10: 6² + 8² = 10² (Pythagoras), the 8 ft leg along the 14 ft house edge A–B.
+		await expect(sheet.getByTestId('square-check')).toContainText('6-8-10 ft');
+		await expect(sheet.getByTestId('square-check')).toContainText('mark 8 ft 0 in along A–B');
+		// Every stake of the stake-mark table appears on the sheet under the same id.
+		const stakeIds = await page.locator('#plan-stake-marks ~ div tbody th').evaluateAll((ths) => ths.map((t) => /^S\d+/.exec(t.textContent!.trim())![0]));
+		expect(stakeIds.length).toBeGreaterThan(4);
+		for (const id of stakeIds) await expect(sheet.getByRole('rowheader', { name: id, exact: true })).toBeVisible();
+		await page.screenshot({ path: 'test-results/screens/plan-layout-sheet.png', fullPage: true });
+		// On a desktop the stake ids read at 12 px (they were about 8 px: paper sizes scaled to the screen).
+		await page.setViewportSize({ width: 1366, height: 768 });
+		await expect.poll(() => smallestStakeId(page)).toBeGreaterThanOrEqual(11.9);
+
+		// The print view keeps the build card and the layout sheet and drops the buttons.
+		await page.emulateMedia({ media: 'print' });
+		await expect(page.getByTestId('build-card')).toBeVisible();
+		await expect(page.getByTestId('layout-sheet')).toBeVisible();
+		await expect(page.getByTestId('layout-drawing-print')).toBeVisible();
+		await expect(page.getByTestId('layout-drawing')).toBeHidden();
+		await expect(page.getByRole('link', { name: 'Edit the plan' })).toBeHidden();
+		// Stake ids on paper at least 7 CSS px tall (they were about 6 px: the drawing is shrunk to 4.2 in).
+		const stakeLabel = page.getByTestId('layout-drawing-print').locator('text', { hasText: /^S1$/ });
+		expect((await stakeLabel.boundingBox())!.height).toBeGreaterThanOrEqual(7);
+		await page.screenshot({ path: 'test-results/screens/plan-print.png', fullPage: true });
+		// Printed on Letter paper: the build card and the layout sheet start on page 1, the screen-only
+		// parts (3D, the outline editor's copy, photos, buttons, navigation) are left out, and no table
+		// row is cut in two.
+		const printed = await page.pdf({ format: 'Letter', printBackground: true });
+		const pages = await pdfPageCount(printed);
+		const first = await pdfPageText(printed, 1);
+		expect(first).toContain('Build card');
+		expect(first).toContain('Layout sheet');
+		for (const hidden of ['Edit the plan', 'Download PDF', 'Site photos', 'Sign out', '3D']) expect(first).not.toContain(hidden);
+		console.log(`printed plan: ${pages} pages`);
+		expect(pages).toBeLessThanOrEqual(PRINT_PAGES_AT_MOST);
+		// The sections flow on: the summary follows the layout sheet on page 2 instead of jumping to page 3.
+		const second = await pdfPageText(printed, 2);
+		expect(second).toContain('Summary');
+		expect(second).toContain('Concrete to order');
+		await mkdir('test-results/screens', { recursive: true });
+		for (const n of [1, 2]) await writeFile(`test-results/screens/plan-print-page-${n}.png`, await pdfPagePng(printed, n));
+		// White paper, even with background graphics on: not one pixel of page 1 in the screen's tint (#f7f4ec).
+		const paper = await pdfPagePixels(printed, 1);
+		let tinted = 0;
+		for (let i = 0; i < paper.data.length; i += 4)
+			if (Math.abs(paper.data[i] - 0xf7) <= 2 && Math.abs(paper.data[i + 1] - 0xf4) <= 2 && Math.abs(paper.data[i + 2] - 0xec) <= 2) tinted++;
+		expect(tinted).toBe(0);
+		const rowsCut = await page.evaluate(
+			() =>
+				[...document.querySelectorAll('tbody tr')].filter(
+					(tr) => getComputedStyle(tr).breakInside !== 'avoid' && getComputedStyle(tr).pageBreakInside !== 'avoid'
+				).length
+		);
+		expect(rowsCut).toBe(0);
+		expect(errors).toEqual([]);
+	});
 });
 
-test('a metric plan in two pours on a phone: corners carry the section number and diagonals read in metres', async ({ page }) => {
-	await page.setViewportSize({ width: 390, height: 844 });
-	const errors = await openDemoPlan(page, 'castell-shed-pad');
-	const sheet = page.getByTestId('layout-sheet');
-	// Two pours of 1.8 × 2.4 m: Pythagoras √(1.8² + 2.4²) = √9 = 3 m.
-	await expect(sheet.getByTestId('diagonals')).toContainText('1A–1C 3.000 m');
-	await expect(sheet.getByTestId('diagonals')).toContainText('2B–2D 3.000 m');
-	// On a phone the build card and the sheet fit the width: nothing scrolls sideways.
-	await expect(page.getByTestId('build-card')).toBeVisible();
-	await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
-	expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
-	// Stake ids at 11 px on a phone (they were about 4 px), placed clear of each other (layoutDrawing.spec).
-	await expect.poll(() => smallestStakeId(page)).toBeGreaterThanOrEqual(10.9);
-	await page.screenshot({ path: 'test-results/screens/plan-layout-sheet-390.png', fullPage: true });
-	const card = page.getByTestId('build-card');
-	// 100 mm slab + 100 mm thickened-edge trench; no base under the thickened edges (as the base volume lays it).
-	await expect(
-		card
-			.locator('div', { hasText: /^Dig at thickened edges/ })
-			.getByRole('definition')
-			.first()
-	).toHaveText('200 mm');
-	expect(errors).toEqual([]);
+test.describe('the shed pad in two pours, opened by its owner', () => {
+	asOwnerOf('castell-shed-pad');
+
+	test('a metric plan in two pours on a phone: corners carry the section number and diagonals read in metres', async ({ page }) => {
+		await page.setViewportSize({ width: 390, height: 844 });
+		const errors = await openDemoPlan(page);
+		const sheet = page.getByTestId('layout-sheet');
+		// Two pours of 1.8 × 2.4 m: Pythagoras √(1.8² + 2.4²) = √9 = 3 m.
+		await expect(sheet.getByTestId('diagonals')).toContainText('1A–1C 3.000 m');
+		await expect(sheet.getByTestId('diagonals')).toContainText('2B–2D 3.000 m');
+		// On a phone the build card and the sheet fit the width: nothing scrolls sideways.
+		await expect(page.getByTestId('build-card')).toBeVisible();
+		await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
+		expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+		// Stake ids at 11 px on a phone (they were about 4 px), placed clear of each other (layoutDrawing.spec).
+		await expect.poll(() => smallestStakeId(page)).toBeGreaterThanOrEqual(10.9);
+		await page.screenshot({ path: 'test-results/screens/plan-layout-sheet-390.png', fullPage: true });
+		const card = page.getByTestId('build-card');
+		// 100 mm slab + 100 mm thickened-edge trench; no base under the thickened edges (as the base volume lays it).
+		await expect(
+			card
+				.locator('div', { hasText: /^Dig at thickened edges/ })
+				.getByRole('definition')
+				.first()
+		).toHaveText('200 mm');
+		expect(errors).toEqual([]);
+	});
 });

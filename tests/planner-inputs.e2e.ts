@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
+import { savedPlanId, signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
 import { pdfText } from './pdf-text';
 
 // The engine inputs that got their own wizard fields: exposure, the day-by-day forecast, concrete
@@ -210,8 +210,7 @@ test('signed in, the new inputs are saved and hold after a reload', async ({ pag
 	await page.goto('/plans/new');
 	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
 	await fillAll(page);
-	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 15_000 });
-	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
+	const id = await savedPlanId(page);
 	const shown = await readNew(page);
 	expect(shown).toMatchObject({
 		exposure: 'severe',
@@ -227,7 +226,6 @@ test('signed in, the new inputs are saved and hold after a reload', async ({ pag
 	await page.reload();
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved');
 	expect(await readNew(page)).toEqual(shown);
-	const id = page.url().split('/').at(-2)!;
 	const stored = (await (await page.request.get(`/api/plans/${id}`)).json()).plan.input;
 	expect(stored.conditions.airLow).toEqual([55, 56, 57, 58, 59, 60, 61]);
 	expect(stored.sections[0].name).toBe('Back patio');
@@ -244,8 +242,7 @@ test("a freestanding pad's chosen high edge is marked on the plan page: 2D view,
 	await page.getByLabel('Freestanding: no house wall along the slab').check();
 	await goTo(page, 'Pitch');
 	await choose(page, 'high-edge', '0:2'); // edge C–D, the back of the 12 × 10 ft starter
-	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 15_000 });
-	const id = page.url().split('/').at(-2)!;
+	const id = await savedPlanId(page);
 	await page.goto(`/plans/${id}`);
 	await expect(page.getByTestId('outline-high-edge')).toBeVisible();
 	await expect(page.locator('figure svg line[data-high]')).toHaveCount(1);

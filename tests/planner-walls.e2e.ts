@@ -1,14 +1,8 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
+import { savedPlanId as saved, signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
 
 const wallBox = (page: Page, edge: string) => page.getByLabel(`House wall along edge ${edge}`);
 const housesDrawn = (page: Page) => page.locator('svg line[data-house]');
-
-async function saved(page: Page) {
-	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved', { timeout: 15_000 });
-	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/);
-	return page.url().split('/').at(-2)!;
-}
 
 test('an L around a house corner keeps both walls through save, reload, a split and the plan page', async ({ page }) => {
 	test.setTimeout(120_000);

@@ -8,21 +8,7 @@
 import { hash } from '@node-rs/argon2';
 import autocannon from 'autocannon';
 import postgres from 'postgres';
-
-/** A small square slab: a valid plan the engine computes quickly. */
-const input = {
-	units: 'imperial',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[12, 0],
-				[12, 10],
-				[0, 10]
-			]
-		}
-	]
-};
+import { smallSlab as input } from './plans.mjs';
 
 /**
  * Signs a homeowner in through nginx; returns the session cookie.

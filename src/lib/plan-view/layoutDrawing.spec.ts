@@ -4,7 +4,7 @@ import { layoutSheet } from '$lib/plan/layout-sheet';
 import { buildCardItems } from './buildCard';
 import { LABEL_SIZE, labelBox, layoutDrawing, PHONE_LABEL_SIZE, SCREEN_LABEL_SIZE, type LayoutDrawing } from './layoutDrawing';
 import demoPlans from '../../../fixtures/demo-plans.json' with { type: 'json' };
-import { cornerEll, splitSquare } from '$lib/plan/test-plans';
+import { cornerEll, rect, splitSquare } from '$lib/plan/test-plans';
 
 const twoPours = computePlan({
 	units: 'metric',
@@ -56,31 +56,13 @@ describe("a freestanding pad's high edge", () => {
 	// A 4 × 3 m shed pad, freestanding, high along edge C–D (vertex 2 to 3, the back).
 	const pad = computePlan({
 		units: 'metric',
-		sections: [
-			{
-				outline: [
-					[0, 0],
-					[4, 0],
-					[4, 3],
-					[0, 3]
-				]
-			}
-		],
+		sections: [{ outline: rect(0, 0, 4, 3) }],
 		houseEdge: null,
 		slope: { highEdge: { section: 0, edge: 2 } }
 	});
 	const alongHouse = computePlan({
 		units: 'metric',
-		sections: [
-			{
-				outline: [
-					[0, 0],
-					[4, 0],
-					[4, 3],
-					[0, 3]
-				]
-			}
-		],
+		sections: [{ outline: rect(0, 0, 4, 3) }],
 		slope: { highEdge: { section: 0, edge: 2 } }
 	});
 

@@ -14,21 +14,10 @@ import {
 	type Pt
 } from './polygon';
 
-const rect: Pt[] = [
-	[0, 0],
-	[20, 0],
-	[20, 12],
-	[0, 12]
-];
-// L-shape: a 24 × 18 rectangle less an 8 × 6 notch at the origin.
-const ell: Pt[] = [
-	[8, 0],
-	[24, 0],
-	[24, 18],
-	[0, 18],
-	[0, 6],
-	[8, 6]
-];
+import { ELL as ell, rect as rectAt } from './test-plans';
+
+const rect: Pt[] = rectAt(0, 0, 20, 12);
+// ell: a 24 × 18 rectangle less an 8 × 6 notch at the origin.
 const eps = 1e-9;
 
 describe('area and perimeter', () => {

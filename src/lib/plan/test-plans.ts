@@ -12,6 +12,9 @@ export const rect = (x0: number, y0: number, w: number, h: number): [number, num
 	[x0, y0 + h]
 ];
 
+/** A 12 × 10 ft patio: a valid plan the engine computes quickly, for specs and journeys about something else. */
+export const smallPatio = (): PlanInput => ({ units: 'imperial', sections: [{ outline: rect(0, 0, 12, 10) }] });
+
 /** L-shape: a 24 × 18 rectangle less an 8 × 6 notch at the origin (a house corner). */
 export const ELL: [number, number][] = [
 	[8, 0],

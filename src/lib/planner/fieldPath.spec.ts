@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { starterInput } from './draft.svelte';
 import { loadEngine } from './engine.svelte';
-import { numberAt, setNumberAt, valueAt } from './fieldPath';
+import { choiceAt, numberAt, setChoiceAt, setNumberAt, valueAt } from './fieldPath';
 
 beforeAll(() => loadEngine());
 
@@ -34,6 +34,17 @@ describe('a field named by its path in the plan', () => {
 		plan.fill = undefined;
 		expect(() => setNumberAt(plan, 'fill.largestPiece', 4)).toThrow(/no fill/);
 		expect(plan.fill).toBeUndefined();
+	});
+
+	it('reads and writes a choice at its path, and nowhere else', () => {
+		const plan = starterInput('imperial');
+		const before = structuredClone(plan);
+		expect(choiceAt(plan, 'mix.cement')).toBe(plan.mix.cement);
+		setChoiceAt(plan, 'mix.cement', 'typeIII');
+		expect(plan.mix.cement).toBe('typeIII');
+		setChoiceAt(plan, 'exposure', 'severe');
+		expect(choiceAt(plan, 'exposure')).toBe('severe');
+		expect({ ...plan, mix: before.mix, exposure: before.exposure }).toEqual(before);
 	});
 
 	it('gives undefined for a step that is missing or not an object', () => {

@@ -4,7 +4,7 @@ import { leadTarget, openLeadStatuses, statusesMovedBy } from '$lib/lead-status'
 import { formatDate } from '$lib/plan-view';
 import type { BidInput } from '$lib/schemas/leads';
 import { db } from '$lib/server/db';
-import { bid, contractor, lead, plan } from '$lib/server/db/schema';
+import { bid, contractor, lead } from '$lib/server/db/schema';
 import { queueMail } from './mail';
 import { bidDecisionMail, biddingReopenedMail, bidWithdrawnMail, jobReleasedMail, newBidMail } from './mail/pro-notices';
 import {
@@ -16,6 +16,7 @@ import {
 	LeadRefused,
 	leadUrl,
 	lockOwnLead,
+	lockOwnPlan,
 	saveJobContact,
 	step,
 	today,
@@ -32,12 +33,7 @@ import {
  */
 export async function acceptBid(ownerId: string, planId: string, bidId: string, origin: string, contact: JobContactInput) {
 	const out = await db.transaction(async (tx) => {
-		const [p] = await tx
-			.select({ id: plan.id })
-			.from(plan)
-			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
-			.for('update');
-		if (!p) return null;
+		if (!(await lockOwnPlan(tx, ownerId, planId))) return null;
 		const [b] = await tx
 			.select()
 			.from(bid)
@@ -152,12 +148,7 @@ export async function withdrawBid(contractorId: string, leadId: string, origin =
  */
 export async function reopenBidding(ownerId: string, planId: string, origin: string) {
 	const out = await db.transaction(async (tx) => {
-		const [p] = await tx
-			.select({ id: plan.id })
-			.from(plan)
-			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
-			.for('update');
-		if (!p) return null;
+		if (!(await lockOwnPlan(tx, ownerId, planId))) return null;
 		const [won] = await tx
 			.select({ bidId: bid.id, leadId: bid.leadId, status: contractor.status })
 			.from(bid)

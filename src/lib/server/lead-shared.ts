@@ -61,13 +61,22 @@ export const leadContractors = (tx: Tx, leadIds: string[]) =>
 				.where(inArray(lead.id, leadIds))
 		: Promise.resolve([]);
 
-/** The owner's plan, locked against a concurrent accept; refused once a bid is accepted. */
-export async function lockOpenPlan(tx: Tx, ownerId: string, planId: string) {
+/**
+ * The owner's plan row, locked FOR UPDATE: the homeowner's decisions on one plan (send, accept,
+ * release, close, done) run one after the other. Undefined when the plan is not theirs.
+ */
+export async function lockOwnPlan(tx: Tx, ownerId: string, planId: string) {
 	const [p] = await tx
 		.select()
 		.from(plan)
 		.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
 		.for('update');
+	return p;
+}
+
+/** The owner's plan, locked against a concurrent accept; refused once a bid is accepted. */
+export async function lockOpenPlan(tx: Tx, ownerId: string, planId: string) {
+	const p = await lockOwnPlan(tx, ownerId, planId);
 	if (!p) return null;
 	const [accepted] = await tx
 		.select({ id: bid.id })

@@ -22,11 +22,8 @@ import { deletePlan, PlanHasLeads } from './plans';
 import { createUser } from './users';
 import { setAccountDisabled } from './account-access';
 import { decide } from './vetting';
-import type { PlanResult } from '$lib/plan';
+import { homeownerWithPlan as seedHomeownerWithPlan } from './integration-fixtures';
 import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
-
-/** A stored result with only the figures these tests need, as an old engine version left rows (engine_version 0). */
-const storedFigures = (figures: object) => figures as PlanResult;
 
 useTestDatabase();
 
@@ -65,20 +62,13 @@ async function approvedContractor(
 	return u;
 }
 
-async function homeownerWithPlan(postcode = HOME_ZIP) {
-	const owner = await createUser({ name: 'Hale Owner', email: unique('home'), password: 'homeowner-pass', role: 'homeowner' });
-	const [p] = await db
-		.insert(plan)
-		.values({
-			ownerId: owner.id,
-			name: 'Side walk',
-			postcode,
-			input: { units: 'imperial', note: 'first' },
-			result: storedFigures({ area: { squareFeet: 60, squareMeters: 5.57 } })
-		})
-		.returning();
-	return { owner, plan: p };
-}
+const homeownerWithPlan = (postcode = HOME_ZIP) =>
+	seedHomeownerWithPlan('Hale Owner', {
+		name: 'Side walk',
+		postcode,
+		input: { units: 'imperial', note: 'first' },
+		figures: { area: { squareFeet: 60, squareMeters: 5.57 } }
+	});
 
 const bidInput = (dollars: number) => ({
 	totalCents: dollars * 100,

@@ -6,7 +6,7 @@ import { formatDate } from '$lib/plan-view';
 import type { ServiceKind } from '$lib/schemas/contractor';
 import type { ExistingSurface, Finish, Timeframe } from '$lib/leads';
 import { db } from '$lib/server/db';
-import { bid, contractor, lead, plan, planPhoto, user } from '$lib/server/db/schema';
+import { bid, contractor, lead, planPhoto, user } from '$lib/server/db/schema';
 import { queueMail } from './mail';
 import {
 	contractorActiveAgainMail,
@@ -29,6 +29,7 @@ import {
 	leadUrl,
 	lockOpenPlan,
 	lockOwnLead,
+	lockOwnPlan,
 	saveJobContact,
 	step,
 	type Actor,
@@ -289,12 +290,7 @@ export async function leadPhotoPlan(contractorId: string, leadId: string, photoI
  */
 export async function closeRequest(ownerId: string, planId: string, origin: string) {
 	const out = await db.transaction(async (tx) => {
-		const [p] = await tx
-			.select({ id: plan.id })
-			.from(plan)
-			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
-			.for('update');
-		if (!p) return null;
+		if (!(await lockOwnPlan(tx, ownerId, planId))) return null;
 		const leads = await tx.select({ id: lead.id, status: lead.status }).from(lead).where(eq(lead.planId, planId)).for('update');
 		for (const l of leads)
 			step(l.status, 'close', l.status === 'won' ? 'You accepted a bid already: mark the job done when it is finished.' : 'This job is done already.');
@@ -325,12 +321,7 @@ export async function closeRequest(ownerId: string, planId: string, origin: stri
 /** The homeowner marks the hired job done (won → done) and the contractor is told. */
 export async function completeJob(ownerId: string, planId: string, origin: string) {
 	const out = await db.transaction(async (tx) => {
-		const [p] = await tx
-			.select({ id: plan.id })
-			.from(plan)
-			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)))
-			.for('update');
-		if (!p) return null;
+		if (!(await lockOwnPlan(tx, ownerId, planId))) return null;
 		const [won] = await tx
 			.select({ id: lead.id, status: lead.status })
 			.from(lead)

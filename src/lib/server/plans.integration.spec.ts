@@ -7,23 +7,26 @@ import { plan } from './db/schema';
 import { createPlan, deletePlan, duplicatePlan, findOwnPlan, listPlans, PlanInputInvalid, recomputeOutdatedPlans, StaleRevision, updatePlan } from './plans';
 import { createUser } from './users';
 import { useTestDatabase } from './integration-setup';
+import { rect } from '$lib/plan/test-plans';
 
 useTestDatabase();
 
 const owner = () => createUser({ name: 'Plan Owner', email: `plans-${crypto.randomUUID()}@it.stakeline.test`, password: 'plans-password', role: 'homeowner' });
-const input = (length = 12) => ({
+const input = (length = 12) => ({ units: 'imperial', sections: [{ outline: rect(0, 0, length, 10) }] });
+/** A bow tie: its outline crosses itself, which the schema refuses. */
+const bowTie = {
 	units: 'imperial',
 	sections: [
 		{
 			outline: [
 				[0, 0],
-				[length, 0],
-				[length, 10],
+				[10, 10],
+				[10, 0],
 				[0, 10]
 			]
 		}
 	]
-});
+};
 
 describe('saved plans', () => {
 	it('record the engine version of their result; an older one is recomputed from the input', async () => {
@@ -31,25 +34,12 @@ describe('saved plans', () => {
 		const p = await createPlan(me.id, { name: 'Versioned', input: input() });
 		expect(p.engineVersion).toBe(ENGINE_VERSION);
 		// What an older engine left: another result (here a 12 × 10 ft slab's for a 16 × 10 ft input), version 0.
-		const refusedInput = {
-			units: 'imperial',
-			sections: [
-				{
-					outline: [
-						[0, 0],
-						[10, 10],
-						[10, 0],
-						[0, 10]
-					]
-				}
-			]
-		}; // crosses itself
 		await db
 			.update(plan)
 			.set({ input: input(16), engineVersion: 0 })
 			.where(eq(plan.id, p.id));
 		const bad = await createPlan(me.id, { name: 'Now refused', input: input() });
-		await db.update(plan).set({ input: refusedInput, engineVersion: 0 }).where(eq(plan.id, bad.id));
+		await db.update(plan).set({ input: bowTie, engineVersion: 0 }).where(eq(plan.id, bad.id));
 
 		const { updated, refused } = await recomputeOutdatedPlans(1);
 		expect(updated).toBeGreaterThanOrEqual(1);
@@ -74,20 +64,7 @@ describe('saved plans', () => {
 
 	it('refuse invalid input with paths under input', async () => {
 		const me = await owner();
-		const bad = {
-			units: 'imperial',
-			sections: [
-				{
-					outline: [
-						[0, 0],
-						[10, 10],
-						[10, 0],
-						[0, 10]
-					]
-				}
-			]
-		}; // a bow tie crosses itself
-		const err = await createPlan(me.id, { name: 'Bow tie', input: bad }).catch((e) => e);
+		const err = await createPlan(me.id, { name: 'Bow tie', input: bowTie }).catch((e) => e);
 		expect(err).toBeInstanceOf(PlanInputInvalid);
 		expect((err as PlanInputInvalid).issues[0].path).toMatch(/^input\.sections/);
 	});

@@ -5,17 +5,14 @@
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { and, eq, like } from 'drizzle-orm';
 import { db } from './db';
-import { bid, contractor, credentialReminder, lead, mailOutbox, plan, user } from './db/schema';
+import { bid, contractor, credentialReminder, lead, mailOutbox, user } from './db/schema';
 import { sweep, sweepContractor } from './credentials';
 import { closeRequest, completeJob, contractorLead, expireLeadsNow, LeadRefused, sendLeads } from './leads';
 import { acceptBid, saveBid } from './bids';
 import { matchContractors, placeOf } from './matching';
 import { createUser } from './users';
-import type { PlanResult } from '$lib/plan';
+import { homeownerWithPlan } from './integration-fixtures';
 import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
-
-/** A stored result with only the figures these tests need, as an old engine version left rows (engine_version 0). */
-const storedFigures = (figures: object) => figures as PlanResult;
 
 useTestDatabase();
 afterEach(() => {
@@ -60,17 +57,11 @@ async function firm(name: string, dates: { licence: string | null; insurance: st
 }
 
 async function homeowner() {
-	const owner = await createUser({ name: 'Wynn Harrow', email: unique('home'), password: 'homeowner-pass', role: 'homeowner' });
-	const [p] = await db
-		.insert(plan)
-		.values({
-			ownerId: owner.id,
-			name: 'Back step pad',
-			postcode: HOME_ZIP,
-			input: { units: 'imperial' },
-			result: storedFigures({ area: { squareFeet: 40, squareMeters: 3.7 } })
-		})
-		.returning();
+	const { owner, plan: p } = await homeownerWithPlan('Wynn Harrow', {
+		name: 'Back step pad',
+		postcode: HOME_ZIP,
+		figures: { area: { squareFeet: 40, squareMeters: 3.7 } }
+	});
 	const [{ email }] = await db.select({ email: user.email }).from(user).where(eq(user.id, owner.id));
 	return { owner, plan: p, email };
 }

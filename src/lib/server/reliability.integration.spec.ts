@@ -10,22 +10,11 @@ import { createLogger, safePath } from './log';
 import { requestHandle, serverErrorHandler, UNAVAILABLE } from './requests';
 import { createUser } from './users';
 import { useTestDatabase } from './integration-setup';
+import { smallPatio } from '$lib/plan/test-plans';
 
 useTestDatabase();
 
-const input = {
-	units: 'imperial',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[12, 0],
-				[12, 10],
-				[0, 10]
-			]
-		}
-	]
-};
+const input = smallPatio();
 const owner = () => createUser({ name: 'Retry Owner', email: `retry-${crypto.randomUUID()}@it.stakeline.test`, password: 'retry-password', role: 'homeowner' });
 
 function capture() {

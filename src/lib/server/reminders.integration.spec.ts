@@ -14,6 +14,7 @@ import { createUser } from './users';
 import { savePourRecords } from './pour-records';
 import type { PourRecord } from '$lib/plan/pour-log';
 import { useTestDatabase } from './integration-setup';
+import { smallPatio } from '$lib/plan/test-plans';
 
 useTestDatabase();
 
@@ -27,20 +28,7 @@ const owner = () =>
 		role: 'homeowner',
 		verified: true
 	});
-const input = (pourDate: string) => ({
-	units: 'imperial',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[12, 0],
-				[12, 10],
-				[0, 10]
-			]
-		}
-	],
-	conditions: { airTemp: 60, pourDate }
-});
+const input = (pourDate: string) => ({ ...smallPatio(), conditions: { airTemp: 60, pourDate } });
 /** The plan's reminder jobs waiting in the queue: day → run_at. */
 const jobsOf = async (planId: string) =>
 	Object.fromEntries(

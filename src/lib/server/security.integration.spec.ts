@@ -17,6 +17,7 @@ import { createPlan, findOwnPlan } from './plans';
 import { hashToken } from './tokens';
 import { createUser, sendPasswordResetMail, sendVerificationMail } from './users';
 import { uniqueEmail as unique, useTestDatabase } from './integration-setup';
+import { smallPatio } from '$lib/plan/test-plans';
 
 useTestDatabase();
 
@@ -206,19 +207,7 @@ describe('sessions', () => {
 });
 
 describe('plans and photos', () => {
-	const input = {
-		units: 'imperial',
-		sections: [
-			{
-				outline: [
-					[0, 0],
-					[12, 0],
-					[12, 10],
-					[0, 10]
-				]
-			}
-		]
-	};
+	const input = smallPatio();
 
 	it('answer 404 to deleting someone else’s plan, and keep it', async () => {
 		const owner = await homeowner();

@@ -1,5 +1,11 @@
 import type { PlanResult } from '$lib/plan';
 
+/** What the wizard's results panel and its phone bar show. pending: the engine is still loading; failed: it could not be fetched. */
+export type ResultsState = { result: PlanResult | null; errorCount?: number; pending?: boolean; failed?: boolean };
+
+/** The bag size the mixing plan counts in (the first offered while none is marked). */
+export const plannedBag = (result: PlanResult | null) => result?.bags.find((b) => b.planned) ?? result?.bags[0];
+
 /**
  * Mixing and placing as the results show it: once the slab is poured in several pours, the figure
  * that matters on the day is the longest single pour, and whether each pour fits its working time.

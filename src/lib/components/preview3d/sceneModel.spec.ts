@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan, type PlanInput } from '$lib/plan';
-import { splitSquare } from '$lib/plan/test-plans';
+import { rect, splitSquare } from '$lib/plan/test-plans';
 import { M_PER_FT, M_PER_IN } from '$lib/plan/units';
 import { buildScene, LABEL_CLEARANCE_M, LAWN_OVERLAP_M, spreadLabels, LINE_LIFT_M, signedArea, surfaceAt, type Prism } from './sceneModel';
 import { prismTriangles, triangulate } from './meshes';
@@ -8,16 +8,7 @@ import { prismTriangles, triangulate } from './meshes';
 // A 3 × 2 m pad against a wall along y = 0, falling 2 % away from it.
 const pad: PlanInput = {
 	units: 'metric',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[3, 0],
-				[3, 2],
-				[0, 2]
-			]
-		}
-	],
+	sections: [{ outline: rect(0, 0, 3, 2) }],
 	houseEdge: { section: 0, edge: 0 },
 	gapToHouse: 12,
 	slope: { fall: { value: 2, unit: 'percent' } },
@@ -28,24 +19,7 @@ const pad: PlanInput = {
 // Two pours side by side, 22 × 14 ft, thickened on the open edges.
 const patio: PlanInput = {
 	units: 'imperial',
-	sections: [
-		{
-			outline: [
-				[0, 0],
-				[12, 0],
-				[12, 14],
-				[0, 14]
-			]
-		},
-		{
-			outline: [
-				[12, 0],
-				[22, 0],
-				[22, 14],
-				[12, 14]
-			]
-		}
-	],
+	sections: [{ outline: rect(0, 0, 12, 14) }, { outline: rect(12, 0, 10, 14) }],
 	houseEdge: { section: 0, edge: 0 },
 	otherHouseEdges: [{ section: 1, edge: 0 }],
 	slope: { fall: { value: 2, unit: 'percent' } },

@@ -8,7 +8,7 @@ import { and, eq } from 'drizzle-orm';
 import { env } from '$env/dynamic/private';
 import { extraLead, monthlyPlan, leadPack } from '$lib/billing-plans';
 import { db } from '../db';
-import { billingAccount, billingEvent, contractor, lead, leadCharge, mailOutbox, plan, user } from '../db/schema';
+import { billingAccount, billingEvent, contractor, lead, leadCharge, mailOutbox, user } from '../db/schema';
 import { saveBid } from '../bids';
 import { closeRequest, expireLeadsNow, sendLeads } from '../leads';
 import { matchContractors, placeOf } from '../matching';
@@ -18,11 +18,8 @@ import { syncExtraLead } from './extra-leads';
 import { invoicesOf, setCancelAtPeriodEnd, startCardUpdate, startPackCheckout, startPlanCheckout } from './checkout';
 import { payments } from './client';
 import { applyEvent, BadSignature, verifyEvent } from './webhooks';
-import type { PlanResult } from '$lib/plan';
+import { homeownerWithPlan } from '../integration-fixtures';
 import { uniqueEmail as unique, useTestDatabase } from '../integration-setup';
-
-/** The few figures a lead reads, stored as a plan result (the engine's whole result is not needed here). */
-const storedFigures = (figures: object) => figures as PlanResult;
 
 const origin = 'http://127.0.0.1:3000';
 const fake = `http://127.0.0.1:${env.PAYMENTS_FAKE_PORT}`;
@@ -92,17 +89,11 @@ async function approvedContractor(name: string) {
 
 /** A homeowner's plan sent to the contractor; returns the lead and the plan. */
 async function leadFor(contractorId: string) {
-	const owner = await createUser({ name: 'Ines Owner', email: unique('home'), password: 'homeowner-pass', role: 'homeowner' });
-	const [p] = await db
-		.insert(plan)
-		.values({
-			ownerId: owner.id,
-			name: 'Back walk',
-			postcode: ZIP,
-			input: { units: 'imperial' },
-			result: storedFigures({ area: { squareFeet: 80, squareMeters: 7.43 } })
-		})
-		.returning();
+	const { owner, plan: p } = await homeownerWithPlan('Ines Owner', {
+		name: 'Back walk',
+		postcode: ZIP,
+		figures: { area: { squareFeet: 80, squareMeters: 7.43 } }
+	});
 	await sendLeads(owner, p.id, { scope: 'whole_job', timeframe: 'flexible', notes: '', contractors: [contractorId] }, origin);
 	const [l] = await db
 		.select()

@@ -10,6 +10,7 @@ import { buildCardItems } from '$lib/plan-view/buildCard';
 import { layoutDrawing } from '$lib/plan-view/layoutDrawing';
 import { layoutSheet } from '$lib/plan/layout-sheet';
 import { pdfText, planPdf, woffToSfnt } from './planPdf';
+import { smallPatio } from '$lib/plan/test-plans';
 
 const plans = demo.plans.map((p) => ({ id: p.id, name: p.input.name, result: computePlan(p.input) }));
 
@@ -102,18 +103,8 @@ describe('planPdf', () => {
 			id: 'freestanding pad',
 			name: 'Shed pad',
 			result: computePlan({
-				units: 'imperial',
+				...smallPatio(),
 				name: 'Shed pad',
-				sections: [
-					{
-						outline: [
-							[0, 0],
-							[12, 0],
-							[12, 10],
-							[0, 10]
-						]
-					}
-				],
 				houseEdge: null,
 				slope: { highEdge: { section: 0, edge: 2 } }
 			})
