@@ -16,7 +16,8 @@ const origin = 'http://stakeline.test';
 /** The link's token as the fake mailbox received it (the outbox copy is blanked once sent). */
 async function tokenSentTo(to: string) {
 	let text = '';
-	await expect.poll(async () => (text = (await db.select().from(devMail).where(eq(devMail.to, to)))[0]?.text ?? '')).toMatch(/token=/);
+	// The mail worker sends within a second or so; a loaded machine can take longer.
+	await expect.poll(async () => (text = (await db.select().from(devMail).where(eq(devMail.to, to)))[0]?.text ?? ''), { timeout: 15_000 }).toMatch(/token=/);
 	return /token=([A-Za-z0-9_=-]+)/.exec(text)![1];
 }
 const outboxTo = (to: string) =>

@@ -13,8 +13,24 @@ const dir = mkdtempSync(path.join(tmpdir(), 'stakeline-backup-'));
 const source = process.env.DATABASE_URL!;
 const target = Object.assign(new URL(source), { pathname: `/${scratch}` }).toString();
 
+/**
+ * Drops the scratch database. FORCE ends our own connections to it, but not an autovacuum worker
+ * that has just opened the new database (that needs a superuser): then wait and try again.
+ */
+async function dropScratch() {
+	for (let attempt = 1; ; attempt++) {
+		try {
+			await client.unsafe(`drop database if exists ${scratch} with (force)`);
+			return;
+		} catch (err) {
+			if (attempt >= 20 || !/must be a member of the role|is being accessed by other users/.test(String(err))) throw err;
+			await new Promise((r) => setTimeout(r, 250));
+		}
+	}
+}
+
 afterAll(async () => {
-	await client.unsafe(`drop database if exists ${scratch} with (force)`);
+	await dropScratch();
 	await client.end();
 	rmSync(dir, { recursive: true, force: true });
 });
@@ -38,7 +54,7 @@ async function fingerprint(sql: postgres.Sql) {
 it('restores a backup into a scratch database with the same rows', async () => {
 	const file = path.join(dir, 'test.dump');
 	db(source, 'backup', file);
-	await client.unsafe(`drop database if exists ${scratch} with (force)`);
+	await dropScratch();
 	await client.unsafe(`create database ${scratch}`);
 	db(target, 'restore', file);
 	const restored = postgres(target, { onnotice: () => {} });
