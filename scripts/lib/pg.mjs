@@ -51,6 +51,28 @@ function ensureOwnedDir(dir) {
 }
 
 /**
+ * The port a cluster keeps in postgresql.conf is the one it was created with; passing PGPORT on every
+ * start lets the same .data/pg serve whichever port this run was given.
+ */
+const portOption = (s) => ['-o', `-p ${s.pgPort}`];
+
+/** The port the cluster in dataDir is serving on, or null when it is not running. */
+function runningPort(dataDir) {
+	let lines;
+	try {
+		lines = fs.readFileSync(path.join(dataDir, 'postmaster.pid'), 'utf8').split('\n');
+	} catch {
+		return null;
+	}
+	try {
+		process.kill(Number(lines[0]), 0);
+	} catch (e) {
+		if (e.code !== 'EPERM') return null; // a stale pid file from a crash: pg_ctl start clears it
+	}
+	return Number(lines[3]) || null;
+}
+
+/**
  * Makes sure the cluster exists and runs, and that the app role and database exist.
  * Returns a function that runs SQL as the superuser.
  */
@@ -81,11 +103,16 @@ export function ensurePostgres(s, { freshDatabase = false } = {}) {
 	}
 
 	const ready = () => capture(path.join(bin, 'pg_isready'), ['-q', '-h', '127.0.0.1', '-p', String(s.pgPort)]) !== null;
-	const ours = fs.existsSync(path.join(dataDir, 'postmaster.pid'));
-	if (ready() && !ours) fail(`Port ${s.pgPort} is already used by another PostgreSQL server; set PGPORT to a free port.`);
+	const runningOn = runningPort(dataDir);
+	if (runningOn !== null && runningOn !== s.pgPort)
+		fail(
+			`This project's PostgreSQL (${dataDir}) is already running on port ${runningOn}, not ${s.pgPort}. ` +
+				`Use PGPORT=${runningOn}, or stop it first with npm run db:stop.`
+		);
+	if (ready() && runningOn === null) fail(`Port ${s.pgPort} is already used by another PostgreSQL server; set PGPORT to a free port.`);
 	if (!ready()) {
 		log(`Starting PostgreSQL on 127.0.0.1:${s.pgPort}`);
-		exec('pg_ctl', ['-D', dataDir, '-l', path.join(runDir, 'server.log'), '-w', '-t', '30', 'start']);
+		exec('pg_ctl', ['-D', dataDir, '-l', path.join(runDir, 'server.log'), ...portOption(s), '-w', '-t', '30', 'start']);
 	}
 
 	const sql = (query) => {
@@ -141,7 +168,11 @@ export function pgCluster(s) {
 	if (!bin) fail('PostgreSQL is not installed; run npm start or npm test once first.');
 	const { dataDir, runDir } = clusterDirs(s.dataDir);
 	const logFile = path.join(runDir, 'server.log');
-	const ctlOptions = { stop: ['-m', 'fast'], start: ['-l', logFile, '-t', '30'], restart: ['-m', 'fast', '-l', logFile, '-t', '30'] };
+	const ctlOptions = {
+		stop: ['-m', 'fast'],
+		start: ['-l', logFile, ...portOption(s), '-t', '30'],
+		restart: ['-m', 'fast', '-l', logFile, ...portOption(s), '-t', '30']
+	};
 	return {
 		bin: (name) => path.join(bin, name),
 		/** [command, args] of pg_ctl stop/start/restart, for callers that must not block (the fault drill). */
