@@ -113,14 +113,17 @@ export const toCelsius = (v: number, unit: 'C' | 'F') => (unit === 'C' ? v : ((v
 
 export interface PourLogEntry {
 	pour: number;
+	/** The first start still counted. */
 	startedAt?: number;
 	/** Keys of the starts still counted (two devices may each have started the pour). */
 	startKeys: string[];
 	/** Times of the batches still counted (undone ones left out), in order. */
 	batches: number[];
 	batchKeys: string[];
+	/** The first "Placing done" still standing: pressed after a batch, and no batch after it. */
 	endedAt?: number;
-	endKey?: string;
+	/** Keys of the "Placing done" records standing (two devices may each have pressed it). */
+	endKeys: string[];
 	bagsUsed?: number;
 	/** Local date of the first batch, else of the start. */
 	date?: string;
@@ -132,14 +135,35 @@ export interface PourLog {
 	notes: Extract<PourRecord, { kind: 'note' }>[];
 }
 
-/** Folds records (any order, duplicates by key dropped, undone starts, batches and ends left out) into the log. */
+/** Kinds an undo can take back: the one-tap records of a pour (a new bags record replaces the last). */
+const UNDOABLE = new Set<PourRecord['kind']>(['start', 'batch', 'end']);
+
+/**
+ * Folds records into the log. The answer depends only on the set of records, never on the order
+ * they arrived in: duplicates by key are dropped (the first kept), the rest are taken in time order.
+ * Per pour, the rules a crew would expect (each pair is a row of the table in pour-log.spec.ts):
+ * - an undo takes back the start, batch or "Placing done" it names, of its own pour; an undo naming
+ *   nothing held, another pour's record, another kind of record or another undo changes nothing;
+ * - a second start (another device) keeps the first start's time; taking back the start takes back all;
+ * - "Placing done" before any batch is ignored (nothing is placed yet);
+ * - a batch after "Placing done" means placing was not done: the pour is placing again until the
+ *   next "Placing done" (taking that batch back makes the earlier one stand again);
+ * - a second "Placing done" keeps the first one's time.
+ */
 export function foldRecords(records: readonly PourRecord[]): PourLog {
 	const seen = new Set<string>();
 	const list = records.filter((r) => !seen.has(r.key) && seen.add(r.key)).sort((a, b) => a.at - b.at || (a.key < b.key ? -1 : 1));
-	const undone = new Set(list.flatMap((r) => (r.kind === 'undo' ? [r.of] : [])));
+	const byKey = new Map(list.map((r) => [r.key, r]));
+	const undone = new Set(
+		list.flatMap((r) => {
+			if (r.kind !== 'undo') return [];
+			const target = byKey.get(r.of);
+			return target && UNDOABLE.has(target.kind) && 'pour' in target && target.pour === r.pour ? [r.of] : [];
+		})
+	);
 	const pours = new Map<number, PourLogEntry>();
 	const entry = (p: number) => {
-		if (!pours.has(p)) pours.set(p, { pour: p, startKeys: [], batches: [], batchKeys: [] });
+		if (!pours.has(p)) pours.set(p, { pour: p, startKeys: [], batches: [], batchKeys: [], endKeys: [] });
 		return pours.get(p)!;
 	};
 	const log: PourLog = { pours, temps: [], notes: [] };
@@ -148,7 +172,7 @@ export function foldRecords(records: readonly PourRecord[]): PourLog {
 		switch (r.kind) {
 			case 'start': {
 				const e = entry(r.pour);
-				if (e.startedAt === undefined) e.startedAt = r.at;
+				e.startedAt ??= r.at;
 				e.startKeys.push(r.key);
 				e.date ??= localDate(r);
 				break;
@@ -158,12 +182,15 @@ export function foldRecords(records: readonly PourRecord[]): PourLog {
 				if (!e.batches.length) e.date = localDate(r);
 				e.batches.push(r.at);
 				e.batchKeys.push(r.key);
+				e.endedAt = undefined;
+				e.endKeys = [];
 				break;
 			}
 			case 'end': {
-				const e = entry(r.pour);
-				e.endedAt = r.at;
-				e.endKey = r.key;
+				const e = pours.get(r.pour);
+				if (!e?.batches.length) break;
+				e.endedAt ??= r.at;
+				e.endKeys.push(r.key);
 				break;
 			}
 			case 'bags':
