@@ -120,14 +120,18 @@ export async function sendCuringReminder(job: { planId: string; pourDate: string
 	});
 }
 
-/** What the plan page shows of the reminders: the switch, the mail setting, the jobs waiting and sent. */
+/**
+ * What the plan page shows of the reminders: the switch, the mail setting, the jobs waiting and sent.
+ * The plan is read by its owner first: for someone else's plan nothing more is read.
+ */
 export async function curingReminderState(planId: string, ownerId: string) {
-	const [[row], jobs, [{ n }]] = await Promise.all([
-		db
-			.select({ on: plan.curingReminders, timeZone: plan.reminderTimeZone, off: user.mailOptOut })
-			.from(plan)
-			.innerJoin(user, eq(user.id, plan.ownerId))
-			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))),
+	const [row] = await db
+		.select({ on: plan.curingReminders, timeZone: plan.reminderTimeZone, off: user.mailOptOut })
+		.from(plan)
+		.innerJoin(user, eq(user.id, plan.ownerId))
+		.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)));
+	if (!row) return null;
+	const [jobs, [{ n }]] = await Promise.all([
 		db.execute<{ key: string }>(
 			sql`SELECT key FROM graphile_worker.jobs WHERE key LIKE ${`${keyPrefix(planId)}%`} AND attempts < max_attempts ORDER BY run_at`
 		),
