@@ -8,7 +8,7 @@ import { z } from 'zod';
 import type { PlanResult } from './index';
 import type { Model } from './model';
 import { airTempOn, toModel } from './model';
-import { parsePlanInput } from './schema';
+import type { ParseResult } from './schema';
 import { addDays, ageSeries, milestones, type Milestone } from './schedule';
 import { strengthTimeline, type StrengthDay } from './strength';
 import { times } from './util';
@@ -274,11 +274,9 @@ export function loggedFirstPourDate(log: PourLog, plannedDays: readonly number[]
 	return addDays(started.date, -(plannedDays[started.pour] - plannedDays[0]));
 }
 
-/** loggedForecast for a saved plan: its input, its computed result and its records. */
-export function loggedForecastFor(input: unknown, result: Pick<PlanResult, 'schedule'>, records: readonly PourRecord[]): LoggedForecast | null {
-	if (!records.length) return null;
-	const parsed = parsePlanInput(input);
-	if (!parsed.ok) return null;
+/** loggedForecast for a saved plan: its input (parsed once by the caller), its computed result and its records. */
+export function loggedForecastFor(parsed: ParseResult, result: Pick<PlanResult, 'schedule'>, records: readonly PourRecord[]): LoggedForecast | null {
+	if (!records.length || !parsed.ok) return null;
 	const days = result.schedule.pourDays.map((p) => p.day);
 	const plannedLast = days.length ? Math.max(...days) - Math.min(...days) : 0;
 	return loggedForecast(toModel(parsed.plan), foldRecords(records), plannedLast);

@@ -2,7 +2,8 @@
 // the homeowner's time zone), written in the same transaction as the change that moves them.
 import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import { and, eq, sql } from 'drizzle-orm';
-import { curingRemindersFor, type CuringDay } from '$lib/plan/reminders';
+import { curingRemindersFrom, type CuringDay } from '$lib/plan/reminders';
+import { parsePlanInput, type ParseResult } from '$lib/plan/schema';
 import type { PourRecord } from '$lib/plan/pour-log';
 import type { PlanResult } from '$lib/plan';
 import { todayIn, validTimeZone, zonedTime } from '$lib/reader';
@@ -61,12 +62,12 @@ export async function scheduleCuringReminders(
  * date is skipped once the log says otherwise.
  */
 export function reminderDays(
-	p: Pick<Plan, 'input'>,
+	p: Pick<Plan, 'input'> | { parsed: ParseResult },
 	records: readonly PourRecord[],
 	known?: PlanResult
 ): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
 	try {
-		return curingRemindersFor(p.input, records, known);
+		return curingRemindersFrom('parsed' in p ? p.parsed : parsePlanInput(p.input), records, known);
 	} catch {
 		return { pourDate: null, days: [], logged: false };
 	}
@@ -140,21 +141,21 @@ export async function curingReminderState(planId: string, ownerId: string) {
 			.from(curingReminderSent)
 			.where(eq(curingReminderSent.planId, planId))
 	]);
-	if (!row) return null;
 	return { ...row, scheduled: jobs.map((j) => j.key.slice(keyPrefix(planId).length)), sent: n };
 }
 
 /**
- * The reminders' status from their state and the plan's pour log. `known` is the plan's stored
- * result when the current engine wrote it, so the page does not compute the plan a second time.
+ * The reminders' status from their state and the plan's pour log. `parsed` is the plan's input as
+ * the page already parsed it; `known` is the plan's stored result when the current engine wrote it,
+ * so the page neither parses nor computes the plan a second time.
  */
 export function curingReminderSummary(
 	state: NonNullable<Awaited<ReturnType<typeof curingReminderState>>>,
-	input: unknown,
+	parsed: ParseResult,
 	records: readonly PourRecord[],
 	known?: PlanResult
 ) {
-	const { pourDate, days, logged } = reminderDays({ input }, records, known);
+	const { pourDate, days, logged } = reminderDays({ parsed }, records, known);
 	return {
 		on: state.on,
 		/** The account page's switch for this kind of mail is off. */
@@ -181,7 +182,7 @@ export async function curingReminderStatus(planId: string, ownerId: string) {
 			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))),
 		listPourRecords(planId)
 	]);
-	return state && found ? curingReminderSummary(state, found.input, records) : null;
+	return state && found ? curingReminderSummary(state, parsePlanInput(found.input), records) : null;
 }
 
 // Unsubscribe links: the plan id signed with a key kept in the database (made once, shared by
