@@ -172,19 +172,6 @@ export function curingReminderSummary(
 	};
 }
 
-/** The status for a plan by id (reads the plan and its pour log itself). */
-export async function curingReminderStatus(planId: string, ownerId: string) {
-	const [state, [found], records] = await Promise.all([
-		curingReminderState(planId, ownerId),
-		db
-			.select({ input: plan.input })
-			.from(plan)
-			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))),
-		listPourRecords(planId)
-	]);
-	return state && found ? curingReminderSummary(state, parsePlanInput(found.input), records) : null;
-}
-
 // Unsubscribe links: the plan id signed with a key kept in the database (made once, shared by
 // every server), so a link works without signing in and cannot be made for another plan.
 
