@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan } from './index';
-import { dailyMeans, foldRecords, loggedForecast, pourRecordSchema, pourRecordsBody, type PourLog, type PourRecord } from './pour-log';
+import { dailyMeans, foldRecords, futureTemp, loggedForecast, pourRecordSchema, pourRecordsBody, type PourLog, type PourRecord } from './pour-log';
 import { modelOf, rect } from './test-plans';
 
 // A 3 × 3 m pad planned at 20 °C every day, type I cement.
@@ -20,7 +20,12 @@ const coldWeek = Array.from({ length: 7 }, (_, d) => ({ kind: 'temp', date: `202
 describe('as logged: a cold week behind the planned timeline', () => {
 	const planned = computePlan(input);
 	const { m } = modelOf(input);
-	const log = foldRecords([rec({ kind: 'start', pour: 0 }, 0), rec({ kind: 'batch', pour: 0 }, 1), ...coldWeek.map((t, i) => rec(t, 10 + i))]);
+	// Each day's temperatures logged that evening.
+	const log = foldRecords([
+		rec({ kind: 'start', pour: 0 }, 0),
+		rec({ kind: 'batch', pour: 0 }, 1),
+		...coldWeek.map((t, i) => ({ ...rec(t, 10 + i), at: Date.UTC(2027, 2, 1 + i, 20) }))
+	]);
 	const f = loggedForecast(m, log, 0)!;
 
 	it('counts the days from the logged pour day, with the logged daily means', () => {
@@ -113,6 +118,61 @@ describe('records', () => {
 		const many = Array.from({ length: 51 }, (_, i) => rec({ kind: 'batch', pour: 0 }, i));
 		const body = pourRecordsBody.safeParse({ records: many });
 		expect(body.success ? '' : body.error.issues[0].message).toBe('Send at most 50 records at a time.');
+	});
+});
+
+describe('a temperature’s date', () => {
+	const temp = (date: string, at: number, tz: number) => ({ kind: 'temp', key: 'temp-0001', at, tz, date, unit: 'C', low: 4, high: 14 });
+	const msg = (r: unknown) => {
+		const p = pourRecordSchema.safeParse(r);
+		return p.success ? '' : p.error.issues.map((i) => i.message).join(' | ');
+	};
+
+	it('may be today or earlier on the logging device, in its own offset, not later', () => {
+		const evening = Date.UTC(2027, 2, 1, 20); // 20:00 UTC on 1 March
+		expect(msg(temp('2027-03-01', evening, 0))).toBe('');
+		expect(msg(temp('2027-02-27', evening, 0))).toBe('');
+		expect(msg(temp('2027-03-02', evening, 0))).toBe('A temperature can be logged for today or an earlier day, not a later one (today here is 2027-03-01).');
+		// At UTC+10 (offset −600 min) it is already 06:00 on 2 March there: that day may be logged.
+		expect(msg(temp('2027-03-02', evening, -600))).toBe('');
+		expect(msg(temp('2027-03-03', evening, -600))).toMatch(/today here is 2027-03-02/);
+		// At UTC−5, 03:00 UTC on 2 March is still 1 March: 2 March is tomorrow there.
+		expect(msg(temp('2027-03-02', Date.UTC(2027, 2, 2, 3), 300))).toMatch(/today here is 2027-03-01/);
+		// A time or offset that is no date is said as such; the date rule does not throw on it.
+		expect(msg(temp('2027-03-01', 'soon' as never, 0))).toMatch(/^Invalid input: expected number/);
+		expect(msg(temp('2027-03-01', 5e12, 0))).toBe('The time must be before the year 2100.');
+		expect(msg(temp('2027-03-01', Date.UTC(2027, 2, 1), 'east' as never))).toMatch(/^Invalid input: expected number/);
+	});
+
+	it('is checked on the server against its own clock in the record’s offset, at most a time zone ahead', () => {
+		const now = Date.UTC(2027, 2, 1, 20);
+		const r = (date: string, tz: number) => temp(date, now, tz) as PourRecord;
+		expect(futureTemp([r('2027-03-01', 0)], now)).toBeNull();
+		// UTC+14, the furthest offset there is: 2 March there already, 3 March not yet.
+		expect(futureTemp([r('2027-03-02', -840)], now)).toBeNull();
+		expect(futureTemp([rec({ kind: 'note', text: 'x' }, 0), r('2027-03-03', -840)], now)).toEqual({
+			path: 'records.1.date',
+			message: 'A temperature can be logged for today or an earlier day, not a later one (today here is 2027-03-02).'
+		});
+		// A device whose clock runs a day ahead passes its own check but not the server's.
+		expect(futureTemp([{ ...r('2027-03-02', 0), at: now + 86_400_000 }], now)?.message).toMatch(/today here is 2027-03-01/);
+	});
+
+	it('before the pour is kept but not counted, and the forecast says which days', () => {
+		const { m } = modelOf(input);
+		const log = foldRecords([
+			rec({ kind: 'temp', date: '2027-02-27', unit: 'C', low: -5, high: 1 }, 0),
+			rec({ kind: 'temp', date: '2027-02-28', unit: 'C', reading: 3 }, 1),
+			rec({ kind: 'start', pour: 0 }, 2),
+			rec({ kind: 'batch', pour: 0 }, 3),
+			rec({ kind: 'temp', date: '2027-03-01', unit: 'C', low: 0, high: 10 }, 4)
+		]);
+		expect(log.temps).toHaveLength(3);
+		const f = loggedForecast(m, log, 0)!;
+		expect(f.pourDate).toBe('2027-03-01');
+		expect(f.before).toEqual(['2027-02-27', '2027-02-28']);
+		expect(f.loggedDays).toBe(1);
+		expect(f.temps[0]).toEqual({ date: '2027-03-01', celsius: 5, logged: true });
 	});
 });
 

@@ -97,7 +97,30 @@ export const pourRecordSchema = z
 		if (pair === (r.reading !== undefined) || (!pair && (r.low !== undefined || r.high !== undefined)))
 			ctx.addIssue({ code: 'custom', path: ['reading'], message: 'Give either the day’s low and high, or one reading.' });
 		if (pair && r.low! > r.high!) ctx.addIssue({ code: 'custom', path: ['low'], message: 'The low cannot be above the high.' });
+		// A day not yet begun has no temperature to log; counted as logged, a guess would move the forecast.
+		// (Refinements run even when a field failed: a time or offset that is not a date is said above.)
+		const now = new Date(r.at - r.tz * 60_000);
+		if (Number.isNaN(now.getTime()) || typeof r.date !== 'string') return;
+		const today = now.toISOString().slice(0, 10);
+		if (r.date > today) ctx.addIssue({ code: 'custom', path: ['date'], message: futureTempMessage(today) });
 	});
+
+/** The rule for a temperature's date, with the logger's own today in it. */
+export const futureTempMessage = (today: string) => `A temperature can be logged for today or an earlier day, not a later one (today here is ${today}).`;
+
+/**
+ * The server's own check of a temperature's date: not after today where the device is, taken in
+ * the record's own offset at the server's clock. Offsets run from −14 to +14 hours, so this allows
+ * at most the day a time-zone difference gives, and refuses a device clock set days ahead.
+ */
+export function futureTemp(records: readonly PourRecord[], now = Date.now()): { path: string; message: string } | null {
+	for (const [i, r] of records.entries()) {
+		if (r.kind !== 'temp') continue;
+		const today = localDate({ at: now, tz: r.tz });
+		if (r.date > today) return { path: `records.${i}.date`, message: futureTempMessage(today) };
+	}
+	return null;
+}
 
 export const pourRecordsBody = z.object({
 	records: z.array(pourRecordSchema).min(1, 'Send at least one record.').max(L.perRequest, `Send at most ${L.perRequest} records at a time.`)
@@ -232,6 +255,14 @@ export interface LoggedForecast {
 	loggedDays: number;
 	/** Daily mean used for each day from the pour day on, °C, and whether it was logged. */
 	temps: { date: string; celsius: number; logged: boolean }[];
+	/** Days with a temperature logged before pourDate: kept, but not counted (the concrete was not placed yet). */
+	before: string[];
+}
+
+/** The day the logged forecast counts from: the latest local date of a pour started or mixed; null when none is. */
+export function loggedPourDate(log: PourLog): string | null {
+	const dates = [...log.pours.values()].flatMap((p) => (p.date && (p.batches.length || p.startedAt !== undefined) ? [p.date] : []));
+	return dates.length ? dates.sort().at(-1)! : null;
 }
 
 /**
@@ -242,9 +273,8 @@ export interface LoggedForecast {
  * the same forecast day the plan did.
  */
 export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days = 28): LoggedForecast | null {
-	const dates = [...log.pours.values()].flatMap((p) => (p.date && (p.batches.length || p.startedAt !== undefined) ? [p.date] : []));
-	if (!dates.length) return null;
-	const pourDate = dates.sort().at(-1)!;
+	const pourDate = loggedPourDate(log);
+	if (!pourDate) return null;
 	const means = dailyMeans(log.temps);
 	const date = (i: number) => addDays(pourDate, i);
 	const tempOn = (i: number) => means.get(date(i)) ?? airTempOn(m, plannedLast + i);
@@ -256,7 +286,8 @@ export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days
 	).map((d) => ({ ...d, date: date(d.day) }));
 	// Counted from the logged pour day: the same milestone rules on the logged equivalent ages.
 	const stones = milestones({ ...m, pourDate }, ageSeries(0, tempOn), 0);
-	return { pourDate, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps };
+	const before = [...means.keys()].filter((d) => d < pourDate).sort();
+	return { pourDate, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps, before };
 }
 
 /**
