@@ -37,7 +37,7 @@ test('a homeowner turns on curing reminders, adds the plan to a calendar, and st
 		const [download] = await Promise.all([page.waitForEvent('download'), section.getByRole('link', { name: 'Add to calendar' }).click()]);
 		expect(download.suggestedFilename()).toBe('Curing-patio.ics');
 		const events = Object.values(ical.sync.parseICS(await fs.readFile((await download.path())!, 'utf8'))).filter((c): c is ical.VEvent => c.type === 'VEVENT');
-		const pour = events.find((e) => /: pour /.test(e.summary))!;
+		const pour = events.find((e) => /: Pour /.test(e.summary))!;
 		expect(pour.datetype).toBe('date');
 		expect(`${pour.start.getFullYear()}-${String(pour.start.getMonth() + 1).padStart(2, '0')}-${String(pour.start.getDate()).padStart(2, '0')}`).toBe(pourDate);
 		for (const title of ['Strip the forms', 'Walk on it', 'Set furniture on it']) expect(events.some((e) => e.summary === `Curing patio: ${title}`)).toBe(true);

@@ -90,10 +90,10 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await page.reload();
 	await expect(page.getByTestId('offline-note')).toBeVisible();
 
-	// The phone's own dates: the pour day and the day after.
-	const [today, tomorrow] = await page.evaluate(() => {
+	// The phone's own dates: the day before the pour, the pour day and the day after.
+	const [yesterday, today, tomorrow] = await page.evaluate(() => {
 		const iso = (d: Date) => new Date(d.getTime() - d.getTimezoneOffset() * 60_000).toISOString().slice(0, 10);
-		return [iso(new Date()), iso(new Date(Date.now() + 86_400_000))];
+		return [iso(new Date(Date.now() - 86_400_000)), iso(new Date()), iso(new Date(Date.now() + 86_400_000))];
 	});
 
 	// Offline: start, two batches and the day's low and high.
@@ -139,11 +139,27 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	const replay = await page.request.post(`/plans/${planId}/pour/records`, { data: { records: keys.map((k) => k.record) } });
 	expect(replay.status()).toBe(200);
 	expect((await replay.json()).stored).toBe(0);
+	// A device whose clock runs two days ahead: its own check passes, the server's clock refuses it.
+	const ahead = Date.now() + 2 * 86_400_000;
+	const early = await page.request.post(`/plans/${planId}/pour/records`, {
+		data: { records: [{ kind: 'temp', key: 'ahead-temp-0001', at: ahead, tz: 0, date: new Date(ahead).toISOString().slice(0, 10), unit: 'F', reading: 50 }] }
+	});
+	expect(early.status()).toBe(400);
+	expect((await early.json()).errors[0].message).toMatch(
+		/^A temperature can be logged for today or an earlier day, not a later one \(today here is \d{4}-\d{2}-\d{2}\)\.$/
+	);
 	expect(await stored(planId)).toEqual({ start: 1, batch: 2, temp: 1 });
 
-	// Online: a reading at a time, a note (its limit said), bags used.
+	// Online: a reading at a time, a note (its limit said), bags used. Tomorrow has no temperature yet.
 	await page.getByLabel('One reading').check();
 	await page.getByLabel('Date', { exact: true }).fill(tomorrow);
+	await page.getByLabel(/Reading, °F/).fill('41');
+	await page.getByRole('button', { name: 'Log temperature' }).click();
+	await expect(
+		page.getByRole('alert').filter({ hasText: `A temperature can be logged for today or an earlier day, not a later one (today here is ${today}).` })
+	).toBeVisible();
+	// Yesterday's morning reading is kept, and the page says it does not count: nothing was placed yet.
+	await page.getByLabel('Date', { exact: true }).fill(yesterday);
 	await page.getByLabel(/Reading, °F/).fill('warm');
 	await page.getByRole('button', { name: 'Log temperature' }).click();
 	await expect(page.getByRole('alert').filter({ hasText: 'Type each temperature as a number, such as 48 or 48.5.' })).toBeVisible();
@@ -153,7 +169,15 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await expect(page.getByRole('alert').filter({ hasText: 'between -40 and 140 °F' })).toBeVisible();
 	await page.getByLabel(/Reading, °F/).fill('41');
 	await page.getByRole('button', { name: 'Log temperature' }).click();
-	await expect(page.getByText('Temperature logged.')).toBeVisible();
+	const notCounted = `Kept, but not counted in the strength forecast: the concrete was not placed yet (the pour is logged on ${day(today)}).`;
+	await expect(page.getByText(`Temperature logged. ${notCounted}`)).toBeVisible();
+	await expect(
+		page
+			.getByTestId('temp-list')
+			.getByRole('listitem')
+			.filter({ hasText: `${day(yesterday)}, 07:30: 41 °F` })
+	).toContainText(notCounted);
+	await expect(page.getByTestId('temp-before-pour')).toHaveCount(1);
 	await page.getByRole('textbox', { name: /^Note/ }).fill('x'.repeat(1001));
 	await page.getByRole('button', { name: 'Log note' }).click();
 	await expect(page.getByRole('alert').filter({ hasText: 'at most 1000 characters' })).toBeVisible();
@@ -188,8 +212,15 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await expect(table.getByRole('heading', { name: 'Planned and as logged' })).toBeVisible();
 	await expect(table.getByTestId('logged-walk')).toBeVisible();
 	await expect(table).toContainText('Counted from the logged pour on');
-	// Both logged days fall in the timeline: the pour day (38–52 °F) and the next (one reading, 41 °F).
-	await expect(table).toContainText('with 2 of the first 28 days');
+	// The pour day (38–52 °F) falls in the timeline; the reading of the day before does not, and the page says so.
+	await expect(table).toContainText('with 1 of the first 28 days');
+	await expect(table.getByTestId('logged-before-pour')).toHaveText(
+		`Temperatures logged for a day before the pour (${day(yesterday)}) are kept but not counted: the concrete was not placed yet.`
+	);
+	// The cold pour day moves the walk a day by the maturity method (ASTM C1074, Q = 5000 K, 20 °C reference):
+	// 45 °F (7.22 °C) counts exp[−5000 (1/280.37 − 1/293.15)] = 0.460 day, 70 °F (21.11 °C) 1.066;
+	// walking at 2 equivalent days: planned 2 × 1.066 = 2.13 → day 2; logged 0.460 + 1.066 = 1.53, + 1.066 = 2.59 → day 3.
+	await expect(table.getByTestId('logged-walk')).toContainText('(1 more day than planned)');
 	// The curing reminders count from the logged pour day (the plan has no planned date).
 	await expect(page.getByTestId('reminder-status')).toContainText(
 		`after the pour on ${new Intl.DateTimeFormat('en-US', { dateStyle: 'medium', timeZone: 'UTC' }).format(new Date(`${today}T00:00:00Z`))} (the day logged on the pour page)`

@@ -54,7 +54,7 @@ export function calendarEntries(r: PlanResult, planName: string): CalendarEntry[
 			key: `pour-${i}`,
 			date: p.date,
 			kind: 'pour',
-			title: `${planName}: pour ${name} (${p.bags} bags)`,
+			title: `${planName}: Pour ${name} (${p.bags} bags)`,
 			description: tasks.map((t) => t.text).join('\n')
 		});
 	});

@@ -8,7 +8,7 @@ import { z } from 'zod';
 import type { PlanResult } from './index';
 import type { Model } from './model';
 import { airTempOn, toModel } from './model';
-import { parsePlanInput } from './schema';
+import type { ParseResult } from './schema';
 import { addDays, ageSeries, milestones, type Milestone } from './schedule';
 import { strengthTimeline, type StrengthDay } from './strength';
 import { times } from './util';
@@ -97,7 +97,30 @@ export const pourRecordSchema = z
 		if (pair === (r.reading !== undefined) || (!pair && (r.low !== undefined || r.high !== undefined)))
 			ctx.addIssue({ code: 'custom', path: ['reading'], message: 'Give either the day’s low and high, or one reading.' });
 		if (pair && r.low! > r.high!) ctx.addIssue({ code: 'custom', path: ['low'], message: 'The low cannot be above the high.' });
+		// A day not yet begun has no temperature to log; counted as logged, a guess would move the forecast.
+		// (Refinements run even when a field failed: a time or offset that is not a date is said above.)
+		const now = new Date(r.at - r.tz * 60_000);
+		if (Number.isNaN(now.getTime()) || typeof r.date !== 'string') return;
+		const today = now.toISOString().slice(0, 10);
+		if (r.date > today) ctx.addIssue({ code: 'custom', path: ['date'], message: futureTempMessage(today) });
 	});
+
+/** The rule for a temperature's date, with the logger's own today in it. */
+export const futureTempMessage = (today: string) => `A temperature can be logged for today or an earlier day, not a later one (today here is ${today}).`;
+
+/**
+ * The server's own check of a temperature's date: not after today where the device is, taken in
+ * the record's own offset at the server's clock. Offsets run from −14 to +14 hours, so this allows
+ * at most the day a time-zone difference gives, and refuses a device clock set days ahead.
+ */
+export function futureTemp(records: readonly PourRecord[], now = Date.now()): { path: string; message: string } | null {
+	for (const [i, r] of records.entries()) {
+		if (r.kind !== 'temp') continue;
+		const today = localDate({ at: now, tz: r.tz });
+		if (r.date > today) return { path: `records.${i}.date`, message: futureTempMessage(today) };
+	}
+	return null;
+}
 
 export const pourRecordsBody = z.object({
 	records: z.array(pourRecordSchema).min(1, 'Send at least one record.').max(L.perRequest, `Send at most ${L.perRequest} records at a time.`)
@@ -113,14 +136,17 @@ export const toCelsius = (v: number, unit: 'C' | 'F') => (unit === 'C' ? v : ((v
 
 export interface PourLogEntry {
 	pour: number;
+	/** The first start still counted. */
 	startedAt?: number;
 	/** Keys of the starts still counted (two devices may each have started the pour). */
 	startKeys: string[];
 	/** Times of the batches still counted (undone ones left out), in order. */
 	batches: number[];
 	batchKeys: string[];
+	/** The first "Placing done" still standing: pressed after a batch, and no batch after it. */
 	endedAt?: number;
-	endKey?: string;
+	/** Keys of the "Placing done" records standing (two devices may each have pressed it). */
+	endKeys: string[];
 	bagsUsed?: number;
 	/** Local date of the first batch, else of the start. */
 	date?: string;
@@ -132,14 +158,35 @@ export interface PourLog {
 	notes: Extract<PourRecord, { kind: 'note' }>[];
 }
 
-/** Folds records (any order, duplicates by key dropped, undone starts, batches and ends left out) into the log. */
+/** Kinds an undo can take back: the one-tap records of a pour (a new bags record replaces the last). */
+const UNDOABLE = new Set<PourRecord['kind']>(['start', 'batch', 'end']);
+
+/**
+ * Folds records into the log. The answer depends only on the set of records, never on the order
+ * they arrived in: duplicates by key are dropped (the first kept), the rest are taken in time order.
+ * Per pour, the rules a crew would expect (each pair is a row of the table in pour-log.spec.ts):
+ * - an undo takes back the start, batch or "Placing done" it names, of its own pour; an undo naming
+ *   nothing held, another pour's record, another kind of record or another undo changes nothing;
+ * - a second start (another device) keeps the first start's time; taking back the start takes back all;
+ * - "Placing done" before any batch is ignored (nothing is placed yet);
+ * - a batch after "Placing done" means placing was not done: the pour is placing again until the
+ *   next "Placing done" (taking that batch back makes the earlier one stand again);
+ * - a second "Placing done" keeps the first one's time.
+ */
 export function foldRecords(records: readonly PourRecord[]): PourLog {
 	const seen = new Set<string>();
 	const list = records.filter((r) => !seen.has(r.key) && seen.add(r.key)).sort((a, b) => a.at - b.at || (a.key < b.key ? -1 : 1));
-	const undone = new Set(list.flatMap((r) => (r.kind === 'undo' ? [r.of] : [])));
+	const byKey = new Map(list.map((r) => [r.key, r]));
+	const undone = new Set(
+		list.flatMap((r) => {
+			if (r.kind !== 'undo') return [];
+			const target = byKey.get(r.of);
+			return target && UNDOABLE.has(target.kind) && 'pour' in target && target.pour === r.pour ? [r.of] : [];
+		})
+	);
 	const pours = new Map<number, PourLogEntry>();
 	const entry = (p: number) => {
-		if (!pours.has(p)) pours.set(p, { pour: p, startKeys: [], batches: [], batchKeys: [] });
+		if (!pours.has(p)) pours.set(p, { pour: p, startKeys: [], batches: [], batchKeys: [], endKeys: [] });
 		return pours.get(p)!;
 	};
 	const log: PourLog = { pours, temps: [], notes: [] };
@@ -148,7 +195,7 @@ export function foldRecords(records: readonly PourRecord[]): PourLog {
 		switch (r.kind) {
 			case 'start': {
 				const e = entry(r.pour);
-				if (e.startedAt === undefined) e.startedAt = r.at;
+				e.startedAt ??= r.at;
 				e.startKeys.push(r.key);
 				e.date ??= localDate(r);
 				break;
@@ -158,12 +205,15 @@ export function foldRecords(records: readonly PourRecord[]): PourLog {
 				if (!e.batches.length) e.date = localDate(r);
 				e.batches.push(r.at);
 				e.batchKeys.push(r.key);
+				e.endedAt = undefined;
+				e.endKeys = [];
 				break;
 			}
 			case 'end': {
-				const e = entry(r.pour);
-				e.endedAt = r.at;
-				e.endKey = r.key;
+				const e = pours.get(r.pour);
+				if (!e?.batches.length) break;
+				e.endedAt ??= r.at;
+				e.endKeys.push(r.key);
 				break;
 			}
 			case 'bags':
@@ -205,6 +255,14 @@ export interface LoggedForecast {
 	loggedDays: number;
 	/** Daily mean used for each day from the pour day on, °C, and whether it was logged. */
 	temps: { date: string; celsius: number; logged: boolean }[];
+	/** Days with a temperature logged before pourDate: kept, but not counted (the concrete was not placed yet). */
+	before: string[];
+}
+
+/** The day the logged forecast counts from: the latest local date of a pour started or mixed; null when none is. */
+export function loggedPourDate(log: PourLog): string | null {
+	const dates = [...log.pours.values()].flatMap((p) => (p.date && (p.batches.length || p.startedAt !== undefined) ? [p.date] : []));
+	return dates.length ? dates.sort().at(-1)! : null;
 }
 
 /**
@@ -215,9 +273,8 @@ export interface LoggedForecast {
  * the same forecast day the plan did.
  */
 export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days = 28): LoggedForecast | null {
-	const dates = [...log.pours.values()].flatMap((p) => (p.date && (p.batches.length || p.startedAt !== undefined) ? [p.date] : []));
-	if (!dates.length) return null;
-	const pourDate = dates.sort().at(-1)!;
+	const pourDate = loggedPourDate(log);
+	if (!pourDate) return null;
 	const means = dailyMeans(log.temps);
 	const date = (i: number) => addDays(pourDate, i);
 	const tempOn = (i: number) => means.get(date(i)) ?? airTempOn(m, plannedLast + i);
@@ -229,7 +286,8 @@ export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days
 	).map((d) => ({ ...d, date: date(d.day) }));
 	// Counted from the logged pour day: the same milestone rules on the logged equivalent ages.
 	const stones = milestones({ ...m, pourDate }, ageSeries(0, tempOn), 0);
-	return { pourDate, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps };
+	const before = [...means.keys()].filter((d) => d < pourDate).sort();
+	return { pourDate, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps, before };
 }
 
 /**
@@ -247,11 +305,9 @@ export function loggedFirstPourDate(log: PourLog, plannedDays: readonly number[]
 	return addDays(started.date, -(plannedDays[started.pour] - plannedDays[0]));
 }
 
-/** loggedForecast for a saved plan: its input, its computed result and its records. */
-export function loggedForecastFor(input: unknown, result: Pick<PlanResult, 'schedule'>, records: readonly PourRecord[]): LoggedForecast | null {
-	if (!records.length) return null;
-	const parsed = parsePlanInput(input);
-	if (!parsed.ok) return null;
+/** loggedForecast for a saved plan: its input (parsed once by the caller), its computed result and its records. */
+export function loggedForecastFor(parsed: ParseResult, result: Pick<PlanResult, 'schedule'>, records: readonly PourRecord[]): LoggedForecast | null {
+	if (!records.length || !parsed.ok) return null;
 	const days = result.schedule.pourDays.map((p) => p.day);
 	const plannedLast = days.length ? Math.max(...days) - Math.min(...days) : 0;
 	return loggedForecast(toModel(parsed.plan), foldRecords(records), plannedLast);

@@ -2,7 +2,7 @@
 // moist, strip the forms) or may start doing something (walk on it, set furniture, drive on it),
 // read from the plan computed for one first-pour date: the planned one, or a logged one later.
 
-import type { ParsedPlan } from './schema';
+import type { ParsedPlan, ParseResult } from './schema';
 import { parsePlanInput } from './schema';
 import { PlanInputError } from './geometry';
 import { computeParsedPlan, type PlanResult } from './index';
@@ -96,7 +96,11 @@ export interface PlanAsLogged {
  * always agree. Null when the input does not parse.
  */
 export function planAsLogged(input: unknown, records: readonly PourRecord[], known?: PlanResult): PlanAsLogged | null {
-	const parsed = parsePlanInput(input);
+	return planAsLoggedFrom(parsePlanInput(input), records, known);
+}
+
+/** planAsLogged for an input already parsed (the plan page parses it once for all its readings). */
+export function planAsLoggedFrom(parsed: ParseResult, records: readonly PourRecord[], known?: PlanResult): PlanAsLogged | null {
 	if (!parsed.ok) return null;
 	// `known`: this input's result from this engine version, already at hand (the plan page's stored one).
 	const planned = known ?? computeParsedPlan(parsed.plan);
@@ -118,7 +122,16 @@ export function curingRemindersFor(
 	records: readonly PourRecord[],
 	known?: PlanResult
 ): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
-	const d = planAsLogged(input, records, known);
+	return curingRemindersFrom(parsePlanInput(input), records, known);
+}
+
+/** curingRemindersFor for an input already parsed. */
+export function curingRemindersFrom(
+	parsed: ParseResult,
+	records: readonly PourRecord[],
+	known?: PlanResult
+): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
+	const d = planAsLoggedFrom(parsed, records, known);
 	if (!d?.pourDate) return { pourDate: null, days: [], logged: false };
 	return { pourDate: d.pourDate, days: curingDaysOf(d.result, d.plan.curing.method), logged: d.logged };
 }

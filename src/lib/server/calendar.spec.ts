@@ -49,10 +49,10 @@ describe('plan.ics', () => {
 
 	it('parses, with a pour event on each pour day of the plan', () => {
 		expect(result.schedule.pourDays.length).toBe(2);
-		const pours = events.filter((e) => /: pour /.test(e.summary));
+		const pours = events.filter((e) => /: Pour /.test(e.summary));
 		expect(pours.map((e) => ymd(e.start))).toEqual(result.schedule.pourDays.map((p) => p.date));
 		expect(pours.map((e) => e.summary)).toEqual(result.schedule.pourDays.map((p) => expect.stringContaining(`(${p.bags} bags)`)));
-		expect(pours[0].summary).toContain('Front pad');
+		expect(pours[0].summary).toBe(`Shed pads: Pour Front pad (${result.schedule.pourDays[0].bags} bags)`);
 		expect(pours[1].summary).toContain('Back pad');
 	});
 
@@ -128,7 +128,7 @@ describe('plan.ics after a pour is logged', () => {
 		const undated = { ...split, conditions: { airTemp: 60 } } as PlanInput;
 		expect(calendar(undated)).toBeNull();
 		const logged = parse(calendar(undated, late)!);
-		expect(ymd(logged.find((e) => e.summary.includes(': pour '))!.start)).toBe('2027-05-17');
+		expect(ymd(logged.find((e) => e.summary.includes(': Pour '))!.start)).toBe('2027-05-17');
 		expect(logged[0].description).toContain('Mon, May 17, 2027 (the plan had no date)');
 	});
 

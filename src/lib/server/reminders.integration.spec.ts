@@ -5,13 +5,22 @@ import { curingReminders } from '$lib/plan/reminders';
 import { addDays } from '$lib/plan/schedule';
 import { todayIn, zonedTime } from '$lib/reader';
 import { db } from './db';
-import { curingReminderSent, devMail, mailOutbox, user } from './db/schema';
+import { curingReminderSent, devMail, mailOutbox, plan, user } from './db/schema';
+import { parsePlanInput } from '$lib/plan/schema';
 import { startWorker } from './jobs';
 import { mailIdle } from './mail';
 import { createPlan, deletePlan, updatePlan } from './plans';
-import { curingReminderStatus, sendCuringReminder, setCuringReminders, stopCuringReminders, unsubscribeToken, verifyUnsubscribeToken } from './reminders';
+import {
+	curingReminderState,
+	curingReminderSummary,
+	sendCuringReminder,
+	setCuringReminders,
+	stopCuringReminders,
+	unsubscribeToken,
+	verifyUnsubscribeToken
+} from './reminders';
 import { createUser } from './users';
-import { savePourRecords } from './pour-records';
+import { listPourRecords, savePourRecords } from './pour-records';
 import type { PourRecord } from '$lib/plan/pour-log';
 import { useTestDatabase } from './integration-setup';
 import { smallPatio } from '$lib/plan/test-plans';
@@ -38,6 +47,13 @@ const jobsOf = async (planId: string) =>
 			)
 		).map((j) => [j.key.split(':').at(-1)!, new Date(j.run_at).toISOString()])
 	);
+/** The status line as the plan page reads it: the state by owner, then the summary from the parsed input and the log. */
+async function curingReminderStatus(planId: string, ownerId: string) {
+	const state = await curingReminderState(planId, ownerId);
+	if (!state) return null;
+	const [found] = await db.select({ input: plan.input }).from(plan).where(eq(plan.id, planId));
+	return curingReminderSummary(state, parsePlanInput(found.input), await listPourRecords(planId));
+}
 const expected = (pourDate: string) =>
 	Object.fromEntries(curingReminders(input(pourDate), pourDate).map((d) => [d.date, zonedTime(d.date, 7, TZ).toISOString()]));
 
@@ -62,6 +78,8 @@ describe('curing reminders', () => {
 		expect(Object.keys(moved)[0]).toBe(addDays(Object.keys(first)[0], 3));
 		const status = await curingReminderStatus(p.id, u.id);
 		expect(status).toMatchObject({ on: true, pourDate: later, scheduled: Object.keys(moved), sent: 0, timeZone: TZ });
+		// Someone else's plan: no state (read by owner before anything else).
+		expect(await curingReminderState(p.id, (await owner()).id)).toBeNull();
 
 		// A name-only save leaves them; turning off removes them all.
 		await updatePlan(p.id, u.id, { revision: saved!.revision, name: 'Side walk, renamed' });

@@ -2,7 +2,8 @@
 // the homeowner's time zone), written in the same transaction as the change that moves them.
 import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import { and, eq, sql } from 'drizzle-orm';
-import { curingRemindersFor, type CuringDay } from '$lib/plan/reminders';
+import { curingRemindersFrom, type CuringDay } from '$lib/plan/reminders';
+import { parsePlanInput, type ParseResult } from '$lib/plan/schema';
 import type { PourRecord } from '$lib/plan/pour-log';
 import type { PlanResult } from '$lib/plan';
 import { todayIn, validTimeZone, zonedTime } from '$lib/reader';
@@ -61,12 +62,12 @@ export async function scheduleCuringReminders(
  * date is skipped once the log says otherwise.
  */
 export function reminderDays(
-	p: Pick<Plan, 'input'>,
+	p: Pick<Plan, 'input'> | { parsed: ParseResult },
 	records: readonly PourRecord[],
 	known?: PlanResult
 ): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
 	try {
-		return curingRemindersFor(p.input, records, known);
+		return curingRemindersFrom('parsed' in p ? p.parsed : parsePlanInput(p.input), records, known);
 	} catch {
 		return { pourDate: null, days: [], logged: false };
 	}
@@ -120,14 +121,18 @@ export async function sendCuringReminder(job: { planId: string; pourDate: string
 	});
 }
 
-/** What the plan page shows of the reminders: the switch, the mail setting, the jobs waiting and sent. */
+/**
+ * What the plan page shows of the reminders: the switch, the mail setting, the jobs waiting and sent.
+ * The plan is read by its owner first: for someone else's plan nothing more is read.
+ */
 export async function curingReminderState(planId: string, ownerId: string) {
-	const [[row], jobs, [{ n }]] = await Promise.all([
-		db
-			.select({ on: plan.curingReminders, timeZone: plan.reminderTimeZone, off: user.mailOptOut })
-			.from(plan)
-			.innerJoin(user, eq(user.id, plan.ownerId))
-			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))),
+	const [row] = await db
+		.select({ on: plan.curingReminders, timeZone: plan.reminderTimeZone, off: user.mailOptOut })
+		.from(plan)
+		.innerJoin(user, eq(user.id, plan.ownerId))
+		.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId)));
+	if (!row) return null;
+	const [jobs, [{ n }]] = await Promise.all([
 		db.execute<{ key: string }>(
 			sql`SELECT key FROM graphile_worker.jobs WHERE key LIKE ${`${keyPrefix(planId)}%`} AND attempts < max_attempts ORDER BY run_at`
 		),
@@ -136,21 +141,21 @@ export async function curingReminderState(planId: string, ownerId: string) {
 			.from(curingReminderSent)
 			.where(eq(curingReminderSent.planId, planId))
 	]);
-	if (!row) return null;
 	return { ...row, scheduled: jobs.map((j) => j.key.slice(keyPrefix(planId).length)), sent: n };
 }
 
 /**
- * The reminders' status from their state and the plan's pour log. `known` is the plan's stored
- * result when the current engine wrote it, so the page does not compute the plan a second time.
+ * The reminders' status from their state and the plan's pour log. `parsed` is the plan's input as
+ * the page already parsed it; `known` is the plan's stored result when the current engine wrote it,
+ * so the page neither parses nor computes the plan a second time.
  */
 export function curingReminderSummary(
 	state: NonNullable<Awaited<ReturnType<typeof curingReminderState>>>,
-	input: unknown,
+	parsed: ParseResult,
 	records: readonly PourRecord[],
 	known?: PlanResult
 ) {
-	const { pourDate, days, logged } = reminderDays({ input }, records, known);
+	const { pourDate, days, logged } = reminderDays({ parsed }, records, known);
 	return {
 		on: state.on,
 		/** The account page's switch for this kind of mail is off. */
@@ -165,19 +170,6 @@ export function curingReminderSummary(
 		scheduled: state.scheduled,
 		sent: state.sent
 	};
-}
-
-/** The status for a plan by id (reads the plan and its pour log itself). */
-export async function curingReminderStatus(planId: string, ownerId: string) {
-	const [state, [found], records] = await Promise.all([
-		curingReminderState(planId, ownerId),
-		db
-			.select({ input: plan.input })
-			.from(plan)
-			.where(and(eq(plan.id, planId), eq(plan.ownerId, ownerId))),
-		listPourRecords(planId)
-	]);
-	return state && found ? curingReminderSummary(state, found.input, records) : null;
 }
 
 // Unsubscribe links: the plan id signed with a key kept in the database (made once, shared by

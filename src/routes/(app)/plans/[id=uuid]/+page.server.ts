@@ -1,7 +1,7 @@
 import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { currentResult } from '$lib/plan-view/currentResult';
-import { ENGINE_VERSION } from '$lib/plan';
+import { ENGINE_VERSION, parsePlanInput } from '$lib/plan';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
 import { findOwnPlan } from '$lib/server/plans';
@@ -24,14 +24,16 @@ export const load = (async (event) => {
 	const result = currentResult(found.input, found.result);
 	// The stored result stands for the planned plan when this engine wrote it, so it is not computed again.
 	const known = found.engineVersion === ENGINE_VERSION ? result : undefined;
+	// Parsed once for both readings of the log: the forecast and the reminders.
+	const parsed = parsePlanInput(found.input);
 	return {
 		photos: photos.map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height })),
 		maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024,
 		result,
 		// The strength timeline and milestones again from the pour log's dates and temperatures.
-		logged: loggedForecastFor(found.input, result, records),
+		logged: loggedForecastFor(parsed, result, records),
 		locale: event.locals.reader.locale,
-		reminders: reminderState && curingReminderSummary(reminderState, found.input, records, known),
+		reminders: reminderState && curingReminderSummary(reminderState, parsed, records, known),
 		readerTimeZone: event.locals.reader.timeZone
 	};
 }) satisfies PageServerLoad;
