@@ -1,6 +1,16 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan } from './index';
-import { dailyMeans, foldRecords, futureTemp, loggedForecast, pourRecordSchema, pourRecordsBody, type PourLog, type PourRecord } from './pour-log';
+import {
+	dailyMeans,
+	foldRecords,
+	futureTemp,
+	loggedForecast,
+	loggedPourDates,
+	pourRecordSchema,
+	pourRecordsBody,
+	type PourLog,
+	type PourRecord
+} from './pour-log';
 import { modelOf, rect } from './test-plans';
 
 // A 3 × 3 m pad planned at 20 °C every day, type I cement.
@@ -173,6 +183,24 @@ describe('a temperature’s date', () => {
 		expect(f.before).toEqual(['2027-02-27', '2027-02-28']);
 		expect(f.loggedDays).toBe(1);
 		expect(f.temps[0]).toEqual({ date: '2027-03-01', celsius: 5, logged: true });
+		expect(f.earlierPours).toBe(false);
+	});
+
+	it('with two pours on two days, counts from the later one and says an earlier pour was logged', () => {
+		const { m } = modelOf(input);
+		const day = 86_400_000;
+		const log = foldRecords([
+			rec({ kind: 'start', pour: 0 }, 0),
+			rec({ kind: 'batch', pour: 0 }, 1),
+			rec({ kind: 'temp', date: '2027-03-01', unit: 'C', reading: 8 }, 2),
+			{ ...rec({ kind: 'start', pour: 1 }, 3), at: T + 2 * day },
+			{ ...rec({ kind: 'batch', pour: 1 }, 4), at: T + 2 * day + 60_000 }
+		]);
+		const f = loggedForecast(m, log, 0)!;
+		expect(loggedPourDates(log)).toEqual(['2027-03-01', '2027-03-03']);
+		expect(f.pourDate).toBe('2027-03-03');
+		expect(f.before).toEqual(['2027-03-01']);
+		expect(f.earlierPours).toBe(true);
 	});
 });
 

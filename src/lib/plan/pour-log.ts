@@ -257,12 +257,14 @@ export interface LoggedForecast {
 	temps: { date: string; celsius: number; logged: boolean }[];
 	/** Days with a temperature logged before pourDate: kept, but not counted (the concrete was not placed yet). */
 	before: string[];
+	/** Whether a pour was logged on a day before pourDate: then "before the pour" means before the last one. */
+	earlierPours: boolean;
 }
 
-/** The day the logged forecast counts from: the latest local date of a pour started or mixed; null when none is. */
-export function loggedPourDate(log: PourLog): string | null {
+/** Local dates of the pours started or mixed, earliest first, each once; the last is the day the logged forecast counts from. */
+export function loggedPourDates(log: PourLog): string[] {
 	const dates = [...log.pours.values()].flatMap((p) => (p.date && (p.batches.length || p.startedAt !== undefined) ? [p.date] : []));
-	return dates.length ? dates.sort().at(-1)! : null;
+	return [...new Set(dates)].sort();
 }
 
 /**
@@ -273,7 +275,8 @@ export function loggedPourDate(log: PourLog): string | null {
  * the same forecast day the plan did.
  */
 export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days = 28): LoggedForecast | null {
-	const pourDate = loggedPourDate(log);
+	const pourDates = loggedPourDates(log);
+	const pourDate = pourDates.at(-1);
 	if (!pourDate) return null;
 	const means = dailyMeans(log.temps);
 	const date = (i: number) => addDays(pourDate, i);
@@ -287,7 +290,7 @@ export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days
 	// Counted from the logged pour day: the same milestone rules on the logged equivalent ages.
 	const stones = milestones({ ...m, pourDate }, ageSeries(0, tempOn), 0);
 	const before = [...means.keys()].filter((d) => d < pourDate).sort();
-	return { pourDate, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps, before };
+	return { pourDate, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps, before, earlierPours: pourDates.length > 1 };
 }
 
 /**
