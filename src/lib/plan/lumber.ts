@@ -6,7 +6,7 @@ import { dist, lerp } from './polygon';
 import type { Pt } from './polygon';
 import { countUp, length, mToPlan, small } from './units';
 import type { Length, Small } from './units';
-import { ascending, times } from './util';
+import { ascending, mapList, times } from './util';
 
 /** Saw kerf lost per cut, 3 mm (⅛ in); from memory. */
 export const KERF_M = 0.003;
@@ -294,7 +294,7 @@ export function computeForms(m: Model, layout: Layout, splits: readonly SplitBul
 			boardDepth: small(m.forms.depth),
 			thickness: small(m.thickness),
 			...formFit(m.forms.depth, m.thickness),
-			runs: runs.map((r) => ({
+			runs: mapList(runs, (r) => ({
 				id: r.id,
 				kind: r.kind,
 				section: r.section,
@@ -305,10 +305,10 @@ export function computeForms(m: Model, layout: Layout, splits: readonly SplitBul
 				to: P(r.to)
 			})),
 			formLength: length(formLength),
-			buy: m.forms.stockLengths.map((s) => ({ stock: length(s), count: boards.filter((b) => b.stock === s).length })).filter((b) => b.count > 0),
-			cutList: boards.map((b) => ({
+			buy: mapList(m.forms.stockLengths, (s) => ({ stock: length(s), count: boards.filter((b) => b.stock === s).length })).filter((b) => b.count > 0),
+			cutList: mapList(boards, (b) => ({
 				stock: length(b.stock),
-				cuts: b.cuts.map((c) => ({ run: c.run, length: length(c.length) })),
+				cuts: mapList(b.cuts, (c) => ({ run: c.run, length: length(c.length) })),
 				offcut: length(b.left)
 			})),
 			stakes: { count: stakes.length, length: small(m.forms.stakeLength), spacing: length(m.forms.stakeSpacing) },
