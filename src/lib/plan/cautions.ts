@@ -8,7 +8,7 @@ import type { MixingResult } from './mixing';
 import { NIOSH_LOAD_CONSTANT_KG } from './mixing';
 import type { Model } from './model';
 import { MPA_PER_PSI, M_PER_IN } from './units';
-import { mapList } from './util';
+import { filterList, mapList } from './util';
 import type { VolumeResult } from './volume';
 import { addDays as addDaysIso, type ScheduleResult } from './schedule';
 import { toLbPerFt2h, type WeatherResult } from './weather';
@@ -220,7 +220,7 @@ const aboveReference: Rule = ({ m }) =>
 
 const drainage: Rule[] = [
 	({ m, elevations: e }) => {
-		const bad = e.houseEdges.filter((h) => h.fallAway.percent <= 0);
+		const bad = filterList(e.houseEdges, (h) => h.fallAway.percent <= 0);
 		if (!bad.length) return null;
 		const walls = mapList(bad, (h) => `${edgeLabel(m, h.section, h.edge)}${m.sections.length > 1 ? ` of ${m.sections[h.section].name}` : ''}`);
 		const worst = -Math.min(...bad.map((h) => h.fallAway.percent));
@@ -238,7 +238,7 @@ const drainage: Rule[] = [
 		};
 	},
 	({ elevations: e }) => {
-		const low = e.houseEdges.filter((h) => !h.meetsIrc && h.fallAway.percent > 0);
+		const low = filterList(e.houseEdges, (h) => !h.meetsIrc && h.fallAway.percent > 0);
 		if (!low.length) return null;
 		return {
 			id: 'drainage-2-percent',
@@ -344,7 +344,7 @@ const crew: Rule[] = [
 					severity: 'warning'
 				},
 	({ m, mixing }) => {
-		const late = mixing.sections.filter((s) => !s.fits);
+		const late = filterList(mixing.sections, (s) => !s.fits);
 		if (!late.length) return null;
 		if (late.every((s) => s.split && s.split.coldJoints.length))
 			return {
@@ -434,5 +434,8 @@ const RULES: Rule[] = [
 ];
 
 export function computeCautions(c: CautionContext): Caution[] {
-	return mapList(RULES, (r) => r(c)).filter((x): x is Caution => x !== null);
+	return filterList(
+		mapList(RULES, (r) => r(c)),
+		(x): x is Caution => x !== null
+	);
 }

@@ -6,7 +6,7 @@ import type { Model } from './model';
 import { clipVertical, signedArea } from './polygon';
 import type { Pt } from './polygon';
 import { KG_PER_LB, L_PER_US_GAL, M2_PER_FT2, M3_PER_YD3, M_PER_IN, countUp, length, m3ToOrderVolume } from './units';
-import { mapList } from './util';
+import { filterList, mapList } from './util';
 import type { Length } from './units';
 import type { VolumeResult } from './volume';
 
@@ -268,7 +268,7 @@ const round1 = (v: number, d = 1) => Math.round(v * 10 ** d) / 10 ** d;
 function total(items: MaterialItem[]): MaterialsResult['diyTotal'] {
 	// Mixing water comes from the tap: it has no price, shown as "—", and never leaves the total incomplete.
 	const unpriced = mapList(
-		items.filter((i) => i.cost === undefined && i.id !== 'water'),
+		filterList(items, (i) => i.cost === undefined && i.id !== 'water'),
 		(i) => i.id
 	);
 	const amount = items.reduce((a, i) => a + (i.cost ?? 0), 0);

@@ -39,3 +39,12 @@ export function mapNumbers<T>(a: readonly T[], f: (x: T, i: number) => number): 
 	for (let i = 0; i < a.length; i++) out[i] = f(a[i], i);
 	return out;
 }
+
+/** a.filter(ok), built by push from a literal of its own, for the same reason as mapList. */
+export function filterList<T, S extends T>(a: readonly T[], ok: (x: T) => x is S): S[];
+export function filterList<T>(a: readonly T[], ok: (x: T) => boolean): T[];
+export function filterList<T>(a: readonly T[], ok: (x: T) => boolean): T[] {
+	const out: T[] = [];
+	for (let i = 0; i < a.length; i++) if (ok(a[i])) out.push(a[i]);
+	return out;
+}
