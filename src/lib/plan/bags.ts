@@ -2,6 +2,7 @@
 
 import type { BagOffer, Model } from './model';
 import { L_PER_US_GAL, countUp, m3ToOrderVolume, orderVolumeToM3, mass, roundUpTo, volume } from './units';
+import { filterList, mapList } from './util';
 import type { Mass, Volume } from './units';
 
 export interface BagOption {
@@ -85,11 +86,11 @@ const fmt = (x: number) => String(Math.round(x * 100) / 100);
 
 /** Bags against ready-mix with the same forms, base, tools and other materials in both (mixing water left out). */
 export function compareCost(bags: BagOption[], mix: ReadyMixResult, materials?: { items: { id: string; cost?: number }[] }): Comparison {
-	const priced = bags.filter((b) => b.cost !== undefined);
+	const priced = filterList(bags, (b) => b.cost !== undefined);
 	const best = priced.reduce<BagOption | undefined>((a, b) => (!a || b.cost! < a.cost! ? b : a), undefined);
 	const bagCost = best?.cost;
 	const readyMixCost = mix.cost;
-	const shared = (materials?.items ?? []).filter((i) => i.id !== 'concrete-bags' && i.id !== 'water');
+	const shared = filterList(materials?.items ?? [], (i) => i.id !== 'concrete-bags' && i.id !== 'water');
 	const sharedCost = shared.reduce((a, i) => a + (i.cost ?? 0), 0);
 	const cheaper = bagCost === undefined || readyMixCost === undefined ? null : bagCost <= readyMixCost ? 'bags' : 'readyMix';
 	return {
@@ -100,6 +101,9 @@ export function compareCost(bags: BagOption[], mix: ReadyMixResult, materials?: 
 		sharedCost,
 		bagTotal: bagCost === undefined ? undefined : bagCost + sharedCost,
 		readyMixTotal: readyMixCost === undefined ? undefined : readyMixCost + sharedCost,
-		unpriced: shared.filter((i) => i.cost === undefined).map((i) => i.id)
+		unpriced: mapList(
+			filterList(shared, (i) => i.cost === undefined),
+			(i) => i.id
+		)
 	};
 }

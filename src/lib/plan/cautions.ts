@@ -8,6 +8,7 @@ import type { MixingResult } from './mixing';
 import { NIOSH_LOAD_CONSTANT_KG } from './mixing';
 import type { Model } from './model';
 import { MPA_PER_PSI, M_PER_IN } from './units';
+import { filterList, mapList } from './util';
 import type { VolumeResult } from './volume';
 import { addDays as addDaysIso, type ScheduleResult } from './schedule';
 import { toLbPerFt2h, type WeatherResult } from './weather';
@@ -219,9 +220,9 @@ const aboveReference: Rule = ({ m }) =>
 
 const drainage: Rule[] = [
 	({ m, elevations: e }) => {
-		const bad = e.houseEdges.filter((h) => h.fallAway.percent <= 0);
+		const bad = filterList(e.houseEdges, (h) => h.fallAway.percent <= 0);
 		if (!bad.length) return null;
-		const walls = bad.map((h) => `${edgeLabel(m, h.section, h.edge)}${m.sections.length > 1 ? ` of ${m.sections[h.section].name}` : ''}`);
+		const walls = mapList(bad, (h) => `${edgeLabel(m, h.section, h.edge)}${m.sections.length > 1 ? ` of ${m.sections[h.section].name}` : ''}`);
 		const worst = -Math.min(...bad.map((h) => h.fallAway.percent));
 		const high = m.highEdge;
 		const highIsBad = bad.some((h) => h.section === high.section && h.edge === high.edge);
@@ -237,7 +238,7 @@ const drainage: Rule[] = [
 		};
 	},
 	({ elevations: e }) => {
-		const low = e.houseEdges.filter((h) => !h.meetsIrc && h.fallAway.percent > 0);
+		const low = filterList(e.houseEdges, (h) => !h.meetsIrc && h.fallAway.percent > 0);
 		if (!low.length) return null;
 		return {
 			id: 'drainage-2-percent',
@@ -343,7 +344,7 @@ const crew: Rule[] = [
 					severity: 'warning'
 				},
 	({ m, mixing }) => {
-		const late = mixing.sections.filter((s) => !s.fits);
+		const late = filterList(mixing.sections, (s) => !s.fits);
 		if (!late.length) return null;
 		if (late.every((s) => s.split && s.split.coldJoints.length))
 			return {
@@ -358,7 +359,7 @@ const crew: Rule[] = [
 		return {
 			id: 'mixing-time',
 			title: 'The crew cannot place a section before it stiffens',
-			reason: `${andList(late.map((s) => m.sections[s.index].name))} ${late.length > 1 ? 'need up to' : 'needs'} ${Math.round(Math.max(...late.map((s) => s.totalMinutes)))} min of mixing and placing against ${Math.round(Math.min(...late.map((s) => s.workingMinutes)))} min of working time, with ${late[0].finishMinutes} min kept for finishing.`,
+			reason: `${andList(mapList(late, (s) => m.sections[s.index].name))} ${late.length > 1 ? 'need up to' : 'needs'} ${Math.round(Math.max(...late.map((s) => s.totalMinutes)))} min of mixing and placing against ${Math.round(Math.min(...late.map((s) => s.workingMinutes)))} min of working time, with ${late[0].finishMinutes} min kept for finishing.`,
 			action: 'Split the section as suggested in the mixing plan, add people or a drum mixer, or order ready-mix.',
 			source: 'common practice (1½–2 h working time at 70 °F), no published source',
 			severity: 'warning'
@@ -433,5 +434,8 @@ const RULES: Rule[] = [
 ];
 
 export function computeCautions(c: CautionContext): Caution[] {
-	return RULES.map((r) => r(c)).filter((x): x is Caution => x !== null);
+	return filterList(
+		mapList(RULES, (r) => r(c)),
+		(x): x is Caution => x !== null
+	);
 }

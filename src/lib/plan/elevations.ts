@@ -7,6 +7,7 @@ import type { Model } from './model';
 import { dist, sub, toFrame } from './polygon';
 import type { Frame, Pt } from './polygon';
 import { M_PER_FT, small } from './units';
+import { mapList, mapNumbers } from './util';
 import type { Small } from './units';
 
 /** IRC R401.3: impervious surfaces within 10 ft of the foundation fall ≥ 2 % away from it. */
@@ -53,7 +54,7 @@ export function edgeFrame(layout: Layout, section: number, edge: number): Frame 
 
 export function slopePlane(m: Model, layout: Layout): Plane {
 	const frame = edgeFrame(layout, m.highEdge.section, m.highEdge.edge);
-	const framed = layout.sections.map((s) => s.outline.map((p) => toFrame(frame, p)));
+	const framed = mapList(layout.sections, (s) => mapList(s.outline, (p) => toFrame(frame, p)));
 	let [uMin, uMax, wMin, wMax] = [Infinity, -Infinity, Infinity, -Infinity];
 	for (const poly of framed)
 		for (const p of poly) {
@@ -109,7 +110,7 @@ export function computeElevations(m: Model, layout: Layout, plane: Plane, stakes
 			low = Math.min(low, z);
 			vertices.push({ section: s.index, vertex: i, x: p[0] * k, y: p[1] * k, elevation: small(z) });
 		});
-	const zs = stakes.map((s) => elevationAt(plane, s.at));
+	const zs = mapNumbers(stakes, (s) => elevationAt(plane, s.at));
 	const hi = zs.reduce((best, z, i) => (z > zs[best] + 1e-9 ? i : best), 0);
 	const withinTenFeet = m.gapToHouse < IRC_R401_3.within;
 	return {
@@ -119,7 +120,7 @@ export function computeElevations(m: Model, layout: Layout, plane: Plane, stakes
 		steepest: slopeRate(Math.hypot(plane.fall, plane.cross)),
 		totalDrop: small(plane.high - low),
 		vertices,
-		stakes: stakes.map((s, i) => ({
+		stakes: mapList(stakes, (s, i) => ({
 			id: s.id,
 			run: s.run,
 			x: s.at[0] * k,
@@ -128,7 +129,7 @@ export function computeElevations(m: Model, layout: Layout, plane: Plane, stakes
 			belowLevelLine: small(zs[hi] - zs[i])
 		})),
 		highStake: stakes.length ? stakes[hi].id : null,
-		houseEdges: m.houseEdges.map((h) => {
+		houseEdges: mapList(m.houseEdges, (h) => {
 			const away = fallAwayFrom(plane, layout, h.section, h.edge);
 			return {
 				section: h.section,

@@ -18,7 +18,7 @@ import {
 	signedArea
 } from './polygon';
 import type { Box, Pt } from './polygon';
-import { ascending } from './util';
+import { ascending, mapList } from './util';
 
 /** A problem with the input, addressed by its path in the request (e.g. "sections.0.outline"). */
 export interface PlanIssue {
@@ -125,7 +125,7 @@ export function geometryIssues(outlines: readonly (readonly Pt[])[]): PlanIssue[
 	const issues: PlanIssue[] = [];
 	// One set of edge boxes serves both the self-crossing test and the overlap probe.
 	const { boxes, first } = allEdgeBoxes(outlines);
-	const probes = outlines.map((o, i) => {
+	const probes = mapList(outlines, (o, i) => {
 		const problem = outlineProblem(o, eps, boxes, first[i]);
 		if (problem) issues.push({ path: `sections.${i}.outline`, message: `Section ${i + 1}: ${problem}.` });
 		return problem ? null : probe(o, eps, boxes, first[i]);
@@ -162,7 +162,7 @@ function sharedPart(a: Pt, b: Pt, c: Pt, d: Pt, eps: number): [number, number] |
 /** Shared edges between sections, found pairwise; each becomes a cold joint. */
 export function findColdJoints(outlines: readonly (readonly Pt[])[], eps: number): ColdJointSeg[] {
 	const out: ColdJointSeg[] = [];
-	const boxes = outlines.map(bbox);
+	const boxes = mapList(outlines, (o) => bbox(o));
 	const { boxes: edges, first } = allEdgeBoxes(outlines);
 	for (let s = 0; s < outlines.length; s++)
 		for (let r = s + 1; r < outlines.length; r++) {
@@ -203,13 +203,11 @@ export function freeIntervals(a: Pt, b: Pt, shared: readonly ColdJointSeg[], eps
 		pastPiece(out, 0, Math.min(p, q), Math.max(p, q), len, eps);
 		return out;
 	}
-	const cuts = shared
-		.map((j): [number, number] => {
-			const p = project(a, b, j.from);
-			const q = project(a, b, j.to);
-			return [Math.min(p, q), Math.max(p, q)];
-		})
-		.sort((x, y) => ascending(x[0], y[0]));
+	const cuts = mapList(shared, (j): [number, number] => {
+		const p = project(a, b, j.from);
+		const q = project(a, b, j.to);
+		return [Math.min(p, q), Math.max(p, q)];
+	}).sort((x, y) => ascending(x[0], y[0]));
 	let at = 0;
 	for (let k = 0; k < cuts.length; k++) at = pastPiece(out, at, cuts[k][0], cuts[k][1], len, eps, k === cuts.length - 1);
 	return out;
@@ -261,11 +259,11 @@ export function layoutSections(outlines: readonly (readonly Pt[])[]): Layout {
 	const coldJoints = findColdJoints(outlines, eps);
 	let outerPerimeter = 0;
 	// Each edge's joints, in the order found: one pass instead of a filter over all joints per edge.
-	const byEdge: ColdJointSeg[][][] = outlines.map(() => []);
+	const byEdge: ColdJointSeg[][][] = mapList(outlines, () => []);
 	for (const j of coldJoints) for (let k = 0; k < 2; k++) (byEdge[j.sections[k]][j.edges[k]] ??= []).push(j);
-	const sections = outlines.map((outline, s): SectionShape => {
+	const sections = mapList(outlines, (outline, s): SectionShape => {
 		const a = signedArea(outline);
-		const edges = outline.map((from, i): EdgeInfo => {
+		const edges = mapList(outline, (from, i): EdgeInfo => {
 			const to = next(outline, i);
 			const shared = byEdge[s][i] ?? NO_JOINTS;
 			const free = freeIntervals(from, to, shared, eps);

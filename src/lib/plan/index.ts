@@ -20,6 +20,7 @@ import type { Area, Length, Units } from './units';
 import { computeSlab, type SlabResult } from './slab';
 import { computeVolume, thickenedEdges, type VolumeResult } from './volume';
 import { assessWeather, type WeatherResult } from './weather';
+import { mapList, mapNumbers } from './util';
 
 export interface SectionArea extends Area {
 	index: number;
@@ -79,25 +80,36 @@ function geometryResult(m: Model, layout: Layout, thick: boolean[][]): GeometryR
 	const P = (p: Pt): Pt => [mToPlan(p[0], m.units), mToPlan(p[1], m.units)];
 	const isHouse = (s: number, e: number) => m.houseEdges.some((h) => h.section === s && h.edge === e);
 	return {
-		sections: layout.sections.map((s) => ({
+		sections: mapList(layout.sections, (s) => ({
 			index: s.index,
 			name: m.sections[s.index].name,
-			outline: s.outline.map(P),
-			edges: s.edges.map((e) => ({
+			outline: mapList(s.outline, P),
+			edges: mapList(s.edges, (e) => ({
 				index: e.index,
 				length: length(e.length),
 				kind: isHouse(s.index, e.index) ? 'house' : !e.shared.length ? 'outer' : e.free.length ? 'partlyShared' : 'coldJoint',
 				thickened: thick[s.index][e.index]
 			}))
 		})),
-		coldJoints: layout.coldJoints.map((j) => ({ ...j, from: P(j.from), to: P(j.to), length: length(j.length) })),
+		coldJoints: mapList(layout.coldJoints, (j) => ({ ...j, from: P(j.from), to: P(j.to), length: length(j.length) })),
 		highEdge: m.highEdge,
 		houseEdges: m.houseEdges
 	};
 }
 
 /** Widest span a screed must bridge: the shorter side of the largest section, m. */
-const screedSpan = (grids: SectionGrid[]) => Math.max(...grids.map((g) => Math.min(g.us[g.us.length - 1] - g.us[0], g.ws[g.ws.length - 1] - g.ws[0])));
+function screedSpan(grids: SectionGrid[]): number {
+	let span = -Infinity;
+	for (const g of grids) span = Math.max(span, Math.min(g.us[g.us.length - 1] - g.us[0], g.ws[g.ws.length - 1] - g.ws[0]));
+	return span;
+}
+
+/** Longest run along the high edge's direction of any section's grid, m. */
+function alongSpan(grids: SectionGrid[]): number {
+	let span = -Infinity;
+	for (const g of grids) span = Math.max(span, g.us[g.us.length - 1] - g.us[0]);
+	return span;
+}
 
 /** The joint depth as the day plan states it. */
 const jointDepthText = (m: Model, j: JointsResult) => formatSmall(j.depth, m.units);
@@ -105,7 +117,7 @@ const jointDepthText = (m: Model, j: JointsResult) => formatSmall(j.depth, m.uni
 /** Compute the plan from input already parsed by planInputSchema. */
 export function computeParsedPlan(p: ParsedPlan): PlanResult {
 	const m = toModel(p);
-	const layout = layoutSections(m.sections.map((s) => s.outline));
+	const layout = layoutSections(mapList(m.sections, (s) => s.outline));
 	const thick = thickenedEdges(m, layout);
 	const volume = computeVolume(m, layout, thick);
 	const plane = slopePlane(m, layout);
@@ -120,7 +132,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		closer.set(i, g);
 		return g;
 	};
-	const orders = volume.sections.map((s) => s.order.cubicMeters);
+	const orders = mapNumbers(volume.sections, (s) => s.order.cubicMeters);
 	const { mixing, splits } = computeMixing(m, orders, grids, plane.frame, sectionDays, tempOn, layout.eps, relay);
 	const cuts = new Map<number, { alongW: boolean; at: number[] }>();
 	splits.forEach((sp, i) => {
@@ -128,21 +140,28 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		cuts.set(i, sp.cut);
 	});
 	// Only the re-laid sections change grid; the rest keep theirs.
-	const prior = cuts.size ? grids.map((g, i) => (splits[i]?.relaid ? closer.get(i)! : g)) : grids;
+	const prior = cuts.size ? mapList(grids, (g, i) => (splits[i]?.relaid ? closer.get(i)! : g)) : grids;
 	const { joints, grids: laid } = computeJoints(m, layout, plane.frame, plane.framed, cuts.size ? { coldCuts: cuts, prior } : { prior });
-	const pours: Pour[] = mixing.sections.flatMap((s) => s.pours.map((q, part) => ({ section: s.index, part, bags: q.bags })));
+	// Every pour in order, and its concrete (for the bag options below).
+	const pours: Pour[] = [];
+	const pourM3: number[] = [];
+	for (const s of mixing.sections)
+		for (let part = 0; part < s.pours.length; part++) {
+			pours.push({ section: s.index, part, bags: s.pours[part].bags });
+			pourM3.push(s.pours[part].cubicMeters);
+		}
 	const offsets = pourOffsets(m, layout.coldJoints, tempOn, pours);
-	const bulkheads = splits.flatMap((sp, i) => (sp ? sp.segments.map((g) => ({ section: i, from: g.from, to: g.to })) : []));
+	const bulkheads: { section: number; from: Pt; to: Pt }[] = [];
+	for (let i = 0; i < splits.length; i++) for (const g of splits[i]?.segments ?? []) bulkheads.push({ section: i, from: g.from, to: g.to });
 	const { forms, stakes } = computeForms(m, layout, bulkheads);
 	const elevations = computeElevations(m, layout, plane, stakes);
-	const pourM3 = mixing.sections.flatMap((s) => s.pours.map((q) => q.cubicMeters));
-	const bags = m.bags.offered.map((b) => bagOption(b, pourM3, m));
+	const bags = mapList(m.bags.offered, (b) => bagOption(b, pourM3, m));
 	const mix = readyMix(volume.order.cubicMeters, m);
 	const last = Math.max(...offsets);
 	const stones = milestones(m, ageSeries(last, tempOn), last);
 	const schedule = buildSchedule(m, pours, offsets, stones, jointDepthText(m, joints));
 	const weather = assessWeather(
-		schedule.pourDays.map((d, i) => ({ ...d, offset: offsets[i] })),
+		mapList(schedule.pourDays, (d, i) => ({ ...d, offset: offsets[i] })),
 		tempOn,
 		{
 			humidity: m.humidity,
@@ -165,7 +184,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		framed: plane.framed,
 		eps: layout.eps,
 		unformedHouse: m.hasHouse && !m.houseEdgeFormed,
-		alongSpanM: Math.max(...laid.map((g) => g.us[g.us.length - 1] - g.us[0]))
+		alongSpanM: alongSpan(laid)
 	});
 	return {
 		units: m.units,
@@ -174,7 +193,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		area: {
 			...area(slabArea),
 			perimeter: length(layout.outerPerimeter),
-			sections: layout.sections.map((s) => ({
+			sections: mapList(layout.sections, (s) => ({
 				index: s.index,
 				name: m.sections[s.index].name,
 				...area(s.area),

@@ -6,6 +6,7 @@ import type { Model } from './model';
 import { clipVertical, isReflex, pointInPolygonXY, signedArea, sortNumbers, toFrame } from './polygon';
 import type { Frame, Pt } from './polygon';
 import { M_PER_FT, M_PER_IN, countUp, length, mToPlan, small } from './units';
+import { mapList, mapNumbers } from './util';
 import type { Length, Small } from './units';
 
 /** ACI 302.1R, unreinforced slabs on ground. */
@@ -29,7 +30,8 @@ export const jointDepth = (thickness: number) => Math.max(ACI_302.depthFraction 
 
 /** Interval ends from lo to hi through the given cut values, dropping cuts that would leave slivers. */
 export function breakpoints(cuts: number[], lo: number, hi: number, minGap: number): number[] {
-	const out = [lo];
+	const out: number[] = [];
+	out.push(lo);
 	for (const c of sortNumbers([...cuts])) if (c - out[out.length - 1] >= minGap && hi - c >= minGap) out.push(c);
 	out.push(hi);
 	return out;
@@ -37,7 +39,8 @@ export function breakpoints(cuts: number[], lo: number, hi: number, minGap: numb
 
 /** Grid coordinates: each interval between breakpoints split into its count of equal parts. */
 export function gridLines(bps: number[], counts: number[]): number[] {
-	const out = [bps[0]];
+	const out: number[] = [];
+	out.push(bps[0]);
 	for (let i = 0; i + 1 < bps.length; i++) for (let k = 1; k <= counts[i]; k++) out.push(bps[i] + ((bps[i + 1] - bps[i]) * k) / counts[i]);
 	return out;
 }
@@ -74,6 +77,13 @@ function isReentrant(poly: readonly Pt[], i: number, orient: number): boolean {
 	return cos < Math.cos(Math.PI / 6);
 }
 
+/** How many panels no longer than max each gap between breakpoints takes (at least one). */
+function panelCounts(b: readonly number[], max: number): number[] {
+	const out: number[] = [];
+	for (let i = 1; i < b.length; i++) out.push(Math.max(1, countUp((b[i] - b[i - 1]) / max)));
+	return out;
+}
+
 /** Panels no longer than max and no more elongated than ACI's 1.5, refining the longer side. */
 export function panelGrid(poly: readonly Pt[], max: number, min: number, eps: number): Grid {
 	let [uMin, uMax, wMin, wMax] = [Infinity, -Infinity, Infinity, -Infinity];
@@ -84,21 +94,22 @@ export function panelGrid(poly: readonly Pt[], max: number, min: number, eps: nu
 		wMax = Math.max(wMax, p[1]);
 	}
 	const orient = Math.sign(signedArea(poly));
-	const reflex = poly.filter((_, i) => isReentrant(poly, i, orient));
+	const reflex: Pt[] = [];
+	for (let i = 0; i < poly.length; i++) if (isReentrant(poly, i, orient)) reflex.push(poly[i]);
 	const bu = breakpoints(
-		reflex.map((p) => p[0]),
+		mapNumbers(reflex, (p) => p[0]),
 		uMin,
 		uMax,
 		min / 3
 	);
 	const bw = breakpoints(
-		reflex.map((p) => p[1]),
+		mapNumbers(reflex, (p) => p[1]),
 		wMin,
 		wMax,
 		min / 3
 	);
-	const cu = bu.slice(1).map((b, i) => Math.max(1, countUp((b - bu[i]) / max)));
-	const cw = bw.slice(1).map((b, i) => Math.max(1, countUp((b - bw[i]) / max)));
+	const cu = panelCounts(bu, max);
+	const cw = panelCounts(bw, max);
 	let grid: Grid = { us: [], ws: [], panels: 0, maxAspect: 1 };
 	for (let pass = 0; pass < 30; pass++) {
 		const gu = gridLines(bu, cu);
@@ -175,7 +186,7 @@ export function closerGrid(poly: Pt[], maxSpacing: number, thickness: number, ep
 /** Each section's joint grid (ACI 302.1R spacing for the slab), before any pour split re-lays one. */
 export function sectionGrids(m: Model, layout: Layout, framed: Pt[][]): Required<SectionGrid>[] {
 	const { min, max } = jointSpacing(m.thickness);
-	return layout.sections.map((s) => {
+	return mapList(layout.sections, (s) => {
 		const poly = framed[s.index];
 		const g = panelGrid(poly, max, min, layout.eps);
 		return { poly, us: g.us, ws: g.ws, panels: g.panels, maxAspect: g.maxAspect };
@@ -200,8 +211,8 @@ export function computeJoints(
 	const { min, max } = jointSpacing(m.thickness);
 	let total = 0;
 	const grids: SectionGrid[] = [];
-	const sections = layout.sections.map((s): SectionJoints => {
-		const poly = framed?.[s.index] ?? s.outline.map((p) => toFrame(frame, p));
+	const sections = mapList(layout.sections, (s): SectionJoints => {
+		const poly = framed?.[s.index] ?? mapList(s.outline, (p) => toFrame(frame, p));
 		const g = opts.prior?.[s.index] ?? panelGrid(poly, max, min, layout.eps);
 		grids.push({ poly, us: g.us, ws: g.ws, panels: g.panels, maxAspect: g.maxAspect });
 		const cold = opts.coldCuts?.get(s.index);
@@ -221,7 +232,7 @@ export function computeJoints(
 			const u = g.us[i];
 			if (!isCold(u, false)) for (const [w0, w1] of clipVertical(poly, u, layout.eps)) push(u, w0, u, w1, 'across');
 		}
-		const swapped = poly.map((p): Pt => [p[1], p[0]]);
+		const swapped = mapList(poly, (p): Pt => [p[1], p[0]]);
 		for (let i = 1; i + 1 < g.ws.length; i++) {
 			const w = g.ws[i];
 			if (!isCold(w, true)) for (const [u0, u1] of clipVertical(swapped, w, layout.eps)) push(u0, w, u1, w, 'along');

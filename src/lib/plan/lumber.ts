@@ -6,7 +6,7 @@ import { dist, lerp } from './polygon';
 import type { Pt } from './polygon';
 import { countUp, length, mToPlan, small } from './units';
 import type { Length, Small } from './units';
-import { ascending, times } from './util';
+import { ascending, filterList, mapList, times } from './util';
 
 /** Saw kerf lost per cut, 3 mm (⅛ in); from memory. */
 export const KERF_M = 0.003;
@@ -224,6 +224,13 @@ export function formFit(depth: number, thickness: number): Pick<FormsResult, 'fi
 	};
 }
 
+/** Total length of the runs left unformed (poured against an isolation strip). */
+function unformedLength(runs: readonly Run[]): number {
+	let total = 0;
+	for (const r of runs) if (!r.formed) total += r.length;
+	return total;
+}
+
 export function computeForms(m: Model, layout: Layout, splits: readonly SplitBulkhead[] = []): { forms: FormsResult; stakes: StakePoint[] } {
 	const runs = formRuns(m, layout, splits);
 	const maxStock = m.forms.stockLengths[m.forms.stockLengths.length - 1];
@@ -294,7 +301,7 @@ export function computeForms(m: Model, layout: Layout, splits: readonly SplitBul
 			boardDepth: small(m.forms.depth),
 			thickness: small(m.thickness),
 			...formFit(m.forms.depth, m.thickness),
-			runs: runs.map((r) => ({
+			runs: mapList(runs, (r) => ({
 				id: r.id,
 				kind: r.kind,
 				section: r.section,
@@ -305,17 +312,20 @@ export function computeForms(m: Model, layout: Layout, splits: readonly SplitBul
 				to: P(r.to)
 			})),
 			formLength: length(formLength),
-			buy: m.forms.stockLengths.map((s) => ({ stock: length(s), count: boards.filter((b) => b.stock === s).length })).filter((b) => b.count > 0),
-			cutList: boards.map((b) => ({
+			buy: filterList(
+				mapList(m.forms.stockLengths, (s) => ({ stock: length(s), count: boards.filter((b) => b.stock === s).length })),
+				(b) => b.count > 0
+			),
+			cutList: mapList(boards, (b) => ({
 				stock: length(b.stock),
-				cuts: b.cuts.map((c) => ({ run: c.run, length: length(c.length) })),
+				cuts: mapList(b.cuts, (c) => ({ run: c.run, length: length(c.length) })),
 				offcut: length(b.left)
 			})),
 			stakes: { count: stakes.length, length: small(m.forms.stakeLength), spacing: length(m.forms.stakeSpacing) },
 			screws: fixings * SCREWS_PER_FIXING + cleats * SCREWS_PER_CLEAT + corners * SCREWS_PER_CORNER,
 			cleats,
 			corners,
-			isolationStrip: length(runs.filter((r) => !r.formed).reduce((a, r) => a + r.length, 0))
+			isolationStrip: length(unformedLength(runs))
 		}
 	};
 }

@@ -6,6 +6,7 @@ import type { Model } from './model';
 import { clipVertical, signedArea } from './polygon';
 import type { Pt } from './polygon';
 import { KG_PER_LB, L_PER_US_GAL, M2_PER_FT2, M3_PER_YD3, M_PER_IN, countUp, length, m3ToOrderVolume } from './units';
+import { filterList, mapList } from './util';
 import type { Length } from './units';
 import type { VolumeResult } from './volume';
 
@@ -83,7 +84,7 @@ export function rebarQuantities(m: Model, framed: Pt[][], eps: number) {
 	let total = 0;
 	let splices = 0;
 	for (const poly of framed)
-		for (const p of [poly, poly.map((q): Pt => [q[1], q[0]])]) {
+		for (const p of [poly, mapList(poly, (q): Pt => [q[1], q[0]])]) {
 			let lo = Infinity;
 			let hi = -Infinity;
 			for (const q of p) {
@@ -266,7 +267,10 @@ const round1 = (v: number, d = 1) => Math.round(v * 10 ** d) / 10 ** d;
 
 function total(items: MaterialItem[]): MaterialsResult['diyTotal'] {
 	// Mixing water comes from the tap: it has no price, shown as "—", and never leaves the total incomplete.
-	const unpriced = items.filter((i) => i.cost === undefined && i.id !== 'water').map((i) => i.id);
+	const unpriced = mapList(
+		filterList(items, (i) => i.cost === undefined && i.id !== 'water'),
+		(i) => i.id
+	);
 	const amount = items.reduce((a, i) => a + (i.cost ?? 0), 0);
 	return { amount, complete: unpriced.length === 0, unpriced };
 }

@@ -6,6 +6,7 @@ import type { BagOffer, Model } from './model';
 import { areaLeftOf, clipVertical, fromFrame, signedArea } from './polygon';
 import type { Frame, Pt } from './polygon';
 import { countUp, KG_PER_LB, mass, mToPlan, temperature } from './units';
+import { mapList, mapNumbers } from './util';
 import type { Mass, Temperature } from './units';
 
 /** Beyond this many pours a section belongs to ready-mix; no cold-joint lines are drawn (engine choice). */
@@ -73,7 +74,7 @@ export interface SplitPlan extends Split {
  */
 export function cutsOnLines(poly: readonly Pt[], lines: number[], bagsFor: (area: number) => number, maxBags: number): number[] | null {
 	const total = Math.abs(signedArea(poly));
-	const left = lines.map((l) => areaLeftOf(poly, l)); // each O(n), worked out once
+	const left = mapNumbers(lines, (l) => areaLeftOf(poly, l)); // each O(n), worked out once
 	const cuts: number[] = [];
 	let before = 0;
 	let from = 0;
@@ -128,7 +129,7 @@ export function splitSection(
 	// Cut across the longer direction; work with x as that direction. A square cuts across u, whatever
 	// float noise a turned outline brings.
 	const across = wSpan > uSpan * (1 + 1e-9);
-	const flip = (g: SectionGrid) => (across ? g.poly.map((q): Pt => [q[1], q[0]]) : g.poly);
+	const flip = (g: SectionGrid) => (across ? mapList(g.poly, (q): Pt => [q[1], q[0]]) : g.poly);
 	const poly = flip(grid);
 	const total = Math.abs(signedArea(poly));
 	const bagsFor = (a: number) => countUp(((a / total) * sectionM3) / yieldM3);
@@ -147,16 +148,17 @@ export function splitSection(
 		}
 	}
 	if (cuts === null || cuts.length + 1 > MAX_PRACTICAL_PARTS) return impractical(Math.max(fewest, (cuts?.length ?? 0) + 1), bags, sectionM3, across);
-	const ends = [...cuts.map((c) => areaLeftOf(poly, c)), total];
-	const partsM3 = ends.map((a, i) => ((a - (i ? ends[i - 1] : 0)) / total) * sectionM3);
+	const ends = mapNumbers(cuts, (c) => areaLeftOf(poly, c));
+	ends.push(total);
+	const partsM3 = mapNumbers(ends, (a, i) => ((a - (i ? ends[i - 1] : 0)) / total) * sectionM3);
 	const toPlane = (q: Pt): Pt => fromFrame(frame, across ? [q[1], q[0]] : q);
 	const segments: SplitPlan['segments'] = [];
 	for (const c of cuts) for (const [a, b] of clipVertical(poly, c, eps)) segments.push({ from: toPlane([c, a]), to: toPlane([c, b]) });
 	const P = (p: Pt): Pt => [mToPlan(p[0], units), mToPlan(p[1], units)];
 	return {
 		parts: cuts.length + 1,
-		bagsPerPart: partsM3.map((v) => countUp(v / yieldM3)),
-		coldJoints: segments.map((j) => ({ from: P(j.from), to: P(j.to) })),
+		bagsPerPart: mapNumbers(partsM3, (v) => countUp(v / yieldM3)),
+		coldJoints: mapList(segments, (j) => ({ from: P(j.from), to: P(j.to) })),
 		segments,
 		partsM3,
 		cut: { alongW: across, at: cuts },
@@ -203,7 +205,7 @@ export function computeMixing(
 ): { mixing: MixingResult; splits: (SplitPlan | undefined)[] } {
 	const bag = m.bags.plan;
 	const splits: (SplitPlan | undefined)[] = [];
-	const sections = orderM3.map((v, i): MixingSection => {
+	const sections = mapList(orderM3, (v, i): MixingSection => {
 		const whole = countUp(v / bag.yieldM3);
 		const time = crewTime(whole, bag, m.crew);
 		const t = m.concreteTemp ?? tempOn(pourDays[i]);
@@ -229,7 +231,7 @@ export function computeMixing(
 			splits[i] = plan;
 			if (plan.segments.length) {
 				// One rounding rule: each pour is rounded up to whole bags, and the section is their sum.
-				s.pours = plan.partsM3.map((p) => ({ bags: countUp(p / bag.yieldM3), cubicMeters: p }));
+				s.pours = mapList(plan.partsM3, (p) => ({ bags: countUp(p / bag.yieldM3), cubicMeters: p }));
 				s.bags = s.pours.reduce((a, p) => a + p.bags, 0);
 			}
 		}

@@ -20,7 +20,7 @@ import {
 	windToKmh
 } from './units';
 import type { Units } from './units';
-import { ascending } from './util';
+import { ascending, mapList, mapNumbers } from './util';
 
 /** PS 20 dressed (dry) depth of each nominal board, inches (DOC PS 20). */
 export const DRESSED_DEPTH_IN = { '2x4': 3.5, '2x6': 5.5, '2x8': 7.25, '2x10': 9.25, '2x12': 11.25 } as const;
@@ -146,7 +146,7 @@ const rate = (r: { value: number; unit: ParsedPlan['slope']['fall']['unit'] }, u
 export const defaultYieldM3 = (kg: number) => (kg / KG_PER_LB / COMMON.dryMixLbPerFt3) * M3_PER_FT3;
 
 function bagOffers(p: ParsedPlan): BagOffer[] {
-	return p.bags.offered.map((b) => {
+	return mapList(p.bags.offered, (b) => {
 		const kg = massToKg(b.size, p.units);
 		return {
 			size: b.size,
@@ -170,10 +170,10 @@ export function toModel(p: ParsedPlan): Model {
 	return {
 		units: u,
 		name: p.name,
-		sections: p.sections.map((s, i) => ({
+		sections: mapList(p.sections, (s, i) => ({
 			index: i,
 			name: s.name ?? `Section ${i + 1}`,
-			outline: s.outline.map((q): Pt => [L(q[0]), L(q[1])])
+			outline: mapList(s.outline, (q): Pt => [L(q[0]), L(q[1])])
 		})),
 		houseEdges,
 		highEdge: p.slope.highEdge ?? p.houseEdge ?? { section: 0, edge: 0 },
@@ -190,7 +190,7 @@ export function toModel(p: ParsedPlan): Model {
 			stakeSpacing: L(p.forms.stakeSpacing),
 			stakeLength: S(p.forms.stakeLength),
 			release: p.forms.release,
-			stockLengths: [...p.forms.stockLengths].map(L).sort(ascending),
+			stockLengths: mapNumbers(p.forms.stockLengths, L).sort(ascending),
 			boardThickness: DRESSED_THICKNESS_IN * M_PER_IN
 		},
 		thickened: {
@@ -276,8 +276,8 @@ export function toModel(p: ParsedPlan): Model {
 			finishMinutes: p.crew.finishMinutes,
 			payloadKg: massToKg(p.crew.payload, u)
 		},
-		airTemps: temps.map((t) => tempToC(t, u)),
-		airLows: (p.conditions.airLow === undefined ? [] : Array.isArray(p.conditions.airLow) ? p.conditions.airLow : [p.conditions.airLow]).map((t) =>
+		airTemps: mapNumbers(temps, (t) => tempToC(t, u)),
+		airLows: mapNumbers(p.conditions.airLow === undefined ? [] : Array.isArray(p.conditions.airLow) ? p.conditions.airLow : [p.conditions.airLow], (t) =>
 			tempToC(t, u)
 		),
 		humidity: p.conditions.humidity,

@@ -4,7 +4,7 @@
 
 import type { ColdJointSeg } from './geometry';
 import type { Model } from './model';
-import { times } from './util';
+import { mapList, times } from './util';
 import { ageFactor, equivalentAges, strengthRatio, strengthTimeline } from './strength';
 import type { StrengthDay } from './strength';
 
@@ -62,7 +62,7 @@ export function pourOffsets(
 	m: Model,
 	coldJoints: readonly ColdJointSeg[],
 	tempOn: (d: number) => number,
-	pours: readonly Pick<Pour, 'section' | 'part'>[] = m.sections.map((s) => ({ section: s.index, part: 0 }))
+	pours: readonly Pick<Pour, 'section' | 'part'>[] = mapList(m.sections, (s) => ({ section: s.index, part: 0 }))
 ): number[] {
 	// cumulative[d]: equivalent age gained from day 0 up to the start of day d.
 	// A typed array: one allocation, numbers stored unboxed.
@@ -221,7 +221,7 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 		}
 	];
 	const date = m.pourDate ? datesFrom(m.pourDate) : null;
-	return list.map((x) => {
+	return mapList(list, (x) => {
 		const planDay = x.day === null ? null : first0 + lastPour + x.day;
 		return { ...x, planDay, date: date && planDay !== null ? date(planDay - first0) : undefined };
 	});
@@ -301,16 +301,17 @@ export function buildSchedule(m: Model, pours: readonly Pour[], offsets: number[
 	for (const s of stones) if (s.planDay !== null) add(s.planDay, s.id, `${s.title} (${s.rule}).`);
 	const curing = stones.find((s) => s.id === 'curing-done')?.day ?? CURING[m.cement];
 	const date = m.pourDate ? datesFrom(m.pourDate) : null;
-	const list = [...days.entries()]
-		.sort((a, b) => a[0] - b[0])
-		.map(([day, tasks]) => ({
+	const list = mapList(
+		[...days.entries()].sort((a, b) => a[0] - b[0]),
+		([day, tasks]) => ({
 			day,
 			date: date ? date(day - first0) : undefined,
 			tasks
-		}));
+		})
+	);
 	return {
 		days: list,
-		pourDays: pours.map((p, i) => ({
+		pourDays: mapList(pours, (p, i) => ({
 			section: p.section,
 			part: p.part,
 			bags: p.bags,

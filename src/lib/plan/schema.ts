@@ -8,6 +8,7 @@ import { planErrorMap, plainNumber, RATE_MAX, RATE_UNITS, rateMessage } from './
 import { perimeter, signedArea } from './polygon';
 import { KG_PER_LB, M2_PER_FT2, M3_PER_FT3, M_PER_FT, M_PER_IN, type Units } from './units';
 import { LIMITS } from './limits';
+import { mapList } from './util';
 
 export { answerBytesBound, LIMITS } from './limits';
 
@@ -446,7 +447,7 @@ type Parsed = z.output<ReturnType<typeof planSchemaFor>>;
 /** Cross-field checks: edge references in range, custom board depth, fill, bag size, scope, geometry. */
 function crossChecks(plan: Parsed): PlanIssue[] {
 	const issues: PlanIssue[] = [];
-	const outlines = plan.sections.map((s) => s.outline);
+	const outlines = mapList(plan.sections, (s) => s.outline);
 	const checkEdge = (ref: EdgeRefOut | null | undefined, path: string) => {
 		if (!ref) return;
 		const o = outlines[ref.section];
@@ -500,7 +501,7 @@ function scopeIssues(plan: Parsed): PlanIssue[] {
 	const imp = u === 'imperial';
 	const L = lengthUnit(u);
 	const issues: PlanIssue[] = [];
-	const outlines = plan.sections.map((s) => s.outline);
+	const outlines = mapList(plan.sections, (s) => s.outline);
 	let vertices = 0;
 	let edge = 0;
 	let area = 0;

@@ -2,6 +2,7 @@
 // follows the expected temperatures.
 
 import { MPA_PER_PSI } from './units';
+import { mapList, mapNumbers } from './util';
 
 /** ACI 209R-92 Eq. 2-1 constants, moist-cured concrete. */
 export const ACI_209 = {
@@ -45,7 +46,7 @@ export function equivalentAges(dailyTempsC: number[]): number[] {
 /** Nurse-Saul temperature-time factor after each whole day, °C·h: M = Σ (Ta − T0)·Δt. */
 export function maturity(dailyTempsC: number[], datum: number = C1074.datum): number[] {
 	let m = 0;
-	return dailyTempsC.map((t) => (m += Math.max(0, t - datum) * 24));
+	return mapNumbers(dailyTempsC, (t) => (m += Math.max(0, t - datum) * 24));
 }
 
 export interface StrengthDay {
@@ -64,7 +65,7 @@ export interface StrengthDay {
 export function strengthTimeline(dailyTempsC: number[], cement: keyof typeof ACI_209, designMpa: number): StrengthDay[] {
 	const te = equivalentAges(dailyTempsC);
 	const mt = maturity(dailyTempsC);
-	return te.map((age, i) => {
+	return mapList(te, (age, i) => {
 		const r = strengthRatio(age, cement);
 		return {
 			day: i + 1,

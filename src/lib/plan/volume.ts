@@ -4,14 +4,15 @@ import { PlanInputError, type Layout, type SectionShape } from './geometry';
 import type { Model } from './model';
 import { cross } from './polygon';
 import { KG_PER_LB, area, countUp, small, volume } from './units';
+import { mapList, mapNumbers } from './util';
 import type { Area, Small, Volume } from './units';
 
 /** Which edges of each section get a thickened edge. */
 export function thickenedEdges(m: Model, layout: Layout): boolean[][] {
 	const spec = m.thickened.edges;
 	const house = (s: number, e: number) => m.houseEdges.some((h) => h.section === s && h.edge === e);
-	return layout.sections.map((sec) =>
-		sec.edges.map((e) => {
+	return mapList(layout.sections, (sec) =>
+		mapList(sec.edges, (e) => {
 			if (spec === 'none') return false;
 			if (spec === 'free') return e.shared.length === 0 && !house(sec.index, e.index);
 			return spec.some((r) => r.section === sec.index && r.edge === e.index);
@@ -106,21 +107,21 @@ export interface VolumeResult {
 /** Chunk fill per section, spread in proportion to each section's trench volume. */
 function fillPerSection(m: Model, trench: number[]): number[] {
 	const total = trench.reduce((a, b) => a + b, 0);
-	if (!m.fill) return trench.map(() => 0);
+	if (!m.fill) return mapNumbers(trench, () => 0);
 	if (total <= 0) throw new PlanInputError([{ path: 'fill', message: 'Chunk fill goes in a thickened-edge trench, and this plan has none.' }]);
 	const share = m.fill.share ?? (m.fill.volume ?? 0) / total;
 	if (share > 0.9) throw new PlanInputError([{ path: 'fill.volume', message: 'More fill than 90 % of the trench volume leaves no concrete around it.' }]);
-	return trench.map((t) => t * share);
+	return mapNumbers(trench, (t) => t * share);
 }
 
 const tons = (kg: number) => ({ shortTons: kg / KG_PER_LB / 2000, tonnes: kg / 1000 });
 
 export function computeVolume(m: Model, layout: Layout, thick: boolean[][]): VolumeResult {
-	const trenchA = layout.sections.map((s, i) => trenchArea(s, thick[i], m.thickened.width));
-	const trenchV = layout.sections.map((s, i) => trenchVolume(s, thick[i], m.thickened.width, m.thickened.extraDepth, m.thickened.profile));
+	const trenchA = mapNumbers(layout.sections, (s, i) => trenchArea(s, thick[i], m.thickened.width));
+	const trenchV = mapNumbers(layout.sections, (s, i) => trenchVolume(s, thick[i], m.thickened.width, m.thickened.extraDepth, m.thickened.profile));
 	const fill = fillPerSection(m, trenchV);
 	const k = 1 + m.wastePercent / 100;
-	const sections = layout.sections.map((s, i): SectionVolume => {
+	const sections = mapList(layout.sections, (s, i): SectionVolume => {
 		const net = s.area * m.thickness + trenchV[i] - fill[i];
 		return {
 			index: i,

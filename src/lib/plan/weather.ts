@@ -2,6 +2,7 @@
 
 import { ACI_209, ageFactor } from './strength';
 import { KG_PER_LB, MPA_PER_PSI, M_PER_FT, temperature } from './units';
+import { mapList } from './util';
 import type { Temperature } from './units';
 
 export const ACI_306 = {
@@ -112,7 +113,7 @@ export interface WeatherConditions {
 export function assessWeather(pours: PourDay[], tempOn: (day: number) => number, conditions: WeatherConditions): WeatherResult {
 	const lowOn = conditions.lowOn ?? tempOn;
 	const cement = conditions.cement ?? 'typeI';
-	const out = pours.map((p): PourWeather => {
+	const out = mapList(pours, (p): PourWeather => {
 		const air = tempOn(p.offset);
 		const concrete = conditions.concreteTemp ?? air;
 		let coldest = Infinity;
