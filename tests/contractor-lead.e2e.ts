@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { continueAs, demoUser, signUp, uniqueEmail } from './helpers';
 import { insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -25,12 +25,10 @@ test('a contractor prices a lead from its spec sheet and bids from a phone', asy
 	await page.getByLabel('Site access').fill('Side gate 36 in wide; no truck access to the back.');
 	await page.getByRole('button', { name: 'Send the plan' }).click();
 	await expect(page.getByText('Sent to 1 contractor.')).toBeVisible();
-	await signOut(page);
 
 	// On a phone.
 	await page.setViewportSize({ width: 390, height: 844 });
-	await signIn(page, demoUser('contractor').email, demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
+	await continueAs(page, demoUser('contractor').email);
 	await page.goto('/pro/leads');
 	await page.getByTestId('lead-list').getByRole('link', { name: 'Kitchen patio' }).first().click();
 	const spec = page.getByTestId('spec-sheet');
