@@ -1,7 +1,20 @@
 import { expect, test, type Page } from '@playwright/test';
 import postgres from 'postgres';
 import { todayIn } from '../src/lib/reader';
-import { continueAs, demoUser, dropSession, mailLink, openHydrated, reloadHydrated, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
+import {
+	continueAs,
+	demoPassword,
+	demoUser,
+	dropSession,
+	mailLink,
+	openHydrated,
+	reloadHydrated,
+	signIn,
+	signOut,
+	signUp,
+	uniqueEmail,
+	watchErrors
+} from './helpers';
 import { insertPlan } from './pro-helpers';
 
 test.describe.configure({ timeout: 240_000 });
@@ -135,7 +148,9 @@ test("a contractor's leads list uses the unit they chose, else their language's;
 	const { id: planId } = await insertPlan(owner, { name: 'Bin store pad', postcode: '97321' });
 	await sendToRidgeback(page, planId);
 
-	await continueAs(page, demoUser('contractor').email);
+	await signOut(page);
+	await signIn(page, demoUser('contractor').email, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
 	await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Leads' }).click();
 	const item = page.getByTestId('lead-list').getByRole('listitem').filter({ hasText: 'Bin store pad' }).first();
 	await expect(item).toContainText(/ km · /);

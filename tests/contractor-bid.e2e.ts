@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { formatMoney } from '../src/lib/money';
-import { continueAs, demoUser, dropSession, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { continueAs, demoPassword, demoUser, dropSession, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { approvedNewContractor, bumpPlanRevision, insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -169,7 +169,8 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	// Refusals: a pending contractor, a contractor the plan was not sent to, another homeowner.
 	const leadPath = new URL(leadUrl).pathname;
 	const threadPath = `/plans/${planId}/bids/${leadPath.split('/').pop()}`;
-	await continueAs(page, 'sam@mossgateforms.example');
+	await signIn(page, 'sam@mossgateforms.example', demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
 	expect((await page.goto('/pro/leads'))?.status()).toBe(403);
 	expect((await page.goto(leadPath))?.status()).toBe(403);
 	expect((await page.request.get(photoPath)).status()).toBe(403);
@@ -208,7 +209,9 @@ test('a contractor who has the plan learns of a newer revision and keeps seeing 
 	await page.getByRole('button', { name: 'Tell them about revision 2' }).click();
 	await expect(page.getByText('Told 1 contractor about the newer revision.')).toBeVisible();
 
-	await continueAs(page, demoUser('contractor').email);
+	await signOut(page);
+	await signIn(page, demoUser('contractor').email, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
 	await page.goto(await mailLink(page, 'dell@ridgebackflatwork.example', /newer plan revision/, { timeout: 60_000 }));
 	await expect(page.getByRole('heading', { name: 'Shed pad', exact: true })).toBeVisible();
 	await expect(page.getByText('re-sent this plan as revision 2. This page shows revision 1')).toBeVisible();

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { continueAs, demoUser, signUp, uniqueEmail } from './helpers';
+import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -28,7 +28,9 @@ test('a contractor prices a lead from its spec sheet and bids from a phone', asy
 
 	// On a phone.
 	await page.setViewportSize({ width: 390, height: 844 });
-	await continueAs(page, demoUser('contractor').email);
+	await signOut(page);
+	await signIn(page, demoUser('contractor').email, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
 	await page.goto('/pro/leads');
 	await page.getByTestId('lead-list').getByRole('link', { name: 'Kitchen patio' }).first().click();
 	const spec = page.getByTestId('spec-sheet');

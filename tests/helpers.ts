@@ -35,6 +35,9 @@ export const visitorContext = (browser: Browser, options: BrowserContextOptions 
  * journey that changes hands part-way and is not about signing in (signIn drives the form): the
  * page's session cookie becomes the stored one, the one before it is left alone on the server. From
  * there, switch again with continueAs or go on as a visitor with dropSession, never signOut.
+ * Not from a plan's own page: it hands the plan's other pages to the service worker to fetch in the
+ * background, and each signed-in answer sets the session cookie again, so one arriving after the swap
+ * brings the previous account back. There the journey signs out and in through the forms.
  */
 export async function continueAs(page: Page, email: string) {
 	const stored = storedSessions.find((s) => s.email === email);

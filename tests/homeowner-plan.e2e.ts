@@ -4,7 +4,7 @@ import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { computePlan } from '../src/lib/plan/index';
 import { formatVolume } from '../src/lib/plan/format';
-import { continueAs, demoUser, mailLink, openHydrated, savedPlanId, sessionFile, signUp, uniqueEmail } from './helpers';
+import { demoPassword, demoUser, mailLink, openHydrated, savedPlanId, sessionFile, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { pdfText } from './pdf-text';
 
 const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });
@@ -135,7 +135,9 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	expect(text).toContain(`${planned.count} bags`);
 
 	// Another homeowner sees none of it.
-	await continueAs(page, demoUser('homeowner').email);
+	await signOut(page);
+	await signIn(page, demoUser('homeowner').email, demoPassword);
+	await expect(page).toHaveURL(/\/plans$/);
 	expect((await page.goto(`/plans/${id}`))?.status()).toBe(404);
 	expect((await page.goto(`/plans/${id}/edit`))?.status()).toBe(404);
 	expect((await page.request.get(`/api/plans/${id}`)).status()).toBe(404);

@@ -2,7 +2,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { formatDay, formatDayLong } from '../src/lib/reader';
 import { respondBy } from '../src/lib/leads';
-import { continueAs, dropSession, mailLink, signIn, signUp, uniqueEmail, watchErrors } from './helpers';
+import { continueAs, demoPassword, dropSession, mailLink, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -59,7 +59,9 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 	const due = respondBy(new Date(), 'soon');
 	await expect(page.getByText(`reply due by ${formatDay(due, { locale: 'en-GB' })}`)).toBeVisible();
 
-	await continueAs(page, DELL);
+	await signOut(page);
+	await signIn(page, DELL, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
 	const leadUrl = await mailLink(page, DELL, /New lead near Corvallis, OR/, { timeout: 60_000 });
 	await page.goto(leadUrl);
 	await expect(page.getByTestId('firms-asked')).toHaveText('You are the only firm asked for this plan.');
@@ -80,7 +82,9 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 	await expect(page.getByText('Accept…')).toHaveCount(0);
 	await expect(page.getByTestId('close-request')).toHaveCount(0);
 
-	await continueAs(page, DELL);
+	await signOut(page);
+	await signIn(page, DELL, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
 	expect(await mailLink(page, DELL, /A request near Corvallis, OR was closed/, { timeout: 60_000 })).toBe(leadUrl);
 	await page.goto(leadUrl);
 	await expect(page.getByTestId('lead-status')).toHaveText('Request closed without hiring');
@@ -100,17 +104,20 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 	await page.getByRole('button', { name: 'Send the plan' }).click(); // no address yet: asked on accepting
 	await expect(page.getByText('Sent to 2 contractors.')).toBeVisible();
 
+	await signOut(page);
+
 	const leads: Record<string, string> = {};
 	for (const [email, total] of [
 		[DELL, '2,900'],
 		[JUNE, '2,700']
 	]) {
-		await continueAs(page, email);
+		await signIn(page, email, demoPassword);
+		await expect(page).toHaveURL(/\/pro$/);
 		leads[email] = await mailLink(page, email, /New lead near Corvallis, OR/, { timeout: 60_000 });
 		await page.goto(leads[email]);
 		await expect(page.getByTestId('firms-asked')).toHaveText('2 firms were asked for this plan.');
 		await sendBid(page, total);
-		await dropSession(page);
+		await signOut(page);
 	}
 
 	await signIn(page, homeEmail, 'garden-pad-done');
@@ -135,7 +142,9 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 	expect(violations.map((v) => v.id)).toEqual([]);
 
 	// The winner: address and phone on the lead.
-	await continueAs(page, DELL);
+	await signOut(page);
+	await signIn(page, DELL, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
 	await page.goto(leads[DELL]);
 	await expect(page.getByTestId('lead-status')).toHaveText('Won');
 	await expect(page.getByTestId('site-address')).toHaveText('3 Alder Bend, Corvallis');
@@ -163,7 +172,9 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 	await expect(page.getByTestId('mark-done')).toHaveCount(0);
 	await expect(page.getByRole('button', { name: 'Send the plan' })).toHaveCount(0);
 
-	await continueAs(page, DELL);
+	await signOut(page);
+	await signIn(page, DELL, demoPassword);
+	await expect(page).toHaveURL(/\/pro$/);
 	expect(await mailLink(page, DELL, /The job near Corvallis, OR is marked done/, { timeout: 60_000 })).toBe(leads[DELL]);
 	await page.goto(leads[DELL]);
 	await expect(page.getByTestId('lead-status')).toHaveText('Job done');
