@@ -17,6 +17,9 @@ export default defineConfig(({ command }) => ({
 		testTimeout: 30_000,
 		expect: { requireAssertions: true, poll: { timeout: 10_000 } },
 		server: { deps: { inline: ['postgres'] } },
+		// Both cores: Vitest's default on a 2-core machine is one worker (cores − 1), which ran the unit
+		// files one after another.
+		maxWorkers: 2,
 		projects: [
 			// Pure specs (engine, views, rules, mail and PDF rendering) run files side by side first…
 			{
@@ -27,6 +30,10 @@ export default defineConfig(({ command }) => ({
 					// put every spec in both.
 					include: ['src/**/*.{test,spec}.ts'],
 					exclude: ['src/**/*.integration.spec.ts'],
+					// Pure specs share nothing (no mocks, no globals they change), so a worker keeps the modules
+					// it imported for the next file: re-importing the engine and Svelte per file was over half
+					// of the unit run.
+					isolate: false,
 					sequence: { groupOrder: 0 },
 					benchmark: { include: ['src/**/*.bench.ts'] }
 				}

@@ -1,8 +1,9 @@
 // npm test: the same set-up as npm start against a fresh test database, then every check:
-// svelte-check, the linters (`npm run lint`), Vitest (unit + integration on the real PostgreSQL),
-// the build, and Playwright in Debian's Chromium. Exits non-zero on the first failure.
-// `npm test -- FILE...` runs the same set-up, the type check and ESLint on the named files, then
-// only those files: *.e2e.ts with Playwright (after a build), the rest with Vitest.
+// Vitest (unit + integration on the real PostgreSQL), the build, and Playwright in Debian's Chromium,
+// with svelte-check and the linters (what `npm run lint` runs) beside Playwright. Exits non-zero on
+// the first failure. `npm test -- FILE...` runs the same set-up, the type check and ESLint on the
+// named files, then only those files: *.e2e.ts with Playwright (after a build), the rest with Vitest.
+import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
 import { root, settings } from './lib/settings.mjs';
@@ -16,6 +17,20 @@ const e2eFiles = files.filter((f) => f.endsWith('.e2e.ts'));
 const unitFiles = files.filter((f) => !f.endsWith('.e2e.ts'));
 const all = files.length === 0;
 const t0 = Date.now();
+/** Runs each check in turn with its output held and printed when it ends; throws on the first failure. */
+async function runChecks(checks, opts) {
+	for (const [name, cmd, args] of checks) {
+		const t = Date.now();
+		const child = spawn(cmd, args, { ...opts, stdio: ['ignore', 'pipe', 'pipe'] });
+		const out = [];
+		child.stdout.on('data', (d) => out.push(d));
+		child.stderr.on('data', (d) => out.push(d));
+		const code = await new Promise((resolve) => child.on('close', (c, signal) => resolve(c ?? signal)));
+		log(`${name}: ${((Date.now() - t) / 1000).toFixed(1)} s`);
+		process.stdout.write(Buffer.concat(out));
+		if (code !== 0) throw new Error(`${name} failed (${path.basename(cmd)} exited with ${code})`);
+	}
+}
 const step = (name, fn) => {
 	const t = Date.now();
 	log(name);
@@ -36,17 +51,38 @@ try {
 		background(node, [path.join(root, 'scripts', 'payments-fake.mjs')], { env });
 	}
 	const opts = { cwd: root, env };
-	step('Type check (svelte-check)', () => {
-		run(bin('svelte-kit'), ['sync'], opts);
-		run(bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings'], opts);
-	});
-	// Prettier's check and ESLint: everything, or (ESLint only) the named files.
-	if (all) step('Lint (npm run lint)', () => run('npm', ['run', '--silent', 'lint'], opts));
-	else step('Lint (eslint, the named files)', () => run(bin('eslint'), ['--cache', '--cache-location', 'node_modules/.cache/eslint/', ...files], opts));
+	// The static checks (type check, Prettier, ESLint) read files only: they run one after another
+	// beside Playwright, whose single worker leaves a core mostly idle, and their output is printed
+	// when each ends. Without end-to-end files they run first, as before.
+	const checks = [
+		['Type check (svelte-kit sync)', bin('svelte-kit'), ['sync']],
+		['Type check (svelte-check)', bin('svelte-check'), ['--tsconfig', './tsconfig.json', '--fail-on-warnings']],
+		...(all
+			? [
+					['Lint (prettier --check)', bin('prettier'), ['--check', '--cache', '.']],
+					['Lint (eslint)', bin('eslint'), ['--cache', '--cache-location', 'node_modules/.cache/eslint/', '.']]
+				]
+			: [['Lint (eslint, the named files)', bin('eslint'), ['--cache', '--cache-location', 'node_modules/.cache/eslint/', ...files]]])
+	];
+	const e2e = all || e2eFiles.length > 0;
+	if (!e2e) await runChecks(checks, opts);
 	if (all || unitFiles.length) step('Unit and integration tests (vitest)', () => run(bin('vitest'), ['run', ...unitFiles], opts));
-	if (all || e2eFiles.length) {
+	if (e2e) {
 		step('Build', () => build({ force: true, devMailbox: s.useFakeMail }));
-		step('End-to-end tests (playwright)', () => run(bin('playwright'), ['test', ...e2eFiles], opts));
+		const t = Date.now();
+		log('End-to-end tests (playwright), with the static checks beside them');
+		const playwright = spawn(bin('playwright'), ['test', ...e2eFiles], { ...opts, stdio: 'inherit' });
+		const done = new Promise((resolve) => playwright.on('exit', (code, signal) => resolve(code ?? signal)));
+		// A failed check ends the run at once, as a failure anywhere else does.
+		// SIGINT: Playwright stops as on Ctrl-C, taking its web server down with it.
+		await runChecks(checks, opts).catch(async (err) => {
+			playwright.kill('SIGINT');
+			await done;
+			throw err;
+		});
+		const code = await done;
+		if (code !== 0) throw new Error(`playwright test exited with ${code}`);
+		log(`End-to-end tests (playwright): ${((Date.now() - t) / 1000).toFixed(1)} s`);
 	}
 	log(`All checks passed in ${((Date.now() - t0) / 1000).toFixed(0)} s`);
 	process.exit(0);

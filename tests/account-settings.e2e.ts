@@ -1,7 +1,20 @@
 import { expect, test, type Page } from '@playwright/test';
 import postgres from 'postgres';
 import { todayIn } from '../src/lib/reader';
-import { demoPassword, demoUser, mailLink, openHydrated, reloadHydrated, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
+import {
+	continueAs,
+	demoPassword,
+	demoUser,
+	dropSession,
+	mailLink,
+	openHydrated,
+	reloadHydrated,
+	signIn,
+	signOut,
+	signUp,
+	uniqueEmail,
+	watchErrors
+} from './helpers';
 import { insertPlan } from './pro-helpers';
 
 test.describe.configure({ timeout: 240_000 });
@@ -71,10 +84,9 @@ test('a homeowner turns message e-mails off (bids stay on) and moves the account
 	await reloadHydrated(page);
 	await expect(page.getByRole('region', { name: 'E-mail notices' }).getByLabel('New messages')).not.toBeChecked();
 	await expect(page.getByRole('region', { name: 'E-mail notices' }).getByLabel('Bids on my plans (new, changed, withdrawn)')).toBeChecked();
-	await signOut(page);
 
 	// The contractor writes and bids: the message shows in Stakeline but sends no e-mail; the bid does.
-	await signIn(page, demoUser('contractor').email, demoPassword);
+	await continueAs(page, demoUser('contractor').email);
 	await openHydrated(page, '/pro/leads');
 	await page.getByTestId('lead-list').getByRole('link', { name: 'Herb bed pad' }).first().click();
 	await page.getByLabel(/^Write to/).fill('Is the pad for a greenhouse?');
@@ -87,7 +99,7 @@ test('a homeowner turns message e-mails off (bids stay on) and moves the account
 	await page.getByLabel('Price valid until').fill(day(30));
 	await page.getByRole('button', { name: 'Send the bid' }).click();
 	await expect(page.getByText('Bid sent. The homeowner was told.')).toBeVisible();
-	await signOut(page);
+	await dropSession(page);
 	expect(await outbox(me.email, 'New bid from Ridgeback Flatwork')).toBe(1);
 	expect(await outbox(me.email, 'New message from')).toBe(0);
 
@@ -135,8 +147,8 @@ test("a contractor's leads list uses the unit they chose, else their language's;
 	await signUp(page, { name: 'Ada Brenner', email: owner, password: 'km-or-miles', role: 'homeowner' });
 	const { id: planId } = await insertPlan(owner, { name: 'Bin store pad', postcode: '97321' });
 	await sendToRidgeback(page, planId);
-	await signOut(page);
 
+	await signOut(page);
 	await signIn(page, demoUser('contractor').email, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	await page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Leads' }).click();

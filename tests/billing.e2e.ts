@@ -2,7 +2,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { extraLead, leadPack, monthlyPlan, price } from '../src/lib/billing-plans';
 import { insertLead, setUsage } from './billing-helpers';
-import { demoPassword, demoUser, openHydrated, reloadHydrated, signIn, signOut, uniqueEmail, watchErrors } from './helpers';
+import { continueAs, demoUser, openHydrated, reloadHydrated, signIn, uniqueEmail, watchErrors } from './helpers';
 import { approvedNewContractor, insertPlan } from './pro-helpers';
 
 // A long journey on a shared machine (sign-up, review, two trips to the payment page).
@@ -141,10 +141,9 @@ test('a contractor without a plan sees only what a lead is, pays for a plan on t
 	await expect(
 		page.getByRole('region', { name: 'E-mail notices' }).getByLabel('Billing receipts (plan started, monthly payment received, lead credits added)')
 	).not.toBeChecked();
-	await signOut(page);
 
 	// The admin sees the same state on the contractor's page.
-	await signIn(page, demoUser('admin').email, demoPassword);
+	await continueAs(page, demoUser('admin').email);
 	await page.goto(`/admin/users?q=${encodeURIComponent(pro.email)}`);
 	await page.getByTestId('users-table').getByRole('link', { name: pro.business }).click();
 	await expect(page.getByTestId('admin-billing-status')).toHaveText('Active');

@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { formatMoney } from '../src/lib/money';
-import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { continueAs, demoPassword, demoUser, dropSession, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { approvedNewContractor, bumpPlanRevision, insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -84,10 +84,8 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await sendBid(page, { total: '2,400', labour: '1,500', days: '1' });
 	const leadUrl = page.url();
 	await page.screenshot({ path: 'test-results/screens/lead-bid-sent.png', fullPage: true });
-	await signOut(page);
 
-	await signIn(page, demoUser('contractor').email, demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
+	await continueAs(page, demoUser('contractor').email);
 	await page.getByRole('link', { name: 'Open the leads' }).click();
 	// Each lead's title is a touch-sized link (it was 31 px).
 	for (const title of await page.getByTestId('lead-list').getByRole('link').all()) expect((await title.boundingBox())!.height).toBeGreaterThanOrEqual(44);
@@ -95,7 +93,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await expect(page).toHaveURL(/\/pro\/leads\/[0-9a-f-]{36}$/);
 	const otherLeadUrl = page.url();
 	await sendBid(page, { total: '2150', days: '3' });
-	await signOut(page);
+	await dropSession(page);
 
 	// The homeowner compares and accepts.
 	await signIn(page, homeEmail, 'my-back-patio');
@@ -151,16 +149,14 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	await page.getByRole('button', { name: 'Send the message' }).click();
 	await expect(page.getByTestId('messages')).toContainText('Saturday works.');
 	expect(await mailLink(page, pro.email, /bid near Albany, OR was accepted/, { timeout: 60_000 })).toBe(leadUrl);
-	await signOut(page);
 
-	await signIn(page, demoUser('contractor').email, demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
+	await continueAs(page, demoUser('contractor').email);
 	await page.goto(otherLeadUrl);
 	await expect(page.getByTestId('lead-status')).toHaveText('Not selected');
 	await expect(page.getByTestId('homeowner-contact')).toHaveCount(0);
 	await expect(page.locator('main')).not.toContainText(homeEmail);
 	await expect(page.locator('main')).not.toContainText('Kestrel Way');
-	await signOut(page);
+	await dropSession(page);
 
 	await signIn(page, homeEmail, 'my-back-patio');
 	await expect(page).toHaveURL(/\/plans$/);
@@ -178,17 +174,13 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	expect((await page.goto('/pro/leads'))?.status()).toBe(403);
 	expect((await page.goto(leadPath))?.status()).toBe(403);
 	expect((await page.request.get(photoPath)).status()).toBe(403);
-	await signOut(page);
 
-	await signIn(page, 'june@quarrylaneslabs.example', demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
+	await continueAs(page, 'june@quarrylaneslabs.example');
 	expect((await page.goto(leadPath))?.status()).toBe(404);
 	expect((await page.request.get(photoPath)).status()).toBe(404);
 	expect((await page.goto(`/plans/${planId}/bids`))?.status()).toBe(403);
-	await signOut(page);
 
-	await signIn(page, demoUser('homeowner').email, demoPassword);
-	await expect(page).toHaveURL(/\/plans$/);
+	await continueAs(page, demoUser('homeowner').email);
 	expect((await page.goto(`/plans/${planId}/bids`))?.status()).toBe(404);
 	expect((await page.goto(threadPath))?.status()).toBe(404);
 	expect((await page.goto(leadPath))?.status()).toBe(403);
@@ -216,8 +208,8 @@ test('a contractor who has the plan learns of a newer revision and keeps seeing 
 	await page.reload();
 	await page.getByRole('button', { name: 'Tell them about revision 2' }).click();
 	await expect(page.getByText('Told 1 contractor about the newer revision.')).toBeVisible();
-	await signOut(page);
 
+	await signOut(page);
 	await signIn(page, demoUser('contractor').email, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	await page.goto(await mailLink(page, 'dell@ridgebackflatwork.example', /newer plan revision/, { timeout: 60_000 }));
@@ -240,10 +232,8 @@ test.describe('without JavaScript', () => {
 		await expect(page.getByRole('checkbox', { name: /Quarry Lane Slabs/ })).toBeChecked(); // nearest, ticked by default
 		await page.getByRole('button', { name: 'Send the plan' }).click();
 		await expect(page.getByText(/^Sent to \d+ contractors?\./)).toBeVisible();
-		await signOut(page);
 
-		await signIn(page, 'june@quarrylaneslabs.example', demoPassword);
-		await expect(page).toHaveURL(/\/pro$/);
+		await continueAs(page, 'june@quarrylaneslabs.example');
 		await page.goto('/pro/leads?status=new');
 		await page.getByTestId('lead-list').getByRole('link', { name: 'Garden walk' }).first().click();
 		await page.getByLabel('Total price (USD)').fill('1,350');
@@ -252,7 +242,7 @@ test.describe('without JavaScript', () => {
 		await page.getByLabel('Price valid until').fill(inDays(20));
 		await page.getByRole('button', { name: 'Send the bid' }).click();
 		await expect(page.getByText('Bid sent. The homeowner was told.')).toBeVisible();
-		await signOut(page);
+		await dropSession(page);
 
 		await signIn(page, homeEmail, 'garden-walk-7');
 		await expect(page).toHaveURL(/\/plans$/);

@@ -25,10 +25,10 @@ test('a contractor prices a lead from its spec sheet and bids from a phone', asy
 	await page.getByLabel('Site access').fill('Side gate 36 in wide; no truck access to the back.');
 	await page.getByRole('button', { name: 'Send the plan' }).click();
 	await expect(page.getByText('Sent to 1 contractor.')).toBeVisible();
-	await signOut(page);
 
 	// On a phone.
 	await page.setViewportSize({ width: 390, height: 844 });
+	await signOut(page);
 	await signIn(page, demoUser('contractor').email, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	await page.goto('/pro/leads');

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { demoPassword, demoUser, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { continueAs, demoUser, dropSession, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { daysFromNow, fillProfile, pdf, pngCertificate } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -47,11 +47,9 @@ test('a contractor onboards with documents, an admin approves, and only they two
 	expect(own.headers()['content-type']).toBe('application/pdf');
 	expect((await own.body()).subarray(0, 5).toString()).toBe('%PDF-');
 	expect((await page.request.get(insuranceHref)).headers()['content-type']).toBe('image/png');
-	await signOut(page);
 
 	// The admin works through the queue.
-	await signIn(page, demoUser('admin').email, demoPassword);
-	await expect(page).toHaveURL(/\/admin$/);
+	await continueAs(page, demoUser('admin').email);
 	await page.getByTestId('vetting-queue').getByRole('link', { name: business }).click();
 	await expect(page.getByTestId('contractor-status')).toHaveText('Awaiting review');
 	await expect(page.getByRole('link', { name: 'insurance-certificate.png' })).toBeVisible();
@@ -75,26 +73,22 @@ test('a contractor onboards with documents, an admin approves, and only they two
 
 	const link = await mailLink(page, email, /pro account is approved/, { timeout: 60_000 });
 	expect(link).toMatch(/\/pro$/);
-	await signOut(page);
+	await dropSession(page);
 
 	await signIn(page, email, 'pour-day-sunny');
 	await expect(page.getByRole('heading', { name: 'Approved' })).toBeVisible();
-	await signOut(page);
 
 	// Another contractor: the documents do not exist for them; admin pages are closed.
-	await signIn(page, demoUser('contractor').email, demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
+	await continueAs(page, demoUser('contractor').email);
 	expect((await page.request.get(licenceHref)).status()).toBe(404);
 	expect((await page.goto('/admin/users'))?.status()).toBe(403);
 	expect((await page.goto('/admin/audit'))?.status()).toBe(403);
-	await signOut(page);
 
-	await signIn(page, demoUser('homeowner').email, demoPassword);
-	await expect(page).toHaveURL(/\/plans$/);
+	await continueAs(page, demoUser('homeowner').email);
 	expect((await page.request.get(insuranceHref)).status()).toBe(403);
 	expect((await page.goto('/admin'))?.status()).toBe(403);
 	expect((await page.goto('/pro/profile'))?.status()).toBe(403);
-	await signOut(page);
+	await dropSession(page);
 
 	const anonymous = await page.request.get(licenceHref, { maxRedirects: 0 });
 	expect(anonymous.status()).toBe(303);
@@ -133,7 +127,7 @@ test.describe('without JavaScript', () => {
 
 		// The queue shows its length on every admin page (the e-mail to every admin is checked in vetting.integration.spec.ts).
 		const admin = demoUser('admin').email;
-		await signIn(page, admin, demoPassword);
+		await continueAs(page, admin);
 		await page.goto('/admin/users');
 		expect(Number(await page.getByTestId('queue-count').textContent())).toBeGreaterThan(0);
 		await page.getByRole('link', { name: /Vetting queue/ }).click();
@@ -144,7 +138,7 @@ test.describe('without JavaScript', () => {
 		await page.getByRole('button', { name: 'Send back' }).click();
 		await expect(page.getByTestId('contractor-status')).toHaveText('Sent back: documents needed');
 		await expect(page.getByLabel('Reason')).toHaveValue(''); // the box clears after a decision
-		await signOut(page);
+		await dropSession(page);
 
 		// The contractor follows the e-mail to the profile page, where the reason is.
 		await signIn(page, email, 'plain-forms-ok');
@@ -158,10 +152,9 @@ test.describe('without JavaScript', () => {
 		await page.getByRole('button', { name: 'Send for review again' }).click();
 		await expect(page).toHaveURL(/\/pro$/);
 		await expect(page.getByRole('heading', { name: 'Awaiting review' })).toBeVisible();
-		await signOut(page);
 
 		// The admin sees what changed since the send-back, and the replaced file as history.
-		await signIn(page, admin, demoPassword);
+		await continueAs(page, admin);
 		await page.getByTestId('vetting-queue').getByRole('link', { name: business }).click();
 		await expect(page.getByTestId('changes-since-review')).toContainText('Phone');
 		await expect(page.getByTestId('changes-since-review')).toContainText('New insurance certificate');
@@ -171,7 +164,7 @@ test.describe('without JavaScript', () => {
 		await page.screenshot({ path: 'test-results/screens/admin-changes-since-review.png', fullPage: true });
 		await page.getByRole('button', { name: 'Approve' }).click();
 		await expect(page.getByTestId('contractor-status')).toHaveText('Approved');
-		await signOut(page);
+		await dropSession(page);
 
 		await signIn(page, email, 'plain-forms-ok');
 		await expect(page.getByRole('heading', { name: 'Approved' })).toBeVisible();

@@ -1,4 +1,4 @@
-import { expect, type Browser, type BrowserContextOptions, type Page } from '@playwright/test';
+import { expect, type Browser, type BrowserContextOptions, type Cookie, type Page } from '@playwright/test';
 import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import demo from '../fixtures/demo.json' with { type: 'json' };
@@ -16,15 +16,43 @@ export const demoPlanOwner = (planId: string) => demo.users.find((u) => (u as { 
  * itself in.
  */
 export const storedSessions = [
-	{ email: demoUser('admin').email, landsOn: /\/admin$/ },
-	{ email: demoUser('homeowner').email, landsOn: /\/plans$/ },
-	{ email: demoUser('contractor').email, landsOn: /\/pro$/ },
-	{ email: demoPlanOwner('castell-shed-pad').email, landsOn: /\/plans$/ }
+	{ email: demoUser('admin').email, landsOn: /\/admin$/, home: '/admin' },
+	{ email: demoUser('homeowner').email, landsOn: /\/plans$/, home: '/plans' },
+	{ email: demoUser('contractor').email, landsOn: /\/pro$/, home: '/pro' },
+	{ email: demoPlanOwner('castell-shed-pad').email, landsOn: /\/plans$/, home: '/plans' },
+	// The two other demo firms, which the bid and lead journeys switch to part-way.
+	{ email: 'june@quarrylaneslabs.example', landsOn: /\/pro$/, home: '/pro' },
+	{ email: 'sam@mossgateforms.example', landsOn: /\/pro$/, home: '/pro' }
 ];
+const SESSION_COOKIE = 'stakeline_session';
 export const sessionFile = (email: string) => fileURLToPath(new URL(`../.data/auth/${email}.json`, import.meta.url));
 
 /** A fresh visitor's browser context, also in a test that starts signed in: Playwright hands the test's `storageState` to every new context unless it is given one. */
 export const visitorContext = (browser: Browser, options: BrowserContextOptions = {}) => browser.newContext({ storageState: undefined, ...options });
+
+/**
+ * Goes on in this page as a demo account of storedSessions, where its sign-in would land, for a
+ * journey that changes hands part-way and is not about signing in (signIn drives the form): the
+ * page's session cookie becomes the stored one, the one before it is left alone on the server. From
+ * there, switch again with continueAs or go on as a visitor with dropSession, never signOut.
+ * Not from a plan's own page: it hands the plan's other pages to the service worker to fetch in the
+ * background, and each signed-in answer sets the session cookie again, so one arriving after the swap
+ * brings the previous account back. There the journey signs out and in through the forms.
+ */
+export async function continueAs(page: Page, email: string) {
+	const stored = storedSessions.find((s) => s.email === email);
+	if (!stored) throw new Error(`${email} has no stored session (storedSessions in tests/helpers.ts)`);
+	const { cookies }: { cookies: Cookie[] } = JSON.parse(readFileSync(sessionFile(email), 'utf8'));
+	await page.context().clearCookies({ name: SESSION_COOKIE });
+	await page.context().addCookies(cookies.filter((c) => c.name === SESSION_COOKIE));
+	await openHydrated(page, stored.home);
+	await expect(page).toHaveURL(stored.landsOn);
+}
+
+/** Goes on as a visitor: drops the page's session cookie without ending the session (a stored one stays good for the tests after). */
+export async function dropSession(page: Page) {
+	await page.context().clearCookies({ name: SESSION_COOKIE });
+}
 
 export function uniqueEmail(label: string) {
 	return `${label}-${Date.now()}-${Math.floor(Math.random() * 1e6)}@e2e.stakeline.test`;
@@ -73,6 +101,13 @@ export async function signUp(page: Page, o: { name: string; email: string; passw
 	await page.waitForURL((url) => url.pathname !== '/verify-email');
 }
 
+/** A homeowner who has just signed up, on the first step of a new plan: where the planner journeys that save begin. */
+export async function newPlanSignedUp(page: Page, o: { name: string; label: string; password: string }) {
+	await signUp(page, { name: o.name, email: uniqueEmail(o.label), password: o.password });
+	await page.goto('/plans/new');
+	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
+}
+
 export async function signIn(page: Page, email: string, password: string) {
 	await openForm(page, '/signin');
 	await page.getByLabel('E-mail').fill(email);
@@ -89,7 +124,7 @@ async function submitAndWait(page: Page, button: string) {
 }
 
 export async function signOut(page: Page) {
-	const token = (await page.context().cookies()).find((c) => c.name === 'stakeline_session')?.value;
+	const token = (await page.context().cookies()).find((c) => c.name === SESSION_COOKIE)?.value;
 	for (const { email } of storedSessions) {
 		const file = sessionFile(email);
 		const stored: { cookies: { value: string }[] } = existsSync(file) ? JSON.parse(readFileSync(file, 'utf8')) : { cookies: [] };

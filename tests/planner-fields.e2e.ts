@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { savedPlanId, signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
+import { newPlanSignedUp, savedPlanId, watchErrors, wizardStep as goTo } from './helpers';
 
 // Every step of a new plan, as a visitor types: each number field gets a new value and each
 // select a new choice. A field added later without an entry below still gets typed into (the
@@ -263,9 +263,7 @@ test('a new visitor types into every field of every step: no page error, and the
 test('signed in, every typed value is saved and comes back after a reload', async ({ page }) => {
 	test.setTimeout(300_000);
 	const errors = watchErrors(page);
-	await signUp(page, { name: 'Wes Fielding', email: uniqueEmail('fields'), password: 'every-field-typed' });
-	await page.goto('/plans/new');
-	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
+	await newPlanSignedUp(page, { name: 'Wes Fielding', label: 'fields', password: 'every-field-typed' });
 	const typed = await fillEveryStep(page);
 	await savedPlanId(page);
 	const shown = await readEveryStep(page);

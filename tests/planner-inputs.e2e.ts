@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { savedPlanId, signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
+import { newPlanSignedUp, savedPlanId, watchErrors, wizardStep as goTo } from './helpers';
 import { pdfText } from './pdf-text';
 
 // The engine inputs that got their own wizard fields: exposure, the day-by-day forecast, concrete
@@ -17,6 +17,10 @@ async function typeInto(page: Page, id: string, value: string) {
 	await field.fill(value);
 	await field.blur();
 	await expect(field).toHaveValue(value);
+}
+/** typeInto for each field in turn, in the order given. */
+async function typeEach(page: Page, values: Record<string, string>) {
+	for (const [id, value] of Object.entries(values)) await typeInto(page, id, value);
 }
 async function choose(page: Page, id: string, value: string) {
 	await page.locator(`#${id}`).selectOption(value);
@@ -81,17 +85,11 @@ async function buildUp(page: Page) {
 	await choose(page, 'reinforcement', 'fiber');
 	await typeInto(page, 'fiber-per-bag', '1.5');
 	await choose(page, 'reinforcement', 'rebar');
-	await typeInto(page, 'bar-spacing', '16');
-	await typeInto(page, 'bar-diameter', '0.5');
-	await typeInto(page, 'bar-stock', '10');
-	await typeInto(page, 'lap-diameters', '30');
-	await typeInto(page, 'chair-spacing', '2.5');
+	await typeEach(page, { 'bar-spacing': '16', 'bar-diameter': '0.5', 'bar-stock': '10', 'lap-diameters': '30', 'chair-spacing': '2.5' });
 	await choose(page, 'reinforcement', 'mesh');
 	await choose(page, 'mesh-form', 'roll');
 	await expect(page.getByText('Roll width')).toBeVisible();
-	await typeInto(page, 'mesh-width', '5');
-	await typeInto(page, 'mesh-length', '150');
-	await typeInto(page, 'wire-spacing', '6');
+	await typeEach(page, { 'mesh-width': '5', 'mesh-length': '150', 'wire-spacing': '6' });
 	await expect(page.locator('#chair-spacing')).toHaveValue('2.5');
 
 	// The schema's own plain message on bad input, then fixed.
@@ -108,9 +106,7 @@ async function buildUp(page: Page) {
 	await expect(page.locator('[id^="board-length-"]')).toHaveCount(4);
 	await typeInto(page, 'board-length-0', '12');
 
-	await typeInto(page, 'base-overhang', '8');
-	await typeInto(page, 'stone-density', '1.5');
-	await typeInto(page, 'soil-density', '1.3');
+	await typeEach(page, { 'base-overhang': '8', 'stone-density': '1.5', 'soil-density': '1.3' });
 	await choose(page, 'edges', 'free');
 	const volume = await page.getByTestId('result-volume').textContent();
 	await choose(page, 'edge-profile', 'tapered');
@@ -131,9 +127,7 @@ async function crew(page: Page) {
 	await expect(page.locator('[id^="bag-size-"]')).toHaveCount(3);
 	await choose(page, 'plan-size', '50');
 	await expect(panel(page)).toContainText('Bags (50 lb)');
-	await typeInto(page, 'water-ratio', '0.09');
-	await typeInto(page, 'readymix-increment', '0.5');
-	await typeInto(page, 'readymix-minimum', '2');
+	await typeEach(page, { 'water-ratio': '0.09', 'readymix-increment': '0.5', 'readymix-minimum': '2' });
 
 	await expect(page.getByTestId('result-curing')).toContainText('plastic sheet');
 	await choose(page, 'curing-method', 'wet');
@@ -142,10 +136,7 @@ async function crew(page: Page) {
 	await expect(page.getByTestId('result-curing')).toContainText('curing compound');
 	await typeInto(page, 'curing-coverage', '250');
 	await choose(page, 'joint-method', 'saw');
-	await typeInto(page, 'forms-off-days', '2');
-	await typeInto(page, 'walk-days', '3');
-	await typeInto(page, 'furniture-days', '5');
-	await typeInto(page, 'vehicle-percent', '75');
+	await typeEach(page, { 'forms-off-days': '2', 'walk-days': '3', 'furniture-days': '5', 'vehicle-percent': '75' });
 
 	// Money is formatted in the chosen currency, and the price labels name it.
 	await typeInto(page, 'bag-price-0', '6.5');
@@ -156,10 +147,7 @@ async function crew(page: Page) {
 	await expect(page.getByTestId('result-cost')).toContainText('€');
 	await expect(page.getByText('Bagged concrete mix, EUR per 80 lb bag')).toBeVisible();
 	await expect(page.getByText('Gravel for the base, EUR per yd³')).toBeVisible();
-	await typeInto(page, 'readymix-price', '180');
-	await typeInto(page, 'short-load-fee', '75');
-	await typeInto(page, 'price-curingCompound', '28');
-	await typeInto(page, 'price-chair', '0.5');
+	await typeEach(page, { 'readymix-price': '180', 'short-load-fee': '75', 'price-curingCompound': '28', 'price-chair': '0.5' });
 }
 
 /** Every number field and select the new inputs use, as shown, by id. */
@@ -206,9 +194,7 @@ test('a new visitor sets every new input: no page error, and the results follow'
 test('signed in, the new inputs are saved and hold after a reload', async ({ page }) => {
 	test.setTimeout(180_000);
 	const errors = watchErrors(page);
-	await signUp(page, { name: 'Ines Forecast', email: uniqueEmail('inputs'), password: 'every-input-holds' });
-	await page.goto('/plans/new');
-	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
+	await newPlanSignedUp(page, { name: 'Ines Forecast', label: 'inputs', password: 'every-input-holds' });
 	await fillAll(page);
 	const id = await savedPlanId(page);
 	const shown = await readNew(page);
@@ -236,8 +222,7 @@ test('signed in, the new inputs are saved and hold after a reload', async ({ pag
 test("a freestanding pad's chosen high edge is marked on the plan page: 2D view, build card, layout sheet and PDF", async ({ page }) => {
 	test.setTimeout(120_000);
 	const errors = watchErrors(page);
-	await signUp(page, { name: 'Hal Uphill', email: uniqueEmail('high-edge'), password: 'the-high-side-shows' });
-	await page.goto('/plans/new');
+	await newPlanSignedUp(page, { name: 'Hal Uphill', label: 'high-edge', password: 'the-high-side-shows' });
 	await goTo(page, 'Outline');
 	await page.getByLabel('Freestanding: no house wall along the slab').check();
 	await goTo(page, 'Pitch');

@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { savedPlanId as saved, signUp, uniqueEmail, watchErrors, wizardStep as goTo } from './helpers';
+import { newPlanSignedUp, savedPlanId as saved, watchErrors, wizardStep as goTo } from './helpers';
 
 const wallBox = (page: Page, edge: string) => page.getByLabel(`House wall along edge ${edge}`);
 const housesDrawn = (page: Page) => page.locator('svg line[data-house]');
@@ -7,8 +7,7 @@ const housesDrawn = (page: Page) => page.locator('svg line[data-house]');
 test('an L around a house corner keeps both walls through save, reload, a split and the plan page', async ({ page }) => {
 	test.setTimeout(120_000);
 	const errors = watchErrors(page);
-	await signUp(page, { name: 'Cora Nook', email: uniqueEmail('corner'), password: 'around-the-corner' });
-	await page.goto('/plans/new');
+	await newPlanSignedUp(page, { name: 'Cora Nook', label: 'corner', password: 'around-the-corner' });
 	await goTo(page, 'Outline');
 	await page.getByLabel('L-shape (notched corner)').check();
 	await page.getByLabel('Length (A–B)').fill('24');
@@ -86,8 +85,7 @@ test('an L around a house corner keeps both walls through save, reload, a split 
 test('a freestanding shed pad with a chosen high edge, in two pours, saved and reloaded', async ({ page }) => {
 	test.setTimeout(120_000);
 	const errors = watchErrors(page);
-	await signUp(page, { name: 'Shay Padd', email: uniqueEmail('pad'), password: 'freestanding-pad' });
-	await page.goto('/plans/new');
+	await newPlanSignedUp(page, { name: 'Shay Padd', label: 'pad', password: 'freestanding-pad' });
 	await goTo(page, 'Outline');
 	await page.getByLabel('Length (A–B)').fill('10');
 	await page.getByLabel('Width (B–C side)').fill('12');

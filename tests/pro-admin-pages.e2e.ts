@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { demoPassword, demoUser, openHydrated, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
+import { continueAs, demoUser, openHydrated, signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertBid, insertPlan } from './pro-helpers';
 
 test.describe.configure({ timeout: 300_000 });
@@ -38,22 +38,16 @@ test('every pro and admin page, and the bids pages, are axe-clean and fit a 390 
 	await checkPage(page, `/plans/${planId}/bids`, found);
 	await checkPage(page, `/plans/${planId}/bids/${leadId}`, found);
 	await checkPage(page, '/account', found);
-	await signOut(page);
 
-	await signIn(page, demoUser('contractor').email, demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
+	await continueAs(page, demoUser('contractor').email);
 	for (const path of ['/pro', '/pro/profile', '/pro/leads', `/pro/leads/${leadId}`, '/pro/billing', '/messages', '/account'])
 		await checkPage(page, path, found);
-	await signOut(page);
 
 	// A contractor still awaiting review sees other states of the same pages.
-	await signIn(page, 'sam@mossgateforms.example', demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
+	await continueAs(page, 'sam@mossgateforms.example');
 	for (const path of ['/pro', '/pro/profile', '/pro/billing']) await checkPage(page, path, found);
-	await signOut(page);
 
-	await signIn(page, demoUser('admin').email, demoPassword);
-	await expect(page).toHaveURL(/\/admin$/);
+	await continueAs(page, demoUser('admin').email);
 	await checkPage(page, '/admin', found);
 	await checkPage(page, '/admin/users', found);
 	await checkPage(page, '/admin/users?role=contractor&status=approved&q=FH-CC', found);

@@ -6,7 +6,7 @@ import sharp from 'sharp';
 import demoPlans from '../fixtures/demo-plans.json' with { type: 'json' };
 import { computePlan, type PlanResult } from '../src/lib/plan/index';
 import { grantActivePlan } from './billing-helpers';
-import { demoPassword, demoUser, signIn, signOut, signUp } from './helpers';
+import { continueAs, demoUser, dropSession, signUp } from './helpers';
 
 export const pdf = (label: string) => ({
 	name: `${label}.pdf`,
@@ -56,13 +56,11 @@ export async function approvedNewContractor(page: Page, o: { name: string; email
 	await page.getByLabel('Insurance certificate').setInputFiles(await pngCertificate());
 	await page.getByRole('button', { name: 'Send for review' }).click();
 	await expect(page.getByText('is checking your licence and insurance')).toBeVisible();
-	await signOut(page);
-	await signIn(page, demoUser('admin').email, demoPassword);
-	await expect(page).toHaveURL(/\/admin$/);
+	await continueAs(page, demoUser('admin').email);
 	await page.getByTestId('vetting-queue').getByRole('link', { name: o.business }).click();
 	await page.getByRole('button', { name: 'Approve' }).click();
 	await expect(page.getByTestId('contractor-status')).toHaveText('Approved');
-	await signOut(page);
+	await dropSession(page);
 	// A running plan, so lead tests open lead details (tests/billing.e2e.ts starts without one and pays for it).
 	if (o.plan !== false) await grantActivePlan({ email: o.email });
 }

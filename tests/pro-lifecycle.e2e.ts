@@ -2,7 +2,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { formatDay, formatDayLong } from '../src/lib/reader';
 import { respondBy } from '../src/lib/leads';
-import { demoPassword, mailLink, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
+import { continueAs, demoPassword, dropSession, mailLink, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -58,8 +58,8 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 	await expect(page.getByTestId('request-state')).toHaveText('Open for bids');
 	const due = respondBy(new Date(), 'soon');
 	await expect(page.getByText(`reply due by ${formatDay(due, { locale: 'en-GB' })}`)).toBeVisible();
-	await signOut(page);
 
+	await signOut(page);
 	await signIn(page, DELL, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	const leadUrl = await mailLink(page, DELL, /New lead near Corvallis, OR/, { timeout: 60_000 });
@@ -68,7 +68,7 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 	await expect(page.getByTestId('respond-by')).toContainText(formatDayLong(due, 'en-GB'));
 	await expect(page.locator('main')).not.toContainText('Wren Hollow');
 	await sendBid(page, '3,100');
-	await signOut(page);
+	await dropSession(page);
 
 	await signIn(page, homeEmail, 'porch-pad-closed');
 	await expect(page).toHaveURL(/\/plans$/);
@@ -81,8 +81,8 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 	await expect(page.getByTestId('bid-row').getByTestId('bid-status')).toHaveText('Request closed without hiring');
 	await expect(page.getByText('Accept…')).toHaveCount(0);
 	await expect(page.getByTestId('close-request')).toHaveCount(0);
-	await signOut(page);
 
+	await signOut(page);
 	await signIn(page, DELL, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	expect(await mailLink(page, DELL, /A request near Corvallis, OR was closed/, { timeout: 60_000 })).toBe(leadUrl);
@@ -103,6 +103,7 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 	await chooseOnly(page, [/Ridgeback Flatwork/, /Quarry Lane Slabs/]);
 	await page.getByRole('button', { name: 'Send the plan' }).click(); // no address yet: asked on accepting
 	await expect(page.getByText('Sent to 2 contractors.')).toBeVisible();
+
 	await signOut(page);
 
 	const leads: Record<string, string> = {};
@@ -139,20 +140,18 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 	await expect(page.getByTestId('close-request')).toHaveCount(0);
 	const { violations } = await new AxeBuilder({ page }).analyze();
 	expect(violations.map((v) => v.id)).toEqual([]);
-	await signOut(page);
 
 	// The winner: address and phone on the lead.
+	await signOut(page);
 	await signIn(page, DELL, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	await page.goto(leads[DELL]);
 	await expect(page.getByTestId('lead-status')).toHaveText('Won');
 	await expect(page.getByTestId('site-address')).toHaveText('3 Alder Bend, Corvallis');
 	await expect(page.getByTestId('homeowner-phone')).toHaveText('(541) 555-0176');
-	await signOut(page);
 
 	// The other firm: told it was not selected, and nothing of the address or phone, not even in the page's data.
-	await signIn(page, JUNE, demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
+	await continueAs(page, JUNE);
 	await page.goto(leads[JUNE]);
 	await expect(page.getByTestId('lead-status')).toHaveText('Not selected');
 	await expect(page.getByTestId('site-address')).toHaveCount(0);
@@ -160,7 +159,7 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 	const data = await (await page.request.get(`${new URL(leads[JUNE]).pathname}/__data.json`)).text();
 	expect(data).not.toContain('Alder Bend');
 	expect(data).not.toContain('555-0176');
-	await signOut(page);
+	await dropSession(page);
 
 	await signIn(page, homeEmail, 'garden-pad-done');
 	await expect(page).toHaveURL(/\/plans$/);
@@ -172,8 +171,8 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 	await expect(page.getByTestId('job-done')).toContainText('Ridgeback Flatwork');
 	await expect(page.getByTestId('mark-done')).toHaveCount(0);
 	await expect(page.getByRole('button', { name: 'Send the plan' })).toHaveCount(0);
-	await signOut(page);
 
+	await signOut(page);
 	await signIn(page, DELL, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
 	expect(await mailLink(page, DELL, /The job near Corvallis, OR is marked done/, { timeout: 60_000 })).toBe(leads[DELL]);
@@ -185,8 +184,7 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 
 test('the admin sees credentials running out, and the firm sees its dates on the pro desk', async ({ page }) => {
 	const errors = watchErrors(page);
-	await signIn(page, 'ada.vellum@fernhollow.example', demoPassword);
-	await expect(page).toHaveURL(/\/admin$/);
+	await continueAs(page, 'ada.vellum@fernhollow.example');
 	await page.getByRole('navigation', { name: 'Admin' }).getByRole('link', { name: 'Expiring credentials' }).click();
 	await expect(page).toHaveURL(/\/admin\/expiring$/);
 	// The demo's Quarry Lane Slabs insurance runs out within a month of loading the demo; its 30-day reminder went.
@@ -199,10 +197,8 @@ test('the admin sees credentials running out, and the firm sees its dates on the
 	await row.getByRole('link', { name: 'Quarry Lane Slabs' }).click();
 	await expect(page.locator('dt').filter({ hasText: /^Insurance expires$/ })).toBeVisible();
 	await expect(page.locator('dt').filter({ hasText: /^Licence expires$/ })).toBeVisible();
-	await signOut(page);
 
-	await signIn(page, JUNE, demoPassword);
-	await expect(page).toHaveURL(/\/pro$/);
+	await continueAs(page, JUNE);
 	await expect(page.getByTestId('credential-dates')).toContainText(/Insurance expires .* \(in \d+ days: renew it on your profile\)/);
 	await mailLink(page, JUNE, /Your insurance on Stakeline expires in \d+ days/, { timeout: 60_000 });
 	expect(errors).toEqual([]);
