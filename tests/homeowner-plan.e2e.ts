@@ -148,6 +148,23 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 	expect((await request.get('/api/plans')).status()).toBe(401); // signed out
 });
 
+test('a new homeowner who keeps the starter plan as it is can save it from the review step and open it', async ({ page }) => {
+	test.setTimeout(120_000);
+	await signUp(page, { name: 'Nell Starter', email: uniqueEmail('starter'), password: 'starter plan kept as is' });
+	await openHydrated(page, '/plans/new');
+	// Nothing edited, so nothing saved yet: the review step offers the save instead of a dead end.
+	await page
+		.getByRole('navigation', { name: 'Plan steps' })
+		.getByRole('button', { name: /Review/ })
+		.click();
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'idle');
+	await page.getByRole('button', { name: 'Save this plan' }).click();
+	const id = await savedPlanId(page);
+	await page.getByRole('link', { name: 'Open the full plan' }).click();
+	await expect(page).toHaveURL(new RegExp(`/plans/${id}$`));
+	await expect(page.getByTestId('plan-title')).toHaveText('My slab');
+});
+
 test('a signed-out visitor’s draft is kept through sign-up and lands in the new account', async ({ page }) => {
 	test.setTimeout(120_000);
 	await page.goto('/');
