@@ -30,6 +30,8 @@ export interface PacerPour {
 	/** Minutes kept after the last batch to screed, float, edge and joint. */
 	finishMinutes: number;
 	temperatureC: number;
+	/** The day plan's day number of this pour (0 for the first pour day). */
+	day: number;
 	date?: string;
 	fallback: { kind: 'cold-joint' | 'bulkhead'; text: string };
 	finishing: FinishStep[];
@@ -79,6 +81,7 @@ export function pacerPours(r: PlanResult): PacerPour[] {
 			workingMinutes: s.workingMinutes,
 			finishMinutes: s.finishMinutes,
 			temperatureC: s.temperature.celsius,
+			day: p.day,
 			date: p.date,
 			fallback: split
 				? {

@@ -4,6 +4,7 @@ import {
 	dailyMeans,
 	foldRecords,
 	futureTemp,
+	loggedFirstPourDate,
 	loggedForecast,
 	loggedPourDates,
 	pourRecordSchema,
@@ -36,7 +37,7 @@ describe('as logged: a cold week behind the planned timeline', () => {
 		rec({ kind: 'batch', pour: 0 }, 1),
 		...coldWeek.map((t, i) => ({ ...rec(t, 10 + i), at: Date.UTC(2027, 2, 1 + i, 20) }))
 	]);
-	const f = loggedForecast(m, log, 0)!;
+	const f = loggedForecast(m, log, [0])!;
 
 	it('counts the days from the logged pour day, with the logged daily means', () => {
 		expect(f.pourDate).toBe('2027-03-01');
@@ -86,7 +87,7 @@ describe('records', () => {
 		const taken = foldRecords([start, rec({ kind: 'undo', pour: 0, of: start.key }, 2)]);
 		expect(taken.pours.get(0)).toBeUndefined();
 		const { m } = modelOf(input);
-		expect(loggedForecast(m, taken, 0)).toBeNull();
+		expect(loggedForecast(m, taken, [0])).toBeNull();
 		// Started again later: that start counts.
 		const again = rec({ kind: 'start', pour: 0 }, 3);
 		expect(foldRecords([start, rec({ kind: 'undo', pour: 0, of: start.key }, 2), again]).pours.get(0)).toMatchObject({
@@ -178,7 +179,7 @@ describe('a temperature’s date', () => {
 			rec({ kind: 'temp', date: '2027-03-01', unit: 'C', low: 0, high: 10 }, 4)
 		]);
 		expect(log.temps).toHaveLength(3);
-		const f = loggedForecast(m, log, 0)!;
+		const f = loggedForecast(m, log, [0])!;
 		expect(f.pourDate).toBe('2027-03-01');
 		expect(f.before).toEqual(['2027-02-27', '2027-02-28']);
 		expect(f.loggedDays).toBe(1);
@@ -186,21 +187,24 @@ describe('a temperature’s date', () => {
 		expect(f.earlierPours).toBe(false);
 	});
 
-	it('with two pours on two days, counts from the later one and says an earlier pour was logged', () => {
+	it('with two pours, counts from the last section: logged, or its planned day moved with the first while it is to come', () => {
 		const { m } = modelOf(input);
 		const day = 86_400_000;
-		const log = foldRecords([
-			rec({ kind: 'start', pour: 0 }, 0),
-			rec({ kind: 'batch', pour: 0 }, 1),
-			rec({ kind: 'temp', date: '2027-03-01', unit: 'C', reading: 8 }, 2),
-			{ ...rec({ kind: 'start', pour: 1 }, 3), at: T + 2 * day },
-			{ ...rec({ kind: 'batch', pour: 1 }, 4), at: T + 2 * day + 60_000 }
+		const first = [rec({ kind: 'start', pour: 0 }, 0), rec({ kind: 'batch', pour: 0 }, 1), rec({ kind: 'temp', date: '2027-03-01', unit: 'C', reading: 8 }, 2)];
+		// Planned two days apart (day plan days 0 and 2); only the first section is placed, on 1 March.
+		const one = loggedForecast(m, foldRecords(first), [0, 2])!;
+		expect(one).toMatchObject({ pourDate: '2027-03-03', lastLogged: false, before: ['2027-03-01'], earlierPours: true });
+		expect(loggedFirstPourDate(foldRecords(first), [0, 2])).toBe('2027-03-01');
+		// The second section goes in four days later, not two: the count moves to its day, and the
+		// curing reminders' first-pour date moves with it (they share loggedFirstPourDate).
+		const both = foldRecords([
+			...first,
+			{ ...rec({ kind: 'start', pour: 1 }, 3), at: T + 4 * day },
+			{ ...rec({ kind: 'batch', pour: 1 }, 4), at: T + 4 * day + 60_000 }
 		]);
-		const f = loggedForecast(m, log, 0)!;
-		expect(loggedPourDates(log)).toEqual(['2027-03-01', '2027-03-03']);
-		expect(f.pourDate).toBe('2027-03-03');
-		expect(f.before).toEqual(['2027-03-01']);
-		expect(f.earlierPours).toBe(true);
+		expect(loggedPourDates(both)).toEqual(['2027-03-01', '2027-03-05']);
+		expect(loggedForecast(m, both, [0, 2])).toMatchObject({ pourDate: '2027-03-05', lastLogged: true, earlierPours: true });
+		expect(loggedFirstPourDate(both, [0, 2])).toBe('2027-03-03');
 	});
 });
 

@@ -247,8 +247,10 @@ export function dailyMeans(temps: readonly TempRecord[]): Map<string, number> {
 }
 
 export interface LoggedForecast {
-	/** Local date of the last pour logged, the day the timeline counts from. */
+	/** Local date of the last section's pour, the day the timeline counts from: logged, or planned while it is to come. */
 	pourDate: string;
+	/** Whether the last section's pour is logged (else pourDate is its planned day, moved with the pours logged). */
+	lastLogged: boolean;
 	strength: StrengthDay[];
 	milestones: Milestone[];
 	/** Days of the timeline's first four weeks whose temperature was logged (the rest: the plan's forecast). */
@@ -257,27 +259,33 @@ export interface LoggedForecast {
 	temps: { date: string; celsius: number; logged: boolean }[];
 	/** Days with a temperature logged before pourDate: kept, but not counted (the concrete was not placed yet). */
 	before: string[];
-	/** Whether a pour was logged on a day before pourDate: then "before the pour" means before the last one. */
+	/** Whether a section was poured on a day before pourDate: then "before the pour" means before the last one. */
 	earlierPours: boolean;
 }
 
-/** Local dates of the pours started or mixed, earliest first, each once; the last is the day the logged forecast counts from. */
+/** The pours the crew started or mixed a batch of, with their local dates. */
+const started = (log: PourLog) => [...log.pours.values()].filter((p) => p.date && (p.batches.length || p.startedAt !== undefined));
+
+/** Local dates of the pours started or mixed, earliest first, each once. */
 export function loggedPourDates(log: PourLog): string[] {
-	const dates = [...log.pours.values()].flatMap((p) => (p.date && (p.batches.length || p.startedAt !== undefined) ? [p.date] : []));
-	return [...new Set(dates)].sort();
+	return [...new Set(started(log).map((p) => p.date!))].sort();
 }
 
 /**
- * The strength timeline and milestones again, from the last logged pour's date and the logged
+ * The strength timeline and milestones again, from the last section's pour day and the logged
  * daily means; a day without a reading takes the plan's forecast for it (ASTM C1074 equivalent
  * age through the engine's equivalentAges/ageSeries, ACI 209R-92 Eq. 2-1 for the strength).
- * `plannedLast` is the plan's own offset of its last pour from the first, so an unlogged day reads
- * the same forecast day the plan did.
+ * The count starts where the curing reminders and the calendar start it (loggedFirstPourDate):
+ * the last planned pour's logged day, or, while it is still to come, its planned day moved with
+ * the pours logged. `plannedDays`: the day plan's day number of each pour, so an unlogged day
+ * reads the same forecast day the plan did.
  */
-export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days = 28): LoggedForecast | null {
-	const pourDates = loggedPourDates(log);
-	const pourDate = pourDates.at(-1);
+export function loggedForecast(m: Model, log: PourLog, plannedDays: readonly number[], days = 28): LoggedForecast | null {
+	if (!plannedDays.length) plannedDays = [0];
+	const pourDate = loggedCountFrom(log, plannedDays);
 	if (!pourDate) return null;
+	const plannedLast = plannedDays[lastPour(plannedDays)] - plannedDays[0];
+	const lastLogged = started(log).some((p) => p.pour === lastPour(plannedDays));
 	const means = dailyMeans(log.temps);
 	const date = (i: number) => addDays(pourDate, i);
 	const tempOn = (i: number) => means.get(date(i)) ?? airTempOn(m, plannedLast + i);
@@ -287,31 +295,57 @@ export function loggedForecast(m: Model, log: PourLog, plannedLast: number, days
 		m.cement,
 		m.designStrengthMpa
 	).map((d) => ({ ...d, date: date(d.day) }));
-	// Counted from the logged pour day: the same milestone rules on the logged equivalent ages.
+	// Counted from the last section's pour day: the same milestone rules on the logged equivalent ages.
 	const stones = milestones({ ...m, pourDate }, ageSeries(0, tempOn), 0);
 	const before = [...means.keys()].filter((d) => d < pourDate).sort();
-	return { pourDate, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps, before, earlierPours: pourDates.length > 1 };
+	const earlierPours = loggedPourDates(log).some((d) => d < pourDate);
+	return { pourDate, lastLogged, strength, milestones: stones, loggedDays: temps.filter((t) => t.logged).length, temps, before, earlierPours };
 }
 
 /**
- * The first pour's date as the log has it, for counting the curing days: the date of the
- * lowest-numbered pour the crew started (or mixed a batch of), moved back by that pour's planned
- * offset from the first pour (`plannedDays`: the day plan's day number of each pour). Null when
- * nothing was started. The plan's spacing between pours is kept: a pour logged alone on its own
- * day moves the whole set.
+ * The first pour's date as the log has it, for counting the curing days (`plannedDays`: the day
+ * plan's day number of each pour). The slab's milestones count from its last section, so once the
+ * last planned pour is logged its day sets the count, moved back by its planned offset from the
+ * first; until then the lowest-numbered pour the crew started (or mixed a batch of) moves the whole
+ * set, keeping the plan's spacing for the pours still to come. Null when nothing was started.
  */
 export function loggedFirstPourDate(log: PourLog, plannedDays: readonly number[]): string | null {
-	const started = [...log.pours.values()]
-		.filter((p) => p.date && (p.batches.length || p.startedAt !== undefined) && p.pour < plannedDays.length)
-		.sort((a, b) => a.pour - b.pour)[0];
-	if (!started?.date) return null;
-	return addDays(started.date, -(plannedDays[started.pour] - plannedDays[0]));
+	const pours = started(log)
+		.filter((p) => p.pour < plannedDays.length)
+		.sort((a, b) => a.pour - b.pour);
+	const last = pours.find((p) => p.pour === lastPour(plannedDays)) ?? pours[0];
+	if (!last?.date) return null;
+	return addDays(last.date, -(plannedDays[last.pour] - plannedDays[0]));
 }
+
+/**
+ * The day the slab's logged strength and milestones count from: the last planned pour's logged
+ * day, or its planned day moved with the pours logged while it is still to come. Null when
+ * nothing was started.
+ */
+export function loggedCountFrom(log: PourLog, plannedDays: readonly number[]): string | null {
+	const first = loggedFirstPourDate(log, plannedDays);
+	return first && addDays(first, plannedDays[lastPour(plannedDays)] - plannedDays[0]);
+}
+
+/**
+ * The last planned pour's logged day when the plan has several pours and that one is logged: the
+ * day every date then counts from (loggedFirstPourDate). Null otherwise.
+ */
+export function loggedLastPourDate(log: PourLog, plannedDays: readonly number[]): string | null {
+	if (plannedDays.length < 2) return null;
+	return started(log).find((p) => p.pour === lastPour(plannedDays))?.date ?? null;
+}
+
+/** The index of the pour planned last (the latest day; the higher number on a tie). */
+const lastPour = (plannedDays: readonly number[]) => plannedDays.reduce((best, d, i) => (d >= plannedDays[best] ? i : best), 0);
 
 /** loggedForecast for a saved plan: its input (parsed once by the caller), its computed result and its records. */
 export function loggedForecastFor(parsed: ParseResult, result: Pick<PlanResult, 'schedule'>, records: readonly PourRecord[]): LoggedForecast | null {
 	if (!records.length || !parsed.ok) return null;
-	const days = result.schedule.pourDays.map((p) => p.day);
-	const plannedLast = days.length ? Math.max(...days) - Math.min(...days) : 0;
-	return loggedForecast(toModel(parsed.plan), foldRecords(records), plannedLast);
+	return loggedForecast(
+		toModel(parsed.plan),
+		foldRecords(records),
+		result.schedule.pourDays.map((p) => p.day)
+	);
 }

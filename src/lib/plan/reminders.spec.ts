@@ -116,7 +116,7 @@ describe('curing reminders from the pour log', () => {
 			rec({ kind: 'note', text: 'rain' }, '2027-10-12', 0),
 			rec({ kind: 'temp', date: '2027-10-12', unit: 'C', low: 2, high: 9 }, '2027-10-12', 1)
 		]);
-		expect(r).toEqual({ ...plannedCuringReminders(twoPours), logged: false });
+		expect(r).toEqual({ ...plannedCuringReminders(twoPours), logged: false, loggedLast: null });
 		expect(r.pourDate).toBe('2027-10-09');
 	});
 
@@ -133,6 +133,22 @@ describe('curing reminders from the pour log', () => {
 		expect(offset).toBeGreaterThan(0);
 		const r = curingRemindersFor(twoPours, [rec({ kind: 'start', pour: 1 }, '2027-10-20', 0)]);
 		expect(r.pourDate).toBe(addDays('2027-10-20', -offset));
+		expect(r.loggedLast).toBeNull(); // pour 1 is not the last of the day plan's pours
+	});
+
+	it('count from the last pour once it is logged, even when it went in later than the plan spaced it', () => {
+		// The slab's milestones run from its youngest part: the last of the day plan's pours.
+		const last = planned.schedule.pourDays.length - 1;
+		const lastOffset = planned.schedule.pourDays[last].day - planned.schedule.pourDays[0].day;
+		expect(last).toBeGreaterThan(0);
+		const first = [rec({ kind: 'start', pour: 0 }, '2027-10-12', 0), rec({ kind: 'batch', pour: 0 }, '2027-10-12', 1)];
+		expect(curingRemindersFor(twoPours, first)).toMatchObject({ pourDate: '2027-10-12', loggedLast: null });
+		// The last pour goes in on 24 October, later than the plan's spacing from the 12th would put it.
+		expect(addDays('2027-10-12', lastOffset) < '2027-10-24').toBe(true);
+		const both = [...first, rec({ kind: 'start', pour: last }, '2027-10-24', 2), rec({ kind: 'batch', pour: last }, '2027-10-24', 3)];
+		const r = curingRemindersFor(twoPours, both);
+		expect(r).toMatchObject({ logged: true, loggedLast: '2027-10-24', pourDate: addDays('2027-10-24', -lastOffset) });
+		expect(r.days).toEqual(curingReminders(twoPours, addDays('2027-10-24', -lastOffset)));
 	});
 
 	it('follow the first batch over the start tap, and go back to the plan when the only batch is taken back and nothing was started', () => {
@@ -142,7 +158,7 @@ describe('curing reminders from the pour log', () => {
 			rec({ kind: 'batch', pour: 0 }, '2027-10-12', 0),
 			rec({ kind: 'undo', pour: 0, of: 'key-0000' }, '2027-10-12', 1)
 		]);
-		expect(undone).toEqual({ ...plannedCuringReminders(twoPours), logged: false });
+		expect(undone).toEqual({ ...plannedCuringReminders(twoPours), logged: false, loggedLast: null });
 	});
 
 	it("come out the same from the plan's stored result as from computing it again (the plan page passes the stored one)", () => {

@@ -7,7 +7,7 @@ import { parsePlanInput } from './schema';
 import { PlanInputError } from './geometry';
 import { computeParsedPlan, type PlanResult } from './index';
 import { addDays, dayNumber } from './schedule';
-import { foldRecords, loggedFirstPourDate, type PourRecord } from './pour-log';
+import { foldRecords, loggedFirstPourDate, loggedLastPourDate, type PourRecord } from './pour-log';
 
 export interface CuringItem {
 	id: 'moist' | 'forms-off' | 'walk' | 'furniture' | 'vehicles' | 'curing-done' | 'freeze-safe';
@@ -84,6 +84,11 @@ export interface PlanAsLogged {
 	plannedDate: string | null;
 	/** True when pourDate is the day the pour log records, not the planned one. */
 	logged: boolean;
+	/**
+	 * With several pours, the last one's logged day once it is logged: every date then counts from
+	 * it, and pourDate is the first pour's day the plan's spacing gives, not necessarily the one logged.
+	 */
+	loggedLast: string | null;
 	plan: ParsedPlan;
 	/** The plan computed for pourDate: its day plan, pour days and milestones on the calendar. */
 	result: PlanResult;
@@ -105,35 +110,27 @@ export function planAsLoggedFrom(parsed: ParseResult, records: readonly PourReco
 	// `known`: this input's result from this engine version, already at hand (the plan page's stored one).
 	const planned = known ?? computeParsedPlan(parsed.plan);
 	const plannedDate = parsed.plan.conditions.pourDate ?? null;
-	const loggedDate = records.length
-		? loggedFirstPourDate(
-				foldRecords(records),
-				planned.schedule.pourDays.map((p) => p.day)
-			)
-		: null;
-	if (!loggedDate) return { pourDate: plannedDate, plannedDate, logged: false, plan: parsed.plan, result: planned };
+	const log = records.length ? foldRecords(records) : null;
+	const plannedDays = planned.schedule.pourDays.map((p) => p.day);
+	const loggedDate = log && loggedFirstPourDate(log, plannedDays);
+	if (!loggedDate) return { pourDate: plannedDate, plannedDate, logged: false, loggedLast: null, plan: parsed.plan, result: planned };
 	const plan: ParsedPlan = { ...parsed.plan, conditions: { ...parsed.plan.conditions, pourDate: loggedDate } };
-	return { pourDate: loggedDate, plannedDate, logged: true, plan, result: computeParsedPlan(plan) };
+	return { pourDate: loggedDate, plannedDate, logged: true, loggedLast: loggedLastPourDate(log, plannedDays), plan, result: computeParsedPlan(plan) };
 }
 
+/** The reminder days and where they count from (see PlanAsLogged). */
+export type CuringDaysAsLogged = Pick<PlanAsLogged, 'pourDate' | 'logged' | 'loggedLast'> & { days: CuringDay[] };
+
 /** The reminders counted as planAsLogged counts: from the logged first-pour day once there is one. */
-export function curingRemindersFor(
-	input: unknown,
-	records: readonly PourRecord[],
-	known?: PlanResult
-): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
+export function curingRemindersFor(input: unknown, records: readonly PourRecord[], known?: PlanResult): CuringDaysAsLogged {
 	return curingRemindersFrom(parsePlanInput(input), records, known);
 }
 
 /** curingRemindersFor for an input already parsed. */
-export function curingRemindersFrom(
-	parsed: ParseResult,
-	records: readonly PourRecord[],
-	known?: PlanResult
-): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
+export function curingRemindersFrom(parsed: ParseResult, records: readonly PourRecord[], known?: PlanResult): CuringDaysAsLogged {
 	const d = planAsLoggedFrom(parsed, records, known);
-	if (!d?.pourDate) return { pourDate: null, days: [], logged: false };
-	return { pourDate: d.pourDate, days: curingDaysOf(d.result, d.plan.curing.method), logged: d.logged };
+	if (!d?.pourDate) return { pourDate: null, days: [], logged: false, loggedLast: null };
+	return { pourDate: d.pourDate, days: curingDaysOf(d.result, d.plan.curing.method), logged: d.logged, loggedLast: d.loggedLast };
 }
 
 /** The reminder days of a plan already computed with a pour date. */

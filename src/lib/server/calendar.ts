@@ -10,11 +10,13 @@ const nextDay = (iso: string) => new Date(Date.parse(`${iso}T00:00:00Z`) + 86_40
  * Which first-pour date the file's dates count from, in words: the day logged on the pour page once
  * a pour was started, else the planned day. Null without either.
  */
-export function countedFrom(d: Pick<PlanAsLogged, 'pourDate' | 'plannedDate' | 'logged'>, locale = 'en-US'): string | null {
+export function countedFrom(d: Pick<PlanAsLogged, 'pourDate' | 'plannedDate' | 'logged' | 'loggedLast'>, locale = 'en-US'): string | null {
 	if (!d.pourDate) return null;
 	const day = (iso: string) => formatDayLong(iso, locale);
 	if (!d.logged)
 		return `Dates counted from the planned first pour, ${day(d.pourDate)}. Once a pour is logged on the pour page, download this file again and the dates move to the day it was poured.`;
+	if (d.loggedLast)
+		return `Dates counted from the last pour as logged on the pour page, ${day(d.loggedLast)}; the earlier pours keep the plan's spacing before it.`;
 	const planned = !d.plannedDate ? 'the plan had no date' : d.plannedDate === d.pourDate ? 'as planned' : `planned for ${day(d.plannedDate)}`;
 	return `Dates counted from the first pour as logged on the pour page, ${day(d.pourDate)} (${planned}).`;
 }

@@ -2,7 +2,7 @@
 // the homeowner's time zone), written in the same transaction as the change that moves them.
 import { createHmac, randomBytes, timingSafeEqual } from 'node:crypto';
 import { and, eq, sql } from 'drizzle-orm';
-import { curingRemindersFrom, type CuringDay } from '$lib/plan/reminders';
+import { curingRemindersFrom, type CuringDaysAsLogged } from '$lib/plan/reminders';
 import { parsePlanInput, type ParseResult } from '$lib/plan/schema';
 import type { PourRecord } from '$lib/plan/pour-log';
 import type { PlanResult } from '$lib/plan';
@@ -61,15 +61,11 @@ export async function scheduleCuringReminders(
  * read this one function, so a logged start moves the reminders, and a job queued for the planned
  * date is skipped once the log says otherwise.
  */
-export function reminderDays(
-	p: Pick<Plan, 'input'> | { parsed: ParseResult },
-	records: readonly PourRecord[],
-	known?: PlanResult
-): { pourDate: string | null; days: CuringDay[]; logged: boolean } {
+export function reminderDays(p: Pick<Plan, 'input'> | { parsed: ParseResult }, records: readonly PourRecord[], known?: PlanResult): CuringDaysAsLogged {
 	try {
 		return curingRemindersFrom('parsed' in p ? p.parsed : parsePlanInput(p.input), records, known);
 	} catch {
-		return { pourDate: null, days: [], logged: false };
+		return { pourDate: null, days: [], logged: false, loggedLast: null };
 	}
 }
 
@@ -155,7 +151,7 @@ export function curingReminderSummary(
 	records: readonly PourRecord[],
 	known?: PlanResult
 ) {
-	const { pourDate, days, logged } = reminderDays({ parsed }, records, known);
+	const { pourDate, days, logged, loggedLast } = reminderDays({ parsed }, records, known);
 	return {
 		on: state.on,
 		/** The account page's switch for this kind of mail is off. */
@@ -165,6 +161,8 @@ export function curingReminderSummary(
 		pourDate,
 		/** The pour date is the one the pour log records, not the planned one. */
 		logged,
+		/** With several pours: the last one's logged day, which the days count from once it is logged. */
+		loggedLast,
 		days: days.length,
 		/** Days with a reminder job waiting, soonest first. */
 		scheduled: state.scheduled,
