@@ -8,6 +8,7 @@
 
 import path from 'node:path';
 import { spawnSync } from 'node:child_process';
+import { readFileSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import { bundleEngine } from './lib/engine-bundle.mjs';
 
@@ -26,13 +27,20 @@ console.log('TIMED');
 const s = [];
 const t1 = performance.now();
 while (performance.now() - t1 < ${seconds * 1000}) { const t = performance.now(); engine.computePlan(input); s.push(performance.now() - t); }
-console.log('RUNS ' + JSON.stringify(s));
+// The times go to a file: a GC trace line printed while this long line is written would split it.
+(await import('node:fs')).writeFileSync(${JSON.stringify(path.join(dir, 'runs.json'))}, JSON.stringify(s));
+console.log('RUNS');
+// What finished runs leave behind: after a collection, 20 whole runs, then another collection.
+gc({ type: 'minor' });
+for (let i = 0; i < 20; i++) engine.computePlan(input);
+console.log('LEFT');
+gc({ type: 'minor' });
 `;
-const out = spawnSync(process.execPath, ['--trace-gc-nvp', '--input-type=module', '-e', runner], { encoding: 'utf8', maxBuffer: 1 << 28 });
+const out = spawnSync(process.execPath, ['--trace-gc-nvp', '--expose-gc', '--input-type=module', '-e', runner], { encoding: 'utf8', maxBuffer: 1 << 28 });
 if (out.status !== 0) throw new Error(out.stderr);
 const lines = out.stdout.split('\n');
-const timed = lines.slice(lines.indexOf('TIMED') + 1);
-const runs = JSON.parse(timed.find((l) => l.startsWith('RUNS ')).slice(5)).sort((a, b) => a - b);
+const timed = lines.slice(lines.indexOf('TIMED') + 1, lines.indexOf('RUNS'));
+const runs = JSON.parse(readFileSync(path.join(dir, 'runs.json'), 'utf8')).sort((a, b) => a - b);
 const fields = (l) =>
 	Object.fromEntries(
 		l
@@ -40,6 +48,7 @@ const fields = (l) =>
 			.filter((x) => x.includes('='))
 			.map((x) => x.split('='))
 	);
+const left = fields(lines.slice(lines.indexOf('LEFT') + 1).find((l) => l.includes(' gc=s ')));
 const scavenges = timed.filter((l) => l.includes(' gc=s ')).map(fields);
 const majors = timed.filter((l) => / gc=m[cs] /.test(l)).length;
 const mean = (k) => scavenges.reduce((a, r) => a + Number(r[k]), 0) / scavenges.length;
@@ -49,5 +58,6 @@ console.log(
 	`${runs.length} runs: median ${us(median(runs))}, p99 ${us(runs[Math.floor(runs.length * 0.99)])}, min ${us(runs[0])}\n` +
 		`${scavenges.length} scavenges, one every ${(runs.length / scavenges.length).toFixed(0)} runs (${(mean('allocated') / 1e6).toFixed(1)} MB apart); ` +
 		`each copies ${(mean('new_space_survived') / 1e3).toFixed(0)} kB and promotes ${(mean('promoted') / 1e3).toFixed(0)} kB (means), ` +
-		`median ${us(median(scavenges.map((r) => Number(r.scavenge))))}; ${majors} major GCs`
+		`median ${us(median(scavenges.map((r) => Number(r.scavenge))))}; ${majors} major GCs\n` +
+		`after 20 finished runs a scavenge still copies ${Number(left.new_space_survived).toLocaleString('en-US')} bytes (nothing of a finished run should be left)`
 );

@@ -91,7 +91,7 @@ function geometryResult(m: Model, layout: Layout, thick: boolean[][]): GeometryR
 				thickened: thick[s.index][e.index]
 			}))
 		})),
-		coldJoints: mapList(layout.coldJoints, (j) => ({ ...j, from: P(j.from), to: P(j.to), length: length(j.length) })),
+		coldJoints: mapList(layout.coldJoints, (j) => ({ sections: j.sections, edges: j.edges, from: P(j.from), to: P(j.to), length: length(j.length) })),
 		highEdge: m.highEdge,
 		houseEdges: m.houseEdges
 	};
@@ -161,7 +161,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 	const stones = milestones(m, ageSeries(last, tempOn), last);
 	const schedule = buildSchedule(m, pours, offsets, stones, jointDepthText(m, joints));
 	const weather = assessWeather(
-		mapList(schedule.pourDays, (d, i) => ({ ...d, offset: offsets[i] })),
+		mapList(schedule.pourDays, (d, i) => ({ section: d.section, part: d.part, bags: d.bags, day: d.day, date: d.date, offset: offsets[i] })),
 		tempOn,
 		{
 			humidity: m.humidity,
@@ -173,6 +173,7 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		}
 	);
 	const slabArea = layout.sections.reduce((a, s) => a + s.area, 0);
+	const total = area(slabArea);
 	const planned = bags.find((b) => b.planned) ?? bags[0];
 	const materials = computeMaterials(m, {
 		volume,
@@ -191,14 +192,13 @@ export function computeParsedPlan(p: ParsedPlan): PlanResult {
 		name: m.name,
 		currency: p.currency,
 		area: {
-			...area(slabArea),
+			squareFeet: total.squareFeet,
+			squareMeters: total.squareMeters,
 			perimeter: length(layout.outerPerimeter),
-			sections: mapList(layout.sections, (s) => ({
-				index: s.index,
-				name: m.sections[s.index].name,
-				...area(s.area),
-				perimeter: length(s.perimeter)
-			}))
+			sections: mapList(layout.sections, (s) => {
+				const a = area(s.area);
+				return { index: s.index, name: m.sections[s.index].name, squareFeet: a.squareFeet, squareMeters: a.squareMeters, perimeter: length(s.perimeter) };
+			})
 		},
 		geometry: geometryResult(m, layout, thick),
 		slab: computeSlab(m, plane, thick),

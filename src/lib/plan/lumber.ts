@@ -292,6 +292,7 @@ export function computeForms(m: Model, layout: Layout, splits: readonly SplitBul
 		});
 	}
 	const boards = cutBoards(pieces, m.forms.stockLengths);
+	const fit = formFit(m.forms.depth, m.thickness);
 	const u = m.units;
 	const P = (p: Pt): Pt => [mToPlan(p[0], u), mToPlan(p[1], u)];
 	return {
@@ -300,7 +301,9 @@ export function computeForms(m: Model, layout: Layout, splits: readonly SplitBul
 			lumber: m.forms.lumber,
 			boardDepth: small(m.forms.depth),
 			thickness: small(m.thickness),
-			...formFit(m.forms.depth, m.thickness),
+			fit: fit.fit,
+			difference: fit.difference,
+			note: fit.note,
 			runs: mapList(runs, (r) => ({
 				id: r.id,
 				kind: r.kind,

@@ -214,7 +214,10 @@ export function computeMixing(
 		const s: MixingSection = {
 			index: i,
 			bags: whole,
-			...time,
+			mixMinutes: time.mixMinutes,
+			placeMinutes: time.placeMinutes,
+			totalMinutes: time.totalMinutes,
+			batches: time.batches,
 			temperature: temperature(t),
 			workingMinutes: working,
 			finishMinutes: m.crew.finishMinutes,

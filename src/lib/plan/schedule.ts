@@ -223,7 +223,15 @@ export function milestones(m: Model, ages: number[], lastPour: number): Mileston
 	const date = m.pourDate ? datesFrom(m.pourDate) : null;
 	return mapList(list, (x) => {
 		const planDay = x.day === null ? null : first0 + lastPour + x.day;
-		return { ...x, planDay, date: date && planDay !== null ? date(planDay - first0) : undefined };
+		return {
+			id: x.id,
+			title: x.title,
+			day: x.day,
+			rule: x.rule,
+			source: x.source,
+			planDay,
+			date: date && planDay !== null ? date(planDay - first0) : undefined
+		};
 	});
 }
 
