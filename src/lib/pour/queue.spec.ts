@@ -1,5 +1,5 @@
 import { beforeEach, describe, expect, it } from 'vitest';
-import type { PourRecord } from '$lib/plan/pour-log';
+import { futureTempMessage, type PourRecord } from '$lib/plan/pour-log';
 import { addRecord, readSaved, sendQueued } from './queue';
 
 // localStorage as the browser has it, for node.
@@ -66,5 +66,38 @@ describe('the device queue', () => {
 		expect(await sendQueued(plan, answer(413))).toBe('refused');
 		expect(readSaved(plan).pending).toEqual([]);
 		expect(readSaved(plan).refused).toEqual([{ key: 'batch-key-1', message: 'A plan’s pour log can hold at most 2000 records.' }]);
+	});
+
+	it('sets aside only the records a refusal names, and sends the rest again', async () => {
+		// The server's answer to a temperature its own clock puts in the future: `records.<i>.date`
+		// (src/routes/(app)/plans/[id=uuid]/pour/records/+server.ts, futureTemp).
+		const late = futureTempMessage('2027-06-01');
+		const held: string[] = [];
+		const sent: string[][] = [];
+		const fetcher = (async (_u: string, init?: RequestInit) => {
+			const { records } = JSON.parse(String(init!.body)) as { records: PourRecord[] };
+			sent.push(records.map((r) => r.key));
+			const bad = records.findIndex((r) => r.key === 'batch-key-2' || r.key === 'batch-key-4');
+			if (bad >= 0) return new Response(JSON.stringify({ errors: [{ path: `records.${bad}.date`, message: late }] }), { status: 400 });
+			held.push(...records.map((r) => r.key));
+			return new Response(JSON.stringify({ keys: records.map((r) => r.key) }), { status: 200 });
+		}) as typeof fetch;
+		for (let i = 1; i <= 5; i++) addRecord(plan, batch(i));
+		expect(await sendQueued(plan, fetcher)).toBe('refused');
+		expect(held).toEqual(['batch-key-1', 'batch-key-3', 'batch-key-5']);
+		expect(sent).toHaveLength(3);
+		expect(readSaved(plan).pending).toEqual([]);
+		expect(readSaved(plan).refused).toEqual([
+			{ key: 'batch-key-2', message: late },
+			{ key: 'batch-key-4', message: late }
+		]);
+	});
+
+	it('sets the whole batch aside when a refusal names no record, or one the batch does not have', async () => {
+		for (let i = 1; i <= 2; i++) addRecord(plan, batch(i));
+		const answer = (path: string) => (async () => new Response(JSON.stringify({ errors: [{ path, message: 'Refused.' }] }), { status: 400 })) as typeof fetch;
+		expect(await sendQueued(plan, answer('records.7.date'))).toBe('refused');
+		expect(readSaved(plan).refused.map((r) => r.key)).toEqual(['batch-key-1', 'batch-key-2']);
+		expect(readSaved(plan).pending).toEqual([]);
 	});
 });

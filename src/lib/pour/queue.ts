@@ -76,10 +76,11 @@ export function sendQueued(planId: string, fetcher: typeof fetch = fetch): Promi
 
 async function drain(planId: string, fetcher: typeof fetch): Promise<SendResult> {
 	let result: SendResult = 'nothing';
+	let refusedSome = false;
 	for (;;) {
 		const s = readSaved(planId);
 		const batch = s.pending.flatMap((k) => s.records.filter((r) => r.key === k)).slice(0, POUR_LOG_LIMITS.perRequest);
-		if (!batch.length) return result;
+		if (!batch.length) return refusedSome ? 'refused' : result;
 		let res: Response;
 		try {
 			res = await fetcher(`/plans/${planId}/pour/records`, {
@@ -101,12 +102,29 @@ async function drain(planId: string, fetcher: typeof fetch): Promise<SendResult>
 			result = 'sent';
 			continue;
 		}
-		// A refusal (a limit, a plan no longer there) will not change on a retry: set the batch aside with the reason.
-		const message = body.errors?.[0]?.message ?? `The server refused these records (${res.status}).`;
-		const refused = new Set(batch.map((r) => r.key));
-		now.pending = now.pending.filter((k) => !refused.has(k));
-		now.refused.push(...batch.map((r) => ({ key: r.key, message })));
+		// A refusal (a limit, a plan no longer there, a date the server's clock puts in the future) will
+		// not change on a retry: set aside what it names, with the reason. Errors that each point at a
+		// record of the batch (`records.3.date`) set aside those records only, and the rest go again.
+		const errors = body.errors ?? [];
+		const named = refusedRecords(errors, batch.length);
+		const fallback = errors[0]?.message ?? `The server refused these records (${res.status}).`;
+		const aside = named ? [...named].map(([i, message]) => ({ key: batch[i].key, message })) : batch.map((r) => ({ key: r.key, message: fallback }));
+		const keys = new Set(aside.map((r) => r.key));
+		now.pending = now.pending.filter((k) => !keys.has(k));
+		now.refused.push(...aside);
 		write(planId, now);
-		return 'refused';
+		if (!named) return 'refused';
+		refusedSome = true;
 	}
+}
+
+/** Each refused record's index in the batch and its first reason, when every error names one; else null. */
+function refusedRecords(errors: readonly { path: string; message: string }[], size: number): Map<number, string> | null {
+	const named = new Map<number, string>();
+	for (const e of errors) {
+		const at = /^records\.(\d+)(?:\.|$)/.exec(e.path);
+		if (!at || Number(at[1]) >= size) return null;
+		if (!named.has(Number(at[1]))) named.set(Number(at[1]), e.message);
+	}
+	return named.size ? named : null;
 }
