@@ -1,11 +1,10 @@
+import { codesOf } from './codes';
+
 /**
  * A contractor account's vetting states and every way between them, as two tables: the admin's
  * decisions and the contractor's own profile saves. Nothing else changes a status.
  */
-export const contractorStatuses = ['draft', 'awaiting_review', 'approved', 'sent_back', 'suspended', 'lapsed'] as const;
-export type ContractorStatus = (typeof contractorStatuses)[number];
-
-export const statusLabels: Record<ContractorStatus, string> = {
+export const statusLabels = {
 	draft: 'Not yet submitted',
 	awaiting_review: 'Awaiting review',
 	approved: 'Approved',
@@ -13,17 +12,18 @@ export const statusLabels: Record<ContractorStatus, string> = {
 	suspended: 'Suspended',
 	lapsed: 'Licence or insurance expired'
 };
-
-export const vettingDecisions = ['approve', 'send_back', 'suspend', 'reinstate'] as const;
-export type VettingDecision = (typeof vettingDecisions)[number];
+export type ContractorStatus = keyof typeof statusLabels;
+export const contractorStatuses = codesOf(statusLabels);
 
 /** Button label, and whether the decision needs a reason the contractor will read. */
-export const decisionMeta: Record<VettingDecision, { label: string; reason: boolean }> = {
+export const decisionMeta = {
 	approve: { label: 'Approve', reason: false },
 	send_back: { label: 'Send back', reason: true },
 	suspend: { label: 'Suspend', reason: true },
 	reinstate: { label: 'Reinstate', reason: false }
-};
+} satisfies Record<string, { label: string; reason: boolean }>;
+export type VettingDecision = keyof typeof decisionMeta;
+export const vettingDecisions = codesOf(decisionMeta);
 
 /** `restore`: back to where the account stood when it was suspended (see `decisionTarget`). */
 type DecisionCell = ContractorStatus | 'restore';

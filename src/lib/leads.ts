@@ -1,41 +1,89 @@
-/** Lead and bid states, shared by the pages of both sides. */
-export const leadStatuses = ['new', 'viewed', 'bid_sent', 'declined', 'won', 'not_selected', 'withdrawn', 'released', 'expired', 'closed', 'done'] as const;
-export type LeadStatus = (typeof leadStatuses)[number];
-export const leadStatusLabels: Record<LeadStatus, string> = {
-	new: 'New',
-	viewed: 'Viewed',
-	bid_sent: 'Bid sent',
-	declined: 'Declined',
-	won: 'Won',
-	not_selected: 'Not selected',
-	withdrawn: 'Withdrawn',
-	released: 'Released during suspension',
-	expired: 'No reply by the respond-by date',
-	closed: 'Request closed without hiring',
-	done: 'Job done'
-};
+import { codesOf } from './codes';
 
-/** `released`: the homeowner reopened bidding while the accepted contractor's account was suspended. */
-/** `closed`: the homeowner closed the request without hiring anyone. */
-export const bidStatuses = ['open', 'accepted', 'not_selected', 'withdrawn', 'released', 'closed'] as const;
-export type BidStatus = (typeof bidStatuses)[number];
-export const bidStatusLabels: Record<BidStatus, string> = {
-	open: 'Open',
-	accepted: 'Accepted',
-	not_selected: 'Not selected',
-	withdrawn: 'Withdrawn',
-	released: 'Released during suspension',
-	closed: 'Request closed without hiring'
+/**
+ * The lead's closed sets, each code with the words both sides' pages show for it. The codes, in the
+ * order written, are what the database enums, the form schemas and the selects take.
+ */
+const words = {
+	/** Lead states, shared by the pages of both sides. */
+	leadStatus: {
+		new: 'New',
+		viewed: 'Viewed',
+		bid_sent: 'Bid sent',
+		declined: 'Declined',
+		won: 'Won',
+		not_selected: 'Not selected',
+		withdrawn: 'Withdrawn',
+		released: 'Released during suspension',
+		expired: 'No reply by the respond-by date',
+		closed: 'Request closed without hiring',
+		done: 'Job done'
+	},
+	/**
+	 * Bid states. `released`: the homeowner reopened bidding while the accepted contractor's account
+	 * was suspended. `closed`: the homeowner closed the request without hiring anyone.
+	 */
+	bidStatus: {
+		open: 'Open',
+		accepted: 'Accepted',
+		not_selected: 'Not selected',
+		withdrawn: 'Withdrawn',
+		released: 'Released during suspension',
+		closed: 'Request closed without hiring'
+	},
+	timeframe: {
+		soon: 'In the next two weeks',
+		within_month: 'Within a month',
+		within_season: 'This season',
+		flexible: 'No fixed date'
+	},
+	/** The surface finish the homeowner asks for. */
+	finish: {
+		broom: 'Broom finish (non-slip)',
+		float: 'Float finish',
+		trowel: 'Smooth trowel finish',
+		decide_with_contractor: 'To decide with the contractor'
+	},
+	/** What covers the ground now and must come out before the forms go in. */
+	existingSurface: {
+		grass_soil: 'Grass or bare soil (strip sod and topsoil)',
+		gravel: 'Gravel',
+		pavers: 'Pavers or flagstones',
+		old_concrete: 'Old concrete (break out and haul away)'
+	},
+	lineItem: {
+		labour: 'Labour',
+		materials: 'Materials',
+		base: 'Base',
+		forms: 'Forms',
+		removal: 'Removal and haul-away',
+		other: 'Other'
+	}
 };
+type Words = typeof words;
 
-export const timeframes = ['soon', 'within_month', 'within_season', 'flexible'] as const;
-export type Timeframe = (typeof timeframes)[number];
-export const timeframeLabels: Record<Timeframe, string> = {
-	soon: 'In the next two weeks',
-	within_month: 'Within a month',
-	within_season: 'This season',
-	flexible: 'No fixed date'
-};
+export type LeadStatus = keyof Words['leadStatus'];
+export type BidStatus = keyof Words['bidStatus'];
+export type Timeframe = keyof Words['timeframe'];
+export type Finish = keyof Words['finish'];
+export type ExistingSurface = keyof Words['existingSurface'];
+export type LineItemKind = keyof Words['lineItem'];
+
+export const leadStatuses = codesOf(words.leadStatus);
+export const bidStatuses = codesOf(words.bidStatus);
+export const timeframes = codesOf(words.timeframe);
+export const finishes = codesOf(words.finish);
+export const existingSurfaces = codesOf(words.existingSurface);
+export const lineItemKinds = codesOf(words.lineItem);
+
+export const {
+	leadStatus: leadStatusLabels,
+	bidStatus: bidStatusLabels,
+	timeframe: timeframeLabels,
+	finish: finishLabels,
+	existingSurface: existingSurfaceLabels,
+	lineItem: lineItemLabels
+} = words;
 
 /** The latest day the homeowner wants the work done by, from the day the plan was sent; null = no fixed date. */
 export const timeframeDays: Record<Timeframe, number | null> = { soon: 14, within_month: 31, within_season: 90, flexible: null };
@@ -50,37 +98,6 @@ export function wantedBy(sentAt: Date, timeframe: Timeframe): string | null {
  */
 export const respondDays: Record<Timeframe, number> = { soon: 3, within_month: 7, within_season: 14, flexible: 14 };
 export const respondBy = (sentAt: Date, timeframe: Timeframe) => new Date(sentAt.getTime() + respondDays[timeframe] * 86_400_000).toISOString().slice(0, 10);
-
-/** The surface finish the homeowner asks for. */
-export const finishes = ['broom', 'float', 'trowel', 'decide_with_contractor'] as const;
-export type Finish = (typeof finishes)[number];
-export const finishLabels: Record<Finish, string> = {
-	broom: 'Broom finish (non-slip)',
-	float: 'Float finish',
-	trowel: 'Smooth trowel finish',
-	decide_with_contractor: 'To decide with the contractor'
-};
-
-/** What covers the ground now and must come out before the forms go in. */
-export const existingSurfaces = ['grass_soil', 'gravel', 'pavers', 'old_concrete'] as const;
-export type ExistingSurface = (typeof existingSurfaces)[number];
-export const existingSurfaceLabels: Record<ExistingSurface, string> = {
-	grass_soil: 'Grass or bare soil (strip sod and topsoil)',
-	gravel: 'Gravel',
-	pavers: 'Pavers or flagstones',
-	old_concrete: 'Old concrete (break out and haul away)'
-};
-
-export const lineItemKinds = ['labour', 'materials', 'base', 'forms', 'removal', 'other'] as const;
-export type LineItemKind = (typeof lineItemKinds)[number];
-export const lineItemLabels: Record<LineItemKind, string> = {
-	labour: 'Labour',
-	materials: 'Materials',
-	base: 'Base',
-	forms: 'Forms',
-	removal: 'Removal and haul-away',
-	other: 'Other'
-};
 
 /** At most this many contractors per send, so a homeowner is not flooded with calls. */
 export const MAX_CONTRACTORS_PER_SEND = 5;

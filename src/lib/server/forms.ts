@@ -1,8 +1,9 @@
 import { fail } from '@sveltejs/kit';
 import { z } from 'zod';
+import type { FieldErrors } from '$lib/form-failure';
 import { unsafeText } from './api';
 
-export type FieldErrors = Record<string, string | undefined>;
+export type { FieldErrors };
 
 /** Fields never echoed back into a re-rendered form. */
 const SECRET = /password|current|token/i;
