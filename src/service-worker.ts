@@ -4,7 +4,7 @@
 /// <reference types="@sveltejs/kit" />
 
 // Keeps the plans a homeowner opened readable without a connection: the app shell (the build and
-// the static files) cached at install, and each plan's page and pour-day page (with their
+// the static files) cached at install, and each plan's page, sheets page and pour-day page (with their
 // __data.json) and the plan list (the installed app's start page) cached as they load, network
 // first. Registered from a plan's layout with the scope / so the list at /plans (outside /plans/) is
 // covered too; every other request passes by untouched (no respondWith), except a navigation to any other page
@@ -21,8 +21,9 @@ const SHELL = `shell-${version}`;
 const PAGES = 'plan-pages';
 const SHELL_FILES = new Set([...build, ...files]);
 
-/** A page kept for offline use: the plan list, a plan itself or its pour-day page, HTML or data. */
-const PLAN_PAGE = /^\/plans(\/[0-9a-f-]{36}(\/pour)?)?(\/__data\.json)?$/;
+/** A page kept for offline use: the plan list, a plan itself, its pour-day page or its sheets (the
+ *  layout sheet, stake marks and day plan the plan page opens on demand), HTML or data. */
+const PLAN_PAGE = /^\/plans(\/[0-9a-f-]{36}(\/pour|\/sheets)?)?(\/__data\.json)?$/;
 /** Pages a navigation to which gets the offline page rather than the browser's error when nothing is kept. */
 const PLAN_AREA = /^\/plans(\/|$)/;
 

@@ -104,6 +104,7 @@ const matrix: Record<string, Row[]> = {
 		r('/plans/{myPlan}/photos/{photoA}/thumb', x(401, 200, 404, 403, 403, 403, 403, 403))
 	],
 	'GET /plans/[id]/pour': [r('/plans/{planA}/pour', x(303, 200, 404, 403, 403, 403, 403, 403))],
+	'GET /plans/[id]/sheets': [r('/plans/{planA}/sheets', x(303, 200, 404, 403, 403, 403, 403, 403))],
 	'POST /plans/[id]/pour/records': [
 		r('/plans/{planA}/pour/records', x(401, 400, 404, 403, 403, 403, 403, 403), { json: {} }),
 		// A well-formed record for the other owner's plan: not found, nothing stored.

@@ -81,6 +81,7 @@ test('a homeowner builds an L-shaped plan; results match the engine, survive a r
 
 	await page.getByRole('link', { name: 'See the full plan' }).click();
 	await expect(page.getByTestId('plan-title')).toHaveText('Corner patio');
+	await page.getByRole('button', { name: 'Show the stake marks' }).click();
 	await expect(page.getByRole('table', { name: /stake/i })).toBeVisible();
 	expect(await seriousViolations(page)).toEqual([]);
 

@@ -40,14 +40,23 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	// Online: open the plan. Its layout registers the worker, which keeps this plan's pages.
 	await page.goto(`/plans/${planId}`);
 	await expect(page.getByTestId('plan-title')).toHaveText('Yard patio');
-	await expect(page.getByTestId('layout-sheet')).toBeVisible();
+	await page.getByTestId('layout-sheet').getByRole('button', { name: 'Show the layout sheet' }).click();
+	await expect(page.getByTestId('layout-drawing')).toBeVisible();
 	await expect(page.getByTestId('planned-vs-logged')).toContainText('Nothing logged yet');
 	await axeClean(page);
 	await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
 	await expect
 		.poll(
 			() =>
-				page.evaluate((id) => caches.open('plan-pages').then(async (c) => !!(await c.match(`/plans/${id}/pour`)) && !!(await c.match(`/plans/${id}`))), planId),
+				page.evaluate(
+					(id) =>
+						caches
+							.open('plan-pages')
+							.then(
+								async (c) => !!(await c.match(`/plans/${id}/pour`)) && !!(await c.match(`/plans/${id}`)) && !!(await c.match(`/plans/${id}/sheets/__data.json`))
+							),
+					planId
+				),
 			{
 				timeout: 30_000
 			}
@@ -72,15 +81,19 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	expect((await page.getByRole('link', { name: '← Yard patio' }).boundingBox())!.height).toBeGreaterThanOrEqual(44);
 	await axeClean(page);
 
-	// Network cut: the plan, its layout sheet and the pour page still show, with the offline note.
+	// Network cut: the plan, its layout sheet (opened as online, from what the worker kept) and the
+	// pour page still show, with the offline note.
 	await context.setOffline(true);
 	await page.goto(`/plans/${planId}`);
 	await expect(page.getByTestId('plan-title')).toHaveText('Yard patio');
-	await expect(page.getByTestId('layout-sheet')).toBeVisible();
+	await page.getByTestId('layout-sheet').getByRole('button', { name: 'Show the layout sheet' }).click();
 	await expect(page.getByTestId('layout-drawing')).toBeVisible();
 	await expect(page.getByTestId('offline-note')).toContainText('Offline — as of');
 	await page.reload();
-	await expect(page.getByTestId('layout-sheet')).toBeVisible();
+	await page.getByTestId('layout-sheet').getByRole('button', { name: 'Show the layout sheet' }).click();
+	await expect(page.getByTestId('layout-drawing')).toBeVisible();
+	await page.getByRole('button', { name: 'Show the stake marks' }).click();
+	await expect(page.getByTestId('stake-marks')).toBeVisible();
 	// The plan list, where the app installed on the home screen opens, reads offline too.
 	await page.goto('/plans');
 	await expect(page.getByTestId('offline-note')).toContainText('Offline — this is the list as this device last saw it');

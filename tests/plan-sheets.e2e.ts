@@ -64,6 +64,12 @@ test.describe('the back patio, opened by its owner', () => {
 
 		const sheet = page.getByTestId('layout-sheet');
 		await expect(sheet.getByRole('heading', { name: 'Layout sheet' })).toBeVisible();
+		// The long parts open where they are, from the keyboard too; the page sends them only then.
+		await expect(sheet.getByTestId('layout-drawing')).toHaveCount(0);
+		await sheet.getByRole('button', { name: 'Show the layout sheet' }).focus();
+		await page.keyboard.press('Enter');
+		await expect(sheet.getByRole('button', { name: 'Hide the layout sheet' })).toHaveAttribute('aria-expanded', 'true');
+		await expect(sheet.getByRole('button', { name: 'Hide the layout sheet' })).toBeFocused();
 		await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
 		// Pythagoras: √(14² + 12²) = √340 = 18.4391 ft = 18 ft 5.269 in → 5 1/4 in to the sixteenth.
 		await expect(sheet.getByTestId('diagonals')).toContainText('A–C 18 ft 5 1/4 in');
@@ -72,6 +78,8 @@ test.describe('the back patio, opened by its owner', () => {
 		await expect(sheet.getByTestId('square-check')).toContainText('6-8-10 ft');
 		await expect(sheet.getByTestId('square-check')).toContainText('mark 8 ft 0 in along A–B');
 		// Every stake of the stake-mark table appears on the sheet under the same id.
+		await page.getByRole('button', { name: 'Show the stake marks' }).click();
+		await expect(page.getByTestId('stake-marks')).toBeVisible();
 		const stakeIds = await page.locator('#plan-stake-marks ~ div tbody th').evaluateAll((ths) => ths.map((t) => /^S\d+/.exec(t.textContent!.trim())![0]));
 		expect(stakeIds.length).toBeGreaterThan(4);
 		for (const id of stakeIds) await expect(sheet.getByRole('rowheader', { name: id, exact: true })).toBeVisible();
@@ -79,6 +87,18 @@ test.describe('the back patio, opened by its owner', () => {
 		// On a desktop the stake ids read at 12 px (they were about 8 px: paper sizes scaled to the screen).
 		await page.setViewportSize({ width: 1366, height: 768 });
 		await expect.poll(() => smallestStakeId(page)).toBeGreaterThanOrEqual(11.9);
+
+		// Print opens what is still closed (the day plan) before the browser's print dialog.
+		await expect(page.getByRole('button', { name: 'Show the day plan' })).toBeVisible();
+		await page.evaluate(() => {
+			const w = window as unknown as { printed: number };
+			w.printed = 0;
+			window.print = () => void w.printed++;
+		});
+		await page.getByRole('button', { name: 'Print', exact: true }).click();
+		await expect.poll(() => page.evaluate(() => (window as unknown as { printed: number }).printed)).toBe(1);
+		await expect(page.getByRole('button', { name: 'Hide the day plan' })).toHaveAttribute('aria-expanded', 'true');
+		await expect(page.getByRole('region', { name: 'Day by day' }).getByText('Pour day', { exact: true })).toBeVisible();
 
 		// The print view keeps the build card and the layout sheet and drops the buttons.
 		await page.emulateMedia({ media: 'print' });
@@ -132,6 +152,7 @@ test.describe('the shed pad in two pours, opened by its owner', () => {
 		await page.setViewportSize({ width: 390, height: 844 });
 		const errors = await openDemoPlan(page);
 		const sheet = page.getByTestId('layout-sheet');
+		await sheet.getByRole('button', { name: 'Show the layout sheet' }).click();
 		// Two pours of 1.8 × 2.4 m: Pythagoras √(1.8² + 2.4²) = √9 = 3 m.
 		await expect(sheet.getByTestId('diagonals')).toContainText('1A–1C 3.000 m');
 		await expect(sheet.getByTestId('diagonals')).toContainText('2B–2D 3.000 m');
@@ -150,6 +171,39 @@ test.describe('the shed pad in two pours, opened by its owner', () => {
 				.getByRole('definition')
 				.first()
 		).toHaveText('200 mm');
+		expect(errors).toEqual([]);
+	});
+});
+
+test.describe('without JavaScript, the back patio opened by its owner', () => {
+	asOwnerOf('lind-back-patio');
+	test.use({ javaScriptEnabled: false });
+
+	test('the long parts are links to a page that holds them: layout sheet, stake marks and day plan', async ({ page }) => {
+		await page.setViewportSize({ width: 390, height: 844 });
+		const errors = await openDemoPlan(page);
+		const planUrl = page.url();
+		// The plan page itself leads with the build card, summary and cautions; the drawing is not in it.
+		await expect(page.getByTestId('build-card')).toBeVisible();
+		await expect(page.getByRole('heading', { name: 'Summary' })).toBeVisible();
+		await expect(page.getByRole('heading', { name: 'Cautions' })).toBeVisible();
+		await expect(page.getByTestId('layout-drawing')).toHaveCount(0);
+		for (const name of ['Open the stake marks', 'Open the day plan']) await expect(page.getByRole('link', { name })).toHaveAttribute('href', /\/sheets#plan-/);
+		await page.getByRole('link', { name: 'Open the layout sheet' }).click();
+		await page.waitForURL(/\/sheets#plan-layout-sheet$/);
+		await expect(page.getByTestId('sheets-title')).toBeVisible();
+		const sheet = page.getByTestId('layout-sheet');
+		await expect(sheet.getByTestId('layout-drawing')).toBeVisible();
+		// √(14² + 12²) ft, as on the plan page (see above).
+		await expect(sheet.getByTestId('diagonals')).toContainText('A–C 18 ft 5 1/4 in');
+		await expect(page.getByTestId('stake-marks')).toBeVisible();
+		await expect(page.getByRole('region', { name: 'Day by day' }).getByText('Pour day', { exact: true })).toBeVisible();
+		// The trade words the sheets link to are on the same page.
+		await expect(page.locator('#word-control-joint')).toBeAttached();
+		expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(390);
+		await page.screenshot({ path: 'test-results/screens/plan-sheets-page-390.png', fullPage: true });
+		await page.getByRole('link', { name: /^← Back patio/ }).click();
+		await expect(page).toHaveURL(planUrl);
 		expect(errors).toEqual([]);
 	});
 });

@@ -240,6 +240,7 @@ test("a freestanding pad's chosen high edge is marked on the plan page: 2D view,
 			.first()
 	).toHaveText('edge C–D');
 	const sheet = page.getByTestId('layout-sheet');
+	await sheet.getByRole('button', { name: 'Show the layout sheet' }).click();
 	await expect(sheet.getByTestId('sheet-high-edge')).toHaveText('high side, edge C–D');
 	await expect(sheet.getByTestId('layout-drawing').locator('line[data-high]')).toHaveCount(1);
 	await expect(sheet.getByTestId('layout-drawing').getByText('HIGH SIDE', { exact: true })).toBeVisible();

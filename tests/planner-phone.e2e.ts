@@ -148,6 +148,17 @@ test('on a phone the edit page and the plan page of a saved plan do not scroll s
 	await everyStep(page, 'edit page');
 	await page.goto(`/plans/${plan.id}`);
 	await noSidewaysScroll(page, 'plan page');
+	// The long parts open in place and fit the phone too; each button is a thumb-sized target.
+	for (const what of ['the layout sheet', 'the stake marks', 'the day plan']) {
+		const show = page.getByRole('button', { name: `Show ${what}` });
+		await expect(show).toBeVisible();
+		expect((await show.boundingBox())!.height, what).toBeGreaterThanOrEqual(44);
+		await show.click();
+		await expect(page.getByRole('button', { name: `Hide ${what}` })).toHaveAttribute('aria-expanded', 'true');
+	}
+	await expect(page.getByTestId('layout-drawing')).toBeVisible();
+	await expect(page.getByTestId('stake-marks')).toBeVisible();
+	await noSidewaysScroll(page, 'plan page with its long parts open');
 	// Nothing can be dropped on a touch screen: the photo box does not ask for it there.
 	const photoBox = page.getByRole('region', { name: 'Add site photos' });
 	await expect(photoBox.getByText('Photos of the site', { exact: true })).toBeVisible();

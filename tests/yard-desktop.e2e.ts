@@ -37,6 +37,8 @@ test('the pour-day page and the plan read well on a desktop screen and on paper'
 	// The layout drawing stays inside its card at this width (its stake ids read at 12 px here: plan-sheets.e2e).
 	await page.goto(`/plans/${planId}`);
 	const sheet = page.getByTestId('layout-sheet');
+	await sheet.getByRole('button', { name: 'Show the layout sheet' }).click();
+	await expect(page.getByTestId('layout-drawing')).toBeVisible();
 	const drawing = (await page.getByTestId('layout-drawing').boundingBox())!;
 	expect(drawing.width).toBeGreaterThan(600);
 	expect(drawing.width).toBeLessThanOrEqual((await sheet.boundingBox())!.width);

@@ -2,7 +2,7 @@
 // mixing, day plan, milestones, materials, cautions), built from the text in text.ts. The plan
 // page and the PDF render these same rows, so the page and the download show the same numbers.
 
-import type { Caution, PlanResult, Severity } from '$lib/plan';
+import type { Caution, PlanResult, Severity, StrengthDay } from '$lib/plan';
 import { length, planToM } from '$lib/plan/units';
 import { signal } from '$lib/palette';
 import type { PlanFigures } from '$lib/plan-figures';
@@ -210,7 +210,10 @@ export interface MilestoneRow {
 	source: string;
 }
 
-export function milestoneRows(p: Pick<PlanResult, 'milestones' | 'strength'>, locale?: string): MilestoneRow[] {
+/** What the page draws and lists of a strength day (the engine's day also carries psi, MPa and maturity). */
+export type StrengthPoint = Pick<StrengthDay, 'day' | 'date' | 'percent'>;
+
+export function milestoneRows(p: Pick<PlanResult, 'milestones'> & { strength: readonly StrengthPoint[] }, locale?: string): MilestoneRow[] {
 	return p.milestones.map((m) => {
 		const percent = m.day === null ? undefined : p.strength.find((d) => d.day === m.day)?.percent;
 		const when =

@@ -76,7 +76,7 @@ export function sheetEdgeName(g: Pick<PlanResult['geometry'], 'sections'>, s: nu
 	return `${label(e)}–${label((e + 1) % g.sections[s].outline.length)}`;
 }
 
-export function layoutSheet(r: PlanResult): LayoutSheet {
+export function layoutSheet(r: Pick<PlanResult, 'units' | 'geometry' | 'forms' | 'elevations'>): LayoutSheet {
 	const u = r.units;
 	const many = r.geometry.sections.length > 1;
 	const label = (s: number, v: number) => `${many ? s + 1 : ''}${cornerLetter(v)}`;

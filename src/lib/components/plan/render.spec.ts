@@ -15,7 +15,8 @@ import PlanOutline2D from './PlanOutline2D.svelte';
 import PlanSummary from './PlanSummary.svelte';
 import StakeMarkTable from './StakeMarkTable.svelte';
 import StrengthChart from './StrengthChart.svelte';
-import { formatDate, formatPercent, materialRows } from '$lib/plan-view';
+import { formatDate, formatPercent, materialRows, summaryItems } from '$lib/plan-view';
+import { buildCardItems } from '$lib/plan-view/buildCard';
 
 const plans = demo.plans.map((p) => ({ id: p.id, result: computePlan(p.input) }));
 
@@ -36,14 +37,14 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 	const u = result.units;
 
 	it('PlanSummary shows area, volumes and every bag size', () => {
-		const out = text(render(PlanSummary, { props: { plan: result } }).body);
+		const out = text(render(PlanSummary, { props: { items: summaryItems(result) } }).body);
 		expect(out).toContain(formatVolume(result.volume.net, u));
 		expect(out).toContain(formatVolume(result.volume.order, u));
 		for (const b of result.bags) expect(out).toContain(`${b.size} ${b.unit} bags ${b.count} bags`);
 	});
 
 	it('BuildCard states the thickness and dig depth from the slab block', () => {
-		const out = text(render(BuildCard, { props: { plan: result } }).body);
+		const out = text(render(BuildCard, { props: { items: buildCardItems(result) } }).body);
 		expect(out).toContain(`Slab thickness ${formatSmall(result.slab.thickness, u)}`);
 		expect(out).toContain(`Dig depth ${formatSmall(result.slab.digDepth, u)}`);
 	});
@@ -74,6 +75,20 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 		for (const d of result.schedule.days) {
 			expect(out).toContain(`Day ${d.day}`);
 			for (const k of d.tasks) expect(out).toContain(k.text);
+		}
+	});
+
+	it('the long parts opened in place (headed={false}) carry the same content without a card or heading of their own', () => {
+		for (const [C, heading] of [
+			[LayoutSheet, 'Layout sheet'],
+			[StakeMarkTable, 'Stake marks'],
+			[DayPlan, 'Day by day']
+		] as const) {
+			const headed = render(C, { props: { plan: result } }).body;
+			const bare = render(C, { props: { plan: result, headed: false } }).body;
+			expect(text(headed)).toContain(heading);
+			expect(bare).not.toMatch(/<h2|<section/);
+			expect(text(headed).replace(heading, '').replace(/\s+/g, ' ').trim()).toBe(text(bare).trim());
 		}
 	});
 

@@ -134,11 +134,14 @@ function band(es: EdgeLine[], i: number, d0: number, d1: number, joins: (j: numb
 	return [start(d0), end(d0), end(d1), start(d1)];
 }
 
+/** The parts of a result the 3D view reads: a page can send just these, on demand. */
+export type ScenePlan = Pick<PlanResult, 'units' | 'slab' | 'volume' | 'forms' | 'elevations' | 'geometry' | 'joints'>;
+
 type Run = PlanResult['forms']['runs'][number] & { from: P2; to: P2; t: P2; out: P2 };
 
 /** What the part builders share: the plan in metres and the steepened surface. */
 interface Ctx {
-	result: PlanResult;
+	result: ScenePlan;
 	M: (p: readonly [number, number]) => P2;
 	top: (p: P2) => number;
 	outlines: P2[][];
@@ -247,7 +250,7 @@ function edgeLabels({ result, lines, top }: Ctx): Label[] {
 	);
 }
 
-export function buildScene(result: PlanResult, opts: SceneOptions = {}): SlabSceneModel {
+export function buildScene(result: ScenePlan, opts: SceneOptions = {}): SlabSceneModel {
 	const k = opts.exaggeration ?? 10;
 	const M = (p: readonly [number, number]): P2 => [planToM(p[0], result.units), planToM(p[1], result.units)];
 	const mm = (v: { millimeters: number }) => v.millimeters / 1000;

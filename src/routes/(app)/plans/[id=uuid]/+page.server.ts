@@ -1,6 +1,7 @@
 import { error, fail } from '@sveltejs/kit';
 import { z } from 'zod';
 import { currentResult } from '$lib/plan-view/currentResult';
+import { planPageView, strengthPoints } from '$lib/plan-view/pageView';
 import { ENGINE_VERSION, parsePlanInput } from '$lib/plan';
 import { requireRole } from '$lib/server/guards';
 import { acceptPhotoUpload, deletePhoto, listPhotos, MAX_PHOTO_BYTES } from '$lib/server/photos';
@@ -26,12 +27,14 @@ export const load = (async (event) => {
 	const known = found.engineVersion === ENGINE_VERSION ? result : undefined;
 	// Parsed once for both readings of the log: the forecast and the reminders.
 	const parsed = parsePlanInput(found.input);
+	// The strength timeline and milestones again from the pour log's dates and temperatures.
+	const logged = loggedForecastFor(parsed, result, records);
 	return {
 		photos: photos.map((p) => ({ id: p.id, originalName: p.originalName, width: p.width, height: p.height })),
 		maxPhotoMb: MAX_PHOTO_BYTES / 1024 / 1024,
-		result,
-		// The strength timeline and milestones again from the pour log's dates and temperatures.
-		logged: loggedForecastFor(parsed, result, records),
+		// Only what the page shows; the long parts come on demand from sheets/ (lib/plan-view/pageView.ts).
+		result: planPageView(result),
+		logged: logged && { ...logged, strength: strengthPoints(logged.strength) },
 		locale: event.locals.reader.locale,
 		reminders: reminderState && curingReminderSummary(reminderState, parsed, records, known),
 		readerTimeZone: event.locals.reader.timeZone
