@@ -1,12 +1,12 @@
 // In the yard: a plan opened online stays readable with the network cut (plan page with its layout
 // sheet, and the pour-day page), batches and a temperature logged offline reach the server exactly
 // once when the connection returns, and the plan page then shows the forecast as logged.
-import AxeBuilder from '@axe-core/playwright';
-import { expect, test, type Page } from '@playwright/test';
+import { expect, test } from '@playwright/test';
 import postgres from 'postgres';
 import sharp from 'sharp';
 import { smallPatio } from '../src/lib/plan/test-plans';
 import { signUp, uniqueEmail, watchErrors } from './helpers';
+import { axeClean, keptOffline } from './yard-helpers';
 
 test.describe.configure({ timeout: 240_000 });
 
@@ -27,8 +27,6 @@ const input = {
 	conditions: { airTemp: 70, humidity: 50, wind: 5 }
 };
 
-const axeClean = async (page: Page) => expect((await new AxeBuilder({ page }).analyze()).violations).toEqual([]);
-
 test('a plan opened online reads offline, and what is logged offline reaches the server once', async ({ page, context }) => {
 	await page.setViewportSize({ width: 390, height: 844 });
 	const errors = watchErrors(page);
@@ -44,27 +42,7 @@ test('a plan opened online reads offline, and what is logged offline reaches the
 	await expect(page.getByTestId('layout-drawing')).toBeVisible();
 	await expect(page.getByTestId('planned-vs-logged')).toContainText('Nothing logged yet');
 	await axeClean(page);
-	await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
-	await expect
-		.poll(
-			() =>
-				page.evaluate(
-					(id) =>
-						caches
-							.open('plan-pages')
-							.then(
-								async (c) => !!(await c.match(`/plans/${id}/pour`)) && !!(await c.match(`/plans/${id}`)) && !!(await c.match(`/plans/${id}/sheets/__data.json`))
-							),
-					planId
-				),
-			{
-				timeout: 30_000
-			}
-		)
-		.toBe(true);
-	// Reload once so the page itself is controlled by the worker (the first visit came before it).
-	await page.reload();
-	await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+	await keptOffline(page, [`/plans/${planId}/pour`, `/plans/${planId}`, `/plans/${planId}/sheets/__data.json`]);
 
 	// The pour page online first: its number of bags and working time come from the plan.
 	await page.getByTestId('pour-link').click();

@@ -3,7 +3,7 @@
 // here) instead of the browser's error page, whether the address is typed or a link is followed.
 import { expect, test, type Page } from '@playwright/test';
 import { signUp, uniqueEmail, watchErrors } from './helpers';
-import { axeClean, noSidewaysScroll, rectanglePlan } from './yard-helpers';
+import { axeClean, keptOffline, noSidewaysScroll, rectanglePlan } from './yard-helpers';
 
 test.describe.configure({ timeout: 240_000 });
 
@@ -41,22 +41,7 @@ test('offline, a plan never opened here shows our offline page with the plans ke
 	// Online: open one plan only. Its layout registers the worker, which keeps its pages and the list.
 	await page.goto(`/plans/${kept}`);
 	await expect(page.getByTestId('plan-title')).toHaveText('Kept patio');
-	await page.evaluate(() => navigator.serviceWorker.ready.then(() => undefined));
-	await expect
-		.poll(
-			() =>
-				page.evaluate(
-					(id) =>
-						caches
-							.open('plan-pages')
-							.then(async (c) => !!(await c.match(`/plans/${id}`)) && !!(await c.match(`/plans/${id}/pour`)) && !!(await c.match('/plans'))),
-					kept
-				),
-			{ timeout: 30_000 }
-		)
-		.toBe(true);
-	await page.reload();
-	await expect.poll(() => page.evaluate(() => !!navigator.serviceWorker.controller)).toBe(true);
+	await keptOffline(page, [`/plans/${kept}`, `/plans/${kept}/pour`, '/plans']);
 
 	await context.setOffline(true);
 
