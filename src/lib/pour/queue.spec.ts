@@ -101,3 +101,73 @@ describe('the device queue', () => {
 		expect(readSaved(plan).pending).toEqual([]);
 	});
 });
+
+/**
+ * The queue as a table: its state (nothing pending, or records A and B pending) against each answer
+ * the server or the network can give. Each answer is a function of what was sent, so a resend after
+ * a partial refusal meets the same server. Every row: what sendQueued says, and where A and B end up.
+ */
+describe('the device queue, every state against every answer', () => {
+	type Sent = PourRecord[];
+	const reply = (status: number, body: unknown) => new Response(JSON.stringify(body), { status });
+	const refuseB = (records: Sent, path: (i: number) => string) => {
+		const i = records.findIndex((r) => r.key === 'batch-key-2');
+		return i < 0 ? reply(200, { keys: records.map((r) => r.key) }) : reply(400, { errors: [{ path: path(i), message: 'B refused.' }] });
+	};
+	const answers: Record<string, (records: Sent) => Response | never> = {
+		'stores all': (records) => reply(200, { keys: records.map((r) => r.key) }),
+		'network down': () => {
+			throw new TypeError('Failed to fetch');
+		},
+		'503': () => reply(503, {}),
+		'401': () => reply(401, {}),
+		'403': () => reply(403, {}),
+		'400 naming B': (records) => refuseB(records, (i) => `records.${i}.date`),
+		'400 naming B whole': (records) => refuseB(records, (i) => `records.${i}`),
+		'400 naming a record not sent': () => reply(400, { errors: [{ path: 'records.9.date', message: 'Refused.' }] }),
+		'400 naming none': () => reply(400, { errors: [{ path: 'records', message: 'Refused.' }] }),
+		'404 plan gone': () => reply(404, { errors: [{ path: '', message: 'No such plan.' }] }),
+		'413 log full': () => reply(413, { errors: [{ path: 'records', message: 'Full.' }] })
+	};
+	type End = { result: string; pending: string[]; refused: string[] };
+	const A = 'batch-key-1';
+	const B = 'batch-key-2';
+	const unchanged = (result: string): End => ({ result, pending: [A, B], refused: [] });
+	const allAside: End = { result: 'refused', pending: [], refused: [A, B] };
+	const table: Record<'nothing pending' | 'A and B pending', Record<keyof typeof answers, End>> = {
+		'nothing pending': Object.fromEntries(Object.keys(answers).map((k) => [k, { result: 'nothing', pending: [], refused: [] }])) as Record<string, End>,
+		'A and B pending': {
+			'stores all': { result: 'sent', pending: [], refused: [] },
+			'network down': unchanged('offline'),
+			'503': unchanged('offline'),
+			'401': unchanged('signed-out'),
+			'403': unchanged('signed-out'),
+			'400 naming B': { result: 'refused', pending: [], refused: [B] },
+			'400 naming B whole': { result: 'refused', pending: [], refused: [B] },
+			'400 naming a record not sent': allAside,
+			'400 naming none': allAside,
+			'404 plan gone': allAside,
+			'413 log full': allAside
+		}
+	};
+
+	it('has a row for every state and every answer', () => {
+		for (const row of Object.values(table)) expect(Object.keys(row).sort()).toEqual(Object.keys(answers).sort());
+	});
+
+	for (const [state, row] of Object.entries(table))
+		for (const [answer, end] of Object.entries(row))
+			it(`${state}, server answers ${answer}: ${end.result}`, async () => {
+				if (state === 'A and B pending') [1, 2].forEach((i) => addRecord(plan, batch(i)));
+				let calls = 0;
+				const fetcher = (async (_u: string, init?: RequestInit) => {
+					calls++;
+					return answers[answer]((JSON.parse(String(init!.body)) as { records: Sent }).records);
+				}) as typeof fetch;
+				expect(await sendQueued(plan, fetcher)).toBe(end.result);
+				const saved = readSaved(plan);
+				expect(saved.pending).toEqual(end.pending);
+				expect(saved.refused.map((r) => r.key)).toEqual(end.refused);
+				if (state === 'nothing pending') expect(calls).toBe(0);
+			});
+});
