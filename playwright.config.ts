@@ -4,10 +4,15 @@ import { defineConfig, devices } from '@playwright/test';
 const port = Number(process.env.PORT ?? 3100);
 const baseURL = process.env.ORIGIN ?? `http://127.0.0.1:${port}`;
 
+/** Files that stop the database or an app server (see the projects below). */
+const EXCLUSIVE = ['**/reliability.e2e.ts', '**/cluster.e2e.ts'];
+
 export default defineConfig({
 	testDir: 'tests',
 	testMatch: '**/*.e2e.ts',
-	workers: 1,
+	// Two browsers at a time: one journey leaves the two cores about a quarter idle (it waits on the app
+	// and the database), two finish the suite in about two-thirds of the time. PW_WORKERS=1 runs one.
+	workers: Number(process.env.PW_WORKERS ?? 2),
 	fullyParallel: false,
 	forbidOnly: !!process.env.CI,
 	retries: 0,
@@ -40,7 +45,11 @@ export default defineConfig({
 	projects: [
 		// Signs the demo accounts in once (tests/auth.setup.ts) for the tests that start signed in.
 		{ name: 'sign-in', testMatch: 'auth.setup.ts', use: { ...devices['Desktop Chrome'] } },
-		{ name: 'chromium', use: { ...devices['Desktop Chrome'] }, dependencies: ['sign-in'] }
+		{ name: 'chromium', use: { ...devices['Desktop Chrome'] }, dependencies: ['sign-in'], testIgnore: EXCLUSIVE },
+		// Drills that take the shared database or app servers down run alone, after everything else and
+		// one after the other, so no journey meets an outage it did not cause.
+		{ name: 'fault-drill', testMatch: 'reliability.e2e.ts', use: { ...devices['Desktop Chrome'] }, dependencies: ['chromium'] },
+		{ name: 'cluster', testMatch: 'cluster.e2e.ts', use: { ...devices['Desktop Chrome'] }, dependencies: ['fault-drill'] }
 	],
 	webServer: {
 		command: 'node build',

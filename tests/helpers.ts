@@ -51,6 +51,9 @@ export async function continueAs(page: Page, email: string) {
 
 /** Goes on as a visitor: drops the page's session cookie without ending the session (a stored one stays good for the tests after). */
 export async function dropSession(page: Page) {
+	// Off the site first: a response still on its way (every signed-in answer renews the cookie) would
+	// set the cookie again after it was cleared.
+	await page.goto('about:blank');
 	await page.context().clearCookies({ name: SESSION_COOKIE });
 }
 
