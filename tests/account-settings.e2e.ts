@@ -44,12 +44,12 @@ test('without scripts, the page that answers the saved e-mail choices shows them
 	const plain = await browser.newContext({ javaScriptEnabled: false });
 	try {
 		const p = await plain.newPage();
-		await p.goto('/signin');
+		await openHydrated(p, '/signin');
 		await p.getByLabel('E-mail').fill(me.email);
 		await p.getByLabel('Password').fill(me.password);
 		await p.getByRole('button', { name: 'Sign in' }).click();
 		await expect(p).toHaveURL(/\/plans$/);
-		await p.goto('/account');
+		await openHydrated(p, '/account');
 		const notices = p.getByRole('region', { name: 'E-mail notices' });
 		await notices.getByLabel('New messages').uncheck();
 		await notices.getByRole('button', { name: 'Save e-mail choices' }).click();

@@ -35,7 +35,7 @@ test('a homeowner signs up, gets no session until the e-mailed link is followed,
 });
 
 test('bad sign-up input shows a message beside each field and keeps what was typed', async ({ page }) => {
-	await page.goto('/signup');
+	await openHydrated(page, '/signup');
 	await page.getByLabel('Your name').fill('Ivy Marsh');
 	await page.getByLabel('E-mail').fill('ivy-at-nowhere');
 	await page.getByLabel('Password', { exact: true }).fill('short');
@@ -110,7 +110,7 @@ test('admins reach /admin; a homeowner gets 403 there; a visitor is sent to sign
 	expect((await page.goto('/pro'))?.status()).toBe(403);
 	await signOut(page);
 
-	await page.goto('/admin');
+	await openHydrated(page, '/admin');
 	await expect(page).toHaveURL(/\/signin\?redirectTo=%2Fadmin$/);
 	await page.getByLabel('E-mail').fill(demoUser('admin').email);
 	await page.getByLabel('Password').fill(demoPassword);
@@ -124,12 +124,12 @@ test('password reset through the mailbox ends old sessions and the old password'
 	await expect(page).toHaveURL(/\/plans$/);
 
 	const other = await browser.newPage();
-	await other.goto('/forgot-password');
+	await openHydrated(other, '/forgot-password');
 	await other.getByLabel('E-mail').fill(email);
 	await other.getByRole('button', { name: 'Send the link' }).click();
 	await expect(other.getByText(`If an account uses ${email}`)).toBeVisible();
 	const link = await mailLink(other, email, /new Stakeline password/);
-	await other.goto(link);
+	await openHydrated(other, link);
 	await other.getByLabel('New password').fill('second-password-2');
 	await other.getByRole('button', { name: 'Save the new password' }).click();
 	await expect(other.getByText('Your password is changed.')).toBeVisible();

@@ -63,7 +63,7 @@ test.describe('the demo admin, signed in once for the run', () => {
 		await expect(theirs.getByText('This account is disabled.')).toBeVisible();
 		await expect(theirs).toHaveURL(/\/signin/);
 		// The sign-in link is refused too.
-		await theirs.goto('/signin/link');
+		await openHydrated(theirs, '/signin/link');
 		await theirs.getByLabel('E-mail').fill(owner.email);
 		await theirs.getByRole('button', { name: 'Send the link' }).click();
 		await expect(theirs.getByText(/a sign-in link is on its way/)).toBeVisible();

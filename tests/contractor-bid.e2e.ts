@@ -1,6 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { formatMoney } from '../src/lib/money';
-import { continueAs, demoPassword, demoUser, dropSession, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { continueAs, demoPassword, demoUser, dropSession, mailLink, openHydrated, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { approvedNewContractor, bumpPlanRevision, insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -32,7 +32,7 @@ test('a plan goes to two vetted contractors, both bid, the homeowner accepts one
 	const area = result.area.squareFeet;
 
 	// Get bids: the approved contractors around the plan's ZIP code, nearest first.
-	await page.goto(`/plans/${planId}/bids`);
+	await openHydrated(page, `/plans/${planId}/bids`);
 	await expect(page.getByTestId('match-count')).toContainText(/\d+ approved contractors serve/);
 	await expect(page.getByText('Mossgate Forms')).toHaveCount(0); // awaiting review: never offered
 	for (const box of await page.getByRole('checkbox').all()) await box.uncheck();
@@ -198,7 +198,7 @@ test('a contractor who has the plan learns of a newer revision and keeps seeing 
 	await signUp(page, { name: 'Orla Fenn', email: homeEmail, password: 'shed-pad-two', role: 'homeowner' });
 	await expect(page).toHaveURL(/\/plans$/);
 	const { id: planId } = await insertPlan(homeEmail, { name: 'Shed pad', postcode: '97330' });
-	await page.goto(`/plans/${planId}/bids`);
+	await openHydrated(page, `/plans/${planId}/bids`);
 	for (const box of await page.getByRole('checkbox').all()) await box.uncheck();
 	await page.getByRole('checkbox', { name: /Ridgeback Flatwork/ }).check();
 	await page.getByRole('button', { name: 'Send the plan' }).click();
@@ -225,7 +225,7 @@ test.describe('without JavaScript', () => {
 		await signUp(page, { name: 'Pia Stone', email: homeEmail, password: 'garden-walk-7', role: 'homeowner' });
 		await expect(page).toHaveURL(/\/plans$/);
 		const { id: planId } = await insertPlan(homeEmail, { name: 'Garden walk', postcode: '97370' });
-		await page.goto(`/plans/${planId}/bids`);
+		await openHydrated(page, `/plans/${planId}/bids`);
 		await page.getByLabel('What you want done').selectOption('pour_finish');
 		await page.getByRole('button', { name: 'Find contractors' }).click();
 		await expect(page).toHaveURL(/scope=pour_finish/);
@@ -234,7 +234,7 @@ test.describe('without JavaScript', () => {
 		await expect(page.getByText(/^Sent to \d+ contractors?\./)).toBeVisible();
 
 		await continueAs(page, 'june@quarrylaneslabs.example');
-		await page.goto('/pro/leads?status=new');
+		await openHydrated(page, '/pro/leads?status=new');
 		await page.getByTestId('lead-list').getByRole('link', { name: 'Garden walk' }).first().click();
 		await page.getByLabel('Total price (USD)').fill('1,350');
 		await page.getByLabel('Earliest start').fill(inDays(3));

@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { demoPassword, demoUser, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { demoPassword, demoUser, openHydrated, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -16,7 +16,7 @@ test('a contractor prices a lead from its spec sheet and bids from a phone', asy
 	await expect(page).toHaveURL(/\/plans$/);
 	// The first demo plan: a 14 ft × 12 ft rectangle, 4 in thick, fibres in the mix.
 	const { id: planId } = await insertPlan(homeEmail, { name: 'Kitchen patio', postcode: '97330' });
-	await page.goto(`/plans/${planId}/bids`);
+	await openHydrated(page, `/plans/${planId}/bids`);
 	for (const box of await page.getByRole('checkbox').all()) await box.uncheck();
 	await page.getByRole('checkbox', { name: /Ridgeback Flatwork/ }).check();
 	await page.getByLabel('Within a month').check();

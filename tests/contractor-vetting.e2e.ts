@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { continueAs, demoUser, dropSession, mailLink, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import { continueAs, demoUser, dropSession, mailLink, openHydrated, signIn, signOut, signUp, uniqueEmail } from './helpers';
 import { daysFromNow, fillProfile, pdf, pngCertificate } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -103,7 +103,7 @@ test.describe('without JavaScript', () => {
 		const email = uniqueEmail('nojs');
 		const business = `Brask Base & Form ${Date.now()}`;
 		await signUp(page, { name: 'Ivo Brask', email, password: 'plain-forms-ok', role: 'contractor' });
-		await page.goto('/pro/profile');
+		await openHydrated(page, '/pro/profile');
 		await page.getByLabel('Business name').fill(business);
 		await page.getByLabel('ZIP code').fill('00000');
 		await page.getByRole('button', { name: 'Send for review' }).click();
@@ -144,7 +144,7 @@ test.describe('without JavaScript', () => {
 		await signIn(page, email, 'plain-forms-ok');
 		await expect(page.getByRole('heading', { name: 'Sent back: documents needed' })).toBeVisible();
 		await expect(page.getByTestId('status-reason')).toHaveText('Please upload the insurance certificate, not the licence twice.');
-		await page.goto(await mailLink(page, email, /profile was sent back/, { timeout: 60_000 }));
+		await openHydrated(page, await mailLink(page, email, /profile was sent back/, { timeout: 60_000 }));
 		await expect(page).toHaveURL(/\/pro\/profile$/);
 		await expect(page.getByTestId('sent-back')).toContainText('Please upload the insurance certificate, not the licence twice.');
 		await page.getByLabel('Insurance certificate').setInputFiles(pdf('brask-insurance'));

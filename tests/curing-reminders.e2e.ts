@@ -7,7 +7,7 @@ import ical from 'node-ical';
 import postgres from 'postgres';
 import { curingReminders } from '../src/lib/plan/reminders';
 import demoPlans from '../fixtures/demo-plans.json' with { type: 'json' };
-import { signUp, uniqueEmail, watchErrors } from './helpers';
+import { openHydrated, signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertPlan } from './pro-helpers';
 
 test.use({ timezoneId: 'America/Denver' });
@@ -24,7 +24,7 @@ test('a homeowner turns on curing reminders, adds the plan to a calendar, and st
 		const pourDate = input.conditions.pourDate;
 		const days = curingReminders(input, pourDate);
 
-		await page.goto(`/plans/${id}`);
+		await openHydrated(page, `/plans/${id}`);
 		const section = page.getByRole('region', { name: 'Curing days' });
 		const status = section.getByTestId('reminder-status');
 		await expect(status).toContainText(`Off. When on, you get an e-mail at 07:00 (America/Denver) on each of the ${days.length} curing days`);
@@ -129,8 +129,9 @@ test('a mail program stops the reminders with one click (RFC 8058); other cross-
 		const input = demoPlans.plans[0].input as { conditions: { pourDate: string } };
 		const days = curingReminders(input, input.conditions.pourDate);
 
-		// By keyboard: the switch is a 44 px row, and Space turns it on and off again.
-		await page.goto(`/plans/${id}`);
+		// By keyboard: the switch is a 44 px row, and Space turns it on and off again. Pressed before
+		// hydration, Space only ticks the box and nothing is sent (seen with two browsers at a time).
+		await openHydrated(page, `/plans/${id}`);
 		const section = page.getByRole('region', { name: 'Curing days' });
 		const box = section.getByLabel('E-mail me curing reminders');
 		expect((await section.locator('label').filter({ hasText: 'E-mail me curing reminders' }).boundingBox())!.height).toBeGreaterThanOrEqual(44);

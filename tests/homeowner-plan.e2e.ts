@@ -168,7 +168,7 @@ test('a new homeowner who keeps the starter plan as it is can save it from the r
 
 test('a signed-out visitor’s draft is kept through sign-up and lands in the new account', async ({ page }) => {
 	test.setTimeout(120_000);
-	await page.goto('/');
+	await openHydrated(page, '/');
 	expect(await seriousViolations(page)).toEqual([]);
 	await page.getByRole('link', { name: 'Start a plan' }).click();
 	await expect(page.getByTestId('local-banner')).toBeVisible();
@@ -195,7 +195,7 @@ test('a draft started signed out is offered on My plans after a sign-up from the
 	test.setTimeout(120_000);
 	const errors: string[] = [];
 	page.on('pageerror', (e) => errors.push(e.message));
-	await page.goto('/plans/new');
+	await openHydrated(page, '/plans/new');
 	await page.getByLabel('Plan name').fill('Side path draft');
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');
 	// The header's "Create account" carries no way back to the planner: the account opens on My plans.
@@ -238,7 +238,7 @@ test('two tabs editing one plan: the stale one is refused and offered the newer 
 	const { plan } = await created.json();
 	const other = await context.newPage();
 	await page.goto(`/plans/${plan.id}/edit`);
-	await other.goto(`/plans/${plan.id}/edit`);
+	await openHydrated(other, `/plans/${plan.id}/edit`);
 
 	await page.getByLabel('Plan name').fill('Walkway to the shed');
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved');

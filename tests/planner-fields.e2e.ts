@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { newPlanSignedUp, savedPlanId, watchErrors, wizardStep as goTo } from './helpers';
+import { newPlanSignedUp, openHydrated, savedPlanId, watchErrors, wizardStep as goTo } from './helpers';
 
 // Every step of a new plan, as a visitor types: each number field gets a new value and each
 // select a new choice. A field added later without an entry below still gets typed into (the
@@ -235,7 +235,7 @@ async function readEveryStep(page: Page, skip = /^shape-/) {
 test('a new visitor types into every field of every step: no page error, and the results follow', async ({ page }) => {
 	test.setTimeout(300_000);
 	const errors = watchErrors(page);
-	await page.goto('/plans/new');
+	await openHydrated(page, '/plans/new');
 	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
 	const before = await page.getByTestId('result-bags').textContent();
 	// A pour day already gone gets a note; a day ahead does not.

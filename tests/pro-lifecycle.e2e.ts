@@ -2,7 +2,7 @@ import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
 import { formatDay, formatDayLong } from '../src/lib/reader';
 import { respondBy } from '../src/lib/leads';
-import { continueAs, demoPassword, dropSession, mailLink, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
+import { continueAs, demoPassword, dropSession, mailLink, openHydrated, signIn, signOut, signUp, uniqueEmail, watchErrors } from './helpers';
 import { insertPlan } from './pro-helpers';
 
 // Long journeys on a shared machine: give each the time a slow run needs.
@@ -36,7 +36,7 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 	const { id: planId } = await insertPlan(homeEmail, { name: 'Porch pad', postcode: '97330' });
 
 	// Every field of the send form.
-	await page.goto(`/plans/${planId}/bids`);
+	await openHydrated(page, `/plans/${planId}/bids`);
 	await page.getByLabel('What you want done').selectOption('pour_finish');
 	await page.getByRole('button', { name: 'Find contractors' }).click();
 	await expect(page).toHaveURL(/scope=pour_finish/);
@@ -122,7 +122,7 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 
 	await signIn(page, homeEmail, 'garden-pad-done');
 	await expect(page).toHaveURL(/\/plans$/);
-	await page.goto(`/plans/${planId}/bids`);
+	await openHydrated(page, `/plans/${planId}/bids`);
 	const dell = page.getByTestId('bid-row').filter({ hasText: 'Ridgeback Flatwork' });
 	await dell.getByText('Accept…').click();
 	await dell.getByLabel('Site address').fill('7');
