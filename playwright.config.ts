@@ -21,6 +21,7 @@ export default defineConfig({
 	reporter: [['list']],
 	outputDir: 'test-results',
 	use: {
+		...devices['Desktop Chrome'],
 		baseURL,
 		screenshot: 'only-on-failure',
 		// No trace by default: recording one snapshots the page at every action, which took about half of
@@ -44,12 +45,12 @@ export default defineConfig({
 	},
 	projects: [
 		// Signs the demo accounts in once (tests/auth.setup.ts) for the tests that start signed in.
-		{ name: 'sign-in', testMatch: 'auth.setup.ts', use: { ...devices['Desktop Chrome'] } },
-		{ name: 'chromium', use: { ...devices['Desktop Chrome'] }, dependencies: ['sign-in'], testIgnore: EXCLUSIVE },
+		{ name: 'sign-in', testMatch: 'auth.setup.ts' },
+		{ name: 'chromium', dependencies: ['sign-in'], testIgnore: EXCLUSIVE },
 		// Drills that take the shared database or app servers down run alone, after everything else and
 		// one after the other, so no journey meets an outage it did not cause.
-		{ name: 'fault-drill', testMatch: 'reliability.e2e.ts', use: { ...devices['Desktop Chrome'] }, dependencies: ['chromium'] },
-		{ name: 'cluster', testMatch: 'cluster.e2e.ts', use: { ...devices['Desktop Chrome'] }, dependencies: ['fault-drill'] }
+		{ name: 'fault-drill', testMatch: 'reliability.e2e.ts', dependencies: ['chromium'] },
+		{ name: 'cluster', testMatch: 'cluster.e2e.ts', dependencies: ['fault-drill'] }
 	],
 	webServer: {
 		command: 'node build',

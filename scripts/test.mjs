@@ -52,7 +52,7 @@ try {
 	}
 	const opts = { cwd: root, env };
 	// The static checks (type check, Prettier, ESLint) read files only: they run one after another
-	// beside Playwright, filling the moments its browsers wait on the app, and their output is printed
+	// beside Playwright, sharing the cores with its two browsers, and their output is printed
 	// when each ends. Without end-to-end files they run first, as before.
 	const checks = [
 		['Type check (svelte-kit sync)', bin('svelte-kit'), ['sync']],

@@ -237,7 +237,7 @@ test('two tabs editing one plan: the stale one is refused and offered the newer 
 	expect(created.status()).toBe(201);
 	const { plan } = await created.json();
 	const other = await context.newPage();
-	await page.goto(`/plans/${plan.id}/edit`);
+	await openHydrated(page, `/plans/${plan.id}/edit`);
 	await openHydrated(other, `/plans/${plan.id}/edit`);
 
 	await page.getByLabel('Plan name').fill('Walkway to the shed');
