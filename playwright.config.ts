@@ -62,6 +62,9 @@ export default defineConfig({
 		env: {
 			...(process.env as Record<string, string>),
 			LOG_LEVEL: process.env.LOG_LEVEL ?? 'warn',
+			// The tests' request clients keep idle connections open; Node's 5 s keep-alive close could meet a
+			// request reusing one (ECONNRESET on a matrix POST under load), as nginx's did (docs/deploy.md).
+			KEEP_ALIVE_TIMEOUT: process.env.KEEP_ALIVE_TIMEOUT ?? '35',
 			PORT: String(port),
 			ORIGIN: baseURL,
 			ADMIN_EMAIL: process.env.ADMIN_EMAIL ?? 'first-admin@stakeline.test',
