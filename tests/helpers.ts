@@ -141,9 +141,11 @@ export async function signOut(page: Page) {
 /**
  * The first link of the newest message to `email` whose subject matches, read from the fake
  * mailbox. `timeout` (default 15 s) is how long to keep looking; pro journeys pass a longer one,
- * since on a loaded machine a page load alone can take seconds.
+ * since on a loaded machine a page load alone can take seconds. `mentioning` picks this journey's
+ * mail when journeys running beside it send the same address mail with the same subject (leads
+ * near one town).
  */
-export async function mailLink(page: Page, email: string, subject: RegExp, o: { timeout?: number } = {}): Promise<string> {
+export async function mailLink(page: Page, email: string, subject: RegExp, o: { timeout?: number; mentioning?: string } = {}): Promise<string> {
 	const timeout = o.timeout ?? 15_000;
 	let href: string | null = null;
 	await expect(async () => {
@@ -151,6 +153,7 @@ export async function mailLink(page: Page, email: string, subject: RegExp, o: { 
 		const mail = page
 			.getByTestId('mail')
 			.filter({ has: page.getByRole('heading', { name: subject }) })
+			.filter(o.mentioning ? { hasText: o.mentioning } : {})
 			.first();
 		href = await mail
 			.getByTestId('mail-link')

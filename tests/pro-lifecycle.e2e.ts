@@ -62,7 +62,7 @@ test('a homeowner closes a request without hiring; the firm sees the respond-by 
 	await signOut(page);
 	await signIn(page, DELL, demoPassword);
 	await expect(page).toHaveURL(/\/pro$/);
-	const leadUrl = await mailLink(page, DELL, /New lead near Corvallis, OR/, { timeout: 60_000 });
+	const leadUrl = await mailLink(page, DELL, /New lead near Corvallis, OR/, { timeout: 60_000, mentioning: 'Porch pad' });
 	await page.goto(leadUrl);
 	await expect(page.getByTestId('firms-asked')).toHaveText('You are the only firm asked for this plan.');
 	await expect(page.getByTestId('respond-by')).toContainText(formatDayLong(due, 'en-GB'));
@@ -113,7 +113,7 @@ test('the hired firm alone gets the site address and phone; the homeowner marks 
 	]) {
 		await signIn(page, email, demoPassword);
 		await expect(page).toHaveURL(/\/pro$/);
-		leads[email] = await mailLink(page, email, /New lead near Corvallis, OR/, { timeout: 60_000 });
+		leads[email] = await mailLink(page, email, /New lead near Corvallis, OR/, { timeout: 60_000, mentioning: 'Garden pad' });
 		await page.goto(leads[email]);
 		await expect(page.getByTestId('firms-asked')).toHaveText('2 firms were asked for this plan.');
 		await sendBid(page, total);
