@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { newPlanSignedUp, openHydrated, savedPlanId, watchErrors, wizardStep as goTo } from './helpers';
+import { newPlanSignedUp, openHydrated, reloadHydrated, savedPlanId, watchErrors, wizardStep as goTo } from './helpers';
 
 // Every step of a new plan, as a visitor types: each number field gets a new value and each
 // select a new choice. A field added later without an entry below still gets typed into (the
@@ -156,8 +156,10 @@ async function fillEveryStep(page: Page) {
 		await ab.blur();
 		await expect(ab).toHaveValue(bad);
 		await expect(ab).toHaveAttribute('aria-invalid', 'true');
-		await expect(page.getByRole('alert').filter({ hasText: why })).toBeVisible();
+		// The drawing and figures keep the old outline, and the reason says so.
+		await expect(page.getByRole('alert').filter({ hasText: why })).toContainText('The drawing and figures still use 15 ft.');
 		await expect(page.getByLabel('Length of edge C–D in ft')).toHaveValue('15');
+		await expect(page.getByTestId('result-area')).toHaveText('150 ft²');
 	}
 	await ab.fill('15');
 	await ab.blur();
@@ -260,6 +262,33 @@ test('a new visitor types into every field of every step: no page error, and the
 	expect(errors).toEqual([]);
 });
 
+test('signed out, a field out of range and every edit after it are kept through a reload', async ({ page }) => {
+	const errors = watchErrors(page);
+	await openHydrated(page, '/plans/new');
+	await goTo(page, 'Build-up');
+	// 40 in is past the engine's 2–12 in, so the plan is refused while it stands.
+	const thickness = stepBody(page).locator('#thickness');
+	await thickness.fill('40');
+	await thickness.blur();
+	await expect(thickness).toHaveAttribute('aria-invalid', 'true');
+	await goTo(page, 'Crew');
+	await stepBody(page).locator('#people').fill('3');
+	await stepBody(page).locator('#people').blur();
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');
+	await reloadHydrated(page);
+	await goTo(page, 'Crew');
+	await expect(stepBody(page).locator('#people')).toHaveValue('3');
+	await goTo(page, 'Build-up');
+	await expect(stepBody(page).locator('#thickness')).toHaveValue('40');
+	await expect(stepBody(page).locator('#thickness')).toHaveAttribute('aria-invalid', 'true');
+	// Mended, the plan computes again from what was kept.
+	await stepBody(page).locator('#thickness').fill('5');
+	await stepBody(page).locator('#thickness').blur();
+	await expect(stepBody(page).locator('#thickness')).not.toHaveAttribute('aria-invalid');
+	await expect(page.getByTestId('result-bags')).toHaveText(/^\d+$/);
+	expect(errors).toEqual([]);
+});
+
 test('signed in, every typed value is saved and comes back after a reload', async ({ page }) => {
 	test.setTimeout(300_000);
 	const errors = watchErrors(page);
@@ -292,6 +321,16 @@ test('units imperial → metric → imperial leave every typed value unchanged',
 	// In metric every field, the shape sizes included, reads to the millimetre: no float noise.
 	const metric = await readEveryStep(page, /^$/);
 	for (const [id, v] of Object.entries(metric)) expect(v.split('.')[1]?.length ?? 0, `${id} = ${v}`).toBeLessThanOrEqual(3);
+	// The crew step (on screen after the read) words its hints in the plan's units alone.
+	const crew = stepBody(page);
+	await expect(crew.getByLabel('Minutes to wheel and place 36 kg of mix')).toBeVisible();
+	await expect(crew.getByLabel('How long the mix stays workable at 21 °C')).toBeVisible();
+	await expect(crew).toContainText('0.019 m³ per 40 kg'); // 0.60 ft³ per 80 lb × 0.0283 m³/ft³ × 40 ÷ 36.29 kg (bag labels)
+	// No step of a metric plan words a figure in imperial units.
+	for (const title of ['Site', 'Outline', 'Pitch', 'Build-up', 'Crew']) {
+		await goTo(page, title);
+		await expect(stepBody(page), title).not.toContainText(/\d\s?(lb|°F|psi|mph|yd³|ft²|ft³|gal|ft)\b|\d\s?in\b(?! two)/);
+	}
 	await goTo(page, 'Outline');
 	// The outline was moved off the rectangle's origin, so the shape form keeps what was typed
 	// there, converted: 14 ft × 0.3048 = 4.2672 → 4.267 m; the edge A–B is 15 ft = 4.572 m.

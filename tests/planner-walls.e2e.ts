@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { newPlanSignedUp, savedPlanId as saved, watchErrors, wizardStep as goTo } from './helpers';
+import { newPlanSignedUp, openHydrated, savedPlanId as saved, watchErrors, wizardStep as goTo } from './helpers';
 
 const wallBox = (page: Page, edge: string) => page.getByLabel(`House wall along edge ${edge}`);
 const housesDrawn = (page: Page) => page.locator('svg line[data-house]');
@@ -127,5 +127,33 @@ test('a freestanding shed pad with a chosen high edge, in two pours, saved and r
 	expect(stored.houseEdge).toBeNull();
 	expect(stored.sections).toHaveLength(2);
 	expect(stored.slope.highEdge).toEqual({ section: 1, edge: 1 });
+	expect(errors).toEqual([]);
+});
+
+test('with every edge a house wall there is no trench, so chunks are not offered; a plan that loses its trench can let them go', async ({ page }) => {
+	const errors = watchErrors(page);
+	await openHydrated(page, '/plans/new');
+	await goTo(page, 'Build-up');
+	await page.locator('#edges').selectOption('free');
+	const chunks = page.getByLabel('Lay broken concrete chunks in the trench');
+	await chunks.check();
+	await expect(page.getByTestId('no-trench')).toHaveCount(0);
+	// Walls on all four sides (a slab filling a courtyard): no edge is thickened any more.
+	await goTo(page, 'Outline');
+	await expect(wallBox(page, 'A–B')).toBeChecked();
+	for (const edge of ['B–C', 'C–D', 'D–A']) await wallBox(page, edge).check();
+	await goTo(page, 'Build-up');
+	await expect(page.getByTestId('no-trench')).toBeVisible();
+	// Still ticked, so still shown, with the engine's reason, until the visitor lets the chunks go.
+	await expect(page.locator('#fill-share-error')).toHaveText('Chunk fill goes in a thickened-edge trench, and this plan has none.');
+	await chunks.click(); // not uncheck(): the box goes as it is cleared, and uncheck() waits to see it cleared
+	await expect(chunks).toHaveCount(0);
+	await expect(page.getByTestId('result-bags')).toHaveText(/^\d+$/);
+	// One edge away from the house again: the trench, and the offer, come back.
+	await goTo(page, 'Outline');
+	await wallBox(page, 'C–D').uncheck();
+	await goTo(page, 'Build-up');
+	await expect(page.getByTestId('no-trench')).toHaveCount(0);
+	await expect(chunks).not.toBeChecked();
 	expect(errors).toEqual([]);
 });

@@ -62,6 +62,12 @@ test('every admin page is axe-clean and fits a 390 px phone', async ({ page }) =
 	await continueAs(page, demoUser('admin').email);
 	await checkPage(page, '/admin', found);
 	await checkPage(page, '/admin/users', found);
+	// An address reads in pieces of a dozen letters or more, not a few (the table scrolls sideways instead).
+	const emailWidths = await page
+		.getByTestId('users-table')
+		.locator('tbody td:nth-child(2)')
+		.evaluateAll((tds) => tds.map((td) => td.getBoundingClientRect().width));
+	expect(Math.min(...emailWidths)).toBeGreaterThanOrEqual(180);
 	await checkPage(page, '/admin/users?role=contractor&status=approved&q=FH-CC', found);
 	await page.getByTestId('users-table').getByRole('link', { name: 'Ridgeback Flatwork' }).click();
 	await checkPage(page, new URL(page.url()).pathname, found);

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
 import { completeInput, PlanDraft, starterInput } from './draft.svelte';
-import { editableCopy, sameData } from './editable';
+import { editableCopy, overlay, sameData } from './editable';
 import { EditHistory } from './history.svelte';
 import { detectPreset, presetCrossFall, presetHouse, presetOutline, presetProblem } from './presets';
 import { lShape } from './shapes';
@@ -57,6 +57,37 @@ describe('the plan the wizard edits', () => {
 		expect(copy).toEqual({ a: [1, 2], b: { c: 4 } });
 		expect(sameData({ a: 1, b: undefined }, { a: 1 })).toBe(true);
 		expect(sameData({ a: [1, 2] }, { a: [1, 2, 3] })).toBe(false);
+	});
+
+	it('overlay keeps what was typed, out of range or emptied, and fills what a damaged draft lacks', () => {
+		const starter = starterInput();
+		const typed = editableCopy(starter);
+		typed.units = 'metric';
+		typed.thickness = 9000; // out of range: the engine refuses it
+		(typed.crew as { people: unknown }).people = null; // an emptied number field
+		typed.sections.push({
+			outline: [
+				[0, 0],
+				[5, 0],
+				[5, 2],
+				[3, 2],
+				[3, 4],
+				[0, 4]
+			]
+		});
+		expect(completeInput(typed)).toBeNull();
+		expect(overlay(starter, typed)).toEqual(typed);
+		// A draft that lost a whole part, or holds text where a number goes, gets the template's.
+		const damaged = editableCopy(typed) as Record<string, unknown>;
+		delete damaged.crew;
+		damaged.wastePercent = 'ten';
+		(damaged.sections as { outline: unknown }[])[1].outline = 'square';
+		const mended = overlay(starter, damaged);
+		expect(mended.crew).toEqual(starter.crew);
+		expect(mended.wastePercent).toBe(starter.wastePercent);
+		expect(mended.sections[1].outline).toEqual(starter.sections[0].outline);
+		expect(mended.thickness).toBe(9000);
+		expect(overlay(starter, 'not a plan')).toEqual(starter);
 	});
 });
 
@@ -185,6 +216,39 @@ describe('walls through outline changes', () => {
 			{ section: 0, edge: 2 }
 		]);
 		expect(draft.outcome.ok).toBe(true);
+	});
+});
+
+describe('the thickened-edge trench', () => {
+	it('is there while an edge away from the house is thickened, and gone once every edge is a wall', () => {
+		const draft = new PlanDraft({
+			name: 'Pad',
+			input: completeInput({
+				units: 'imperial',
+				sections: [
+					{
+						outline: [
+							[0, 0],
+							[10, 0],
+							[10, 8],
+							[0, 8]
+						]
+					}
+				]
+			})!
+		});
+		expect(draft.hasTrench).toBe(false); // thickened edges: none
+		draft.input.thickenedEdge.edges = 'free';
+		expect(draft.hasTrench).toBe(true);
+		draft.houseEdges = [0, 1, 2, 3].map((edge) => ({ section: 0, edge }));
+		expect(draft.outcome.ok).toBe(true);
+		expect(draft.hasTrench).toBe(false);
+		// Chunks in that plan are refused by the engine; the draft still knows there is no trench.
+		draft.input.fill = { shareOfTrench: 0.3, largestPiece: 4 } as never;
+		expect(draft.errors.fill).toBe('Chunk fill goes in a thickened-edge trench, and this plan has none.');
+		expect(draft.hasTrench).toBe(false);
+		draft.houseEdges = [{ section: 0, edge: 0 }];
+		expect(draft.hasTrench).toBe(true);
 	});
 });
 

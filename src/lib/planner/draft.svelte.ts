@@ -82,6 +82,17 @@ export class PlanDraft {
 	result = $derived(this.outcome.ok ? this.outcome.plan : null);
 	/** Engine messages by dotted path ("sections.0.outline"), for the field that caused them. */
 	errors = $derived(this.outcome.ok ? {} : (Object.fromEntries(this.outcome.errors.map((e) => [e.path, e.message])) as Record<string, string>));
+	/**
+	 * Whether any edge is thickened, so chunk fill has a trench to go in: the engine's answer while
+	 * the plan computes; while it does not, a plan whose every edge is a house wall has none.
+	 */
+	hasTrench = $derived.by(() => {
+		const spec = this.#input.thickenedEdge.edges;
+		if (spec === 'none') return false;
+		if (Array.isArray(spec)) return spec.length > 0;
+		if (this.result) return this.result.geometry.sections.some((s) => s.edges.some((e) => e.thickened));
+		return this.#input.sections.some((s, section) => s.outline.some((_, edge) => !this.isHouseEdge({ section, edge })));
+	});
 
 	/** Messages whose path starts with one of the prefixes: what a wizard step shows. */
 	errorsUnder(...prefixes: string[]): [string, string][] {
