@@ -4,7 +4,20 @@ import { expect, test, type Page } from '@playwright/test';
 import sharp from 'sharp';
 import { computePlan } from '../src/lib/plan/index';
 import { formatVolume } from '../src/lib/plan/format';
-import { demoPassword, demoUser, mailLink, openHydrated, savedPlanId, sessionFile, signIn, signOut, signUp, uniqueEmail } from './helpers';
+import {
+	demoPassword,
+	demoUser,
+	mailLink,
+	openHydrated,
+	savedPlanId,
+	sessionFile,
+	signIn,
+	signOut,
+	signUp,
+	uniqueEmail,
+	watchErrors,
+	wizardStep
+} from './helpers';
 import { pdfText } from './pdf-text';
 
 const fmt = (v: number, digits = 1) => v.toLocaleString('en', { maximumFractionDigits: digits });
@@ -209,6 +222,33 @@ test('a draft started signed out is offered on My plans after a sign-up from the
 	await page.goto('/plans');
 	await expect(page.getByTestId('plan-item')).toContainText('Side path draft');
 	// Saved, it is no longer offered.
+	await expect(page.getByTestId('browser-draft')).toHaveCount(0);
+	expect(errors).toEqual([]);
+});
+
+test('a draft left with a marked field is carried into the account unsaved, says so, and saves once fixed', async ({ page }) => {
+	test.setTimeout(120_000);
+	const errors = watchErrors(page);
+	await openHydrated(page, '/plans/new');
+	await page.getByLabel('Plan name').fill('Steep step draft');
+	await wizardStep(page, 'Build-up');
+	await page.locator('#thickness').fill('40'); // past the 2–12 in the engine takes
+	await page.locator('#thickness').blur();
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');
+	await signUp(page, { name: 'Lale Marked', email: uniqueEmail('marked'), password: 'marked-field-kept' });
+	await page.goto('/plans');
+	await page.getByTestId('browser-draft').getByRole('link', { name: 'Save it to my plans' }).click();
+	await expect(page.getByTestId('claim-waiting')).toContainText('not saved to your account yet');
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'invalid');
+	await expect(page).toHaveURL(/\/plans\/new$/);
+	await wizardStep(page, 'Build-up');
+	await expect(page.locator('#thickness')).toHaveValue('40');
+	await page.locator('#thickness').fill('5');
+	await page.locator('#thickness').blur();
+	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/, { timeout: 15_000 });
+	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved');
+	await page.goto('/plans');
+	await expect(page.getByTestId('plan-item')).toContainText('Steep step draft');
 	await expect(page.getByTestId('browser-draft')).toHaveCount(0);
 	expect(errors).toEqual([]);
 });
