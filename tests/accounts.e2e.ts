@@ -182,3 +182,16 @@ test.describe('without JavaScript', () => {
 		await expect(page.getByRole('link', { name: 'Sign in' })).toBeVisible();
 	});
 });
+
+test('on a 390 px phone a long address on the check-your-mail page wraps inside the card', async ({ page }) => {
+	await page.setViewportSize({ width: 390, height: 844 });
+	const email = uniqueEmail('a-rather-long-address-for-a-phone');
+	await openHydrated(page, '/signup');
+	await page.getByLabel('Your name').fill('Wren Longfield');
+	await page.getByLabel('E-mail').fill(email);
+	await page.getByLabel('Password', { exact: true }).fill('long-address-wraps');
+	await page.getByRole('button', { name: 'Create account' }).click();
+	await expect(page.getByText(`We sent a message to ${email}`)).toBeVisible();
+	const { scroll, client } = await page.evaluate(() => ({ scroll: document.documentElement.scrollWidth, client: document.documentElement.clientWidth }));
+	expect(scroll).toBeLessThanOrEqual(client);
+});

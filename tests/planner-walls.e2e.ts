@@ -157,3 +157,24 @@ test('with every edge a house wall there is no trench, so chunks are not offered
 	await expect(chunks).not.toBeChecked();
 	expect(errors).toEqual([]);
 });
+
+test('the pitch step’s advice for a wall that drains toward the house fits where the wall lies', async ({ page }) => {
+	const errors = watchErrors(page);
+	await openHydrated(page, '/plans/new');
+	await goTo(page, 'Pitch');
+	const wall = page.getByLabel('Resulting pitch').locator('div', { hasText: 'Away from wall A–B' });
+	// High side opposite the wall: the fall runs straight at it; only moving the high side helps.
+	await page.getByLabel('High side').selectOption({ label: 'edge C–D' });
+	await expect(wall).toContainText('toward the house');
+	await expect(wall).toContainText('Choose this wall as High side');
+	await expect(wall).not.toContainText('Cross fall');
+	// High side square to the wall: the wall is level, and a cross fall runs water off it.
+	await page.getByLabel('High side').selectOption({ label: 'edge B–C' });
+	await expect(wall).toContainText('Level: no fall');
+	await expect(wall).toContainText('Set Cross fall below');
+	// Positive runs toward C, away from wall A–B: 2.5 % meets the 2 % of IRC R401.3.
+	await page.getByLabel('Cross fall').fill('2.5');
+	await page.getByLabel('Cross fall').blur();
+	await expect(wall).toContainText('2.5 % ✓ IRC R401.3');
+	expect(errors).toEqual([]);
+});

@@ -119,7 +119,13 @@ describe('plan-specific cautions', () => {
 		const high = c({ houseEdge: { section: 0, edge: 0 }, slope: { highEdge: { section: 0, edge: 2 } } });
 		expect(high.reason).toMatch(/house wall edge A–B /);
 		expect(high.reason).toMatch(/falls \d[\d.]* % toward the house/);
-		expect(high.action).toMatch(/Pitch step.*High side.*Cross fall/);
+		// The wall faces the high side, so the fall runs straight at it and a cross fall (along the high side) cannot turn it.
+		expect(high.action).toMatch(/Pitch step, choose the house wall edge A–B as High side: .*cross fall.*cannot turn it/);
+		expect(high.action).not.toMatch(/enter a Cross fall/);
+		// A wall square to the high side: a cross fall along the high side does run water off it.
+		const side = c({ houseEdge: { section: 0, edge: 1 }, slope: { highEdge: { section: 0, edge: 2 } } });
+		expect(side.reason).toMatch(/edge B–C the surface is level/);
+		expect(side.action).toMatch(/Pitch step, choose the house wall edge B–C as High side, or enter a Cross fall/);
 		const level = c({ houseEdge: { section: 0, edge: 0 }, slope: { fall: { value: 0, unit: 'percent' } } });
 		expect(level.reason).toMatch(/edge A–B the surface is level/);
 		expect(level.action).toMatch(/Pitch step, raise Fall/);
@@ -129,7 +135,7 @@ describe('plan-specific cautions', () => {
 			slope: { highEdge: { section: 0, edge: 3 } }
 		});
 		expect(two.reason).toMatch(/edge 2B–2C of Walk/);
-		for (const x of [high, level, two]) expect(`${x.reason} ${x.action}`).not.toMatch(/slope\.|highEdge|edge \d+[ ,.]/);
+		for (const x of [high, side, level, two]) expect(`${x.reason} ${x.action}`).not.toMatch(/slope\.|highEdge|edge \d+[ ,.]/);
 	});
 
 	it('warns when the slab would finish above the door sill, and names an unnamed reference', () => {

@@ -7,6 +7,7 @@ import type { JointsResult } from './joints';
 import type { MixingResult } from './mixing';
 import { NIOSH_LOAD_CONSTANT_KG } from './mixing';
 import type { Model } from './model';
+import { CROSS_FALL_MIN_SINE, edgeSine } from './polygon';
 import { MPA_PER_PSI, M_PER_IN } from './units';
 import { filterList, mapList } from './util';
 import type { VolumeResult } from './volume';
@@ -226,13 +227,18 @@ const drainage: Rule[] = [
 		const worst = -Math.min(...bad.map((h) => h.fallAway.percent));
 		const high = m.highEdge;
 		const highIsBad = bad.some((h) => h.section === high.section && h.edge === high.edge);
+		const outline = (s: number) => m.sections[s].outline;
+		// Beside a wall parallel to the high side the fall runs straight at it; a cross fall runs along it.
+		const crossHelps = bad.every((h) => edgeSine(outline(h.section), h.edge, outline(high.section), high.edge) >= CROSS_FALL_MIN_SINE);
 		return {
 			id: 'water-toward-foundation',
 			title: 'Water would run toward the foundation',
 			reason: `Along the house wall ${walls.join(' and ')} the surface ${worst > 0.005 ? `falls ${one(worst, 2)} % toward the house` : 'is level, so water stands against the house'}.`,
 			action: highIsBad
 				? `In the Pitch step, raise Fall so the surface falls at least 2 % away from the house wall ${walls[0]}.`
-				: `In the Pitch step, choose the house wall ${walls[0]} as High side, or enter a Cross fall (under "Fall along the high side") so every house wall falls away from the house.`,
+				: crossHelps
+					? `In the Pitch step, choose the house wall ${walls[0]} as High side, or enter a Cross fall (under "Fall along the high side") so every house wall falls away from the house.`
+					: `In the Pitch step, choose the house wall ${walls[0]} as High side: the fall now runs from the high side straight toward it, and a cross fall, which runs along the high side, cannot turn it.`,
 			source: 'IRC R401.3',
 			severity: 'danger'
 		};

@@ -24,6 +24,19 @@ export const cross = (a: Pt, b: Pt, p: Pt) => (b[0] - a[0]) * (p[1] - a[1]) - (b
 
 export const next = (poly: readonly Pt[], i: number) => poly[i + 1 === poly.length ? 0 : i + 1];
 
+/** |sin| of the angle between edge i of p and edge j of q: 0 when they run parallel, 1 when square. */
+export function edgeSine(p: readonly Pt[], i: number, q: readonly Pt[], j: number): number {
+	const u = unit(sub(next(p, i), p[i]));
+	const v = unit(sub(next(q, j), q[j]));
+	return Math.abs(u[0] * v[1] - u[1] * v[0]);
+}
+
+/**
+ * A cross fall runs along the high side, so it tilts a wall's fall only in proportion to the sine
+ * between them: beside a wall nearly parallel to the high side (under 1 in 10) it cannot help.
+ */
+export const CROSS_FALL_MIN_SINE = 0.1;
+
 /** Shoelace area, positive for counter-clockwise order. */
 export function signedArea(poly: readonly Pt[]): number {
 	let s = 0;
