@@ -101,6 +101,8 @@ async function buildUp(page: Page) {
 
 	await expect(page.locator('[id^="board-length-"]')).toHaveCount(4);
 	await page.getByRole('button', { name: 'Add a length' }).click();
+	// 8, 10, 12 and 16 ft are all listed: the new one is 2 ft longer than the longest.
+	await expect(page.locator('#board-length-4')).toHaveValue('18');
 	await typeInto(page, 'board-length-4', '20');
 	await page.getByRole('button', { name: 'Remove board length 1' }).click();
 	await expect(page.locator('[id^="board-length-"]')).toHaveCount(4);
@@ -122,6 +124,8 @@ async function crew(page: Page) {
 	await typeInto(page, 'bag-size-1', '50');
 	await typeInto(page, 'bag-yield-1', '0.375');
 	await page.getByRole('button', { name: 'Add a bag size' }).click();
+	// 80, 50 and 40 lb are listed: the new row starts at the first usual size that is not, 60 lb.
+	await expect(page.locator('#bag-size-3')).toHaveValue('60');
 	await typeInto(page, 'bag-size-3', '90');
 	await page.getByRole('button', { name: 'Remove bag 4' }).click();
 	await expect(page.locator('[id^="bag-size-"]')).toHaveCount(3);
