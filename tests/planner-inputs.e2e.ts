@@ -1,6 +1,6 @@
 import AxeBuilder from '@axe-core/playwright';
 import { expect, test, type Page } from '@playwright/test';
-import { newPlanSignedUp, savedPlanId, watchErrors, wizardStep as goTo } from './helpers';
+import { newPlanSignedUp, openHydrated, savedPlanId, watchErrors, wizardStep as goTo } from './helpers';
 import { pdfText } from './pdf-text';
 
 // The engine inputs that got their own wizard fields: exposure, the day-by-day forecast, concrete
@@ -254,6 +254,47 @@ test("a freestanding pad's chosen high edge is marked on the plan page: 2D view,
 	expect(text).toContain('High side edge C–D');
 	expect(text).toContain('Green dashes: the high side, edge C–D');
 	expect(text).toContain('HIGH SIDE');
+	expect(errors).toEqual([]);
+});
+
+test('day by day, a low typed into one day changes only that day, and an emptied low stays empty and uses its mean', async ({ page }) => {
+	test.setTimeout(90_000);
+	const errors = watchErrors(page);
+	await openHydrated(page, '/plans/new');
+	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
+	await typeInto(page, 'pour-date', '2031-05-01');
+	await page.getByLabel('Enter the forecast day by day').check();
+	const low = (day: number) => page.getByLabel(`Day ${day} low in °F`);
+	const otherLowsEmpty = async (but?: number) => {
+		for (let day = 1; day <= 7; day++) if (day !== but) await expect(low(day), `day ${day}'s low`).toHaveValue('');
+	};
+	// What this browser keeps of the signed-out plan: the lows as the engine reads them.
+	const keptLows = () => page.evaluate(() => JSON.parse(localStorage.getItem('stakeline:draft') ?? '{}').input?.conditions.airLow);
+	await otherLowsEmpty();
+
+	await low(2).click();
+	await page.keyboard.type('50');
+	await expect(low(2)).toHaveValue('50');
+	await otherLowsEmpty(2);
+	await expect.poll(keptLows).toEqual([null, 50, null, null, null, null, null]);
+	await page.keyboard.press('Backspace');
+	await page.keyboard.press('Backspace');
+	await expect(low(2)).toHaveValue('');
+	await low(2).blur();
+	await otherLowsEmpty();
+	await expect.poll(keptLows).toBeUndefined();
+
+	// An empty low follows its day's mean: a 38 °F mean on day 1 is a cold day (≤ 40 °F, ACI 306R).
+	await expect(cautions(page).filter({ hasText: 'Cold weather' })).toHaveCount(0);
+	await typeInto(page, 'air-temp-0', '38');
+	await expect(low(1)).toHaveValue('');
+	await expect(cautions(page).filter({ hasText: 'Cold weather' })).toHaveCount(1);
+	await typeInto(page, 'air-temp-0', '60');
+	await expect(cautions(page).filter({ hasText: 'Cold weather' })).toHaveCount(0);
+	await typeInto(page, 'air-low-2', '45');
+	await typeInto(page, 'air-temp-0', '62');
+	await expect(low(3)).toHaveValue('45');
+	await otherLowsEmpty(3);
 	expect(errors).toEqual([]);
 });
 

@@ -166,6 +166,9 @@ describe('plan-specific cautions', () => {
 		expect(ids({ conditions: { airTemp: 38 } })).toContain('cold-weather'); // 38 °F ≤ 40 °F, ACI 306R
 		expect(ids({ conditions: { airTemp: 55, airLow: 34 } })).toContain('cold-weather'); // a 34 °F night, ACI 306R
 		expect(ids({ conditions: { airTemp: 55, airLow: 45 } })).not.toContain('cold-weather');
+		// Day by day, a day without its own low (null) uses its own mean: 38 °F ≤ 40 °F on day 2, ACI 306R.
+		expect(ids({ conditions: { airTemp: [55, 38, 55], airLow: [45, null, 45] } })).toContain('cold-weather');
+		expect(ids({ conditions: { airTemp: [55, 45, 55], airLow: [45, null, 45] } })).not.toContain('cold-weather');
 		expect(ids({ conditions: { airTemp: 48 } })).toContain('cool-curing'); // ≤ 50 °F, ACI 318-19 §26.5.3.1
 		expect(ids({ conditions: { airTemp: 98 } })).toContain('hot-weather'); // 98 °F > 95 °F, ACI 305R
 		expect(ids({ conditions: { airTemp: 90, humidity: 20, wind: 15 } })).toContain('evaporation'); // Uno 1998 vs ACI 305R

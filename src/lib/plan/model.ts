@@ -119,8 +119,8 @@ export interface Model {
 	};
 	/** Daily mean air temperature from the first pour day on, °C. */
 	airTemps: number[];
-	/** Daily low air temperature from the first pour day on, °C; empty when not given. */
-	airLows: number[];
+	/** Daily low air temperature from the first pour day on, °C; empty when not given, null on a day without its own. */
+	airLows: (number | null)[];
 	humidity: number;
 	windKmh: number;
 	concreteTemp?: number;
@@ -277,8 +277,8 @@ export function toModel(p: ParsedPlan): Model {
 			payloadKg: massToKg(p.crew.payload, u)
 		},
 		airTemps: mapNumbers(temps, (t) => tempToC(t, u)),
-		airLows: mapNumbers(p.conditions.airLow === undefined ? [] : Array.isArray(p.conditions.airLow) ? p.conditions.airLow : [p.conditions.airLow], (t) =>
-			tempToC(t, u)
+		airLows: mapList(p.conditions.airLow === undefined ? [] : Array.isArray(p.conditions.airLow) ? p.conditions.airLow : [p.conditions.airLow], (t) =>
+			t === null ? null : tempToC(t, u)
 		),
 		humidity: p.conditions.humidity,
 		windKmh: windToKmh(p.conditions.wind, u),
@@ -294,8 +294,8 @@ function density(v: number, u: Units): number {
 	return u === 'imperial' ? (v * 2000 * KG_PER_LB) / M3_PER_YD3 : v * 1000;
 }
 
-/** Daily low on a day counted from the first pour, holding the last given value; the mean when none was given. */
-export const airLowOn = (m: Model, day: number) => (m.airLows.length ? m.airLows[Math.min(day, m.airLows.length - 1)] : airTempOn(m, day));
+/** Daily low on a day counted from the first pour, holding the last given value; that day's mean where no low was given for it. */
+export const airLowOn = (m: Model, day: number) => (m.airLows.length ? m.airLows[Math.min(day, m.airLows.length - 1)] : null) ?? airTempOn(m, day);
 
 /** Air temperature on a day counted from the first pour (0), holding the last given value. */
 export const airTempOn = (m: Model, day: number) => m.airTemps[Math.min(day, m.airTemps.length - 1)];

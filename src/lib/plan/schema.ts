@@ -357,9 +357,11 @@ function planSchemaFor<U extends Units>(units: U) {
 					.default(d.airTemp)
 					.describe(`Daily mean air temperature, ${T}: one value or one per day from the first pour.`),
 				airLow: z
-					.union([temp, z.array(temp).min(1).max(60)])
+					.union([temp, z.array(temp.nullable()).min(1).max(60)])
 					.optional()
-					.describe(`Daily low air temperature, ${T}: one value or one per day; checked against ACI 306R's 40 °F.`),
+					.describe(
+						`Daily low air temperature, ${T}: one value or one per day (null for a day without its own low, which uses its mean); checked against ACI 306R's 40 °F.`
+					),
 				humidity: z.number().min(0).max(100).default(COMMON.humidity).describe('Relative humidity, %.'),
 				wind: z
 					.number()

@@ -28,6 +28,11 @@ describe('unit switch', () => {
 		expect(back.thickness).toBeCloseTo(4, 1);
 		expect(back.conditions.airTemp).toBeCloseTo(70, 0); // 70 °F → 21.1 °C → 70 °F
 	});
+
+	it('keeps a day without its own low empty', () => {
+		const days = { ...starterInput('imperial'), conditions: { ...starterInput().conditions, airTemp: [50, 68], airLow: [null, 50] } };
+		expect(convertPlan(days, 'metric').conditions.airLow).toEqual([null, 10]); // (50 − 32) × 5/9 = 10 °C
+	});
 });
 
 /** Every number in a plan, with its path. */

@@ -110,7 +110,12 @@ export function convertPlan(p: ParsedPlan, to: Units): ParsedPlan {
 			...p.conditions,
 			airTemp: Array.isArray(p.conditions.airTemp) ? p.conditions.airTemp.map(temp) : temp(p.conditions.airTemp),
 			concreteTemp: opt(p.conditions.concreteTemp, temp),
-			airLow: p.conditions.airLow === undefined ? undefined : Array.isArray(p.conditions.airLow) ? p.conditions.airLow.map(temp) : temp(p.conditions.airLow),
+			airLow:
+				p.conditions.airLow === undefined
+					? undefined
+					: Array.isArray(p.conditions.airLow)
+						? p.conditions.airLow.map((t) => (t === null ? null : temp(t)))
+						: temp(p.conditions.airLow),
 			wind: r(metric ? p.conditions.wind * KM_PER_MILE : p.conditions.wind / KM_PER_MILE, 1)
 		}
 	};
