@@ -1,5 +1,5 @@
 import { expect, test } from '@playwright/test';
-import { watchErrors, wizardStep } from './helpers';
+import { openHydrated, watchErrors, wizardStep } from './helpers';
 
 test('undo brings back a deleted corner, redo removes it again, and Start over resets the plan', async ({ page }) => {
 	test.setTimeout(90_000);
@@ -58,5 +58,39 @@ test('undo brings back a deleted corner, redo removes it again, and Start over r
 	await expect(page.getByTestId('result-area')).toHaveText('120 ft²');
 	await page.getByRole('button', { name: 'Undo' }).click();
 	await expect(page.getByLabel('Thickness')).toHaveValue('6');
+	expect(errors).toEqual([]);
+});
+
+test('after a redo, undo walks back every step and a new edit can be redone', async ({ page }) => {
+	test.setTimeout(60_000);
+	const errors = watchErrors(page);
+	await openHydrated(page, '/plans/new');
+	await expect(page.getByRole('heading', { name: '1. Site' })).toBeVisible();
+	const low = page.getByLabel('Expected overnight low (optional)');
+	const humidity = page.getByLabel('Relative humidity');
+	const undo = page.getByRole('button', { name: 'Undo' });
+	const redo = page.getByRole('button', { name: 'Redo' });
+
+	// The low is not in a new plan: once typed, it is a field the plan gained.
+	await low.fill('30');
+	await undo.click();
+	await expect(low).toHaveValue('');
+	await redo.click();
+	await expect(low).toHaveValue('30');
+	await expect(redo).toBeDisabled();
+	await low.fill('');
+	await undo.click();
+	await expect(low).toHaveValue('30');
+	await undo.click();
+	await expect(low).toHaveValue('');
+	await expect(undo).toBeDisabled(); // the plan as it opened
+	await expect(redo).toBeEnabled();
+
+	await humidity.fill('');
+	await undo.click();
+	await expect(humidity).toHaveValue('50');
+	await expect(redo).toBeEnabled();
+	await redo.click();
+	await expect(humidity).toHaveValue('');
 	expect(errors).toEqual([]);
 });

@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { computePlan } from '$lib/plan';
-import { completeInput, PlanDraft, starterInput } from './draft.svelte';
+import { completeInput, PlanDraft, starterInput, type DraftData } from './draft.svelte';
 import { editableCopy, overlay, sameData } from './editable';
 import { EditHistory } from './history.svelte';
 import { detectPreset, presetCrossFall, presetHouse, presetOutline, presetProblem } from './presets';
@@ -129,6 +129,58 @@ describe('edit history', () => {
 		expect(h.undo()).toBe('moved-3');
 		expect(h.undo()).toBe('typed'); // the outline exactly as before the drag
 		expect(h.undo()).toBe('start');
+	});
+});
+
+describe('undo in the wizard', () => {
+	/** The wizard's loop: every change of the draft is recorded (DraftWatch), undo and redo put a step back. */
+	function wizard() {
+		const draft = new PlanDraft({ name: 'My slab', input: starterInput() });
+		const text = () => JSON.stringify(draft.snapshot());
+		const history = new EditHistory(text(), { quietMs: 500 });
+		let seen = text();
+		let t = 0;
+		const changed = () => {
+			if (text() !== seen) history.record((seen = text()), (t += 5000));
+		};
+		const apply = (s: string | null) => {
+			if (s) draft.restore(JSON.parse(s) as DraftData);
+			changed();
+		};
+		return {
+			draft,
+			history,
+			edit(f: (d: PlanDraft) => void) {
+				f(draft);
+				changed();
+			},
+			undo: () => apply(history.undo()),
+			redo: () => apply(history.redo())
+		};
+	}
+
+	it('puts a step back exactly as recorded, so applying it is not a new edit', () => {
+		const w = wizard();
+		const before = JSON.stringify(w.draft.snapshot());
+		w.edit((d) => (d.input.conditions.airLow = 30)); // a field absent from the starter
+		w.undo();
+		w.redo();
+		expect(w.history.canRedo).toBe(false);
+		w.undo();
+		expect(JSON.stringify(w.draft.snapshot())).toBe(before);
+		w.redo();
+		w.edit((d) => (d.input.conditions.airLow = undefined)); // the field cleared
+		w.undo();
+		expect(w.draft.input.conditions.airLow).toBe(30);
+		w.undo();
+		expect(w.draft.input.conditions.airLow).toBeUndefined(); // back to the start, not the same step again
+		expect(w.history.canUndo).toBe(false);
+		w.edit((d) => ((d.input.conditions as { humidity: number | null }).humidity = null));
+		w.undo();
+		expect(w.draft.input.conditions.humidity).toBe(50);
+		expect(w.history.canRedo).toBe(true);
+		w.redo();
+		expect(w.draft.input.conditions.humidity).toBeNull();
 	});
 });
 

@@ -103,13 +103,15 @@ export class PlanDraft {
 		return { name: this.name, postcode: this.postcode, input: editableCopy(this.#input) as PlanInput };
 	}
 
-	/** Puts back a snapshot (undo, redo, another tab's version). */
+	/**
+	 * Puts back a snapshot this draft gave (undo, redo) exactly as it was taken. Not through the
+	 * engine's parse: it puts keys in the schema's order, while a field first set during editing sits
+	 * last, so the draft would serialise unlike the history's step and the undo be recorded as an edit.
+	 */
 	restore(d: DraftData) {
-		const input = completeInput(d.input);
 		this.name = d.name;
 		this.postcode = d.postcode;
-		if (input) this.input = input;
-		else this.#input = editableCopy(d.input) as ParsedPlan;
+		this.input = d.input as ParsedPlan;
 		this.preset = detectPreset(this.#input, this.preset);
 	}
 
