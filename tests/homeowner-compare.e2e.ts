@@ -1,6 +1,8 @@
 import { expect, test, type Page } from '@playwright/test';
 import { formatMoney } from '../src/lib/money';
-import { openHydrated, reloadHydrated, signUp, uniqueEmail, watchErrors } from './helpers';
+import { smallPatio } from '../src/lib/plan/test-plans';
+import { insertLead } from './billing-helpers';
+import { openHydrated, reloadHydrated, sessionFile, signUp, uniqueEmail, visitorContext, watchErrors } from './helpers';
 import { insertBid, insertPlan } from './pro-helpers';
 
 test.describe.configure({ timeout: 240_000 });
@@ -112,5 +114,46 @@ test('a homeowner compares bids for two kinds of work, one kind at a time, and a
 		.click();
 	await expect(rows.first().getByTestId('bid-status')).toHaveText('Not selected');
 	await expect(page.getByText('Accept…')).toHaveCount(0);
+	expect(errors).toEqual([]);
+});
+
+test('a plan with no prices says so to both sides, and a bid on it is not compared with a DIY cost of $0', async ({ page, browser }) => {
+	const errors = watchErrors(page);
+	const email = uniqueEmail('unpriced');
+	await signUp(page, { name: 'Odile Brack', email, password: 'no-prices-yet', role: 'homeowner' });
+	await expect(page).toHaveURL(/\/plans$/);
+	// A 12 × 10 ft pad with every price left empty, sent for the whole job to Ridgeback (Corvallis).
+	const { id: planId } = await insertPlan(email, { name: 'Bare pad', postcode: '97330', input: smallPatio() });
+	const leadId = await insertLead(planId, 'dell@ridgebackflatwork.example', { town: 'Corvallis, OR', respondInDays: 7 });
+	await insertBid(planId, 'dell@ridgebackflatwork.example', { dollars: 4200, days: 2, inclusions: 'Everything.' });
+
+	await openHydrated(page, `/plans/${planId}/bids`);
+	const figures = page.getByTestId('plan-figures');
+	await expect(figures).toContainText("Materials if done yourself Not priced — add prices in the planner's Crew step", { useInnerText: true });
+	const rows = page.getByTestId('bid-row');
+	await expect(rows).toHaveCount(1);
+	await expect(rows.first().getByTestId('bid-price')).toHaveText(formatMoney(420_000));
+	// No DIY cost, so no difference: neither the column nor a "+$4,200.00".
+	await expect(page.getByRole('columnheader', { name: 'Over DIY materials' })).toHaveCount(0);
+	await expect(page.getByTestId('bid-vs-diy')).toHaveCount(0);
+	await expect(page.getByTestId('compare-notes')).toContainText("Your plan's materials are not priced, so no bid is compared with doing it yourself");
+	await expect(page.locator('main')).not.toContainText('+$');
+	await expect(page.locator('main')).not.toContainText('$0.00');
+
+	// The plan's own page says the same in its summary and under the materials.
+	await openHydrated(page, `/plans/${planId}`);
+	await expect(page.getByTestId('diy-total')).toHaveText('Not priced');
+	await expect(page.locator('main')).toContainText("add prices in the planner's Crew step");
+	await expect(page.locator('main')).not.toContainText('$0.00');
+
+	// The contractor's copy says only that it is not priced.
+	const pro = await (await visitorContext(browser, { storageState: sessionFile('dell@ridgebackflatwork.example') })).newPage();
+	await openHydrated(pro, `/pro/leads/${leadId}`);
+	await pro.getByTestId('diy-plan').locator('summary').click();
+	await expect(pro.getByTestId('plan-figures')).toContainText('Materials if done yourself Not priced', { useInnerText: true });
+	await expect(pro.getByTestId('diy-total')).toHaveText('Not priced');
+	await expect(pro.getByTestId('diy-plan')).not.toContainText('Crew step');
+	await expect(pro.getByTestId('diy-plan')).not.toContainText('$0.00');
+	await pro.context().close();
 	expect(errors).toEqual([]);
 });

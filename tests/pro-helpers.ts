@@ -4,7 +4,7 @@ import { expect, type Page } from '@playwright/test';
 import postgres from 'postgres';
 import sharp from 'sharp';
 import demoPlans from '../fixtures/demo-plans.json' with { type: 'json' };
-import { computePlan, type PlanResult } from '../src/lib/plan/index';
+import { computePlan, type PlanInput, type PlanResult } from '../src/lib/plan/index';
 import { grantActivePlan } from './billing-helpers';
 import { continueAs, demoUser, dropSession, signUp } from './helpers';
 
@@ -67,13 +67,13 @@ export async function approvedNewContractor(page: Page, o: { name: string; email
 
 /**
  * Stores a plan for `email` straight in the database, computed by the real engine from the first
- * demo plan's input, so the handoff can be tested without driving the wizard.
+ * demo plan's input (or `input`), so the handoff can be tested without driving the wizard.
  */
-export async function insertPlan(email: string, o: { name: string; postcode: string; photo?: boolean }) {
+export async function insertPlan(email: string, o: { name: string; postcode: string; photo?: boolean; input?: PlanInput }) {
 	if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set');
 	const sql = postgres(process.env.DATABASE_URL, { max: 1, onnotice: () => {} });
 	try {
-		const input = { ...demoPlans.plans[0].input, name: o.name };
+		const input = { ...(o.input ?? demoPlans.plans[0].input), name: o.name };
 		const result = JSON.parse(JSON.stringify(computePlan(input as never)));
 		const [row] = await sql`
 			INSERT INTO plan (owner_id, name, postcode, input, result)

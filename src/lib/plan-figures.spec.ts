@@ -21,7 +21,8 @@ describe('planFigures', () => {
 		expect(f.bags?.[0].count).toBe(67);
 		expect(f.cautions?.map((c) => c.id)).toEqual(['wet-cement']);
 		expect(f.joints?.maxSpacing.feet).toBe(8);
-		expect(f.materials?.diyTotal).toEqual({ amount: 755.2, complete: false });
+		// A copy with no items left: a non-zero total can only come from priced lines.
+		expect(f.materials?.diyTotal).toEqual({ amount: 755.2, complete: false, priced: true, unpriced: ['gravel'] });
 		expect(f).not.toHaveProperty('somethingElse');
 	});
 

@@ -15,8 +15,20 @@ export interface PlanFigures {
 	volume?: { net?: R['volume']['net']; order?: R['volume']['order'] };
 	bags?: Pick<R['bags'][number], 'size' | 'unit' | 'count'>[];
 	joints?: { maxSpacing: R['joints']['maxSpacing'] };
-	materials?: { diyTotal: Pick<R['materials']['diyTotal'], 'amount' | 'complete'> };
+	materials?: { diyTotal: DiyPricing };
 	cautions?: Pick<R['cautions'][number], 'id' | 'title' | 'source'>[];
+}
+
+/**
+ * What a plan says about its do-it-yourself cost, live or frozen: the engine's total (the sum of the
+ * priced lines, 0 when none is), whether every line has a price, whether any has one, and the names of
+ * the lines without one. Read by diyPricing and shown only through diyTotal (lib/plan-view/rows.ts).
+ */
+export interface DiyPricing {
+	amount: number;
+	complete: boolean;
+	priced: boolean;
+	unpriced: string[];
 }
 
 /** For each field of T, the JavaScript type its stored value must have; the compiler checks it against T. */
@@ -53,7 +65,7 @@ export function planFigures(input: unknown, result: unknown): PlanFigures {
 	const net = part(get(get(r, 'volume'), 'net'), volume);
 	const order = part(get(get(r, 'volume'), 'order'), volume);
 	const maxSpacing = part<R['joints']['maxSpacing']>(get(get(r, 'joints'), 'maxSpacing'), { feet: 'number', meters: 'number' });
-	const diyTotal = part<Figure<'materials'>['diyTotal']>(get(get(r, 'materials'), 'diyTotal'), { amount: 'number', complete: 'boolean' });
+	const diyTotal = diyPricing(get(r, 'materials'));
 	const figures: PlanFigures = {
 		currency: typeof currency === 'string' && /^[A-Z]{3}$/.test(currency) ? currency : undefined,
 		area: part<Figure<'area'>>(get(r, 'area'), { squareFeet: 'number', squareMeters: 'number' }),
@@ -65,6 +77,31 @@ export function planFigures(input: unknown, result: unknown): PlanFigures {
 		units: units === 'metric' ? 'metric' : 'imperial'
 	};
 	return Object.fromEntries(Object.entries(figures).filter(([, v]) => v !== undefined)) as PlanFigures;
+}
+
+/**
+ * The DIY pricing of a result's materials (a live PlanResult's or a frozen copy's); undefined when the
+ * total is missing or malformed. With no price entered the engine's total is 0, which is not a cost:
+ * `priced` tells the two apart.
+ */
+export function diyPricing(materials: unknown): DiyPricing | undefined {
+	const total = get(materials, 'diyTotal');
+	const t = part<Pick<R['materials']['diyTotal'], 'amount' | 'complete'>>(total, { amount: 'number', complete: 'boolean' });
+	if (!t) return undefined;
+	const list = get(materials, 'items');
+	const items = Array.isArray(list) ? list : [];
+	const nameOf = (id: string) => {
+		const name = get(
+			items.find((i) => get(i, 'id') === id),
+			'name'
+		);
+		return typeof name === 'string' ? name : id;
+	};
+	const ids = get(total, 'unpriced');
+	const unpriced = Array.isArray(ids) ? ids.filter((id): id is string => typeof id === 'string').map(nameOf) : [];
+	// A copy without its items still shows a price through a non-zero or complete total.
+	const priced = t.complete || t.amount !== 0 || items.some((i) => typeof get(i, 'cost') === 'number');
+	return { ...t, priced, unpriced };
 }
 
 /** Every top-level part of the engine's result, as src/lib/plan/index.ts defines PlanResult. */

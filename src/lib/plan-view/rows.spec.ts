@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { computePlan, type Caution } from '$lib/plan';
 import demo from '../../../fixtures/demo-plans.json';
-import { planFigures } from '$lib/plan-figures';
-import { diyTotal, figureRows, milestoneRows, sortCautions, stakeIntro, stakeRows, summaryItems } from './rows';
+import { diyPricing, planFigures } from '$lib/plan-figures';
+import { smallPatio } from '$lib/plan/test-plans';
+import { diyTotal, figureRows, milestoneRows, overDiy, sortCautions, stakeIntro, stakeRows, summaryItems } from './rows';
 
 const [patio, , shedPad] = demo.plans.map((p) => computePlan(p.input));
 
@@ -22,12 +23,6 @@ describe('rows from a computed plan', () => {
 		expect(items.find((i) => i.label === 'Costs less')?.value).toMatch(/^Ready-mix: \$491\.25 against \$646\.40/);
 		const unpriced = { ...patio, cost: { cheaper: null } };
 		expect(summaryItems(unpriced).some((i) => i.label === 'Costs less')).toBe(false);
-	});
-
-	it('DIY total names what has no price, and is absent when nothing is priced', () => {
-		expect(diyTotal(shedPad)?.note).toContain('Form stakes');
-		const none = { materials: { ...patio.materials, items: patio.materials.items.map((i) => ({ ...i, cost: undefined })) } };
-		expect(diyTotal(none)).toBeUndefined();
 	});
 
 	it('stake rows: one per stake, the high stake flagged, zero below the line at the high stake', () => {
@@ -62,13 +57,67 @@ describe('rows from a computed plan', () => {
 	});
 });
 
+// These are the engine's own sums turned into text, not trade figures: no published source applies.
+describe('the DIY total, one wording for every view', () => {
+	const names = (ids: string[]) => ids.map((id) => patio.materials.items.find((i) => i.id === id)!.name);
+	const diyRow = (r: Parameters<typeof summaryItems>[0]) => summaryItems(r).find((i) => i.label === 'Do-it-yourself total');
+
+	it('none priced: says so (with where to price it for the homeowner), and nothing is compared with it', () => {
+		const bare = computePlan(smallPatio());
+		// Sanity: the engine sums no price to 0, which must not be shown as a cost.
+		expect(bare.materials.diyTotal.amount).toBe(0);
+		const owner = diyTotal(diyPricing(bare.materials), 'homeowner');
+		expect(owner).toEqual({ cents: null, value: 'Not priced', note: "add prices in the planner's Crew step", detail: "add prices in the planner's Crew step" });
+		expect(diyTotal(diyPricing(bare.materials), 'contractor')).toEqual({ cents: null, value: 'Not priced', note: undefined, detail: undefined });
+		expect(overDiy(420_000, owner)).toBeUndefined();
+		expect(diyRow(bare)?.value).toBe('Not priced');
+		const f = planFigures(smallPatio(), bare);
+		expect(Object.fromEntries(figureRows(f, 'homeowner'))['Materials if done yourself']).toBe("Not priced — add prices in the planner's Crew step");
+		expect(Object.fromEntries(figureRows(f, 'contractor'))['Materials if done yourself']).toBe('Not priced');
+		for (const rows of [figureRows(f, 'homeowner'), figureRows(f, 'contractor')]) expect(rows.flat().join(' ')).not.toContain('$');
+	});
+
+	it('some priced: the sum of the priced lines, said to be only that, with the lines left out named', () => {
+		// The back patio prices everything but fiber, soil hauling and tools (lind-back-patio/materials.json).
+		expect(patio.materials.diyTotal.unpriced).toEqual(['fiber', 'haul-soil', 'tools']);
+		const t = diyTotal(diyPricing(patio.materials), 'homeowner');
+		// 890.4178 in the engine's snapshot, to the cent
+		expect(t).toMatchObject({ cents: 89_042, value: '$890.42', note: 'sum of the priced items only' });
+		expect(t?.detail).toBe(`sum of the priced items only; no price for: ${names(['fiber', 'haul-soil', 'tools']).join('; ')}`);
+		expect(diyTotal(diyPricing(patio.materials), 'contractor')).toEqual(t);
+		// $4,200.00 − $890.42
+		expect(overDiy(420_000, t)).toBe('+$3,309.58');
+		expect(overDiy(50_000, t)).toBe('−$390.42');
+		expect(diyRow(patio)).toMatchObject({ value: '$890.42', note: t?.detail });
+		expect(Object.fromEntries(figureRows(planFigures(demo.plans[0].input, patio), 'contractor'))['Materials if done yourself']).toBe(`$890.42 (${t?.detail})`);
+		expect(diyTotal(diyPricing(shedPad.materials), 'homeowner')?.detail).toContain('Form stakes');
+	});
+
+	it('all priced: the total alone', () => {
+		const input = { ...demo.plans[0].input, prices: { ...demo.plans[0].input.prices, fiber: 9, haulSoil: 60, tools: 150 } };
+		const whole = computePlan(input);
+		expect(whole.materials.diyTotal.complete).toBe(true);
+		const t = diyTotal(diyPricing(whole.materials), 'homeowner');
+		expect(t).toEqual({ cents: Math.round(whole.materials.diyTotal.amount * 100), value: expect.stringMatching(/^\$[\d,]+\.\d\d$/) });
+		expect(diyRow(whole)).toEqual({ label: 'Do-it-yourself total', value: t?.value, note: undefined });
+		expect(Object.fromEntries(figureRows(planFigures(input, whole), 'homeowner'))['Materials if done yourself']).toBe(t?.value);
+	});
+
+	it('a frozen copy without its items: a zero, incomplete total is not priced; a non-zero one is', () => {
+		const only = (amount: number) => planFigures({}, { materials: { diyTotal: { amount, complete: false, unpriced: ['gravel'] } } });
+		expect(only(0).materials?.diyTotal).toEqual({ amount: 0, complete: false, priced: false, unpriced: ['gravel'] });
+		expect(figureRows(only(0), 'contractor')).toEqual([['Materials if done yourself', 'Not priced']]);
+		expect(figureRows(only(755.2), 'contractor')).toEqual([['Materials if done yourself', '$755.20 (sum of the priced items only; no price for: gravel)']]);
+	});
+});
+
 describe('figures a lead keeps', () => {
 	it('reads the same text as the plan page, and leaves out what an older copy lacks', () => {
-		const rows = Object.fromEntries(figureRows(planFigures(demo.plans[0].input, patio)));
+		const rows = Object.fromEntries(figureRows(planFigures(demo.plans[0].input, patio), 'contractor'));
 		// the patio: 14 × 12 ft = 168 ft², ordered 2.24 yd³ as the summary above
 		expect(rows['Area']).toBe('168 ft²');
 		expect(rows['Concrete to order']).toBe('2.24 yd³');
 		expect(rows['Bags']).toContain(`${patio.bags[0].count} × ${patio.bags[0].size} ${patio.bags[0].unit}`);
-		expect(Object.keys(Object.fromEntries(figureRows(planFigures(demo.plans[0].input, { area: patio.area }))))).toEqual(['Area']);
+		expect(Object.keys(Object.fromEntries(figureRows(planFigures(demo.plans[0].input, { area: patio.area }), 'contractor')))).toEqual(['Area']);
 	});
 });

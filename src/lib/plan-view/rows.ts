@@ -5,7 +5,8 @@
 import type { Caution, PlanResult, Severity, StrengthDay } from '$lib/plan';
 import { length, planToM } from '$lib/plan/units';
 import { signal } from '$lib/palette';
-import type { PlanFigures } from '$lib/plan-figures';
+import { formatMoney, toCents } from '$lib/money';
+import { diyPricing, type DiyPricing, type PlanFigures } from '$lib/plan-figures';
 import {
 	formatArea,
 	formatBagSize,
@@ -52,8 +53,8 @@ export function summaryItems(p: SummaryPlan): SummaryItem[] {
 	];
 	const cheaper = cheaperText(p);
 	if (cheaper) items.push({ label: 'Costs less', value: cheaper });
-	const total = diyTotal(p);
-	if (total) items.push({ label: 'Do-it-yourself total', value: total.amount, note: total.note });
+	const total = diyTotal(diyPricing(p.materials), 'homeowner', p.currency);
+	if (total) items.push({ label: 'Do-it-yourself total', value: total.value, note: total.detail });
 	return items;
 }
 
@@ -67,12 +68,53 @@ function cheaperText({ cost, bags, currency }: SummaryPlan): string | undefined 
 		: `Ready-mix: ${formatMoneyIn(cost.readyMixCost)} against ${formatMoneyIn(cost.bagCost)} for ${bagLabel}`;
 }
 
-/** The DIY total, or undefined when nothing in the list has a price. */
-export function diyTotal({ materials, currency }: Pick<PlanResult, 'materials'> & { currency?: string }): { amount: string; note?: string } | undefined {
-	if (!materials.items.some((i) => i.cost !== undefined)) return undefined;
-	const { amount, complete, unpriced } = materials.diyTotal;
-	const names = unpriced.map((id) => materials.items.find((i) => i.id === id)?.name ?? id);
-	return { amount: formatCost(amount, currency), note: complete ? undefined : `without prices for: ${names.join('; ')}` };
+/**
+ * Who reads a DIY figure: the homeowner can still add prices in the planner; a contractor receiving
+ * the plan can only be told there are none.
+ */
+export type DiyReader = 'homeowner' | 'contractor';
+
+export interface DiyTotal {
+	/** The total in cents, for comparing a bid with; null when nothing has a price. */
+	cents: number | null;
+	/** "$890.42", or "Not priced". */
+	value: string;
+	/** What the amount leaves out, or where prices go, in short. */
+	note?: string;
+	/** The note with the lines that have no price named, where there is room for them. */
+	detail?: string;
+}
+
+/**
+ * The do-it-yourself total as every view shows it: the page's summary and materials table, the
+ * wizard's results, the PDF, the lead, and the bid comparison. With no price entered the engine's
+ * sum is 0, so it says "Not priced" and gives nothing to compare a bid with; with some prices it is
+ * the sum of those lines only, and says so. Undefined when the result carries no total at all.
+ */
+export function diyTotal(d: DiyPricing | undefined, reader: DiyReader, currency?: string): DiyTotal | undefined {
+	if (!d) return undefined;
+	if (!d.priced) {
+		const note = reader === 'homeowner' ? "add prices in the planner's Crew step" : undefined;
+		return { cents: null, value: 'Not priced', note, detail: note };
+	}
+	const cents = toCents(d.amount);
+	const value = formatMoney(cents, currency);
+	if (d.complete) return { cents, value };
+	const note = 'sum of the priced items only';
+	return { cents, value, note, detail: d.unpriced.length ? `${note}; no price for: ${d.unpriced.join('; ')}` : note };
+}
+
+/** One line of text: "$890.42 (sum of the priced items only; no price for: …)", "Not priced — add prices…". */
+export const diyTotalText = (t: DiyTotal) => (t.detail === undefined ? t.value : t.cents === null ? `${t.value} — ${t.detail}` : `${t.value} (${t.detail})`);
+
+/**
+ * A whole-job bid less the DIY total, signed: "+$3,309.58". Undefined when the plan has no price to
+ * compare with, so no figure is made up from a total of 0.
+ */
+export function overDiy(bidCents: number, t: DiyTotal | undefined, currency?: string): string | undefined {
+	if (!t || t.cents === null) return undefined;
+	const diff = bidCents - t.cents;
+	return `${diff >= 0 ? '+' : '−'}${formatMoney(Math.abs(diff), currency)}`;
 }
 
 const RUN_KIND = { outer: 'Outer form', house: 'House side', bulkhead: 'Bulkhead' } as const;
@@ -280,7 +322,7 @@ export function sortCautions(cautions: Caution[]): { deferral?: Caution; rest: C
  * The few figures a lead and the bid comparison show, from the frozen copy the lead keeps (any part
  * may be missing in an older copy, and is then left out).
  */
-export function figureRows(f: PlanFigures): [label: string, value: string][] {
+export function figureRows(f: PlanFigures, reader: DiyReader): [label: string, value: string][] {
 	const u = f.units;
 	const rows: [string, string][] = [];
 	if (f.area) rows.push(['Area', formatArea(f.area, u)]);
@@ -288,9 +330,7 @@ export function figureRows(f: PlanFigures): [label: string, value: string][] {
 	if (f.volume?.order) rows.push(['Concrete to order', formatOrderVolume(f.volume.order, u)]);
 	if (f.bags?.length) rows.push(['Bags', f.bags.map((b) => `${b.count} × ${formatBagSize(b)}`).join(', ')]);
 	if (f.joints) rows.push(['Control joints at most', `${formatLength(f.joints.maxSpacing, u)} apart`]);
-	if (f.materials) {
-		const { amount, complete } = f.materials.diyTotal;
-		rows.push(['Materials if done yourself', `${formatCost(amount, f.currency)}${complete ? '' : ' (not every item priced)'}`]);
-	}
+	const diy = diyTotal(f.materials?.diyTotal, reader, f.currency);
+	if (diy) rows.push(['Materials if done yourself', diyTotalText(diy)]);
 	return rows;
 }

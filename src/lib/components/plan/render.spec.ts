@@ -4,7 +4,7 @@ import { computePlan } from '$lib/plan';
 import { formatSmall, formatVolume } from '$lib/plan-view';
 import demo from '../../../../fixtures/demo-plans.json';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
-import { cornerEll, rect } from '$lib/plan/test-plans';
+import { cornerEll, rect, smallPatio } from '$lib/plan/test-plans';
 import BuildCard from './BuildCard.svelte';
 import CautionList from './CautionList.svelte';
 import LayoutSheet from './LayoutSheet.svelte';
@@ -103,7 +103,7 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 	});
 
 	it('MaterialsList shows each material with its quantity and cost, and the tools', () => {
-		const out = text(render(MaterialsList, { props: { plan: result } }).body);
+		const out = text(render(MaterialsList, { props: { plan: result, reader: 'homeowner' } }).body);
 		for (const m of materialRows(result)) expect(out).toContain(`${m.quantity} ${m.cost ?? '—'}`);
 		for (const k of result.materials.tools) expect(out).toContain(k.name);
 	});
@@ -161,5 +161,17 @@ describe("the drawings' keys name only what is drawn, in whole sentences", () =>
 		expect(sheet).not.toContain('grey dashes');
 		expect(sheet).toContain('control joints and blue lines cold joints.');
 		expect(seen(render(PlanOutline2D, { props: { result: ell } }).body)).toContain('Top view. Brown edges are house walls; dashed lines');
+	});
+});
+
+describe('MaterialsList with no price entered', () => {
+	const bare = computePlan(smallPatio());
+	it('says the total is not priced, to the homeowner with where to price it, and never shows $0.00', () => {
+		const owner = text(render(MaterialsList, { props: { plan: bare, reader: 'homeowner' } }).body);
+		expect(owner).toContain("Do-it-yourself total Not priced add prices in the planner's Crew step");
+		const pro = text(render(MaterialsList, { props: { plan: bare, reader: 'contractor' } }).body);
+		expect(pro).toContain('Do-it-yourself total Not priced');
+		expect(pro).not.toContain('Crew step');
+		for (const out of [owner, pro]) expect(out).not.toContain('$0.00');
 	});
 });

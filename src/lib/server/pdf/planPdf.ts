@@ -4,6 +4,7 @@
 
 import PDFDocument from 'pdfkit';
 import { print } from '$lib/palette';
+import { diyPricing } from '$lib/plan-figures';
 import type { PlanResult } from '$lib/plan';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
 import { buildCardItems } from '$lib/plan-view/buildCard';
@@ -226,16 +227,16 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	);
 
 	heading('Materials');
-	const total = diyTotal(r);
+	const total = diyTotal(diyPricing(r.materials), 'homeowner', r.currency);
 	table(
 		['Material', 'Quantity', 'Cost'],
 		[
 			...materialRows(r).map((m) => [m.note ? `${m.name}\n${m.note}` : m.name, m.quantity, m.cost ?? '—']),
-			...(total ? [['Do-it-yourself total', '', total.amount]] : [])
+			...(total ? [['Do-it-yourself total', '', total.value]] : [])
 		],
 		['*', 110, 80]
 	);
-	if (total?.note) text(`Total ${total.note}.`, { size: 9, color: C.soft });
+	if (total?.detail) text(`Total: ${total.detail}.`, { size: 9, color: C.soft });
 	doc.moveDown(0.3);
 	table(
 		['Tool', 'Count', 'What for'],
