@@ -3,6 +3,7 @@ import path from 'node:path';
 import { expect, type Page } from '@playwright/test';
 import postgres from 'postgres';
 import sharp from 'sharp';
+import zipcodes from 'zipcodes';
 import demoPlans from '../fixtures/demo-plans.json' with { type: 'json' };
 import { computePlan, type PlanInput, type PlanResult } from '../src/lib/plan/index';
 import { grantActivePlan } from './billing-helpers';
@@ -81,6 +82,31 @@ export async function insertPlan(email: string, o: { name: string; postcode: str
 			RETURNING id`;
 		if (o.photo) await insertPhoto(sql, row.id);
 		return { id: row.id as string, result: result as PlanResult };
+	} finally {
+		await sql.end();
+	}
+}
+
+/**
+ * An approved contractor for the whole job, serving `radiusMi` around the centroid of `zip`, stored
+ * straight in the database (vetting is driven in contractor-vetting.e2e.ts). Nobody signs in as it:
+ * the password hash is not one. Returns the business name.
+ */
+export async function insertApprovedContractor(o: { business: string; zip: string; radiusMi: number }) {
+	const place = zipcodes.lookup(o.zip);
+	if (!place) throw new Error(`unknown ZIP code ${o.zip}`);
+	const sql = postgres(process.env.DATABASE_URL!, { max: 1, onnotice: () => {} });
+	try {
+		const email = `firm-${Date.now()}-${Math.floor(Math.random() * 1e6)}@e2e.stakeline.test`;
+		const [u] = await sql`
+			INSERT INTO "user" (email, name, role, password_hash, email_verified_at)
+			VALUES (${email}, ${o.business}, 'contractor', 'not-a-hash', now()) RETURNING id`;
+		await sql`
+			INSERT INTO contractor (user_id, business_name, status, contact_name, phone, description, years_in_trade, services,
+				licence_number, licence_authority, service_postcode, service_radius, service_radius_unit, service_lat, service_lon, submitted_at)
+			VALUES (${u.id}, ${o.business}, 'approved', ${o.business}, '(406) 555-0100', 'Test firm far from the demo firms.', 6,
+				${['whole_job']}::service_kind[], 'TEST-1', 'Test licensing board', ${o.zip}, ${o.radiusMi}, 'mi', ${place.latitude}, ${place.longitude}, now())`;
+		return o.business;
 	} finally {
 		await sql.end();
 	}
