@@ -1,5 +1,6 @@
 import { expect, test, type Page } from '@playwright/test';
 import { formatMoney } from '../src/lib/money';
+import { EXAMPLE_PRICES } from '../src/lib/plan/defaults';
 import { smallPatio } from '../src/lib/plan/test-plans';
 import { insertLead } from './billing-helpers';
 import { openHydrated, reloadHydrated, sessionFile, signUp, uniqueEmail, visitorContext, watchErrors } from './helpers';
@@ -155,5 +156,18 @@ test('a plan with no prices says so to both sides, and a bid on it is not compar
 	await expect(pro.getByTestId('diy-plan')).not.toContainText('Crew step');
 	await expect(pro.getByTestId('diy-plan')).not.toContainText('$0.00');
 	await pro.context().close();
+
+	// Priced in euros: a bid in US dollars is not subtracted from a euro total either.
+	const { id: euroPlan } = await insertPlan(email, {
+		name: 'Euro pad',
+		postcode: '97330',
+		input: { ...smallPatio(), currency: 'EUR', prices: EXAMPLE_PRICES.imperial }
+	});
+	await insertLead(euroPlan, 'dell@ridgebackflatwork.example', { town: 'Corvallis, OR', respondInDays: 7 });
+	await insertBid(euroPlan, 'dell@ridgebackflatwork.example', { dollars: 3900, days: 2, inclusions: 'Everything.' });
+	await openHydrated(page, `/plans/${euroPlan}/bids`);
+	await expect(page.getByTestId('bid-row')).toHaveCount(1);
+	await expect(page.getByTestId('bid-vs-diy')).toHaveCount(0);
+	await expect(page.getByTestId('compare-notes')).toContainText("Your plan's prices are in EUR and bids are in US dollars, so no bid is compared");
 	expect(errors).toEqual([]);
 });
