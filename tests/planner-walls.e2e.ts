@@ -176,5 +176,11 @@ test('the pitch step’s advice for a wall that drains toward the house fits whe
 	await page.getByLabel('Cross fall').fill('2.5');
 	await page.getByLabel('Cross fall').blur();
 	await expect(wall).toContainText('2.5 % ✓ IRC R401.3');
+	// The same cross fall the other way runs water at the wall: the advice is to turn it round, not to set one.
+	await page.getByLabel('Cross fall').fill('-2.5');
+	await page.getByLabel('Cross fall').blur();
+	await expect(wall).toContainText('2.5 % toward the house');
+	await expect(wall).toContainText('try it the other way (the opposite sign)');
+	await expect(wall).not.toContainText('Set Cross fall below');
 	expect(errors).toEqual([]);
 });
