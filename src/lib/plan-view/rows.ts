@@ -53,7 +53,7 @@ export function summaryItems(p: SummaryPlan): SummaryItem[] {
 	];
 	const cheaper = cheaperText(p);
 	if (cheaper) items.push({ label: 'Costs less', value: cheaper });
-	const total = diyTotal(diyPricing(p.materials), 'homeowner', p.currency);
+	const total = planDiyTotal(p, 'homeowner');
 	if (total) items.push({ label: 'Do-it-yourself total', value: total.value, note: total.detail });
 	return items;
 }
@@ -103,6 +103,9 @@ export function diyTotal(d: DiyPricing | undefined, reader: DiyReader, currency?
 	const note = 'sum of the priced items only';
 	return { cents, value, note, detail: d.unpriced.length ? `${note}; no price for: ${d.unpriced.join('; ')}` : note };
 }
+
+/** The DIY total of a plan's own result (live or frozen), as `reader` is told it. */
+export const planDiyTotal = (p: { materials: unknown; currency?: string }, reader: DiyReader) => diyTotal(diyPricing(p.materials), reader, p.currency);
 
 /** One line of text: "$890.42 (sum of the priced items only; no price for: …)", "Not priced — add prices…". */
 export const diyTotalText = (t: DiyTotal) => (t.detail === undefined ? t.value : t.cents === null ? `${t.value} — ${t.detail}` : `${t.value} (${t.detail})`);

@@ -4,7 +4,6 @@
 
 import PDFDocument from 'pdfkit';
 import { print } from '$lib/palette';
-import { diyPricing } from '$lib/plan-figures';
 import type { PlanResult } from '$lib/plan';
 import { layoutSheet, tapeLength } from '$lib/plan/layout-sheet';
 import { buildCardItems } from '$lib/plan-view/buildCard';
@@ -17,7 +16,7 @@ import {
 	SEVERITY_LABEL,
 	crewItems,
 	dayRows,
-	diyTotal,
+	planDiyTotal,
 	fitText,
 	formatDate,
 	materialRows,
@@ -227,7 +226,7 @@ export async function planPdf(plan: { name: string; result: PlanResult; createdA
 	);
 
 	heading('Materials');
-	const total = diyTotal(diyPricing(r.materials), 'homeowner', r.currency);
+	const total = planDiyTotal(r, 'homeowner');
 	table(
 		['Material', 'Quantity', 'Cost'],
 		[
