@@ -247,6 +247,8 @@ test('a draft left with a marked field is carried into the account unsaved, says
 	await page.locator('#thickness').blur();
 	await expect(page).toHaveURL(/\/plans\/[0-9a-f-]{36}\/edit$/, { timeout: 15_000 });
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'saved');
+	// Saved now, so the banner that said it was not is gone.
+	await expect(page.getByTestId('claim-waiting')).toHaveCount(0);
 	// At the editor's address the page is named as the editor is.
 	await expect(page).toHaveTitle('Edit Steep step draft · Stakeline');
 	await expect(page.getByRole('heading', { level: 1 })).toHaveText('Editing Steep step draft');
