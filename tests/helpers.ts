@@ -43,10 +43,16 @@ export async function continueAs(page: Page, email: string) {
 	const stored = storedSessions.find((s) => s.email === email);
 	if (!stored) throw new Error(`${email} has no stored session (storedSessions in tests/helpers.ts)`);
 	const { cookies }: { cookies: Cookie[] } = JSON.parse(readFileSync(sessionFile(email), 'utf8'));
+	const session = cookies.filter((c) => c.name === SESSION_COOKIE);
+	// Off the site first, as in dropSession: a late answer to the last user's page would set their
+	// cookie again, and two firms both land on /pro, so the URL alone would not tell.
+	await page.goto('about:blank');
 	await page.context().clearCookies({ name: SESSION_COOKIE });
-	await page.context().addCookies(cookies.filter((c) => c.name === SESSION_COOKIE));
+	await page.context().addCookies(session);
 	await openHydrated(page, stored.home);
 	await expect(page).toHaveURL(stored.landsOn);
+	const now = (await page.context().cookies()).find((c) => c.name === SESSION_COOKIE)?.value;
+	expect(now, `the session cookie is ${email}'s`).toBe(session[0]?.value);
 }
 
 /** Goes on as a visitor: drops the page's session cookie without ending the session (a stored one stays good for the tests after). */
