@@ -3,7 +3,7 @@ import { expect, test } from '@playwright/test';
 import { demoPassword, demoUser, openHydrated, signIn, watchErrors } from './helpers';
 
 // watchErrors fails the test on any page error or any script, style or connection the page's CSP blocked.
-test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and chart run under it', async ({ page }) => {
+test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and strength chart run under it', async ({ page }) => {
 	const problems = watchErrors(page);
 	const home = await page.goto('/');
 	const csp = home!.headers()['content-security-policy'];
@@ -26,6 +26,11 @@ test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and 
 		.getByRole('link', { name: /patio|pad|walk/i })
 		.first()
 		.click();
+	// The strength chart is placed by style attributes, which the policy lets through: its line rises to the right.
+	const dots = page.getByTestId('strength-chart').locator('span[title^="Day "]');
+	const [first, last] = [await dots.first().boundingBox(), await dots.last().boundingBox()];
+	expect(last!.x).toBeGreaterThan(first!.x + 100);
+	expect(last!.y).toBeLessThan(first!.y);
 	await page.getByRole('button', { name: 'Show 3D preview' }).click();
 	// The first frame drawn: the viewer's code and the scene have loaded, so any policy violation has shown.
 	await expect(page.getByTestId('preview-canvas')).toHaveAttribute('data-ready', '');

@@ -1,5 +1,5 @@
-// The strength-over-time chart, worked out once: the plan page draws it with chart.js (loaded on
-// demand, with its tooltips) and the PDF draws it by hand, both from this geometry.
+// The strength-over-time chart, worked out once: the page draws it as server-rendered markup
+// (StrengthChart.svelte) and the PDF by hand, both from this geometry.
 import type { MilestoneRow } from './rows';
 
 export interface StrengthChart {

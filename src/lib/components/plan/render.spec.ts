@@ -15,7 +15,7 @@ import PlanOutline2D from './PlanOutline2D.svelte';
 import PlanSummary from './PlanSummary.svelte';
 import StakeMarkTable from './StakeMarkTable.svelte';
 import StrengthChart from './StrengthChart.svelte';
-import { formatDate, formatPercent, materialRows, summaryItems } from '$lib/plan-view';
+import { formatDate, formatPercent, materialRows, milestoneRows, strengthChartGeometry, summaryItems } from '$lib/plan-view';
 import { buildCardItems } from '$lib/plan-view/buildCard';
 
 const plans = demo.plans.map((p) => ({ id: p.id, result: computePlan(p.input) }));
@@ -92,9 +92,22 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 		}
 	});
 
-	it('StrengthChart renders without chart.js on the server, with the milestones and a data table', () => {
+	it('StrengthChart draws its line, axes and milestone pins on the server, with the milestones and a data table', () => {
 		const html = render(StrengthChart, { props: { plan: result } }).body;
-		expect(html).toContain('<canvas');
+		const chart = strengthChartGeometry(result.strength, milestoneRows(result));
+		// The line passes through every day's strength, y measured down from the top of the plot.
+		const points = /<polyline points="([^"]+)"/.exec(html)![1].split(' ');
+		expect(points).toHaveLength(result.strength.length);
+		expect(points[7]).toBe(`${result.strength[7].day},${chart.y.max - result.strength[7].percent}`);
+		expect([...html.matchAll(/title="Day \d+: /g)]).toHaveLength(result.strength.length);
+		// A pin a milestone reached in the charted days, placed at its day and strength.
+		const pin = chart.pins[0];
+		expect(html).toContain(
+			`title="${pin.n}: day ${pin.day}, ${formatPercent(pin.percent)}" style="left: ${(pin.day / chart.x.max) * 100}%; bottom: ${(pin.percent / chart.y.max) * 100}%;"`
+		);
+		expect([...html.matchAll(/title="\d+: day /g)]).toHaveLength(chart.pins.length);
+		for (const t of [...chart.x.ticks, ...chart.y.ticks]) expect(text(html)).toContain(String(t));
+		expect(html).not.toContain('<canvas');
 		for (const m of result.milestones) expect(text(html)).toContain(m.title);
 		const table = /<div class="sr-only">\s*<table>([\s\S]*?)<\/table>/.exec(html)![1];
 		expect([...table.matchAll(/scope="row"/g)]).toHaveLength(result.strength.length);
