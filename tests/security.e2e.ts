@@ -26,9 +26,9 @@ test('pages carry a CSP with a nonce and no inline scripts; the planner, 3D and 
 		.getByRole('link', { name: /patio|pad|walk/i })
 		.first()
 		.click();
-	// The strength chart is placed by style attributes, which the policy lets through: its line rises to the right.
-	const dots = page.getByTestId('strength-chart').locator('span[title^="Day "]');
-	const [first, last] = [await dots.first().boundingBox(), await dots.last().boundingBox()];
+	// The strength chart's marks are placed by style attributes, which the policy lets through: its milestone pins rise to the right.
+	const pins = page.getByTestId('strength-chart').locator('span[title*=": day "]');
+	const [first, last] = [await pins.first().boundingBox(), await pins.last().boundingBox()];
 	expect(last!.x).toBeGreaterThan(first!.x + 100);
 	expect(last!.y).toBeLessThan(first!.y);
 	await page.getByRole('button', { name: 'Show 3D preview' }).click();

@@ -95,15 +95,19 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 	it('StrengthChart draws its line, axes and milestone pins on the server, with the milestones and a data table', () => {
 		const html = render(StrengthChart, { props: { plan: result } }).body;
 		const chart = strengthChartGeometry(result.strength, milestoneRows(result));
-		// The line passes through every day's strength, y measured down from the top of the plot.
+		// The line and a dot a day pass through every day's strength, y measured down from the top of the plot.
+		const y = (percent: number) => +(chart.y.max - percent).toFixed(2);
 		const points = /<polyline points="([^"]+)"/.exec(html)![1].split(' ');
 		expect(points).toHaveLength(result.strength.length);
-		expect(points[7]).toBe(`${result.strength[7].day},${chart.y.max - result.strength[7].percent}`);
-		expect([...html.matchAll(/title="Day \d+: /g)]).toHaveLength(result.strength.length);
+		expect(points[7]).toBe(`${result.strength[7].day},${y(result.strength[7].percent)}`);
+		const dots = /<path d="([^"]+)"/.exec(html)![1];
+		expect(dots.match(/M[\d.]+,[\d.]+h0/g)).toHaveLength(result.strength.length);
+		expect(dots).toContain(`M${result.strength[7].day},${y(result.strength[7].percent)}h0`);
 		// A pin a milestone reached in the charted days, placed at its day and strength.
+		const share = (v: number, max: number) => +((v / max) * 100).toFixed(2);
 		const pin = chart.pins[0];
 		expect(html).toContain(
-			`title="${pin.n}: day ${pin.day}, ${formatPercent(pin.percent)}" style="left: ${(pin.day / chart.x.max) * 100}%; bottom: ${(pin.percent / chart.y.max) * 100}%;"`
+			`title="${pin.n}: day ${pin.day}, ${formatPercent(pin.percent)}" style="left: ${share(pin.day, chart.x.max)}%; bottom: ${share(pin.percent, chart.y.max)}%;"`
 		);
 		expect([...html.matchAll(/title="\d+: day /g)]).toHaveLength(chart.pins.length);
 		for (const t of [...chart.x.ticks, ...chart.y.ticks]) expect(text(html)).toContain(String(t));
