@@ -122,7 +122,7 @@ for (const p of pages) {
 		observedLcp: lhr.audits.metrics.details.items[0].observedLargestContentfulPaint,
 		cls: lhr.audits['cumulative-layout-shift'].numericValue,
 		tbt: lhr.audits['total-blocking-time'].numericValue,
-		// Runs whose first paint came long after the page had loaded and run its scripts (see below).
+		// Runs whose first paint came long after their load event (see the note printed below).
 		held: lhrs.filter(paintHeld).length,
 		runs: lhrs.length,
 		failing

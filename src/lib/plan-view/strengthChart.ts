@@ -6,9 +6,9 @@ export interface StrengthChart {
 	/** The line: percent of the 28-day strength by day after the last pour. */
 	points: { day: number; percent: number }[];
 	/** Days after the last pour, from 0 to the last charted day's count, a tick each week. */
-	x: { max: number; step: number; ticks: number[]; title: string };
+	x: { max: number; ticks: number[]; title: string };
 	/** Percent, from 0 to at least 100, grown in 25 % steps where warm weather passes 100 % before day 28. */
-	y: { max: number; step: number; ticks: number[]; title: string };
+	y: { max: number; ticks: number[]; title: string };
 	/** Each milestone inside the charted days, with its number in the list under the chart. */
 	pins: { day: number; percent: number; n: number }[];
 	/** One dashed line a milestone day, naming every milestone on that day ("1·2"). */
@@ -30,8 +30,8 @@ export function strengthChartGeometry(strength: readonly { day: number; percent:
 	for (const p of pins) byDay.set(p.day, [...(byDay.get(p.day) ?? []), p.n]);
 	return {
 		points,
-		x: { max: xMax, step: WEEK, ticks: range(xMax, WEEK), title: 'Days after the last pour' },
-		y: { max: yMax, step: STEP, ticks: range(yMax, STEP), title: '% of 28-day strength' },
+		x: { max: xMax, ticks: range(xMax, WEEK), title: 'Days after the last pour' },
+		y: { max: yMax, ticks: range(yMax, STEP), title: '% of 28-day strength' },
 		pins,
 		lines: [...byDay].map(([day, ns]) => ({ day, label: ns.join('·') }))
 	};
