@@ -192,3 +192,39 @@ describe('MaterialsList with no price entered', () => {
 		for (const out of [owner, pro]) expect(out).not.toContain('$0.00');
 	});
 });
+
+describe('the outline drawing writes its numbers to a ten-thousandth', () => {
+	// A corner that arithmetic left a hair off its value, as sums of decimal feet do (0.1 + 0.2).
+	const noisy = 13.999999999999998;
+	const result = computePlan({
+		units: 'imperial',
+		sections: [
+			{
+				outline: [
+					[0, 0],
+					[noisy, 0],
+					[noisy, 0.1 + 0.2 + 9.7],
+					[0, 10]
+				]
+			}
+		],
+		houseEdge: { section: 0, edge: 0 }
+	});
+	const svg = render(PlanOutline2D, { props: { result } }).body;
+	const numbers = [...svg.matchAll(/\s(?:x1|x2|y1|y2|x|y|cx|cy|r|font-size|stroke-width|stroke-dasharray|points|viewBox)="([^"]*)"/g)].flatMap((m) =>
+		m[1].split(/[\s,]+/).filter(Boolean)
+	);
+
+	it('every coordinate and size has at most four decimals', () => {
+		expect(numbers.length).toBeGreaterThan(40);
+		for (const n of numbers) expect(n).toMatch(/^-?\d+(\.\d{1,4})?$/);
+	});
+
+	it('the slab is drawn where its corners are, and grid lines fall on whole feet', () => {
+		const points = /<polygon[^>]*points="([^"]*)"/.exec(svg)![1];
+		expect(points).toBe('0,0 14,0 14,10 0,10');
+		const grid = [...svg.matchAll(/<line x1="([^"]*)" x2="\1"/g)].map((m) => Number(m[1]));
+		expect(grid).toContain(7);
+		for (const x of grid) expect(Number.isInteger(x)).toBe(true);
+	});
+});
