@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { MilestoneRow } from './rows';
-import { strengthChartGeometry } from './strengthChart';
+import { labelRows, strengthChartGeometry } from './strengthChart';
 
 // A made-up series: day d at 3.5·d percent, so day 30 reaches 105 %.
 const days = (n: number, perDay = 3.5) => Array.from({ length: n }, (_, i) => ({ day: i + 1, percent: (i + 1) * perDay }));
@@ -32,5 +32,28 @@ describe('the strength chart geometry both the page and the PDF draw', () => {
 			{ day: 1, label: '1' },
 			{ day: 2, label: '2·3' }
 		]);
+	});
+});
+
+describe('labelRows', () => {
+	const lines = (...days: number[]) => days.map((day, i) => ({ day, label: String(i + 1) }));
+	// A 28-day chart: a day is about 11 px of a 300 px phone plot, 36 px of a 1,000 px one.
+	it('lifts a label that would touch the one before it, on a phone', () => {
+		// Milestones on days 1, 2 and 3: each next one a row up, then back down once there is room.
+		expect(labelRows(lines(1, 2, 3, 7, 14), 28, 300)).toEqual([0, 1, 0, 0, 0]);
+	});
+	it('keeps every label in the first row when the plot is wide', () => {
+		expect(labelRows(lines(1, 2, 3, 7, 14), 28, 1000)).toEqual([0, 0, 0, 0, 0]);
+	});
+	it('gives a wider label ("1·2") more room', () => {
+		const wide = [
+			{ day: 1, label: '1·2' },
+			{ day: 2, label: '3' }
+		];
+		expect(labelRows(wide, 28, 300)).toEqual([0, 1]);
+		expect(labelRows(wide, 28, 600)).toEqual([0, 0]);
+	});
+	it('uses a third row when two lifted labels would touch too', () => {
+		expect(labelRows(lines(1, 1.5, 2), 28, 300)).toEqual([0, 1, 2]);
 	});
 });

@@ -36,3 +36,23 @@ export function strengthChartGeometry(strength: readonly { day: number; percent:
 		lines: [...byDay].map(([day, ns]) => ({ day, label: ns.join('·') }))
 	};
 }
+
+/**
+ * The row each milestone line's label sits in, 0 on the plot's top edge, 1 a line above it, so
+ * labels of milestones a day or two apart do not run together ("123") in a plot `plotPx` wide. A
+ * label goes in the lowest row where it clears the label before it by a few pixels; `charPx` is a
+ * generous width of one character of the label's type.
+ */
+export function labelRows(lines: readonly { day: number; label: string }[], xMax: number, plotPx: number, charPx = 7): number[] {
+	const GAP_PX = 4;
+	const last: { day: number; label: string }[] = [];
+	return lines.map((l) => {
+		let row = 0;
+		for (; last[row]; row++) {
+			const apart = ((l.day - last[row].day) / xMax) * plotPx;
+			if (apart >= ((l.label.length + last[row].label.length) / 2) * charPx + GAP_PX) break;
+		}
+		last[row] = l;
+		return row;
+	});
+}

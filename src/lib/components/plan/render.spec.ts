@@ -181,6 +181,24 @@ describe("the drawings' keys name only what is drawn, in whole sentences", () =>
 	});
 });
 
+describe('StrengthChart on a phone', () => {
+	it("lifts the label of a milestone a day after another, so the back patio's days 1, 2 and 3 do not read as 123", () => {
+		const patio = plans.find((p) => p.id === 'lind-back-patio')!.result;
+		const html = render(StrengthChart, { props: { plan: patio } }).body;
+		const labels = [...html.matchAll(/<span class="absolute bottom-full -translate-x-1\/2 text-xs font-bold text-clay-700 ?([^"]*)">([^<]+)<\/span>/g)].map(
+			(m) => [m[2], m[1]]
+		);
+		expect(labels).toEqual([
+			['1', ''],
+			['2', 'max-sm:pb-4'],
+			['3', ''],
+			['4', '']
+		]);
+		// The plot leaves room above it for the lifted row.
+		expect(html).toContain('pr-3 pl-8 pt-5 max-sm:pt-9');
+	});
+});
+
 describe('MaterialsList with no price entered', () => {
 	const bare = computePlan(smallPatio());
 	it('says the total is not priced, to the homeowner with where to price it, and never shows $0.00', () => {
