@@ -235,6 +235,9 @@ test('a draft left with a marked field is carried into the account unsaved, says
 	await page.locator('#thickness').fill('40'); // past the 2–12 in the engine takes
 	await page.locator('#thickness').blur();
 	await expect(page.getByTestId('save-status')).toHaveAttribute('data-status', 'local');
+	// On another step, the results say where the marked field is.
+	await wizardStep(page, 'Crew');
+	await expect(page.getByTestId('results')).toContainText('Fix the marked field in the Build-up step to see the numbers.');
 	await signUp(page, { name: 'Lale Marked', email: uniqueEmail('marked'), password: 'marked-field-kept' });
 	await page.goto('/plans');
 	await page.getByTestId('browser-draft').getByRole('link', { name: 'Save it to my plans' }).click();

@@ -1,7 +1,22 @@
 import type { PlanResult } from '$lib/plan';
 
 /** What the wizard's results panel and its phone bar show. pending: the engine is still loading; failed: it could not be fetched. */
-export type ResultsState = { result: PlanResult | null; errorCount?: number; pending?: boolean; failed?: boolean };
+export type ResultsState = {
+	result: PlanResult | null;
+	errorCount?: number;
+	/** The steps whose fields are marked, by title: the step on screen may not be one of them. */
+	errorSteps?: readonly string[];
+	pending?: boolean;
+	failed?: boolean;
+};
+
+/** What the results say while fields are marked, and in which steps: "Fix the 2 marked fields in the Site and Crew steps to see the numbers." */
+export function fixMessage(errorCount: number, errorSteps: readonly string[] = []): string {
+	const what = errorCount === 1 ? 'the marked field' : `the ${errorCount} marked fields`;
+	const names = errorSteps.length > 1 ? `${errorSteps.slice(0, -1).join(', ')} and ${errorSteps[errorSteps.length - 1]}` : errorSteps[0];
+	const where = names ? ` in the ${names} step${errorSteps.length > 1 ? 's' : ''}` : '';
+	return `Fix ${what}${where} to see the numbers.`;
+}
 
 /** The bag size the mixing plan counts in (the first offered while none is marked). */
 export const plannedBag = (result: PlanResult | null) => result?.bags.find((b) => b.planned) ?? result?.bags[0];
