@@ -342,7 +342,7 @@ export function planMessage(iss: Issue, units: Units, input?: unknown): string {
 		case 'invalid_value':
 			return `Choose ${label}: ${list(iss.values)}.`;
 		case 'invalid_format':
-			return iss.format === 'date' ? `Enter ${label} as a date, YYYY-MM-DD.` : `Check the form of ${label}.`;
+			return iss.format === 'date' ? dateMessage(label, at(input, path)) : `Check the form of ${label}.`;
 		case 'unrecognized_keys':
 			return `${
 				iss.keys.length > 1
@@ -361,6 +361,19 @@ export function planMessage(iss: Issue, units: Units, input?: unknown): string {
 		default:
 			return `${Label} is not valid; check it.`;
 	}
+}
+
+/**
+ * A date the schema refused. It takes ISO dates, whose years have four digits, so the last day a plan
+ * can hold is 31 December 9999; a browser's date box takes years up to 275760 and hands a longer one
+ * on as it is (192027-06-12). Only a value not written year-month-day at all, which no date box
+ * gives, is told how to write one.
+ */
+export function dateMessage(label: string, value: unknown): string {
+	const s = typeof value === 'string' ? value.trim() : '';
+	if (/^\+?\d{5,}-\d{2}-\d{2}$/.test(s)) return `${label[0].toUpperCase()}${label.slice(1)} is too far ahead: a plan takes days up to 31 December 9999.`;
+	if (/^\d{4}-\d{2}-\d{2}$/.test(s)) return `Enter ${label} as a real calendar date.`;
+	return `Enter ${label} as a real calendar date, written year-month-day (2027-06-12).`;
 }
 
 /** The zod error map for checking one plan (zod's per-parse error customisation). */

@@ -249,6 +249,17 @@ describe('messages in plain words', () => {
 		expect(messageAt({ currency: 'CAD', prices: { stake: -1 } }, 'prices.stake')).toBe('Enter the stake price, 0–1,000,000 CAD.');
 	});
 
+	it('say what is wrong with a pour date: too far ahead, not a real day, or not written as a date', () => {
+		const date = (pourDate: string) => messageAt({ conditions: { pourDate } }, 'conditions.pourDate');
+		// A date box takes years up to 275760 and gives a five- or six-digit one as typed; the schema's ISO dates end in 9999.
+		expect(date('192027-06-12')).toBe('The pour date is too far ahead: a plan takes days up to 31 December 9999.');
+		expect(date('20277-06-12')).toBe('The pour date is too far ahead: a plan takes days up to 31 December 9999.');
+		expect(parsePlanInput({ ...base, conditions: { pourDate: '9999-12-31' } }).ok).toBe(true);
+		expect(date('2027-02-30')).toBe('Enter the pour date as a real calendar date.');
+		// Only a value no date box gives (an API client's) is told how to write a date.
+		expect(date('06/12/2027')).toBe('Enter the pour date as a real calendar date, written year-month-day (2027-06-12).');
+	});
+
 	it('bound a custom board depth and a thickened edge’s depth below the slab, in both units', () => {
 		// common practice, no published source: boards 2–16 in (50–400 mm), trench 2–24 in (50–600 mm) below the slab.
 		const board = (units: string, customDepth: number) => messageAt({ units, forms: { lumber: 'custom', customDepth } }, 'forms.customDepth');

@@ -184,7 +184,9 @@ describe('POST /api/estimate: messages in plain words', () => {
 		expect(await messageAt({ ...valid, crew: { people: 2.5 } }, 'crew.people')).toBe('Enter the number of people, a whole number 1–20.');
 		expect(await messageAt({ ...valid, crew: { method: 'robot' } }, 'crew.method')).toBe('Choose the mixing method: hand or drum.');
 		expect(await messageAt({ ...valid, units: 'cubits' }, 'units')).toBe('Choose the units: imperial or metric.');
-		expect(await messageAt({ ...valid, conditions: { pourDate: 'soon' } }, 'conditions.pourDate')).toBe('Enter the pour date as a date, YYYY-MM-DD.');
+		expect(await messageAt({ ...valid, conditions: { pourDate: 'soon' } }, 'conditions.pourDate')).toBe(
+			'Enter the pour date as a real calendar date, written year-month-day (2027-06-12).'
+		);
 		expect(await messageAt({ ...valid, colour: 'grey' }, 'colour')).toMatch(/"colour" is not part of a plan/);
 	});
 
