@@ -33,9 +33,19 @@ export function fieldDefault(units: Units, path: string): unknown {
 	return valueAt(defaultsFor(units), path);
 }
 
+/** Units written as words, which take the singular after 1 ("1 day"); symbols (in, min, lb) never change. */
+const SINGULAR: Record<string, string> = { days: 'day', hours: 'hour', weeks: 'week', minutes: 'minute', people: 'person', bags: 'bag' };
+
+/** "18 in", "0.08", "1 day": a number with its unit as a sentence says it. */
+export function withUnit(v: number, unit = ''): string {
+	const shown = v.toLocaleString('en-US', { maximumFractionDigits: 3 });
+	const word = shown === '1' ? (SINGULAR[unit] ?? unit) : unit;
+	return word ? `${shown} ${word}` : shown;
+}
+
 /** "Default: 18 in." / "Default: 0.08." for a number field; '' when the field has no number default. */
 export function defaultText(units: Units, path: string, unit = ''): string {
 	const v = fieldDefault(units, path);
 	if (typeof v !== 'number') return '';
-	return `Default: ${v.toLocaleString('en-US', { maximumFractionDigits: 3 })}${unit ? ` ${unit}` : ''}.`;
+	return `Default: ${withUnit(v, unit)}.`;
 }
