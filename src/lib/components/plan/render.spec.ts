@@ -70,6 +70,13 @@ describe.each(plans)('plan page components, $id', ({ result }) => {
 		expect(cells.map((c) => c.split(' ').slice(-2).join(' '))).toEqual(result.elevations.stakes.map((s) => formatSmall(s.belowLevelLine, u)));
 	});
 
+	it('PlanOutline2D gives the joints’ depth as the day plan does (1¼ in, not 1.3 in)', () => {
+		const depth = formatSmall(result.joints.depth, u);
+		expect(text(render(PlanOutline2D, { props: { result } }).body)).toContain(`control joints (cut ${depth} deep)`);
+		const day = text(render(DayPlan, { props: { plan: result } }).body);
+		if (result.joints.sections.some((s) => s.lines.length)) expect(day).toContain(`control joints ${depth} deep`);
+	});
+
 	it('DayPlan shows every day and task', () => {
 		const out = text(render(DayPlan, { props: { plan: result } }).body);
 		for (const d of result.schedule.days) {
