@@ -171,7 +171,7 @@ test('the pitch step’s advice for a wall that drains toward the house fits whe
 	// High side square to the wall: the wall is level, and a cross fall runs water off it.
 	await page.getByLabel('High side').selectOption({ label: 'edge B–C' });
 	await expect(wall).toContainText('Level: no fall');
-	await expect(wall).toContainText('Set Cross fall below');
+	await expect(wall).toContainText('Set a Cross fall (or choose this wall as High side)');
 	// Positive runs toward C, away from wall A–B: 2.5 % meets the 2 % of IRC R401.3.
 	await page.getByLabel('Cross fall').fill('2.5');
 	await page.getByLabel('Cross fall').blur();
@@ -180,7 +180,7 @@ test('the pitch step’s advice for a wall that drains toward the house fits whe
 	await page.getByLabel('Cross fall').fill('-2.5');
 	await page.getByLabel('Cross fall').blur();
 	await expect(wall).toContainText('2.5 % toward the house');
-	await expect(wall).toContainText('try it the other way (the opposite sign)');
-	await expect(wall).not.toContainText('Set Cross fall below');
+	await expect(wall).toContainText('The Cross fall runs water toward this wall or too little off it: try it the other way (the opposite sign)');
+	await expect(wall).not.toContainText('Set a Cross fall');
 	expect(errors).toEqual([]);
 });
