@@ -28,11 +28,29 @@ async function tallEnough(page: Page, where: string) {
 	expect(short, `${where}: targets under 44 px tall`).toEqual([]);
 }
 
+/**
+ * Every tick box and radio on screen is drawn at its full 20 px or more: beside a label that wraps
+ * to a second line, a flex row squeezed three of them to 13–14 px.
+ */
+async function boxesFullSize(page: Page, where: string) {
+	const small = await page.evaluate(() =>
+		[...document.querySelectorAll<HTMLInputElement>('main input[type=checkbox], main input[type=radio]')]
+			.map((box) => ({
+				name: box.id || box.getAttribute('aria-label') || box.closest('label')?.textContent?.trim().slice(0, 40),
+				r: box.getBoundingClientRect()
+			}))
+			.filter(({ r }) => r.width > 0 && (r.width < 20 || r.height < 20))
+			.map(({ name, r }) => `${name}: ${r.width}×${r.height}`)
+	);
+	expect(small, `${where}: tick boxes under 20 px`).toEqual([]);
+}
+
 async function everyStep(page: Page, where: string) {
 	for (const title of STEPS) {
 		await wizardStep(page, title);
 		await noSidewaysScroll(page, `${where}, step ${title}`);
 		await tallEnough(page, `${where}, step ${title}`);
+		await boxesFullSize(page, `${where}, step ${title}`);
 	}
 }
 
@@ -84,6 +102,7 @@ test('on a phone the key results stay in sight while editing, corners are big en
 	// The L-shape's fields and house-wall choices are tall enough too (shown only once L is chosen).
 	await page.getByLabel('L-shape (notched corner)').check();
 	await tallEnough(page, 'outline, L-shape chosen');
+	await boxesFullSize(page, 'outline, L-shape chosen');
 	await page.getByLabel('Rectangle').check();
 	// The edge table's controls: named for what they do, and 44 px or more each way.
 	const edgeControls = [
