@@ -1,5 +1,5 @@
 import { expect, test, type Page } from '@playwright/test';
-import { signUp, uniqueEmail, watchErrors, wizardStep } from './helpers';
+import { openHydrated, signUp, uniqueEmail, watchErrors, wizardStep } from './helpers';
 
 test.use({ viewport: { width: 390, height: 844 }, isMobile: true, hasTouch: true });
 
@@ -184,4 +184,21 @@ test('on a phone the edit page and the plan page of a saved plan do not scroll s
 	await expect(photoBox.getByTestId('drop-hint')).toBeHidden();
 	// The curing-reminder switch's label was one 26 px line.
 	expect((await page.getByText('E-mail me curing reminders').boundingBox())!.height).toBeGreaterThanOrEqual(44);
+});
+
+test('scrolled to the end of each step, the page footer shows above the results bar, not under it', async ({ page }) => {
+	const errors = watchErrors(page);
+	await openHydrated(page, '/plans/new');
+	const bar = page.getByTestId('results-bar');
+	const footer = page.locator('footer', { hasText: 'Stakeline helps you plan; it does not replace local codes' });
+	for (const title of STEPS) {
+		await wizardStep(page, title);
+		await expect(bar).toBeInViewport();
+		await page.evaluate(() => window.scrollTo(0, document.documentElement.scrollHeight));
+		await expect(footer).toBeInViewport();
+		const barTop = (await bar.boundingBox())!.y;
+		const footerBox = (await footer.boundingBox())!;
+		expect(footerBox.y + footerBox.height, `step ${title}: the footer's foot, against the bar's top`).toBeLessThanOrEqual(barTop);
+	}
+	expect(errors).toEqual([]);
 });
