@@ -46,7 +46,7 @@ test('a pour day too far ahead says so, under the field and in the step’s list
 		await expect(summary).toHaveText(tooFar);
 		await expect(page.getByTestId('pour-date-past')).toHaveCount(0);
 		// The side panel's "marked field" is the one marked.
-		await expect(page.getByTestId('results')).toContainText('Fix the marked field to see the numbers.');
+		await expect(page.getByTestId('results')).toContainText('Fix the marked field in the Site step to see the numbers.');
 	}
 	await expect(page.getByText('YYYY-MM-DD')).toHaveCount(0);
 	await typeDate(page, `0612${new Date().getFullYear() + 1}`);
