@@ -2,6 +2,12 @@
 
 import type { Length, Small, Units, Volume } from './units';
 
+/** Values as a sentence lists them: "a, b or c" (or "and"); one alone, or '' for none. */
+export function list(values: readonly unknown[], word = 'or'): string {
+	const v = values.map(String);
+	return v.length > 1 ? `${v.slice(0, -1).join(', ')} ${word} ${v[v.length - 1]}` : (v[0] ?? '');
+}
+
 const VULGAR: Record<number, string> = { 1: '⅛', 2: '¼', 3: '⅜', 4: '½', 5: '⅝', 6: '¾', 7: '⅞' };
 
 /** Inches to the nearest eighth, as a tape reads: 1.375 → "1⅜ in". */

@@ -3,6 +3,7 @@
 // its unit and what to enter, never the validator's own wording.
 
 import type { z } from 'zod';
+import { list } from './format';
 import type { Units } from './units';
 
 /** How a fall or cross fall is given, the largest of each a plan may take (a 25 % slope), and its words. */
@@ -252,11 +253,6 @@ function range(min: number | null | undefined, max: number | null | undefined, u
 	if (hi !== null) return `, ${w}at most ${plainNumber(hi)}${u}`;
 	return whole ? ', a whole number' : unit ? ` in ${unit}` : '';
 }
-
-const list = (values: readonly unknown[], word = 'or') => {
-	const v = values.map(String);
-	return v.length > 1 ? `${v.slice(0, -1).join(', ')} ${word} ${v[v.length - 1]}` : (v[0] ?? '');
-};
 
 type Issue = z.core.$ZodRawIssue;
 /** What zod's number schemas tell about their bounds. */

@@ -4,6 +4,7 @@
 import type { ParsedPlan, Units } from '$lib/plan';
 import { engine } from './engine.svelte';
 import { valueAt } from './fieldPath';
+import { figure } from '$lib/plan-view/text';
 
 const cache: Partial<Record<Units, ParsedPlan>> = {};
 
@@ -38,7 +39,7 @@ const SINGULAR: Record<string, string> = { days: 'day', hours: 'hour', weeks: 'w
 
 /** "18 in", "0.08", "1 day": a number with its unit as a sentence says it. */
 export function withUnit(v: number, unit = ''): string {
-	const shown = v.toLocaleString('en-US', { maximumFractionDigits: 3 });
+	const shown = figure(v, 3);
 	const word = shown === '1' ? (SINGULAR[unit] ?? unit) : unit;
 	return word ? `${shown} ${word}` : shown;
 }

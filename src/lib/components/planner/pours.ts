@@ -1,4 +1,5 @@
 import type { PlanResult } from '$lib/plan';
+import { list } from '$lib/plan/format';
 
 /** What the wizard's results panel and its phone bar show. pending: the engine is still loading; failed: it could not be fetched. */
 export type ResultsState = {
@@ -13,8 +14,7 @@ export type ResultsState = {
 /** What the results say while fields are marked, and in which steps: "Fix the 2 marked fields in the Site and Crew steps to see the numbers." */
 export function fixMessage(errorCount: number, errorSteps: readonly string[] = []): string {
 	const what = errorCount === 1 ? 'the marked field' : `the ${errorCount} marked fields`;
-	const names = errorSteps.length > 1 ? `${errorSteps.slice(0, -1).join(', ')} and ${errorSteps[errorSteps.length - 1]}` : errorSteps[0];
-	const where = names ? ` in the ${names} step${errorSteps.length > 1 ? 's' : ''}` : '';
+	const where = errorSteps.length ? ` in the ${list(errorSteps, 'and')} step${errorSteps.length > 1 ? 's' : ''}` : '';
 	return `Fix ${what}${where} to see the numbers.`;
 }
 
